@@ -1,0 +1,42 @@
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { z } from 'zod';
+
+export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+
+const booleanFlag = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((value) => value === 'true' || value === '1' || value === 'yes');
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(1).max(65535).default(4310),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  DATABASE_URL: z
+    .string()
+    .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// or postgresql:// URL')
+    .optional(),
+  SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
+  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL').optional(),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  HALFLIGHT_DATA_DIR: z.string().min(1).default(path.join(projectRoot, '.halflight')),
+  HALFLIGHT_PG_PORT: z.coerce.number().int().min(1024).max(65535).default(55432),
+  HALFLIGHT_DEMO_DATA: booleanFlag.optional(),
+});
+
+export type AppConfig = z.infer<typeof envSchema> & { demoData: boolean };
+
+/**
+ * Reads configuration from environment variables and fails fast, naming each bad variable.
+ * Demo data is loaded by default only on the embedded database, never silently into a
+ * PostgreSQL the operator pointed us at.
+ */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
+    throw new Error(`Halflight configuration is invalid:\n${lines.join('\n')}`);
+  }
+  const config = parsed.data;
+  return { ...config, demoData: config.HALFLIGHT_DEMO_DATA ?? config.DATABASE_URL === undefined };
+}

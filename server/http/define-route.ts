@@ -1,0 +1,66 @@
+import type { Request, RequestHandler, Response } from 'express';
+import type { z } from 'zod';
+import { AppError } from '../lib/app-error';
+
+export type HttpMethod = 'get' | 'post' | 'put' | 'patch' | 'delete';
+
+export interface RouteResponse {
+  description: string;
+  schema?: z.ZodType;
+}
+
+export interface RouteContext<P, Q, B> {
+  req: Request;
+  res: Response;
+  params: P;
+  query: Q;
+  body: B;
+}
+
+/**
+ * One API route: its contract (zod schemas, which also feed the OpenAPI document) and its
+ * handler. Routes are declared with `defineRoute` and mounted by `mountRoutes`, so a route
+ * cannot exist without appearing in /api/openapi.json.
+ */
+export interface RouteSpec<P = unknown, Q = unknown, B = unknown> {
+  method: HttpMethod;
+  /** Express-style path, e.g. "/api/labs/:labId/studies". */
+  path: string;
+  summary: string;
+  tags: string[];
+  request?: { params?: z.ZodType<P>; query?: z.ZodType<Q>; body?: z.ZodType<B> };
+  responses: Record<number, RouteResponse>;
+  /** Runs before validation (authentication, lab membership, role checks). */
+  middleware?: RequestHandler[];
+  handler: (context: RouteContext<P, Q, B>) => Promise<void> | void;
+}
+
+export function defineRoute<P = Record<string, never>, Q = Record<string, never>, B = undefined>(
+  spec: RouteSpec<P, Q, B>,
+): RouteSpec<P, Q, B> {
+  return spec;
+}
+
+export type AnyRouteSpec = RouteSpec<any, any, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
+
+function parsePart<T>(schema: z.ZodType<T> | undefined, value: unknown, part: string): T {
+  if (!schema) return value as T;
+  const result = schema.safeParse(value);
+  if (result.success) return result.data;
+  throw new AppError(
+    'validation_failed',
+    `The request ${part} has ${result.error.issues.length === 1 ? 'a problem' : 'problems'}: ` +
+      result.error.issues.map((issue) => `${[part, ...issue.path].join('.')}: ${issue.message}`).join('; '),
+    400,
+    result.error.issues.map((issue) => ({ path: [part, ...issue.path].join('.'), message: issue.message })),
+  );
+}
+
+export function toHandler(spec: AnyRouteSpec): RequestHandler {
+  return async (req, res) => {
+    const params = parsePart(spec.request?.params, req.params, 'params');
+    const query = parsePart(spec.request?.query, req.query, 'query');
+    const body = parsePart(spec.request?.body, req.body, 'body');
+    await spec.handler({ req, res, params, query, body });
+  };
+}

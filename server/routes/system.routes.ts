@@ -1,0 +1,34 @@
+import { z } from 'zod';
+import { healthSchema } from '@shared/schemas/health';
+import { defineRoute } from '../http/define-route';
+import { checkHealth } from '../services/health.service';
+
+export const systemRoutes = [
+  defineRoute({
+    method: 'get',
+    path: '/api/health',
+    summary: 'Reports the API and a live round trip to the database',
+    tags: ['system'],
+    responses: {
+      200: { description: 'API and database are up', schema: healthSchema },
+      503: { description: 'The database did not answer', schema: healthSchema },
+    },
+    handler: async ({ req, res }) => {
+      const { sequelize, embeddedDatabase } = req.app.locals.services;
+      const health = await checkHealth(sequelize, embeddedDatabase);
+      res.status(health.database.status === 'up' ? 200 : 503).json(health);
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api/openapi.json',
+    summary: 'This API described as an OpenAPI 3.1 document, generated from the shared zod schemas',
+    tags: ['system'],
+    responses: {
+      200: { description: 'The OpenAPI document', schema: z.record(z.string(), z.unknown()) },
+    },
+    handler: ({ req, res }) => {
+      res.json(req.app.locals.openApiDocument);
+    },
+  }),
+];

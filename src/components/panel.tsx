@@ -1,0 +1,20 @@
+import type { ReactNode } from 'react';
+
+interface PanelProps {
+  title: string;
+  children: ReactNode;
+  aside?: ReactNode;
+}
+
+/** A titled surface; the basic block of every screen. */
+export function Panel({ title, children, aside }: PanelProps) {
+  return (
+    <section aria-label={title} className="rounded-card border border-paper-200 bg-paper-50 p-5 shadow-card">
+      <header className="mb-3 flex items-baseline justify-between gap-4">
+        <h2 className="text-lead font-bold text-ink-900">{title}</h2>
+        {aside}
+      </header>
+      {children}
+    </section>
+  );
+}

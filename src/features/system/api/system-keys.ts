@@ -1,0 +1,4 @@
+export const systemKeys = {
+  all: ['system'] as const,
+  health: () => [...systemKeys.all, 'health'] as const,
+};

@@ -1,0 +1,65 @@
+import { Panel } from '@/components/panel';
+import { Signal } from '@/components/signal';
+import { ErrorNotice } from '@/components/error-notice';
+import { useHealth } from '@/features/system/api/get-health';
+
+function Fact({ label, value }: { label: string; value: string }) {
+  return (
+    <div>
+      <dt className="text-caption uppercase text-ink-500">{label}</dt>
+      <dd className="text-body font-bold text-ink-900">{value}</dd>
+    </div>
+  );
+}
+
+function formatUptime(seconds: number): string {
+  if (seconds < 60) return `${seconds} s`;
+  if (seconds < 3600) return `${Math.floor(seconds / 60)} min`;
+  return `${Math.floor(seconds / 3600)} h ${Math.floor((seconds % 3600) / 60)} min`;
+}
+
+/** The landing screen: what Halflight is for, and whether its server and database are answering. */
+export function OverviewRoute() {
+  const health = useHealth();
+  return (
+    <div className="max-w-4xl space-y-6">
+      <header>
+        <h1 className="text-display font-black text-ink-950">Overview</h1>
+        <p className="mt-1 max-w-2xl text-lead text-ink-700">
+          Halflight keeps a lab&apos;s quenching titrations, fits and redox potentials in one place, so the team can
+          see which reaction component intercepts the excited catalyst, and how fast.
+        </p>
+      </header>
+      <Panel
+        title="Workspace status"
+        aside={
+          health.isPending ? (
+            <Signal tone="waiting">Checking</Signal>
+          ) : health.data?.database.status === 'up' ? (
+            <Signal tone="good">Database answering</Signal>
+          ) : (
+            <Signal tone="bad">Database not answering</Signal>
+          )
+        }
+      >
+        {health.isError && <ErrorNotice error={health.error} what="the workspace status" />}
+        {health.data && (
+          <dl className="grid grid-cols-2 gap-4 sm:grid-cols-3">
+            <Fact label="Halflight version" value={health.data.version} />
+            <Fact label="Server running for" value={formatUptime(health.data.uptimeSeconds)} />
+            <Fact
+              label="Database round trip"
+              value={health.data.database.latencyMs === null ? '—' : `${health.data.database.latencyMs} ms`}
+            />
+            <Fact label="PostgreSQL" value={health.data.database.serverVersion ?? '—'} />
+            <Fact label="Database kind" value={health.data.database.embedded ? 'Built-in (this machine)' : 'External'} />
+            <Fact label="Schema changes applied" value={String(health.data.database.migrationsApplied ?? '—')} />
+          </dl>
+        )}
+        {health.data?.database.message && (
+          <p className="mt-3 text-body text-brick-700">{health.data.database.message}</p>
+        )}
+      </Panel>
+    </div>
+  );
+}

@@ -1,0 +1,49 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, screenshotDir } from '../support/browser';
+import { startLiveServer } from '../support/live-server';
+
+let browser: Browser;
+let server: Awaited<ReturnType<typeof startLiveServer>>;
+let page: Page;
+const requestedHosts = new Set<string>();
+
+beforeAll(async () => {
+  server = await startLiveServer();
+  browser = await launchBrowser();
+  page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+  page.on('request', (request) => requestedHosts.add(new URL(request.url()).host));
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('the app shell in Chromium', () => {
+  it('when the overview opens, then the navigation and a live database status render', async () => {
+    await page.goto(server.baseUrl);
+    await expect(page.getByRole('heading', { name: 'Overview', level: 1 }).isVisible()).resolves.toBe(true);
+    await page.getByText('Database answering').waitFor();
+    const navigation = page.getByRole('navigation', { name: 'Main' });
+    expect(await navigation.getByRole('link').allTextContents()).toEqual(['Overview']);
+    const font = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
+    expect(font).toContain('Lato');
+    fs.mkdirSync(screenshotDir, { recursive: true });
+    await page.screenshot({ path: path.join(screenshotDir, 'overview.png'), fullPage: true });
+  });
+
+  it('when an unknown address is opened, then the not-found screen offers the way back', async () => {
+    await page.goto(`${server.baseUrl}/no/such/screen`);
+    await page.getByRole('heading', { name: 'Nothing here' }).waitFor();
+    await page.getByRole('link', { name: 'Back to the overview' }).click();
+    await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
+    await page.screenshot({ path: path.join(screenshotDir, 'not-found-back.png') });
+  });
+
+  it('when the pages load, then nothing was requested from outside this machine', () => {
+    expect([...requestedHosts].every((host) => host.startsWith('127.0.0.1:'))).toBe(true);
+  });
+});

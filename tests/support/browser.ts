@@ -1,0 +1,39 @@
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
+import { chromium } from 'playwright-core';
+import type { Browser } from 'playwright-core';
+
+const chromiumPath = '/usr/bin/chromium';
+
+/** Debian's Chromium, installed with apt when missing and we are root; never a downloaded browser. */
+function ensureChromium(): void {
+  if (fs.existsSync(chromiumPath)) return;
+  if (process.getuid?.() !== 0) {
+    throw new Error(`Chromium is missing. Install it with: sudo apt-get install -y chromium`);
+  }
+  execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
+  execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], {
+    stdio: 'inherit',
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
+}
+
+export async function launchBrowser(): Promise<Browser> {
+  ensureChromium();
+  return chromium.launch({
+    executablePath: chromiumPath,
+    // Flags that keep Chromium off the network entirely (this machine reaches only package registries).
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+      '--disable-quic',
+    ],
+  });
+}
+
+export const screenshotDir = 'test-output/e2e';

@@ -1,0 +1,61 @@
+import { fileURLToPath, URL } from 'node:url';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vitest/config';
+
+const alias = {
+  '@': fileURLToPath(new URL('./src', import.meta.url)),
+  '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+  '@server': fileURLToPath(new URL('./server', import.meta.url)),
+};
+
+// The API server listens on PORT (default 4310); the Vite dev server proxies /api to it.
+const apiPort = process.env.PORT ?? '4310';
+
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  resolve: { alias },
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    proxy: { '/api': `http://127.0.0.1:${apiPort}` },
+  },
+  build: { outDir: 'dist', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
+  test: {
+    reporters: ['default', './tests/support/plain-summary-reporter.ts'],
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/support/global-database.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+          fileParallelism: false,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/support/global-database.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 90_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
