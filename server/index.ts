@@ -1,13 +1,20 @@
 import type { Server } from 'node:http';
 import { pino } from 'pino';
 import { createApp } from './app';
+import type { HalflightApp } from './app';
 import { loadConfig } from './config/env';
 import { startEmbeddedPostgres } from './db/embedded-postgres';
 import type { EmbeddedPostgres } from './db/embedded-postgres';
 import { migrateToLatest } from './db/migrator';
 import { createSequelize } from './db/sequelize';
+import { resolveSessionSecret } from './lib/session-secret';
+import { startMailCatcher } from './mail/catcher';
+import type { MailCatcher } from './mail/catcher';
+import { createMailer } from './mail/mailer';
+import type { Mailer } from './mail/mailer';
 import { initModels } from './models';
 import { seedDemoData } from './seed/demo';
+import { ensureFirstAdmin } from './services/first-admin.service';
 
 const config = loadConfig();
 const logger = pino({
@@ -16,15 +23,22 @@ const logger = pino({
 });
 
 let database: EmbeddedPostgres | undefined;
-let server: Server | undefined;
 let sequelize: ReturnType<typeof createSequelize> | undefined;
+let catcher: MailCatcher | undefined;
+let mailer: Mailer | undefined;
+let app: HalflightApp | undefined;
+let server: Server | undefined;
 let stopping = false;
 
+/** Stops everything that started, in reverse order, then exits. */
 async function stop(exitCode: number): Promise<never> {
   if (!stopping) {
     stopping = true;
     await new Promise<void>((resolve) => (server ? server.close(() => resolve()) : resolve()));
     server?.closeAllConnections();
+    await app?.closeResources().catch(() => {});
+    mailer?.close();
+    await catcher?.stop();
     await sequelize?.close().catch(() => {});
     if (database) {
       logger.info('Stopping the embedded PostgreSQL cluster ...');
@@ -44,24 +58,49 @@ async function main(): Promise<void> {
     });
     logger.info(`Embedded PostgreSQL is up on 127.0.0.1:${database.port} (data in ${database.dataRoot}).`);
   }
-  sequelize = createSequelize(config.DATABASE_URL ?? database!.url);
+  const databaseUrl = config.DATABASE_URL ?? database!.url;
+  sequelize = createSequelize(databaseUrl);
   await sequelize.authenticate();
   const applied = await migrateToLatest(sequelize);
   if (applied.length) logger.info(`Applied migrations: ${applied.join(', ')}`);
   initModels(sequelize);
-  if (config.demoData) {
-    const { created } = await seedDemoData(sequelize);
-    if (created) logger.info('Loaded the invented demo scenario (demo data only).');
+
+  if (config.demoData && (await seedDemoData(sequelize)).created) {
+    logger.info('Loaded the invented demo scenario (demo data only; sign-ins in README.md).');
+  }
+  const { HALFLIGHT_FIRST_ADMIN_EMAIL: email, HALFLIGHT_FIRST_ADMIN_PASSWORD: password } = config;
+  if (email && password) {
+    const labName = config.HALFLIGHT_FIRST_LAB_NAME ?? 'My lab';
+    if ((await ensureFirstAdmin(sequelize, { email, password, labName })).created) {
+      logger.info(`Created the first admin ${email} of "${labName}".`);
+    }
   }
 
-  const app = createApp({ sequelize, embeddedDatabase: database !== undefined, logger });
+  if (config.SMTP_URL) {
+    mailer = createMailer(config.SMTP_URL, config.MAIL_FROM);
+  } else {
+    catcher = await startMailCatcher();
+    mailer = createMailer(catcher.url, config.MAIL_FROM);
+    logger.info(`No SMTP_URL: outgoing mail is caught on 127.0.0.1:${catcher.port}; admins read it in the app.`);
+  }
+
+  app = createApp({
+    sequelize,
+    embeddedDatabase: database !== undefined,
+    logger,
+    databaseUrl,
+    sessionSecret: resolveSessionSecret(config.SESSION_SECRET, config.HALFLIGHT_DATA_DIR),
+    mailer,
+    mailCatcher: catcher !== undefined,
+    publicUrl: config.publicUrl,
+    behindTls: config.HALFLIGHT_BEHIND_TLS,
+  });
   server = app.listen(config.PORT, config.HOST);
   await new Promise<void>((resolve, reject) => {
     server!.once('listening', resolve);
     server!.once('error', reject);
   });
-  const shownHost = config.HOST === '0.0.0.0' ? '127.0.0.1' : config.HOST;
-  console.log(`\n  Halflight is ready: open http://${shownHost}:${config.PORT}\n  Press Ctrl-C to stop.\n`);
+  console.log(`\n  Halflight is ready: open ${config.publicUrl}\n  Press Ctrl-C to stop.\n`);
 }
 
 process.on('SIGINT', () => void stop(0));

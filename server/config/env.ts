@@ -22,9 +22,15 @@ const envSchema = z.object({
   HALFLIGHT_DATA_DIR: z.string().min(1).default(path.join(projectRoot, '.halflight')),
   HALFLIGHT_PG_PORT: z.coerce.number().int().min(1024).max(65535).default(55432),
   HALFLIGHT_DEMO_DATA: booleanFlag.optional(),
+  HALFLIGHT_BEHIND_TLS: booleanFlag.default(false),
+  HALFLIGHT_PUBLIC_URL: z.string().regex(/^https?:\/\//, 'must start with http:// or https://').optional(),
+  MAIL_FROM: z.string().min(3).default('Halflight <no-reply@halflight.invalid>'),
+  HALFLIGHT_FIRST_ADMIN_EMAIL: z.string().email('must be an e-mail address').optional(),
+  HALFLIGHT_FIRST_ADMIN_PASSWORD: z.string().min(10, 'must be at least 10 characters').optional(),
+  HALFLIGHT_FIRST_LAB_NAME: z.string().min(1).max(160).optional(),
 });
 
-export type AppConfig = z.infer<typeof envSchema> & { demoData: boolean };
+export type AppConfig = z.infer<typeof envSchema> & { demoData: boolean; publicUrl: string };
 
 /**
  * Reads configuration from environment variables and fails fast, naming each bad variable.
@@ -38,5 +44,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     throw new Error(`Halflight configuration is invalid:\n${lines.join('\n')}`);
   }
   const config = parsed.data;
-  return { ...config, demoData: config.HALFLIGHT_DEMO_DATA ?? config.DATABASE_URL === undefined };
+  const shownHost = config.HOST === '0.0.0.0' ? '127.0.0.1' : config.HOST;
+  return {
+    ...config,
+    demoData: config.HALFLIGHT_DEMO_DATA ?? config.DATABASE_URL === undefined,
+    publicUrl: (config.HALFLIGHT_PUBLIC_URL ?? `http://${shownHost}:${config.PORT}`).replace(/\/$/, ''),
+  };
 }

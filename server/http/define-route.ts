@@ -1,6 +1,14 @@
 import type { Request, RequestHandler, Response } from 'express';
 import type { z } from 'zod';
+import type { Role } from '@shared/schemas/roles';
 import { AppError } from '../lib/app-error';
+import type { RateLimitName } from '../middleware/security';
+
+/**
+ * Who may call a route: anyone, any signed-in person, or a lab member with at least this role
+ * (the path then has :labId). Checked on the server before the request is validated.
+ */
+export type RouteAccess = 'public' | 'signed-in' | { lab: Role };
 
 export type HttpMethod = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
@@ -30,8 +38,9 @@ export interface RouteSpec<P = unknown, Q = unknown, B = unknown> {
   tags: string[];
   request?: { params?: z.ZodType<P>; query?: z.ZodType<Q>; body?: z.ZodType<B> };
   responses: Record<number, RouteResponse>;
-  /** Runs before validation (authentication, lab membership, role checks). */
-  middleware?: RequestHandler[];
+  access: RouteAccess;
+  /** A named rate limit applied before the handler (settings in middleware/security.ts). */
+  rateLimit?: RateLimitName;
   handler: (context: RouteContext<P, Q, B>) => Promise<void> | void;
 }
 

@@ -37,7 +37,14 @@ function toAppError(error: unknown): AppError | null {
       error.errors.map((item) => ({ path: item.path ?? '', message: item.message })),
     );
   }
-  const httpish = error as HttpishError;
+  const httpish = error as HttpishError & { code?: string };
+  if (httpish?.code === 'EBADCSRFTOKEN') {
+    return new AppError(
+      'csrf_invalid',
+      'This change was refused because its security token is missing or stale. Reload the page and try again.',
+      403,
+    );
+  }
   // body-parser and multer errors carry an HTTP status of their own.
   if (httpish?.type === 'entity.too.large') {
     return new AppError('payload_too_large', 'The request body is larger than allowed.', 413);

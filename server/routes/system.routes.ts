@@ -9,6 +9,7 @@ export const systemRoutes = [
     path: '/api/health',
     summary: 'Reports the API and a live round trip to the database',
     tags: ['system'],
+    access: 'public',
     responses: {
       200: { description: 'API and database are up', schema: healthSchema },
       503: { description: 'The database did not answer', schema: healthSchema },
@@ -24,6 +25,7 @@ export const systemRoutes = [
     path: '/api/openapi.json',
     summary: 'This API described as an OpenAPI 3.1 document, generated from the shared zod schemas',
     tags: ['system'],
+    access: 'public',
     responses: {
       200: { description: 'The OpenAPI document', schema: z.record(z.string(), z.unknown()) },
     },

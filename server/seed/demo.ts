@@ -1,18 +1,41 @@
 import type { Sequelize } from 'sequelize';
-import { Lab } from '../models';
+import type { Role } from '@shared/schemas/roles';
+import { hashPassword } from '../auth/passwords';
+import { Lab, Membership, User } from '../models';
 
-/** The invented demo lab. Every name and number in the demo data is made up. */
-export const demoLab = { name: 'Demo — Marram Photoredox Group', slug: 'demo-marram' } as const;
+/** The invented demo scenario. Every name, address and number in it is made up. */
+export const demoLabs = [
+  { key: 'marram', name: 'Demo — Marram Photoredox Group', slug: 'demo-marram' },
+  { key: 'saltmarsh', name: 'Demo — Saltmarsh Materials Lab', slug: 'demo-saltmarsh' },
+] as const;
+
+/** Demo sign-ins, listed in the README as demo-only. */
+export const demoPassword = 'halflight-demo';
+export const demoPeople: Array<{ email: string; name: string; roles: Partial<Record<'marram' | 'saltmarsh', Role>> }> = [
+  { email: 'ines.okafor@demo.halflight.example', name: 'Ines Okafor', roles: { marram: 'admin', saltmarsh: 'researcher' } },
+  { email: 'tomasz.wren@demo.halflight.example', name: 'Tomasz Wren', roles: { marram: 'reviewer' } },
+  { email: 'priya.halvorsen@demo.halflight.example', name: 'Priya Halvorsen', roles: { marram: 'researcher' } },
+  { email: 'jonah.mbeki@demo.halflight.example', name: 'Jonah Mbeki', roles: { marram: 'viewer', saltmarsh: 'admin' } },
+];
 
 /**
- * Loads the invented demo scenario once, on an empty database. Later features add their
- * records here; each step checks before it inserts, so a restart never duplicates data.
+ * Loads the demo scenario once, on a database without it. Later features add their records
+ * here; everything runs in one transaction, so a failed seed leaves nothing half-made.
  */
 export async function seedDemoData(sequelize: Sequelize): Promise<{ created: boolean }> {
+  if (await Lab.count({ where: { slug: demoLabs[0].slug } })) return { created: false };
+  const passwordHash = await hashPassword(demoPassword);
   return sequelize.transaction(async (transaction) => {
-    const existing = await Lab.findOne({ where: { slug: demoLab.slug }, transaction });
-    if (existing) return { created: false };
-    await Lab.create({ ...demoLab, isDemo: true }, { transaction });
+    const labs: Record<string, Lab> = {};
+    for (const lab of demoLabs) {
+      labs[lab.key] = await Lab.create({ name: lab.name, slug: lab.slug, isDemo: true }, { transaction });
+    }
+    for (const person of demoPeople) {
+      const user = await User.create({ email: person.email, name: person.name, passwordHash }, { transaction });
+      for (const [labKey, role] of Object.entries(person.roles)) {
+        await Membership.create({ labId: labs[labKey]!.id, userId: user.id, role }, { transaction });
+      }
+    }
     return { created: true };
   });
 }

@@ -1,10 +1,19 @@
 import type { AppServices } from '../app';
+import type { LabContext } from '../middleware/access';
 
 declare global {
   namespace Express {
     interface Locals {
       services: AppServices;
       openApiDocument: unknown;
+    }
+    /** What passport keeps of the signed-in person: only the id. */
+    interface User {
+      id: string;
+    }
+    interface Request {
+      /** Set by requireLabRole on routes under /api/labs/:labId. */
+      lab?: LabContext;
     }
   }
 }

@@ -1,14 +1,12 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { pino } from 'pino';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app';
 import { apiRoutes } from '../../server/routes';
 import { createTestApp } from '../support/test-app';
 
-const { app, sequelize, close } = createTestApp();
+const { app, sequelize, close } = await createTestApp();
 afterAll(close);
 
 describe('GET /api/health', () => {
@@ -26,10 +24,15 @@ describe('GET /api/health', () => {
 
 describe('unknown API routes', () => {
   it('when a path under /api matches nothing, then it answers 404 in the one error shape', async () => {
-    const response = await request(app).post('/api/no-such-thing').send({}).expect(404);
+    const response = await request(app).get('/api/no-such-thing').expect(404);
     expect(response.body).toEqual({
-      error: { code: 'not_found', message: 'No API route matches POST /api/no-such-thing.' },
+      error: { code: 'not_found', message: 'No API route matches GET /api/no-such-thing.' },
     });
+  });
+
+  it('when a change arrives without a CSRF token, then it is refused with 403 csrf_invalid', async () => {
+    const response = await request(app).post('/api/no-such-thing').send({}).expect(403);
+    expect(response.body.error.code).toBe('csrf_invalid');
   });
 
   it('when the JSON body is malformed, then it answers 400 invalid_json', async () => {
@@ -58,8 +61,9 @@ describe('client routes', () => {
   it('when a client path is requested, then the built index.html is served, not JSON', async () => {
     const clientDir = fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-client-'));
     fs.writeFileSync(path.join(clientDir, 'index.html'), '<!doctype html><div id="root"></div>');
-    const withClient = createApp({ sequelize, embeddedDatabase: true, logger: pino({ level: 'silent' }), clientDir });
-    const response = await request(withClient).get('/studies/some-screen').expect(200);
+    const withClient = await createTestApp({ clientDir });
+    const response = await request(withClient.app).get('/studies/some-screen').expect(200);
+    await withClient.close();
     expect(response.headers['content-type']).toMatch(/text\/html/);
     expect(response.text).toContain('<div id="root">');
     fs.rmSync(clientDir, { recursive: true, force: true });

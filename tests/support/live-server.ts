@@ -10,7 +10,7 @@ export async function startLiveServer() {
   if (!fs.existsSync(path.join(projectRoot, 'dist', 'index.html'))) {
     throw new Error('The client is not built: run "npm run build" (npm test does this first).');
   }
-  const { app, sequelize, close } = createTestApp();
+  const { app, sequelize, close } = await createTestApp();
   const port = await freePort();
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(port, '127.0.0.1', () => resolve(listening));

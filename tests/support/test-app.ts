@@ -1,13 +1,47 @@
+import crypto from 'node:crypto';
 import { pino } from 'pino';
 import { inject } from 'vitest';
 import { createApp } from '../../server/app';
+import type { CreateAppOptions } from '../../server/app';
 import { createSequelize } from '../../server/db/sequelize';
+import { startMailCatcher } from '../../server/mail/catcher';
+import { createMailer } from '../../server/mail/mailer';
 import { initModels } from '../../server/models';
 
-/** The real application on the project's throwaway database, for supertest and the browser. */
-export function createTestApp() {
-  const sequelize = createSequelize(inject('databaseUrl'));
+/**
+ * The real application on the project's throwaway database, with the local mail catcher, for
+ * supertest and the browser. Rate limits are generous unless a test asks for tight ones.
+ */
+export async function createTestApp(overrides: Partial<CreateAppOptions> = {}) {
+  const databaseUrl = inject('databaseUrl');
+  const sequelize = createSequelize(databaseUrl);
   initModels(sequelize);
-  const app = createApp({ sequelize, embeddedDatabase: true, logger: pino({ level: 'silent' }) });
-  return { app, sequelize, close: () => sequelize.close() };
+  const catcher = await startMailCatcher();
+  const mailer = createMailer(catcher.url, 'Halflight tests <tests@halflight.invalid>');
+  const app = createApp({
+    sequelize,
+    embeddedDatabase: true,
+    logger: pino({ level: 'silent' }),
+    databaseUrl,
+    sessionSecret: crypto.randomBytes(32).toString('hex'),
+    mailer,
+    mailCatcher: true,
+    publicUrl: 'http://127.0.0.1:4310',
+    rateLimits: {
+      signIn: { windowMs: 60_000, limit: 1000 },
+      passwordReset: { windowMs: 60_000, limit: 1000 },
+      invitation: { windowMs: 60_000, limit: 1000 },
+    },
+    ...overrides,
+  });
+  return {
+    app,
+    sequelize,
+    async close() {
+      await app.closeResources();
+      mailer.close();
+      await catcher.stop();
+      await sequelize.close();
+    },
+  };
 }

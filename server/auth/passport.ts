@@ -1,0 +1,30 @@
+import { Passport } from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import { User } from '../models';
+import { verifyPassword } from './passwords';
+
+/** One passport instance per app: e-mail + password, the session holding only the user id. */
+export function createPassport(): InstanceType<typeof Passport> {
+  const passport = new Passport();
+  passport.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, async (email, password, done) => {
+      try {
+        const user = await User.findOne({ where: { email: email.trim().toLowerCase() } });
+        const valid = await verifyPassword(password, user?.passwordHash);
+        done(null, valid && user ? { id: user.id } : false);
+      } catch (error) {
+        done(error);
+      }
+    }),
+  );
+  passport.serializeUser((user, done) => done(null, user.id));
+  passport.deserializeUser(async (id: string, done) => {
+    try {
+      const user = await User.findByPk(id, { attributes: ['id'] });
+      done(null, user ? { id: user.id } : false);
+    } catch (error) {
+      done(error);
+    }
+  });
+  return passport;
+}

@@ -1,0 +1,54 @@
+import type { RequestHandler } from 'express';
+import type { Role } from '@shared/schemas/roles';
+import { roleAtLeast } from '@shared/schemas/roles';
+import { AppError } from '../lib/app-error';
+import { Lab, Membership } from '../models';
+
+export interface LabContext {
+  id: string;
+  name: string;
+  isDemo: boolean;
+  role: Role;
+  membershipId: string;
+}
+
+/** 401 JSON for a signed-out request (never a redirect). */
+export const requireAuth: RequestHandler = (req, _res, next) => {
+  if (!req.user) throw new AppError('not_signed_in', 'Sign in to use this part of Halflight.', 401);
+  next();
+};
+
+const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const labNotFound = () => new AppError('not_found', 'No such lab, or you are not a member of it.', 404);
+
+/**
+ * Resolves :labId, checks that the signed-in person is a member (404 otherwise, so a lab's
+ * existence is not revealed) and that their role there is at least `needed` (403).
+ */
+export function requireLabRole(needed: Role): RequestHandler {
+  return async (req, _res, next) => {
+    const labId = String(req.params.labId ?? '');
+    if (!req.user) throw new AppError('not_signed_in', 'Sign in to use this part of Halflight.', 401);
+    if (!uuidPattern.test(labId)) throw labNotFound();
+    const membership = await Membership.findOne({
+      where: { labId, userId: req.user.id },
+      include: [{ model: Lab, as: 'lab' }],
+    });
+    if (!membership?.lab) throw labNotFound();
+    if (!roleAtLeast(membership.role, needed)) {
+      throw new AppError(
+        'forbidden',
+        `Your role in this lab (${membership.role}) cannot do this; it needs ${needed} or higher.`,
+        403,
+      );
+    }
+    req.lab = {
+      id: membership.lab.id,
+      name: membership.lab.name,
+      isDemo: membership.lab.isDemo,
+      role: membership.role,
+      membershipId: membership.id,
+    };
+    next();
+  };
+}

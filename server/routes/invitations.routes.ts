@@ -1,0 +1,45 @@
+import { z } from 'zod';
+import { acceptInvitationSchema, invitationPreviewSchema, sessionSchema } from '@shared/schemas/auth';
+import { defineRoute } from '../http/define-route';
+import { acceptInvitation, previewInvitation } from '../services/invitations.service';
+import { logIn, sessionResponse } from './session.routes';
+
+const tokenParams = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,100}$/, 'is not a valid invitation token') });
+
+export const invitationRoutes = [
+  defineRoute({
+    method: 'get',
+    path: '/api/invitations/:token',
+    summary: 'What an invitation link offers: lab, role, inviter, expiry',
+    tags: ['invitations'],
+    access: 'public',
+    request: { params: tokenParams },
+    responses: {
+      200: { description: 'Open invitation', schema: invitationPreviewSchema },
+      404: { description: 'Expired, revoked, used or unknown' },
+    },
+    handler: async ({ res, params }) => {
+      res.json(await previewInvitation(params.token));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api/invitations/:token/accept',
+    summary: 'Accept an invitation (new person: name and password; existing account: its password) and sign in',
+    tags: ['invitations'],
+    access: 'public',
+    rateLimit: 'signIn',
+    request: { params: tokenParams, body: acceptInvitationSchema },
+    responses: {
+      200: { description: 'Joined the lab and signed in', schema: sessionSchema },
+      400: { description: 'Missing name or weak password' },
+      401: { description: 'Wrong password for the existing account' },
+      404: { description: 'Expired, revoked, used or unknown' },
+    },
+    handler: async ({ req, res, params, body }) => {
+      const userId = await acceptInvitation(req.app.locals.services.sequelize, params.token, body, req.ip ?? null);
+      await logIn(req, userId);
+      res.json(await sessionResponse(req, res, userId, { newSession: true }));
+    },
+  }),
+];

@@ -1,0 +1,34 @@
+import type { Sequelize } from 'sequelize';
+import { hashPassword } from '../auth/passwords';
+import { Lab, Membership, User } from '../models';
+import { recordAudit } from './audit.service';
+
+export function slugify(name: string): string {
+  const base = name.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60);
+  return base || 'lab';
+}
+
+/**
+ * On a real deployment: creates the first lab and its admin from HALFLIGHT_FIRST_ADMIN_EMAIL /
+ * _PASSWORD / HALFLIGHT_FIRST_LAB_NAME, once. Does nothing when that address already has an account.
+ */
+export async function ensureFirstAdmin(
+  sequelize: Sequelize,
+  input: { email: string; password: string; labName: string },
+): Promise<{ created: boolean }> {
+  const email = input.email.trim().toLowerCase();
+  if (await User.count({ where: { email } })) return { created: false };
+  const passwordHash = await hashPassword(input.password);
+  await sequelize.transaction(async (transaction) => {
+    const lab = await Lab.create({ name: input.labName, slug: `${slugify(input.labName)}-${Date.now().toString(36)}` }, { transaction });
+    const name = email.split('@')[0] ?? email;
+    const user = await User.create({ email, name, passwordHash }, { transaction });
+    const membership = await Membership.create({ labId: lab.id, userId: user.id, role: 'admin' }, { transaction });
+    await recordAudit(
+      { userId: null, ip: null },
+      { action: 'membership_added', labId: lab.id, targetType: 'membership', targetId: membership.id, details: { role: 'admin', via: 'first-admin setting' } },
+      transaction,
+    );
+  });
+  return { created: true };
+}

@@ -1,0 +1,165 @@
+import { Op } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import type { AcceptInvitationInput, InvitationPreview } from '@shared/schemas/auth';
+import type { InviteMemberInput, PendingInvitation } from '@shared/schemas/members';
+import { hashPassword, verifyPassword } from '../auth/passwords';
+import { createLinkToken, hashLinkToken } from '../auth/tokens';
+import { AppError } from '../lib/app-error';
+import type { Mailer } from '../mail/mailer';
+import { invitationMessage } from '../mail/templates';
+import type { LabContext } from '../middleware/access';
+import { Invitation, Lab, Membership, User } from '../models';
+import { recordAudit } from './audit.service';
+import type { Actor } from './audit.service';
+
+const invitationLifetimeMs = 7 * 24 * 60 * 60_000;
+
+export const toPendingInvitation = (invitation: Invitation): PendingInvitation => ({
+  id: invitation.id,
+  email: invitation.email,
+  role: invitation.role,
+  invitedBy: invitation.invitedBy?.name ?? '',
+  createdAt: invitation.createdAt.toISOString(),
+  expiresAt: invitation.expiresAt.toISOString(),
+});
+
+const openInvitation = { acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } };
+
+/** Mails a single-use invitation (7 days) to join the lab with a role. */
+export async function inviteMember(
+  lab: LabContext,
+  input: InviteMemberInput,
+  context: { actor: Actor & { userId: string }; mailer: Mailer; publicUrl: string },
+): Promise<PendingInvitation> {
+  const existingUser = await User.findOne({ where: { email: input.email } });
+  if (existingUser && (await Membership.count({ where: { labId: lab.id, userId: existingUser.id } }))) {
+    throw new AppError('already_member', `${input.email} is already a member of this lab.`, 409);
+  }
+  if (await Invitation.count({ where: { labId: lab.id, email: input.email, ...openInvitation } })) {
+    throw new AppError('already_invited', `${input.email} already has an open invitation; revoke it to send a new one.`, 409);
+  }
+  const inviter = await User.findByPk(context.actor.userId);
+  const { token, tokenHash } = createLinkToken();
+  const invitation = await Invitation.create({
+    labId: lab.id,
+    email: input.email,
+    role: input.role,
+    tokenHash,
+    invitedById: context.actor.userId,
+    expiresAt: new Date(Date.now() + invitationLifetimeMs),
+  });
+  invitation.invitedBy = inviter ?? undefined;
+  await recordAudit(context.actor, {
+    action: 'invitation_sent',
+    labId: lab.id,
+    targetType: 'invitation',
+    targetId: invitation.id,
+    details: { email: input.email, role: input.role },
+  });
+  const message = invitationMessage({
+    labName: lab.name,
+    inviterName: inviter?.name ?? 'A lab admin',
+    role: input.role,
+    link: `${context.publicUrl}/invitations/${token}`,
+    expiresAt: invitation.expiresAt,
+  });
+  await context.mailer.send({ to: input.email, labId: lab.id, ...message });
+  return toPendingInvitation(invitation);
+}
+
+const invalidInvitation = () =>
+  new AppError('invitation_invalid', 'This invitation has expired, was revoked or was already used.', 404);
+
+async function findOpenInvitation(token: string) {
+  return Invitation.findOne({
+    where: { tokenHash: hashLinkToken(token), ...openInvitation },
+    include: [
+      { model: Lab, as: 'lab' },
+      { model: User, as: 'invitedBy' },
+    ],
+  });
+}
+
+export async function previewInvitation(token: string): Promise<InvitationPreview> {
+  const invitation = await findOpenInvitation(token);
+  if (!invitation?.lab) throw invalidInvitation();
+  return {
+    labName: invitation.lab.name,
+    role: invitation.role,
+    email: invitation.email,
+    invitedBy: invitation.invitedBy?.name ?? '',
+    expiresAt: invitation.expiresAt.toISOString(),
+    accountExists: (await User.count({ where: { email: invitation.email } })) > 0,
+  };
+}
+
+/**
+ * Accepts an invitation: a new person gets an account with their name and password; a person
+ * with an account proves it with their password. Returns the user id to sign in.
+ */
+export async function acceptInvitation(
+  sequelize: Sequelize,
+  token: string,
+  input: AcceptInvitationInput,
+  ip: string | null,
+): Promise<string> {
+  const newPasswordHash = input.name ? await hashPassword(input.password) : null;
+  return sequelize.transaction(async (transaction) => {
+    const invitation = await Invitation.findOne({
+      where: { tokenHash: hashLinkToken(token), ...openInvitation },
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+    });
+    if (!invitation) throw invalidInvitation();
+    let user = await User.findOne({ where: { email: invitation.email }, transaction });
+    if (user) {
+      if (!(await verifyPassword(input.password, user.passwordHash))) {
+        throw new AppError('invalid_credentials', 'That password does not match the account for this address.', 401);
+      }
+    } else {
+      if (!input.name || !newPasswordHash) {
+        throw new AppError('validation_failed', 'A name is needed to create your account.', 400, [
+          { path: 'body.name', message: 'is required' },
+        ]);
+      }
+      if (input.password.length < 10) {
+        throw new AppError('validation_failed', 'The password is too short.', 400, [
+          { path: 'body.password', message: 'must be at least 10 characters' },
+        ]);
+      }
+      user = await User.create({ email: invitation.email, name: input.name, passwordHash: newPasswordHash }, { transaction });
+    }
+    await invitation.update({ acceptedAt: new Date() }, { transaction });
+    const membership = await Membership.create(
+      { labId: invitation.labId, userId: user.id, role: invitation.role },
+      { transaction },
+    );
+    await recordAudit(
+      { userId: user.id, ip },
+      {
+        action: 'membership_added',
+        labId: invitation.labId,
+        targetType: 'membership',
+        targetId: membership.id,
+        details: { role: invitation.role, via: 'invitation', invitationId: invitation.id },
+      },
+      transaction,
+    );
+    return user.id;
+  });
+}
+
+export async function revokeInvitation(lab: LabContext, invitationId: string, actor: Actor): Promise<void> {
+  const invitation = await Invitation.findOne({
+    where: { id: invitationId, labId: lab.id, acceptedAt: null, revokedAt: null },
+  });
+  if (!invitation) throw new AppError('not_found', 'No open invitation with this id in this lab.', 404);
+  await invitation.update({ revokedAt: new Date() });
+  await recordAudit(actor, {
+    action: 'invitation_revoked',
+    labId: lab.id,
+    targetType: 'invitation',
+    targetId: invitation.id,
+    details: { email: invitation.email },
+  });
+}

@@ -1,0 +1,75 @@
+import { z } from 'zod';
+import { roleSchema } from './roles';
+
+const email = z.string().trim().toLowerCase().email('must be an e-mail address').max(254);
+/** Long passphrases welcome; 10 characters at least (common practice, in line with NIST SP 800-63B's minimum of 8). */
+export const passwordSchema = z
+  .string()
+  .min(10, 'must be at least 10 characters')
+  .max(200, 'must be at most 200 characters');
+const personName = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters');
+const token = z.string().regex(/^[A-Za-z0-9_-]{20,100}$/, 'is not a valid link token');
+
+export const signInSchema = z
+  .object({ email, password: z.string().min(1, 'is required').max(200) })
+  .meta({ id: 'SignIn' });
+
+export const labMembershipSchema = z
+  .object({ labId: z.string().uuid(), labName: z.string(), isDemo: z.boolean(), role: roleSchema })
+  .meta({ id: 'LabMembership' });
+
+export const sessionUserSchema = z
+  .object({
+    id: z.string().uuid(),
+    email: z.string(),
+    name: z.string(),
+    labs: z.array(labMembershipSchema),
+  })
+  .meta({ id: 'SessionUser' });
+
+export const sessionSchema = z
+  .object({
+    user: sessionUserSchema,
+    csrfToken: z.string().describe('Send in the x-csrf-token header of every state-changing request'),
+    mailCatcher: z.boolean().describe('True when outgoing mail is caught locally and readable by admins'),
+  })
+  .meta({ id: 'Session' });
+
+export const csrfTokenSchema = z.object({ csrfToken: z.string() }).meta({ id: 'CsrfToken' });
+
+export const requestPasswordResetSchema = z.object({ email }).meta({ id: 'PasswordResetRequest' });
+export const completePasswordResetSchema = z
+  .object({ token, password: passwordSchema })
+  .meta({ id: 'PasswordResetCompletion' });
+export const changePasswordSchema = z
+  .object({ currentPassword: z.string().min(1, 'is required').max(200), newPassword: passwordSchema })
+  .meta({ id: 'PasswordChange' });
+export const updateProfileSchema = z.object({ name: personName }).meta({ id: 'ProfileUpdate' });
+
+export const invitationPreviewSchema = z
+  .object({
+    labName: z.string(),
+    role: roleSchema,
+    email: z.string(),
+    invitedBy: z.string(),
+    expiresAt: z.string(),
+    accountExists: z.boolean().describe('True when the invited address already has a Halflight account'),
+  })
+  .meta({ id: 'InvitationPreview' });
+
+/** A new person sends name and password; a person with an account sends only their password. */
+export const acceptInvitationSchema = z
+  .object({ name: personName.optional(), password: z.string().min(1, 'is required').max(200) })
+  .meta({ id: 'InvitationAcceptance' });
+
+export const messageSchema = z.object({ message: z.string() }).meta({ id: 'Message' });
+
+export type SignInInput = z.infer<typeof signInSchema>;
+export type SessionUser = z.infer<typeof sessionUserSchema>;
+export type Session = z.infer<typeof sessionSchema>;
+export type LabMembership = z.infer<typeof labMembershipSchema>;
+export type RequestPasswordResetInput = z.infer<typeof requestPasswordResetSchema>;
+export type CompletePasswordResetInput = z.infer<typeof completePasswordResetSchema>;
+export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
+export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
+export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;

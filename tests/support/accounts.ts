@@ -1,0 +1,56 @@
+import crypto from 'node:crypto';
+import request from 'supertest';
+import type { Sequelize } from 'sequelize';
+import type { Role } from '../../shared/schemas/roles';
+import { hashPassword } from '../../server/auth/passwords';
+import { Lab, Membership, User } from '../../server/models';
+
+export interface TestUser {
+  id: string;
+  email: string;
+  password: string;
+  name: string;
+}
+
+const testPassword = 'correct-horse-battery-9';
+let passwordHash: Promise<string> | undefined;
+
+/** A lab with one new person per requested role (all with the same test password). */
+export async function createLabWithMembers(_sequelize: Sequelize, options: { roles: Role[]; labName?: string }) {
+  passwordHash ??= hashPassword(testPassword);
+  const tag = crypto.randomBytes(4).toString('hex');
+  const lab = await Lab.create({ name: options.labName ?? `Test lab ${tag}`, slug: `test-${tag}` });
+  const users: Partial<Record<Role, TestUser>> = {};
+  const memberships: Partial<Record<Role, string>> = {};
+  for (const role of options.roles) {
+    const email = `${role}-${tag}@tests.halflight.example`;
+    const user = await User.create({ email, name: `${role} ${tag}`, passwordHash: await passwordHash });
+    const membership = await Membership.create({ labId: lab.id, userId: user.id, role });
+    users[role] = { id: user.id, email, password: testPassword, name: user.name };
+    memberships[role] = membership.id;
+  }
+  return { lab, users: users as Record<Role, TestUser>, memberships: memberships as Record<Role, string> };
+}
+
+/** A cookie-keeping client that fetches and sends the CSRF token like the browser app does. */
+export async function apiClient(app: Parameters<typeof request.agent>[0]) {
+  const agent = request.agent(app);
+  let csrfToken = (await agent.get('/api/csrf-token').expect(200)).body.csrfToken as string;
+  const withToken = <T extends { set(name: string, value: string): T }>(test: T) => test.set('x-csrf-token', csrfToken);
+  return {
+    agent,
+    get: (url: string) => agent.get(url),
+    post: (url: string, body?: object) => withToken(agent.post(url)).send(body ?? {}),
+    patch: (url: string, body?: object) => withToken(agent.patch(url)).send(body ?? {}),
+    delete: (url: string) => withToken(agent.delete(url)),
+    async signIn(user: { email: string; password: string }) {
+      const response = await withToken(agent.post('/api/session')).send({ email: user.email, password: user.password });
+      if (response.status !== 200) throw new Error(`sign-in failed: ${response.status} ${JSON.stringify(response.body)}`);
+      csrfToken = response.body.csrfToken;
+      return response;
+    },
+    setCsrfToken(token: string) {
+      csrfToken = token;
+    },
+  };
+}
