@@ -73,3 +73,6 @@ export type CompletePasswordResetInput = z.infer<typeof completePasswordResetSch
 export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
 export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
+export type CsrfToken = z.infer<typeof csrfTokenSchema>;
+export type Message = z.infer<typeof messageSchema>;
+export type UpdateProfileInput = z.infer<typeof updateProfileSchema>;

@@ -1,3 +1,5 @@
+import type { z } from 'zod';
+import type { csrfTokenSchema } from '@shared/schemas/auth';
 import type { ApiErrorBody, FieldIssue } from '@shared/schemas/error';
 
 /** A failed API call, carrying the server's error shape. */
@@ -25,27 +27,42 @@ interface RequestOptions {
 
 const csrfHeaders: Record<string, string> = {};
 
-/** Later features (sign-in) set the CSRF token here; every state-changing call sends it. */
+/** Session answers and GET /api/csrf-token set the token here; every state-changing call sends it. */
 export function setCsrfToken(token: string | null): void {
   if (token) csrfHeaders['x-csrf-token'] = token;
   else delete csrfHeaders['x-csrf-token'];
 }
 
-async function request<T>(method: Method, url: string, options: RequestOptions = {}): Promise<T> {
+/** Asks the server for a fresh CSRF token and keeps it for the next state-changing call. */
+export async function refreshCsrfToken(): Promise<void> {
+  const { csrfToken } = await request<z.infer<typeof csrfTokenSchema>>('GET', '/api/csrf-token');
+  setCsrfToken(csrfToken);
+}
+
+async function send(method: Method, url: string, options: RequestOptions): Promise<Response> {
   const headers: Record<string, string> = { accept: 'application/json', ...options.headers };
   if (method !== 'GET') Object.assign(headers, csrfHeaders);
   if (options.body !== undefined) headers['content-type'] = 'application/json';
-  const response = await fetch(url, {
+  return fetch(url, {
     method,
     credentials: 'same-origin',
     headers,
     body: options.body === undefined ? undefined : JSON.stringify(options.body),
     signal: options.signal,
   });
+}
+
+async function request<T>(method: Method, url: string, options: RequestOptions = {}, retried = false): Promise<T> {
+  const response = await send(method, url, options);
   const text = await response.text();
   const payload: unknown = text ? JSON.parse(text) : null;
   if (!response.ok) {
     const error = (payload as ApiErrorBody | null)?.error;
+    // The token may have rotated (a new session, a server restart): fetch a fresh one and try once more.
+    if (response.status === 403 && error?.code === 'csrf_invalid' && method !== 'GET' && !retried) {
+      await refreshCsrfToken();
+      return request<T>(method, url, options, true);
+    }
     throw new ApiError(
       response.status,
       error?.code ?? 'http_error',

@@ -1,6 +1,8 @@
 import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
 import { ErrorNotice } from '@/components/error-notice';
+import { useSession } from '@/features/auth/api/get-session';
+import { YourLabsPanel } from '@/features/labs/components/your-labs-panel';
 import { useHealth } from '@/features/system/api/get-health';
 
 function Fact({ label, value }: { label: string; value: string }) {
@@ -18,9 +20,10 @@ function formatUptime(seconds: number): string {
   return `${Math.floor(seconds / 3600)} h ${Math.floor((seconds % 3600) / 60)} min`;
 }
 
-/** The landing screen: what Halflight is for, and whether its server and database are answering. */
+/** The landing screen: what Halflight is for, the person's labs, and whether the server and database answer. */
 export function OverviewRoute() {
   const health = useHealth();
+  const { user } = useSession();
   return (
     <div className="max-w-4xl space-y-6">
       <header>
@@ -30,6 +33,7 @@ export function OverviewRoute() {
           see which reaction component intercepts the excited catalyst, and how fast.
         </p>
       </header>
+      <YourLabsPanel labs={user.labs} />
       <Panel
         title="Workspace status"
         aside={

@@ -1,34 +1,69 @@
-import { NavLink, Outlet } from 'react-router-dom';
+import { NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { useQueryClient } from '@tanstack/react-query';
+import { Button } from '@/components/button';
 import { HalflightMark } from '@/components/halflight-mark';
+import { useSession } from '@/features/auth/api/get-session';
+import { useSignOut } from '@/features/auth/api/sign-out';
+import { LabSwitcher } from '@/features/labs/components/lab-switcher';
+import { useCurrentLab } from '@/features/labs/current-lab';
+import { can } from '@/lib/policy';
 
-const navigation = [{ to: '/', label: 'Overview', end: true }];
+const linkClasses = ({ isActive }: { isActive: boolean }) =>
+  `rounded-md px-3 py-2 text-body transition-colors ${
+    isActive ? 'bg-ink-800 font-bold text-glow-300' : 'text-ink-200 hover:bg-ink-900 hover:text-paper-50'
+  }`;
 
-/** The frame of every screen: the rail with the mark and navigation, and the work area. */
+/** The frame of every signed-in screen: the rail with the mark, the lab, navigation, and the work area. */
 export function RootLayout() {
+  const session = useSession();
+  const lab = useCurrentLab(session.user.labs);
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  const queryClient = useQueryClient();
+
+  const navigation = [
+    { to: '/', label: 'Overview', end: true },
+    ...(lab && can(lab.role, 'members:view') ? [{ to: `/labs/${lab.labId}/members`, label: 'Members' }] : []),
+    ...(lab && session.mailCatcher && can(lab.role, 'mail:read')
+      ? [{ to: `/labs/${lab.labId}/mail`, label: 'Caught mail' }]
+      : []),
+    { to: '/account', label: 'Account' },
+  ];
+
+  function leave() {
+    signOut.mutate(undefined, {
+      // Leave the signed-in screens before forgetting the person, so none renders without them.
+      onSuccess: async () => {
+        await navigate('/sign-in', { replace: true });
+        queryClient.clear();
+      },
+    });
+  }
+
   return (
     <div className="flex min-h-screen">
-      <aside className="flex w-56 shrink-0 flex-col bg-ink-950 px-4 py-6 text-ink-100">
-        <NavLink to="/" className="mb-8 flex items-center gap-2.5 text-glow-400" aria-label="Halflight home">
+      <aside className="flex w-60 shrink-0 flex-col bg-ink-950 px-4 py-6 text-ink-100">
+        <NavLink to="/" className="mb-6 flex items-center gap-2.5 text-glow-400" aria-label="Halflight home">
           <HalflightMark />
           <span className="text-title font-black tracking-tight text-paper-50">Halflight</span>
         </NavLink>
-        <nav aria-label="Main" className="flex flex-col gap-1">
+        <LabSwitcher labs={session.user.labs} current={lab} />
+        <nav aria-label="Main" className="mt-6 flex flex-col gap-1">
           {navigation.map((item) => (
-            <NavLink
-              key={item.to}
-              to={item.to}
-              end={item.end}
-              className={({ isActive }) =>
-                `rounded-md px-3 py-2 text-body transition-colors ${
-                  isActive ? 'bg-ink-800 font-bold text-glow-300' : 'text-ink-200 hover:bg-ink-900 hover:text-paper-50'
-                }`
-              }
-            >
+            <NavLink key={item.to} to={item.to} end={item.end} className={linkClasses}>
               {item.label}
             </NavLink>
           ))}
         </nav>
-        <p className="mt-auto text-caption text-ink-400">Quenching studies, shared by the lab.</p>
+        <div className="mt-auto space-y-2 border-t border-ink-800 pt-4">
+          <p className="truncate text-caption text-ink-300" title={session.user.email}>
+            Signed in as <strong className="text-paper-50">{session.user.name}</strong>
+          </p>
+          <Button variant="quiet" className="w-full" onClick={leave} pending={signOut.isPending} pendingLabel="Signing out…">
+            Sign out
+          </Button>
+          {signOut.isError && <p role="alert" className="text-caption text-brick-100">Could not sign out; try again.</p>}
+        </div>
       </aside>
       <main className="flex-1 px-10 py-8">
         <Outlet />

@@ -61,7 +61,7 @@ describe('client routes', () => {
   it('when a client path is requested, then the built index.html is served, not JSON', async () => {
     const clientDir = fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-client-'));
     fs.writeFileSync(path.join(clientDir, 'index.html'), '<!doctype html><div id="root"></div>');
-    const withClient = await createTestApp({ clientDir });
+    const withClient = await createTestApp({ clientDir, sequelize });
     const response = await request(withClient.app).get('/studies/some-screen').expect(200);
     await withClient.close();
     expect(response.headers['content-type']).toMatch(/text\/html/);

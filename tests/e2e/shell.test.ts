@@ -2,16 +2,20 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createLabWithMembers } from '../support/accounts';
+import type { TestUser } from '../support/accounts';
 import { launchBrowser, screenshotDir } from '../support/browser';
 import { startLiveServer } from '../support/live-server';
 
 let browser: Browser;
 let server: Awaited<ReturnType<typeof startLiveServer>>;
 let page: Page;
+let viewer: TestUser;
 const requestedHosts = new Set<string>();
 
 beforeAll(async () => {
   server = await startLiveServer();
+  viewer = (await createLabWithMembers(server.sequelize, { roles: ['viewer'] })).users.viewer;
   browser = await launchBrowser();
   page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
   page.on('request', (request) => requestedHosts.add(new URL(request.url()).host));
@@ -23,12 +27,18 @@ afterAll(async () => {
 });
 
 describe('the app shell in Chromium', () => {
-  it('when the overview opens, then the navigation and a live database status render', async () => {
+  it('when the overview opens after sign-in, then the navigation and a live database status render', async () => {
     await page.goto(server.baseUrl);
+    await page.waitForURL(/\/sign-in/);
+    await page.getByLabel('E-mail').fill(viewer.email);
+    await page.getByLabel('Password').fill(viewer.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
     await expect(page.getByRole('heading', { name: 'Overview', level: 1 }).isVisible()).resolves.toBe(true);
     await page.getByText('Database answering').waitFor();
     const navigation = page.getByRole('navigation', { name: 'Main' });
-    expect(await navigation.getByRole('link').allTextContents()).toEqual(['Overview']);
+    // A viewer sees only the screens open to viewers: no caught mail, which is for admins.
+    expect(await navigation.getByRole('link').allTextContents()).toEqual(['Overview', 'Members', 'Account']);
     const font = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
     expect(font).toContain('Lato');
     fs.mkdirSync(screenshotDir, { recursive: true });

@@ -54,3 +54,15 @@ export async function apiClient(app: Parameters<typeof request.agent>[0]) {
     },
   };
 }
+
+/** The newest message the local catcher took for an address, and the first link in it. */
+export async function latestMailTo(email: string) {
+  const { CaughtMail } = await import('../../server/models');
+  const { Op } = await import('sequelize');
+  const mail = await CaughtMail.findOne({
+    where: { toAddresses: { [Op.contains]: [email] } },
+    order: [['receivedAt', 'DESC']],
+  });
+  const link = mail?.textBody.match(/https?:\/\/\S+/)?.[0] ?? null;
+  return { mail, link };
+}

@@ -10,13 +10,15 @@ export async function startLiveServer() {
   if (!fs.existsSync(path.join(projectRoot, 'dist', 'index.html'))) {
     throw new Error('The client is not built: run "npm run build" (npm test does this first).');
   }
-  const { app, sequelize, close } = await createTestApp();
   const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  // Links in caught mail point at this very server.
+  const { app, sequelize, close } = await createTestApp({ publicUrl: baseUrl });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(port, '127.0.0.1', () => resolve(listening));
   });
   return {
-    baseUrl: `http://127.0.0.1:${port}`,
+    baseUrl,
     sequelize,
     async stop() {
       server.closeAllConnections();

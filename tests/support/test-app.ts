@@ -14,8 +14,10 @@ import { initModels } from '../../server/models';
  */
 export async function createTestApp(overrides: Partial<CreateAppOptions> = {}) {
   const databaseUrl = inject('databaseUrl');
-  const sequelize = createSequelize(databaseUrl);
-  initModels(sequelize);
+  // Models are bound to one Sequelize instance per process: a second app in the same file shares it.
+  const ownsDatabase = !overrides.sequelize;
+  const sequelize = overrides.sequelize ?? createSequelize(databaseUrl);
+  if (ownsDatabase) initModels(sequelize);
   const catcher = await startMailCatcher();
   const mailer = createMailer(catcher.url, 'Halflight tests <tests@halflight.invalid>');
   const app = createApp({
@@ -41,7 +43,7 @@ export async function createTestApp(overrides: Partial<CreateAppOptions> = {}) {
       await app.closeResources();
       mailer.close();
       await catcher.stop();
-      await sequelize.close();
+      if (ownsDatabase) await sequelize.close();
     },
   };
 }

@@ -1,0 +1,100 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import { acceptInvitationSchema, passwordSchema } from '@shared/schemas/auth';
+import type { InvitationPreview, Session } from '@shared/schemas/auth';
+import { Button } from '@/components/button';
+import { FormAlert } from '@/components/form-alert';
+import { TextField } from '@/components/text-field';
+import { showServerErrors } from '@/lib/form-errors';
+import { useAcceptInvitation } from '../api/accept-invitation';
+
+// A new account chooses a password under the same rules as a reset; the two entries must agree.
+const newAccountSchema = acceptInvitationSchema
+  .required({ name: true })
+  .extend({ password: passwordSchema, confirm: z.string() })
+  .refine((values) => values.password === values.confirm, { message: 'The two entries differ.', path: ['confirm'] });
+
+interface AcceptInvitationFormProps {
+  token: string;
+  invitation: InvitationPreview;
+  onJoined: (session: Session) => void;
+}
+
+/** Joining with an existing account needs only its password; a newcomer picks a name and a password. */
+export function AcceptInvitationForm({ token, invitation, onJoined }: AcceptInvitationFormProps) {
+  return invitation.accountExists ? (
+    <ExistingAccountForm token={token} onJoined={onJoined} />
+  ) : (
+    <NewAccountForm token={token} onJoined={onJoined} />
+  );
+}
+
+type FormProps = Omit<AcceptInvitationFormProps, 'invitation'>;
+
+function ExistingAccountForm({ token, onJoined }: FormProps) {
+  const accept = useAcceptInvitation();
+  const form = useForm({ resolver: zodResolver(acceptInvitationSchema.pick({ password: true })), defaultValues: { password: '' } });
+  const { errors } = form.formState;
+  const onSubmit = form.handleSubmit(({ password }) =>
+    accept.mutate(
+      { token, password },
+      { onSuccess: onJoined, onError: (error) => showServerErrors(error, form.setError, ['password']) },
+    ),
+  );
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      <p className="text-body text-ink-700">This address already has a Halflight account. Join with its password.</p>
+      <TextField
+        label="Password"
+        type="password"
+        autoComplete="current-password"
+        error={errors.password?.message}
+        {...form.register('password')}
+      />
+      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
+      <Button type="submit" className="w-full" pending={accept.isPending} pendingLabel="Joining…">
+        Join with my account
+      </Button>
+    </form>
+  );
+}
+
+function NewAccountForm({ token, onJoined }: FormProps) {
+  const accept = useAcceptInvitation();
+  const form = useForm({
+    resolver: zodResolver(newAccountSchema),
+    defaultValues: { name: '', password: '', confirm: '' },
+  });
+  const { errors } = form.formState;
+  const onSubmit = form.handleSubmit(({ name, password }) =>
+    accept.mutate(
+      { token, name, password },
+      { onSuccess: onJoined, onError: (error) => showServerErrors(error, form.setError, ['name', 'password']) },
+    ),
+  );
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      <TextField label="Your name" autoComplete="name" hint="As your lab mates will see it." error={errors.name?.message} {...form.register('name')} />
+      <TextField
+        label="Password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters."
+        error={errors.password?.message}
+        {...form.register('password')}
+      />
+      <TextField
+        label="Password, once more"
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirm?.message}
+        {...form.register('confirm')}
+      />
+      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
+      <Button type="submit" className="w-full" pending={accept.isPending} pendingLabel="Joining…">
+        Create my account and join
+      </Button>
+    </form>
+  );
+}

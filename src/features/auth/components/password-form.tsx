@@ -1,0 +1,68 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import { changePasswordSchema } from '@shared/schemas/auth';
+import { Button } from '@/components/button';
+import { FormAlert } from '@/components/form-alert';
+import { TextField } from '@/components/text-field';
+import { ApiError } from '@/lib/api-client';
+import { showServerErrors } from '@/lib/form-errors';
+import { useChangePassword } from '../api/change-password';
+
+const passwordChangeFormSchema = changePasswordSchema
+  .extend({ confirm: z.string() })
+  .refine((values) => values.newPassword === values.confirm, { message: 'The two entries differ.', path: ['confirm'] });
+
+const emptyForm = { currentPassword: '', newPassword: '', confirm: '' };
+
+/** Change the password while signed in; the current one proves it is really the owner. */
+export function PasswordForm() {
+  const change = useChangePassword();
+  const form = useForm({ resolver: zodResolver(passwordChangeFormSchema), defaultValues: emptyForm });
+  const { errors } = form.formState;
+
+  const onSubmit = form.handleSubmit(({ currentPassword, newPassword }) =>
+    change.mutate(
+      { currentPassword, newPassword },
+      {
+        onSuccess: () => form.reset(emptyForm),
+        onError: (error) =>
+          error instanceof ApiError && error.code === 'wrong_password'
+            ? form.setError('currentPassword', { type: 'server', message: error.message })
+            : showServerErrors(error, form.setError, ['currentPassword', 'newPassword']),
+      },
+    ),
+  );
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      <TextField
+        label="Current password"
+        type="password"
+        autoComplete="current-password"
+        error={errors.currentPassword?.message}
+        {...form.register('currentPassword')}
+      />
+      <TextField
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters."
+        error={errors.newPassword?.message}
+        {...form.register('newPassword')}
+      />
+      <TextField
+        label="New password, once more"
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirm?.message}
+        {...form.register('confirm')}
+      />
+      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
+      {change.isSuccess && <FormAlert tone="good">Password changed. Use the new one next time you sign in.</FormAlert>}
+      <Button type="submit" pending={change.isPending} pendingLabel="Changing…">
+        Change password
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,36 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { updateProfileSchema } from '@shared/schemas/auth';
+import { Button } from '@/components/button';
+import { FormAlert } from '@/components/form-alert';
+import { TextField } from '@/components/text-field';
+import { showServerErrors } from '@/lib/form-errors';
+import { useUpdateAccount } from '../api/update-account';
+
+/** The name lab mates see beside one's studies and reviews. */
+export function ProfileForm({ name, email }: { name: string; email: string }) {
+  const update = useUpdateAccount();
+  const form = useForm({ resolver: zodResolver(updateProfileSchema), defaultValues: { name } });
+  const { errors, isDirty } = form.formState;
+
+  const onSubmit = form.handleSubmit((values) =>
+    update.mutate(values, {
+      onSuccess: (user) => form.reset({ name: user.name }),
+      onError: (error) => showServerErrors(error, form.setError, ['name']),
+    }),
+  );
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      <p className="text-body text-ink-700">
+        You sign in as <strong>{email}</strong>.
+      </p>
+      <TextField label="Name" autoComplete="name" error={errors.name?.message} {...form.register('name')} />
+      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
+      {update.isSuccess && !isDirty && <FormAlert tone="good">Name saved.</FormAlert>}
+      <Button type="submit" pending={update.isPending} pendingLabel="Saving…" disabled={!isDirty}>
+        Save name
+      </Button>
+    </form>
+  );
+}

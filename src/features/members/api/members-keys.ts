@@ -1,0 +1,4 @@
+export const membersKeys = {
+  all: ['members'] as const,
+  list: (labId: string) => [...membersKeys.all, 'list', labId] as const,
+};

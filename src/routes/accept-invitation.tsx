@@ -1,0 +1,68 @@
+import { useNavigate, useParams } from 'react-router-dom';
+import type { Session } from '@shared/schemas/auth';
+import { ErrorNotice } from '@/components/error-notice';
+import { Signal } from '@/components/signal';
+import { TextLink } from '@/components/text-link';
+import { useInvitation } from '@/features/auth/api/get-invitation';
+import { AcceptInvitationForm } from '@/features/auth/components/accept-invitation-form';
+import { rememberLab } from '@/features/labs/current-lab';
+import { ApiError } from '@/lib/api-client';
+import { formatDateTime } from '@/lib/format-date';
+import { roleLabels } from '@/lib/role-labels';
+import { roleDescriptions } from '@shared/schemas/roles';
+
+/** Answer an invitation from its e-mail link: see who invites you where, then join. */
+export function AcceptInvitationRoute() {
+  const { token = '' } = useParams();
+  const navigate = useNavigate();
+  const invitation = useInvitation(token);
+
+  if (invitation.isPending) return <Signal tone="waiting">Opening the invitation</Signal>;
+  if (invitation.isError) {
+    const spent = invitation.error instanceof ApiError && invitation.error.code === 'invitation_invalid';
+    return spent ? (
+      <div className="space-y-3">
+        <h1 className="text-title font-black text-ink-950">This invitation no longer works</h1>
+        <p className="text-body text-ink-700">
+          It was used, withdrawn or has expired. Ask the lab admin who sent it for a new one.
+        </p>
+        <TextLink to="/sign-in">Sign in</TextLink>
+      </div>
+    ) : (
+      <ErrorNotice error={invitation.error} what="the invitation" />
+    );
+  }
+
+  const { labName, role, invitedBy, email, expiresAt } = invitation.data;
+
+  function onJoined(session: Session) {
+    // The newest membership with this lab's name is the one just created.
+    const joined = session.user.labs.findLast((lab) => lab.labName === labName);
+    if (joined) rememberLab(joined.labId);
+    void navigate(joined ? `/labs/${joined.labId}/members` : '/', { replace: true });
+  }
+
+  return (
+    <div className="space-y-5">
+      <header className="space-y-1">
+        <p className="text-caption uppercase text-ink-500">Invitation</p>
+        <h1 className="text-title font-black text-ink-950">Join {labName}</h1>
+        <p className="text-body text-ink-700">
+          <strong>{invitedBy}</strong> invites <strong>{email}</strong> to work in this lab as{' '}
+          <strong>{roleLabels[role]}</strong>.
+        </p>
+      </header>
+      <dl className="space-y-2 rounded-md bg-paper-100 p-3 text-body">
+        <div>
+          <dt className="text-caption uppercase text-ink-500">What a {roleLabels[role].toLowerCase()} can do</dt>
+          <dd className="text-ink-800">{roleDescriptions[role]}</dd>
+        </div>
+        <div>
+          <dt className="text-caption uppercase text-ink-500">Link valid until</dt>
+          <dd className="text-ink-800">{formatDateTime(expiresAt)}</dd>
+        </div>
+      </dl>
+      <AcceptInvitationForm token={token} invitation={invitation.data} onJoined={onJoined} />
+    </div>
+  );
+}

@@ -1,0 +1,69 @@
+import { useState } from 'react';
+import { useParams } from 'react-router-dom';
+import { Button } from '@/components/button';
+import { EmptyState } from '@/components/empty-state';
+import { ErrorNotice } from '@/components/error-notice';
+import { Panel } from '@/components/panel';
+import { Signal } from '@/components/signal';
+import { useSession } from '@/features/auth/api/get-session';
+import { NotYourLab } from '@/features/labs/components/not-your-lab';
+import { useCaughtMail } from '@/features/mail/api/get-caught-mail';
+import { MailList } from '@/features/mail/components/mail-list';
+import { MailReader } from '@/features/mail/components/mail-reader';
+import { can } from '@/lib/policy';
+
+const pageSize = 20;
+
+/** Mail the workspace sent while a local catcher stands in for a real mail relay; admins only. */
+export function CaughtMailRoute() {
+  const { labId = '' } = useParams();
+  const session = useSession();
+  const lab = session.user.labs.find((membership) => membership.labId === labId);
+  if (!lab) return <NotYourLab />;
+  if (!session.mailCatcher) return <NotYourLab reason="This workspace sends real e-mail, so there is no caught mail to read." />;
+  if (!can(lab.role, 'mail:read')) return <NotYourLab reason="Only the lab’s admins can read caught mail." />;
+  return <CaughtMailScreen labId={labId} />;
+}
+
+function CaughtMailScreen({ labId }: { labId: string }) {
+  const [page, setPage] = useState(1);
+  const [selectedId, setSelectedId] = useState<string | null>(null);
+  const mail = useCaughtMail(labId, { page, pageSize });
+  const selected = mail.data?.items.find((item) => item.id === selectedId) ?? null;
+  const pages = mail.data ? Math.max(1, Math.ceil(mail.data.total / pageSize)) : 1;
+
+  return (
+    <div className="max-w-6xl space-y-6">
+      <header>
+        <h1 className="text-display font-black text-ink-950">Caught mail</h1>
+        <p className="mt-1 max-w-2xl text-lead text-ink-700">
+          No mail leaves this workspace: a local catcher keeps every message it sends. Read them here to pass on
+          invitation and password links by hand.
+        </p>
+      </header>
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
+        <Panel title="Messages" aside={mail.data && <Signal tone="good">{`${mail.data.total} caught`}</Signal>}>
+          {mail.isPending && <Signal tone="waiting">Loading messages</Signal>}
+          {mail.isError && <ErrorNotice error={mail.error} what="the caught mail" />}
+          {mail.data && <MailList items={mail.data.items} selectedId={selectedId} onSelect={setSelectedId} />}
+          {pages > 1 && (
+            <nav aria-label="Pages of messages" className="mt-3 flex items-center justify-between">
+              <Button variant="quiet" disabled={page <= 1} onClick={() => setPage(page - 1)}>
+                Newer
+              </Button>
+              <span className="text-caption text-ink-600">
+                Page {page} of {pages}
+              </span>
+              <Button variant="quiet" disabled={page >= pages} onClick={() => setPage(page + 1)}>
+                Older
+              </Button>
+            </nav>
+          )}
+        </Panel>
+        <Panel title="Reading">
+          {selected ? <MailReader mail={selected} /> : <EmptyState title="Choose a message to read it." />}
+        </Panel>
+      </div>
+    </div>
+  );
+}

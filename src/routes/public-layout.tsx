@@ -1,0 +1,18 @@
+import { Link, Outlet } from 'react-router-dom';
+import { HalflightMark } from '@/components/halflight-mark';
+
+/** The frame of the screens used before signing in: the mark and one card. */
+export function PublicLayout() {
+  return (
+    <div className="flex min-h-screen flex-col items-center bg-paper-100 px-4 py-12">
+      <Link to="/" className="mb-8 flex items-center gap-2.5 text-glow-500" aria-label="Halflight home">
+        <HalflightMark className="h-9 w-9" />
+        <span className="text-display font-black tracking-tight text-ink-950">Halflight</span>
+      </Link>
+      <main className="w-full max-w-md rounded-card border border-paper-200 bg-paper-50 p-7 shadow-card">
+        <Outlet />
+      </main>
+      <p className="mt-6 text-caption text-ink-500">Quenching studies, shared by the lab.</p>
+    </div>
+  );
+}

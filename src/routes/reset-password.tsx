@@ -1,0 +1,88 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useNavigate, useSearchParams } from 'react-router-dom';
+import { z } from 'zod';
+import { passwordSchema } from '@shared/schemas/auth';
+import { Button } from '@/components/button';
+import { FormAlert } from '@/components/form-alert';
+import { TextField } from '@/components/text-field';
+import { TextLink } from '@/components/text-link';
+import { useCompletePasswordReset } from '@/features/auth/api/complete-password-reset';
+import { ApiError } from '@/lib/api-client';
+import { showServerErrors } from '@/lib/form-errors';
+
+const newPasswordSchema = z
+  .object({ password: passwordSchema, confirm: z.string() })
+  .refine((values) => values.password === values.confirm, { message: 'The two entries differ.', path: ['confirm'] });
+
+/** Set a new password from the link in the reset e-mail, then sign in with it. */
+export function ResetPasswordRoute() {
+  const [params] = useSearchParams();
+  const token = params.get('token');
+  const navigate = useNavigate();
+  const completeReset = useCompletePasswordReset();
+  const form = useForm({ resolver: zodResolver(newPasswordSchema), defaultValues: { password: '', confirm: '' } });
+  const { errors } = form.formState;
+
+  if (!token) {
+    return (
+      <div className="space-y-4">
+        <h1 className="text-title font-black text-ink-950">This link is incomplete</h1>
+        <p className="text-body text-ink-700">
+          Open the link from the e-mail exactly as it arrived, or <TextLink to="/forgot-password">ask for a new one</TextLink>.
+        </p>
+      </div>
+    );
+  }
+
+  const onSubmit = form.handleSubmit(({ password }) =>
+    completeReset.mutate(
+      { token, password },
+      {
+        onSuccess: () =>
+          navigate('/sign-in', { replace: true, state: { notice: 'Your new password is set. Sign in with it.' } }),
+        onError: (error) => showServerErrors(error, form.setError, ['password']),
+      },
+    ),
+  );
+  const linkSpent = completeReset.error instanceof ApiError && completeReset.error.code === 'token_invalid';
+
+  return (
+    <div className="space-y-5">
+      <header>
+        <h1 className="text-title font-black text-ink-950">Set a new password</h1>
+        <p className="text-body text-ink-700">At least 10 characters. A few unrelated words make a strong one.</p>
+      </header>
+      <form onSubmit={onSubmit} noValidate className="space-y-4">
+        <TextField
+          label="New password"
+          type="password"
+          autoComplete="new-password"
+          error={errors.password?.message}
+          {...form.register('password')}
+        />
+        <TextField
+          label="New password, once more"
+          type="password"
+          autoComplete="new-password"
+          error={errors.confirm?.message}
+          {...form.register('confirm')}
+        />
+        {errors.root?.server && (
+          <FormAlert>
+            {errors.root.server.message}
+            {linkSpent && (
+              <>
+                {' '}
+                <TextLink to="/forgot-password">Ask for a new link</TextLink>.
+              </>
+            )}
+          </FormAlert>
+        )}
+        <Button type="submit" className="w-full" pending={completeReset.isPending} pendingLabel="Saving…">
+          Save the new password
+        </Button>
+      </form>
+    </div>
+  );
+}
