@@ -1,0 +1,128 @@
+/** The warnings the engine attaches to results. Codes are stable; texts are for people. */
+export type QualityFlagCode =
+  | 'KQ_ABOVE_DIFFUSION_LIMIT'
+  | 'INTERCEPT_FAR_FROM_ONE'
+  | 'FEW_CONCENTRATIONS'
+  | 'UPWARD_CURVATURE'
+  | 'DOWNWARD_CURVATURE'
+  | 'RESIDUAL_PATTERN'
+  | 'NON_POSITIVE_INTENSITY'
+  | 'NO_I0'
+  | 'INNER_FILTER_LARGE'
+  | 'LARGE_DILUTION'
+  | 'LIFETIME_STEEPER_THAN_INTENSITY';
+
+export interface QualityFlag {
+  code: QualityFlagCode;
+  /** 'error' when the result cannot be used as it stands, else 'warning' */
+  severity: 'warning' | 'error';
+  title: string;
+  /** what the flag means, in plain words */
+  explanation: string;
+  /** what to look at before trusting the number */
+  whatToCheck: string[];
+  /** the numbers that raised the flag, e.g. "kq 2.4e10 vs limit 1.9e10 M^-1 s^-1" */
+  detail?: string;
+}
+
+type FlagText = Pick<QualityFlag, 'title' | 'explanation' | 'whatToCheck'>;
+
+const FLAG_TEXTS: Record<QualityFlagCode, FlagText> = {
+  KQ_ABOVE_DIFFUSION_LIMIT: {
+    title: 'Rate constant faster than diffusion',
+    explanation:
+      'Two molecules in solution cannot meet more often than diffusion allows, so a bimolecular quenching constant above the diffusion limit means something besides collisions during the excited-state lifetime lowers the signal.',
+    whatToCheck: [
+      'a ground-state complex between emitter and quencher (static quenching): compare with lifetime data',
+      'the unquenched lifetime tau0 used for kq (solvent, degassing, temperature)',
+      'quencher absorbance at the excitation or emission wavelength (inner filter)',
+      'aggregation or precipitation of the emitter at higher quencher concentration',
+    ],
+  },
+  INTERCEPT_FAR_FROM_ONE: {
+    title: 'Intercept differs from 1',
+    explanation:
+      'At zero quencher the ratio must be exactly 1. A fitted intercept clearly away from 1 means the reference value or some points do not belong to the same straight line.',
+    whatToCheck: [
+      'the I0 (or tau0) value and the blank measurements it came from',
+      'drift of lamp or detector during the titration',
+      'curvature at the high-concentration end pulling the line',
+    ],
+  },
+  FEW_CONCENTRATIONS: {
+    title: 'Few quencher concentrations',
+    explanation:
+      'With fewer than five different concentrations the slope is poorly determined and curvature cannot be seen reliably. Fewer than three cannot be fitted at all.',
+    whatToCheck: ['add concentrations spread over the range, including a blank at zero'],
+  },
+  UPWARD_CURVATURE: {
+    title: 'Plot curves upward',
+    explanation:
+      'A quadratic describes the points significantly better than a line, bending upward. This is the usual sign of static and dynamic quenching together (I0/I = (1 + K_D[Q])(1 + K_S[Q])), or of a quencher absorbing light.',
+    whatToCheck: [
+      'lifetime data: if tau0/tau stays linear, part of the quenching is static',
+      'quencher absorbance (apply the inner-filter correction)',
+      'fit the combined static and dynamic model',
+    ],
+  },
+  DOWNWARD_CURVATURE: {
+    title: 'Plot curves downward',
+    explanation:
+      'A quadratic describes the points significantly better than a line, bending toward a plateau. Part of the emission may be out of the quencher\'s reach, or the emitter is a mixture.',
+    whatToCheck: [
+      'fit the modified Stern–Volmer plot to estimate the accessible fraction',
+      'emitter purity and possible second emitting species',
+      'detector saturation at the low-concentration end',
+    ],
+  },
+  RESIDUAL_PATTERN: {
+    title: 'Residuals follow a pattern',
+    explanation:
+      'Residuals of one sign come in blocks more than chance would give, so the line misses a systematic trend even though no curvature is significant.',
+    whatToCheck: ['the order in which samples were measured (drift)', 'pipetting of individual additions', 'outliers'],
+  },
+  NON_POSITIVE_INTENSITY: {
+    title: 'Zero or negative intensity',
+    explanation: 'An intensity at or below zero cannot be turned into a ratio I0/I; the point cannot be used.',
+    whatToCheck: ['background subtraction', 'the integration window or reading wavelength', 'detector settings'],
+  },
+  NO_I0: {
+    title: 'No unquenched intensity',
+    explanation: 'Without a measurement at zero quencher concentration, or an I0 entered by hand, no ratio I0/I can be formed.',
+    whatToCheck: ['include the blank (no quencher) in the series', 'or enter I0 from a separate measurement of the same sample'],
+  },
+  INNER_FILTER_LARGE: {
+    title: 'Quencher absorbs noticeably',
+    explanation:
+      'The quencher absorbs enough at the excitation or emission wavelength that the inner-filter correction changes the intensity by more than a few per cent. The correction itself is an approximation that grows less reliable as absorbance rises.',
+    whatToCheck: [
+      'apply the correction with measured absorbances at both wavelengths',
+      'lower the quencher range, use a shorter path or excite where the quencher is transparent',
+    ],
+  },
+  LARGE_DILUTION: {
+    title: 'Sample diluted by more than about 10 %',
+    explanation:
+      'The additions change the volume enough that the emitter concentration drops noticeably, which lowers the signal independently of quenching.',
+    whatToCheck: ['put the emitter in the quencher stock at the same concentration', 'use a more concentrated stock'],
+  },
+  LIFETIME_STEEPER_THAN_INTENSITY: {
+    title: 'Lifetime plot steeper than intensity plot',
+    explanation:
+      'Quenching cannot shorten the lifetime more than it lowers the intensity, so this points to a problem in one of the two data sets.',
+    whatToCheck: ['I0 and tau0 reference values', 'fitting of the decays (background, instrument response)', 'that both series used the same samples'],
+  },
+};
+
+/**
+ * Builds a quality flag with the engine's explanation and check-list.
+ *
+ * @param code - which flag
+ * @param detail - optional numbers that raised it
+ * @param severity - 'warning' unless the result cannot be used
+ * @example qualityFlag('FEW_CONCENTRATIONS', '4 distinct concentrations').title // 'Few quencher concentrations'
+ */
+export function qualityFlag(code: QualityFlagCode, detail?: string, severity: 'warning' | 'error' = 'warning'): QualityFlag {
+  const text = FLAG_TEXTS[code];
+  return { code, severity, ...text, whatToCheck: [...text.whatToCheck], ...(detail === undefined ? {} : { detail }) };
+}

@@ -1,0 +1,138 @@
+import { EngineError } from '../core/engine-error';
+import { countDistinct, requireFiniteArray, requireNonNegativeArray, requirePositiveArray, requireSameLength } from '../core/validate';
+import { qualityFlag, type QualityFlag } from '../flags/quality-flag';
+import { fitLine } from '../stats/fit-line';
+import { fitLineThroughOrigin } from '../stats/fit-line-through-origin';
+import { makeEstimate, type ParameterEstimate } from '../stats/parameter-estimate';
+import { diagnoseCurvature, type CurvatureDiagnosis, type InterceptMode } from './diagnose-curvature';
+
+export interface SternVolmerInput {
+  /** quencher concentrations [Q], mol/L, >= 0 */
+  concentrations: readonly number[];
+  /** I0/I or tau0/tau, > 0 */
+  ratios: readonly number[];
+  /** optional 1-sigma uncertainties of the ratios; weights 1/sigma^2 */
+  ratioUncertainties?: readonly number[];
+  /** default 'free' */
+  intercept?: InterceptMode;
+}
+
+export interface SternVolmerFit {
+  intercept: InterceptMode;
+  /** Stern–Volmer constant K_SV, M^-1 */
+  kSv: ParameterEstimate;
+  /** fitted intercept (dimensionless); null when fixed at exactly 1 */
+  fittedIntercept: ParameterEstimate | null;
+  /** 'centred' with a free intercept; 'uncentred' (1 - SS_res / sum w (ratio-1)^2) with it fixed */
+  rSquared: number;
+  rSquaredDefinition: 'centred' | 'uncentred';
+  /** ratio - fitted, in input order */
+  residuals: number[];
+  residualStandardDeviation: number;
+  residualSumOfSquares: number;
+  degreesOfFreedom: number;
+  n: number;
+  distinctConcentrations: number;
+  weighted: boolean;
+  /** the exact points used, in input order (the caller's arrays, not copies) */
+  points: { concentrations: readonly number[]; ratios: readonly number[] };
+  diagnosis: CurvatureDiagnosis;
+  flags: QualityFlag[];
+}
+
+/** Fewer distinct concentrations than this draws a warning; fewer than 3 is an error. */
+export const RECOMMENDED_DISTINCT_CONCENTRATIONS = 5;
+
+/**
+ * Linear Stern–Volmer fit ratio = 1 + K_SV [Q] (Stern & Volmer, Phys. Z. 1919, 20, 183;
+ * IUPAC Gold Book S06004), either with a free intercept or with the intercept fixed at 1
+ * (regression of ratio - 1 through the origin). Returns K_SV with its standard error and
+ * Student's t 95 % interval, R^2, residuals, the curvature diagnosis and quality flags.
+ *
+ * @param input.concentrations - [Q] in mol/L (>= 0; at least 3 distinct values)
+ * @param input.ratios - I0/I or tau0/tau (> 0)
+ * @param input.ratioUncertainties - optional 1-sigma of each ratio (> 0)
+ * @param input.intercept - 'free' (default) or 'fixed-at-one'
+ * @throws EngineError LENGTH_MISMATCH, NON_FINITE_VALUE, NEGATIVE_VALUE, NON_POSITIVE_VALUE, TOO_FEW_CONCENTRATIONS
+ * @example fitSternVolmer({ concentrations: [0, 1e-3, 2e-3, 3e-3, 4e-3], ratios: [1, 1.5, 2, 2.5, 3] }).kSv.value // 500
+ */
+export function fitSternVolmer(input: SternVolmerInput): SternVolmerFit {
+  const { concentrations, ratios, ratioUncertainties, intercept = 'free' } = input;
+  requireSameLength(concentrations, ratios, 'concentrations', 'ratios');
+  requireNonNegativeArray(concentrations, 'concentrations', 'Concentrations are amounts added and cannot be negative');
+  requirePositiveArray(ratios, 'ratios');
+  const distinctConcentrations = countDistinct(concentrations);
+  if (distinctConcentrations < 3) {
+    throw new EngineError(
+      'TOO_FEW_CONCENTRATIONS',
+      'concentrations',
+      `only ${distinctConcentrations} distinct concentration${distinctConcentrations === 1 ? '' : 's'}; at least 3 are needed`,
+      `Measure at least ${RECOMMENDED_DISTINCT_CONCENTRATIONS} different concentrations`,
+    );
+  }
+  let weights: number[] | undefined;
+  if (ratioUncertainties) {
+    requireSameLength(concentrations, ratioUncertainties, 'concentrations', 'ratioUncertainties');
+    requireFiniteArray(ratioUncertainties, 'ratioUncertainties');
+    requirePositiveArray(ratioUncertainties, 'ratioUncertainties', 'Every point needs a positive uncertainty to be weighted');
+    weights = ratioUncertainties.map((sigma) => 1 / (sigma * sigma));
+  }
+  const fixed = intercept === 'fixed-at-one';
+  let y: readonly number[] = ratios;
+  if (fixed) {
+    const shifted: number[] = [];
+    for (let i = 0; i < ratios.length; i++) shifted.push(ratios[i] - 1);
+    y = shifted;
+  }
+  const freeLine = fixed ? null : fitLine(concentrations, y, weights);
+  const line = freeLine ?? fitLineThroughOrigin(concentrations, y, weights);
+  const df = line.degreesOfFreedom;
+  const fittedIntercept = freeLine ? makeEstimate(freeLine.intercept, freeLine.interceptStandardError, df) : null;
+  const diagnosis = diagnoseCurvature(concentrations, ratios, { intercept, ...(weights ? { weights } : {}), linear: line });
+  return {
+    intercept,
+    kSv: makeEstimate(line.slope, line.slopeStandardError, df),
+    fittedIntercept,
+    rSquared: line.rSquared,
+    rSquaredDefinition: fixed ? 'uncentred' : 'centred',
+    residuals: line.residuals,
+    residualStandardDeviation: line.residualStandardDeviation,
+    residualSumOfSquares: line.residualSumOfSquares,
+    degreesOfFreedom: df,
+    n: line.n,
+    distinctConcentrations,
+    weighted: weights !== undefined,
+    points: { concentrations, ratios },
+    diagnosis,
+    flags: sternVolmerFlags(distinctConcentrations, fittedIntercept, diagnosis),
+  };
+}
+
+// A departure from 1 is flagged when it is larger than 5 % and the 95 % interval of the
+// intercept does not reach 1: big enough to matter and not explained by noise.
+const INTERCEPT_TOLERANCE = 0.05;
+
+function sternVolmerFlags(
+  distinct: number,
+  intercept: ParameterEstimate | null,
+  diagnosis: CurvatureDiagnosis,
+): QualityFlag[] {
+  const flags: QualityFlag[] = [];
+  if (distinct < RECOMMENDED_DISTINCT_CONCENTRATIONS) {
+    flags.push(qualityFlag('FEW_CONCENTRATIONS', `${distinct} distinct concentrations`));
+  }
+  if (intercept) {
+    const { value, interval95 } = intercept;
+    if (Math.abs(value - 1) > INTERCEPT_TOLERANCE && (interval95.lower > 1 || interval95.upper < 1)) {
+      flags.push(qualityFlag('INTERCEPT_FAR_FROM_ONE', `intercept ${value.toPrecision(3)} (95 % interval ${interval95.lower.toPrecision(3)} to ${interval95.upper.toPrecision(3)})`));
+    }
+  }
+  if (diagnosis.shape !== 'linear') {
+    const pValue = `F-test p = ${diagnosis.fTest?.pValue.toPrecision(2)}`;
+    flags.push(qualityFlag(diagnosis.shape === 'upward' ? 'UPWARD_CURVATURE' : 'DOWNWARD_CURVATURE', pValue));
+  }
+  if (diagnosis.shape === 'linear' && diagnosis.residualPattern) {
+    flags.push(qualityFlag('RESIDUAL_PATTERN', `${diagnosis.runs.runs} runs where about ${diagnosis.runs.expectedRuns.toFixed(1)} are expected`));
+  }
+  return flags;
+}
