@@ -23,7 +23,8 @@ export const toPendingInvitation = (invitation: Invitation): PendingInvitation =
   expiresAt: invitation.expiresAt.toISOString(),
 });
 
-const openInvitation = { acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } };
+/** Conditions of an invitation that can still be used, evaluated now. */
+const openInvitation = () => ({ acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } });
 
 /** Mails a single-use invitation (7 days) to join the lab with a role. */
 export async function inviteMember(
@@ -35,7 +36,7 @@ export async function inviteMember(
   if (existingUser && (await Membership.count({ where: { labId: lab.id, userId: existingUser.id } }))) {
     throw new AppError('already_member', `${input.email} is already a member of this lab.`, 409);
   }
-  if (await Invitation.count({ where: { labId: lab.id, email: input.email, ...openInvitation } })) {
+  if (await Invitation.count({ where: { labId: lab.id, email: input.email, ...openInvitation() } })) {
     throw new AppError('already_invited', `${input.email} already has an open invitation; revoke it to send a new one.`, 409);
   }
   const inviter = await User.findByPk(context.actor.userId);
@@ -72,7 +73,7 @@ const invalidInvitation = () =>
 
 async function findOpenInvitation(token: string) {
   return Invitation.findOne({
-    where: { tokenHash: hashLinkToken(token), ...openInvitation },
+    where: { tokenHash: hashLinkToken(token), ...openInvitation() },
     include: [
       { model: Lab, as: 'lab' },
       { model: User, as: 'invitedBy' },
@@ -106,7 +107,7 @@ export async function acceptInvitation(
   const newPasswordHash = input.name ? await hashPassword(input.password) : null;
   return sequelize.transaction(async (transaction) => {
     const invitation = await Invitation.findOne({
-      where: { tokenHash: hashLinkToken(token), ...openInvitation },
+      where: { tokenHash: hashLinkToken(token), ...openInvitation() },
       lock: transaction.LOCK.UPDATE,
       transaction,
     });
