@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { AuditEvent } from './audit-event.model';
 import { CaughtMail } from './caught-mail.model';
+import { Compound } from './compound.model';
 import { Invitation } from './invitation.model';
 import { Lab } from './lab.model';
 import { Membership } from './membership.model';
@@ -9,7 +10,7 @@ import { User } from './user.model';
 
 /** Binds every model to one Sequelize instance and declares the associations; call once per instance. */
 export function initModels(sequelize: Sequelize): void {
-  for (const model of [Lab, User, Membership, Invitation, PasswordReset, CaughtMail, AuditEvent]) {
+  for (const model of [Lab, User, Membership, Invitation, PasswordReset, CaughtMail, AuditEvent, Compound]) {
     model.initModel(sequelize);
   }
   Membership.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
@@ -19,6 +20,9 @@ export function initModels(sequelize: Sequelize): void {
   Invitation.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
   Invitation.belongsTo(User, { as: 'invitedBy', foreignKey: 'invitedById' });
   PasswordReset.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  Compound.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
+  Compound.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  Lab.hasMany(Compound, { as: 'compounds', foreignKey: 'labId' });
 }
 
-export { AuditEvent, CaughtMail, Invitation, Lab, Membership, PasswordReset, User };
+export { AuditEvent, CaughtMail, Compound, Invitation, Lab, Membership, PasswordReset, User };

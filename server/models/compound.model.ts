@@ -1,0 +1,45 @@
+import { DataTypes, Model } from 'sequelize';
+import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
+import { compoundRoleHints } from '@shared/schemas/compound-role';
+import type { CompoundRoleHint } from '@shared/schemas/compound-role';
+import type { Lab } from './lab.model';
+import type { User } from './user.model';
+
+export class Compound extends Model<InferAttributes<Compound>, InferCreationAttributes<Compound>> {
+  declare id: CreationOptional<string>;
+  declare labId: ForeignKey<Lab['id']>;
+  declare name: string;
+  declare roleHint: CompoundRoleHint;
+  declare smiles: CreationOptional<string | null>;
+  declare formula: CreationOptional<string | null>;
+  declare notes: CreationOptional<string>;
+  declare emissiveState: CreationOptional<string | null>;
+  /** eV */
+  declare tripletEnergy: CreationOptional<number | null>;
+  declare tripletEnergySource: CreationOptional<string | null>;
+  declare createdById: ForeignKey<User['id']> | null;
+  /** Optimistic-lock counter: a stale edit gets 409. */
+  declare version: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize): void {
+    Compound.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        name: { type: DataTypes.STRING(160), allowNull: false },
+        roleHint: { type: DataTypes.ENUM(...compoundRoleHints), allowNull: false },
+        smiles: { type: DataTypes.TEXT, allowNull: true },
+        formula: { type: DataTypes.STRING(120), allowNull: true },
+        notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        emissiveState: { type: DataTypes.STRING(60), allowNull: true },
+        tripletEnergy: { type: DataTypes.DOUBLE, allowNull: true },
+        tripletEnergySource: { type: DataTypes.TEXT, allowNull: true },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'compounds', version: true },
+    );
+  }
+}
