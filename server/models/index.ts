@@ -2,15 +2,19 @@ import type { Sequelize } from 'sequelize';
 import { AuditEvent } from './audit-event.model';
 import { CaughtMail } from './caught-mail.model';
 import { Compound } from './compound.model';
+import { ExcitedStateEnergy } from './excited-state-energy.model';
+import { ExcitedStateLifetime } from './excited-state-lifetime.model';
 import { Invitation } from './invitation.model';
 import { Lab } from './lab.model';
 import { Membership } from './membership.model';
 import { PasswordReset } from './password-reset.model';
+import { RedoxPotential } from './redox-potential.model';
 import { User } from './user.model';
 
 /** Binds every model to one Sequelize instance and declares the associations; call once per instance. */
 export function initModels(sequelize: Sequelize): void {
-  for (const model of [Lab, User, Membership, Invitation, PasswordReset, CaughtMail, AuditEvent, Compound]) {
+  const models = [Lab, User, Membership, Invitation, PasswordReset, CaughtMail, AuditEvent, Compound];
+  for (const model of [...models, RedoxPotential, ExcitedStateLifetime, ExcitedStateEnergy]) {
     model.initModel(sequelize);
   }
   Membership.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
@@ -23,6 +27,18 @@ export function initModels(sequelize: Sequelize): void {
   Compound.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
   Compound.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
   Lab.hasMany(Compound, { as: 'compounds', foreignKey: 'labId' });
+  RedoxPotential.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
+  ExcitedStateLifetime.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
+  ExcitedStateEnergy.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
+  RedoxPotential.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  ExcitedStateLifetime.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  ExcitedStateEnergy.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  Compound.hasMany(RedoxPotential, { as: 'potentials', foreignKey: 'compoundId' });
+  Compound.hasMany(ExcitedStateLifetime, { as: 'lifetimes', foreignKey: 'compoundId' });
+  Compound.hasMany(ExcitedStateEnergy, { as: 'energies', foreignKey: 'compoundId' });
 }
 
-export { AuditEvent, CaughtMail, Compound, Invitation, Lab, Membership, PasswordReset, User };
+export {
+  AuditEvent, CaughtMail, Compound, ExcitedStateEnergy, ExcitedStateLifetime, Invitation, Lab, Membership,
+  PasswordReset, RedoxPotential, User,
+};

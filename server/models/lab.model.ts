@@ -6,6 +6,9 @@ export class Lab extends Model<InferAttributes<Lab>, InferCreationAttributes<Lab
   declare name: string;
   declare slug: string;
   declare isDemo: CreationOptional<boolean>;
+  /** Reference electrode in which the lab reads potentials (engine id, e.g. 'SCE', 'Fc+/Fc'). */
+  declare displayReference: CreationOptional<string>;
+  declare displaySolvent: CreationOptional<string>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -16,6 +19,8 @@ export class Lab extends Model<InferAttributes<Lab>, InferCreationAttributes<Lab
         name: { type: DataTypes.STRING(160), allowNull: false },
         slug: { type: DataTypes.STRING(80), allowNull: false, unique: true },
         isDemo: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        displayReference: { type: DataTypes.STRING(40), allowNull: false, defaultValue: 'SCE' },
+        displaySolvent: { type: DataTypes.STRING(80), allowNull: false, defaultValue: 'acetonitrile' },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
