@@ -27,6 +27,9 @@ export function initModels(sequelize: Sequelize): void {
   Compound.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
   Compound.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
   Lab.hasMany(Compound, { as: 'compounds', foreignKey: 'labId' });
+  RedoxPotential.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
+  ExcitedStateLifetime.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
+  ExcitedStateEnergy.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
   RedoxPotential.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
   ExcitedStateLifetime.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
   ExcitedStateEnergy.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
