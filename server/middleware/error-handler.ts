@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { BaseError, UniqueConstraintError, ValidationError as SequelizeValidationError } from 'sequelize';
 import { ZodError } from 'zod';
+import { EngineError } from '@shared/engine';
 import type { ApiErrorBody } from '@shared/schemas/error';
 import { AppError } from '../lib/app-error';
 
@@ -20,6 +21,12 @@ function toAppError(error: unknown): AppError | null {
       400,
       error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message })),
     );
+  }
+  if (error instanceof EngineError) {
+    // The engine refused the numbers; its message already names the field and what to do.
+    return new AppError(`engine_${error.code.toLowerCase()}`, error.message, 400, [
+      { path: error.field, message: error.message.slice(error.field.length + 2) },
+    ]);
   }
   if (error instanceof UniqueConstraintError) {
     return new AppError(
