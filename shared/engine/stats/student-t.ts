@@ -1,5 +1,6 @@
 import quantile from '@stdlib/stats-base-dists-t-quantile';
 import { EngineError } from '../core/engine-error';
+import { LARGE_DF, studentTTwoSidedPValueLargeDf } from './student-t-large-df';
 
 // Quantiles are cached per degrees of freedom: every fit asks for the same few, and the
 // quantile function (an inverse incomplete beta) costs far more than a whole small fit.
@@ -28,7 +29,9 @@ export function studentTQuantile975(degreesOfFreedom: number): number {
 /**
  * Two-sided p-value P(|T| >= |t|) of Student's t with integer degrees of freedom, from
  * the finite series of Abramowitz & Stegun, Handbook of Mathematical Functions (1964),
- * 26.7.3 (odd df) and 26.7.4 (even df), with theta = atan(|t| / sqrt(df)).
+ * 26.7.3 (odd df) and 26.7.4 (even df), with theta = atan(|t| / sqrt(df)); above 300 df,
+ * where that series grows long, the incomplete-beta continued fraction of
+ * studentTTwoSidedPValueLargeDf.
  *
  * @param t - the t statistic (any finite value, or +-Infinity giving 0)
  * @param degreesOfFreedom - a positive integer
@@ -41,6 +44,7 @@ export function studentTTwoSidedPValue(t: number, degreesOfFreedom: number): num
   }
   if (Number.isNaN(t)) throw new EngineError('INVALID_ARGUMENT', 't', 'is NaN');
   if (!Number.isFinite(t)) return 0;
+  if (degreesOfFreedom > LARGE_DF) return studentTTwoSidedPValueLargeDf(t, degreesOfFreedom);
   const theta = Math.atan(Math.abs(t) / Math.sqrt(degreesOfFreedom));
   const sin = Math.sin(theta);
   const cos = Math.cos(theta);

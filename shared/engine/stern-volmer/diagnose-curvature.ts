@@ -1,8 +1,10 @@
-import { extraSumOfSquaresFTest, type FTestResult } from '../stats/extra-sum-of-squares-f-test';
+import type { FTestResult } from '../stats/extra-sum-of-squares-f-test';
 import { fitLine } from '../stats/fit-line';
 import { fitLineThroughOrigin } from '../stats/fit-line-through-origin';
 import { addedQuadraticTerm } from '../stats/added-quadratic-term';
 import { residualRunsTest, type RunsTestResult } from '../stats/runs-test';
+import { classifyCurvature } from './classify-curvature';
+import { residualsInConcentrationOrder } from './residuals-in-concentration-order';
 
 export type InterceptMode = 'free' | 'fixed-at-one';
 
@@ -17,8 +19,6 @@ export interface CurvatureDiagnosis {
   /** runs test significant at the 5 % level */
   residualPattern: boolean;
 }
-
-const SIGNIFICANCE = 0.05;
 
 /**
  * Tells a straight Stern–Volmer plot from a curved one: extra-sum-of-squares F test of
@@ -48,31 +48,12 @@ export function diagnoseCurvature(
 ): CurvatureDiagnosis {
   const { intercept, weights } = options;
   const throughOrigin = intercept === 'fixed-at-one';
-  const y = throughOrigin ? Array.from(ratios, (ratio) => ratio - 1) : ratios;
   const linear =
     options.linear ??
-    (throughOrigin ? fitLineThroughOrigin(concentrations, y, weights) : fitLine(concentrations, y, weights));
+    (throughOrigin
+      ? fitLineThroughOrigin(concentrations, Array.from(ratios, (ratio) => ratio - 1), weights)
+      : fitLine(concentrations, ratios, weights));
   const runs = residualRunsTest(residualsInConcentrationOrder(concentrations, linear.residuals));
-  const residualPattern = runs.pValue < SIGNIFICANCE;
   const quadratic = addedQuadraticTerm(concentrations, linear, { throughOrigin, ...(weights ? { weights } : {}) });
-  if (!quadratic) return { shape: 'linear', fTest: null, quadraticCoefficient: null, runs, residualPattern };
-  const fTest = extraSumOfSquaresFTest(linear, quadratic);
-  const b2 = quadratic.coefficient;
-  const shape = fTest.pValue < SIGNIFICANCE ? (b2 > 0 ? 'upward' : 'downward') : 'linear';
-  return {
-    shape,
-    fTest,
-    quadraticCoefficient: { value: b2, standardError: quadratic.standardError },
-    runs,
-    residualPattern,
-  };
-}
-
-function residualsInConcentrationOrder(x: ArrayLike<number>, residuals: ArrayLike<number>): ArrayLike<number> {
-  let sorted = true;
-  for (let i = 1; i < x.length && sorted; i++) sorted = x[i] > x[i - 1];
-  if (sorted) return residuals;
-  const order = Array.from({ length: x.length }, (_, i) => i);
-  order.sort((a, b) => x[a] - x[b] || residuals[a] - residuals[b]);
-  return order.map((i) => residuals[i]);
+  return classifyCurvature(linear, quadratic, runs);
 }

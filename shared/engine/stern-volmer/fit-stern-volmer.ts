@@ -1,10 +1,14 @@
 import { EngineError } from '../core/engine-error';
 import { countDistinct, requireFiniteArray, requireNonNegativeArray, requirePositiveArray, requireSameLength } from '../core/validate';
 import { qualityFlag, type QualityFlag } from '../flags/quality-flag';
-import { fitLine } from '../stats/fit-line';
-import { fitLineThroughOrigin } from '../stats/fit-line-through-origin';
+import { fitLineWithCurvature } from '../stats/fit-line-with-curvature';
 import { makeEstimate, type ParameterEstimate } from '../stats/parameter-estimate';
-import { diagnoseCurvature, type CurvatureDiagnosis, type InterceptMode } from './diagnose-curvature';
+import { residualRunsTest } from '../stats/runs-test';
+import { runsTestFromCounts } from '../stats/runs-test-from-counts';
+import { scanPoints } from '../stats/scan-points';
+import { classifyCurvature } from './classify-curvature';
+import type { CurvatureDiagnosis, InterceptMode } from './diagnose-curvature';
+import { residualsInConcentrationOrder } from './residuals-in-concentration-order';
 
 export interface SternVolmerInput {
   /** quencher concentrations [Q], mol/L, >= 0 */
@@ -59,9 +63,22 @@ export const RECOMMENDED_DISTINCT_CONCENTRATIONS = 5;
 export function fitSternVolmer(input: SternVolmerInput): SternVolmerFit {
   const { concentrations, ratios, ratioUncertainties, intercept = 'free' } = input;
   requireSameLength(concentrations, ratios, 'concentrations', 'ratios');
-  requireNonNegativeArray(concentrations, 'concentrations', 'Concentrations are amounts added and cannot be negative');
-  requirePositiveArray(ratios, 'ratios');
-  const distinctConcentrations = countDistinct(concentrations);
+  let weights: Float64Array | undefined;
+  if (ratioUncertainties) {
+    requireSameLength(concentrations, ratioUncertainties, 'concentrations', 'ratioUncertainties');
+    requireFiniteArray(ratioUncertainties, 'ratioUncertainties');
+    requirePositiveArray(ratioUncertainties, 'ratioUncertainties', 'Every point needs a positive uncertainty to be weighted');
+    weights = new Float64Array(ratioUncertainties.length);
+    for (let i = 0; i < weights.length; i++) weights[i] = 1 / (ratioUncertainties[i] * ratioUncertainties[i]);
+  }
+  // One pass reads the points; the validators that name a bad entry run only if it saw one.
+  const scan = scanPoints(concentrations, ratios, weights);
+  if (!scan.finite || !(scan.minX >= 0) || !(scan.minY > 0)) {
+    requireNonNegativeArray(concentrations, 'concentrations', 'Concentrations are amounts added and cannot be negative');
+    requirePositiveArray(ratios, 'ratios');
+    if (weights) requirePositiveArray(weights, 'weights');
+  }
+  const distinctConcentrations = scan.distinctX >= 0 ? scan.distinctX : countDistinct(concentrations);
   if (distinctConcentrations < 3) {
     throw new EngineError(
       'TOO_FEW_CONCENTRATIONS',
@@ -70,25 +87,15 @@ export function fitSternVolmer(input: SternVolmerInput): SternVolmerFit {
       `Measure at least ${RECOMMENDED_DISTINCT_CONCENTRATIONS} different concentrations`,
     );
   }
-  let weights: number[] | undefined;
-  if (ratioUncertainties) {
-    requireSameLength(concentrations, ratioUncertainties, 'concentrations', 'ratioUncertainties');
-    requireFiniteArray(ratioUncertainties, 'ratioUncertainties');
-    requirePositiveArray(ratioUncertainties, 'ratioUncertainties', 'Every point needs a positive uncertainty to be weighted');
-    weights = ratioUncertainties.map((sigma) => 1 / (sigma * sigma));
-  }
   const fixed = intercept === 'fixed-at-one';
-  let y: readonly number[] = ratios;
-  if (fixed) {
-    const shifted: number[] = [];
-    for (let i = 0; i < ratios.length; i++) shifted.push(ratios[i] - 1);
-    y = shifted;
-  }
-  const freeLine = fixed ? null : fitLine(concentrations, y, weights);
-  const line = freeLine ?? fitLineThroughOrigin(concentrations, y, weights);
+  // With the intercept fixed at 1, ratio - 1 is regressed through the origin.
+  const line = fitLineWithCurvature(concentrations, ratios, scan, { ...(weights ? { weights } : {}), throughOrigin: fixed, yOffset: fixed ? 1 : 0 });
   const df = line.degreesOfFreedom;
-  const fittedIntercept = freeLine ? makeEstimate(freeLine.intercept, freeLine.interceptStandardError, df) : null;
-  const diagnosis = diagnoseCurvature(concentrations, ratios, { intercept, ...(weights ? { weights } : {}), linear: line });
+  const fittedIntercept = fixed ? null : makeEstimate(line.intercept, line.interceptStandardError, df);
+  const runs = line.signRuns
+    ? runsTestFromCounts(line.signRuns.runs, line.signRuns.positives, line.signRuns.negatives)
+    : residualRunsTest(residualsInConcentrationOrder(concentrations, line.residuals));
+  const diagnosis = classifyCurvature(line, line.quadratic, runs);
   return {
     intercept,
     kSv: makeEstimate(line.slope, line.slopeStandardError, df),
