@@ -17,6 +17,8 @@ export class Compound extends Model<InferAttributes<Compound>, InferCreationAttr
   /** eV */
   declare tripletEnergy: CreationOptional<number | null>;
   declare tripletEnergySource: CreationOptional<string | null>;
+  /** Charge number before electron transfer (0 for neutral), for the Coulomb work term. */
+  declare charge: CreationOptional<number>;
   declare createdById: ForeignKey<User['id']> | null;
   /** Optimistic-lock counter: a stale edit gets 409. */
   declare version: CreationOptional<number>;
@@ -35,6 +37,7 @@ export class Compound extends Model<InferAttributes<Compound>, InferCreationAttr
         emissiveState: { type: DataTypes.STRING(60), allowNull: true },
         tripletEnergy: { type: DataTypes.DOUBLE, allowNull: true },
         tripletEnergySource: { type: DataTypes.TEXT, allowNull: true },
+        charge: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -9,6 +9,8 @@ import { Lab } from './lab.model';
 import { Membership } from './membership.model';
 import { PasswordReset } from './password-reset.model';
 import { RedoxPotential } from './redox-potential.model';
+import { initScenarioModels } from './scenario-models';
+import { initStudyModels } from './study-models';
 import { User } from './user.model';
 
 /** Binds every model to one Sequelize instance and declares the associations; call once per instance. */
@@ -39,9 +41,13 @@ export function initModels(sequelize: Sequelize): void {
   Compound.hasMany(RedoxPotential, { as: 'potentials', foreignKey: 'compoundId' });
   Compound.hasMany(ExcitedStateLifetime, { as: 'lifetimes', foreignKey: 'compoundId' });
   Compound.hasMany(ExcitedStateEnergy, { as: 'energies', foreignKey: 'compoundId' });
+  initStudyModels(sequelize);
+  initScenarioModels(sequelize);
 }
 
 export {
   AuditEvent, CaughtMail, Compound, ExcitedStateEnergy, ExcitedStateLifetime, Invitation, Lab, Membership,
   PasswordReset, RedoxPotential, User,
 };
+export { Study, StudyFit, StudyPoint, StudyReview, StudyUpload } from './study-models';
+export { ReactionScenario, ScenarioComponent } from './scenario-models';

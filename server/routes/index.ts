@@ -1,8 +1,19 @@
 import type { AnyRouteSpec } from '../http/define-route';
 import { accountRoutes } from './account.routes';
+import { compoundMeasurementRoutes } from './compound-measurements.routes';
+import { comparisonRoutes } from './comparisons.routes';
+import { compoundRoutes } from './compounds.routes';
+import { dashboardRoutes } from './dashboard.routes';
 import { invitationRoutes } from './invitations.routes';
+import { librarySettingsRoutes } from './library-settings.routes';
 import { memberRoutes } from './members.routes';
+import { plannerRoutes } from './planner.routes';
+import { reportRoutes } from './reports.routes';
+import { scenarioRoutes } from './scenarios.routes';
 import { sessionRoutes } from './session.routes';
+import { studyRoutes } from './studies.routes';
+import { studyReviewRoutes } from './study-reviews.routes';
+import { studyUploadRoutes } from './study-uploads.routes';
 import { systemRoutes } from './system.routes';
 
 /** Every API route of the server; the OpenAPI document and the permission matrix test read this list. */
@@ -12,4 +23,15 @@ export const apiRoutes: AnyRouteSpec[] = [
   ...accountRoutes,
   ...invitationRoutes,
   ...memberRoutes,
+  ...studyRoutes,
+  ...studyUploadRoutes,
+  ...studyReviewRoutes,
+  ...plannerRoutes,
+  ...scenarioRoutes,
+  ...comparisonRoutes,
+  ...dashboardRoutes,
+  ...reportRoutes,
+  ...compoundRoutes,
+  ...compoundMeasurementRoutes,
+  ...librarySettingsRoutes,
 ];

@@ -2,6 +2,8 @@ import type { Sequelize } from 'sequelize';
 import type { Role } from '@shared/schemas/roles';
 import { hashPassword } from '../auth/passwords';
 import { Lab, Membership, User } from '../models';
+import { seedDemoStudies } from './demo-studies';
+import { seedDemoLibrary } from './demo-library';
 
 /** The invented demo scenario. Every name, address and number in it is made up. */
 export const demoLabs = [
@@ -27,15 +29,19 @@ export async function seedDemoData(sequelize: Sequelize): Promise<{ created: boo
   const passwordHash = await hashPassword(demoPassword);
   return sequelize.transaction(async (transaction) => {
     const labs: Record<string, Lab> = {};
+    const users: Record<string, User> = {};
     for (const lab of demoLabs) {
       labs[lab.key] = await Lab.create({ name: lab.name, slug: lab.slug, isDemo: true }, { transaction });
     }
     for (const person of demoPeople) {
       const user = await User.create({ email: person.email, name: person.name, passwordHash }, { transaction });
+      users[person.email] = user;
       for (const [labKey, role] of Object.entries(person.roles)) {
         await Membership.create({ labId: labs[labKey]!.id, userId: user.id, role }, { transaction });
       }
     }
+    await seedDemoLibrary(transaction, labs);
+    await seedDemoStudies(transaction, labs, users);
     return { created: true };
   });
 }

@@ -42,12 +42,14 @@ export async function refreshCsrfToken(): Promise<void> {
 async function send(method: Method, url: string, options: RequestOptions): Promise<Response> {
   const headers: Record<string, string> = { accept: 'application/json', ...options.headers };
   if (method !== 'GET') Object.assign(headers, csrfHeaders);
-  if (options.body !== undefined) headers['content-type'] = 'application/json';
+  // A FormData body (file uploads) sets its own multipart content type.
+  const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
+  if (options.body !== undefined && !isForm) headers['content-type'] = 'application/json';
   return fetch(url, {
     method,
     credentials: 'same-origin',
     headers,
-    body: options.body === undefined ? undefined : JSON.stringify(options.body),
+    body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
     signal: options.signal,
   });
 }
@@ -74,7 +76,41 @@ async function request<T>(method: Method, url: string, options: RequestOptions =
   return payload as T;
 }
 
+/**
+ * A file answer (CSV, PDF, a raw upload): returns the bytes and the name the server suggests.
+ * Errors still arrive in the JSON error shape and throw ApiError.
+ */
+async function requestFile(method: Method, url: string, options: RequestOptions = {}): Promise<{ blob: Blob; filename: string }> {
+  const response = await send(method, url, options);
+  if (!response.ok) {
+    const payload = (await response.json().catch(() => null)) as ApiErrorBody | null;
+    throw new ApiError(
+      response.status,
+      payload?.error?.code ?? 'http_error',
+      payload?.error?.message ?? `The server answered ${response.status} ${response.statusText}.`,
+      payload?.error?.details ?? [],
+      payload,
+    );
+  }
+  const disposition = response.headers.get('content-disposition') ?? '';
+  const filename = /filename\*?=(?:UTF-8'')?"?([^";]+)"?/i.exec(disposition)?.[1] ?? 'download';
+  return { blob: await response.blob(), filename: decodeURIComponent(filename) };
+}
+
+/** Hands a downloaded file to the browser as a save. */
+export function saveFile({ blob, filename }: { blob: Blob; filename: string }): void {
+  const url = URL.createObjectURL(blob);
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = filename;
+  document.body.append(link);
+  link.click();
+  link.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
 export const apiClient = {
+  file: (method: Method, url: string, body?: unknown) => requestFile(method, url, { body }),
   get: <T>(url: string, options?: RequestOptions) => request<T>('GET', url, options),
   post: <T>(url: string, body?: unknown, options?: RequestOptions) => request<T>('POST', url, { ...options, body }),
   put: <T>(url: string, body?: unknown, options?: RequestOptions) => request<T>('PUT', url, { ...options, body }),

@@ -10,6 +10,13 @@ export const policy = {
   'members:manage': 'admin',
   'invitations:manage': 'admin',
   'mail:read': 'admin',
+  'studies:view': 'viewer',
+  'studies:write': 'researcher',
+  'studies:review': 'reviewer',
+  'library:view': 'viewer',
+  'library:add': 'researcher',
+  'library:curate': 'reviewer',
+  'settings:manage': 'admin',
 } as const satisfies Record<string, Role>;
 
 export type Action = keyof typeof policy;

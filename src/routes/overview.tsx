@@ -2,7 +2,10 @@ import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
 import { ErrorNotice } from '@/components/error-notice';
 import { useSession } from '@/features/auth/api/get-session';
+import { LabDashboard } from '@/features/dashboard/components/lab-dashboard';
+import { useCurrentLab } from '@/features/labs/current-lab';
 import { YourLabsPanel } from '@/features/labs/components/your-labs-panel';
+import { can } from '@/lib/policy';
 import { useHealth } from '@/features/system/api/get-health';
 
 function Fact({ label, value }: { label: string; value: string }) {
@@ -24,8 +27,9 @@ function formatUptime(seconds: number): string {
 export function OverviewRoute() {
   const health = useHealth();
   const { user } = useSession();
+  const lab = useCurrentLab(user.labs);
   return (
-    <div className="max-w-4xl space-y-6">
+    <div className="max-w-5xl space-y-6">
       <header>
         <h1 className="text-display font-black text-ink-950">Overview</h1>
         <p className="mt-1 max-w-2xl text-lead text-ink-700">
@@ -33,6 +37,7 @@ export function OverviewRoute() {
           see which reaction component intercepts the excited catalyst, and how fast.
         </p>
       </header>
+      {lab && <LabDashboard labId={lab.labId} labName={lab.labName} canReview={can(lab.role, 'studies:review')} />}
       <YourLabsPanel labs={user.labs} />
       <Panel
         title="Workspace status"

@@ -23,10 +23,16 @@ export function RootLayout() {
 
   const navigation = [
     { to: '/', label: 'Overview', end: true },
+    ...(lab && can(lab.role, 'studies:view') ? [{ to: `/labs/${lab.labId}/studies`, label: 'Studies' }] : []),
+    ...(lab && can(lab.role, 'library:view') ? [{ to: `/labs/${lab.labId}/library`, label: 'Library' }] : []),
     ...(lab && can(lab.role, 'members:view') ? [{ to: `/labs/${lab.labId}/members`, label: 'Members' }] : []),
+    ...(lab ? [{ to: `/labs/${lab.labId}/compare`, label: 'Compare' }] : []),
+    ...(lab ? [{ to: `/labs/${lab.labId}/scenarios`, label: 'Who quenches?' }] : []),
+    ...(lab ? [{ to: `/labs/${lab.labId}/planner`, label: 'Planner' }] : []),
     ...(lab && session.mailCatcher && can(lab.role, 'mail:read')
       ? [{ to: `/labs/${lab.labId}/mail`, label: 'Caught mail' }]
       : []),
+    ...(lab && can(lab.role, 'settings:manage') ? [{ to: `/labs/${lab.labId}/settings`, label: 'Lab settings' }] : []),
     { to: '/account', label: 'Account' },
   ];
 
@@ -42,7 +48,7 @@ export function RootLayout() {
 
   return (
     <div className="flex min-h-screen">
-      <aside className="flex w-60 shrink-0 flex-col bg-ink-950 px-4 py-6 text-ink-100">
+      <aside className="flex w-60 shrink-0 flex-col bg-ink-950 px-4 py-6 text-ink-100 print:hidden">
         <NavLink to="/" className="mb-6 flex items-center gap-2.5 text-glow-400" aria-label="Halflight home">
           <HalflightMark />
           <span className="text-title font-black tracking-tight text-paper-50">Halflight</span>

@@ -37,8 +37,10 @@ describe('the app shell in Chromium', () => {
     await expect(page.getByRole('heading', { name: 'Overview', level: 1 }).isVisible()).resolves.toBe(true);
     await page.getByText('Database answering').waitFor();
     const navigation = page.getByRole('navigation', { name: 'Main' });
-    // A viewer sees only the screens open to viewers: no caught mail, which is for admins.
-    expect(await navigation.getByRole('link').allTextContents()).toEqual(['Overview', 'Members', 'Account']);
+    // A viewer sees only the screens open to viewers: no caught mail or lab settings, which are for admins.
+    expect(await navigation.getByRole('link').allTextContents()).toEqual([
+      'Overview', 'Studies', 'Library', 'Members', 'Compare', 'Who quenches?', 'Planner', 'Account',
+    ]);
     const font = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
     expect(font).toContain('Lato');
     fs.mkdirSync(screenshotDir, { recursive: true });

@@ -42,6 +42,7 @@ export async function apiClient(app: Parameters<typeof request.agent>[0]) {
     get: (url: string) => agent.get(url),
     post: (url: string, body?: object) => withToken(agent.post(url)).send(body ?? {}),
     patch: (url: string, body?: object) => withToken(agent.patch(url)).send(body ?? {}),
+    put: (url: string, body?: object) => withToken(agent.put(url)).send(body ?? {}),
     delete: (url: string) => withToken(agent.delete(url)),
     async signIn(user: { email: string; password: string }) {
       const response = await withToken(agent.post('/api/session')).send({ email: user.email, password: user.password });

@@ -1,0 +1,39 @@
+import { DataTypes, Model } from 'sequelize';
+import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from 'sequelize';
+import type { FitModel } from '@shared/schemas/studies';
+import type { FitResult, StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
+import type { Study } from './study.model';
+import type { User } from './user.model';
+
+/** One fit as it was made; never updated (a refit is a new row). */
+export class StudyFit extends Model<InferAttributes<StudyFit>, InferCreationAttributes<StudyFit>> {
+  declare id: CreationOptional<string>;
+  declare studyId: ForeignKey<Study['id']>;
+  declare model: FitModel;
+  declare trigger: 'auto' | 'manual';
+  declare kSv: number | null;
+  declare kq: number | null;
+  declare result: FitResult;
+  declare pointsUsed: StudyFitRecord['pointsUsed'];
+  declare engineVersion: string;
+  declare createdById: ForeignKey<User['id']> | null;
+  declare createdAt: CreationOptional<Date>;
+  declare createdBy?: NonAttribute<User | null>;
+
+  static initModel(sequelize: Sequelize): void {
+    StudyFit.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        model: { type: DataTypes.STRING(20), allowNull: false },
+        trigger: { type: DataTypes.STRING(20), allowNull: false },
+        kSv: { type: DataTypes.DOUBLE, allowNull: true },
+        kq: { type: DataTypes.DOUBLE, allowNull: true },
+        result: { type: DataTypes.JSONB, allowNull: false },
+        pointsUsed: { type: DataTypes.JSONB, allowNull: false },
+        engineVersion: { type: DataTypes.STRING(20), allowNull: false },
+        createdAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'study_fits', updatedAt: false },
+    );
+  }
+}

@@ -1,0 +1,62 @@
+import { Op } from 'sequelize';
+import { SOLVENTS } from '@shared/engine';
+import type { ComparisonRow } from '@shared/schemas/comparisons';
+import type { Pathway } from '@shared/schemas/driving-force';
+import type { LabContext } from '../../middleware/access';
+import { Compound, Study, StudyFit } from '../../models';
+import { drivingForce } from '../library/driving-force.service';
+
+const isTableSolvent = (solvent: string | null): solvent is string => solvent !== null && solvent in SOLVENTS;
+
+/** The highlighted driving force of a pair in a solvent, or why there is none. */
+async function rowDrivingForce(lab: LabContext, study: Study) {
+  if (!isTableSolvent(study.solventId)) {
+    return { drivingForce: null, drivingForceMissing: 'custom solvent: no permittivity in the solvent table' };
+  }
+  const pinned = study.pinnedMechanism === 'oxidative' || study.pinnedMechanism === 'reductive' ? (study.pinnedMechanism as Pathway) : undefined;
+  const result = await drivingForce(lab, { emitterId: study.emitterId, quencherId: study.quencherId, solvent: study.solventId, pinned });
+  const pathway = result.highlighted;
+  const value = pathway ? result[pathway] : null;
+  if (!pathway || !value) {
+    return { drivingForce: null, drivingForceMissing: result.missing.map((item) => item.message).join('; ') || 'potentials missing' };
+  }
+  return {
+    drivingForce: { pathway, electronvolts: value.electronvolts, withWorkTerm: value.withWorkTerm },
+    drivingForceMissing: null,
+  };
+}
+
+/**
+ * One row per current study of the compound (as emitter: each quencher; as quencher: each
+ * emitter), with kq and K_SV and their standard errors from the newest fit, flags, status and
+ * the driving force.
+ */
+export async function comparisonRows(lab: LabContext, side: 'emitter' | 'quencher', compoundId: string): Promise<ComparisonRow[]> {
+  const studies = await Study.findAll({
+    where: { labId: lab.id, isCurrent: true, [side === 'emitter' ? 'emitterId' : 'quencherId']: compoundId },
+    include: [{ model: Compound, as: side === 'emitter' ? 'quencher' : 'emitter' }],
+    order: [['updatedAt', 'DESC']],
+    limit: 500,
+  });
+  const fitIds = studies.map((study) => study.latestFitId).filter((id): id is string => id !== null);
+  const fits = new Map(
+    (await StudyFit.findAll({ where: { id: { [Op.in]: fitIds } }, attributes: ['id', 'result'] })).map((fit) => [fit.id, fit]),
+  );
+  const rows: ComparisonRow[] = [];
+  for (const study of studies) {
+    const result = study.latestFitId ? fits.get(study.latestFitId)?.result : undefined;
+    const partner = side === 'emitter' ? study.quencher : study.emitter;
+    rows.push({
+      studyId: study.id,
+      title: study.title,
+      partner: { id: partner?.id ?? '', name: partner?.name ?? '' },
+      solvent: study.solventId ?? study.customSolventName ?? '',
+      status: study.status,
+      kq: study.kq === null ? null : { value: study.kq, standardError: result?.parameters.kq?.standardError ?? null },
+      kSv: study.kSv === null ? null : { value: study.kSv, standardError: result?.parameters.kSv?.standardError ?? null },
+      flags: (result?.flags ?? []).map((flag) => ({ code: flag.code, title: flag.title })),
+      ...(await rowDrivingForce(lab, study)),
+    });
+  }
+  return rows;
+}

@@ -1,0 +1,88 @@
+import { ENGINE_VERSION, EngineError, fitRehmWeller, rehmWellerRateConstant, solventDiffusionLimit } from '@shared/engine';
+import type { Comparison, ComparisonRow, Trend } from '@shared/schemas/comparisons';
+import { AppError } from '../../lib/app-error';
+import type { LabContext } from '../../middleware/access';
+import { Compound } from '../../models';
+import { comparisonRows } from './comparison-rows';
+
+function diffusionLimitOf(solvent: string): number | null {
+  try {
+    return solventDiffusionLimit(solvent);
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * log10 kq against dG_ET for one solvent, with the Rehm–Weller/Marcus fit of lambda (engine
+ * fitRehmWeller, k_d from the solvent). Solvents are never mixed in one fit.
+ */
+function trendFor(solvent: string, rows: ComparisonRow[], approvedOnly: boolean): Trend {
+  const usable = rows.filter((row) => row.kq && row.drivingForce && (!approvedOnly || row.status === 'approved'));
+  const points = usable.map((row) => ({
+    studyId: row.studyId,
+    drivingForce: row.drivingForce!.electronvolts,
+    log10Kq: Math.log10(row.kq!.value),
+    approved: row.status === 'approved',
+  }));
+  const diffusionLimit = diffusionLimitOf(solvent);
+  const base = { solvent, diffusionLimit, points };
+  if (diffusionLimit === null) return { ...base, fit: null, note: 'no diffusion limit for this solvent in the table' };
+  if (points.length < 3) return { ...base, fit: null, note: 'a trend needs at least 3 studies with kq and a driving force' };
+  try {
+    const fit = fitRehmWeller({
+      drivingForces: points.map((point) => point.drivingForce),
+      rateConstants: usable.map((row) => row.kq!.value),
+      diffusionLimit,
+    });
+    const lambda = fit.reorganisationEnergy.value;
+    const kdOverKZ = fit.kdOverKZ.value;
+    const low = Math.min(...points.map((point) => point.drivingForce)) - 0.3;
+    const high = Math.max(...points.map((point) => point.drivingForce)) + 0.3;
+    const curve = Array.from({ length: 61 }, (_, i) => {
+      const drivingForce = low + ((high - low) * i) / 60;
+      return { drivingForce, log10Kq: Math.log10(rehmWellerRateConstant({ drivingForce, reorganisationEnergy: lambda, diffusionLimit, kdOverKZ })) };
+    });
+    return {
+      ...base,
+      fit: {
+        reorganisationEnergy: lambda,
+        reorganisationEnergyStandardError: fit.reorganisationEnergy.standardError,
+        kdOverKZ,
+        residualStandardDeviation: fit.residualStandardDeviation,
+        n: fit.n,
+        curve,
+      },
+      note: null,
+    };
+  } catch (error) {
+    if (error instanceof EngineError) return { ...base, fit: null, note: error.message };
+    throw error;
+  }
+}
+
+const sorters: Record<string, (a: ComparisonRow, b: ComparisonRow) => number> = {
+  kq: (a, b) => (b.kq?.value ?? -1) - (a.kq?.value ?? -1),
+  kSv: (a, b) => (b.kSv?.value ?? -1) - (a.kSv?.value ?? -1),
+  drivingForce: (a, b) => (a.drivingForce?.electronvolts ?? 99) - (b.drivingForce?.electronvolts ?? 99),
+  partner: (a, b) => a.partner.name.localeCompare(b.partner.name),
+};
+
+export async function compare(
+  lab: LabContext,
+  side: 'emitter' | 'quencher',
+  compoundId: string,
+  options: { approvedOnly: boolean; sort: string },
+): Promise<Comparison> {
+  const compound = await Compound.findOne({ where: { id: compoundId, labId: lab.id } });
+  if (!compound) throw new AppError('not_found', 'No compound with this id in this lab.', 404);
+  const rows = (await comparisonRows(lab, side, compoundId)).sort(sorters[options.sort] ?? sorters.kq);
+  const solvents = [...new Set(rows.map((row) => row.solvent))].sort();
+  return {
+    side,
+    compound: { id: compound.id, name: compound.name },
+    rows,
+    trends: solvents.map((solvent) => trendFor(solvent, rows.filter((row) => row.solvent === solvent), options.approvedOnly)),
+    engineVersion: ENGINE_VERSION,
+  };
+}

@@ -1,0 +1,56 @@
+import { Op } from 'sequelize';
+import type { WhereOptions } from 'sequelize';
+import type { Dashboard, DashboardStudy } from '@shared/schemas/dashboard';
+import { roleAtLeast } from '@shared/schemas/roles';
+import type { LabContext } from '../../middleware/access';
+import { AuditEvent, Compound, Study, User } from '../../models';
+import { describeActivity } from './describe-activity';
+
+async function studies(where: WhereOptions<Study>, limit = 10): Promise<DashboardStudy[]> {
+  const rows = await Study.findAll({
+    where: { ...where, isCurrent: true } as WhereOptions<Study>,
+    include: [
+      { model: Compound, as: 'emitter', attributes: ['name'] },
+      { model: Compound, as: 'quencher', attributes: ['name'] },
+      { model: User, as: 'owner', attributes: ['name'] },
+    ],
+    order: [['updatedAt', 'DESC']],
+    limit,
+  });
+  return rows.map((study) => ({
+    id: study.id,
+    title: study.title,
+    emitter: study.emitter?.name ?? '',
+    quencher: study.quencher?.name ?? '',
+    owner: study.owner?.name ?? null,
+    status: study.status,
+    kq: study.kq,
+    flagged: study.flagged,
+    updatedAt: study.updatedAt.toISOString(),
+  }));
+}
+
+/** The landing screen of a lab: what waits for me, what came back to me, what looks wrong, what happened. */
+export async function getDashboard(lab: LabContext, userId: string): Promise<Dashboard> {
+  const events = await AuditEvent.findAll({
+    where: { labId: lab.id, action: { [Op.notIn]: ['sign_in', 'sign_in_failed', 'sign_out'] } },
+    order: [['id', 'DESC']],
+    limit: 20,
+  });
+  const actorIds = [...new Set(events.map((event) => event.actorId).filter((id): id is string => id !== null))];
+  const actors = new Map((await User.findAll({ where: { id: actorIds }, attributes: ['id', 'name'] })).map((user) => [user.id, user.name]));
+  return {
+    waitingForMyReview: roleAtLeast(lab.role, 'reviewer') ? await studies({ labId: lab.id, status: 'submitted' }) : [],
+    myReturned: await studies({ labId: lab.id, status: 'returned', ownerId: userId }),
+    recentlyFlagged: await studies({ labId: lab.id, flagged: true }, 8),
+    recentActivity: events.map((event) => ({
+      id: Number(event.id),
+      action: event.action,
+      description: describeActivity(event),
+      actor: event.actorId ? (actors.get(event.actorId) ?? null) : null,
+      targetType: event.targetType,
+      targetId: event.targetId,
+      at: event.createdAt.toISOString(),
+    })),
+  };
+}

@@ -1,0 +1,139 @@
+import { ForeignKeyConstraintError, literal, Op } from 'sequelize';
+import type { Sequelize, WhereOptions } from 'sequelize';
+import type { CompoundChanges, CompoundList, CompoundListQuery, CompoundSummary, CompoundValues } from '@shared/schemas/library';
+import type { CompoundDetail } from '@shared/schemas/library-views';
+import { AppError } from '../../lib/app-error';
+import type { LabContext } from '../../middleware/access';
+import { Compound, User } from '../../models';
+import type { ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential } from '../../models';
+import { recordAudit } from '../audit.service';
+import type { Actor } from '../audit.service';
+import { toPotentialRecord } from './display-potential.service';
+import { excitedStateOf } from './excited-state.service';
+import { assertMayEdit, assertVersion, changedFields, findCompound, labDisplaySettings } from './library-access.service';
+import { measurementsOf } from './measurement-store.service';
+import { toEnergyRecord, toLifetimeRecord } from './measurements.service';
+
+const count = (table: string) =>
+  literal(`(SELECT count(*)::int FROM ${table} AS m WHERE m.compound_id = "Compound"."id")`);
+const summaryAttributes = {
+  include: [
+    [count('redox_potentials'), 'potentialCount'],
+    [count('excited_state_lifetimes'), 'lifetimeCount'],
+    [count('excited_state_energies'), 'energyCount'],
+  ] as [ReturnType<typeof literal>, string][],
+};
+
+function toSummary(compound: Compound & { createdBy?: User }): CompoundSummary {
+  const counted = (key: string) => Number(compound.get(key) ?? 0);
+  return {
+    id: compound.id,
+    name: compound.name,
+    roleHint: compound.roleHint,
+    smiles: compound.smiles ?? null,
+    formula: compound.formula ?? null,
+    notes: compound.notes ?? '',
+    emissiveState: compound.emissiveState ?? null,
+    tripletEnergy: compound.tripletEnergy ?? null,
+    tripletEnergySource: compound.tripletEnergySource ?? null,
+    charge: compound.charge ?? 0,
+    counts: { potentials: counted('potentialCount'), lifetimes: counted('lifetimeCount'), energies: counted('energyCount') },
+    createdById: compound.createdById ?? null,
+    createdByName: compound.createdBy?.name ?? null,
+    version: compound.version,
+    createdAt: compound.createdAt.toISOString(),
+    updatedAt: compound.updatedAt.toISOString(),
+  };
+}
+
+const withAuthor = [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }];
+// A role filter for emitters or quenchers also lists compounds marked "both".
+const roleFilter = { photocatalyst: ['photocatalyst', 'both'], quencher: ['quencher', 'both'], both: ['both'] } as const;
+
+export async function listCompounds(lab: LabContext, query: CompoundListQuery & { page: number; pageSize: number }): Promise<CompoundList> {
+  const where: WhereOptions<Compound>[] = [{ labId: lab.id }];
+  if (query.search) where.push({ name: { [Op.iLike]: `%${query.search.replace(/[\\%_]/g, '\\$&')}%` } });
+  if (query.roleHint) where.push({ roleHint: [...roleFilter[query.roleHint]] });
+  const { rows, count: total } = await Compound.findAndCountAll({
+    where: { [Op.and]: where },
+    attributes: summaryAttributes,
+    include: withAuthor,
+    order: [['name', 'ASC']],
+    limit: query.pageSize,
+    offset: (query.page - 1) * query.pageSize,
+    distinct: true,
+  });
+  return { items: rows.map(toSummary), total, page: query.page, pageSize: query.pageSize };
+}
+
+export async function getCompound(lab: LabContext, compoundId: string): Promise<CompoundDetail> {
+  const compound = await Compound.findOne({ where: { id: compoundId, labId: lab.id }, attributes: summaryAttributes, include: withAuthor });
+  if (!compound) throw new AppError('not_found', 'No compound with this id in this lab.', 404);
+  const { displayReference } = await labDisplaySettings(lab.id);
+  const potentials = await measurementsOf<RedoxPotential & { createdBy?: User }>('potential', lab.id, [compound.id]);
+  const lifetimes = await measurementsOf<ExcitedStateLifetime>('lifetime', lab.id, [compound.id]);
+  const energies = await measurementsOf<ExcitedStateEnergy>('energy', lab.id, [compound.id]);
+  return {
+    ...toSummary(compound),
+    displayReference,
+    potentials: potentials.map((row) => toPotentialRecord(row, displayReference, row.createdBy?.name ?? null)),
+    lifetimes: lifetimes.map(toLifetimeRecord),
+    energies: energies.map(toEnergyRecord),
+    excitedState: excitedStateOf(compound.name, potentials, energies, displayReference),
+  };
+}
+
+const nameTaken = (name: string) =>
+  new AppError('name_taken', `The library already has a compound called "${name}".`, 409, [
+    { path: 'body.name', message: 'is already used by another compound in this lab' },
+  ]);
+
+async function assertNameFree(labId: string, name: string, exceptId?: string) {
+  const clash = await Compound.findOne({
+    where: { labId, [Op.and]: [literal(`lower("Compound"."name") = lower(${Compound.sequelize!.escape(name)})`)] },
+  });
+  if (clash && clash.id !== exceptId) throw nameTaken(name);
+}
+
+export async function createCompound(sequelize: Sequelize, lab: LabContext, actor: Actor, input: CompoundValues): Promise<CompoundDetail> {
+  await assertNameFree(lab.id, input.name);
+  const id = await sequelize.transaction(async (transaction) => {
+    const compound = await Compound.create({ ...input, labId: lab.id, createdById: actor.userId }, { transaction });
+    await recordAudit(actor, { action: 'compound_added', labId: lab.id, targetType: 'compound', targetId: compound.id, details: { ...input } }, transaction);
+    return compound.id;
+  });
+  return getCompound(lab, id);
+}
+
+export async function updateCompound(
+  sequelize: Sequelize, lab: LabContext, actor: Actor, compoundId: string, changes: CompoundChanges,
+): Promise<CompoundDetail> {
+  const { version, ...fields } = changes;
+  if (fields.name) await assertNameFree(lab.id, fields.name, compoundId);
+  await sequelize.transaction(async (transaction) => {
+    const compound = await findCompound(lab, compoundId, transaction, true);
+    assertMayEdit(lab, actor, compound, 'compound');
+    assertVersion(compound, version, 'compound');
+    const diff = changedFields(compound.get({ plain: true }), fields);
+    await compound.update(fields, { transaction });
+    await recordAudit(actor, { action: 'compound_changed', labId: lab.id, targetType: 'compound', targetId: compound.id, details: diff }, transaction);
+  });
+  return getCompound(lab, compoundId);
+}
+
+export async function deleteCompound(sequelize: Sequelize, lab: LabContext, actor: Actor, compoundId: string, version?: number) {
+  try {
+    await sequelize.transaction(async (transaction) => {
+      const compound = await findCompound(lab, compoundId, transaction, true);
+      assertVersion(compound, version, 'compound');
+      const before = compound.get({ plain: true });
+      await compound.destroy({ transaction });
+      await recordAudit(actor, { action: 'compound_deleted', labId: lab.id, targetType: 'compound', targetId: compoundId, details: before }, transaction);
+    });
+  } catch (error) {
+    if (error instanceof ForeignKeyConstraintError) {
+      throw new AppError('compound_in_use', 'Studies in this lab use this compound, so it stays in the library.', 409);
+    }
+    throw error;
+  }
+}

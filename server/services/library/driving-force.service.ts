@@ -1,0 +1,107 @@
+import {
+  DEFAULT_ENCOUNTER_DISTANCE, energyTransferFeasibility, getSolvent, quenchingDrivingForces,
+} from '@shared/engine';
+import type { DrivingForceResult, MissingInput, Pathway } from '@shared/schemas/driving-force';
+import type { LabContext } from '../../middleware/access';
+import type { Compound, ExcitedStateEnergy, RedoxPotential } from '../../models';
+import { pickPotential } from './display-potential.service';
+import { pickEnergy } from './excited-state.service';
+import { findCompound, labDisplaySettings } from './library-access.service';
+import { measurementsOf } from './measurement-store.service';
+
+interface Query { emitterId: string; quencherId: string; solvent: string; pinned?: Pathway; distance?: number }
+
+const label = { oxidation: 'ground-state oxidation potential', reduction: 'ground-state reduction potential' } as const;
+
+/** Names each number a pathway lacks, for which compound, and which pathways it blocks. */
+function missingInputs(emitter: Compound, quencher: Compound, has: Record<string, boolean>, reference: string): MissingInput[] {
+  const missing: MissingInput[] = [];
+  const add = (compound: Compound, quantity: MissingInput['quantity'], neededFor: MissingInput['neededFor'], what: string) =>
+    missing.push({ compoundId: compound.id, compoundName: compound.name, quantity, neededFor, message: `${compound.name} has no ${what}` });
+  if (!has.emitterOxidation) add(emitter, 'oxidation', ['oxidative'], `${label.oxidation} E(PC+/PC) usable against ${reference}; oxidative quenching needs it`);
+  if (!has.emitterReduction) add(emitter, 'reduction', ['reductive'], `${label.reduction} E(PC/PC-) usable against ${reference}; reductive quenching needs it`);
+  if (!has.e00) add(emitter, 'e00', ['oxidative', 'reductive'], 'E00 (excited-state energy); both electron-transfer pathways need it');
+  if (!has.quencherReduction) add(quencher, 'reduction', ['oxidative'], `${label.reduction} E(Q/Q-) usable against ${reference}; oxidative quenching needs it`);
+  if (!has.quencherOxidation) add(quencher, 'oxidation', ['reductive'], `${label.oxidation} E(Q+/Q) usable against ${reference}; reductive quenching needs it`);
+  if (!has.emitterTriplet) add(emitter, 'tripletEnergy', ['energy-transfer'], 'triplet energy; the energy-transfer check needs it');
+  if (!has.quencherTriplet) add(quencher, 'tripletEnergy', ['energy-transfer'], 'triplet energy; the energy-transfer check needs it');
+  return missing;
+}
+
+/**
+ * Both electron-transfer routes between an emitter and a quencher (the engine's
+ * quenchingDrivingForces, Rehm & Weller 1970 estimate), every potential first converted into
+ * the lab's display reference; the Coulomb term for the study's solvent is reported beside
+ * each dG, not folded in; energy transfer from the triplet energies.
+ */
+export async function drivingForce(lab: LabContext, query: Query): Promise<DrivingForceResult> {
+  const emitter = await findCompound(lab, query.emitterId);
+  const quencher = await findCompound(lab, query.quencherId);
+  const { displayReference: reference } = await labDisplaySettings(lab.id);
+  const potentials = await measurementsOf<RedoxPotential>('potential', lab.id, [emitter.id, quencher.id]);
+  const energies = await measurementsOf<ExcitedStateEnergy>('energy', lab.id, [emitter.id]);
+  const of = (compound: Compound) => potentials.filter((potential) => potential.compoundId === compound.id);
+  const used = {
+    emitterOxidation: pickPotential(of(emitter), 'oxidation', reference),
+    emitterReduction: pickPotential(of(emitter), 'reduction', reference),
+    quencherOxidation: pickPotential(of(quencher), 'oxidation', reference),
+    quencherReduction: pickPotential(of(quencher), 'reduction', reference),
+  };
+  const e00 = pickEnergy(energies);
+  const solvent = getSolvent(query.solvent);
+  const distance = query.distance ?? DEFAULT_ENCOUNTER_DISTANCE;
+
+  const catalyst = { oxidation: used.emitterOxidation?.value, reduction: used.emitterReduction?.value, charge: emitter.charge };
+  const partner = { oxidation: used.quencherOxidation?.value, reduction: used.quencherReduction?.value, charge: quencher.charge };
+  const computable = e00 && ((catalyst.oxidation !== undefined && partner.reduction !== undefined) ||
+    (partner.oxidation !== undefined && catalyst.reduction !== undefined));
+  const plain = computable ? quenchingDrivingForces({ catalyst: { ...catalyst, e00: e00.value }, quencher: partner, pinned: query.pinned }) : null;
+  const withWork = computable
+    ? quenchingDrivingForces({ catalyst: { ...catalyst, e00: e00.value }, quencher: partner, coulomb: { permittivity: solvent.permittivity, distance } })
+    : null;
+  const pathway = (key: Pathway, donor?: number, acceptor?: number) => {
+    const force = plain?.[key];
+    const work = withWork?.[key];
+    if (!force || !work || donor === undefined || acceptor === undefined || !e00) return null;
+    return {
+      electronvolts: force.electronvolts, kilojoulesPerMole: force.kilojoulesPerMole, donorOxidation: donor,
+      acceptorReduction: acceptor, e00: e00.value, workTerm: work.workTerm, withWorkTerm: work.electronvolts,
+    };
+  };
+
+  const energyTransfer = emitter.tripletEnergy && quencher.tripletEnergy
+    ? energyTransferFeasibility({ catalystTripletEnergy: emitter.tripletEnergy, quencherTripletEnergy: quencher.tripletEnergy })
+    : null;
+  const warnings = new Set(Object.values(used).flatMap((value) => value?.warnings ?? []));
+  for (const value of Object.values(used)) {
+    if (value && value.original.solvent !== solvent.id) {
+      warnings.add(`A potential measured in ${value.original.solvent} is used for a study in ${solvent.name}; no solvent correction is applied.`);
+    }
+  }
+  const strip = (value: (typeof used)[keyof typeof used]) => (value ? (({ warnings: _, ...rest }) => rest)(value) : null);
+  const partnerOut = (compound: Compound, ox: keyof typeof used, red: keyof typeof used) => ({
+    id: compound.id, name: compound.name, charge: compound.charge, oxidation: strip(used[ox]), reduction: strip(used[red]),
+    tripletEnergy: compound.tripletEnergy ?? null,
+  });
+  return {
+    reference,
+    solvent: solvent.id,
+    emitter: { ...partnerOut(emitter, 'emitterOxidation', 'emitterReduction'), e00 },
+    quencher: partnerOut(quencher, 'quencherOxidation', 'quencherReduction'),
+    oxidative: pathway('oxidative', catalyst.oxidation, partner.reduction),
+    reductive: pathway('reductive', partner.oxidation, catalyst.reduction),
+    favoured: plain?.favoured ?? null,
+    highlighted: plain?.highlighted ?? null,
+    pinned: query.pinned ?? null,
+    coulomb: { permittivity: solvent.permittivity, distance, source: solvent.permittivitySource },
+    energyTransfer: energyTransfer
+      ? { possible: energyTransfer.possible, energyDifference: energyTransfer.energyDifference, kilojoulesPerMole: energyTransfer.energyDifferenceKilojoulesPerMole }
+      : null,
+    missing: missingInputs(emitter, quencher, {
+      emitterOxidation: !!used.emitterOxidation, emitterReduction: !!used.emitterReduction, e00: !!e00,
+      quencherOxidation: !!used.quencherOxidation, quencherReduction: !!used.quencherReduction,
+      emitterTriplet: !!emitter.tripletEnergy, quencherTriplet: !!quencher.tripletEnergy,
+    }, reference),
+    warnings: [...warnings],
+  };
+}

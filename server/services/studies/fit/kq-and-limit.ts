@@ -1,0 +1,78 @@
+import {
+  diffusionRateConstant, EngineError, getSolvent, quenchingRateConstant, solventDiffusionLimit, studentTQuantile975,
+  type ParameterEstimate, type QualityFlag,
+} from '@shared/engine';
+import type { FitResult } from '@shared/schemas/study-fits';
+
+export interface KineticsSettings {
+  solventId: string | null;
+  customSolventName: string | null;
+  customViscosity: number | null;
+  temperature: number;
+  tau0: number | null;
+  tau0Uncertainty: number | null;
+  tau0LifetimeId: string | null;
+}
+
+/**
+ * Diffusion limit k_diff = 8RT/(3 eta) for the study: the entered viscosity at the study's
+ * temperature when there is one, else the engine's 25 °C table value for the solvent.
+ */
+export function diffusionLimitFor(settings: KineticsSettings, notes: string[]): { value: number; basis: string } | null {
+  if (settings.customViscosity !== null) {
+    const value = diffusionRateConstant(settings.customViscosity, settings.temperature);
+    return { value, basis: `entered viscosity ${settings.customViscosity} Pa s at ${settings.temperature} K` };
+  }
+  if (!settings.solventId) return null;
+  try {
+    const value = solventDiffusionLimit(settings.solventId);
+    const solvent = getSolvent(settings.solventId);
+    if (Math.abs(settings.temperature - 298.15) > 0.5) {
+      notes.push(`The diffusion limit uses the 25 °C viscosity of ${solvent.name}; enter the viscosity at ${settings.temperature} K for a closer limit.`);
+    }
+    return { value, basis: `${solvent.name} at 25 °C (${solvent.viscositySource})` };
+  } catch (error) {
+    if (error instanceof EngineError) {
+      notes.push(`No diffusion limit: ${error.message}`);
+      return null;
+    }
+    throw error;
+  }
+}
+
+/** kq = K / tau0 through the engine, with its 95 % interval from the K fit's degrees of freedom. */
+export function rateConstant(
+  k: ParameterEstimate,
+  degreesOfFreedom: number,
+  tau0: { value: number; standardError: number },
+  limit: { value: number } | null,
+): { kq: ParameterEstimate; ratio: number | null; flags: QualityFlag[] } {
+  const result = quenchingRateConstant({
+    kSv: k.value,
+    kSvStandardError: k.standardError,
+    tau0: tau0.value,
+    tau0StandardError: tau0.standardError,
+    ...(limit ? { diffusionLimit: limit.value } : {}),
+  });
+  const half = studentTQuantile975(degreesOfFreedom) * result.standardError;
+  return {
+    kq: { value: result.value, standardError: result.standardError, interval95: { lower: result.value - half, upper: result.value + half } },
+    ratio: result.fractionOfDiffusionLimit,
+    flags: result.flags,
+  };
+}
+
+/** The tau0 used for kq: entered (or from a lifetime record), else from the lifetime series' blanks. */
+export function tau0For(settings: KineticsSettings, lifetimeTau0: { value: number; relativeStandardError: number | null } | null): FitResult['tau0'] {
+  if (settings.tau0 !== null) {
+    return {
+      value: settings.tau0,
+      standardError: settings.tau0Uncertainty ?? 0,
+      source: settings.tau0LifetimeId ? 'lifetime record of the emitter' : 'entered with the study',
+    };
+  }
+  if (lifetimeTau0) {
+    return { value: lifetimeTau0.value, standardError: lifetimeTau0.value * (lifetimeTau0.relativeStandardError ?? 0), source: 'lifetime series at zero quencher' };
+  }
+  return null;
+}

@@ -1,0 +1,54 @@
+import { compareStaticDynamic, EngineError, fitLifetimeSternVolmer, type QualityFlag, type SternVolmerFit } from '@shared/engine';
+import type { LifetimeSternVolmerFit } from '@shared/engine';
+
+interface LifetimePoint { concentration: number; lifetime: number | null }
+
+export interface LifetimeAnalysis {
+  fit: LifetimeSternVolmerFit;
+  tau0: { value: number; relativeStandardError: number | null };
+  points: Array<{ x: number; y: number }>;
+  verdict: string | null;
+  /** compares with the intensity fit and returns the comparison's flags */
+  compare: (intensityFit: SternVolmerFit) => QualityFlag[];
+}
+
+const VERDICTS = {
+  dynamic: 'Intensity and lifetime slopes agree within error: dynamic quenching.',
+  'static-contribution': 'The intensity plot is steeper than the lifetime plot: part of the quenching is static.',
+  'lifetime-steeper': 'The lifetime plot is steeper than the intensity plot; check both data sets.',
+} as const;
+
+/**
+ * tau0/tau against [Q] through the engine's fitLifetimeSternVolmer when at least three
+ * points carry a lifetime; tau0 from the blanks, else the study's tau0. Returns null with a
+ * note when the lifetimes cannot be fitted.
+ */
+export function lifetimeAnalysis(points: readonly LifetimePoint[], studyTau0: number | null, notes: string[]): LifetimeAnalysis | null {
+  const withLifetime = points.filter((point) => point.lifetime !== null);
+  if (withLifetime.length < 3) return null;
+  const concentrations = withLifetime.map((point) => point.concentration);
+  const lifetimes = withLifetime.map((point) => point.lifetime!);
+  const hasBlank = concentrations.includes(0);
+  let fit: LifetimeSternVolmerFit;
+  try {
+    fit = fitLifetimeSternVolmer({ concentrations, lifetimes, ...(!hasBlank && studyTau0 !== null ? { tau0: studyTau0 } : {}) });
+  } catch (error) {
+    if (error instanceof EngineError) {
+      notes.push(`Lifetimes not fitted: ${error.message}`);
+      return null;
+    }
+    throw error;
+  }
+  const analysis: LifetimeAnalysis = {
+    fit,
+    tau0: { value: fit.tau0.value, relativeStandardError: fit.tau0.relativeStandardError },
+    points: concentrations.map((x, i) => ({ x, y: fit.tau0.value / lifetimes[i]! })),
+    verdict: null,
+    compare(intensityFit) {
+      const comparison = compareStaticDynamic(intensityFit, fit);
+      analysis.verdict = VERDICTS[comparison.verdict];
+      return comparison.flags;
+    },
+  };
+  return analysis;
+}

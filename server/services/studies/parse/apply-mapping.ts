@@ -1,0 +1,105 @@
+import type { StudyPointValues } from '@shared/schemas/study-points';
+import type { SeriesMapping, SpectrumMapping, UploadMapping } from '@shared/schemas/study-uploads';
+import { CONCENTRATION_FACTORS, TIME_FACTORS, VOLUME_FACTORS } from './header-units';
+import { parseCellNumber } from './parse-number';
+import { cellProblem, ParseProblem } from './parse-problem';
+import type { RawTable } from './read-text-table';
+import { integrateWindow, valueAt } from './reduce-spectrum';
+
+const MAX_PROBLEMS = 20;
+
+function columnName(table: RawTable, index: number) {
+  return `${index + 1} ("${table.headers[index] ?? ''}")`;
+}
+
+function requireColumn(table: RawTable, index: number | null, what: string) {
+  if (index !== null && (index < 0 || index >= table.headers.length)) {
+    throw new ParseProblem(`The mapping puts ${what} in column ${index + 1}, but the table has ${table.headers.length} columns.`);
+  }
+}
+
+function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParseProblem[]): StudyPointValues[] {
+  const roles: Array<[keyof SeriesMapping & string, number | null, string]> = [
+    ['concentration', mapping.concentration, 'a concentration of zero or more'],
+    ['intensity', mapping.intensity, mapping.intensityIsRatio ? 'an I0/I ratio' : 'an intensity'],
+    ['lifetime', mapping.lifetime, 'a lifetime above zero'],
+    ['absorbanceExcitation', mapping.absorbanceExcitation, 'an absorbance'],
+    ['absorbanceEmission', mapping.absorbanceEmission, 'an absorbance'],
+    ['volumeAdded', mapping.volumeAdded, 'a volume of zero or more'],
+    ['uncertainty', mapping.uncertainty, 'an uncertainty above zero'],
+  ];
+  for (const [name, index] of roles) requireColumn(table, index, name);
+  if (mapping.intensity === null && mapping.lifetime === null) throw new ParseProblem('Map an intensity (or I0/I) column or a lifetime column.');
+  const scale: Record<string, number> = {
+    concentration: CONCENTRATION_FACTORS[mapping.concentrationUnit],
+    lifetime: TIME_FACTORS[mapping.lifetimeUnit],
+    volumeAdded: VOLUME_FACTORS[mapping.volumeUnit],
+  };
+  return table.rows.map((row) => {
+    const values: Record<string, number | null> = {};
+    for (const [name, index, expected] of roles) {
+      if (index === null) {
+        values[name] = null;
+        continue;
+      }
+      const text = row.cells[index] ?? '';
+      const value = parseCellNumber(text, table.decimalComma);
+      const bad = value === undefined || (value === null && name === 'concentration')
+        || (value !== null && value !== undefined && (((name === 'concentration' || name === 'volumeAdded') && value < 0) || ((name === 'lifetime' || name === 'uncertainty') && value <= 0)));
+      if (bad) {
+        if (problems.length < MAX_PROBLEMS) problems.push(cellProblem(row.line, columnName(table, index), expected, text));
+        values[name] = null;
+        continue;
+      }
+      values[name] = value === null || value === undefined ? null : value * (scale[name] ?? 1);
+    }
+    return {
+      concentration: values.concentration ?? 0,
+      intensity: values.intensity ?? null,
+      lifetime: values.lifetime ?? null,
+      absorbanceExcitation: values.absorbanceExcitation ?? null,
+      absorbanceEmission: values.absorbanceEmission ?? null,
+      volumeAdded: values.volumeAdded ?? null,
+      uncertainty: values.uncertainty ?? null,
+      excluded: false,
+      exclusionReason: null,
+    };
+  });
+}
+
+function spectrumPoints(table: RawTable, mapping: SpectrumMapping, problems: ParseProblem[]): StudyPointValues[] {
+  requireColumn(table, mapping.wavelength, 'the wavelength');
+  for (const sample of mapping.samples) requireColumn(table, sample.column, 'a sample');
+  const number = (row: RawTable['rows'][number], index: number, expected: string) => {
+    const text = row.cells[index] ?? '';
+    const value = parseCellNumber(text, table.decimalComma);
+    if (value === null || value === undefined) {
+      if (problems.length < MAX_PROBLEMS) problems.push(cellProblem(row.line, columnName(table, index), expected, text));
+      return Number.NaN;
+    }
+    return value;
+  };
+  const wavelengths = table.rows.map((row) => number(row, mapping.wavelength, 'a wavelength in nm'));
+  const columns = mapping.samples.map((sample) => table.rows.map((row) => number(row, sample.column, 'an intensity')));
+  if (problems.length > 0) return [];
+  return mapping.samples.map((sample, i) => ({
+    concentration: sample.concentration,
+    intensity: mapping.reduction.kind === 'window'
+      ? integrateWindow(wavelengths, columns[i]!, mapping.reduction.start, mapping.reduction.end)
+      : valueAt(wavelengths, columns[i]!, mapping.reduction.at),
+    lifetime: null,
+    absorbanceExcitation: null,
+    absorbanceEmission: null,
+    volumeAdded: null,
+    uncertainty: null,
+    excluded: false,
+    exclusionReason: null,
+  }));
+}
+
+/** Table + mapping -> series points in SI units; every bad cell is reported by row and column. */
+export function applyMapping(table: RawTable, mapping: UploadMapping): { points: StudyPointValues[]; problems: ParseProblem[] } {
+  const problems: ParseProblem[] = [];
+  const points = mapping.layout === 'series' ? seriesPoints(table, mapping, problems) : spectrumPoints(table, mapping, problems);
+  return { points: problems.length > 0 ? [] : points, problems };
+}

@@ -1,0 +1,20 @@
+import path from 'node:path';
+import { ParseProblem } from './parse-problem';
+import { readTextTable, type RawTable } from './read-text-table';
+import { readWorkbook } from './read-workbook';
+
+/** File kinds accepted for upload, by extension (browsers send unreliable media types for CSV). */
+export const TEXT_EXTENSIONS = ['.csv', '.tsv', '.txt', '.dat', '.asc'];
+export const WORKBOOK_EXTENSIONS = ['.xlsx'];
+export const ACCEPTED_EXTENSIONS = [...TEXT_EXTENSIONS, ...WORKBOOK_EXTENSIONS];
+export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
+
+export const isAcceptedFile = (fileName: string) => ACCEPTED_EXTENSIONS.includes(path.extname(fileName).toLowerCase());
+
+/** Reads an accepted upload into a table; throws ParseProblem naming what is wrong. */
+export async function readUpload(fileName: string, bytes: Buffer): Promise<RawTable> {
+  if (bytes.length === 0) throw new ParseProblem('The file is empty.');
+  const extension = path.extname(fileName).toLowerCase();
+  if (WORKBOOK_EXTENSIONS.includes(extension)) return readWorkbook(bytes);
+  return readTextTable(bytes);
+}

@@ -1,0 +1,93 @@
+import type { Transaction } from 'sequelize';
+import { ENGINE_VERSION, EngineError } from '@shared/engine';
+import type { FitModel } from '@shared/schemas/studies';
+import { AppError } from '../../lib/app-error';
+import { StudyFit, StudyPoint, type Study } from '../../models';
+import { recordAudit, type Actor } from '../audit.service';
+import { computeStudyFit, type ComputedFit } from './fit/compute-study-fit';
+
+type SeriesFields = 'position' | 'concentration' | 'intensity' | 'lifetime' | 'absorbanceExcitation' | 'absorbanceEmission' | 'volumeAdded' | 'uncertainty' | 'excluded';
+
+export const seriesOf = (points: ReadonlyArray<Pick<StudyPoint, SeriesFields>>) =>
+  points.map((point) => ({
+    position: point.position,
+    concentration: point.concentration,
+    intensity: point.intensity,
+    lifetime: point.lifetime,
+    absorbanceExcitation: point.absorbanceExcitation,
+    absorbanceEmission: point.absorbanceEmission,
+    volumeAdded: point.volumeAdded,
+    uncertainty: point.uncertainty,
+    excluded: point.excluded,
+  }));
+
+/** Runs the engine on the study's stored points; an EngineError becomes a 422 naming the field. */
+export async function computeForStudy(study: Study, model: FitModel, transaction?: Transaction): Promise<ComputedFit> {
+  const points = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
+  try {
+    return computeStudyFit(study, seriesOf(points), model);
+  } catch (error) {
+    if (error instanceof EngineError) {
+      throw new AppError('fit_failed', `The series cannot be fitted: ${error.message}`, 422, [{ path: error.field, message: error.message }]);
+    }
+    throw error;
+  }
+}
+
+/**
+ * Fits the study and stores the fit as a new record (never updated), then copies K_SV, kq and
+ * "flagged" onto the study for the list. `auto` fits follow every change of the points or
+ * settings; a failing auto fit clears the copied numbers and keeps the reason instead.
+ */
+export async function refitStudy(
+  study: Study,
+  options: { model?: FitModel; trigger: 'auto' | 'manual'; actor: Actor; transaction: Transaction },
+): Promise<StudyFit | null> {
+  const model = options.model ?? study.fitModel;
+  const { transaction } = options;
+  let computed: ComputedFit;
+  try {
+    computed = await computeForStudy(study, model, transaction);
+  } catch (error) {
+    if (options.trigger === 'manual' || !(error instanceof AppError)) throw error;
+    await study.update({ kSv: null, kq: null, flagged: false, fitProblem: error.message, latestFitId: null }, { transaction });
+    return null;
+  }
+  const fit = await StudyFit.create(
+    {
+      studyId: study.id,
+      model,
+      trigger: options.trigger,
+      kSv: computed.kSv,
+      kq: computed.kq,
+      result: computed.result,
+      pointsUsed: computed.pointsUsed,
+      engineVersion: ENGINE_VERSION,
+      createdById: options.actor.userId,
+    },
+    { transaction },
+  );
+  await study.update(
+    {
+      kSv: computed.kSv,
+      kq: computed.kq,
+      flagged: computed.result.flags.length > 0,
+      fitProblem: null,
+      latestFitId: fit.id,
+      ...(options.trigger === 'manual' ? { fitModel: model } : {}),
+    },
+    { transaction },
+  );
+  await recordAudit(
+    options.actor,
+    {
+      action: 'study_fitted',
+      labId: study.labId,
+      targetType: 'study',
+      targetId: study.id,
+      details: { fitId: fit.id, model, trigger: options.trigger, kSv: computed.kSv, kq: computed.kq, flags: computed.result.flags.map((flag) => flag.code), engineVersion: ENGINE_VERSION },
+    },
+    transaction,
+  );
+  return fit;
+}

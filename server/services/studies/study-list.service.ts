@@ -1,0 +1,48 @@
+import { Op, type Order, type WhereOptions } from 'sequelize';
+import type { ListStudiesQuery, StudyList } from '@shared/schemas/studies';
+import type { LabContext } from '../../middleware/access';
+import { Compound, Study, User } from '../../models';
+import { toSummary } from './study-serialize';
+
+const escapeLike = (text: string) => text.replace(/[\\%_]/g, '\\$&');
+
+/**
+ * One page of the lab's current study revisions with a total count. Every filter maps to an
+ * index of migration 0005 (lab_id first, current revisions only); text search uses the trigram
+ * index on title || ' ' || notes.
+ */
+export async function listStudies(lab: LabContext, query: ListStudiesQuery): Promise<StudyList> {
+  const where: WhereOptions<Study> & Record<string | symbol, unknown> = { labId: lab.id, isCurrent: true };
+  if (query.emitterId) where.emitterId = query.emitterId;
+  if (query.quencherId) where.quencherId = query.quencherId;
+  if (query.solventId) where.solventId = query.solventId;
+  if (query.status) where.status = query.status;
+  if (query.ownerId) where.ownerId = query.ownerId;
+  if (query.flagged === 'true') where.flagged = true;
+  if (query.q) {
+    const sequelize = Study.sequelize!;
+    where[Op.and] = sequelize.where(
+      sequelize.literal("(\"Study\".\"title\" || ' ' || \"Study\".\"notes\")"),
+      { [Op.iLike]: `%${escapeLike(query.q)}%` },
+    );
+  }
+  const direction = query.direction === 'asc' ? 'ASC' : 'DESC';
+  const nulls = direction === 'ASC' ? 'ASC NULLS LAST' : 'DESC NULLS LAST';
+  const order: Order =
+    query.sort === 'kq' ? [['kq', nulls], ['id', 'ASC']]
+      : query.sort === 'k_sv' ? [['kSv', nulls], ['id', 'ASC']]
+        : [['updatedAt', direction], ['id', 'ASC']];
+  const { rows, count } = await Study.findAndCountAll({
+    where,
+    include: [
+      { model: Compound, as: 'emitter', attributes: ['id', 'name'] },
+      { model: Compound, as: 'quencher', attributes: ['id', 'name'] },
+      { model: User, as: 'owner', attributes: ['id', 'name'] },
+    ],
+    order,
+    limit: query.pageSize,
+    offset: (query.page - 1) * query.pageSize,
+    distinct: true,
+  });
+  return { items: rows.map(toSummary), total: count, page: query.page, pageSize: query.pageSize };
+}

@@ -1,0 +1,63 @@
+import type { Sequelize, Transaction } from 'sequelize';
+import type { StudyPointValues } from '@shared/schemas/study-points';
+import type { LabContext } from '../../middleware/access';
+import { StudyPoint, type Study } from '../../models';
+import { recordAudit, type Actor } from '../audit.service';
+import { loadStudy, requireChangeable } from './study-access';
+import { refitStudy } from './study-fitting.service';
+import { getStudyDetail } from './study.service';
+
+const plain = (point: StudyPoint | (StudyPointValues & { uploadId?: string | null })) => ({
+  concentration: point.concentration,
+  intensity: point.intensity,
+  lifetime: point.lifetime,
+  absorbanceExcitation: point.absorbanceExcitation,
+  absorbanceEmission: point.absorbanceEmission,
+  volumeAdded: point.volumeAdded,
+  uncertainty: point.uncertainty,
+  excluded: point.excluded,
+  exclusionReason: point.exclusionReason,
+});
+
+/**
+ * Replaces the whole series (the grid is edited as one table), records before and after in
+ * the audit log, bumps the version and refits. Used by the grid and by a confirmed upload.
+ */
+export async function writeSeries(
+  study: Study,
+  points: Array<StudyPointValues & { uploadId?: string | null }>,
+  actor: Actor,
+  transaction: Transaction,
+  reason: { action: string; uploadId?: string },
+): Promise<void> {
+  const before = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
+  await StudyPoint.destroy({ where: { studyId: study.id }, transaction });
+  await StudyPoint.bulkCreate(
+    points.map((point, position) => ({ ...plain(point), exclusionReason: point.excluded ? point.exclusionReason : null, studyId: study.id, position, uploadId: point.uploadId ?? null })),
+    { transaction },
+  );
+  await study.update({ version: study.version + 1 }, { transaction });
+  await recordAudit(actor, {
+    action: reason.action,
+    labId: study.labId,
+    targetType: 'study',
+    targetId: study.id,
+    details: { before: before.map(plain), after: points.map(plain), ...(reason.uploadId ? { uploadId: reason.uploadId } : {}) },
+  }, transaction);
+  await refitStudy(study, { trigger: 'auto', actor, transaction });
+}
+
+export async function replacePoints(
+  sequelize: Sequelize,
+  lab: LabContext,
+  studyId: string,
+  input: { version: number; points: StudyPointValues[] },
+  actor: Actor & { userId: string },
+) {
+  await sequelize.transaction(async (transaction) => {
+    const study = await loadStudy(lab, studyId, transaction);
+    requireChangeable(study, lab, actor.userId, input.version);
+    await writeSeries(study, input.points, actor, transaction, { action: 'study_points_replaced' });
+  });
+  return getStudyDetail(lab, studyId);
+}

@@ -1,0 +1,110 @@
+import { SOLVENTS, type SolventId } from '@shared/engine';
+import type { StudySettings, StudySummary } from '@shared/schemas/studies';
+import type { StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
+import type { StudyPoint as StudyPointRecord } from '@shared/schemas/study-points';
+import type { ReviewEntry, UploadSummary } from '@shared/schemas/study-detail';
+import type { Study, StudyFit, StudyPoint, StudyReview, StudyUpload } from '../../models';
+import { correctPoint } from './fit/series-corrections';
+
+export const solventLabel = (study: Pick<Study, 'solventId' | 'customSolventName'>) =>
+  study.solventId ? (SOLVENTS[study.solventId as SolventId]?.name ?? study.solventId) : (study.customSolventName ?? 'custom solvent');
+
+export const settingsOf = (study: Study): StudySettings => ({
+  title: study.title,
+  solventId: study.solventId,
+  customSolventName: study.customSolventName,
+  customViscosity: study.customViscosity,
+  temperature: study.temperature,
+  excitationWavelength: study.excitationWavelength,
+  emissionWavelength: study.emissionWavelength,
+  windowStart: study.windowStart,
+  windowEnd: study.windowEnd,
+  atmosphere: study.atmosphere as StudySettings['atmosphere'],
+  degassingMethod: study.degassingMethod as StudySettings['degassingMethod'],
+  tau0: study.tau0,
+  tau0Uncertainty: study.tau0Uncertainty,
+  tau0LifetimeId: study.tau0LifetimeId,
+  i0: study.i0,
+  dataKind: study.dataKind,
+  fitModel: study.fitModel,
+  dilutionCorrection: study.dilutionCorrection,
+  initialVolume: study.initialVolume,
+  stockConcentration: study.stockConcentration,
+  stockContainsEmitter: study.stockContainsEmitter,
+  innerFilterCorrection: study.innerFilterCorrection,
+  pinnedMechanism: study.pinnedMechanism,
+  notes: study.notes,
+});
+
+export const toSummary = (study: Study): StudySummary => ({
+  id: study.id,
+  title: study.title,
+  emitter: { id: study.emitterId, name: study.emitter?.name ?? '' },
+  quencher: { id: study.quencherId, name: study.quencher?.name ?? '' },
+  solventLabel: solventLabel(study),
+  status: study.status,
+  revision: study.revision,
+  ownerId: study.ownerId,
+  ownerName: study.owner?.name ?? 'former member',
+  kSv: study.kSv,
+  kq: study.kq,
+  flagged: study.flagged,
+  updatedAt: study.updatedAt.toISOString(),
+});
+
+export const toPoint = (study: Study, point: StudyPoint): StudyPointRecord => {
+  const corrected = correctPoint(study, point, study.dataKind === 'ratio');
+  return {
+    id: point.id,
+    position: point.position,
+    concentration: point.concentration,
+    intensity: point.intensity,
+    lifetime: point.lifetime,
+    absorbanceExcitation: point.absorbanceExcitation,
+    absorbanceEmission: point.absorbanceEmission,
+    volumeAdded: point.volumeAdded,
+    uncertainty: point.uncertainty,
+    excluded: point.excluded,
+    exclusionReason: point.exclusionReason,
+    uploadId: point.uploadId,
+    corrected: corrected && {
+      concentration: corrected.concentration,
+      intensity: corrected.intensity,
+      innerFilterFactor: corrected.innerFilterFactor,
+      dilutionFactor: corrected.dilutionFactor,
+    },
+  };
+};
+
+export const toFit = (fit: StudyFit): StudyFitRecord => ({
+  id: fit.id,
+  model: fit.model,
+  trigger: fit.trigger,
+  kSv: fit.kSv,
+  kq: fit.kq,
+  result: fit.result,
+  pointsUsed: fit.pointsUsed,
+  engineVersion: fit.engineVersion,
+  createdBy: fit.createdBy?.name ?? null,
+  createdAt: fit.createdAt.toISOString(),
+});
+
+export const toUpload = (upload: StudyUpload): UploadSummary => ({
+  id: upload.id,
+  fileName: upload.fileName,
+  mediaType: upload.mediaType,
+  size: upload.size,
+  sha256: upload.sha256,
+  parseStatus: upload.parseStatus,
+  problem: typeof upload.parseReport.problem === 'string' ? upload.parseReport.problem : null,
+  uploadedBy: upload.uploadedBy?.name ?? null,
+  createdAt: upload.createdAt.toISOString(),
+});
+
+export const toReview = (review: StudyReview): ReviewEntry => ({
+  id: review.id,
+  action: review.action,
+  comment: review.comment,
+  author: review.author?.name ?? null,
+  createdAt: review.createdAt.toISOString(),
+});

@@ -1,0 +1,71 @@
+import { z } from 'zod';
+import { fitModelSchema } from './studies';
+
+export const estimateSchema = z
+  .object({ value: z.number(), standardError: z.number(), interval95: z.object({ lower: z.number(), upper: z.number() }) })
+  .meta({ id: 'Estimate' });
+export type Estimate = z.infer<typeof estimateSchema>;
+
+export const fitFlagSchema = z
+  .object({
+    code: z.string(),
+    severity: z.enum(['warning', 'error']),
+    title: z.string(),
+    explanation: z.string(),
+    whatToCheck: z.array(z.string()),
+    detail: z.string().optional(),
+  })
+  .meta({ id: 'FitFlag' });
+
+const plotPointSchema = z.object({ x: z.number(), y: z.number() });
+
+/** What a fit found; parameters by name (kSv, intercept, kq, kD, kS, accessibleFraction, ...). */
+export const fitResultSchema = z
+  .object({
+    parameters: z.record(z.string(), estimateSchema),
+    statistics: z.object({
+      n: z.number().int(),
+      degreesOfFreedom: z.number(),
+      rSquared: z.number().nullable(),
+      residualStandardDeviation: z.number().nullable(),
+      curvature: z.enum(['linear', 'upward', 'downward']).nullable(),
+      curvaturePValue: z.number().nullable(),
+    }),
+    reference: z.object({ kind: z.enum(['i0', 'ratio-data']), value: z.number(), source: z.string() }),
+    tau0: z.object({ value: z.number(), standardError: z.number(), source: z.string() }).nullable(),
+    diffusionLimit: z
+      .object({ value: z.number(), basis: z.string(), ratio: z.number().nullable() })
+      .nullable()
+      .describe('k_diff in M^-1 s^-1 and kq/k_diff'),
+    lifetime: z
+      .object({ kSv: estimateSchema, rSquared: z.number(), verdict: z.string().nullable(), points: z.array(plotPointSchema) })
+      .nullable(),
+    flags: z.array(fitFlagSchema),
+    notes: z.array(z.string()),
+    plot: z.object({
+      points: z.array(plotPointSchema.extend({ residual: z.number() })),
+      line: z.array(plotPointSchema.extend({ lower: z.number(), upper: z.number() })),
+      yLabel: z.string(),
+    }),
+  })
+  .meta({ id: 'FitResult' });
+export type FitResult = z.infer<typeof fitResultSchema>;
+
+export const studyFitSchema = z
+  .object({
+    id: z.string().uuid(),
+    model: fitModelSchema,
+    trigger: z.enum(['auto', 'manual']),
+    kSv: z.number().nullable(),
+    kq: z.number().nullable(),
+    result: fitResultSchema,
+    pointsUsed: z.array(z.object({ position: z.number().int(), concentration: z.number(), ratio: z.number() })),
+    engineVersion: z.string(),
+    createdBy: z.string().nullable(),
+    createdAt: z.string(),
+  })
+  .meta({ id: 'StudyFit' });
+export type StudyFit = z.infer<typeof studyFitSchema>;
+
+export const runFitSchema = z.object({ model: fitModelSchema }).meta({ id: 'RunFit' });
+export const fitListSchema = z.object({ items: z.array(studyFitSchema) }).meta({ id: 'FitList' });

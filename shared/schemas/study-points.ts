@@ -1,0 +1,53 @@
+import { z } from 'zod';
+
+/** One point of a quenching series. Units: mol/L, s, L; intensity in the instrument's unit (or I0/I). */
+export const studyPointInputSchema = z
+  .object({
+    concentration: z.number().finite().min(0, 'cannot be negative (mol/L)').describe('quencher concentration, mol/L'),
+    intensity: z.number().finite().nullable().describe('emission intensity, or I0/I when the study holds ratios'),
+    lifetime: z.number().finite().positive('must be above zero (s)').nullable().describe('s'),
+    absorbanceExcitation: z.number().finite().nullable().describe('A at the excitation wavelength, 1 cm'),
+    absorbanceEmission: z.number().finite().nullable().describe('A at the emission wavelength, 1 cm'),
+    volumeAdded: z.number().finite().min(0, 'cannot be negative (L)').nullable().describe('total stock added before this reading, L'),
+    uncertainty: z.number().finite().positive('must be above zero').nullable().describe('1-sigma of the intensity (or ratio)'),
+    excluded: z.boolean().default(false),
+    exclusionReason: z.string().trim().max(500).nullable().default(null),
+  })
+  .superRefine((point, context) => {
+    if (point.excluded && !point.exclusionReason) {
+      context.addIssue({ code: 'custom', path: ['exclusionReason'], message: 'say why the point is left out' });
+    }
+  })
+  .meta({ id: 'StudyPointInput' });
+export type StudyPointInput = z.input<typeof studyPointInputSchema>;
+export type StudyPointValues = z.output<typeof studyPointInputSchema>;
+
+export const replacePointsSchema = z
+  .object({
+    version: z.number().int().min(0).describe('the study version you edited; a stale one gets 409'),
+    points: z.array(studyPointInputSchema).max(5000),
+  })
+  .meta({ id: 'ReplacePoints' });
+export type ReplacePointsInput = z.input<typeof replacePointsSchema>;
+
+export const studyPointSchema = z
+  .object({
+    id: z.string().uuid(),
+    position: z.number().int(),
+    concentration: z.number(),
+    intensity: z.number().nullable(),
+    lifetime: z.number().nullable(),
+    absorbanceExcitation: z.number().nullable(),
+    absorbanceEmission: z.number().nullable(),
+    volumeAdded: z.number().nullable(),
+    uncertainty: z.number().nullable(),
+    excluded: z.boolean(),
+    exclusionReason: z.string().nullable(),
+    uploadId: z.string().nullable(),
+    corrected: z
+      .object({ concentration: z.number(), intensity: z.number().nullable(), innerFilterFactor: z.number().nullable(), dilutionFactor: z.number().nullable() })
+      .nullable()
+      .describe('values after the switched-on corrections; null when none applies'),
+  })
+  .meta({ id: 'StudyPoint' });
+export type StudyPoint = z.infer<typeof studyPointSchema>;

@@ -1,0 +1,70 @@
+import { z } from 'zod';
+import { uploadSummarySchema } from './study-detail';
+import { studyPointInputSchema } from './study-points';
+
+export const concentrationUnits = ['M', 'mM', 'uM', 'nM'] as const;
+export const timeUnits = ['s', 'ms', 'us', 'ns'] as const;
+export const volumeUnits = ['L', 'mL', 'uL'] as const;
+
+const column = z.number().int().min(0).describe('0-based column index in the parsed table');
+
+/** How a series table (one row per sample) maps onto points. */
+export const seriesMappingSchema = z.object({
+  layout: z.literal('series'),
+  concentration: column,
+  concentrationUnit: z.enum(concentrationUnits),
+  intensity: column.nullable(),
+  intensityIsRatio: z.boolean().describe('the column already holds I0/I'),
+  lifetime: column.nullable(),
+  lifetimeUnit: z.enum(timeUnits),
+  absorbanceExcitation: column.nullable(),
+  absorbanceEmission: column.nullable(),
+  volumeAdded: column.nullable(),
+  volumeUnit: z.enum(volumeUnits),
+  uncertainty: column.nullable(),
+});
+
+/** A spectrum matrix: a wavelength column and one column per sample, its concentration in the header. */
+export const spectrumMappingSchema = z.object({
+  layout: z.literal('spectrum'),
+  wavelength: column,
+  samples: z.array(z.object({ column, concentration: z.number().finite().min(0, 'cannot be negative (mol/L)') })).min(1),
+  reduction: z.discriminatedUnion('kind', [
+    z.object({ kind: z.literal('window'), start: z.number().finite(), end: z.number().finite() }).describe('trapezoid integral over [start, end] nm'),
+    z.object({ kind: z.literal('wavelength'), at: z.number().finite() }).describe('intensity at one wavelength, nm (linear interpolation)'),
+  ]),
+});
+
+export const uploadMappingSchema = z.discriminatedUnion('layout', [seriesMappingSchema, spectrumMappingSchema]).meta({ id: 'UploadMapping' });
+export type UploadMapping = z.infer<typeof uploadMappingSchema>;
+export type SeriesMapping = z.infer<typeof seriesMappingSchema>;
+export type SpectrumMapping = z.infer<typeof spectrumMappingSchema>;
+
+export const uploadParamsSchema = z.object({
+  labId: z.string().uuid('must be a lab id'),
+  studyId: z.string().uuid('must be a study id'),
+  uploadId: z.string().uuid('must be an upload id'),
+});
+
+export const previewUploadSchema = z.object({ mapping: uploadMappingSchema }).meta({ id: 'PreviewUpload' });
+export const applyUploadSchema = z
+  .object({ version: z.number().int().min(0), mapping: uploadMappingSchema, mode: z.enum(['replace', 'append']).default('replace') })
+  .meta({ id: 'ApplyUpload' });
+export type ApplyUploadInput = z.input<typeof applyUploadSchema>;
+
+const problemSchema = z.object({ row: z.number().int().nullable(), column: z.string().nullable(), message: z.string() });
+
+export const uploadPreviewSchema = z
+  .object({
+    upload: uploadSummarySchema,
+    format: z.string().describe('what was read: delimiter, decimal mark, sheet'),
+    headers: z.array(z.string()),
+    rows: z.array(z.array(z.string())).describe('the parsed table (first 200 rows)'),
+    rowCount: z.number().int(),
+    mapping: uploadMappingSchema.nullable(),
+    points: z.array(studyPointInputSchema),
+    problems: z.array(problemSchema),
+    warnings: z.array(z.string()),
+  })
+  .meta({ id: 'UploadPreview' });
+export type UploadPreview = z.infer<typeof uploadPreviewSchema>;

@@ -1,0 +1,66 @@
+import { Chart as ChartJS, Legend, LinearScale, LineElement, PointElement, Tooltip } from 'chart.js';
+import { Scatter } from 'react-chartjs-2';
+import { useNavigate } from 'react-router-dom';
+import type { Comparison } from '@shared/schemas/comparisons';
+
+ChartJS.register(LinearScale, PointElement, LineElement, Tooltip, Legend);
+
+// Halflight palette, one hue per solvent (tailwind.config.ts: glow, ink, moss, brick).
+const hues = ['#d97d10', '#4d4788', '#3f8a58', '#b4432f'];
+
+/**
+ * log10 kq against dG_ET, one colour per solvent, with the fitted Rehm–Weller/Marcus curve and
+ * the diffusion limit; a click on a point opens its study.
+ */
+export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId: string }) {
+  const navigate = useNavigate();
+  const datasets = comparison.trends.flatMap((trend, index) => {
+    const hue = hues[index % hues.length]!;
+    const sets: object[] = [
+      {
+        type: 'scatter',
+        label: `${trend.solvent}: measured`,
+        data: trend.points.map((point) => ({ x: point.drivingForce, y: point.log10Kq, studyId: point.studyId })),
+        backgroundColor: trend.points.map((point) => (point.approved ? hue : '#ffffff')),
+        borderColor: hue,
+        pointRadius: 5,
+      },
+    ];
+    if (trend.fit) {
+      sets.push({
+        type: 'line', label: `${trend.solvent}: fit, λ = ${trend.fit.reorganisationEnergy.toFixed(2)} ± ${trend.fit.reorganisationEnergyStandardError.toFixed(2)} eV`,
+        data: trend.fit.curve.map((point) => ({ x: point.drivingForce, y: point.log10Kq })),
+        borderColor: hue, pointRadius: 0, borderWidth: 2, showLine: true,
+      });
+    }
+    if (trend.diffusionLimit && trend.points.length > 0) {
+      const xs = trend.points.map((point) => point.drivingForce);
+      sets.push({
+        type: 'line', label: `${trend.solvent}: diffusion limit`,
+        data: [{ x: Math.min(...xs) - 0.3, y: Math.log10(trend.diffusionLimit) }, { x: Math.max(...xs) + 0.3, y: Math.log10(trend.diffusionLimit) }],
+        borderColor: hue, borderDash: [6, 4], pointRadius: 0, borderWidth: 1, showLine: true,
+      });
+    }
+    return sets;
+  });
+  return (
+    <div className="h-80" role="img" aria-label="Plot of log kq against the driving force, one series per solvent">
+      <Scatter
+        data={{ datasets: datasets as never }}
+        options={{
+          maintainAspectRatio: false,
+          animation: false,
+          scales: {
+            x: { title: { display: true, text: 'ΔG_ET (eV)' } },
+            y: { title: { display: true, text: 'log₁₀ kq (M⁻¹ s⁻¹)' } },
+          },
+          onClick: (_event, elements, chart) => {
+            const element = elements[0];
+            const point = element && (chart.data.datasets[element.datasetIndex]?.data[element.index] as { studyId?: string });
+            if (point?.studyId) void navigate(`/labs/${labId}/studies/${point.studyId}`);
+          },
+        }}
+      />
+    </div>
+  );
+}

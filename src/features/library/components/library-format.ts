@@ -1,0 +1,21 @@
+import { REFERENCE_ELECTRODES, SOLVENTS } from '@shared/engine';
+
+/** Potentials with sign and two decimals, as papers report them: "+1.21 V". */
+export const formatVolts = (value: number) => `${value >= 0 ? '+' : '−'}${Math.abs(value).toFixed(2)} V`;
+/** Energies with sign: "−0.07 eV". */
+export const formatElectronvolts = (value: number, signed = true) =>
+  `${signed ? (value >= 0 ? '+' : '−') : ''}${Math.abs(value).toFixed(2)} eV`;
+export const formatKilojoules = (value: number) => `${value >= 0 ? '+' : '−'}${Math.abs(value).toFixed(1)} kJ/mol`;
+
+/** Lifetimes stored in s, read in ns below 1 µs and in µs above. */
+export function formatLifetime(seconds: number): string {
+  return seconds < 1e-6 ? `${(seconds * 1e9).toPrecision(3)} ns` : `${(seconds * 1e6).toPrecision(3)} µs`;
+}
+
+export const referenceOptions = REFERENCE_ELECTRODES.map((reference) => ({ value: reference, label: reference }));
+export const solventOptions = Object.values(SOLVENTS).map((solvent) => ({ value: solvent.id, label: solvent.name }));
+export const solventName = (id: string) => (Object.hasOwn(SOLVENTS, id) ? SOLVENTS[id as keyof typeof SOLVENTS].name : id);
+
+export const roleHintLabels = { photocatalyst: 'Emitter', quencher: 'Quencher', both: 'Emitter or quencher' } as const;
+export const kindLabels = { 'half-wave': 'E1/2 (reversible)', 'half-peak': 'Ep/2', peak: 'Ep (irreversible)' } as const;
+export const coupleLabels = { oxidation: 'Oxidation E(M+/M)', reduction: 'Reduction E(M/M−)' } as const;

@@ -1,0 +1,36 @@
+import type { TitrationPlanResult } from '@shared/schemas/planner';
+
+const format = (value: number, digits = 4) => Number(value.toPrecision(digits)).toLocaleString('en', { maximumFractionDigits: 6 });
+
+/** One row per addition, in µL, mL, mM and µM: what goes on the bench sheet. */
+export function PlanTable({ plan }: { plan: TitrationPlanResult }) {
+  return (
+    <table className="w-full text-left text-body">
+      <caption className="sr-only">Additions of quencher stock</caption>
+      <thead className="border-b border-paper-300 text-caption uppercase text-ink-500">
+        <tr>
+          <th scope="col" className="py-2 pr-3">Step</th>
+          <th scope="col" className="pr-3">Target [Q] (mM)</th>
+          <th scope="col" className="pr-3">Add stock (µL)</th>
+          <th scope="col" className="pr-3">Added so far (µL)</th>
+          <th scope="col" className="pr-3">Volume (mL)</th>
+          <th scope="col" className="pr-3">[Q] reached (mM)</th>
+          <th scope="col">Emitter (µM)</th>
+        </tr>
+      </thead>
+      <tbody>
+        {plan.steps.map((step, index) => (
+          <tr key={index} className="border-b border-paper-200 tabular-nums">
+            <td className="py-1.5 pr-3 font-bold">{index + 1}</td>
+            <td className="pr-3">{format(step.target * 1e3)}</td>
+            <td className="pr-3 font-bold text-ink-950">{format(step.additionMicrolitres)}</td>
+            <td className="pr-3">{format(step.cumulativeAddedMicrolitres)}</td>
+            <td className="pr-3">{format(step.totalVolumeMicrolitres / 1000)}</td>
+            <td className="pr-3">{format(step.concentration * 1e3)}</td>
+            <td>{format(step.emitterConcentration * 1e6)}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}

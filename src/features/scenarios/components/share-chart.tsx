@@ -1,0 +1,39 @@
+import { BarElement, CategoryScale, Chart as ChartJS, LinearScale, Tooltip } from 'chart.js';
+import { Bar } from 'react-chartjs-2';
+import type { Scenario } from '@shared/schemas/scenarios';
+
+ChartJS.register(BarElement, CategoryScale, LinearScale, Tooltip);
+
+// Halflight palette (tailwind.config.ts): glow for quenchers, ink for oxygen, paper for unquenched decay.
+const colours = { compound: '#f09a27', oxygen: '#625ba3', unquenched: '#dcd4c3' };
+
+/** Horizontal bars: the percentage of excited emitter each component takes, and what decays unquenched. */
+export function ShareChart({ scenario }: { scenario: Scenario }) {
+  const known = scenario.shares.filter((share) => share.fraction !== null);
+  const labels = [...known.map((share) => share.label), 'decays unquenched'];
+  const values = [...known.map((share) => share.fraction! * 100), scenario.unquenched * 100];
+  return (
+    <div className="h-64" role="img" aria-label={`Bar chart: ${labels.map((label, i) => `${label} ${values[i]!.toFixed(1)} %`).join(', ')}`}>
+      <Bar
+        data={{
+          labels,
+          datasets: [
+            {
+              label: 'share of excited emitter (%)',
+              data: values,
+              backgroundColor: [...known.map((share) => colours[share.kind]), colours.unquenched],
+              borderRadius: 4,
+            },
+          ],
+        }}
+        options={{
+          indexAxis: 'y',
+          maintainAspectRatio: false,
+          animation: false,
+          scales: { x: { min: 0, max: 100, title: { display: true, text: '% of excited emitter' } } },
+          plugins: { tooltip: { callbacks: { label: (item) => `${Number(item.raw).toFixed(2)} %` } } },
+        }}
+      />
+    </div>
+  );
+}

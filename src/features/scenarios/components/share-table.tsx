@@ -1,0 +1,56 @@
+import { Link } from 'react-router-dom';
+import type { Scenario } from '@shared/schemas/scenarios';
+
+const percent = (fraction: number) => `${(fraction * 100).toFixed(fraction < 0.001 ? 3 : 1)} %`;
+const scientific = (value: number) => value.toExponential(2).replace('e+', ' × 10^');
+
+/** Who intercepts the excited emitter: each component's kq, its source and its share. */
+export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: string }) {
+  const largest = Math.max(...scenario.shares.map((share) => share.fraction ?? 0));
+  return (
+    <table className="w-full text-left text-body">
+      <caption className="sr-only">Share of excited emitter intercepted by each component</caption>
+      <thead className="border-b border-paper-300 text-caption uppercase text-ink-500">
+        <tr>
+          <th scope="col" className="py-2 pr-3">Component</th>
+          <th scope="col" className="pr-3">In reaction (mM)</th>
+          <th scope="col" className="pr-3">kq (M⁻¹ s⁻¹)</th>
+          <th scope="col" className="pr-3">kq from</th>
+          <th scope="col">Share</th>
+        </tr>
+      </thead>
+      <tbody>
+        {scenario.shares.map((share) => (
+          <tr key={share.componentId} className="border-b border-paper-200 tabular-nums">
+            <th scope="row" className="py-1.5 pr-3 font-bold text-ink-900">{share.label}</th>
+            <td className="pr-3">{Number((share.concentration * 1e3).toPrecision(4))}</td>
+            <td className="pr-3">
+              {share.kq === null ? '—' : scientific(share.kq)}
+              {share.kqStandardError !== null && <span className="text-ink-500"> ± {scientific(share.kqStandardError)}</span>}
+            </td>
+            <td className="pr-3 text-caption">
+              {share.kqSource?.kind === 'study' && (
+                <Link className="underline decoration-glow-400" to={`/labs/${labId}/studies/${share.kqSource.studyId}`}>
+                  {share.kqSource.title} ({share.kqSource.status})
+                </Link>
+              )}
+              {share.kqSource?.kind === 'study' && share.kqSource.solvent !== scenario.solvent && (
+                <span className="block font-bold text-brick-700">measured in {share.kqSource.solvent ?? 'another solvent'}, not {scenario.solvent}</span>
+              )}
+              {share.kqSource?.kind === 'manual' && <span>by hand: {share.kqSource.note || 'no source given'}</span>}
+              {share.kqSource === null && <span className="font-bold text-brick-700">no kq yet</span>}
+            </td>
+            <td className={share.fraction !== null && share.fraction === largest ? 'font-black text-glow-700' : ''}>
+              {share.fraction === null ? '—' : percent(share.fraction)}
+            </td>
+          </tr>
+        ))}
+        <tr className="tabular-nums">
+          <th scope="row" className="py-1.5 pr-3 font-bold text-ink-600">Decays unquenched</th>
+          <td colSpan={3} className="pr-3 text-caption text-ink-500">1/τ0 against the total decay rate</td>
+          <td>{percent(scenario.unquenched)}</td>
+        </tr>
+      </tbody>
+    </table>
+  );
+}

@@ -1,0 +1,71 @@
+import type { StudyPoint } from '@shared/schemas/study-points';
+import type { StudyPointInput } from '@shared/schemas/study-points';
+import { concentrationUnits, type ConcentrationUnit } from './format';
+
+/** Grid columns in order; lifetimes are typed in ns and volumes in µL, converted at save. */
+export const gridColumns = [
+  { key: 'concentration', label: 'Concentration' },
+  { key: 'intensity', label: 'Intensity' },
+  { key: 'lifetime', label: 'Lifetime (ns)' },
+  { key: 'absorbanceExcitation', label: 'A at λex' },
+  { key: 'absorbanceEmission', label: 'A at λem' },
+  { key: 'volumeAdded', label: 'Added (µL)' },
+  { key: 'uncertainty', label: 'Uncertainty' },
+] as const;
+export type GridKey = (typeof gridColumns)[number]['key'];
+export type GridRow = Record<GridKey, string> & { excluded: boolean; exclusionReason: string };
+
+const scale = (unit: ConcentrationUnit): Record<GridKey, number> => ({
+  concentration: concentrationUnits[unit], intensity: 1, lifetime: 1e-9, absorbanceExcitation: 1, absorbanceEmission: 1, volumeAdded: 1e-6, uncertainty: 1,
+});
+
+const show = (value: number | null, factor: number) => (value === null ? '' : String(Number((value / factor).toPrecision(10))));
+
+export const emptyRow = (): GridRow => ({ concentration: '', intensity: '', lifetime: '', absorbanceExcitation: '', absorbanceEmission: '', volumeAdded: '', uncertainty: '', excluded: false, exclusionReason: '' });
+
+export function rowsFromPoints(points: StudyPoint[], unit: ConcentrationUnit): GridRow[] {
+  const factors = scale(unit);
+  return points.map((point) => ({
+    ...(Object.fromEntries(gridColumns.map(({ key }) => [key, show(point[key], factors[key])])) as Record<GridKey, string>),
+    excluded: point.excluded,
+    exclusionReason: point.exclusionReason ?? '',
+  }));
+}
+
+/** Grid text -> API points in SI units; a cell that is not a number comes back as a problem naming row and column. */
+export function pointsFromRows(rows: GridRow[], unit: ConcentrationUnit): { points: StudyPointInput[]; problems: string[] } {
+  const factors = scale(unit);
+  const problems: string[] = [];
+  const points = rows
+    .filter((row) => gridColumns.some(({ key }) => row[key].trim() !== ''))
+    .map((row, index) => {
+      const values = {} as Record<GridKey, number | null>;
+      for (const { key, label } of gridColumns) {
+        const text = row[key].trim().replace(',', '.');
+        if (text === '') values[key] = null;
+        else if (Number.isFinite(Number(text))) values[key] = Number(text) * factors[key];
+        else {
+          problems.push(`Row ${index + 1}, ${label}: "${row[key]}" is not a number.`);
+          values[key] = null;
+        }
+      }
+      if (values.concentration === null) problems.push(`Row ${index + 1}: the concentration is missing.`);
+      return { ...values, concentration: values.concentration ?? 0, excluded: row.excluded, exclusionReason: row.excluded ? row.exclusionReason || null : null };
+    });
+  return { points, problems };
+}
+
+/** Tab- and line-separated text from a spreadsheet, pasted from a starting cell. */
+export function pasteInto(rows: GridRow[], text: string, startRow: number, startColumn: number): GridRow[] {
+  const lines = text.replace(/\r/g, '').split('\n').filter((line, i, all) => line !== '' || i < all.length - 1);
+  const next = rows.map((row) => ({ ...row }));
+  lines.forEach((line, offset) => {
+    const target = startRow + offset;
+    while (next.length <= target) next.push(emptyRow());
+    line.split('\t').forEach((cell, columnOffset) => {
+      const column = gridColumns[startColumn + columnOffset];
+      if (column) next[target]![column.key] = cell.trim();
+    });
+  });
+  return next;
+}

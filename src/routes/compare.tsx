@@ -1,0 +1,97 @@
+import { useParams, useSearchParams } from 'react-router-dom';
+import { Button } from '@/components/button';
+import { EmptyState } from '@/components/empty-state';
+import { ErrorNotice } from '@/components/error-notice';
+import { Panel } from '@/components/panel';
+import { SelectField } from '@/components/select-field';
+import { useDownloadComparison } from '@/features/comparisons/api/download-comparison';
+import { useDownloadComparisonReport } from '@/features/comparisons/api/download-comparison-report';
+import { useComparison } from '@/features/comparisons/api/get-comparison';
+import type { ComparisonQuery } from '@/features/comparisons/api/get-comparison';
+import { ComparisonTable } from '@/features/comparisons/components/comparison-table';
+import { TrendPlot } from '@/features/comparisons/components/trend-plot';
+import { useCompounds } from '@/features/library/api/get-compounds';
+
+const sorts = [
+  { value: 'kq', label: 'kq, fastest first' },
+  { value: 'kSv', label: 'K_SV, largest first' },
+  { value: 'drivingForce', label: 'driving force, most downhill first' },
+  { value: 'partner', label: 'name' },
+];
+
+/** Compare quenchers for one emitter (or emitters for one quencher), in a table and against driving force. */
+export function CompareRoute() {
+  const { labId = '' } = useParams();
+  const [params, setParams] = useSearchParams();
+  const query: ComparisonQuery = {
+    side: params.get('side') === 'quencher' ? 'quencher' : 'emitter',
+    compoundId: params.get('compoundId') ?? '',
+    approvedOnly: params.get('approvedOnly') === 'true',
+    sort: (sorts.find((sort) => sort.value === params.get('sort'))?.value ?? 'kq') as ComparisonQuery['sort'],
+  };
+  const set = (changes: Record<string, string>) => setParams({ ...Object.fromEntries(params), ...changes }, { replace: true });
+  const compounds = useCompounds(labId, { roleHint: query.side === 'emitter' ? 'photocatalyst' : 'quencher', pageSize: 100 });
+  const comparison = useComparison(labId, query);
+  const download = useDownloadComparison(labId);
+  const report = useDownloadComparisonReport(labId);
+  const options = [{ value: '', label: 'Choose…' }, ...(compounds.data?.items ?? []).map((item) => ({ value: item.id, label: item.name }))];
+
+  return (
+    <div className="max-w-6xl space-y-6">
+      <header>
+        <h1 className="text-display font-black text-ink-950">Compare</h1>
+        <p className="mt-1 max-w-3xl text-lead text-ink-700">
+          Line up every quencher studied against one emitter, or every emitter against one quencher, and see how the
+          rate constants follow the driving force.
+        </p>
+      </header>
+      <Panel title="What to compare">
+        <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
+          <SelectField label="Look at one" value={query.side} onChange={(event) => set({ side: event.target.value, compoundId: '' })}
+            options={[{ value: 'emitter', label: 'emitter, all its quenchers' }, { value: 'quencher', label: 'quencher, all its emitters' }]} />
+          <SelectField label={query.side === 'emitter' ? 'Emitter' : 'Quencher'} value={query.compoundId} onChange={(event) => set({ compoundId: event.target.value })} options={options} />
+          <SelectField label="Order by" value={query.sort} onChange={(event) => set({ sort: event.target.value })} options={sorts} />
+          <label className="mt-7 flex items-center gap-2 text-body">
+            <input type="checkbox" checked={query.approvedOnly} onChange={(event) => set({ approvedOnly: String(event.target.checked) })} />
+            Fit approved results only
+          </label>
+        </div>
+      </Panel>
+      {!query.compoundId && <EmptyState title="Choose a compound">Its studies appear here with their rate constants.</EmptyState>}
+      {comparison.isError && <ErrorNotice error={comparison.error} what="the comparison" />}
+      {comparison.data && (
+        <>
+          <Panel title={`Studies of ${comparison.data.compound.name}`}
+            aside={
+              <div className="flex gap-2">
+                <Button variant="quiet" pending={download.isPending} onClick={() => download.mutate(query)}>Download CSV</Button>
+                <Button variant="quiet" pending={report.isPending} pendingLabel="Writing…" onClick={() => report.mutate(query)}>PDF summary</Button>
+              </div>
+            }>
+            {comparison.data.rows.length === 0 ? (
+              <EmptyState title="No studies yet">Studies with this compound will be listed here.</EmptyState>
+            ) : (
+              <ComparisonTable comparison={comparison.data} labId={labId} />
+            )}
+          </Panel>
+          <Panel title="kq against driving force">
+            <TrendPlot comparison={comparison.data} labId={labId} />
+            <ul className="mt-3 space-y-1 text-body text-ink-700">
+              {comparison.data.trends.map((trend) => (
+                <li key={trend.solvent}>
+                  <strong>{trend.solvent}:</strong>{' '}
+                  {trend.fit
+                    ? `reorganisation energy λ = ${trend.fit.reorganisationEnergy.toFixed(2)} ± ${trend.fit.reorganisationEnergyStandardError.toFixed(2)} eV from ${trend.fit.n} studies (k_d/KZ ${trend.fit.kdOverKZ}, residual SD ${trend.fit.residualStandardDeviation.toFixed(2)} in log kq)`
+                    : `no fit: ${trend.note}`}
+                </li>
+              ))}
+            </ul>
+            <p className="mt-2 text-caption text-ink-500">
+              Filled points are approved results, open points drafts. Solvents are fitted separately. Engine {comparison.data.engineVersion}.
+            </p>
+          </Panel>
+        </>
+      )}
+    </div>
+  );
+}

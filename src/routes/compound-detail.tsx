@@ -1,0 +1,87 @@
+import { useNavigate, useParams } from 'react-router-dom';
+import { ErrorNotice } from '@/components/error-notice';
+import { FormAlert } from '@/components/form-alert';
+import { Panel } from '@/components/panel';
+import { Signal } from '@/components/signal';
+import { useSession } from '@/features/auth/api/get-session';
+import { NotYourLab } from '@/features/labs/components/not-your-lab';
+import { useCompound } from '@/features/library/api/get-compound';
+import { useDeleteMeasurement } from '@/features/library/api/delete-measurement';
+import { useLabSettings } from '@/features/library/api/get-lab-settings';
+import { CompoundHeader } from '@/features/library/components/compound-header';
+import { EnergiesTable } from '@/features/library/components/energies-table';
+import { EnergyForm } from '@/features/library/components/energy-form';
+import { ExcitedStatePanel } from '@/features/library/components/excited-state-panel';
+import { LifetimeForm } from '@/features/library/components/lifetime-form';
+import { LifetimesTable } from '@/features/library/components/lifetimes-table';
+import { PairDrivingForce } from '@/features/library/components/pair-driving-force';
+import { PotentialForm } from '@/features/library/components/potential-form';
+import { PotentialsTable } from '@/features/library/components/potentials-table';
+import { describeError } from '@/lib/form-errors';
+import { can } from '@/lib/policy';
+
+/** One compound: potentials in the lab's reference with the originals, excited-state potentials, lifetimes, E00, driving force. */
+export function CompoundDetailRoute() {
+  const { labId = '', compoundId = '' } = useParams();
+  const { user } = useSession();
+  const lab = user.labs.find((membership) => membership.labId === labId);
+  const compound = useCompound(labId, compoundId);
+  const settings = useLabSettings(labId);
+  const remove = useDeleteMeasurement(labId, compoundId);
+  const navigate = useNavigate();
+  if (!lab) return <NotYourLab />;
+  if (compound.isPending) return <Signal tone="waiting">Loading the compound</Signal>;
+  if (compound.isError) return <ErrorNotice error={compound.error} what="the compound" />;
+  const data = compound.data;
+  const canAdd = can(lab.role, 'library:add');
+  const canCurate = can(lab.role, 'library:curate');
+  const mayEdit = (record: { createdById: string | null }) => canCurate || (canAdd && record.createdById === user.id);
+  const solvent = settings.data?.displaySolvent ?? 'acetonitrile';
+  const isEmitter = data.roleHint !== 'quencher';
+  return (
+    <div className="max-w-6xl space-y-6">
+      <CompoundHeader
+        labId={labId} labName={lab.labName} isDemo={lab.isDemo} compound={data} mayEdit={mayEdit(data)} canCurate={canCurate}
+        onDeleted={() => void navigate(`/labs/${labId}/library`)}
+      />
+      {data.roleHint !== 'photocatalyst' && (
+        <FormAlert tone="note">
+          Handle quenchers as their safety data sheets say: many amines are toxic or corrosive, some bipyridinium salts are
+          highly toxic, and the usual solvents are flammable. Follow your institution&apos;s rules; Halflight gives no safety approval.
+        </FormAlert>
+      )}
+      {remove.isError && <FormAlert>{describeError(remove.error)}</FormAlert>}
+      <Panel title="Redox potentials" aside={<Signal tone="good">{`shown vs ${data.displayReference}`}</Signal>}>
+        <PotentialsTable
+          potentials={data.potentials} displayReference={data.displayReference} canCurate={canCurate}
+          onDelete={(record) => remove.mutate({ segment: 'potentials', id: record.id, version: record.version })}
+        />
+        {canAdd && (
+          <div id="add-potential" className="mt-4 border-t border-paper-200 pt-4">
+            <h3 className="mb-2 text-body font-bold text-ink-900">Add a potential</h3>
+            <PotentialForm labId={labId} compoundId={data.id} defaultSolvent={solvent} />
+          </div>
+        )}
+      </Panel>
+      {isEmitter && <ExcitedStatePanel state={data.excitedState} />}
+      {isEmitter && (
+        <Panel title="E00 (excited-state energy)">
+          <EnergiesTable energies={data.energies} canCurate={canCurate} onDelete={(record) => remove.mutate({ segment: 'energies', id: record.id, version: record.version })} />
+          {canAdd && <div id="add-e00" className="mt-4 border-t border-paper-200 pt-4"><EnergyForm labId={labId} compoundId={data.id} /></div>}
+        </Panel>
+      )}
+      {isEmitter && (
+        <Panel title="Excited-state lifetimes">
+          <LifetimesTable
+            labId={labId} compoundId={data.id} lifetimes={data.lifetimes} mayEdit={mayEdit} canCurate={canCurate}
+            onDelete={(record) => remove.mutate({ segment: 'lifetimes', id: record.id, version: record.version })}
+          />
+          {canAdd && <div className="mt-4 border-t border-paper-200 pt-4"><LifetimeForm labId={labId} compoundId={data.id} defaultSolvent={solvent} /></div>}
+        </Panel>
+      )}
+      <Panel title="Driving force with a partner">
+        <PairDrivingForce labId={labId} compound={data} defaultSolvent={solvent} />
+      </Panel>
+    </div>
+  );
+}

@@ -1,0 +1,40 @@
+import { useParams } from 'react-router-dom';
+import { ErrorNotice } from '@/components/error-notice';
+import { Panel } from '@/components/panel';
+import { Signal } from '@/components/signal';
+import { useSession } from '@/features/auth/api/get-session';
+import { NotYourLab } from '@/features/labs/components/not-your-lab';
+import { useLabSettings } from '@/features/library/api/get-lab-settings';
+import { LabSettingsForm } from '@/features/library/components/lab-settings-form';
+import { can } from '@/lib/policy';
+
+/** Lab settings for admins: the reference electrode in which potentials are read. */
+export function LibrarySettingsRoute() {
+  const { labId = '' } = useParams();
+  const { user } = useSession();
+  const lab = user.labs.find((membership) => membership.labId === labId);
+  if (!lab) return <NotYourLab />;
+  if (!can(lab.role, 'settings:manage')) return <NotYourLab reason="Only the lab's admins change its settings." />;
+  return <SettingsScreen labId={lab.labId} labName={lab.labName} />;
+}
+
+function SettingsScreen({ labId, labName }: { labId: string; labName: string }) {
+  const settings = useLabSettings(labId);
+  return (
+    <div className="max-w-4xl space-y-6">
+      <header>
+        <p className="text-caption uppercase text-ink-500">{labName}</p>
+        <h1 className="text-display font-black text-ink-950">Lab settings</h1>
+        <p className="mt-1 text-lead text-ink-700">
+          Potentials are stored exactly as entered and shown converted into this reference, with the original beside them.
+          IUPAC recommends Fc+/Fc for work in organic solvents; aqueous references there carry a junction-potential error.
+        </p>
+      </header>
+      <Panel title="Display reference">
+        {settings.isPending && <Signal tone="waiting">Loading settings</Signal>}
+        {settings.isError && <ErrorNotice error={settings.error} what="the settings" />}
+        {settings.data && <LabSettingsForm labId={labId} settings={settings.data} />}
+      </Panel>
+    </div>
+  );
+}

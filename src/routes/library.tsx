@@ -1,0 +1,87 @@
+import { useState } from 'react';
+import { useNavigate, useParams } from 'react-router-dom';
+import type { CompoundRoleHint } from '@shared/schemas/compound-role';
+import { Button } from '@/components/button';
+import { ErrorNotice } from '@/components/error-notice';
+import { Panel } from '@/components/panel';
+import { SelectField } from '@/components/select-field';
+import { Signal } from '@/components/signal';
+import { Tag } from '@/components/tag';
+import { TextField } from '@/components/text-field';
+import { useSession } from '@/features/auth/api/get-session';
+import { NotYourLab } from '@/features/labs/components/not-your-lab';
+import { useCreateCompound } from '@/features/library/api/create-compound';
+import { useCompounds } from '@/features/library/api/get-compounds';
+import { CompoundForm } from '@/features/library/components/compound-form';
+import { CompoundTable } from '@/features/library/components/compound-table';
+import { LibraryImportPanel } from '@/features/library/components/library-import-panel';
+import { roleHintLabels } from '@/features/library/components/library-format';
+import { can } from '@/lib/policy';
+
+const pageSize = 25;
+
+/** The lab's compound library: search, filter by role, add a compound, import and export CSV. */
+export function LibraryRoute() {
+  const { labId = '' } = useParams();
+  const { user } = useSession();
+  const lab = user.labs.find((membership) => membership.labId === labId);
+  if (!lab) return <NotYourLab />;
+  return <LibraryScreen labId={lab.labId} labName={lab.labName} isDemo={lab.isDemo} canAdd={can(lab.role, 'library:add')} />;
+}
+
+function LibraryScreen({ labId, labName, isDemo, canAdd }: { labId: string; labName: string; isDemo: boolean; canAdd: boolean }) {
+  const [search, setSearch] = useState('');
+  const [roleHint, setRoleHint] = useState<CompoundRoleHint | ''>('');
+  const [page, setPage] = useState(1);
+  const compounds = useCompounds(labId, { search: search || undefined, roleHint: roleHint || undefined, page, pageSize });
+  const create = useCreateCompound(labId);
+  const navigate = useNavigate();
+  const pages = compounds.data ? Math.max(1, Math.ceil(compounds.data.total / pageSize)) : 1;
+  return (
+    <div className="max-w-6xl space-y-6">
+      <header>
+        <p className="flex items-center gap-2 text-caption uppercase text-ink-500">{labName} {isDemo && <Tag tone="demo">Demo</Tag>}</p>
+        <h1 className="text-display font-black text-ink-950">Library</h1>
+        <p className="mt-1 max-w-3xl text-lead text-ink-700">
+          Emitters and quenchers with their redox potentials, lifetimes and E00, kept as reported and read in one reference.
+        </p>
+      </header>
+      <Panel title="Compounds" aside={compounds.data && <Signal tone="good">{`${compounds.data.total} in the library`}</Signal>}>
+        <div className="mb-3 grid gap-3 sm:grid-cols-[2fr_1fr]">
+          <TextField label="Search by name" type="search" value={search} onChange={(event) => { setSearch(event.target.value); setPage(1); }} />
+          <SelectField
+            label="Role"
+            options={[{ value: '', label: 'All roles' }, ...Object.entries(roleHintLabels).map(([value, label]) => ({ value, label }))]}
+            value={roleHint}
+            onChange={(event) => { setRoleHint(event.target.value as CompoundRoleHint | ''); setPage(1); }}
+          />
+        </div>
+        {compounds.isPending && <Signal tone="waiting">Loading the library</Signal>}
+        {compounds.isError && <ErrorNotice error={compounds.error} what="the library" />}
+        {compounds.data && <CompoundTable labId={labId} compounds={compounds.data.items} filtered={Boolean(search || roleHint)} />}
+        {pages > 1 && (
+          <nav aria-label="Pages" className="mt-3 flex items-center gap-3 text-body">
+            <Button variant="quiet" disabled={page <= 1} onClick={() => setPage(page - 1)}>Previous</Button>
+            <span>Page {page} of {pages}</span>
+            <Button variant="quiet" disabled={page >= pages} onClick={() => setPage(page + 1)}>Next</Button>
+          </nav>
+        )}
+      </Panel>
+      {canAdd && (
+        <Panel title="Add a compound">
+          <CompoundForm
+            submitLabel="Add compound"
+            pending={create.isPending}
+            onSave={async (values) => {
+              const created = await create.mutateAsync(values);
+              await navigate(`/labs/${labId}/library/${created.id}`);
+            }}
+          />
+        </Panel>
+      )}
+      <Panel title="CSV import and export">
+        <LibraryImportPanel labId={labId} canImport={canAdd} />
+      </Panel>
+    </div>
+  );
+}

@@ -1,0 +1,37 @@
+import { useNavigate, useParams } from 'react-router-dom';
+import { ErrorNotice } from '@/components/error-notice';
+import { Panel } from '@/components/panel';
+import { useSession } from '@/features/auth/api/get-session';
+import { NotYourLab } from '@/features/labs/components/not-your-lab';
+import { useCreateStudy } from '@/features/studies/api/create-study';
+import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
+import { StudyForm } from '@/features/studies/components/study-form';
+import { can } from '@/lib/policy';
+
+/** Set up a new quenching study; points come next, on the study's screen. */
+export function NewStudyRoute() {
+  const { labId = '' } = useParams();
+  const { user } = useSession();
+  const lab = user.labs.find((membership) => membership.labId === labId);
+  const options = useStudyFormOptions(labId);
+  const create = useCreateStudy(labId);
+  const navigate = useNavigate();
+  if (!lab) return <NotYourLab />;
+  if (!can(lab.role, 'studies:write')) return <ErrorNotice error={new Error('Your role in this lab reads studies but cannot start them.')} what="the study form" />;
+  return (
+    <div className="max-w-5xl space-y-6">
+      <header>
+        <p className="text-caption uppercase text-ink-500">{lab.labName}</p>
+        <h1 className="text-display font-black text-ink-950">New quenching study</h1>
+        <p className="mt-1 text-lead text-ink-700">One emitter against one quencher, in one solvent at one temperature.</p>
+      </header>
+      {options.isError && <ErrorNotice error={options.error} what="the lab's compounds" />}
+      <Panel title="Set-up">
+        <StudyForm options={options.data} submitLabel="Create study" onSubmit={async (body) => {
+          const study = await create.mutateAsync(body);
+          await navigate(`/labs/${labId}/studies/${study.id}`);
+        }} />
+      </Panel>
+    </div>
+  );
+}

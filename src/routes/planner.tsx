@@ -1,0 +1,86 @@
+import { useState } from 'react';
+import { useParams } from 'react-router-dom';
+import type { TitrationPlanInput, TitrationPlanResult } from '@shared/schemas/planner';
+import { Button } from '@/components/button';
+import { FormAlert } from '@/components/form-alert';
+import { Panel } from '@/components/panel';
+import { SafetyNotice } from '@/components/safety-notice';
+import { useCreateTitrationPlan } from '@/features/planner/api/create-titration-plan';
+import { useDownloadTitrationPlan } from '@/features/planner/api/download-titration-plan';
+import { PlanTable } from '@/features/planner/components/plan-table';
+import { PlannerForm } from '@/features/planner/components/planner-form';
+import { toPlanInput } from '@/features/planner/components/planner-form-schema';
+import { describeError } from '@/lib/form-errors';
+
+/** Titration planner: the additions that reach each quencher concentration, before any stock is made. */
+export function PlannerRoute() {
+  const { labId = '' } = useParams();
+  const createPlan = useCreateTitrationPlan(labId);
+  const download = useDownloadTitrationPlan(labId);
+  const [planned, setPlanned] = useState<{ input: TitrationPlanInput; plan: TitrationPlanResult } | null>(null);
+
+  return (
+    <div className="max-w-5xl space-y-6">
+      <header className="print:hidden">
+        <h1 className="text-display font-black text-ink-950">Titration planner</h1>
+        <p className="mt-1 max-w-3xl text-lead text-ink-700">
+          Work out each addition of quencher stock, how far the sample is diluted, and the concentration you really
+          reach, before you start the titration.
+        </p>
+      </header>
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem] print:block">
+        <Panel title="Starting point">
+          <div className="print:hidden">
+            <PlannerForm
+              pending={createPlan.isPending}
+              serverError={createPlan.isError ? describeError(createPlan.error) : undefined}
+              onPlan={(values) => {
+                const input = toPlanInput(values);
+                createPlan.mutate(input, { onSuccess: (plan) => setPlanned({ input, plan }) });
+              }}
+            />
+          </div>
+        </Panel>
+        <div className="print:hidden">
+          <SafetyNotice hazards={['toxic-quencher', 'flammable-solvent', 'light', 'pressurised-gas']} />
+        </div>
+      </div>
+      {planned && (
+        <Panel
+          title="Additions"
+          aside={
+            <div className="flex gap-2 print:hidden">
+              <Button variant="quiet" onClick={() => download.mutate(planned.input)} pending={download.isPending} pendingLabel="Preparing…">
+                Download CSV
+              </Button>
+              <Button variant="quiet" onClick={() => window.print()}>
+                Print
+              </Button>
+            </div>
+          }
+        >
+          <p className="mb-3 text-body text-ink-700">
+            Start with {planned.input.initialVolume * 1e3} mL of {planned.input.emitterConcentration * 1e6} µM emitter and
+            a {planned.input.stockConcentration * 1e3} mM quencher stock
+            {planned.input.quencherName ? ` (${planned.input.quencherName})` : ''}. In total the sample grows by{' '}
+            <strong>{(planned.plan.totalDilution * 100).toFixed(1)} %</strong>.
+          </p>
+          {planned.plan.flags.map((flag) => (
+            <div key={flag.code} className="mb-3">
+              <FormAlert tone="note">
+                <strong>{flag.title}.</strong> {flag.explanation} {flag.detail ? `(${flag.detail})` : ''}
+                <ul className="mt-1 list-disc pl-5">
+                  {flag.whatToCheck.map((item) => (
+                    <li key={item}>{item}</li>
+                  ))}
+                </ul>
+              </FormAlert>
+            </div>
+          ))}
+          <PlanTable plan={planned.plan} />
+          {download.isError && <FormAlert>{describeError(download.error)}</FormAlert>}
+        </Panel>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,58 @@
+import { useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { EmptyState } from '@/components/empty-state';
+import { ErrorNotice } from '@/components/error-notice';
+import { Panel } from '@/components/panel';
+import { useScenarios } from '@/features/scenarios/api/get-scenarios';
+import { formatDate } from '@/lib/format-date';
+
+/** The lab's reaction scenarios: real reactions whose components compete for the excited catalyst. */
+export function ScenariosRoute() {
+  const { labId = '' } = useParams();
+  const [page, setPage] = useState(1);
+  const scenarios = useScenarios(labId, page);
+  const pages = Math.max(1, Math.ceil((scenarios.data?.total ?? 0) / 25));
+  return (
+    <div className="max-w-5xl space-y-6">
+      <header className="flex items-end justify-between gap-4">
+        <div>
+          <h1 className="text-display font-black text-ink-950">Who quenches?</h1>
+          <p className="mt-1 max-w-3xl text-lead text-ink-700">
+            Put in a reaction as you run it, and see which share of the excited catalyst each component takes, using
+            the rate constants your lab has measured.
+          </p>
+        </div>
+        <Link to={`/labs/${labId}/scenarios/new`} className="shrink-0 rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300">
+          New scenario
+        </Link>
+      </header>
+      <Panel title="Scenarios">
+        {scenarios.isError && <ErrorNotice error={scenarios.error} what="the scenarios" />}
+        {scenarios.data?.items.length === 0 && (
+          <EmptyState title="No scenarios yet">Start one with the components of a reaction you run.</EmptyState>
+        )}
+        {scenarios.data && scenarios.data.items.length > 0 && (
+          <ul className="divide-y divide-paper-200">
+            {scenarios.data.items.map((item) => (
+              <li key={item.id} className="flex items-baseline justify-between gap-4 py-2">
+                <Link to={`/labs/${labId}/scenarios/${item.id}`} className="font-bold text-ink-900 underline decoration-glow-400">
+                  {item.name}
+                </Link>
+                <span className="text-caption text-ink-500">
+                  {item.emitterName} · {item.solvent} · {item.componentCount} components · {formatDate(item.updatedAt)}
+                </span>
+              </li>
+            ))}
+          </ul>
+        )}
+        {pages > 1 && (
+          <nav aria-label="Pages" className="mt-3 flex gap-2 text-body">
+            <button type="button" disabled={page <= 1} onClick={() => setPage(page - 1)}>Previous</button>
+            <span>Page {page} of {pages}</span>
+            <button type="button" disabled={page >= pages} onClick={() => setPage(page + 1)}>Next</button>
+          </nav>
+        )}
+      </Panel>
+    </div>
+  );
+}

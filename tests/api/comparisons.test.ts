@@ -1,0 +1,99 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { rehmWellerRateConstant, solventDiffusionLimit } from '../../shared/engine';
+import { ExcitedStateEnergy, RedoxPotential } from '../../server/models';
+import { apiClient, createLabWithMembers } from '../support/accounts';
+import { createCompound, createStudyRecord } from '../support/study-records';
+import { createTestApp } from '../support/test-app';
+
+const testApp = await createTestApp();
+afterAll(testApp.close);
+
+let labId = '';
+let viewer: Awaited<ReturnType<typeof apiClient>>;
+let emitterId = '';
+const quencherIds: string[] = [];
+// Test inputs: acceptor reduction potentials (V vs SCE) of four invented quenchers.
+const acceptorPotentials = [-1.3, -1.6, -1.9, -2.1];
+
+async function potential(compoundId: string, couple: 'oxidation' | 'reduction', value: number) {
+  await RedoxPotential.create({
+    labId, compoundId, couple, value, reference: 'SCE', solvent: 'acetonitrile', kind: 'half-wave', createdById: null,
+  });
+}
+
+beforeAll(async () => {
+  const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
+  labId = lab.id;
+  // The catalyst row "Ptppy" of Chem. Sci. 2015, 6, 1454 (PMC5811153) Table 1, via check-values.md §5b:
+  // E(M+/M) = +0.57 V, E(M/M-) = -2.38 V vs SCE in MeCN, E_T = 2.64 eV.
+  const emitter = await createCompound(labId, 'Pt-row', 'photocatalyst');
+  emitterId = emitter.id;
+  await potential(emitterId, 'oxidation', 0.57);
+  await potential(emitterId, 'reduction', -2.38);
+  await ExcitedStateEnergy.create({ labId, compoundId: emitterId, value: 2.64, method: 'phosphorescence', createdById: null });
+  const diffusionLimit = solventDiffusionLimit('acetonitrile');
+  for (const [index, reduction] of acceptorPotentials.entries()) {
+    const quencher = await createCompound(labId, `acceptor-${index}`, 'quencher');
+    quencherIds.push(quencher.id);
+    await potential(quencher.id, 'reduction', reduction);
+    // Synthetic kq from the Rehm–Weller form with a known lambda = 0.80 eV (DESIGN.md 4.6).
+    const drivingForce = 0.57 - reduction - 2.64;
+    const kq = rehmWellerRateConstant({ drivingForce, reorganisationEnergy: 0.8, diffusionLimit });
+    await createStudyRecord({
+      labId, emitterId, quencherId: quencher.id, kq, status: index % 2 === 0 ? 'approved' : 'draft', title: `Pt vs acceptor-${index}`,
+    });
+  }
+  // A study in another solvent: listed, but never mixed into the acetonitrile trend.
+  await createStudyRecord({ labId, emitterId, quencherId: quencherIds[0]!, kq: 1e9, solventId: 'dmf', title: 'in DMF' });
+  viewer = await apiClient(testApp.app);
+  await viewer.signIn(users.viewer);
+});
+
+describe('GET /api/labs/:labId/comparisons/:side/:compoundId', () => {
+  it('when an emitter is compared, then each quencher shows kq and the Rehm–Weller driving force', async () => {
+    const response = await viewer.get(`/api/labs/${labId}/comparisons/emitter/${emitterId}?sort=drivingForce`);
+    expect(response.status).toBe(200);
+    const acetonitrileRows = response.body.rows.filter((row: { solvent: string }) => row.solvent === 'acetonitrile');
+    // dG_ET = e[E(D+/D) - E(A/A-)] - E00 (Rehm & Weller 1970; DESIGN.md 4.5): 0.57 + 1.30 - 2.64 = -0.77 eV.
+    expect(acetonitrileRows[0].drivingForce.pathway).toBe('oxidative');
+    expect(acetonitrileRows[0].drivingForce.electronvolts).toBeCloseTo(-0.77, 10);
+    expect(acetonitrileRows.map((row: { partner: { name: string } }) => row.partner.name)).toEqual([
+      'acceptor-0', 'acceptor-1', 'acceptor-2', 'acceptor-3',
+    ]);
+    expect(response.body.rows.find((row: { solvent: string }) => row.solvent === 'dmf').status).toBe('draft');
+  });
+
+  it('when the trend is fitted, then lambda comes back with its error and solvents stay apart', async () => {
+    const response = await viewer.get(`/api/labs/${labId}/comparisons/emitter/${emitterId}`);
+    const trends = response.body.trends;
+    expect(trends.map((trend: { solvent: string }) => trend.solvent)).toEqual(['acetonitrile', 'dmf']);
+    const [acetonitrile, dmf] = trends;
+    expect(acetonitrile.points).toHaveLength(4);
+    // Synthetic data made with lambda = 0.80 eV must give it back.
+    expect(acetonitrile.fit.reorganisationEnergy).toBeCloseTo(0.8, 6);
+    expect(acetonitrile.fit.reorganisationEnergyStandardError).toBeGreaterThanOrEqual(0);
+    expect(acetonitrile.diffusionLimit).toBeCloseTo(solventDiffusionLimit('acetonitrile'), 0);
+    expect(dmf.fit).toBeNull();
+    expect(dmf.note).toMatch(/at least 3 studies/);
+  });
+
+  it('when only approved results are asked for, then drafts leave the fit but stay in the table', async () => {
+    const response = await viewer.get(`/api/labs/${labId}/comparisons/emitter/${emitterId}?approvedOnly=true`);
+    expect(response.body.rows).toHaveLength(5);
+    expect(response.body.trends[0].points).toHaveLength(2);
+    expect(response.body.trends[0].fit).toBeNull();
+  });
+
+  it('when a quencher is compared, then its emitters are listed', async () => {
+    const response = await viewer.get(`/api/labs/${labId}/comparisons/quencher/${quencherIds[0]}`);
+    expect(response.body.rows.map((row: { partner: { name: string } }) => row.partner.name)).toEqual(['Pt-row', 'Pt-row']);
+  });
+
+  it('when exported, then the CSV carries the same rows with an approved column', async () => {
+    const response = await viewer.get(`/api/labs/${labId}/comparisons/emitter/${emitterId}/export.csv`);
+    expect(response.headers['content-type']).toMatch(/text\/csv/);
+    const lines = response.text.trim().split('\n');
+    expect(lines[2]).toMatch(/^quencher,study,solvent,status,approved,kq_M-1_s-1/);
+    expect(lines).toHaveLength(3 + 5);
+  });
+});

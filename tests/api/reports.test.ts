@@ -1,0 +1,63 @@
+import { PDFParse } from 'pdf-parse';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Lab, Study } from '../../server/models';
+import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
+import { sci } from '../../server/services/reports/pdf-document';
+import { apiClient } from '../support/accounts';
+import { createTestApp } from '../support/test-app';
+
+const testApp = await createTestApp();
+afterAll(testApp.close);
+
+let client: Awaited<ReturnType<typeof apiClient>>;
+let labId = '';
+
+async function pdfText(buffer: Buffer): Promise<string> {
+  const parser = new PDFParse({ data: new Uint8Array(buffer) });
+  try {
+    return (await parser.getText()).text;
+  } finally {
+    await parser.destroy();
+  }
+}
+
+const binary = (response: { body: unknown }) => response.body as Buffer;
+
+beforeAll(async () => {
+  await seedDemoData(testApp.sequelize);
+  labId = (await Lab.findOne({ where: { slug: demoLabs[0].slug } }))!.id;
+  client = await apiClient(testApp.app);
+  await client.signIn({ email: demoPeople[0]!.email, password: demoPassword });
+});
+
+describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
+  it('when a demo study with a fit is reported, then its PDF text holds the fitted numbers, flags and engine version', async () => {
+    const study = await Study.findOne({ where: { labId, isCurrent: true, status: 'approved' } });
+    expect(study, 'the demo lab has an approved study').not.toBeNull();
+    const detail = (await client.get(`/api/labs/${labId}/studies/${study!.id}`)).body;
+    const response = await client.agent
+      .get(`/api/labs/${labId}/studies/${study!.id}/report.pdf`)
+      .buffer(true)
+      .parse((res, callback) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => callback(null, Buffer.concat(chunks)));
+      });
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toBe('application/pdf');
+    const text = (await pdfText(binary(response))).replace(/\s+/g, ' ');
+    const kSv = detail.latestFit.result.parameters.kSv;
+    expect(text).toContain(`K_SV: ${sci(kSv.value, 4)} ± ${sci(kSv.standardError, 2)} M^-1`);
+    expect(text).toContain(`kq: ${sci(detail.latestFit.result.parameters.kq.value, 4)}`);
+    expect(text).toContain(detail.title);
+    expect(text).toContain(`engine ${detail.latestFit.engineVersion}`);
+    expect(text).toMatch(/Approved: by .+ on \d{4}-\d{2}-\d{2}/);
+    for (const upload of detail.uploads) expect(text).toContain(upload.sha256);
+  });
+
+  it('when the study is unknown, then 404 in the one error shape', async () => {
+    const response = await client.get(`/api/labs/${labId}/studies/00000000-0000-4000-8000-000000000000/report.pdf`);
+    expect(response.status).toBe(404);
+    expect(response.body.error.code).toBe('not_found');
+  });
+});

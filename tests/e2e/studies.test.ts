@@ -1,0 +1,83 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createLabWithMembers } from '../support/accounts';
+import { launchBrowser, screenshotDir } from '../support/browser';
+import { startLiveServer } from '../support/live-server';
+
+let browser: Browser;
+let server: Awaited<ReturnType<typeof startLiveServer>>;
+let people: Awaited<ReturnType<typeof createLabWithMembers>>['users'];
+let labId = '';
+// Invented test data: I0/I = 1 + 500 [Q] (tests/fixtures/uploads/README.md), so K_SV reads 500 M^-1.
+const fixture = path.join(import.meta.dirname, '../fixtures/uploads/series-comma-mM.csv');
+const shot = (page: Page, name: string) => page.screenshot({ path: path.join(screenshotDir, name), fullPage: true });
+
+async function signIn(page: Page, user: { email: string; password: string }) {
+  await page.goto(`${server.baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(user.email);
+  await page.getByLabel('Password').fill(user.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
+}
+
+beforeAll(async () => {
+  server = await startLiveServer();
+  browser = await launchBrowser();
+  const created = await createLabWithMembers(server.sequelize, { roles: ['researcher', 'reviewer'] });
+  people = created.users;
+  labId = created.lab.id;
+  fs.mkdirSync(screenshotDir, { recursive: true });
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('studies in Chromium', () => {
+  it('when a researcher sets up a study, uploads a CSV and submits, then a reviewer approves it', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signIn(page, people.researcher);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
+    await page.getByRole('heading', { name: 'Studies', level: 1 }).waitFor();
+    await page.getByText('No studies match').waitFor();
+    await page.getByRole('link', { name: 'New study' }).click();
+    await page.getByLabel('Title').fill('E2E amine titration');
+    await page.getByLabel('Emitter', { exact: true }).selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('New emitter name').fill('E2E-Ir-1');
+    await page.getByLabel('Quencher', { exact: true }).selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('New quencher name').fill('E2E-amine-1');
+    await page.getByLabel('τ0 (ns)').fill('1000');
+    await shot(page, 'study-form.png');
+    await page.getByRole('button', { name: 'Create study' }).click();
+    await page.getByRole('heading', { name: 'E2E amine titration', level: 1 }).waitFor();
+
+    await page.getByLabel(/Instrument file/).setInputFiles(fixture);
+    await page.getByRole('table', { name: 'Parsed table' }).waitFor();
+    await expect.poll(() => page.getByLabel('Points from the file').textContent()).toContain('6 points');
+    await shot(page, 'study-upload-preview.png');
+    await page.getByRole('button', { name: 'Use these points' }).click();
+    await expect.poll(async () => (await page.getByLabel('K_SV', { exact: true }).textContent()) ?? '').toMatch(/^500 ± /);
+    await expect.poll(async () => (await page.getByLabel('kq', { exact: true }).textContent()) ?? '').toMatch(/^5\.00 × 10⁸ ± /);
+    await page.getByRole('figure', { name: 'Stern–Volmer plot' }).waitFor();
+    await shot(page, 'study-fitted.png');
+    await page.getByRole('button', { name: 'Submit for review' }).click();
+    await page.getByText('Awaiting review').first().waitFor();
+    await page.close();
+
+    const reviewerPage = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signIn(reviewerPage, people.reviewer);
+    await reviewerPage.goto(`${server.baseUrl}/labs/${labId}/studies?status=submitted`);
+    await reviewerPage.getByRole('link', { name: 'E2E amine titration' }).click();
+    await reviewerPage.getByLabel('Comment').fill('Clean line, approved.');
+    await reviewerPage.getByRole('button', { name: 'Approve' }).click();
+    await reviewerPage.getByText('Approved and locked.').waitFor();
+    await shot(reviewerPage, 'study-approved.png');
+    await reviewerPage.goto(`${server.baseUrl}/labs/${labId}/studies`);
+    await reviewerPage.getByRole('link', { name: 'E2E amine titration' }).waitFor();
+    await shot(reviewerPage, 'studies-list.png');
+    await reviewerPage.close();
+  });
+});

@@ -1,0 +1,90 @@
+import { linearRegression } from 'simple-statistics';
+import { describe, expect, it } from 'vitest';
+import { computeStudyFit, type FitSettings, type SeriesPoint } from '../../../server/services/studies/fit/compute-study-fit';
+import { correctPoint } from '../../../server/services/studies/fit/series-corrections';
+
+const settings: FitSettings = {
+  solventId: 'acetonitrile', customSolventName: null, customViscosity: null, temperature: 298.15,
+  tau0: 1e-6, tau0Uncertainty: null, tau0LifetimeId: null, dataKind: 'intensity', i0: null,
+  dilutionCorrection: false, initialVolume: null, stockConcentration: null, stockContainsEmitter: false, innerFilterCorrection: false,
+};
+const point = (position: number, concentration: number, intensity: number | null, extra: Partial<SeriesPoint> = {}): SeriesPoint => ({
+  position, concentration, intensity, lifetime: null, absorbanceExcitation: null, absorbanceEmission: null, volumeAdded: null, uncertainty: null, excluded: false, ...extra,
+});
+// Exact line I0/I = 1 + 500 [Q] (constructed, so K_SV = 500 M^-1 by hand).
+const exact = [0, 1e-3, 2e-3, 3e-3, 4e-3, 5e-3].map((q, i) => point(i, q, 1000 / (1 + 500 * q)));
+
+describe('points -> engine', () => {
+  it('when the series is an exact Stern–Volmer line, then K_SV = 500 M^-1 and kq = K_SV / tau0 = 5e8 M^-1 s^-1 (hand-computed)', () => {
+    const fit = computeStudyFit(settings, exact, 'linear-free');
+    expect(fit.kSv).toBeCloseTo(500, 6);
+    expect(fit.kq).toBeCloseTo(5e8, -1);
+    expect(fit.result.reference).toMatchObject({ kind: 'i0', value: 1000 });
+    // k_diff = 8RT/(3 eta) with eta(MeCN, 25 °C) = 0.342 mPa s: 8 * 8.314462618 * 298.15 / (3 * 0.342e-3) * 1000 = 1.9327e10 (hand-computed)
+    expect(fit.result.diffusionLimit!.value).toBeCloseTo(1.9327e10, -7);
+    expect(fit.result.diffusionLimit!.ratio).toBeCloseTo(5e8 / 1.9327e10, 4);
+  });
+
+  it('when the points scatter, then the free-intercept slope equals simple-statistics linearRegression on (Q, I0/I)', () => {
+    const noisy = [0, 1e-3, 2e-3, 3e-3, 4e-3, 5e-3].map((q, i) => point(i, q, 1000 / (1 + 500 * q + [0, 0.02, -0.015, 0.01, -0.02, 0.012][i]!)));
+    const fit = computeStudyFit(settings, noisy, 'linear-free');
+    const reference = linearRegression(fit.pointsUsed.map((p) => [p.concentration, p.ratio])); // simple-statistics 7.x
+    expect(fit.kSv).toBeCloseTo(reference.m, 8);
+    expect(fit.result.parameters.intercept!.value).toBeCloseTo(reference.b, 10);
+  });
+
+  it('when a point is excluded, then it stays in the series but is not used', () => {
+    const withOutlier = [...exact, point(6, 6e-3, 100, { excluded: true })];
+    const fit = computeStudyFit(settings, withOutlier, 'linear-fixed');
+    expect(fit.pointsUsed.map((p) => p.position)).toEqual([0, 1, 2, 3, 4, 5]);
+    expect(fit.kSv).toBeCloseTo(500, 6);
+  });
+
+  it('when kq exceeds the diffusion limit, then the flag is raised', () => {
+    const fast = [0, 1e-3, 2e-3, 3e-3, 4e-3, 5e-3].map((q, i) => point(i, q, 1000 / (1 + 40000 * q)));
+    const fit = computeStudyFit(settings, fast, 'linear-free'); // kq = 4e4 / 1e-6 = 4e10 > 1.93e10
+    expect(fit.result.flags.map((flag) => flag.code)).toContain('KQ_ABOVE_DIFFUSION_LIMIT');
+  });
+
+  it('when the data hold ratios, then they are fitted as I0/I directly', () => {
+    const ratios = [0, 1e-3, 2e-3, 3e-3, 4e-3].map((q, i) => point(i, q, 1 + 800 * q));
+    expect(computeStudyFit({ ...settings, dataKind: 'ratio' }, ratios, 'linear-fixed').kSv).toBeCloseTo(800, 8);
+  });
+
+  it('when there is no blank and no I0, then the engine refuses with MISSING_I0', () => {
+    expect(() => computeStudyFit(settings, exact.slice(1), 'linear-free')).toThrow(/i0: there is no point at zero quencher concentration/);
+  });
+
+  it('when upward curvature comes from (1 + 300[Q])(1 + 100[Q]), then the combined model returns roots 300 and 100 (hand-computed)', () => {
+    const curved = [0, 1e-3, 2e-3, 4e-3, 6e-3, 8e-3].map((q, i) => point(i, q, 1000 / ((1 + 300 * q) * (1 + 100 * q))));
+    const fit = computeStudyFit({ ...settings, tau0: null }, curved, 'static-dynamic');
+    expect(fit.result.parameters.largerRoot!.value).toBeCloseTo(300, 4);
+    expect(fit.result.parameters.smallerRoot!.value).toBeCloseTo(100, 4);
+  });
+
+  it('when lifetimes are present, then tau0/tau is fitted and compared with the intensity slope', () => {
+    const both = exact.map((p) => ({ ...p, lifetime: 1e-6 / (1 + 500 * p.concentration) }));
+    const fit = computeStudyFit({ ...settings, tau0: null }, both, 'linear-free');
+    expect(fit.result.lifetime!.kSv.value).toBeCloseTo(500, 6);
+    expect(fit.result.tau0).toMatchObject({ value: 1e-6, source: 'lifetime series at zero quencher' });
+    expect(fit.result.lifetime!.verdict).toMatch(/dynamic quenching/);
+  });
+});
+
+describe('corrections', () => {
+  const dilution = { ...settings, dilutionCorrection: true, initialVolume: 2e-3, stockConcentration: 0.1 };
+  it('when 20 µL of 0.1 M stock go into 2 mL, then [Q] = 0.1 * 2e-5 / 2.02e-3 = 9.90099e-4 M and I is scaled by 1.01 (hand-computed)', () => {
+    const corrected = correctPoint(dilution, point(1, 0, 90, { volumeAdded: 2e-5 }), false)!;
+    expect(corrected.concentration).toBeCloseTo(9.90099e-4, 9);
+    expect(corrected.intensity).toBeCloseTo(90.9, 10);
+  });
+  it('when absorbances are 0.1 and 0.05, then the inner-filter factor is 10^0.075 = 1.18850 (hand-computed)', () => {
+    const corrected = correctPoint({ ...settings, innerFilterCorrection: true }, point(1, 1e-3, 100, { absorbanceExcitation: 0.1, absorbanceEmission: 0.05 }), false)!;
+    expect(corrected.innerFilterFactor).toBeCloseTo(1.1885, 4);
+    expect(corrected.intensity).toBeCloseTo(118.85, 2);
+  });
+  it('when a ratio is corrected, then it is divided by the factor (I0/I_corr = (I0/I)/f)', () => {
+    const corrected = correctPoint({ ...settings, innerFilterCorrection: true }, point(1, 1e-3, 2, { absorbanceExcitation: 0.1, absorbanceEmission: 0.05 }), true)!;
+    expect(corrected.intensity).toBeCloseTo(2 / 1.18850, 4);
+  });
+});
