@@ -16,14 +16,17 @@ const cautions: Record<Hazard, string> = {
  * A short list of the usual cautions. It is a reminder, not a safety approval: the safety data
  * sheets and the institution's rules decide.
  */
-export function SafetyNotice({ hazards }: { hazards: readonly Hazard[] }) {
-  if (hazards.length === 0) return null;
+export function SafetyNotice({ hazards, extra = [] }: { hazards: readonly Hazard[]; extra?: readonly string[] }) {
+  if (hazards.length === 0 && extra.length === 0) return null;
   return (
     <aside aria-label="Safety" className="rounded-card border border-glow-300 bg-glow-50 p-4 text-body text-ink-800">
       <h2 className="mb-2 text-body font-black uppercase tracking-wide text-glow-700">Before you start</h2>
       <ul className="list-disc space-y-1 pl-5">
         {hazards.map((hazard) => (
           <li key={hazard}>{cautions[hazard]}</li>
+        ))}
+        {extra.map((note) => (
+          <li key={note}>{note}</li>
         ))}
       </ul>
       <p className="mt-2 text-caption text-ink-600">

@@ -1,4 +1,4 @@
-import { useNavigate, useParams } from 'react-router-dom';
+import { useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { useSession } from '@/features/auth/api/get-session';
@@ -6,6 +6,7 @@ import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { useCreateStudy } from '@/features/studies/api/create-study';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
 import { StudyForm } from '@/features/studies/components/study-form';
+import type { StudyFormValues } from '@/features/studies/components/study-form-values';
 import { can } from '@/lib/policy';
 
 /** Set up a new quenching study; points come next, on the study's screen. */
@@ -16,6 +17,15 @@ export function NewStudyRoute() {
   const options = useStudyFormOptions(labId);
   const create = useCreateStudy(labId);
   const navigate = useNavigate();
+  const [params] = useSearchParams();
+  // Links from a scenario (the pair that lacks a kq) and from the planner (volumes and stock) pre-fill the form.
+  const preset: Partial<StudyFormValues> = Object.fromEntries(
+    (['emitterId', 'quencherId', 'title', 'initialVolumeMilli', 'stockMilli'] as const)
+      .filter((key) => params.get(key))
+      .map((key) => [key, params.get(key)!]),
+  );
+  if (params.get('dilutionCorrection') === 'true') preset.dilutionCorrection = true;
+  if (params.get('stockContainsEmitter') === 'true') preset.stockContainsEmitter = true;
   if (!lab) return <NotYourLab />;
   if (!can(lab.role, 'studies:write')) return <ErrorNotice error={new Error('Your role in this lab reads studies but cannot start them.')} what="the study form" />;
   return (
@@ -27,10 +37,11 @@ export function NewStudyRoute() {
       </header>
       {options.isError && <ErrorNotice error={options.error} what="the lab's compounds" />}
       <Panel title="Set-up">
-        <StudyForm options={options.data} submitLabel="Create study" onSubmit={async (body) => {
+        {!options.data && !options.isError && <p className="text-body text-ink-500">Loading the lab&apos;s compounds…</p>}
+        {options.data && <StudyForm options={options.data} preset={preset} submitLabel="Create study" onSubmit={async (body) => {
           const study = await create.mutateAsync(body);
           await navigate(`/labs/${labId}/studies/${study.id}`);
-        }} />
+        }} />}
       </Panel>
     </div>
   );

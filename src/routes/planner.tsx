@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useParams } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
 import type { TitrationPlanInput, TitrationPlanResult } from '@shared/schemas/planner';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
@@ -10,13 +10,29 @@ import { useDownloadTitrationPlan } from '@/features/planner/api/download-titrat
 import { PlanTable } from '@/features/planner/components/plan-table';
 import { PlannerForm } from '@/features/planner/components/planner-form';
 import { toPlanInput } from '@/features/planner/components/planner-form-schema';
+import { useSession } from '@/features/auth/api/get-session';
 import { describeError } from '@/lib/form-errors';
+import { can } from '@/lib/policy';
+
+/** The new-study form, pre-filled with the plan's volumes and stock and the dilution correction switched on. */
+function studyFromPlan(labId: string, input: TitrationPlanInput): string {
+  const params = new URLSearchParams({
+    initialVolumeMilli: String(input.initialVolume * 1e3),
+    stockMilli: String(input.stockConcentration * 1e3),
+    dilutionCorrection: 'true',
+    stockContainsEmitter: String(Boolean(input.stockContainsEmitter)),
+    ...(input.quencherName ? { title: `Titration with ${input.quencherName}` } : {}),
+  });
+  return `/labs/${labId}/studies/new?${params.toString()}`;
+}
 
 /** Titration planner: the additions that reach each quencher concentration, before any stock is made. */
 export function PlannerRoute() {
   const { labId = '' } = useParams();
   const createPlan = useCreateTitrationPlan(labId);
   const download = useDownloadTitrationPlan(labId);
+  const { user } = useSession();
+  const role = user.labs.find((membership) => membership.labId === labId)?.role;
   const [planned, setPlanned] = useState<{ input: TitrationPlanInput; plan: TitrationPlanResult } | null>(null);
 
   return (
@@ -56,6 +72,11 @@ export function PlannerRoute() {
               <Button variant="quiet" onClick={() => window.print()}>
                 Print
               </Button>
+              {can(role, 'studies:write') && (
+                <Link className="rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300" to={studyFromPlan(labId, planned.input)}>
+                  Start a study from this plan
+                </Link>
+              )}
             </div>
           }
         >

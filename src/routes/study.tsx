@@ -64,6 +64,9 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
         <p className="flex flex-wrap items-center gap-3 text-lead text-ink-700">
           {study.emitter.name} with {study.quencher.name} · {study.solventLabel}, {study.temperature} K, {study.atmosphere} <StatusSignal status={study.status} />
           <span className="text-caption">revision {study.revision} · {study.ownerName}</span>
+          <a className="rounded-md border border-paper-300 bg-paper-50 px-3 py-1 text-body font-bold text-ink-800 hover:border-ink-300" href={`/api/labs/${labId}/studies/${study.id}/report.pdf`}>
+            PDF report
+          </a>
         </p>
         {study.previousRevisionId && <p className="text-caption"><Link className="underline" to={`/labs/${labId}/studies/${study.previousRevisionId}`}>Earlier revision</Link></p>}
         {study.nextRevisionId && <FormAlert tone="note">A newer revision exists: <Link className="underline" to={`/labs/${labId}/studies/${study.nextRevisionId}`}>open it</Link>. This one stays as it was.</FormAlert>}

@@ -97,5 +97,11 @@ describe('deciding who quenches, in Chromium', () => {
     const csv = fs.readFileSync((await download.path())!, 'utf8');
     expect(download.suggestedFilename()).toBe('titration-plan.csv');
     expect(csv.trim().split('\n').at(-1)).toMatch(/^5,10,/);
+
+    await page.getByRole('link', { name: 'Start a study from this plan' }).click();
+    await page.getByRole('heading', { name: 'New quenching study' }).waitFor();
+    await expect(page.getByLabel('Starting volume V0 (mL)').inputValue()).resolves.toBe('2');
+    await expect(page.getByLabel('Stock concentration (mM)').inputValue()).resolves.toBe('50');
+    await expect(page.getByLabel('Dilution (needs volumes added)').isChecked()).resolves.toBe(true);
   });
 });

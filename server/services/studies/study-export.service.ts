@@ -1,21 +1,6 @@
-import { stringify } from 'csv-stringify/sync';
+import { csvTable } from '../../lib/csv-cells';
 import type { LabContext } from '../../middleware/access';
 import { getStudyDetail } from './study.service';
-
-const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
-
-/**
- * Spreadsheet programs run a cell that starts with = + - @ as a formula; such text cells get a
- * leading apostrophe (OWASP "CSV injection" advice). Plain numbers such as -0.5 stay numbers.
- */
-export function neutraliseCell(value: unknown): string {
-  if (value === null || value === undefined) return '';
-  const text = String(value);
-  if (NUMBER.test(text)) return text;
-  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
-}
-
-const table = (rows: unknown[][]) => stringify(rows.map((row) => row.map(neutraliseCell)));
 
 /** The series with raw and corrected values (SI units), the fit's ratio and residual per point. */
 export async function exportPointsCsv(lab: LabContext, studyId: string) {
@@ -28,7 +13,7 @@ export async function exportPointsCsv(lab: LabContext, studyId: string) {
     point.volumeAdded, point.uncertainty, point.excluded ? 'yes' : 'no', point.exclusionReason, point.corrected?.concentration, point.corrected?.intensity,
     used.get(point.position)?.ratio, study.latestFit?.model.startsWith('linear') ? residuals.get(point.position) : '',
   ]);
-  return { fileName: `${slug(study.title)}-points.csv`, body: table([header, ...rows]) };
+  return { fileName: `${slug(study.title)}-points.csv`, body: csvTable([header, ...rows]) };
 }
 
 /** The newest fit: each parameter with SE and 95 % interval, statistics, flags, engine version. */
@@ -49,7 +34,7 @@ export async function exportFitCsv(lab: LabContext, studyId: string) {
     if (fit.result.diffusionLimit) rows.push(['k_diff', fit.result.diffusionLimit.value, '', '', '', 'M^-1 s^-1'], ['kq_over_k_diff', fit.result.diffusionLimit.ratio, '', '', '', '1']);
     for (const flag of fit.result.flags) rows.push(['flag', flag.title, flag.detail ?? '', '', '', '']);
   } else rows.push(['fit', study.fitProblem ?? 'no fit yet', '', '', '', '']);
-  return { fileName: `${slug(study.title)}-fit.csv`, body: table(rows) };
+  return { fileName: `${slug(study.title)}-fit.csv`, body: csvTable(rows) };
 }
 
 const slug = (title: string) => title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'study';

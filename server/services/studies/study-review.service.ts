@@ -22,6 +22,10 @@ export async function reviewStep(sequelize: Sequelize, lab: LabContext, studyId:
     const found = await loadStudy(lab, studyId, transaction);
     if (step === 'submit') requireOwner(found, lab, context.actor.userId);
     else if (!roleAtLeast(lab.role, 'reviewer')) throw new AppError('forbidden', 'Only reviewers and admins approve or return studies.', 403);
+    // A second pair of eyes (common practice in sign-off): nobody approves their own study.
+    if (step === 'approve' && found.ownerId === context.actor.userId) {
+      throw new AppError('own_study', 'You own this study, so another reviewer or admin has to approve it.', 403);
+    }
     if (!found.isCurrent) throw new AppError('superseded', 'A newer revision of this study exists.', 409);
     if (!allowedFrom[step].includes(found.status)) {
       throw new AppError('wrong_status', `A ${found.status} study cannot be ${step === 'submit' ? 'submitted' : step === 'approve' ? 'approved' : 'returned'}.`, 409);

@@ -9,11 +9,20 @@ import { ApiError } from '@/lib/api-client';
 import { describeError } from '@/lib/form-errors';
 import { CUSTOM, fieldOfPath, initialValues, NEW, toBody, type StudyFormValues } from './study-form-values';
 
-interface Props { options: StudyFormOptions | undefined; study?: StudyDetail; submitLabel: string; onSubmit: (body: CreateStudyBody) => Promise<unknown> }
+interface Props {
+  options: StudyFormOptions | undefined;
+  study?: StudyDetail;
+  /** Values to start a new study with, e.g. from the planner or a scenario's missing pair. */
+  preset?: Partial<StudyFormValues>;
+  submitLabel: string;
+  onSubmit: (body: CreateStudyBody) => Promise<unknown>;
+}
 
 /** Study settings: compounds (or new ones by name), solvent and conditions, tau0, corrections. Errors sit beside fields. */
-export function StudyForm({ options, study, submitLabel, onSubmit }: Props) {
-  const { register, handleSubmit, control, setError, formState: { errors, isSubmitting } } = useForm<StudyFormValues>({ defaultValues: initialValues(study) });
+export function StudyForm({ options, study, preset, submitLabel, onSubmit }: Props) {
+  const { register, handleSubmit, control, setError, formState: { errors, isSubmitting } } = useForm<StudyFormValues>({
+    defaultValues: { ...initialValues(study), ...preset },
+  });
   const values = useWatch({ control }) as StudyFormValues;
   const compounds = options?.compounds ?? [];
   const pick = (role: 'photocatalyst' | 'quencher') => [
