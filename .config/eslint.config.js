@@ -29,7 +29,7 @@ export default tseslint.config(
   },
   {
     // The boot script and benchmarks talk to a person on the terminal.
-    files: ['server/index.ts', 'tests/bench/**'],
+    files: ['server/index.ts', 'server/dev.ts', 'tests/bench/**'],
     rules: { 'no-console': 'off' },
   },
   {
