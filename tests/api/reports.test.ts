@@ -30,6 +30,37 @@ beforeAll(async () => {
   await client.signIn({ email: demoPeople[0]!.email, password: demoPassword });
 });
 
+const pdfOf = (url: string) =>
+  client.agent
+    .get(url)
+    .buffer(true)
+    .parse((res, callback) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (chunk: Buffer) => chunks.push(chunk));
+      res.on('end', () => callback(null, Buffer.concat(chunks)));
+    });
+
+describe('lab summary reports', () => {
+  it('when a scenario and a comparison are reported, then their PDFs carry the shares and the table rows', async () => {
+    const study = (await Study.findOne({ where: { labId, isCurrent: true, status: 'approved' } }))!;
+    const scenario = (
+      await client.post(`/api/labs/${labId}/scenarios`, {
+        name: 'Report check', emitterId: study.emitterId, solvent: 'acetonitrile', tau0: 1e-6,
+        components: [{ compoundId: study.quencherId, concentration: 0.02 }],
+      })
+    ).body;
+    const scenarioText = (await pdfText(binary(await pdfOf(`/api/labs/${labId}/scenarios/${scenario.id}/report.pdf`)))).replace(/\s+/g, ' ');
+    expect(scenarioText).toContain('Who quenches: Report check');
+    expect(scenarioText).toContain(`${(scenario.shares[0].fraction * 100).toFixed(1)} %`);
+    expect(scenarioText).toContain(scenario.caution);
+
+    const comparison = (await client.get(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}`)).body;
+    const comparisonText = (await pdfText(binary(await pdfOf(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}/report.pdf`)))).replace(/\s+/g, ' ');
+    expect(comparisonText).toContain(`Comparison: ${comparison.compound.name}`);
+    for (const row of comparison.rows) expect(comparisonText).toContain(row.partner.name);
+  });
+});
+
 describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
   it('when a demo study with a fit is reported, then its PDF text holds the fitted numbers, flags and engine version', async () => {
     const study = await Study.findOne({ where: { labId, isCurrent: true, status: 'approved' } });
@@ -53,6 +84,26 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     expect(text).toContain(`engine ${detail.latestFit.engineVersion}`);
     expect(text).toMatch(/Approved: by .+ on \d{4}-\d{2}-\d{2}/);
     for (const upload of detail.uploads) expect(text).toContain(upload.sha256);
+  });
+
+  it('when a demo study has lifetimes, then the report carries the lifetime K_SV as fitted', async () => {
+    const studies = await Study.findAll({ where: { labId, isCurrent: true } });
+    let withLifetimes: { id: string; kSv: { value: number; standardError: number } } | null = null;
+    for (const study of studies) {
+      const detail = (await client.get(`/api/labs/${labId}/studies/${study.id}`)).body;
+      if (detail.latestFit?.result.lifetime) withLifetimes = { id: study.id, kSv: detail.latestFit.result.lifetime.kSv };
+    }
+    expect(withLifetimes, 'the demo lab has a study with lifetimes').not.toBeNull();
+    const response = await client.agent
+      .get(`/api/labs/${labId}/studies/${withLifetimes!.id}/report.pdf`)
+      .buffer(true)
+      .parse((res, callback) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => callback(null, Buffer.concat(chunks)));
+      });
+    const text = (await pdfText(binary(response))).replace(/\s+/g, ' ');
+    expect(text).toContain(`K_SV from lifetimes: ${sci(withLifetimes!.kSv.value, 4)} ± ${sci(withLifetimes!.kSv.standardError, 2)} M^-1`);
   });
 
   it('when the study is unknown, then 404 in the one error shape', async () => {

@@ -54,3 +54,20 @@ export function drawSternVolmer(doc: Pdf, result: FitResult, concentrationScale 
   doc.x = 50;
   doc.y = residualBox.y + residualBox.height + 30;
 }
+
+/** tau0/tau against [Q] with the line 1 + K_SV(tau)[Q] (Lakowicz, 3rd ed., ch. 8), when lifetimes were measured. */
+export function drawLifetime(doc: Pdf, lifetime: NonNullable<FitResult['lifetime']>, concentrationScale = 1e3): void {
+  if (doc.y > doc.page.height - 250) doc.addPage();
+  const box: Box = { x: 100, y: doc.y + 16, width: 380, height: 150 };
+  const xs = lifetime.points.map((p) => p.x * concentrationScale);
+  const line = (x: number) => 1 + lifetime.kSv.value * (x / concentrationScale);
+  const xRange: [number, number] = [Math.min(0, ...xs), Math.max(...xs)];
+  const ys = [...lifetime.points.map((p) => p.y), line(xRange[0]), line(xRange[1])];
+  const yRange: [number, number] = [Math.min(...ys), Math.max(...ys)];
+  axes(doc, box, xRange, yRange, '[Q] (mM)', 'tau0/tau');
+  const at = (x: number, y: number) => [scale(x, xRange, box.x, box.width), box.y + box.height - scale(y, yRange, 0, box.height)] as const;
+  doc.moveTo(...at(xRange[0], line(xRange[0]))).lineTo(...at(xRange[1], line(xRange[1]))).lineWidth(1.2).strokeColor(glow).stroke();
+  lifetime.points.forEach((p) => doc.circle(...at(p.x * concentrationScale, p.y), 2.6).fill(ink));
+  doc.x = 50;
+  doc.y = box.y + box.height + 30;
+}

@@ -5,7 +5,7 @@ import { drivingForce } from '../library/driving-force.service';
 import { getStudyDetail } from '../studies/study.service';
 import { createReport, facts, finish, fixed, heading, sci, table } from './pdf-document';
 import type { Pdf } from './pdf-document';
-import { drawSternVolmer } from './plot-drawing';
+import { drawLifetime, drawSternVolmer } from './plot-drawing';
 
 const date = (iso: string) => iso.slice(0, 16).replace('T', ' ');
 
@@ -46,6 +46,12 @@ function results(doc: Pdf, study: StudyDetail) {
     ['Fitted', `${date(fit.createdAt)} UTC by ${fit.createdBy ?? 'Halflight'}, engine ${fit.engineVersion}`],
   ]);
   drawSternVolmer(doc, fit.result);
+  if (fit.result.lifetime) {
+    heading(doc, 'Lifetimes');
+    const { kSv, rSquared, verdict } = fit.result.lifetime;
+    doc.text(`K_SV from lifetimes: ${sci(kSv.value, 4)} ± ${sci(kSv.standardError, 2)} M^-1, R^2 ${fixed(rSquared, 5)}${verdict ? `. ${verdict}` : ''}`);
+    drawLifetime(doc, fit.result.lifetime);
+  }
   heading(doc, 'Flags');
   if (fit.result.flags.length === 0) doc.text('None.');
   for (const flag of fit.result.flags) {
