@@ -25,6 +25,9 @@ beforeAll(async () => {
   const flagged = await createStudyRecord({ ...base, title: 'too fast', kq: 5e10 });
   await Study.update({ flagged: true }, { where: { id: flagged.id } });
   studyIds.flagged = flagged.id;
+  // An automatic refit (noise on a dashboard) before the return that should show.
+  await recordAudit({ userId: users.researcher.id, ip: null }, { action: 'study_fitted', labId, targetType: 'study', targetId: studyIds.flagged, details: { trigger: 'auto' } });
+  await recordAudit({ userId: users.researcher.id, ip: null }, { action: 'study_fitted', labId, targetType: 'study', targetId: studyIds.flagged, details: { trigger: 'manual' } });
   await recordAudit({ userId: users.reviewer.id, ip: null }, { action: 'study_returned', labId, targetType: 'study', targetId: studyIds.returned });
 });
 
@@ -38,7 +41,7 @@ describe('GET /api/labs/:labId/dashboard', () => {
     expect(response.body.myReturned).toEqual([]);
     expect(response.body.recentlyFlagged.map((study: { id: string }) => study.id)).toEqual([studyIds.flagged]);
     expect(response.body.recentActivity[0]).toMatchObject({
-      description: 'returned a study with comments', actor: users.reviewer.name, targetId: studyIds.returned,
+      description: 'returned a study with comments “came back”', actor: users.reviewer.name, targetId: studyIds.returned,
     });
   });
 
@@ -50,10 +53,13 @@ describe('GET /api/labs/:labId/dashboard', () => {
     expect(response.body.waitingForMyReview).toEqual([]);
   });
 
-  it('when a viewer opens it, then sign-ins of colleagues are not shown as activity', async () => {
+  it('when a viewer opens it, then sign-ins and automatic refits are left out of the activity', async () => {
     const client = await apiClient(testApp.app);
     await client.signIn(users.viewer);
     const response = await client.get(`/api/labs/${labId}/dashboard`);
-    expect(response.body.recentActivity.every((event: { action: string }) => event.action !== 'sign_in')).toBe(true);
+    expect(response.body.recentActivity.map((event: { description: string }) => event.description)).toEqual([
+      'returned a study with comments “came back”',
+      'fitted a study “too fast”',
+    ]);
   });
 });

@@ -34,6 +34,17 @@ afterAll(async () => {
 });
 
 describe('deciding who quenches, in Chromium', () => {
+  it('when the lab lead lands on the overview, then the dashboard shows reviews waiting, flags and activity', async () => {
+    const submitted = await Study.count({ where: { labId, isCurrent: true, status: 'submitted' } });
+    await page.goto(`${server.baseUrl}/`);
+    const waiting = page.getByRole('region', { name: 'Waiting for your review' });
+    await waiting.waitFor();
+    expect(await waiting.getByRole('listitem').count()).toBe(submitted);
+    await page.getByRole('region', { name: 'Recently flagged' }).waitFor();
+    await page.getByRole('region', { name: 'Recent activity' }).waitFor();
+    await shot('overview-dashboard.png');
+  });
+
   it('when a scenario is built from the demo lab, then the largest share is shown for the right component', async () => {
     // The demo emitter with the most studied quenchers, and two of those quenchers.
     const studies = await Study.findAll({ where: { labId, isCurrent: true, kq: { [Op.ne]: null } } });

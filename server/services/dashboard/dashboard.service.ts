@@ -3,7 +3,7 @@ import type { WhereOptions } from 'sequelize';
 import type { Dashboard, DashboardStudy } from '@shared/schemas/dashboard';
 import { roleAtLeast } from '@shared/schemas/roles';
 import type { LabContext } from '../../middleware/access';
-import { AuditEvent, Compound, Study, User } from '../../models';
+import { AuditEvent, Compound, ReactionScenario, Study, User } from '../../models';
 import { describeActivity } from './describe-activity';
 
 async function studies(where: WhereOptions<Study>, limit = 10): Promise<DashboardStudy[]> {
@@ -30,13 +30,29 @@ async function studies(where: WhereOptions<Study>, limit = 10): Promise<Dashboar
   }));
 }
 
+/** Titles of the studies, compounds and scenarios the events point at, to name them in the activity list. */
+async function targetNames(events: AuditEvent[]): Promise<Map<string, string>> {
+  const idsOf = (type: string) => [...new Set(events.filter((e) => e.targetType === type && e.targetId).map((e) => e.targetId!))];
+  const names = new Map<string, string>();
+  for (const study of await Study.findAll({ where: { id: idsOf('study') }, attributes: ['id', 'title'] })) names.set(`study:${study.id}`, study.title);
+  for (const compound of await Compound.findAll({ where: { id: idsOf('compound') }, attributes: ['id', 'name'] })) names.set(`compound:${compound.id}`, compound.name);
+  for (const scenario of await ReactionScenario.findAll({ where: { id: idsOf('scenario') }, attributes: ['id', 'name'] })) names.set(`scenario:${scenario.id}`, scenario.name);
+  return names;
+}
+
 /** The landing screen of a lab: what waits for me, what came back to me, what looks wrong, what happened. */
 export async function getDashboard(lab: LabContext, userId: string): Promise<Dashboard> {
+  // Sign-ins are not lab news, and the automatic refit after each edit would drown the rest.
   const events = await AuditEvent.findAll({
-    where: { labId: lab.id, action: { [Op.notIn]: ['sign_in', 'sign_in_failed', 'sign_out'] } },
+    where: {
+      labId: lab.id,
+      action: { [Op.notIn]: ['sign_in', 'sign_in_failed', 'sign_out'] },
+      [Op.not]: { action: 'study_fitted', details: { trigger: 'auto' } },
+    } as WhereOptions<AuditEvent>,
     order: [['id', 'DESC']],
     limit: 20,
   });
+  const names = await targetNames(events);
   const actorIds = [...new Set(events.map((event) => event.actorId).filter((id): id is string => id !== null))];
   const actors = new Map((await User.findAll({ where: { id: actorIds }, attributes: ['id', 'name'] })).map((user) => [user.id, user.name]));
   return {
@@ -46,7 +62,7 @@ export async function getDashboard(lab: LabContext, userId: string): Promise<Das
     recentActivity: events.map((event) => ({
       id: Number(event.id),
       action: event.action,
-      description: describeActivity(event),
+      description: describeActivity(event, names.get(`${event.targetType}:${event.targetId}`)),
       actor: event.actorId ? (actors.get(event.actorId) ?? null) : null,
       targetType: event.targetType,
       targetId: event.targetId,

@@ -33,7 +33,11 @@ const phrases: Record<string, string> = {
   scenario_deleted: 'deleted a reaction scenario',
 };
 
-/** An audit event in plain words, e.g. "approved a study"; unknown actions fall back to their code. */
-export function describeActivity(event: Pick<AuditEvent, 'action'>): string {
-  return phrases[event.action] ?? event.action.replace(/_/g, ' ');
+/**
+ * An audit event in plain words, e.g. 'approved a study "Amine screen"'; unknown actions fall
+ * back to their code.
+ */
+export function describeActivity(event: Pick<AuditEvent, 'action'>, targetName?: string): string {
+  const phrase = phrases[event.action] ?? event.action.replace(/_/g, ' ');
+  return targetName ? `${phrase} “${targetName}”` : phrase;
 }
