@@ -5,15 +5,16 @@ import { z } from 'zod';
 import { passwordSchema } from '@shared/schemas/auth';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
-import { TextField } from '@/components/text-field';
 import { TextLink } from '@/components/text-link';
 import { useCompletePasswordReset } from '@/features/auth/api/complete-password-reset';
 import { ApiError } from '@/lib/api-client';
 import { showServerErrors } from '@/lib/form-errors';
+import { NewPasswordFields } from '@/features/auth/components/new-password-fields';
+import { sameTwice } from '@/features/auth/components/same-twice';
 
 const newPasswordSchema = z
   .object({ password: passwordSchema, confirm: z.string() })
-  .refine((values) => values.password === values.confirm, { message: 'The two entries differ.', path: ['confirm'] });
+  .refine(...sameTwice<{ password: string; confirm: string }>('password'));
 
 /** Set a new password from the link in the reset e-mail, then sign in with it. */
 export function ResetPasswordRoute() {
@@ -54,19 +55,10 @@ export function ResetPasswordRoute() {
         <p className="text-body text-ink-700">At least 10 characters. A few unrelated words make a strong one.</p>
       </header>
       <form onSubmit={onSubmit} noValidate className="space-y-4">
-        <TextField
-          label="New password"
-          type="password"
-          autoComplete="new-password"
-          error={errors.password?.message}
-          {...form.register('password')}
-        />
-        <TextField
-          label="New password, once more"
-          type="password"
-          autoComplete="new-password"
-          error={errors.confirm?.message}
-          {...form.register('confirm')}
+        <NewPasswordFields
+          password={form.register('password')}
+          confirm={form.register('confirm')}
+          errors={{ password: errors.password?.message, confirm: errors.confirm?.message }}
         />
         {errors.root?.server && (
           <FormAlert>

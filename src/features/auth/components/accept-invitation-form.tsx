@@ -6,6 +6,8 @@ import type { InvitationPreview, Session } from '@shared/schemas/auth';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { TextField } from '@/components/text-field';
+import { NewPasswordFields } from './new-password-fields';
+import { sameTwice } from './same-twice';
 import { showServerErrors } from '@/lib/form-errors';
 import { useAcceptInvitation } from '../api/accept-invitation';
 
@@ -13,7 +15,7 @@ import { useAcceptInvitation } from '../api/accept-invitation';
 const newAccountSchema = acceptInvitationSchema
   .required({ name: true })
   .extend({ password: passwordSchema, confirm: z.string() })
-  .refine((values) => values.password === values.confirm, { message: 'The two entries differ.', path: ['confirm'] });
+  .refine(...sameTwice<{ password: string; confirm: string }>('password'));
 
 interface AcceptInvitationFormProps {
   token: string;
@@ -76,20 +78,12 @@ function NewAccountForm({ token, onJoined }: FormProps) {
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <TextField label="Your name" autoComplete="name" hint="As your lab mates will see it." error={errors.name?.message} {...form.register('name')} />
-      <TextField
+      <NewPasswordFields
         label="Password"
-        type="password"
-        autoComplete="new-password"
         hint="At least 10 characters."
-        error={errors.password?.message}
-        {...form.register('password')}
-      />
-      <TextField
-        label="Password, once more"
-        type="password"
-        autoComplete="new-password"
-        error={errors.confirm?.message}
-        {...form.register('confirm')}
+        password={form.register('password')}
+        confirm={form.register('confirm')}
+        errors={{ password: errors.password?.message, confirm: errors.confirm?.message }}
       />
       {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
       <Button type="submit" className="w-full" pending={accept.isPending} pendingLabel="Joining…">

@@ -5,13 +5,15 @@ import { changePasswordSchema } from '@shared/schemas/auth';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { TextField } from '@/components/text-field';
+import { NewPasswordFields } from './new-password-fields';
+import { sameTwice } from './same-twice';
 import { ApiError } from '@/lib/api-client';
 import { showServerErrors } from '@/lib/form-errors';
 import { useChangePassword } from '../api/change-password';
 
 const passwordChangeFormSchema = changePasswordSchema
   .extend({ confirm: z.string() })
-  .refine((values) => values.newPassword === values.confirm, { message: 'The two entries differ.', path: ['confirm'] });
+  .refine(...sameTwice<{ newPassword: string; confirm: string }>('newPassword'));
 
 const emptyForm = { currentPassword: '', newPassword: '', confirm: '' };
 
@@ -43,20 +45,11 @@ export function PasswordForm() {
         error={errors.currentPassword?.message}
         {...form.register('currentPassword')}
       />
-      <TextField
-        label="New password"
-        type="password"
-        autoComplete="new-password"
+      <NewPasswordFields
         hint="At least 10 characters."
-        error={errors.newPassword?.message}
-        {...form.register('newPassword')}
-      />
-      <TextField
-        label="New password, once more"
-        type="password"
-        autoComplete="new-password"
-        error={errors.confirm?.message}
-        {...form.register('confirm')}
+        password={form.register('newPassword')}
+        confirm={form.register('confirm')}
+        errors={{ password: errors.newPassword?.message, confirm: errors.confirm?.message }}
       />
       {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
       {change.isSuccess && <FormAlert tone="good">Password changed. Use the new one next time you sign in.</FormAlert>}
