@@ -32,7 +32,7 @@ function receiveFile(req: Request, res: Response): Promise<Express.Multer.File> 
 export const studyUploadRoutes = [
   defineRoute({
     method: 'post', path: '/api/labs/:labId/studies/:studyId/uploads',
-    summary: 'Upload a raw file (multipart field "file"; .csv .tsv .txt .dat .asc .xlsx; 20 MB). Kept as received; answers a preview, saves no points', tags: ['studies'],
+    summary: 'Upload a raw file (multipart field "file"; .csv .tsv .txt .dat .asc .xlsx, JCAMP-DX .jdx .dx; 20 MB). Kept as received; answers a preview, saves no points', tags: ['studies'],
     access: { lab: 'researcher' }, request: { params: studyParamsSchema },
     responses: {
       201: { description: 'Parsed: the table, a proposed mapping and the points it gives', schema: uploadPreviewSchema },

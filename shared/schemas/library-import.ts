@@ -17,7 +17,7 @@ export const libraryRecordKinds = ['compound', 'potential', 'lifetime', 'e00'] a
 
 export const libraryImportSchema = z
   .object({
-    csv: z.string().min(1, 'must not be empty').describe('The file’s text, UTF-8, comma separated, header row first'),
+    csv: z.string().min(1, 'must not be empty').describe('The file’s text, UTF-8, comma separated (or semicolon separated with decimal commas), header row first'),
     dryRun: z.boolean().optional().describe('Only check the file and report; save nothing'),
   })
   .meta({ id: 'LibraryImport' });

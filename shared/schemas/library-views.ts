@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { compoundSummarySchema } from './library';
 import { energySchema, lifetimeSchema, potentialSchema } from './library-measurements';
+import { fitModelSchema } from './studies';
 
 /** One ground-state potential chosen for a computation, in the display reference, with where it came from. */
 export const usedPotentialSchema = z
@@ -55,11 +56,22 @@ export const lifetimeDependentSchema = z
     title: z.string(),
     status: z.string(),
     tau0: z.number().nullable().describe('s, as the study holds it now'),
+    tau0Uncertainty: z.number().nullable().describe('s, as the study holds it now'),
     matchesRecord: z.boolean().describe('False when the record changed after the study took its tau0'),
+    fitModel: fitModelSchema.describe('the study\'s current model, for a refit'),
+    version: z.number().int().describe('send it with PATCH /studies/:studyId'),
+    ownerId: z.string().uuid().nullable().describe('only the owner refits a study'),
+    ownerName: z.string().nullable(),
     updatedAt: z.string(),
   })
   .meta({ id: 'LifetimeDependent' });
 export const lifetimeDependentsSchema = z
-  .object({ lifetimeId: z.string().uuid(), value: z.number().describe('s'), studies: z.array(lifetimeDependentSchema) })
+  .object({
+    lifetimeId: z.string().uuid(),
+    value: z.number().describe('s'),
+    uncertainty: z.number().nullable().describe('s'),
+    studies: z.array(lifetimeDependentSchema),
+  })
   .meta({ id: 'LifetimeDependents' });
 export type LifetimeDependents = z.infer<typeof lifetimeDependentsSchema>;
+export type LifetimeDependent = z.infer<typeof lifetimeDependentSchema>;

@@ -24,11 +24,11 @@ export const seriesMappingSchema = z.object({
   uncertainty: column.nullable(),
 });
 
-/** A spectrum matrix: a wavelength column and one column per sample, its concentration in the header. */
+/** A spectrum matrix (a CSV or a JCAMP-DX file): a wavelength column and one column per sample, its concentration from the header or typed. */
 export const spectrumMappingSchema = z.object({
   layout: z.literal('spectrum'),
   wavelength: column,
-  samples: z.array(z.object({ column, concentration: z.number().finite().min(0, 'cannot be negative (mol/L)') })).min(1),
+  samples: z.array(z.object({ column, concentration: z.number().finite().min(0, 'cannot be negative (mol/L)') })).describe('the spectra used, each with its quencher concentration in mol/L'),
   reduction: z.discriminatedUnion('kind', [
     z.object({ kind: z.literal('window'), start: z.number().finite(), end: z.number().finite() }).describe('trapezoid integral over [start, end] nm'),
     z.object({ kind: z.literal('wavelength'), at: z.number().finite() }).describe('intensity at one wavelength, nm (linear interpolation)'),

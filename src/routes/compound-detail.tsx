@@ -1,3 +1,4 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { useNavigate, useParams } from 'react-router-dom';
 import { ErrorNotice } from '@/components/error-notice';
 import { FormAlert } from '@/components/form-alert';
@@ -17,6 +18,7 @@ import { LifetimesTable } from '@/features/library/components/lifetimes-table';
 import { PairDrivingForce } from '@/features/library/components/pair-driving-force';
 import { PotentialForm } from '@/features/library/components/potential-form';
 import { PotentialsTable } from '@/features/library/components/potentials-table';
+import { studiesKeys } from '@/features/studies/api/studies-keys';
 import { describeError } from '@/lib/form-errors';
 import { can } from '@/lib/policy';
 
@@ -29,6 +31,7 @@ export function CompoundDetailRoute() {
   const settings = useLabSettings(labId);
   const remove = useDeleteMeasurement(labId, compoundId);
   const navigate = useNavigate();
+  const queryClient = useQueryClient();
   if (!lab) return <NotYourLab />;
   if (compound.isPending) return <Signal tone="waiting">Loading the compound</Signal>;
   if (compound.isError) return <ErrorNotice error={compound.error} what="the compound" />;
@@ -53,7 +56,8 @@ export function CompoundDetailRoute() {
       {remove.isError && <FormAlert>{describeError(remove.error)}</FormAlert>}
       <Panel title="Redox potentials" aside={<Signal tone="good">{`shown vs ${data.displayReference}`}</Signal>}>
         <PotentialsTable
-          potentials={data.potentials} displayReference={data.displayReference} canCurate={canCurate}
+          labId={labId} compoundId={data.id} defaultSolvent={solvent} potentials={data.potentials} displayReference={data.displayReference}
+          mayEdit={mayEdit} canCurate={canCurate}
           onDelete={(record) => remove.mutate({ segment: 'potentials', id: record.id, version: record.version })}
         />
         {canAdd && (
@@ -66,17 +70,32 @@ export function CompoundDetailRoute() {
       {isEmitter && <ExcitedStatePanel state={data.excitedState} />}
       {isEmitter && (
         <Panel title="E00 (excited-state energy)">
-          <EnergiesTable energies={data.energies} canCurate={canCurate} onDelete={(record) => remove.mutate({ segment: 'energies', id: record.id, version: record.version })} />
-          {canAdd && <div id="add-e00" className="mt-4 border-t border-paper-200 pt-4"><EnergyForm labId={labId} compoundId={data.id} /></div>}
+          <EnergiesTable
+            labId={labId} compoundId={data.id} energies={data.energies} mayEdit={mayEdit} canCurate={canCurate}
+            onDelete={(record) => remove.mutate({ segment: 'energies', id: record.id, version: record.version })}
+          />
+          {canAdd && (
+            <div id="add-e00" className="mt-4 border-t border-paper-200 pt-4">
+              <h3 className="mb-2 text-body font-bold text-ink-900">Add an E00 value</h3>
+              <EnergyForm labId={labId} compoundId={data.id} />
+            </div>
+          )}
         </Panel>
       )}
       {isEmitter && (
         <Panel title="Excited-state lifetimes">
           <LifetimesTable
-            labId={labId} compoundId={data.id} lifetimes={data.lifetimes} mayEdit={mayEdit} canCurate={canCurate}
+            labId={labId} compoundId={data.id} userId={user.id} defaultSolvent={solvent} lifetimes={data.lifetimes} mayEdit={mayEdit} canCurate={canCurate}
             onDelete={(record) => remove.mutate({ segment: 'lifetimes', id: record.id, version: record.version })}
+            // A refit changes the study's fit and version, which the studies screens keep in their own cache.
+            onStudyRefitted={() => void queryClient.invalidateQueries({ queryKey: studiesKeys.all })}
           />
-          {canAdd && <div className="mt-4 border-t border-paper-200 pt-4"><LifetimeForm labId={labId} compoundId={data.id} defaultSolvent={solvent} /></div>}
+          {canAdd && (
+            <div className="mt-4 border-t border-paper-200 pt-4">
+              <h3 className="mb-2 text-body font-bold text-ink-900">Add a lifetime</h3>
+              <LifetimeForm labId={labId} compoundId={data.id} defaultSolvent={solvent} />
+            </div>
+          )}
         </Panel>
       )}
       <Panel title="Driving force with a partner">

@@ -73,11 +73,12 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
         {study.status === 'approved' && !study.nextRevisionId && <FormAlert tone="good">Approved and locked. A change starts a new revision; this one is kept.</FormAlert>}
       </header>
       <SafetyNotes study={study} />
-      <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+      {/* minmax(0, …): a chart or wide table shrinks to its column instead of widening the column past the window */}
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <Panel title="Stern–Volmer plot" aside={<a className="text-caption underline" href={`/api/labs/${labId}/studies/${study.id}/export.csv?part=points`}>Points as CSV</a>}>
-          {fit ? <SternVolmerPlot plot={fit.result.plot} excluded={excluded} xLabel={fit.model === 'modified' ? '1/[Q] (M⁻¹ × 10⁻³)' : '[Q] (mM)'} xScale={fit.model === 'modified' ? 1e-3 : 1e3} />
+          {fit ? <SternVolmerPlot plot={fit.result.plot} excluded={excluded} xLabel={fit.model === 'modified' ? '1/[Q] (M⁻¹ × 10⁻³)' : '[Q] (mM)'} xScale={fit.model === 'modified' ? 1e-3 : 1e3} studyTitle={study.title} />
             : <p className="text-body text-ink-500">{study.fitProblem ?? 'Add points (type, paste or upload) and the fit appears here.'}</p>}
-          {fit?.result.lifetime && <div className="mt-4"><h3 className="text-body font-bold">Lifetimes</h3><LifetimePlot lifetime={fit.result.lifetime} xLabel="[Q] (mM)" xScale={1e3} /></div>}
+          {fit?.result.lifetime && <div className="mt-4"><h3 className="text-body font-bold">Lifetimes</h3><LifetimePlot lifetime={fit.result.lifetime} xLabel="[Q] (mM)" xScale={1e3} studyTitle={study.title} /></div>}
         </Panel>
         <Panel title="Results" aside={fit && <a className="text-caption underline" href={`/api/labs/${labId}/studies/${study.id}/export.csv?part=fit`}>Fit as CSV</a>}>
           {study.fitProblem && <FormAlert>{study.fitProblem}</FormAlert>}
@@ -94,7 +95,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
         {editing ? <StudyForm options={options.data} study={study} submitLabel="Save set-up" onSubmit={(body) => update.mutateAsync({ ...body, version: study.version })} />
           : <SetupSummary study={study} />}
       </Panel>
-      <div className="grid gap-6 lg:grid-cols-2">
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <Panel title="Review"><ReviewPanel labId={labId} study={study} isOwner={isOwner} canReview={canReview} canWrite={canWrite} /></Panel>
         <Panel title="Files"><FilesList labId={labId} studyId={study.id} uploads={study.uploads} /></Panel>
       </div>

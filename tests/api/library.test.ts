@@ -117,3 +117,25 @@ describe('GET /api/labs/:labId/compounds/:compoundId (excited-state potentials)'
     expect((await researcher.get(`/api/labs/${labId}/compounds/${compound.id}`)).body.energies).toEqual([]);
   });
 });
+
+describe('POST /api/labs/:labId/compounds/import', () => {
+  it('when the file is ";"-separated with decimal commas, then the numbers are read as written and saved', async () => {
+    const { labId, researcher } = await labWith();
+    // As a spreadsheet with German regional settings saves it (common practice: ';' between cells, ',' as decimal sign).
+    const csv = ['record;compound;role_hint;couple;potential_v;reference;kind;solvent;lifetime_s;atmosphere;method;electrolyte',
+      'compound;Semi-Ir-1;photocatalyst;;;;;;;;;', 'potential;Semi-Ir-1;;oxidation;1,21;SCE;half-wave;acetonitrile;;;;0,1 M Bu4NPF6',
+      'lifetime;Semi-Ir-1;;;;;;acetonitrile;1,9e-6;argon;TCSPC;'].join('\r\n');
+    const saved = await researcher.post(`/api/labs/${labId}/compounds/import`, { csv });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(201);
+    expect(saved.body).toMatchObject({ saved: true, counts: { compounds: 1, potentials: 1, lifetimes: 1 } });
+    const [item] = (await researcher.get(`/api/labs/${labId}/compounds?search=Semi-Ir-1`)).body.items;
+    const compound = (await researcher.get(`/api/labs/${labId}/compounds/${item.id}`)).body;
+    expect(compound.potentials[0]).toMatchObject({ value: 1.21, reference: 'SCE', electrolyte: '0,1 M Bu4NPF6' });
+    expect(compound.lifetimes[0].value).toBe(1.9e-6);
+
+    // Grouped thousands are not a decimal comma: the cell stays text and the row is reported.
+    const grouped = csv.replace('1,21', '1.210,5').replaceAll('Semi-Ir-1', 'Semi-Ir-2');
+    const refused = await researcher.post(`/api/labs/${labId}/compounds/import`, { csv: grouped, dryRun: true });
+    expect(refused.body.problems).toEqual([expect.objectContaining({ row: 3, column: 'potential_v' })]);
+  });
+});

@@ -14,12 +14,35 @@ let labId = '';
 const fixture = path.join(import.meta.dirname, '../fixtures/uploads/series-comma-mM.csv');
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(screenshotDir, name), fullPage: true });
 
+/** At 1400 x 900 the study screen fits the window's width: no panel or grid column cut off on the right. */
+async function expectFitsWindow(page: Page, name: string) {
+  await page.setViewportSize({ width: 1400, height: 900 });
+  await page.screenshot({ path: path.join(screenshotDir, name) });
+  const overflow = await page.evaluate(() => ({
+    page: document.documentElement.scrollWidth,
+    window: window.innerWidth,
+    past: [...document.querySelectorAll('main *')].filter((element) => element.getBoundingClientRect().right > window.innerWidth + 1)
+      .slice(0, 5).map((element) => `${element.tagName.toLowerCase()}.${String(element.className)}`),
+  }));
+  expect(overflow.page, `wider than the window: ${overflow.past.join(' | ')}`).toBeLessThanOrEqual(overflow.window);
+}
+
 async function signIn(page: Page, user: { email: string; password: string }) {
   await page.goto(`${server.baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(user.email);
   await page.getByLabel('Password').fill(user.password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
+}
+
+async function fillStudyForm(page: Page, title: string, tag: string) {
+  await page.getByRole('link', { name: 'New study' }).click();
+  await page.getByLabel('Title').fill(title);
+  await page.getByLabel('Emitter', { exact: true }).selectOption({ label: '+ a new compound…' });
+  await page.getByLabel('New emitter name').fill(`E2E-Ir-${tag}`);
+  await page.getByLabel('Quencher', { exact: true }).selectOption({ label: '+ a new compound…' });
+  await page.getByLabel('New quencher name').fill(`E2E-amine-${tag}`);
+  await page.getByLabel('τ0 (ns)').fill('1000');
 }
 
 beforeAll(async () => {
@@ -43,13 +66,7 @@ describe('studies in Chromium', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
     await page.getByRole('heading', { name: 'Studies', level: 1 }).waitFor();
     await page.getByText('No studies match').waitFor();
-    await page.getByRole('link', { name: 'New study' }).click();
-    await page.getByLabel('Title').fill('E2E amine titration');
-    await page.getByLabel('Emitter', { exact: true }).selectOption({ label: '+ a new compound…' });
-    await page.getByLabel('New emitter name').fill('E2E-Ir-1');
-    await page.getByLabel('Quencher', { exact: true }).selectOption({ label: '+ a new compound…' });
-    await page.getByLabel('New quencher name').fill('E2E-amine-1');
-    await page.getByLabel('τ0 (ns)').fill('1000');
+    await fillStudyForm(page, 'E2E amine titration', '1');
     await shot(page, 'study-form.png');
     await page.getByRole('button', { name: 'Create study' }).click();
     await page.getByRole('heading', { name: 'E2E amine titration', level: 1 }).waitFor();
@@ -58,11 +75,13 @@ describe('studies in Chromium', () => {
     await page.getByRole('table', { name: 'Parsed table' }).waitFor();
     await expect.poll(() => page.getByLabel('Points from the file').textContent()).toContain('6 points');
     await shot(page, 'study-upload-preview.png');
+    await expectFitsWindow(page, 'study-upload-preview-1400x900.png');
     await page.getByRole('button', { name: 'Use these points' }).click();
     await expect.poll(async () => (await page.getByLabel('K_SV', { exact: true }).textContent()) ?? '').toMatch(/^500 ± /);
     await expect.poll(async () => (await page.getByLabel('kq', { exact: true }).textContent()) ?? '').toMatch(/^5\.00 × 10⁸ ± /);
     await page.getByRole('figure', { name: 'Stern–Volmer plot' }).waitFor();
     await shot(page, 'study-fitted.png');
+    await expectFitsWindow(page, 'study-fitted-1400x900.png');
     await page.getByRole('button', { name: 'Submit for review' }).click();
     await page.getByText('Awaiting review').first().waitFor();
     await page.close();
@@ -79,5 +98,32 @@ describe('studies in Chromium', () => {
     await reviewerPage.getByRole('link', { name: 'E2E amine titration' }).waitFor();
     await shot(reviewerPage, 'studies-list.png');
     await reviewerPage.close();
+  });
+
+  it('when the plots are saved as PNG, then each download is a PNG named after the study', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signIn(page, people.researcher);
+    await page.goto(`${server.baseUrl}/labs/${labId}/studies`);
+    await fillStudyForm(page, 'E2E figures: Ir/amine', '2');
+    await page.getByRole('button', { name: 'Create study' }).click();
+    await page.getByRole('heading', { name: 'E2E figures: Ir/amine', level: 1 }).waitFor();
+    // invented series with lifetimes: I0/I = tau0/tau = 1 + 1000 [Q] (tests/fixtures/uploads/README.md)
+    await page.getByLabel(/Instrument file/).setInputFiles(path.join(import.meta.dirname, '../fixtures/uploads/series-semicolon-decimal-comma-bom.csv'));
+    await page.getByRole('button', { name: 'Use these points' }).click();
+    await page.getByRole('figure', { name: 'Lifetime plot' }).waitFor();
+    const figures: Array<[string, string]> = [['Stern–Volmer plot', 'stern-volmer'], ['residual plot', 'residuals'], ['lifetime plot', 'lifetimes']];
+    for (const [what, suffix] of figures) {
+      const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: `Save the ${what} as PNG` }).click()]);
+      expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}.png`);
+      const saved = path.join(screenshotDir, `figure-${suffix}.png`);
+      await download.saveAs(saved);
+      const bytes = fs.readFileSync(saved);
+      // PNG signature (PNG specification, ISO/IEC 15948, section 5.2): 89 50 4E 47 0D 0A 1A 0A
+      expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+      expect(bytes.length).toBeGreaterThan(2000); // a drawn chart, not an empty canvas
+    }
+    await shot(page, 'study-figures.png');
+    await expectFitsWindow(page, 'study-figures-1400x900.png');
+    await page.close();
   });
 });

@@ -22,11 +22,27 @@ export const numericColumns = new Set<LibraryCsvColumn>([
   'triplet_energy_ev', 'charge', 'potential_v', 'lifetime_s', 'uncertainty_s', 'temperature_k', 'e00_ev', 'wavelength_nm',
 ]);
 
-/** A cell as the schema wants it: empty → absent, numeric columns → number (or the text, which the schema refuses). */
-export function cellValue(column: LibraryCsvColumn, raw: string | undefined): unknown {
+/**
+ * The separator of the file, read from its header line: ';' when the header has semicolons and
+ * no commas (spreadsheets set to a decimal-comma locale save CSV so), else ','.
+ */
+export function csvDelimiter(csv: string): ',' | ';' {
+  const header = csv.replace(/^\uFEFF/, '').split(/\r?\n/, 1)[0] ?? '';
+  return header.includes(';') && !header.includes(',') ? ';' : ',';
+}
+
+// One comma between digits, as in "-1,05" or "2,5e-6"; "1.234,5" (grouped thousands) stays text for the schema to refuse.
+const decimalCommaNumber = /^[-+]?\d+,\d+(e[-+]?\d+)?$/i;
+
+/**
+ * A cell as the schema wants it: empty → absent, numeric columns → number (or the text, which the
+ * schema refuses). In a ';'-separated file a decimal comma is read as the decimal point.
+ */
+export function cellValue(column: LibraryCsvColumn, raw: string | undefined, decimalComma = false): unknown {
   const value = restoreCell((raw ?? '').trim());
   if (value === '') return undefined;
   if (!numericColumns.has(column)) return value;
-  const number = Number(value);
+  const written = decimalComma && decimalCommaNumber.test(value) ? value.replace(',', '.') : value;
+  const number = Number(written);
   return Number.isFinite(number) ? number : value;
 }

@@ -12,15 +12,15 @@ import type { LabContext } from '../../middleware/access';
 import { Compound, ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { Actor } from '../audit.service';
-import { cellValue, fieldColumns } from './library-csv';
+import { cellValue, csvDelimiter, fieldColumns } from './library-csv';
 
 type Kind = (typeof libraryRecordKinds)[number];
 const schemas = { compound: compoundInputSchema, potential: potentialInputSchema, lifetime: lifetimeInputSchema, e00: energyInputSchema };
 interface Planned { kind: Kind; compound: string; values: Record<string, unknown> }
 
-function readRows(csv: string, problems: ImportProblem[]) {
+function readRows(csv: string, delimiter: ',' | ';', problems: ImportProblem[]) {
   try {
-    return parse(csv, { columns: true, skip_empty_lines: true, relax_column_count: true, bom: true, info: true }) as Array<{
+    return parse(csv, { delimiter, columns: true, skip_empty_lines: true, relax_column_count: true, bom: true, info: true }) as Array<{
       record: Record<string, string>;
       info: { lines: number };
     }>;
@@ -34,7 +34,8 @@ function readRows(csv: string, problems: ImportProblem[]) {
 /** Checks every row against the same schemas the forms use; nothing is written here. */
 function planImport(csv: string, existing: Map<string, string>) {
   const problems: ImportProblem[] = [];
-  const rows = readRows(csv, problems);
+  const delimiter = csvDelimiter(csv);
+  const rows = readRows(csv, delimiter, problems);
   const header = Object.keys(rows[0]?.record ?? {});
   for (const column of header) {
     if (!(libraryCsvColumns as readonly string[]).includes(column)) problems.push({ row: 1, column, reason: 'is not a column of the library file' });
@@ -53,7 +54,7 @@ function planImport(csv: string, existing: Map<string, string>) {
       continue;
     }
     const map = fieldColumns[kind] as Record<string, LibraryCsvColumn>;
-    const input = Object.fromEntries(Object.entries(map).map(([field, column]) => [field, cellValue(column, record[column])]));
+    const input = Object.fromEntries(Object.entries(map).map(([field, column]) => [field, cellValue(column, record[column], delimiter === ';')]));
     const parsed = (schemas[kind] as z.ZodType).safeParse(input);
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {

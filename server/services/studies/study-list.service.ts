@@ -8,8 +8,9 @@ const escapeLike = (text: string) => text.replace(/[\\%_]/g, '\\$&');
 
 /**
  * One page of the lab's current study revisions with a total count. Every filter maps to an
- * index of migration 0005 (lab_id first, current revisions only); text search uses the trigram
- * index on title || ' ' || notes.
+ * index of migration 0005 (lab_id first, current revisions only), the kq and K_SV sorts to those
+ * of migration 0008 (same NULLS LAST and id tie-breaker as the ORDER BY below); text search uses
+ * the trigram index on title || ' ' || notes.
  */
 export async function listStudies(lab: LabContext, query: ListStudiesQuery): Promise<StudyList> {
   const where: WhereOptions<Study> & Record<string | symbol, unknown> = { labId: lab.id, isCurrent: true };

@@ -10,8 +10,9 @@ import { recordAudit, type Actor } from '../audit.service';
 import { computeStudyFit } from './fit/compute-study-fit';
 import { applyMapping } from './parse/apply-mapping';
 import { ParseProblem } from './parse/parse-problem';
-import { proposeMapping } from './parse/propose-mapping';
+import { mappingNotes, proposeMapping } from './parse/propose-mapping';
 import { readUpload } from './parse/read-upload';
+import { cachedTable, rememberTable } from './parse/table-cache';
 import type { RawTable } from './parse/read-text-table';
 import { loadStudy, requireChangeable, requireEditable, requireOwner } from './study-access';
 import { seriesOf } from './study-fitting.service';
@@ -24,8 +25,12 @@ const problemDetails = (problems: ParseProblem[]) =>
 const unreadable = (problems: ParseProblem[], uploadId: string) =>
   new AppError('upload_unreadable', `${problems[0]!.message}${problems.length > 1 ? ` (and ${problems.length - 1} more problem${problems.length > 2 ? 's' : ''})` : ''} The file is kept (upload ${uploadId}); fix it or choose another mapping.`, 422, problemDetails(problems));
 
-async function findUpload(lab: LabContext, studyId: string, uploadId: string) {
-  const upload = await StudyUpload.findOne({ where: { id: uploadId, studyId, labId: lab.id }, include: [{ model: User, as: 'uploadedBy', attributes: ['name'] }] });
+/** The upload without its bytes unless asked for (a 10 MB file takes a while to read back; a kept table needs none). */
+async function findUpload(lab: LabContext, studyId: string, uploadId: string, withContent = false) {
+  const upload = await StudyUpload.findOne({
+    where: { id: uploadId, studyId, labId: lab.id }, include: [{ model: User, as: 'uploadedBy', attributes: ['name'] }],
+    attributes: withContent ? undefined : { exclude: ['content'] },
+  });
   if (!upload) throw new AppError('not_found', 'No upload with this id in this study.', 404);
   return upload;
 }
@@ -40,14 +45,18 @@ function preview(upload: StudyUpload, table: RawTable | null, mapping: UploadMap
     mapping,
     points,
     problems: problems.map((problem) => ({ row: problem.row, column: problem.column, message: problem.message })),
-    warnings: [],
+    warnings: table && mapping ? mappingNotes(table, mapping) : [],
   };
 }
 
 /** Reads a file into table + points; a ParseProblem (not other errors) becomes a list of problems. */
-async function readWith(fileName: string, bytes: Buffer, mapping: UploadMapping | null) {
+async function readWith(fileName: string, bytes: Buffer | (() => Promise<Buffer>), sha256: string, mapping: UploadMapping | null) {
   try {
-    const table = await readUpload(fileName, bytes);
+    let table = cachedTable(fileName, sha256);
+    if (!table) {
+      table = await readUpload(fileName, Buffer.isBuffer(bytes) ? bytes : await bytes());
+      rememberTable(fileName, sha256, table);
+    }
     const chosen = mapping ?? proposeMapping(table);
     const { points, problems } = applyMapping(table, chosen);
     return { table, mapping: chosen, points, problems };
@@ -70,7 +79,7 @@ export async function receiveUpload(sequelize: Sequelize, lab: LabContext, study
   if (earlier) {
     throw new AppError('duplicate_upload', `These exact bytes were uploaded to this study already as "${earlier.fileName}" on ${earlier.createdAt.toISOString().slice(0, 10)}.`, 409, [{ path: 'file', message: `same SHA-256 as upload ${earlier.id}` }]);
   }
-  const read = await readWith(file.originalname, file.buffer, null);
+  const read = await readWith(file.originalname, file.buffer, sha256, null);
   const failed = read.problems.length > 0;
   const upload = await sequelize.transaction(async (transaction) => {
     const created = await StudyUpload.create({
@@ -85,10 +94,13 @@ export async function receiveUpload(sequelize: Sequelize, lab: LabContext, study
   return preview(upload, read.table, read.mapping, read.points, []);
 }
 
+/** The kept bytes of an upload found without them. */
+const contentOf = (upload: StudyUpload) => async () => (await StudyUpload.findByPk(upload.id, { attributes: ['content'], rejectOnEmpty: true })).content;
+
 /** The table read again with another mapping (a spectrum window, other columns, units). */
 export async function previewUpload(lab: LabContext, studyId: string, uploadId: string, mapping: UploadMapping): Promise<UploadPreview> {
   const upload = await findUpload(lab, studyId, uploadId);
-  const read = await readWith(upload.fileName, upload.content, mapping);
+  const read = await readWith(upload.fileName, contentOf(upload), upload.sha256, mapping);
   return preview(upload, read.table, read.mapping, read.points, read.problems);
 }
 
@@ -98,8 +110,11 @@ export async function applyUpload(sequelize: Sequelize, lab: LabContext, studyId
     const study = await loadStudy(lab, studyId, transaction);
     requireChangeable(study, lab, actor.userId, input.version);
     const upload = await findUpload(lab, studyId, uploadId);
-    const read = await readWith(upload.fileName, upload.content, input.mapping);
+    const read = await readWith(upload.fileName, contentOf(upload), upload.sha256, input.mapping);
     if (read.problems.length > 0) throw unreadable(read.problems, upload.id);
+    if (read.points.length === 0) {
+      throw new AppError('no_points', 'Nothing was saved: this mapping gives no points; give the quencher concentration of at least one spectrum.', 422, [{ path: 'body.mapping.samples', message: 'empty' }]);
+    }
     const isRatio = input.mapping.layout === 'series' && input.mapping.intensityIsRatio;
     const existing = input.mode === 'append' ? await StudyPoint.findAll({ where: { studyId }, order: [['position', 'ASC']], transaction }) : [];
     if (existing.length > 0 && isRatio !== (study.dataKind === 'ratio')) {
@@ -122,6 +137,6 @@ export async function applyUpload(sequelize: Sequelize, lab: LabContext, studyId
 }
 
 export async function downloadUpload(lab: LabContext, studyId: string, uploadId: string) {
-  const upload = await findUpload(lab, studyId, uploadId);
+  const upload = await findUpload(lab, studyId, uploadId, true);
   return { fileName: upload.fileName, mediaType: upload.mediaType, content: upload.content };
 }

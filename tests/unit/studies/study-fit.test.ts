@@ -88,3 +88,31 @@ describe('corrections', () => {
     expect(corrected.intensity).toBeCloseTo(2 / 1.18850, 4);
   });
 });
+
+describe('lifetimes with the dilution correction on', () => {
+  // DESIGN.md 4.3: [Q] = c_stock V_added / (V0 + V_added), I_corr = I_obs (V0 + V_added) / V0. V0 = 2.000 mL,
+  // 0.100 M stock, cumulative additions 0, 20, 40, 60, 80 µL. Hand-computed (7 significant digits):
+  //   [Q] = 0, 9.900990e-4, 1.960784e-3, 2.912621e-3, 3.846154e-3 M
+  //   tau = 1 µs / (1 + 500 [Q]) = 1000, 668.8742, 504.9505, 407.1146, 342.1053 ns
+  //   I_obs = 1000 / (1 + 500 [Q]) * V0 / (V0 + V_added) = 1000, 662.2517, 495.0495, 395.2569, 328.9474
+  // The nominal (undiluted) [Q] = c_stock V_added / V0 = 0, 1, 2, 3, 4 mM is stored as the raw concentration.
+  const added = [0, 20e-6, 40e-6, 60e-6, 80e-6];
+  const lifetimesNs = [1000, 668.8742, 504.9505, 407.1146, 342.1053];
+  const observed = [1000, 662.2517, 495.0495, 395.2569, 328.9474];
+  const diluted = added.map((volume, i) => point(i, i * 1e-3, observed[i]!, { volumeAdded: volume, lifetime: lifetimesNs[i]! * 1e-9 }));
+  const dilution = { ...settings, tau0: null, dilutionCorrection: true, initialVolume: 2e-3, stockConcentration: 0.1 };
+
+  it('when lifetimes are fitted, then their [Q] are the diluted ones and tau0/tau gives 500 M^-1 like the intensities', () => {
+    const fit = computeStudyFit(dilution, diluted, 'linear-free');
+    const lifetime = fit.result.lifetime!;
+    expect(lifetime.points.map((p) => p.x)).toEqual([0, 9.900990e-4, 1.960784e-3, 2.912621e-3, 3.846154e-3].map((q) => expect.closeTo(q, 9)));
+    expect(lifetime.kSv.value).toBeCloseTo(500, 1); // the raw 0–4 mM would give about 481 M^-1
+    expect(fit.kSv).toBeCloseTo(500, 1);
+    expect(lifetime.verdict).toMatch(/dynamic quenching/);
+  });
+
+  it('when the dilution correction is off, then the lifetimes keep the stored concentrations', () => {
+    const fit = computeStudyFit({ ...dilution, dilutionCorrection: false }, diluted, 'linear-free');
+    expect(fit.result.lifetime!.points.map((p) => p.x)).toEqual([0, 1e-3, 2e-3, 3e-3, 4e-3]);
+  });
+});

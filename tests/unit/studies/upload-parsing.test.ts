@@ -101,4 +101,14 @@ describe('spectrum reduction', () => {
     expect(valueAt([500, 510], [100, 200], 504)).toBeCloseTo(140, 12);
     expect(() => valueAt([500, 510], [1, 2], 520)).toThrow(/outside the spectrum/);
   });
+  it('when the readings come in descending or shuffled order, then the integral is the same (trapezoid of 2x over 1.5..3.5 = 10, hand-computed)', () => {
+    expect(integrateWindow([4, 3, 2, 1], [8, 6, 4, 2], 1.5, 3.5)).toBeCloseTo(10, 12);
+    expect(integrateWindow([3, 1, 4, 2], [6, 2, 8, 4], 1.5, 3.5)).toBeCloseTo(10, 12);
+  });
+  it('when a long spectrum is integrated, then the trapezoid sum matches the exact integral of a straight line', () => {
+    // y = 3x + 1 over 400..800 nm read every 0.1 nm: exact integral 1.5 (700^2 - 450^2) + (700 - 450) = 431,500 (hand-computed)
+    const x = Array.from({ length: 4001 }, (_, i) => 400 + i / 10);
+    expect(integrateWindow(x, x.map((value) => 3 * value + 1), 450.05, 700)).toBeCloseTo(1.5 * (700 ** 2 - 450.05 ** 2) + (700 - 450.05), 6);
+    expect(valueAt(x, x.map((value) => 3 * value + 1), 612.34)).toBeCloseTo(3 * 612.34 + 1, 9);
+  });
 });

@@ -69,7 +69,9 @@ export function computeStudyFit(settings: FitSettings, points: readonly SeriesPo
   const ratios = isRatio ? values : values.map((value) => i0.value / value);
   const sigmaRatios = sigmas && (isRatio ? sigmas : sigmas.map((sigma, i) => (ratios[i]! * sigma) / values[i]!));
 
-  const lifetime = lifetimeAnalysis(included, settings.tau0, notes);
+  // Lifetimes need no intensity correction, but their [Q] is diluted like the intensities' (DESIGN.md 4.3).
+  const lifetimeSeries = included.map((point) => ({ concentration: correctPoint(settings, point, isRatio)?.concentration ?? point.concentration, lifetime: point.lifetime }));
+  const lifetime = lifetimeAnalysis(lifetimeSeries, settings.tau0, notes);
   const tau0 = tau0For(settings, lifetime?.tau0 ?? null);
   const limit = diffusionLimitFor(settings, notes);
   const parameters: Record<string, ParameterEstimate> = {};

@@ -3,6 +3,7 @@ import type { SeriesMapping, SpectrumMapping, UploadMapping } from '@shared/sche
 import { CONCENTRATION_FACTORS, TIME_FACTORS, VOLUME_FACTORS } from './header-units';
 import { parseCellNumber } from './parse-number';
 import { cellProblem, ParseProblem } from './parse-problem';
+import { columnNumbers } from './column-numbers';
 import type { RawTable } from './read-text-table';
 import { integrateWindow, valueAt } from './reduce-spectrum';
 
@@ -70,23 +71,40 @@ function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParsePr
 function spectrumPoints(table: RawTable, mapping: SpectrumMapping, problems: ParseProblem[]): StudyPointValues[] {
   requireColumn(table, mapping.wavelength, 'the wavelength');
   for (const sample of mapping.samples) requireColumn(table, sample.column, 'a sample');
-  const number = (row: RawTable['rows'][number], index: number, expected: string) => {
-    const text = row.cells[index] ?? '';
-    const value = parseCellNumber(text, table.decimalComma);
-    if (value === null || value === undefined) {
-      if (problems.length < MAX_PROBLEMS) problems.push(cellProblem(row.line, columnName(table, index), expected, text));
-      return Number.NaN;
-    }
-    return value;
+  // Cells are read through columnNumbers (once per table) and walked with loops: a spectrum matrix holds a million cells.
+  const column = (index: number, expected: string) => {
+    const values = columnNumbers(table, index);
+    return (i: number) => {
+      const value = values[i];
+      if (value === null || value === undefined) {
+        if (problems.length < MAX_PROBLEMS) problems.push(cellProblem(table.rows[i]!.line, columnName(table, index), expected, table.rows[i]!.cells[index] ?? ''));
+        return Number.NaN;
+      }
+      return value;
+    };
   };
-  const wavelengths = table.rows.map((row) => number(row, mapping.wavelength, 'a wavelength in nm'));
-  const columns = mapping.samples.map((sample) => table.rows.map((row) => number(row, sample.column, 'an intensity')));
+  // A file whose spectra name no concentration is still readable: the preview asks for them (mappingNotes).
+  if (mapping.samples.length === 0) return [];
+  const wavelengthOf = column(mapping.wavelength, 'a wavelength in nm');
+  const wavelengths = table.rows.map((_, i) => wavelengthOf(i));
+  const spectra = mapping.samples.map((sample) => {
+    const intensityOf = column(sample.column, 'an intensity');
+    const x: number[] = [];
+    const y: number[] = [];
+    table.rows.forEach((row, i) => {
+      // Spectra on different grids (JCAMP-DX blocks) leave blanks where a spectrum was not measured.
+      if (table.blankIsUnmeasured && (row.cells[sample.column] ?? '').trim() === '') return;
+      x.push(wavelengths[i]!);
+      y.push(intensityOf(i));
+    });
+    return { x, y };
+  });
   if (problems.length > 0) return [];
   return mapping.samples.map((sample, i) => ({
     concentration: sample.concentration,
     intensity: mapping.reduction.kind === 'window'
-      ? integrateWindow(wavelengths, columns[i]!, mapping.reduction.start, mapping.reduction.end)
-      : valueAt(wavelengths, columns[i]!, mapping.reduction.at),
+      ? integrateWindow(spectra[i]!.x, spectra[i]!.y, mapping.reduction.start, mapping.reduction.end)
+      : valueAt(spectra[i]!.x, spectra[i]!.y, mapping.reduction.at),
     lifetime: null,
     absorbanceExcitation: null,
     absorbanceEmission: null,

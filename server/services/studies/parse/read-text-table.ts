@@ -8,6 +8,10 @@ export interface RawTable {
   rows: Array<{ line: number; cells: string[] }>;
   decimalComma: boolean;
   format: string;
+  /** the reader knows the layout (JCAMP-DX spectra), so the mapping need not guess from headers */
+  layoutHint?: 'spectrum';
+  /** spectra on different wavelength grids: a blank intensity cell means "not measured there" */
+  blankIsUnmeasured?: boolean;
 }
 
 type Delimiter = ',' | ';' | '\t' | 'whitespace';
@@ -67,8 +71,8 @@ export function readTextTable(bytes: Buffer): RawTable {
       throw new ParseProblem(`The text could not be split into columns: ${(error as Error).message}`);
     }
   }
-  const dataCells = records.slice(1).flatMap((record) => record.cells);
-  const decimalComma = delimiter !== ',' && dataCells.some(looksLikeDecimalComma);
+  // A comma-separated file cannot use decimal commas; only the others are searched (cell by cell, no copy).
+  const decimalComma = delimiter !== ',' && records.slice(1).some((record) => record.cells.some(looksLikeDecimalComma));
   const hasHeader = !isNumberRow(records[0]!.cells, decimalComma);
   const headers = hasHeader ? records[0]!.cells.map((cell) => cell.trim()) : records[0]!.cells.map((_, i) => `column ${i + 1}`);
   const rows = hasHeader ? records.slice(1) : records;

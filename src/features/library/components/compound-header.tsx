@@ -28,7 +28,7 @@ export function CompoundHeader({ labId, labName, isDemo, compound, mayEdit, canC
   const update = useUpdateCompound(labId, compound.id);
   const remove = useDeleteCompound(labId, compound.id);
   const facts = [compound.formula, compound.emissiveState && `emissive state ${compound.emissiveState}`,
-    compound.tripletEnergy !== null && `E_T ${compound.tripletEnergy.toFixed(2)} eV`, compound.charge !== 0 && `charge ${compound.charge > 0 ? '+' : ''}${compound.charge}`]
+    compound.tripletEnergy !== null && `triplet energy ${compound.tripletEnergy.toFixed(2)} eV`, compound.charge !== 0 && `charge ${compound.charge > 0 ? '+' : ''}${compound.charge}`]
     .filter(Boolean).join(' · ');
   return (
     <header className="space-y-2">

@@ -48,7 +48,7 @@ function DrivingForceBody({ labId, result, onPin }: { labId: string; result: Dri
   return (
     <div className="space-y-4">
       <p className="text-body text-ink-700">
-        {result.emitter.name} with {result.quencher.name} in {solventName(result.solvent)}; potentials against {result.reference}. dG_ET = e[E(D+/D) − E(A/A−)] − E00, the Coulomb term w shown apart.
+        {result.emitter.name} with {result.quencher.name} in {solventName(result.solvent)}; potentials against {result.reference}. ΔG<sub>ET</sub> = e[E(D+/D) − E(A/A−)] − E00, with the Coulomb term w shown apart.
       </p>
       <div className="grid gap-3 md:grid-cols-2">
         {(['oxidative', 'reductive'] as const).map((pathway) => (
@@ -86,7 +86,7 @@ function PathwayCard({ pathway, result, missing, labId, onPin }: CardProps) {
       <p className="text-caption text-ink-500">{pathwayWords[pathway].says}</p>
       {value ? (
         <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-body">
-          <dt className="text-ink-600">dG_ET</dt>
+          <dt className="text-ink-600">ΔG<sub>ET</sub></dt>
           <dd className="font-bold text-ink-950">{formatElectronvolts(value.electronvolts)} <span className="font-normal text-ink-600">({formatKilojoules(value.kilojoulesPerMole)})</span></dd>
           <dt className="text-ink-600">Coulomb term w</dt>
           <dd>{formatElectronvolts(value.workTerm)} <span className="text-caption text-ink-500">(with w: {formatElectronvolts(value.withWorkTerm)})</span></dd>

@@ -7,9 +7,15 @@ export const formatElectronvolts = (value: number, signed = true) =>
   `${signed ? (value >= 0 ? '+' : '−') : ''}${Math.abs(value).toFixed(2)} eV`;
 export const formatKilojoules = (value: number) => `${value >= 0 ? '+' : '−'}${Math.abs(value).toFixed(1)} kJ/mol`;
 
-/** Lifetimes stored in s, read in ns below 1 µs and in µs above. */
-export function formatLifetime(seconds: number): string {
-  return seconds < 1e-6 ? `${(seconds * 1e9).toPrecision(3)} ns` : `${(seconds * 1e6).toPrecision(3)} µs`;
+/**
+ * Lifetimes stored in s, read in ns below 1 µs and in µs above. An uncertainty passes the value it
+ * belongs to as `scaleOf`, so "1.90 µs ± 0.057 µs" keeps one unit.
+ */
+export function formatLifetime(seconds: number, scaleOf?: number): string {
+  // Three significant figures for a value, two for its uncertainty (common practice).
+  const digits = scaleOf === undefined ? 3 : 2;
+  const [factor, unit] = (scaleOf ?? seconds) < 1e-6 ? [1e9, 'ns'] : [1e6, 'µs'];
+  return `${(seconds * factor).toPrecision(digits)} ${unit}`;
 }
 
 export const referenceOptions = REFERENCE_ELECTRODES.map((reference) => ({ value: reference, label: reference }));

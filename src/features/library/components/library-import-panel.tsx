@@ -37,11 +37,11 @@ export function LibraryImportPanel({ labId, canImport }: { labId: string; canImp
             <span className="font-bold text-ink-900">CSV file to import</span>
             <input type="file" accept=".csv,text/csv" onChange={(event) => void choose(event.target.files?.[0])} className="text-body" />
           </label>
-          <p className="text-caption text-ink-500">Columns: {libraryCsvColumns.join(', ')}. Potentials in V, lifetimes in s, E00 in eV or nm.</p>
+          <p className="text-caption text-ink-500">Columns: {libraryCsvColumns.join(', ')}. Potentials in V, lifetimes in s, E00 in eV or nm. Files separated by semicolons may use decimal commas (1,21).</p>
           {importer.isError && <FormAlert>{describeError(importer.error)}</FormAlert>}
           {report && report.problems.length > 0 && (
             <div role="region" aria-label="Problems in the file" className="space-y-1">
-              <FormAlert>{fileName}: {report.problems.length} problem(s); nothing will be saved until the file is fixed.</FormAlert>
+              <FormAlert>{fileName}: {report.problems.length === 1 ? '1 problem' : `${report.problems.length} problems`}; nothing will be saved until the file is fixed.</FormAlert>
               <table className="w-full text-caption">
                 <thead><tr><th className="px-2 py-1 text-left">Row</th><th className="px-2 py-1 text-left">Column</th><th className="px-2 py-1 text-left">Reason</th></tr></thead>
                 <tbody>

@@ -2,6 +2,7 @@ import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { concentrationUnits, timeUnits, volumeUnits } from '@shared/schemas/study-uploads';
 import { SelectField } from '@/components/select-field';
 import { TextField } from '@/components/text-field';
+import { SpectrumSamplesEditor } from './spectrum-samples-editor';
 
 type Series = Extract<UploadMapping, { layout: 'series' }>;
 const ROLES: Array<[keyof Series & string, string]> = [
@@ -16,7 +17,8 @@ export function MappingEditor({ headers, mapping, onChange }: { headers: string[
     const reduction = mapping.reduction;
     return (
       <div className="flex flex-wrap items-end gap-3">
-        <p className="w-full text-body">Spectrum matrix: {mapping.samples.length} samples, concentrations read from the column headers.</p>
+        <p className="w-full text-body">Spectra: {mapping.samples.length} of {headers.length - 1} have a quencher concentration (read from the file or typed below).</p>
+        <SpectrumSamplesEditor headers={headers} mapping={mapping} onChange={onChange} />
         <SelectField label="Reduce each spectrum by" value={reduction.kind} options={[{ value: 'window', label: 'integrating over a window' }, { value: 'wavelength', label: 'reading one wavelength' }]}
           onChange={(event) => onChange({ ...mapping, reduction: event.target.value === 'window' ? { kind: 'window', start: 0, end: 0 } : { kind: 'wavelength', at: 0 } })} />
         {reduction.kind === 'window' ? (

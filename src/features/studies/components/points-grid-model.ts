@@ -13,7 +13,8 @@ export const gridColumns = [
   { key: 'uncertainty', label: 'Uncertainty' },
 ] as const;
 export type GridKey = (typeof gridColumns)[number]['key'];
-export type GridRow = Record<GridKey, string> & { excluded: boolean; exclusionReason: string };
+/** pointId: the saved point the row was loaded from (null for a typed or pasted row not yet saved). */
+export type GridRow = Record<GridKey, string> & { excluded: boolean; exclusionReason: string; pointId: string | null };
 
 const scale = (unit: ConcentrationUnit): Record<GridKey, number> => ({
   concentration: concentrationUnits[unit], intensity: 1, lifetime: 1e-9, absorbanceExcitation: 1, absorbanceEmission: 1, volumeAdded: 1e-6, uncertainty: 1,
@@ -21,7 +22,7 @@ const scale = (unit: ConcentrationUnit): Record<GridKey, number> => ({
 
 const show = (value: number | null, factor: number) => (value === null ? '' : String(Number((value / factor).toPrecision(10))));
 
-export const emptyRow = (): GridRow => ({ concentration: '', intensity: '', lifetime: '', absorbanceExcitation: '', absorbanceEmission: '', volumeAdded: '', uncertainty: '', excluded: false, exclusionReason: '' });
+export const emptyRow = (): GridRow => ({ concentration: '', intensity: '', lifetime: '', absorbanceExcitation: '', absorbanceEmission: '', volumeAdded: '', uncertainty: '', excluded: false, exclusionReason: '', pointId: null });
 
 export function rowsFromPoints(points: StudyPoint[], unit: ConcentrationUnit): GridRow[] {
   const factors = scale(unit);
@@ -29,7 +30,26 @@ export function rowsFromPoints(points: StudyPoint[], unit: ConcentrationUnit): G
     ...(Object.fromEntries(gridColumns.map(({ key }) => [key, show(point[key], factors[key])])) as Record<GridKey, string>),
     excluded: point.excluded,
     exclusionReason: point.exclusionReason ?? '',
+    pointId: point.id,
   }));
+}
+
+/**
+ * The saved point whose corrected values belong beside this row: the one it was loaded from,
+ * and only while the row still holds that point's values (an edited row waits for the save).
+ */
+export function savedPointOf(row: GridRow, savedById: ReadonlyMap<string, StudyPoint>, unit: ConcentrationUnit): StudyPoint | null {
+  const point = row.pointId === null ? undefined : savedById.get(row.pointId);
+  if (!point || row.excluded !== point.excluded) return null;
+  const factors = scale(unit);
+  const same = gridColumns.every(({ key }) => {
+    const text = row[key].trim().replace(',', '.');
+    const saved = point[key];
+    if (text === '' || saved === null) return text === '' && saved === null;
+    const typed = Number(text) * factors[key];
+    return Math.abs(typed - saved) <= 1e-9 * Math.max(Math.abs(saved), Math.abs(typed));
+  });
+  return same ? point : null;
 }
 
 /** Grid text -> API points in SI units; a cell that is not a number comes back as a problem naming row and column. */

@@ -6,7 +6,7 @@ import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
 import { useReplacePoints } from '../api/replace-points';
 import { concentrationUnits, formatNumber, unitLabel, type ConcentrationUnit } from './format';
-import { emptyRow, gridColumns, pasteInto, pointsFromRows, rowsFromPoints, type GridRow } from './points-grid-model';
+import { emptyRow, gridColumns, pasteInto, pointsFromRows, rowsFromPoints, savedPointOf, type GridRow } from './points-grid-model';
 
 interface Props { labId: string; study: StudyDetail; editable: boolean }
 
@@ -17,6 +17,15 @@ export function PointsGrid({ labId, study, editable }: Props) {
   const [problems, setProblems] = useState<string[]>([]);
   const save = useReplacePoints(labId, study.id);
   const corrections = study.dilutionCorrection || study.innerFilterCorrection;
+  const savedById = new Map(study.points.map((point) => [point.id, point]));
+  const hasValues = (row: GridRow) => gridColumns.some(({ key }) => row[key].trim() !== '');
+  const correctedCell = (row: GridRow) => {
+    if (!hasValues(row)) return '';
+    const corrected = savedPointOf(row, savedById, unit)?.corrected;
+    if (corrected === undefined) return <span className="text-ink-500">after saving</span>;
+    return corrected ? `${formatNumber(corrected.concentration)} M / ${formatNumber(corrected.intensity)}` : '';
+  };
+  const waiting = corrections && rows.some((row) => hasValues(row) && !savedPointOf(row, savedById, unit));
 
   function changeUnit(next: ConcentrationUnit) {
     const ratio = concentrationUnits[unit] / concentrationUnits[next];
@@ -39,7 +48,8 @@ export function PointsGrid({ labId, study, editable }: Props) {
         <SelectField label="Concentration unit" value={unit} onChange={(event) => changeUnit(event.target.value as ConcentrationUnit)} options={(Object.keys(unitLabel) as ConcentrationUnit[]).map((value) => ({ value, label: unitLabel[value] }))} />
         <p className="pb-2 text-caption text-ink-500">{study.dataKind === 'ratio' ? 'The intensity column holds I0/I ratios.' : 'Paste a block of cells copied from a spreadsheet into any cell.'}</p>
       </div>
-      <div className="overflow-x-auto">
+      {/* contain:inline-size: with the corrected column the grid scrolls here instead of widening the page */}
+      <div className="overflow-x-auto [contain:inline-size]">
         <table className="w-full text-body">
           <thead><tr className="text-left text-caption text-ink-500">
             <th>#</th>{gridColumns.map((column) => <th key={column.key}>{column.key === 'concentration' ? `[Q] (${unitLabel[unit]})` : column.label}</th>)}
@@ -63,12 +73,13 @@ export function PointsGrid({ labId, study, editable }: Props) {
                 ))}
                 <td><input type="checkbox" aria-label={`Row ${index + 1} leave out`} disabled={!editable} checked={row.excluded} onChange={(event) => set(index, { excluded: event.target.checked })} /></td>
                 <td><input aria-label={`Row ${index + 1} reason`} disabled={!editable || !row.excluded} value={row.exclusionReason} className="w-36 rounded border border-paper-300 px-1.5 py-1" onChange={(event) => set(index, { exclusionReason: event.target.value })} /></td>
-                {corrections && <td className="text-caption text-ink-700">{study.points[index]?.corrected ? `${formatNumber(study.points[index]!.corrected!.concentration)} M / ${formatNumber(study.points[index]!.corrected!.intensity)}` : ''}</td>}
+                {corrections && <td className="text-caption text-ink-700">{correctedCell(row)}</td>}
               </tr>
             ))}
           </tbody>
         </table>
       </div>
+      {waiting && <p className="text-caption text-ink-500">Corrected values are worked out on the server from saved points; new and changed rows show theirs after saving.</p>}
       {problems.length > 0 && <FormAlert>{problems.map((problem) => <p key={problem}>{problem}</p>)}</FormAlert>}
       {save.isError && <FormAlert>{describeError(save.error)}</FormAlert>}
       {editable && (

@@ -1,6 +1,10 @@
+import { useRef } from 'react';
+import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { FitResult } from '@shared/schemas/study-fits';
-import { plotColours } from './chart-setup';
+import { paperBackground, plotColours } from './chart-setup';
+import { figureFileName } from './figure-file-name';
+import { SavePngButton } from './save-png-button';
 
 interface Props {
   plot: FitResult['plot'];
@@ -8,12 +12,23 @@ interface Props {
   xLabel: string;
   /** concentration axis scale for display, e.g. 1e3 for mM */
   xScale: number;
+  /** the study title, for the PNG file names */
+  studyTitle: string;
 }
 
-const axis = (title: string) => ({ type: 'linear' as const, title: { display: true, text: title }, grid: { color: plotColours.grid } });
+// Tick labels with at most 3 significant figures, so tiny residuals read 2e-8, not 2.00000000E-8.
+const tick = (value: number | string) => (typeof value === 'number' ? Number(value.toPrecision(3)).toString() : value);
+const axis = (title: string) => ({
+  type: 'linear' as const,
+  title: { display: true, text: title },
+  grid: { color: plotColours.grid },
+  ticks: { callback: tick },
+});
 
 /** Stern–Volmer plot with the fit line and its 95 % band, and the residuals beneath. */
-export function SternVolmerPlot({ plot, excluded, xLabel, xScale }: Props) {
+export function SternVolmerPlot({ plot, excluded, xLabel, xScale, studyTitle }: Props) {
+  const main = useRef<Chart<'scatter'>>(null);
+  const residuals = useRef<Chart<'scatter'>>(null);
   const scaled = (points: Array<{ x: number; y: number }>) => points.map((point) => ({ x: point.x * xScale, y: point.y }));
   const data = {
     datasets: [
@@ -27,11 +42,15 @@ export function SternVolmerPlot({ plot, excluded, xLabel, xScale }: Props) {
   const legend = { labels: { filter: (item: { text: string }) => item.text !== 'band lower' } };
   return (
     <figure aria-label="Stern–Volmer plot" className="space-y-2">
-      <div className="h-72">
-        <Scatter data={data} options={{ maintainAspectRatio: false, animation: false, plugins: { legend }, scales: { x: axis(xLabel), y: axis(plot.yLabel) } }} />
+      <div className="flex justify-end"><SavePngButton chart={main} fileName={figureFileName(studyTitle, 'stern-volmer')} what="Stern–Volmer plot" /></div>
+      <div className="relative h-72">
+        <Scatter ref={main} plugins={[paperBackground]} data={data} options={{ maintainAspectRatio: false, animation: false, plugins: { legend }, scales: { x: axis(xLabel), y: axis(plot.yLabel) } }} />
       </div>
-      <div className="h-32">
+      <div className="flex justify-end"><SavePngButton chart={residuals} fileName={figureFileName(studyTitle, 'residuals')} what="residual plot" /></div>
+      <div className="relative h-32">
         <Scatter
+          ref={residuals}
+          plugins={[paperBackground]}
           aria-label="Residuals"
           data={{ datasets: [{ label: 'Residual', data: scaled(plot.points.map((p) => ({ x: p.x, y: p.residual }))), backgroundColor: plotColours.line, pointRadius: 4 }] }}
           options={{ maintainAspectRatio: false, animation: false, plugins: { legend: { display: false } }, scales: { x: axis(xLabel), y: axis('residual') } }}
