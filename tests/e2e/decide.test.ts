@@ -12,6 +12,7 @@ let browser: Browser;
 let server: Awaited<ReturnType<typeof startLiveServer>>;
 let page: Page;
 let labId = '';
+const cspRefusals: string[] = [];
 const shot = (name: string) => page.screenshot({ path: path.join(screenshotDir, name), fullPage: true });
 
 beforeAll(async () => {
@@ -20,6 +21,9 @@ beforeAll(async () => {
   labId = (await Lab.findOne({ where: { slug: demoLabs[0].slug } }))!.id;
   browser = await launchBrowser();
   page = await browser.newPage({ viewport: { width: 1360, height: 900 }, acceptDownloads: true });
+  page.on('console', (message) => {
+    if (/Content Security Policy|Refused to/i.test(message.text())) cspRefusals.push(message.text());
+  });
   fs.mkdirSync(screenshotDir, { recursive: true });
   await page.goto(`${server.baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(demoPeople[0]!.email);
@@ -114,5 +118,9 @@ describe('deciding who quenches, in Chromium', () => {
     await expect(page.getByLabel('Starting volume V0 (mL)').inputValue()).resolves.toBe('2');
     await expect(page.getByLabel('Stock concentration (mM)').inputValue()).resolves.toBe('50');
     await expect(page.getByLabel('Dilution (needs volumes added)').isChecked()).resolves.toBe(true);
+  });
+
+  it('when the charts and forms ran, then the content security policy refused nothing', () => {
+    expect(cspRefusals).toEqual([]);
   });
 });

@@ -12,6 +12,7 @@ let server: Awaited<ReturnType<typeof startLiveServer>>;
 let page: Page;
 let viewer: TestUser;
 const requestedHosts = new Set<string>();
+const consoleProblems: string[] = [];
 
 beforeAll(async () => {
   server = await startLiveServer();
@@ -19,6 +20,10 @@ beforeAll(async () => {
   browser = await launchBrowser();
   page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
   page.on('request', (request) => requestedHosts.add(new URL(request.url()).host));
+  // Helmet's content security policy must let the built app run: any refusal shows up here.
+  page.on('console', (message) => {
+    if (/Content Security Policy|Refused to/i.test(message.text())) consoleProblems.push(message.text());
+  });
 });
 
 afterAll(async () => {
@@ -57,5 +62,9 @@ describe('the app shell in Chromium', () => {
 
   it('when the pages load, then nothing was requested from outside this machine', () => {
     expect([...requestedHosts].every((host) => host.startsWith('127.0.0.1:'))).toBe(true);
+  });
+
+  it('when the pages ran, then the content security policy refused nothing', () => {
+    expect(consoleProblems).toEqual([]);
   });
 });
