@@ -5,7 +5,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Compound, Lab, Study } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
-import { launchBrowser, screenshotDir } from '../support/browser';
+import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
 import { startLiveServer } from '../support/live-server';
 
 let browser: Browser;
@@ -25,11 +25,7 @@ beforeAll(async () => {
     if (/Content Security Policy|Refused to/i.test(message.text())) cspRefusals.push(message.text());
   });
   fs.mkdirSync(screenshotDir, { recursive: true });
-  await page.goto(`${server.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(demoPeople[0]!.email);
-  await page.getByLabel('Password').fill(demoPassword);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
+  await signInThroughPage(page, server.baseUrl, { email: demoPeople[0]!.email, password: demoPassword });
 });
 
 afterAll(async () => {

@@ -4,7 +4,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemoLibrary } from '../../server/seed/demo-library';
 import { createLabWithMembers } from '../support/accounts';
-import { launchBrowser, screenshotDir } from '../support/browser';
+import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
 import { startLiveServer } from '../support/live-server';
 
 let browser: Browser;
@@ -15,13 +15,7 @@ let labId: string;
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(screenshotDir, name), fullPage: true });
 
-async function signIn(page: Page, person: { email: string; password: string }) {
-  await page.goto(`${server.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(person.email);
-  await page.getByLabel('Password').fill(person.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
-}
+const signIn = (page: Page, person: { email: string; password: string }) => signInThroughPage(page, server.baseUrl, person);
 
 beforeAll(async () => {
   server = await startLiveServer();

@@ -3,7 +3,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createLabWithMembers } from '../support/accounts';
-import { launchBrowser, screenshotDir } from '../support/browser';
+import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
 import { startLiveServer } from '../support/live-server';
 
 let browser: Browser;
@@ -27,13 +27,7 @@ async function expectFitsWindow(page: Page, name: string) {
   expect(overflow.page, `wider than the window: ${overflow.past.join(' | ')}`).toBeLessThanOrEqual(overflow.window);
 }
 
-async function signIn(page: Page, user: { email: string; password: string }) {
-  await page.goto(`${server.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(user.email);
-  await page.getByLabel('Password').fill(user.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
-}
+const signIn = (page: Page, person: { email: string; password: string }) => signInThroughPage(page, server.baseUrl, person);
 
 async function fillStudyForm(page: Page, title: string, tag: string) {
   await page.getByRole('link', { name: 'New study' }).click();

@@ -1,7 +1,7 @@
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import { chromium } from 'playwright-core';
-import type { Browser } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 
 const chromiumPath = '/usr/bin/chromium';
 
@@ -37,3 +37,12 @@ export async function launchBrowser(): Promise<Browser> {
 }
 
 export const screenshotDir = 'test-output/e2e';
+
+/** Signs in through the real sign-in screen, as a person would, and waits for the overview. */
+export async function signInThroughPage(page: Page, baseUrl: string, person: { email: string; password: string }) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(person.email);
+  await page.getByLabel('Password').fill(person.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
+}
