@@ -1,20 +1,15 @@
 import { Op } from 'sequelize';
-import { SOLVENTS } from '@shared/engine';
 import type { ComparisonRow } from '@shared/schemas/comparisons';
-import type { Pathway } from '@shared/schemas/driving-force';
 import type { LabContext } from '../../middleware/access';
 import { Compound, Study, StudyFit } from '../../models';
-import { drivingForce } from '../library/driving-force.service';
+import { drivingForceOfStudy } from '../library/driving-force.service';
 
-const isTableSolvent = (solvent: string | null): solvent is string => solvent !== null && solvent in SOLVENTS;
+type RowDrivingForce = Pick<ComparisonRow, 'drivingForce' | 'drivingForceMissing'>;
 
-/** The highlighted driving force of a pair in a solvent, or why there is none. */
-async function rowDrivingForce(lab: LabContext, study: Study) {
-  if (!isTableSolvent(study.solventId)) {
-    return { drivingForce: null, drivingForceMissing: 'custom solvent: no permittivity in the solvent table' };
-  }
-  const pinned = study.pinnedMechanism === 'oxidative' || study.pinnedMechanism === 'reductive' ? (study.pinnedMechanism as Pathway) : undefined;
-  const result = await drivingForce(lab, { emitterId: study.emitterId, quencherId: study.quencherId, solvent: study.solventId, pinned });
+/** The highlighted driving force of a study's pair in its solvent, or why there is none. */
+async function rowDrivingForce(lab: LabContext, study: Study): Promise<RowDrivingForce> {
+  const result = await drivingForceOfStudy(lab, study);
+  if (!result) return { drivingForce: null, drivingForceMissing: 'custom solvent: no permittivity in the solvent table' };
   const pathway = result.highlighted;
   const value = pathway ? result[pathway] : null;
   if (!pathway || !value) {
@@ -42,6 +37,13 @@ export async function comparisonRows(lab: LabContext, side: 'emitter' | 'quenche
   const fits = new Map(
     (await StudyFit.findAll({ where: { id: { [Op.in]: fitIds } }, attributes: ['id', 'result'] })).map((fit) => [fit.id, fit]),
   );
+  // Replicates and revisions of one pair share a driving force: compute it once per pair, solvent and pin.
+  const forces = new Map<string, Promise<RowDrivingForce>>();
+  const forceOf = (study: Study) => {
+    const key = [study.emitterId, study.quencherId, study.solventId, study.pinnedMechanism].join('|');
+    if (!forces.has(key)) forces.set(key, rowDrivingForce(lab, study));
+    return forces.get(key)!;
+  };
   const rows: ComparisonRow[] = [];
   for (const study of studies) {
     const result = study.latestFitId ? fits.get(study.latestFitId)?.result : undefined;
@@ -55,7 +57,7 @@ export async function comparisonRows(lab: LabContext, side: 'emitter' | 'quenche
       kq: study.kq === null ? null : { value: study.kq, standardError: result?.parameters.kq?.standardError ?? null },
       kSv: study.kSv === null ? null : { value: study.kSv, standardError: result?.parameters.kSv?.standardError ?? null },
       flags: (result?.flags ?? []).map((flag) => ({ code: flag.code, title: flag.title })),
-      ...(await rowDrivingForce(lab, study)),
+      ...(await forceOf(study)),
     });
   }
   return rows;

@@ -1,5 +1,5 @@
 import {
-  DEFAULT_ENCOUNTER_DISTANCE, energyTransferFeasibility, getSolvent, quenchingDrivingForces,
+  DEFAULT_ENCOUNTER_DISTANCE, energyTransferFeasibility, getSolvent, quenchingDrivingForces, SOLVENTS,
 } from '@shared/engine';
 import type { DrivingForceResult, MissingInput, Pathway } from '@shared/schemas/driving-force';
 import type { LabContext } from '../../middleware/access';
@@ -104,4 +104,23 @@ export async function drivingForce(lab: LabContext, query: Query): Promise<Drivi
     }, reference),
     warnings: [...warnings],
   };
+}
+
+/** What a study says about its pair; both the comparison and the study report ask through this. */
+export interface StudyPair {
+  emitterId: string;
+  quencherId: string;
+  solventId: string | null;
+  pinnedMechanism: string | null;
+}
+
+/**
+ * The driving force of a study's pair in its solvent, or null when the solvent is not in the
+ * engine's table (no permittivity for the Coulomb term). Energy transfer is not an
+ * electron-transfer pathway, so pinning it highlights the more favourable one.
+ */
+export async function drivingForceOfStudy(lab: LabContext, study: StudyPair): Promise<DrivingForceResult | null> {
+  if (!study.solventId || !(study.solventId in SOLVENTS)) return null;
+  const pinned = study.pinnedMechanism === 'oxidative' || study.pinnedMechanism === 'reductive' ? study.pinnedMechanism : undefined;
+  return drivingForce(lab, { emitterId: study.emitterId, quencherId: study.quencherId, solvent: study.solventId, pinned });
 }

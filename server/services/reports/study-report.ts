@@ -1,7 +1,6 @@
-import { SOLVENTS } from '@shared/engine';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import type { LabContext } from '../../middleware/access';
-import { drivingForce } from '../library/driving-force.service';
+import { drivingForceOfStudy } from '../library/driving-force.service';
 import { getStudyDetail } from '../studies/study.service';
 import { createReport, facts, finish, fixed, heading, sci, table } from './pdf-document';
 import type { Pdf } from './pdf-document';
@@ -76,12 +75,11 @@ function points(doc: Pdf, study: StudyDetail) {
 
 async function drivingForceSection(doc: Pdf, lab: LabContext, study: StudyDetail) {
   heading(doc, 'Driving force (Rehm–Weller estimate)');
-  if (!study.solventId || !(study.solventId in SOLVENTS)) {
+  const result = await drivingForceOfStudy(lab, { ...study, emitterId: study.emitter.id, quencherId: study.quencher.id });
+  if (!result) {
     doc.text('Not computed: the study uses a custom solvent without a permittivity in the solvent table.');
     return;
   }
-  const pinned = study.pinnedMechanism === 'oxidative' || study.pinnedMechanism === 'reductive' ? study.pinnedMechanism : undefined;
-  const result = await drivingForce(lab, { emitterId: study.emitter.id, quencherId: study.quencher.id, solvent: study.solventId, pinned });
   const line = (name: 'oxidative' | 'reductive') => {
     const value = result[name];
     return value ? `${fixed(value.electronvolts, 3)} eV (${fixed(value.kilojoulesPerMole, 4)} kJ/mol); Coulomb term ${fixed(value.workTerm, 2)} eV` : 'missing inputs';
