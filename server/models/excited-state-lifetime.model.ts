@@ -1,6 +1,7 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
 import type { Compound } from './compound.model';
+import { measurementTrailAttributes } from './measurement-trail';
 import type { Lab } from './lab.model';
 import type { User } from './user.model';
 
@@ -41,11 +42,7 @@ export class ExcitedStateLifetime extends Model<
         atmosphere: { type: DataTypes.ENUM(...atmospheres), allowNull: false },
         temperature: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 298.15 },
         method: { type: DataTypes.STRING(120), allowNull: false },
-        source: { type: DataTypes.TEXT, allowNull: true },
-        notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        ...measurementTrailAttributes,
       },
       { sequelize, tableName: 'excited_state_lifetimes', version: true },
     );

@@ -1,6 +1,7 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
 import type { Compound } from './compound.model';
+import { measurementTrailAttributes } from './measurement-trail';
 import type { Lab } from './lab.model';
 import type { User } from './user.model';
 
@@ -35,11 +36,7 @@ export class RedoxPotential extends Model<InferAttributes<RedoxPotential>, Infer
         solvent: { type: DataTypes.STRING(80), allowNull: false },
         electrolyte: { type: DataTypes.STRING(120), allowNull: true },
         kind: { type: DataTypes.ENUM('half-wave', 'half-peak', 'peak'), allowNull: false },
-        source: { type: DataTypes.TEXT, allowNull: true },
-        notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        ...measurementTrailAttributes,
       },
       { sequelize, tableName: 'redox_potentials', version: true },
     );
