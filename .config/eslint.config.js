@@ -5,6 +5,7 @@ import globals from 'globals';
 import reactHooks from 'eslint-plugin-react-hooks';
 import reactRefresh from 'eslint-plugin-react-refresh';
 import tseslint from 'typescript-eslint';
+import prettier from 'eslint-config-prettier';
 
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', 'test-output/**', '.halflight/**', 'coverage/**'] },
@@ -42,4 +43,6 @@ export default tseslint.config(
       ],
     },
   },
+  // Layout is Prettier's job (npm run format); turn off the stylistic rules that would disagree.
+  prettier,
 );

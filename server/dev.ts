@@ -23,14 +23,22 @@ const children: ChildProcess[] = [
   spawn('npx', ['tsx', 'watch', '--clear-screen=false', 'server/index.ts'], { stdio: 'inherit', env }),
   spawn('npx', ['vite'], { stdio: 'inherit', env }),
 ];
-log('API on http://127.0.0.1:' + config.PORT + ', app with hot reload on http://127.0.0.1:5173 — Ctrl-C stops everything.');
+log(
+  'API on http://127.0.0.1:' +
+    config.PORT +
+    ', app with hot reload on http://127.0.0.1:5173 — Ctrl-C stops everything.',
+);
 
 let stopping = false;
 async function stop(code: number) {
   if (stopping) return;
   stopping = true;
   for (const child of children) if (child.exitCode === null) child.kill('SIGTERM');
-  await Promise.all(children.map((child) => (child.exitCode !== null ? Promise.resolve() : new Promise((resolve) => child.once('exit', resolve)))));
+  await Promise.all(
+    children.map((child) =>
+      child.exitCode !== null ? Promise.resolve() : new Promise((resolve) => child.once('exit', resolve)),
+    ),
+  );
   if (database) {
     log('Stopping the embedded PostgreSQL cluster ...');
     await database.stop();

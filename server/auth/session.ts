@@ -16,7 +16,12 @@ export function createSessionMiddleware(options: { databaseUrl: string; secret: 
   const PgStore = connectPgSimple(session);
   const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 4 });
   const cookieName = options.secure ? '__Host-halflight.sid' : 'halflight.sid';
-  const store = new PgStore({ pool, tableName: 'sessions', createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
+  const store = new PgStore({
+    pool,
+    tableName: 'sessions',
+    createTableIfMissing: false,
+    pruneSessionInterval: 15 * 60,
+  });
   const middleware = session({
     name: cookieName,
     secret: options.secret,

@@ -17,13 +17,19 @@ const envSchema = z.object({
     .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// or postgresql:// URL')
     .optional(),
   SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
-  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL').optional(),
+  SMTP_URL: z
+    .string()
+    .regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL')
+    .optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   HALFLIGHT_DATA_DIR: z.string().min(1).default(path.join(projectRoot, '.halflight')),
   HALFLIGHT_PG_PORT: z.coerce.number().int().min(1024).max(65535).default(55432),
   HALFLIGHT_DEMO_DATA: booleanFlag.optional(),
   HALFLIGHT_BEHIND_TLS: booleanFlag.default(false),
-  HALFLIGHT_PUBLIC_URL: z.string().regex(/^https?:\/\//, 'must start with http:// or https://').optional(),
+  HALFLIGHT_PUBLIC_URL: z
+    .string()
+    .regex(/^https?:\/\//, 'must start with http:// or https://')
+    .optional(),
   MAIL_FROM: z.string().min(3).default('Halflight <no-reply@halflight.invalid>'),
   HALFLIGHT_FIRST_ADMIN_EMAIL: z.string().email('must be an e-mail address').optional(),
   HALFLIGHT_FIRST_ADMIN_PASSWORD: z.string().min(10, 'must be at least 10 characters').optional(),

@@ -35,9 +35,7 @@ interface CommandResult {
  */
 function runPg(binDir: string, tool: string, args: string[]): Promise<CommandResult> {
   const binary = path.join(binDir, tool);
-  const [command, commandArgs] = isRoot()
-    ? ['runuser', ['-u', 'postgres', '--', binary, ...args]]
-    : [binary, args];
+  const [command, commandArgs] = isRoot() ? ['runuser', ['-u', 'postgres', '--', binary, ...args]] : [binary, args];
   return new Promise((resolve, reject) => {
     const child = spawn(command, commandArgs, { detached: true, stdio: ['ignore', 'pipe', 'pipe'] });
     let output = '';
@@ -83,8 +81,14 @@ function readOrCreateSecret(dataRoot: string): string {
 
 async function initCluster(binDir: string, dataRoot: string, pgdata: string): Promise<void> {
   const result = await runPg(binDir, 'initdb', [
-    '-D', pgdata, '-U', superuser, `--pwfile=${path.join(dataRoot, 'pg-password')}`,
-    '--auth=scram-sha-256', '--encoding=UTF8', '--locale=C',
+    '-D',
+    pgdata,
+    '-U',
+    superuser,
+    `--pwfile=${path.join(dataRoot, 'pg-password')}`,
+    '--auth=scram-sha-256',
+    '--encoding=UTF8',
+    '--locale=C',
   ]);
   if (result.code !== 0) throw new Error(`initdb failed:\n${result.output}`);
   // Loopback only, no Unix socket: nothing outside this machine can reach the cluster.
@@ -131,7 +135,16 @@ export async function startEmbeddedPostgres(options: EmbeddedPostgresOptions): P
     if (status.code === 0) await runPg(binDir, 'pg_ctl', ['stop', '-D', pgdata, '-m', 'fast', '-w']);
 
     const started = await runPg(binDir, 'pg_ctl', [
-      'start', '-D', pgdata, '-w', '-t', '60', '-l', logFile, '-o', `-p ${options.port}`,
+      'start',
+      '-D',
+      pgdata,
+      '-w',
+      '-t',
+      '60',
+      '-l',
+      logFile,
+      '-o',
+      `-p ${options.port}`,
     ]);
     if (started.code !== 0) {
       throw new Error(

@@ -71,7 +71,13 @@ export function createRateLimiters(settings: Record<RateLimitName, RateLimitSett
       },
     });
   return {
-    signIn: make('signIn', (ip, body) => `${ip}|${String(body.email ?? '').trim().toLowerCase()}`),
+    signIn: make(
+      'signIn',
+      (ip, body) =>
+        `${ip}|${String(body.email ?? '')
+          .trim()
+          .toLowerCase()}`,
+    ),
     passwordReset: make('passwordReset', (ip) => ip),
     invitation: make('invitation', (ip) => ip),
   } satisfies Record<RateLimitName, RequestHandler>;

@@ -99,5 +99,7 @@ export const down: MigrationModule['down'] = async ({ context: queryInterface })
   for (const table of ['caught_mail', 'sessions', 'password_resets', 'invitations', 'memberships', 'users']) {
     await queryInterface.dropTable(table);
   }
-  await queryInterface.sequelize.query('DROP TYPE IF EXISTS enum_memberships_role; DROP TYPE IF EXISTS enum_invitations_role;');
+  await queryInterface.sequelize.query(
+    'DROP TYPE IF EXISTS enum_memberships_role; DROP TYPE IF EXISTS enum_invitations_role;',
+  );
 };

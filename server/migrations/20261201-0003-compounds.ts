@@ -16,13 +16,20 @@ export const up: MigrationModule['up'] = async ({ context: queryInterface }) => 
     /** Triplet energy in eV, with where it came from. */
     triplet_energy: { type: DataTypes.DOUBLE, allowNull: true },
     triplet_energy_source: { type: DataTypes.TEXT, allowNull: true },
-    created_by_id: { type: DataTypes.UUID, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' },
+    created_by_id: {
+      type: DataTypes.UUID,
+      allowNull: true,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'SET NULL',
+    },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     created_at: { type: DataTypes.DATE, allowNull: false },
     updated_at: { type: DataTypes.DATE, allowNull: false },
   });
   // One name per lab, whatever the capitalisation.
-  await queryInterface.sequelize.query('CREATE UNIQUE INDEX compounds_lab_name_unique ON compounds (lab_id, lower(name))');
+  await queryInterface.sequelize.query(
+    'CREATE UNIQUE INDEX compounds_lab_name_unique ON compounds (lab_id, lower(name))',
+  );
   await queryInterface.addIndex('compounds', ['lab_id', 'role_hint']);
 };
 

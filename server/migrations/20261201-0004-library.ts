@@ -4,12 +4,22 @@ import type { MigrationModule } from '../db/migrator';
 const common = {
   id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
   lab_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'labs', key: 'id' }, onDelete: 'CASCADE' },
-  compound_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'compounds', key: 'id' }, onDelete: 'CASCADE' },
+  compound_id: {
+    type: DataTypes.UUID,
+    allowNull: false,
+    references: { model: 'compounds', key: 'id' },
+    onDelete: 'CASCADE',
+  },
 };
 const trail = {
   source: { type: DataTypes.TEXT, allowNull: true },
   notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-  created_by_id: { type: DataTypes.UUID, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' },
+  created_by_id: {
+    type: DataTypes.UUID,
+    allowNull: true,
+    references: { model: 'users', key: 'id' },
+    onDelete: 'SET NULL',
+  },
   version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
   created_at: { type: DataTypes.DATE, allowNull: false },
   updated_at: { type: DataTypes.DATE, allowNull: false },

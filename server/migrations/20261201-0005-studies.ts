@@ -3,9 +3,24 @@ import type { MigrationModule } from '../db/migrator';
 
 const id = { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 };
 const labId = { type: DataTypes.UUID, allowNull: false, references: { model: 'labs', key: 'id' }, onDelete: 'CASCADE' };
-const userRef = { type: DataTypes.UUID, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' };
-const studyRef = { type: DataTypes.UUID, allowNull: false, references: { model: 'studies', key: 'id' }, onDelete: 'CASCADE' };
-const compoundRef = { type: DataTypes.UUID, allowNull: false, references: { model: 'compounds', key: 'id' }, onDelete: 'RESTRICT' };
+const userRef = {
+  type: DataTypes.UUID,
+  allowNull: true,
+  references: { model: 'users', key: 'id' },
+  onDelete: 'SET NULL',
+};
+const studyRef = {
+  type: DataTypes.UUID,
+  allowNull: false,
+  references: { model: 'studies', key: 'id' },
+  onDelete: 'CASCADE',
+};
+const compoundRef = {
+  type: DataTypes.UUID,
+  allowNull: false,
+  references: { model: 'compounds', key: 'id' },
+  onDelete: 'RESTRICT',
+};
 const optionalDouble = { type: DataTypes.DOUBLE, allowNull: true };
 const timestamps = {
   created_at: { type: DataTypes.DATE, allowNull: false },
@@ -37,7 +52,10 @@ export const up: MigrationModule['up'] = async ({ context: queryInterface }) => 
     tau0: optionalDouble,
     tau0_uncertainty: optionalDouble,
     tau0_lifetime_id: {
-      type: DataTypes.UUID, allowNull: true, references: { model: 'excited_state_lifetimes', key: 'id' }, onDelete: 'SET NULL',
+      type: DataTypes.UUID,
+      allowNull: true,
+      references: { model: 'excited_state_lifetimes', key: 'id' },
+      onDelete: 'SET NULL',
     },
     i0: optionalDouble,
     data_kind: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'intensity' },
@@ -50,9 +68,18 @@ export const up: MigrationModule['up'] = async ({ context: queryInterface }) => 
     pinned_mechanism: { type: DataTypes.STRING(20), allowNull: true },
     notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
     owner_id: userRef,
-    status: { type: DataTypes.ENUM('draft', 'submitted', 'approved', 'returned'), allowNull: false, defaultValue: 'draft' },
+    status: {
+      type: DataTypes.ENUM('draft', 'submitted', 'approved', 'returned'),
+      allowNull: false,
+      defaultValue: 'draft',
+    },
     revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
-    previous_revision_id: { type: DataTypes.UUID, allowNull: true, references: { model: 'studies', key: 'id' }, onDelete: 'SET NULL' },
+    previous_revision_id: {
+      type: DataTypes.UUID,
+      allowNull: true,
+      references: { model: 'studies', key: 'id' },
+      onDelete: 'SET NULL',
+    },
     /** False once a newer revision exists; lists show current revisions. */
     is_current: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
     // Copied from the newest fit so the list can filter and sort without reading fits.
@@ -64,9 +91,10 @@ export const up: MigrationModule['up'] = async ({ context: queryInterface }) => 
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     ...timestamps,
   });
-  const index = (columns: string) => queryInterface.sequelize.query(
-    `CREATE INDEX studies_${columns.replace(/[^a-z]+/g, '_').replace(/_+$/, '')} ON studies (${columns}) WHERE is_current`,
-  );
+  const index = (columns: string) =>
+    queryInterface.sequelize.query(
+      `CREATE INDEX studies_${columns.replace(/[^a-z]+/g, '_').replace(/_+$/, '')} ON studies (${columns}) WHERE is_current`,
+    );
   await index('lab_id, updated_at DESC');
   for (const column of ['status', 'emitter_id', 'quencher_id', 'owner_id', 'solvent_id']) {
     await index(`lab_id, ${column}, updated_at DESC`);
@@ -113,7 +141,12 @@ export const up: MigrationModule['up'] = async ({ context: queryInterface }) => 
     uncertainty: optionalDouble,
     excluded: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     exclusion_reason: { type: DataTypes.TEXT, allowNull: true },
-    upload_id: { type: DataTypes.UUID, allowNull: true, references: { model: 'study_uploads', key: 'id' }, onDelete: 'SET NULL' },
+    upload_id: {
+      type: DataTypes.UUID,
+      allowNull: true,
+      references: { model: 'study_uploads', key: 'id' },
+      onDelete: 'SET NULL',
+    },
   });
   await queryInterface.addIndex('study_points', ['study_id', 'position']);
 

@@ -27,6 +27,8 @@ export const down: MigrationModule['down'] = async ({ context: queryInterface })
   for (const column of SORTED) {
     await queryInterface.sequelize.query(`DROP INDEX IF EXISTS studies_lab_${column}_asc`);
     await queryInterface.sequelize.query(`DROP INDEX IF EXISTS studies_lab_${column}_desc`);
-    await queryInterface.sequelize.query(`CREATE INDEX studies_lab_id_${column} ON studies (lab_id, ${column}) WHERE is_current`);
+    await queryInterface.sequelize.query(
+      `CREATE INDEX studies_lab_id_${column} ON studies (lab_id, ${column}) WHERE is_current`,
+    );
   }
 };

@@ -46,8 +46,17 @@ export function initModels(sequelize: Sequelize): void {
 }
 
 export {
-  AuditEvent, CaughtMail, Compound, ExcitedStateEnergy, ExcitedStateLifetime, Invitation, Lab, Membership,
-  PasswordReset, RedoxPotential, User,
+  AuditEvent,
+  CaughtMail,
+  Compound,
+  ExcitedStateEnergy,
+  ExcitedStateLifetime,
+  Invitation,
+  Lab,
+  Membership,
+  PasswordReset,
+  RedoxPotential,
+  User,
 };
 export { Study, StudyFit, StudyPoint, StudyReview, StudyUpload } from './study-models';
 export { ReactionScenario, ScenarioComponent } from './scenario-models';

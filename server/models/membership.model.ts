@@ -1,6 +1,11 @@
 import { DataTypes, Model } from 'sequelize';
 import type {
-  CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize,
+  CreationOptional,
+  ForeignKey,
+  InferAttributes,
+  InferCreationAttributes,
+  NonAttribute,
+  Sequelize,
 } from 'sequelize';
 import type { Role } from '@shared/schemas/roles';
 import { roles } from '@shared/schemas/roles';

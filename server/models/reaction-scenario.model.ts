@@ -1,12 +1,22 @@
 import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from 'sequelize';
+import type {
+  CreationOptional,
+  ForeignKey,
+  InferAttributes,
+  InferCreationAttributes,
+  NonAttribute,
+  Sequelize,
+} from 'sequelize';
 import type { Compound } from './compound.model';
 import type { Lab } from './lab.model';
 import type { ScenarioComponent } from './scenario-component.model';
 import type { User } from './user.model';
 
 /** A real reaction: emitter, solvent, tau0 (s) and the components at their concentrations. */
-export class ReactionScenario extends Model<InferAttributes<ReactionScenario>, InferCreationAttributes<ReactionScenario>> {
+export class ReactionScenario extends Model<
+  InferAttributes<ReactionScenario>,
+  InferCreationAttributes<ReactionScenario>
+> {
   declare id: CreationOptional<string>;
   declare labId: ForeignKey<Lab['id']>;
   declare name: string;

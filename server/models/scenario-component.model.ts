@@ -1,10 +1,20 @@
 import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from 'sequelize';
+import type {
+  CreationOptional,
+  ForeignKey,
+  InferAttributes,
+  InferCreationAttributes,
+  NonAttribute,
+  Sequelize,
+} from 'sequelize';
 import type { Compound } from './compound.model';
 import type { ReactionScenario } from './reaction-scenario.model';
 
 /** One component of a scenario at its concentration (mol/L); kq comes from a study or, for O2, by hand. */
-export class ScenarioComponent extends Model<InferAttributes<ScenarioComponent>, InferCreationAttributes<ScenarioComponent>> {
+export class ScenarioComponent extends Model<
+  InferAttributes<ScenarioComponent>,
+  InferCreationAttributes<ScenarioComponent>
+> {
   declare id: CreationOptional<string>;
   declare scenarioId: ForeignKey<ReactionScenario['id']>;
   declare position: number;

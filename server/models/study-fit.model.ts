@@ -1,5 +1,12 @@
 import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from 'sequelize';
+import type {
+  CreationOptional,
+  ForeignKey,
+  InferAttributes,
+  InferCreationAttributes,
+  NonAttribute,
+  Sequelize,
+} from 'sequelize';
 import type { FitModel } from '@shared/schemas/studies';
 import type { FitResult, StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
 import type { Study } from './study.model';

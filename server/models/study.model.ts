@@ -1,5 +1,12 @@
 import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from 'sequelize';
+import type {
+  CreationOptional,
+  ForeignKey,
+  InferAttributes,
+  InferCreationAttributes,
+  NonAttribute,
+  Sequelize,
+} from 'sequelize';
 import type { FitModel, StudyStatus } from '@shared/schemas/studies';
 import type { Compound } from './compound.model';
 import type { Lab } from './lab.model';
@@ -81,7 +88,11 @@ export class Study extends Model<InferAttributes<Study>, InferCreationAttributes
         innerFilterCorrection: { type: DataTypes.BOOLEAN, allowNull: false },
         pinnedMechanism: { type: DataTypes.STRING(20), allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-        status: { type: DataTypes.ENUM('draft', 'submitted', 'approved', 'returned'), allowNull: false, defaultValue: 'draft' },
+        status: {
+          type: DataTypes.ENUM('draft', 'submitted', 'approved', 'returned'),
+          allowNull: false,
+          defaultValue: 'draft',
+        },
         revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         previousRevisionId: { type: DataTypes.UUID, allowNull: true },
         isCurrent: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },

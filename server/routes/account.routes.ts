@@ -1,6 +1,10 @@
 import {
-  changePasswordSchema, completePasswordResetSchema, messageSchema, requestPasswordResetSchema,
-  sessionUserSchema, updateProfileSchema,
+  changePasswordSchema,
+  completePasswordResetSchema,
+  messageSchema,
+  requestPasswordResetSchema,
+  sessionUserSchema,
+  updateProfileSchema,
 } from '@shared/schemas/auth';
 import { defineRoute } from '../http/define-route';
 import { actorOf, signedInActor } from '../http/request-context';
@@ -12,7 +16,7 @@ export const accountRoutes = [
   defineRoute({
     method: 'patch',
     path: '/api/account',
-    summary: 'Change the signed-in person\'s display name',
+    summary: "Change the signed-in person's display name",
     tags: ['account'],
     access: 'signed-in',
     request: { body: updateProfileSchema },

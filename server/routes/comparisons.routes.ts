@@ -8,11 +8,15 @@ export const comparisonRoutes = [
   defineRoute({
     method: 'get',
     path: '/api/labs/:labId/comparisons/:side/:compoundId',
-    summary: 'Every study of one emitter (or one quencher): kq, K_SV, driving force, flags, and a Rehm–Weller trend per solvent',
+    summary:
+      'Every study of one emitter (or one quencher): kq, K_SV, driving force, flags, and a Rehm–Weller trend per solvent',
     tags: ['comparisons'],
     access: { lab: 'viewer' },
     request: { params: comparisonParamsSchema, query: comparisonQuerySchema },
-    responses: { 200: { description: 'The comparison', schema: comparisonSchema }, 404: { description: 'No such compound' } },
+    responses: {
+      200: { description: 'The comparison', schema: comparisonSchema },
+      404: { description: 'No such compound' },
+    },
     handler: async ({ req, res, params, query }) => {
       res.json(await compare(labOf(req), params.side, params.compoundId, query));
     },
@@ -27,7 +31,10 @@ export const comparisonRoutes = [
     responses: { 200: { description: 'text/csv' }, 404: { description: 'No such compound' } },
     handler: async ({ req, res, params, query }) => {
       const comparison = await compare(labOf(req), params.side, params.compoundId, query);
-      res.attachment(`comparison-${comparison.compound.name.replace(/[^\w.-]+/g, '_')}.csv`).type('text/csv').send(comparisonCsv(comparison));
+      res
+        .attachment(`comparison-${comparison.compound.name.replace(/[^\w.-]+/g, '_')}.csv`)
+        .type('text/csv')
+        .send(comparisonCsv(comparison));
     },
   }),
 ];

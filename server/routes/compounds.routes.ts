@@ -1,12 +1,23 @@
 import { labParamsSchema } from '@shared/schemas/members';
 import {
-  compoundInputSchema, compoundListQuerySchema, compoundListSchema, compoundParamsSchema, compoundUpdateSchema, versionQuerySchema,
+  compoundInputSchema,
+  compoundListQuerySchema,
+  compoundListSchema,
+  compoundParamsSchema,
+  compoundUpdateSchema,
+  versionQuerySchema,
 } from '@shared/schemas/library';
 import { importReportSchema, libraryImportSchema } from '@shared/schemas/library-import';
 import { compoundDetailSchema } from '@shared/schemas/library-views';
 import { defineRoute } from '../http/define-route';
 import { labOf, signedInActor } from '../http/request-context';
-import { createCompound, deleteCompound, getCompound, listCompounds, updateCompound } from '../services/library/compounds.service';
+import {
+  createCompound,
+  deleteCompound,
+  getCompound,
+  listCompounds,
+  updateCompound,
+} from '../services/library/compounds.service';
 import { exportLibraryCsv } from '../services/library/library-export.service';
 import { importLibraryCsv } from '../services/library/library-import.service';
 
@@ -38,7 +49,9 @@ export const compoundRoutes = [
       409: { description: 'The name is already used in this lab' },
     },
     handler: async ({ req, res, body }) => {
-      res.status(201).json(await createCompound(req.app.locals.services.sequelize, labOf(req), signedInActor(req), body));
+      res
+        .status(201)
+        .json(await createCompound(req.app.locals.services.sequelize, labOf(req), signedInActor(req), body));
     },
   }),
   // Declared before /compounds/:compoundId so "export.csv" is never read as a compound id.
@@ -69,18 +82,28 @@ export const compoundRoutes = [
       400: { description: 'Nothing saved; details name each row and column (path csv.row<n>.<column>)' },
     },
     handler: async ({ req, res, body }) => {
-      const report = await importLibraryCsv(req.app.locals.services.sequelize, labOf(req), signedInActor(req), body.csv, body.dryRun ?? false);
+      const report = await importLibraryCsv(
+        req.app.locals.services.sequelize,
+        labOf(req),
+        signedInActor(req),
+        body.csv,
+        body.dryRun ?? false,
+      );
       res.status(report.saved ? 201 : 200).json(report);
     },
   }),
   defineRoute({
     method: 'get',
     path: '/api/labs/:labId/compounds/:compoundId',
-    summary: 'One compound with its potentials (in the display reference, original beside), lifetimes, E00 and excited-state potentials',
+    summary:
+      'One compound with its potentials (in the display reference, original beside), lifetimes, E00 and excited-state potentials',
     tags,
     access: { lab: 'viewer' },
     request: { params: compoundParamsSchema },
-    responses: { 200: { description: 'The compound', schema: compoundDetailSchema }, 404: { description: 'Not in this lab' } },
+    responses: {
+      200: { description: 'The compound', schema: compoundDetailSchema },
+      404: { description: 'Not in this lab' },
+    },
     handler: async ({ req, res, params }) => {
       res.json(await getCompound(labOf(req), params.compoundId));
     },
@@ -99,7 +122,15 @@ export const compoundRoutes = [
       409: { description: 'stale_version, or the name is taken' },
     },
     handler: async ({ req, res, params, body }) => {
-      res.json(await updateCompound(req.app.locals.services.sequelize, labOf(req), signedInActor(req), params.compoundId, body));
+      res.json(
+        await updateCompound(
+          req.app.locals.services.sequelize,
+          labOf(req),
+          signedInActor(req),
+          params.compoundId,
+          body,
+        ),
+      );
     },
   }),
   defineRoute({
@@ -115,7 +146,13 @@ export const compoundRoutes = [
       409: { description: 'stale_version, or studies use it' },
     },
     handler: async ({ req, res, params, query }) => {
-      await deleteCompound(req.app.locals.services.sequelize, labOf(req), signedInActor(req), params.compoundId, query.version);
+      await deleteCompound(
+        req.app.locals.services.sequelize,
+        labOf(req),
+        signedInActor(req),
+        params.compoundId,
+        query.version,
+      );
       res.status(204).end();
     },
   }),

@@ -29,7 +29,10 @@ export const librarySettingsRoutes = [
     tags: ['library'],
     access: { lab: 'admin' },
     request: { params: labParamsSchema, body: labSettingsUpdateSchema },
-    responses: { 200: { description: 'Changed', schema: labSettingsSchema }, 400: { description: 'Unknown reference or solvent' } },
+    responses: {
+      200: { description: 'Changed', schema: labSettingsSchema },
+      400: { description: 'Unknown reference or solvent' },
+    },
     handler: async ({ req, res, body }) => {
       res.json(await updateLabSettings(req.app.locals.services.sequelize, labOf(req), signedInActor(req), body));
     },
@@ -37,12 +40,16 @@ export const librarySettingsRoutes = [
   defineRoute({
     method: 'get',
     path: '/api/labs/:labId/driving-force',
-    summary: 'Electron-transfer driving force of an emitter–quencher pair, both pathways, Coulomb term apart, energy transfer, and what is missing',
+    summary:
+      'Electron-transfer driving force of an emitter–quencher pair, both pathways, Coulomb term apart, energy transfer, and what is missing',
     tags: ['library'],
     access: { lab: 'viewer' },
     request: { params: labParamsSchema, query: drivingForceQuerySchema },
     responses: {
-      200: { description: 'Driving force (eV and kJ/mol), potentials in the lab’s display reference', schema: drivingForceSchema },
+      200: {
+        description: 'Driving force (eV and kJ/mol), potentials in the lab’s display reference',
+        schema: drivingForceSchema,
+      },
       400: { description: 'Bad ids or an unknown solvent' },
       404: { description: 'A compound is not in this lab' },
     },
@@ -57,7 +64,10 @@ export const librarySettingsRoutes = [
     tags: ['library'],
     access: { lab: 'viewer' },
     request: { params: measurementParamsSchema('lifetimeId') },
-    responses: { 200: { description: 'Studies using the record', schema: lifetimeDependentsSchema }, 404: { description: 'No such lifetime' } },
+    responses: {
+      200: { description: 'Studies using the record', schema: lifetimeDependentsSchema },
+      404: { description: 'No such lifetime' },
+    },
     handler: async ({ req, res, params }) => {
       const { compoundId, lifetimeId } = params as Record<string, string>;
       res.json(await lifetimeDependents(req.app.locals.services.sequelize, labOf(req), compoundId!, lifetimeId!));

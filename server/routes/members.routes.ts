@@ -1,6 +1,14 @@
 import {
-  caughtMailListSchema, changeRoleSchema, invitationParamsSchema, inviteMemberSchema, labParamsSchema,
-  memberParamsSchema, memberSchema, membersListSchema, paginationQuerySchema, pendingInvitationSchema,
+  caughtMailListSchema,
+  changeRoleSchema,
+  invitationParamsSchema,
+  inviteMemberSchema,
+  labParamsSchema,
+  memberParamsSchema,
+  memberSchema,
+  membersListSchema,
+  paginationQuerySchema,
+  pendingInvitationSchema,
 } from '@shared/schemas/members';
 import { defineRoute } from '../http/define-route';
 import { actorOf, labOf, signedInActor } from '../http/request-context';
@@ -56,7 +64,7 @@ export const memberRoutes = [
   defineRoute({
     method: 'patch',
     path: '/api/labs/:labId/members/:memberId',
-    summary: 'Change a member\'s role (the last admin cannot be demoted)',
+    summary: "Change a member's role (the last admin cannot be demoted)",
     tags: ['members'],
     access: { lab: 'admin' },
     request: { params: memberParamsSchema, body: changeRoleSchema },

@@ -12,7 +12,10 @@ export const plannerRoutes = [
     access: { lab: 'viewer' },
     request: { params: labParamsSchema, body: titrationPlanInputSchema },
     responses: {
-      200: { description: 'The plan, with a warning when the emitter is diluted by more than about 10 %', schema: titrationPlanSchema },
+      200: {
+        description: 'The plan, with a warning when the emitter is diluted by more than about 10 %',
+        schema: titrationPlanSchema,
+      },
       400: { description: 'Missing values, or a target the stock cannot reach' },
     },
     handler: ({ res, body }) => {

@@ -7,7 +7,10 @@ import { labOf } from '../http/request-context';
 import { studyReport } from '../services/reports/study-report';
 import { comparisonReport, scenarioReport } from '../services/reports/summary-reports';
 
-const studyParams = z.object({ labId: z.string().uuid('must be a lab id'), studyId: z.string().uuid('must be a study id') });
+const studyParams = z.object({
+  labId: z.string().uuid('must be a lab id'),
+  studyId: z.string().uuid('must be a study id'),
+});
 const sendPdf = (res: Response, { pdf, filename }: { pdf: Buffer; filename: string }) =>
   res.attachment(filename).type('application/pdf').send(pdf);
 

@@ -1,9 +1,18 @@
 import { labParamsSchema, paginationQuerySchema } from '@shared/schemas/members';
-import { scenarioInputSchema, scenarioListSchema, scenarioParamsSchema, scenarioSchema } from '@shared/schemas/scenarios';
+import {
+  scenarioInputSchema,
+  scenarioListSchema,
+  scenarioParamsSchema,
+  scenarioSchema,
+} from '@shared/schemas/scenarios';
 import { defineRoute } from '../http/define-route';
 import { labOf, signedInActor } from '../http/request-context';
 import {
-  createScenario, deleteScenario, getScenario, listScenarios, updateScenario,
+  createScenario,
+  deleteScenario,
+  getScenario,
+  listScenarios,
+  updateScenario,
 } from '../services/scenarios/scenario.service';
 
 const badInput = { description: 'Missing or negative concentration, unknown compound or study' };
@@ -24,7 +33,7 @@ export const scenarioRoutes = [
   defineRoute({
     method: 'post',
     path: '/api/labs/:labId/scenarios',
-    summary: 'Save a reaction scenario; the answer holds each component\'s share of the excited emitter',
+    summary: "Save a reaction scenario; the answer holds each component's share of the excited emitter",
     tags: ['scenarios'],
     access: { lab: 'researcher' },
     request: { params: labParamsSchema, body: scenarioInputSchema },
@@ -37,11 +46,14 @@ export const scenarioRoutes = [
   defineRoute({
     method: 'get',
     path: '/api/labs/:labId/scenarios/:scenarioId',
-    summary: 'One scenario with kq per component (from the lab\'s studies) and the fractions intercepted',
+    summary: "One scenario with kq per component (from the lab's studies) and the fractions intercepted",
     tags: ['scenarios'],
     access: { lab: 'viewer' },
     request: { params: scenarioParamsSchema },
-    responses: { 200: { description: 'Evaluated scenario', schema: scenarioSchema }, 404: { description: 'No such scenario' } },
+    responses: {
+      200: { description: 'Evaluated scenario', schema: scenarioSchema },
+      404: { description: 'No such scenario' },
+    },
     handler: async ({ req, res, params }) => {
       res.json(await getScenario(labOf(req), params.scenarioId));
     },
@@ -72,7 +84,11 @@ export const scenarioRoutes = [
     tags: ['scenarios'],
     access: { lab: 'researcher' },
     request: { params: scenarioParamsSchema },
-    responses: { 204: { description: 'Deleted' }, 403: { description: 'Not your scenario' }, 404: { description: 'No such scenario' } },
+    responses: {
+      204: { description: 'Deleted' },
+      403: { description: 'Not your scenario' },
+      404: { description: 'No such scenario' },
+    },
     handler: async ({ req, res, params }) => {
       await deleteScenario(req.app.locals.services.sequelize, labOf(req), signedInActor(req), params.scenarioId);
       res.status(204).end();

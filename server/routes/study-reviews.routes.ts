@@ -13,39 +13,86 @@ const stepResponses = {
 
 export const studyReviewRoutes = [
   defineRoute({
-    method: 'post', path: '/api/labs/:labId/studies/:studyId/submit', summary: 'Submit for review (owner); reviewers are mailed', tags: ['studies'],
-    access: { lab: 'researcher' }, request: { params: studyParamsSchema, body: reviewCommentSchema }, responses: stepResponses,
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/submit',
+    summary: 'Submit for review (owner); reviewers are mailed',
+    tags: ['studies'],
+    access: { lab: 'researcher' },
+    request: { params: studyParamsSchema, body: reviewCommentSchema },
+    responses: stepResponses,
     handler: async ({ req, res, params, body }) => {
       const { sequelize, mailer, publicUrl } = req.app.locals.services;
-      res.json(await reviewStep(sequelize, labOf(req), params.studyId, 'submit', body.comment, { actor: signedInActor(req), mailer, publicUrl }));
+      res.json(
+        await reviewStep(sequelize, labOf(req), params.studyId, 'submit', body.comment, {
+          actor: signedInActor(req),
+          mailer,
+          publicUrl,
+        }),
+      );
     },
   }),
   defineRoute({
-    method: 'post', path: '/api/labs/:labId/studies/:studyId/approve', summary: 'Approve a submitted study (reviewer); it is locked and the owner is mailed', tags: ['studies'],
-    access: { lab: 'reviewer' }, request: { params: studyParamsSchema, body: reviewCommentSchema }, responses: stepResponses,
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/approve',
+    summary: 'Approve a submitted study (reviewer); it is locked and the owner is mailed',
+    tags: ['studies'],
+    access: { lab: 'reviewer' },
+    request: { params: studyParamsSchema, body: reviewCommentSchema },
+    responses: stepResponses,
     handler: async ({ req, res, params, body }) => {
       const { sequelize, mailer, publicUrl } = req.app.locals.services;
-      res.json(await reviewStep(sequelize, labOf(req), params.studyId, 'approve', body.comment, { actor: signedInActor(req), mailer, publicUrl }));
+      res.json(
+        await reviewStep(sequelize, labOf(req), params.studyId, 'approve', body.comment, {
+          actor: signedInActor(req),
+          mailer,
+          publicUrl,
+        }),
+      );
     },
   }),
   defineRoute({
-    method: 'post', path: '/api/labs/:labId/studies/:studyId/return', summary: 'Return a submitted study with a comment (reviewer); the owner is mailed', tags: ['studies'],
-    access: { lab: 'reviewer' }, request: { params: studyParamsSchema, body: returnStudySchema }, responses: { ...stepResponses, 400: { description: 'A comment is required' } },
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/return',
+    summary: 'Return a submitted study with a comment (reviewer); the owner is mailed',
+    tags: ['studies'],
+    access: { lab: 'reviewer' },
+    request: { params: studyParamsSchema, body: returnStudySchema },
+    responses: { ...stepResponses, 400: { description: 'A comment is required' } },
     handler: async ({ req, res, params, body }) => {
       const { sequelize, mailer, publicUrl } = req.app.locals.services;
-      res.json(await reviewStep(sequelize, labOf(req), params.studyId, 'return', body.comment, { actor: signedInActor(req), mailer, publicUrl }));
+      res.json(
+        await reviewStep(sequelize, labOf(req), params.studyId, 'return', body.comment, {
+          actor: signedInActor(req),
+          mailer,
+          publicUrl,
+        }),
+      );
     },
   }),
   defineRoute({
-    method: 'post', path: '/api/labs/:labId/studies/:studyId/comments', summary: 'Add a comment to the study\'s thread', tags: ['studies'],
-    access: { lab: 'researcher' }, request: { params: studyParamsSchema, body: returnStudySchema }, responses: { ...stepResponses, 400: { description: 'Empty comment' } },
-    handler: async ({ req, res, params, body }) => { res.json(await addComment(labOf(req), params.studyId, body.comment, signedInActor(req))); },
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/comments',
+    summary: "Add a comment to the study's thread",
+    tags: ['studies'],
+    access: { lab: 'researcher' },
+    request: { params: studyParamsSchema, body: returnStudySchema },
+    responses: { ...stepResponses, 400: { description: 'Empty comment' } },
+    handler: async ({ req, res, params, body }) => {
+      res.json(await addComment(labOf(req), params.studyId, body.comment, signedInActor(req)));
+    },
   }),
   defineRoute({
-    method: 'post', path: '/api/labs/:labId/studies/:studyId/revisions', summary: 'Start a new draft revision of an approved study (owner or reviewer); the approved one is kept', tags: ['studies'],
-    access: { lab: 'researcher' }, request: { params: studyParamsSchema }, responses: { ...stepResponses, 201: { description: 'The new revision', schema: studyDetailSchema } },
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/revisions',
+    summary: 'Start a new draft revision of an approved study (owner or reviewer); the approved one is kept',
+    tags: ['studies'],
+    access: { lab: 'researcher' },
+    request: { params: studyParamsSchema },
+    responses: { ...stepResponses, 201: { description: 'The new revision', schema: studyDetailSchema } },
     handler: async ({ req, res, params }) => {
-      res.status(201).json(await startRevision(req.app.locals.services.sequelize, labOf(req), params.studyId, signedInActor(req)));
+      res
+        .status(201)
+        .json(await startRevision(req.app.locals.services.sequelize, labOf(req), params.studyId, signedInActor(req)));
     },
   }),
 ];

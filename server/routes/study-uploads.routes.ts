@@ -1,7 +1,12 @@
 import type { Request, Response } from 'express';
 import multer from 'multer';
 import { studyParamsSchema } from '@shared/schemas/studies';
-import { applyUploadSchema, previewUploadSchema, uploadParamsSchema, uploadPreviewSchema } from '@shared/schemas/study-uploads';
+import {
+  applyUploadSchema,
+  previewUploadSchema,
+  uploadParamsSchema,
+  uploadPreviewSchema,
+} from '@shared/schemas/study-uploads';
 import { studyDetailSchema } from '@shared/schemas/study-detail';
 import { defineRoute } from '../http/define-route';
 import { labOf, signedInActor } from '../http/request-context';
@@ -10,20 +15,38 @@ import { ACCEPTED_EXTENSIONS, isAcceptedFile, MAX_UPLOAD_BYTES } from '../servic
 import { applyUpload, downloadUpload, previewUpload, receiveUpload } from '../services/studies/study-upload.service';
 import { getStudyDetail } from '../services/studies/study.service';
 
-const single = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 } }).single('file');
+const single = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 },
+}).single('file');
 
 /** Runs multer inside the handler (memory storage, 20 MB), so the route stays one defineRoute spec. */
 function receiveFile(req: Request, res: Response): Promise<Express.Multer.File> {
   if (!req.is('multipart/form-data')) {
-    return Promise.reject(new AppError('no_file', 'Send the file as multipart/form-data in a field named "file".', 400, [{ path: 'body.file', message: 'missing' }]));
+    return Promise.reject(
+      new AppError('no_file', 'Send the file as multipart/form-data in a field named "file".', 400, [
+        { path: 'body.file', message: 'missing' },
+      ]),
+    );
   }
   return new Promise((resolve, reject) => {
     single(req, res, (error: unknown) => {
       if (error instanceof multer.MulterError && error.code === 'LIMIT_FILE_SIZE') {
         req.resume(); // read the rest, so the client gets the answer rather than a reset connection
-        reject(new AppError('file_too_large', `The file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit.`, 413));
+        reject(
+          new AppError(
+            'file_too_large',
+            `The file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit.`,
+            413,
+          ),
+        );
       } else if (error) reject(new AppError('bad_upload', (error as Error).message, 400));
-      else if (!req.file) reject(new AppError('no_file', 'No file arrived; send it in a field named "file".', 400, [{ path: 'body.file', message: 'missing' }]));
+      else if (!req.file)
+        reject(
+          new AppError('no_file', 'No file arrived; send it in a field named "file".', 400, [
+            { path: 'body.file', message: 'missing' },
+          ]),
+        );
       else resolve(req.file);
     });
   });
@@ -31,47 +54,90 @@ function receiveFile(req: Request, res: Response): Promise<Express.Multer.File> 
 
 export const studyUploadRoutes = [
   defineRoute({
-    method: 'post', path: '/api/labs/:labId/studies/:studyId/uploads',
-    summary: 'Upload a raw file (multipart field "file"; .csv .tsv .txt .dat .asc .xlsx, JCAMP-DX .jdx .dx; 20 MB). Kept as received; answers a preview, saves no points', tags: ['studies'],
-    access: { lab: 'researcher' }, request: { params: studyParamsSchema },
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/uploads',
+    summary:
+      'Upload a raw file (multipart field "file"; .csv .tsv .txt .dat .asc .xlsx, JCAMP-DX .jdx .dx; 20 MB). Kept as received; answers a preview, saves no points',
+    tags: ['studies'],
+    access: { lab: 'researcher' },
+    request: { params: studyParamsSchema },
     responses: {
-      201: { description: 'Parsed: the table, a proposed mapping and the points it gives', schema: uploadPreviewSchema },
-      400: { description: 'No file' }, 403: { description: 'Not the owner' }, 404: { description: 'No such study' },
+      201: {
+        description: 'Parsed: the table, a proposed mapping and the points it gives',
+        schema: uploadPreviewSchema,
+      },
+      400: { description: 'No file' },
+      403: { description: 'Not the owner' },
+      404: { description: 'No such study' },
       409: { description: 'The same bytes were uploaded to this study before, or the study is locked' },
-      413: { description: 'Larger than 20 MB' }, 415: { description: 'Not an accepted file type' },
+      413: { description: 'Larger than 20 MB' },
+      415: { description: 'Not an accepted file type' },
       422: { description: 'Kept but unreadable; details name row and column' },
     },
     handler: async ({ req, res, params }) => {
       const file = await receiveFile(req, res);
       if (!isAcceptedFile(file.originalname)) {
-        throw new AppError('unsupported_type', `"${file.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`, 415);
+        throw new AppError(
+          'unsupported_type',
+          `"${file.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
+          415,
+        );
       }
       const lab = labOf(req);
-      res.status(201).json(await receiveUpload(req.app.locals.services.sequelize, lab, params.studyId, file, signedInActor(req)));
+      res
+        .status(201)
+        .json(await receiveUpload(req.app.locals.services.sequelize, lab, params.studyId, file, signedInActor(req)));
     },
   }),
   defineRoute({
-    method: 'post', path: '/api/labs/:labId/studies/:studyId/uploads/:uploadId/preview', summary: 'Read a kept upload again with another mapping (columns, units, spectrum window); saves nothing', tags: ['studies'],
-    access: { lab: 'researcher' }, request: { params: uploadParamsSchema, body: previewUploadSchema },
-    responses: { 200: { description: 'Preview; problems name row and column', schema: uploadPreviewSchema }, 404: { description: 'No such upload' } },
-    handler: async ({ req, res, params, body }) => { res.json(await previewUpload(labOf(req), params.studyId, params.uploadId, body.mapping)); },
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/uploads/:uploadId/preview',
+    summary: 'Read a kept upload again with another mapping (columns, units, spectrum window); saves nothing',
+    tags: ['studies'],
+    access: { lab: 'researcher' },
+    request: { params: uploadParamsSchema, body: previewUploadSchema },
+    responses: {
+      200: { description: 'Preview; problems name row and column', schema: uploadPreviewSchema },
+      404: { description: 'No such upload' },
+    },
+    handler: async ({ req, res, params, body }) => {
+      res.json(await previewUpload(labOf(req), params.studyId, params.uploadId, body.mapping));
+    },
   }),
   defineRoute({
-    method: 'post', path: '/api/labs/:labId/studies/:studyId/uploads/:uploadId/apply', summary: 'Confirm a mapping: the upload\'s points replace (or extend) the series when they can be fitted', tags: ['studies'],
-    access: { lab: 'researcher' }, request: { params: uploadParamsSchema, body: applyUploadSchema },
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/uploads/:uploadId/apply',
+    summary: "Confirm a mapping: the upload's points replace (or extend) the series when they can be fitted",
+    tags: ['studies'],
+    access: { lab: 'researcher' },
+    request: { params: uploadParamsSchema, body: applyUploadSchema },
     responses: {
-      200: { description: 'The study with the new series and fit', schema: studyDetailSchema }, 403: { description: 'Not the owner' }, 404: { description: 'No such upload' },
-      409: { description: 'Stale version or locked study' }, 422: { description: 'Unreadable cells or a series that cannot be fitted; nothing saved' },
+      200: { description: 'The study with the new series and fit', schema: studyDetailSchema },
+      403: { description: 'Not the owner' },
+      404: { description: 'No such upload' },
+      409: { description: 'Stale version or locked study' },
+      422: { description: 'Unreadable cells or a series that cannot be fitted; nothing saved' },
     },
     handler: async ({ req, res, params, body }) => {
       const lab = labOf(req);
-      await applyUpload(req.app.locals.services.sequelize, lab, params.studyId, params.uploadId, body, signedInActor(req));
+      await applyUpload(
+        req.app.locals.services.sequelize,
+        lab,
+        params.studyId,
+        params.uploadId,
+        body,
+        signedInActor(req),
+      );
       res.json(await getStudyDetail(lab, params.studyId));
     },
   }),
   defineRoute({
-    method: 'get', path: '/api/labs/:labId/studies/:studyId/uploads/:uploadId/file', summary: 'Download a raw upload exactly as received', tags: ['studies'],
-    access: { lab: 'viewer' }, request: { params: uploadParamsSchema },
+    method: 'get',
+    path: '/api/labs/:labId/studies/:studyId/uploads/:uploadId/file',
+    summary: 'Download a raw upload exactly as received',
+    tags: ['studies'],
+    access: { lab: 'viewer' },
+    request: { params: uploadParamsSchema },
     responses: { 200: { description: 'The bytes' }, 404: { description: 'No such upload' } },
     handler: async ({ req, res, params }) => {
       const file = await downloadUpload(labOf(req), params.studyId, params.uploadId);

@@ -13,12 +13,21 @@ export const demoLabs = [
 
 /** Demo sign-ins, listed in the README as demo-only. */
 export const demoPassword = 'halflight-demo';
-export const demoPeople: Array<{ email: string; name: string; roles: Partial<Record<'marram' | 'saltmarsh', Role>> }> = [
-  { email: 'ines.okafor@demo.halflight.example', name: 'Ines Okafor', roles: { marram: 'admin', saltmarsh: 'researcher' } },
-  { email: 'tomasz.wren@demo.halflight.example', name: 'Tomasz Wren', roles: { marram: 'reviewer' } },
-  { email: 'priya.halvorsen@demo.halflight.example', name: 'Priya Halvorsen', roles: { marram: 'researcher' } },
-  { email: 'jonah.mbeki@demo.halflight.example', name: 'Jonah Mbeki', roles: { marram: 'viewer', saltmarsh: 'admin' } },
-];
+export const demoPeople: Array<{ email: string; name: string; roles: Partial<Record<'marram' | 'saltmarsh', Role>> }> =
+  [
+    {
+      email: 'ines.okafor@demo.halflight.example',
+      name: 'Ines Okafor',
+      roles: { marram: 'admin', saltmarsh: 'researcher' },
+    },
+    { email: 'tomasz.wren@demo.halflight.example', name: 'Tomasz Wren', roles: { marram: 'reviewer' } },
+    { email: 'priya.halvorsen@demo.halflight.example', name: 'Priya Halvorsen', roles: { marram: 'researcher' } },
+    {
+      email: 'jonah.mbeki@demo.halflight.example',
+      name: 'Jonah Mbeki',
+      roles: { marram: 'viewer', saltmarsh: 'admin' },
+    },
+  ];
 
 /**
  * Loads the demo scenario once, on a database without it. Later features add their records

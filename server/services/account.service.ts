@@ -52,10 +52,7 @@ export async function completePasswordReset(
     await reset.update({ usedAt: new Date() }, { transaction });
     await User.update({ passwordHash }, { where: { id: reset.userId }, transaction });
     // Any other outstanding link for this person dies with this one.
-    await PasswordReset.update(
-      { usedAt: new Date() },
-      { where: { userId: reset.userId, usedAt: null }, transaction },
-    );
+    await PasswordReset.update({ usedAt: new Date() }, { where: { userId: reset.userId, usedAt: null }, transaction });
     await recordAudit(
       { ...actor, userId: actor.userId ?? reset.userId },
       { action: 'password_reset_completed', targetType: 'user', targetId: reset.userId },

@@ -4,7 +4,12 @@ import { Lab, Membership, User } from '../models';
 import { recordAudit } from './audit.service';
 
 export function slugify(name: string): string {
-  const base = name.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60);
+  const base = name
+    .toLowerCase()
+    .normalize('NFKD')
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '')
+    .slice(0, 60);
   return base || 'lab';
 }
 
@@ -20,13 +25,22 @@ export async function ensureFirstAdmin(
   if (await User.count({ where: { email } })) return { created: false };
   const passwordHash = await hashPassword(input.password);
   await sequelize.transaction(async (transaction) => {
-    const lab = await Lab.create({ name: input.labName, slug: `${slugify(input.labName)}-${Date.now().toString(36)}` }, { transaction });
+    const lab = await Lab.create(
+      { name: input.labName, slug: `${slugify(input.labName)}-${Date.now().toString(36)}` },
+      { transaction },
+    );
     const name = email.split('@')[0] ?? email;
     const user = await User.create({ email, name, passwordHash }, { transaction });
     const membership = await Membership.create({ labId: lab.id, userId: user.id, role: 'admin' }, { transaction });
     await recordAudit(
       { userId: null, ip: null },
-      { action: 'membership_added', labId: lab.id, targetType: 'membership', targetId: membership.id, details: { role: 'admin', via: 'first-admin setting' } },
+      {
+        action: 'membership_added',
+        labId: lab.id,
+        targetType: 'membership',
+        targetId: membership.id,
+        details: { role: 'admin', via: 'first-admin setting' },
+      },
       transaction,
     );
   });

@@ -37,7 +37,11 @@ export async function inviteMember(
     throw new AppError('already_member', `${input.email} is already a member of this lab.`, 409);
   }
   if (await Invitation.count({ where: { labId: lab.id, email: input.email, ...openInvitation() } })) {
-    throw new AppError('already_invited', `${input.email} already has an open invitation; revoke it to send a new one.`, 409);
+    throw new AppError(
+      'already_invited',
+      `${input.email} already has an open invitation; revoke it to send a new one.`,
+      409,
+    );
   }
   const inviter = await User.findByPk(context.actor.userId);
   const { token, tokenHash } = createLinkToken();
@@ -128,7 +132,10 @@ export async function acceptInvitation(
           { path: 'body.password', message: 'must be at least 10 characters' },
         ]);
       }
-      user = await User.create({ email: invitation.email, name: input.name, passwordHash: newPasswordHash }, { transaction });
+      user = await User.create(
+        { email: invitation.email, name: input.name, passwordHash: newPasswordHash },
+        { transaction },
+      );
     }
     await invitation.update({ acceptedAt: new Date() }, { transaction });
     const membership = await Membership.create(

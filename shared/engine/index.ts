@@ -25,7 +25,12 @@ export type { ParameterEstimate } from './stats/parameter-estimate';
 
 export { qualityFlag, type QualityFlag, type QualityFlagCode } from './flags/quality-flag';
 
-export { fitSternVolmer, RECOMMENDED_DISTINCT_CONCENTRATIONS, type SternVolmerFit, type SternVolmerInput } from './stern-volmer/fit-stern-volmer';
+export {
+  fitSternVolmer,
+  RECOMMENDED_DISTINCT_CONCENTRATIONS,
+  type SternVolmerFit,
+  type SternVolmerInput,
+} from './stern-volmer/fit-stern-volmer';
 export { fitIntensitySternVolmer, type IntensitySternVolmerFit } from './stern-volmer/fit-intensity-stern-volmer';
 export { fitLifetimeSternVolmer, type LifetimeSternVolmerFit } from './stern-volmer/fit-lifetime-stern-volmer';
 export { referenceFromBlanks, type ReferenceValue } from './stern-volmer/reference-from-blanks';
@@ -43,7 +48,11 @@ export { rehmWellerRateConstant, REHM_WELLER_KD_OVER_KZ } from './kinetics/rehm-
 export { fitRehmWeller, type RehmWellerFit } from './kinetics/fit-rehm-weller';
 
 export { correctDilution, type DilutionCorrectedPoint } from './corrections/correct-dilution';
-export { correctInnerFilter, INNER_FILTER_FLAG_THRESHOLD, type InnerFilterCorrection } from './corrections/correct-inner-filter';
+export {
+  correctInnerFilter,
+  INNER_FILTER_FLAG_THRESHOLD,
+  type InnerFilterCorrection,
+} from './corrections/correct-inner-filter';
 
 export {
   AQUEOUS_REFERENCES,
@@ -57,7 +66,11 @@ export { e00FromWavelength, MIN_WAVELENGTH_NM, MAX_WAVELENGTH_NM } from './elect
 export { excitedStatePotentials, type ExcitedStatePotentials } from './electrochem/excited-state-potentials';
 export { coulombWorkTerm, DEFAULT_ENCOUNTER_DISTANCE } from './electrochem/coulomb-work-term';
 export { electronTransferDrivingForce, type DrivingForce } from './electrochem/electron-transfer-driving-force';
-export { quenchingDrivingForces, type QuenchingDrivingForces, type QuenchingPathway } from './electrochem/quenching-driving-forces';
+export {
+  quenchingDrivingForces,
+  type QuenchingDrivingForces,
+  type QuenchingPathway,
+} from './electrochem/quenching-driving-forces';
 export { energyTransferFeasibility, type EnergyTransferFeasibility } from './electrochem/energy-transfer-feasibility';
 
 export { planTitration, DILUTION_WARNING, type TitrationPlan, type TitrationStep } from './planner/plan-titration';

@@ -36,7 +36,9 @@ export const comparisonRowSchema = z.object({
 export const trendSchema = z.object({
   solvent: z.string(),
   diffusionLimit: z.number().nullable().describe('k_d, M^-1 s^-1'),
-  points: z.array(z.object({ studyId: z.string(), drivingForce: z.number(), log10Kq: z.number(), approved: z.boolean() })),
+  points: z.array(
+    z.object({ studyId: z.string(), drivingForce: z.number(), log10Kq: z.number(), approved: z.boolean() }),
+  ),
   fit: z
     .object({
       reorganisationEnergy: z.number().describe('lambda, eV'),

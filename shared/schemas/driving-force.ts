@@ -10,7 +10,12 @@ export const drivingForceQuerySchema = z.object({
   quencherId: z.string().uuid('must be a compound id'),
   solvent: solventSchema.describe('Solvent of the study; its permittivity sets the Coulomb term'),
   pinned: pathwaySchema.optional().describe('The mechanism the user expects'),
-  distance: z.coerce.number().gt(0).max(3e-9).optional().describe('Encounter distance for the Coulomb term, m (default 7e-10)'),
+  distance: z.coerce
+    .number()
+    .gt(0)
+    .max(3e-9)
+    .optional()
+    .describe('Encounter distance for the Coulomb term, m (default 7e-10)'),
 });
 
 const pathwayResultSchema = z
@@ -58,7 +63,11 @@ export const drivingForceSchema = z
     pinned: pathwaySchema.nullable(),
     coulomb: z.object({ permittivity: z.number(), distance: z.number().describe('m'), source: z.string() }),
     energyTransfer: z
-      .object({ possible: z.boolean(), energyDifference: z.number().describe('E_T(quencher) - E_T(emitter), eV'), kilojoulesPerMole: z.number() })
+      .object({
+        possible: z.boolean(),
+        energyDifference: z.number().describe('E_T(quencher) - E_T(emitter), eV'),
+        kilojoulesPerMole: z.number(),
+      })
       .nullable(),
     missing: z.array(missingInputSchema),
     warnings: z.array(z.string()),

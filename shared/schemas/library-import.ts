@@ -8,28 +8,62 @@ import { z } from 'zod';
  * row `source` is where the triplet energy comes from.
  */
 export const libraryCsvColumns = [
-  'record', 'compound', 'role_hint', 'smiles', 'formula', 'emissive_state', 'triplet_energy_ev', 'charge',
-  'couple', 'potential_v', 'reference', 'kind', 'electrolyte', 'solvent',
-  'lifetime_s', 'uncertainty_s', 'atmosphere', 'temperature_k', 'e00_ev', 'wavelength_nm', 'method', 'source', 'notes',
+  'record',
+  'compound',
+  'role_hint',
+  'smiles',
+  'formula',
+  'emissive_state',
+  'triplet_energy_ev',
+  'charge',
+  'couple',
+  'potential_v',
+  'reference',
+  'kind',
+  'electrolyte',
+  'solvent',
+  'lifetime_s',
+  'uncertainty_s',
+  'atmosphere',
+  'temperature_k',
+  'e00_ev',
+  'wavelength_nm',
+  'method',
+  'source',
+  'notes',
 ] as const;
 export type LibraryCsvColumn = (typeof libraryCsvColumns)[number];
 export const libraryRecordKinds = ['compound', 'potential', 'lifetime', 'e00'] as const;
 
 export const libraryImportSchema = z
   .object({
-    csv: z.string().min(1, 'must not be empty').describe('The file’s text, UTF-8, comma separated (or semicolon separated with decimal commas), header row first'),
+    csv: z
+      .string()
+      .min(1, 'must not be empty')
+      .describe(
+        'The file’s text, UTF-8, comma separated (or semicolon separated with decimal commas), header row first',
+      ),
     dryRun: z.boolean().optional().describe('Only check the file and report; save nothing'),
   })
   .meta({ id: 'LibraryImport' });
 
 export const importProblemSchema = z
-  .object({ row: z.number().int().describe('Line number in the file, header = 1'), column: z.string(), reason: z.string() })
+  .object({
+    row: z.number().int().describe('Line number in the file, header = 1'),
+    column: z.string(),
+    reason: z.string(),
+  })
   .meta({ id: 'ImportProblem' });
 
 export const importReportSchema = z
   .object({
     saved: z.boolean(),
-    counts: z.object({ compounds: z.number().int(), potentials: z.number().int(), lifetimes: z.number().int(), energies: z.number().int() }),
+    counts: z.object({
+      compounds: z.number().int(),
+      potentials: z.number().int(),
+      lifetimes: z.number().int(),
+      energies: z.number().int(),
+    }),
     problems: z.array(importProblemSchema),
   })
   .meta({ id: 'LibraryImportReport' });

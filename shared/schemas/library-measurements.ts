@@ -14,12 +14,18 @@ export const atmospheres = ['argon', 'nitrogen', 'air', 'oxygen', 'vacuum', 'oth
 
 const text = (max: number) => z.string().trim().max(max, `must be at most ${max} characters`);
 const optionalText = (max: number) =>
-  text(max).nullable().optional().transform((value) => (value === '' ? null : value));
+  text(max)
+    .nullable()
+    .optional()
+    .transform((value) => (value === '' ? null : value));
 const version = z.number({ error: 'must be the version you read' }).int().min(0);
 
 const potentialFields = z.object({
   couple: z.enum(potentialCouples, { error: 'must be oxidation (M+/M) or reduction (M/M-)' }),
-  value: z.number({ error: 'must be a number in volts' }).min(-5, 'must be at least -5 V').max(5, 'must be at most 5 V')
+  value: z
+    .number({ error: 'must be a number in volts' })
+    .min(-5, 'must be at least -5 V')
+    .max(5, 'must be at most 5 V')
     .describe('V against `reference`'),
   reference: referenceElectrodeSchema,
   solvent: solventSchema,
@@ -32,14 +38,25 @@ export const potentialInputSchema = potentialFields.meta({ id: 'RedoxPotentialIn
 export const potentialUpdateSchema = potentialFields.partial().extend({ version }).meta({ id: 'RedoxPotentialUpdate' });
 
 const lifetimeFields = z.object({
-  value: z.number({ error: 'must be a number in seconds' }).gt(0, 'must be above 0 s').max(1, 'must be at most 1 s')
+  value: z
+    .number({ error: 'must be a number in seconds' })
+    .gt(0, 'must be above 0 s')
+    .max(1, 'must be at most 1 s')
     .describe('Unquenched lifetime, s'),
-  uncertainty: z.number({ error: 'must be a number in seconds' }).min(0, 'must not be negative').nullable().optional()
+  uncertainty: z
+    .number({ error: 'must be a number in seconds' })
+    .min(0, 'must not be negative')
+    .nullable()
+    .optional()
     .describe('One standard uncertainty, s'),
   solvent: solventSchema,
   atmosphere: z.enum(atmospheres, { error: 'must be one of the listed atmospheres' }),
-  temperature: z.number({ error: 'must be a number in kelvin' }).min(77, 'must be at least 77 K').max(500, 'must be at most 500 K')
-    .optional().describe('K (default 298.15)'),
+  temperature: z
+    .number({ error: 'must be a number in kelvin' })
+    .min(77, 'must be at least 77 K')
+    .max(500, 'must be at most 500 K')
+    .optional()
+    .describe('K (default 298.15)'),
   method: text(120).min(1, 'must say how it was measured'),
   source: optionalText(400),
   notes: text(4000).optional(),
@@ -47,21 +64,29 @@ const lifetimeFields = z.object({
 export const lifetimeInputSchema = lifetimeFields.meta({ id: 'LifetimeInput' });
 export const lifetimeUpdateSchema = lifetimeFields.partial().extend({ version }).meta({ id: 'LifetimeUpdate' });
 
-const wavelength = z.number({ error: 'must be a number in nm' })
+const wavelength = z
+  .number({ error: 'must be a number in nm' })
   .min(MIN_WAVELENGTH_NM, `must be at least ${MIN_WAVELENGTH_NM} nm`)
   .max(MAX_WAVELENGTH_NM, `must be at most ${MAX_WAVELENGTH_NM} nm`);
 const energyFields = z.object({
-  value: z.number({ error: 'must be a number in eV' }).gt(0, 'must be above 0 eV').max(6, 'must be at most 6 eV').optional()
+  value: z
+    .number({ error: 'must be a number in eV' })
+    .gt(0, 'must be above 0 eV')
+    .max(6, 'must be at most 6 eV')
+    .optional()
     .describe('E00, eV; give this or `wavelength`'),
   wavelength: wavelength.optional().describe('nm; E00 = 1239.84198 / wavelength (CODATA)'),
   method: text(120).min(1, 'must say how E00 was obtained'),
   source: optionalText(400),
   notes: text(4000).optional(),
 });
-const oneOf = (input: { value?: number; wavelength?: number }) => (input.value === undefined) !== (input.wavelength === undefined);
+const oneOf = (input: { value?: number; wavelength?: number }) =>
+  (input.value === undefined) !== (input.wavelength === undefined);
 const oneOfIssue = { message: 'give E00 either in eV or as a wavelength in nm, not both', path: ['value'] };
 export const energyInputSchema = energyFields.refine(oneOf, oneOfIssue).meta({ id: 'ExcitedStateEnergyInput' });
-export const energyUpdateSchema = energyFields.partial().extend({ version })
+export const energyUpdateSchema = energyFields
+  .partial()
+  .extend({ version })
   .refine((input) => input.value === undefined || input.wavelength === undefined, oneOfIssue)
   .meta({ id: 'ExcitedStateEnergyUpdate' });
 
@@ -77,7 +102,9 @@ const trail = {
   updatedAt: z.string(),
 };
 
-export const potentialWarningSchema = z.object({ code: z.string(), message: z.string() }).meta({ id: 'PotentialWarning' });
+export const potentialWarningSchema = z
+  .object({ code: z.string(), message: z.string() })
+  .meta({ id: 'PotentialWarning' });
 export const displayedPotentialSchema = z
   .object({
     value: z.number().describe('V against `reference`'),
@@ -114,7 +141,12 @@ export const lifetimeSchema = z
   .meta({ id: 'Lifetime' });
 
 export const energySchema = z
-  .object({ ...trail, value: z.number().describe('eV'), wavelength: z.number().nullable().describe('nm'), method: z.string() })
+  .object({
+    ...trail,
+    value: z.number().describe('eV'),
+    wavelength: z.number().nullable().describe('nm'),
+    method: z.string(),
+  })
   .meta({ id: 'ExcitedStateEnergy' });
 
 export const measurementParamsSchema = (idName: 'potentialId' | 'lifetimeId' | 'energyId') =>

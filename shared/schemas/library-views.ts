@@ -8,12 +8,23 @@ export const usedPotentialSchema = z
   .object({
     potentialId: z.string().uuid(),
     value: z.number().describe('V against the display reference'),
-    original: z.object({ value: z.number(), reference: z.string(), solvent: z.string(), kind: z.string(), source: z.string().nullable() }),
+    original: z.object({
+      value: z.number(),
+      reference: z.string(),
+      solvent: z.string(),
+      kind: z.string(),
+      source: z.string().nullable(),
+    }),
   })
   .meta({ id: 'UsedPotential' });
 
 export const usedEnergySchema = z
-  .object({ energyId: z.string().uuid(), value: z.number().describe('eV'), wavelength: z.number().nullable(), method: z.string() })
+  .object({
+    energyId: z.string().uuid(),
+    value: z.number().describe('eV'),
+    wavelength: z.number().nullable(),
+    method: z.string(),
+  })
   .meta({ id: 'UsedEnergy' });
 
 /** E*(PC+/PC*) = E(PC+/PC) - E00 and E*(PC* / PC-) = E(PC/PC-) + E00, from the inputs listed beside them. */
@@ -58,7 +69,7 @@ export const lifetimeDependentSchema = z
     tau0: z.number().nullable().describe('s, as the study holds it now'),
     tau0Uncertainty: z.number().nullable().describe('s, as the study holds it now'),
     matchesRecord: z.boolean().describe('False when the record changed after the study took its tau0'),
-    fitModel: fitModelSchema.describe('the study\'s current model, for a refit'),
+    fitModel: fitModelSchema.describe("the study's current model, for a refit"),
     version: z.number().int().describe('send it with PATCH /studies/:studyId'),
     ownerId: z.string().uuid().nullable().describe('only the owner refits a study'),
     ownerName: z.string().nullable(),

@@ -19,11 +19,26 @@ export const solventSchema = z
   .meta({ id: 'SolventId', description: 'Solvent id of the engine’s table, e.g. "acetonitrile"' });
 
 /** The trade's own labels for the character of the emissive state. */
-export const emissiveStates = ['MLCT', 'LLCT', 'ILCT', 'LMCT', 'LC', 'pi,pi*', 'n,pi*', 'charge transfer', 'mixed'] as const;
+export const emissiveStates = [
+  'MLCT',
+  'LLCT',
+  'ILCT',
+  'LMCT',
+  'LC',
+  'pi,pi*',
+  'n,pi*',
+  'charge transfer',
+  'mixed',
+] as const;
 export const emissiveStateSchema = z.enum(emissiveStates, { error: 'must be one of the listed state characters' });
 
 const optionalText = (max: number) =>
-  z.string().trim().max(max, `must be at most ${max} characters`).nullable().optional()
+  z
+    .string()
+    .trim()
+    .max(max, `must be at most ${max} characters`)
+    .nullable()
+    .optional()
     .transform((value) => (value === '' ? null : value));
 
 export const compoundInputSchema = z
@@ -42,7 +57,12 @@ export const compoundInputSchema = z
       .optional()
       .describe('Triplet energy E_T, eV'),
     tripletEnergySource: optionalText(400),
-    charge: z.number({ error: 'must be a whole number' }).int('must be a whole number').min(-6).max(6).optional()
+    charge: z
+      .number({ error: 'must be a whole number' })
+      .int('must be a whole number')
+      .min(-6)
+      .max(6)
+      .optional()
       .describe('Charge number before electron transfer, for the Coulomb term (default 0)'),
   })
   .meta({ id: 'CompoundInput' });
@@ -75,14 +95,18 @@ export const compoundSummarySchema = z
 
 export const compoundListQuerySchema = z.object({
   search: z.string().trim().max(160).optional().describe('Part of the name, any case'),
-  roleHint: compoundRoleHintSchema.optional()
-    .describe('photocatalyst or quencher also list compounds marked "both"'),
+  roleHint: compoundRoleHintSchema.optional().describe('photocatalyst or quencher also list compounds marked "both"'),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(100).default(25),
 });
 
 export const compoundListSchema = z
-  .object({ items: z.array(compoundSummarySchema), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() })
+  .object({
+    items: z.array(compoundSummarySchema),
+    total: z.number().int(),
+    page: z.number().int(),
+    pageSize: z.number().int(),
+  })
   .meta({ id: 'CompoundList' });
 
 export const compoundParamsSchema = z.object({

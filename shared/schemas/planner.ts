@@ -1,6 +1,7 @@
 import { z } from 'zod';
 
-const positive = (what: string) => z.number({ error: `${what} must be a number` }).positive(`${what} must be above zero`);
+const positive = (what: string) =>
+  z.number({ error: `${what} must be a number` }).positive(`${what} must be above zero`);
 
 /** A titration to plan; every value SI-coherent (L, mol/L). */
 export const titrationPlanInputSchema = z

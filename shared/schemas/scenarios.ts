@@ -11,7 +11,12 @@ export const scenarioComponentInputSchema = z
       .positive('must be above zero')
       .describe('concentration in the reaction, mol/L'),
     studyId: uuid('a study id').nullable().optional().describe('the study whose kq to use; empty picks the best'),
-    manualKq: z.number().positive('must be above zero').nullable().optional().describe('M^-1 s^-1, dissolved oxygen only'),
+    manualKq: z
+      .number()
+      .positive('must be above zero')
+      .nullable()
+      .optional()
+      .describe('M^-1 s^-1, dissolved oxygen only'),
     manualKqSource: z.string().trim().max(300).nullable().optional(),
   })
   .superRefine((component, context) => {

@@ -10,7 +10,11 @@ export type StudyStatus = z.infer<typeof studyStatusSchema>;
 export const studyAtmospheres = ['argon', 'nitrogen', 'air', 'oxygen', 'vacuum', 'other'] as const;
 export const degassingMethods = ['none', 'sparging', 'freeze-pump-thaw', 'glovebox', 'other'] as const;
 export const fitModels = ['linear-free', 'linear-fixed', 'static-dynamic', 'modified'] as const;
-export const fitModelSchema = z.enum(fitModels).meta({ id: 'FitModel', description: 'Stern–Volmer model: free or fixed intercept line, combined static+dynamic, modified (accessible fraction)' });
+export const fitModelSchema = z.enum(fitModels).meta({
+  id: 'FitModel',
+  description:
+    'Stern–Volmer model: free or fixed intercept line, combined static+dynamic, modified (accessible fraction)',
+});
 export type FitModel = z.infer<typeof fitModelSchema>;
 export const pinnedMechanisms = ['oxidative', 'reductive', 'energy-transfer'] as const;
 export const solventIds = Object.keys(SOLVENTS) as [string, ...string[]];
@@ -46,26 +50,41 @@ export const studySettingsSchema = z.object({
 });
 export type StudySettings = z.infer<typeof studySettingsSchema>;
 
-export interface SettingsIssue { path: string; message: string }
+export interface SettingsIssue {
+  path: string;
+  message: string;
+}
 
 /** Rules that tie fields together; the create schema, the update service and the form all use them. */
 export function studySettingsIssues(settings: StudySettings): SettingsIssue[] {
   const issues: SettingsIssue[] = [];
-  if (!settings.solventId && !settings.customSolventName) issues.push({ path: 'solventId', message: 'pick a solvent or name a custom one' });
+  if (!settings.solventId && !settings.customSolventName)
+    issues.push({ path: 'solventId', message: 'pick a solvent or name a custom one' });
   if (!settings.solventId && settings.customSolventName && settings.customViscosity === null) {
-    issues.push({ path: 'customViscosity', message: 'a custom solvent needs its viscosity (Pa s) for the diffusion limit' });
+    issues.push({
+      path: 'customViscosity',
+      message: 'a custom solvent needs its viscosity (Pa s) for the diffusion limit',
+    });
   }
   if (settings.windowStart !== null && settings.windowEnd !== null && settings.windowEnd <= settings.windowStart) {
     issues.push({ path: 'windowEnd', message: 'must be above the window start' });
   }
-  if (settings.dilutionCorrection && settings.initialVolume === null) issues.push({ path: 'initialVolume', message: 'the dilution correction needs the starting volume V0' });
-  if (settings.dilutionCorrection && settings.stockConcentration === null) issues.push({ path: 'stockConcentration', message: 'the dilution correction needs the stock concentration' });
+  if (settings.dilutionCorrection && settings.initialVolume === null)
+    issues.push({ path: 'initialVolume', message: 'the dilution correction needs the starting volume V0' });
+  if (settings.dilutionCorrection && settings.stockConcentration === null)
+    issues.push({ path: 'stockConcentration', message: 'the dilution correction needs the stock concentration' });
   return issues;
 }
 
 const compoundChoice = {
   emitterId: z.string().uuid('must be a compound id').nullable().optional(),
-  newEmitterName: z.string().trim().min(1).max(160).optional().describe('creates the emitter in the library when no id is given'),
+  newEmitterName: z
+    .string()
+    .trim()
+    .min(1)
+    .max(160)
+    .optional()
+    .describe('creates the emitter in the library when no id is given'),
   quencherId: z.string().uuid('must be a compound id').nullable().optional(),
   newQuencherName: z.string().trim().min(1).max(160).optional(),
 };
@@ -99,9 +118,12 @@ const createDefaults = {
 export const createStudySchema = studySettingsSchema
   .extend({ ...createDefaults, ...compoundChoice })
   .superRefine((value, context) => {
-    for (const issue of studySettingsIssues(value)) context.addIssue({ code: 'custom', path: [issue.path], message: issue.message });
-    if (!value.emitterId && !value.newEmitterName) context.addIssue({ code: 'custom', path: ['emitterId'], message: 'pick an emitter or name a new one' });
-    if (!value.quencherId && !value.newQuencherName) context.addIssue({ code: 'custom', path: ['quencherId'], message: 'pick a quencher or name a new one' });
+    for (const issue of studySettingsIssues(value))
+      context.addIssue({ code: 'custom', path: [issue.path], message: issue.message });
+    if (!value.emitterId && !value.newEmitterName)
+      context.addIssue({ code: 'custom', path: ['emitterId'], message: 'pick an emitter or name a new one' });
+    if (!value.quencherId && !value.newQuencherName)
+      context.addIssue({ code: 'custom', path: ['quencherId'], message: 'pick a quencher or name a new one' });
   })
   .meta({ id: 'CreateStudy' });
 export type CreateStudyInput = z.output<typeof createStudySchema>;
@@ -109,7 +131,10 @@ export type CreateStudyBody = z.input<typeof createStudySchema>;
 
 export const updateStudySchema = studySettingsSchema
   .partial()
-  .extend({ ...compoundChoice, version: z.number().int().min(0).describe('the version you edited; a stale one gets 409') })
+  .extend({
+    ...compoundChoice,
+    version: z.number().int().min(0).describe('the version you edited; a stale one gets 409'),
+  })
   .meta({ id: 'UpdateStudy' });
 export type UpdateStudyInput = z.infer<typeof updateStudySchema>;
 
@@ -153,15 +178,34 @@ export const listStudiesQuerySchema = z.object({
 export type ListStudiesQuery = z.infer<typeof listStudiesQuerySchema>;
 
 export const studyListSchema = z
-  .object({ items: z.array(studySummarySchema), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() })
+  .object({
+    items: z.array(studySummarySchema),
+    total: z.number().int(),
+    page: z.number().int(),
+    pageSize: z.number().int(),
+  })
   .meta({ id: 'StudyList' });
 export type StudyList = z.infer<typeof studyListSchema>;
 
 export const studyFormOptionsSchema = z
   .object({
-    compounds: z.array(z.object({ id: z.string().uuid(), name: z.string(), roleHint: z.enum(['photocatalyst', 'quencher', 'both']) })),
-    lifetimes: z.array(z.object({ id: z.string().uuid(), compoundId: z.string().uuid(), value: z.number().describe('s'), uncertainty: z.number().nullable(), solvent: z.string(), atmosphere: z.string(), temperature: z.number() })),
-    solvents: z.array(z.object({ id: z.string(), name: z.string(), viscosity: z.number().nullable().describe('Pa s at 25 °C') })),
+    compounds: z.array(
+      z.object({ id: z.string().uuid(), name: z.string(), roleHint: z.enum(['photocatalyst', 'quencher', 'both']) }),
+    ),
+    lifetimes: z.array(
+      z.object({
+        id: z.string().uuid(),
+        compoundId: z.string().uuid(),
+        value: z.number().describe('s'),
+        uncertainty: z.number().nullable(),
+        solvent: z.string(),
+        atmosphere: z.string(),
+        temperature: z.number(),
+      }),
+    ),
+    solvents: z.array(
+      z.object({ id: z.string(), name: z.string(), viscosity: z.number().nullable().describe('Pa s at 25 °C') }),
+    ),
     members: z.array(z.object({ userId: z.string().uuid(), name: z.string() })),
   })
   .meta({ id: 'StudyFormOptions' });

@@ -61,9 +61,13 @@ export const returnStudySchema = z
   .meta({ id: 'ReturnStudy' });
 
 export const historyEntrySchema = z
-  .object({ id: z.string(), action: z.string(), actor: z.string().nullable(), createdAt: z.string(), details: z.record(z.string(), z.unknown()) })
+  .object({
+    id: z.string(),
+    action: z.string(),
+    actor: z.string().nullable(),
+    createdAt: z.string(),
+    details: z.record(z.string(), z.unknown()),
+  })
   .meta({ id: 'StudyHistoryEntry' });
-export const studyHistorySchema = z
-  .object({ events: z.array(historyEntrySchema) })
-  .meta({ id: 'StudyHistory' });
+export const studyHistorySchema = z.object({ events: z.array(historyEntrySchema) }).meta({ id: 'StudyHistory' });
 export type StudyHistory = z.infer<typeof studyHistorySchema>;

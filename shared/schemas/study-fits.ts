@@ -2,7 +2,11 @@ import { z } from 'zod';
 import { fitModelSchema } from './studies';
 
 export const estimateSchema = z
-  .object({ value: z.number(), standardError: z.number(), interval95: z.object({ lower: z.number(), upper: z.number() }) })
+  .object({
+    value: z.number(),
+    standardError: z.number(),
+    interval95: z.object({ lower: z.number(), upper: z.number() }),
+  })
   .meta({ id: 'Estimate' });
 export type Estimate = z.infer<typeof estimateSchema>;
 
@@ -38,7 +42,12 @@ export const fitResultSchema = z
       .nullable()
       .describe('k_diff in M^-1 s^-1 and kq/k_diff'),
     lifetime: z
-      .object({ kSv: estimateSchema, rSquared: z.number(), verdict: z.string().nullable(), points: z.array(plotPointSchema) })
+      .object({
+        kSv: estimateSchema,
+        rSquared: z.number(),
+        verdict: z.string().nullable(),
+        points: z.array(plotPointSchema),
+      })
       .nullable(),
     flags: z.array(fitFlagSchema),
     notes: z.array(z.string()),

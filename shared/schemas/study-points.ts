@@ -8,8 +8,18 @@ export const studyPointInputSchema = z
     lifetime: z.number().finite().positive('must be above zero (s)').nullable().describe('s'),
     absorbanceExcitation: z.number().finite().nullable().describe('A at the excitation wavelength, 1 cm'),
     absorbanceEmission: z.number().finite().nullable().describe('A at the emission wavelength, 1 cm'),
-    volumeAdded: z.number().finite().min(0, 'cannot be negative (L)').nullable().describe('total stock added before this reading, L'),
-    uncertainty: z.number().finite().positive('must be above zero').nullable().describe('1-sigma of the intensity (or ratio)'),
+    volumeAdded: z
+      .number()
+      .finite()
+      .min(0, 'cannot be negative (L)')
+      .nullable()
+      .describe('total stock added before this reading, L'),
+    uncertainty: z
+      .number()
+      .finite()
+      .positive('must be above zero')
+      .nullable()
+      .describe('1-sigma of the intensity (or ratio)'),
     excluded: z.boolean().default(false),
     exclusionReason: z.string().trim().max(500).nullable().default(null),
   })
@@ -45,7 +55,12 @@ export const studyPointSchema = z
     exclusionReason: z.string().nullable(),
     uploadId: z.string().nullable(),
     corrected: z
-      .object({ concentration: z.number(), intensity: z.number().nullable(), innerFilterFactor: z.number().nullable(), dilutionFactor: z.number().nullable() })
+      .object({
+        concentration: z.number(),
+        intensity: z.number().nullable(),
+        innerFilterFactor: z.number().nullable(),
+        dilutionFactor: z.number().nullable(),
+      })
       .nullable()
       .describe('values after the switched-on corrections; null when none applies'),
   })

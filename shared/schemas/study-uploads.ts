@@ -28,14 +28,22 @@ export const seriesMappingSchema = z.object({
 export const spectrumMappingSchema = z.object({
   layout: z.literal('spectrum'),
   wavelength: column,
-  samples: z.array(z.object({ column, concentration: z.number().finite().min(0, 'cannot be negative (mol/L)') })).describe('the spectra used, each with its quencher concentration in mol/L'),
+  samples: z
+    .array(z.object({ column, concentration: z.number().finite().min(0, 'cannot be negative (mol/L)') }))
+    .describe('the spectra used, each with its quencher concentration in mol/L'),
   reduction: z.discriminatedUnion('kind', [
-    z.object({ kind: z.literal('window'), start: z.number().finite(), end: z.number().finite() }).describe('trapezoid integral over [start, end] nm'),
-    z.object({ kind: z.literal('wavelength'), at: z.number().finite() }).describe('intensity at one wavelength, nm (linear interpolation)'),
+    z
+      .object({ kind: z.literal('window'), start: z.number().finite(), end: z.number().finite() })
+      .describe('trapezoid integral over [start, end] nm'),
+    z
+      .object({ kind: z.literal('wavelength'), at: z.number().finite() })
+      .describe('intensity at one wavelength, nm (linear interpolation)'),
   ]),
 });
 
-export const uploadMappingSchema = z.discriminatedUnion('layout', [seriesMappingSchema, spectrumMappingSchema]).meta({ id: 'UploadMapping' });
+export const uploadMappingSchema = z
+  .discriminatedUnion('layout', [seriesMappingSchema, spectrumMappingSchema])
+  .meta({ id: 'UploadMapping' });
 export type UploadMapping = z.infer<typeof uploadMappingSchema>;
 export type SeriesMapping = z.infer<typeof seriesMappingSchema>;
 export type SpectrumMapping = z.infer<typeof spectrumMappingSchema>;
@@ -48,11 +56,19 @@ export const uploadParamsSchema = z.object({
 
 export const previewUploadSchema = z.object({ mapping: uploadMappingSchema }).meta({ id: 'PreviewUpload' });
 export const applyUploadSchema = z
-  .object({ version: z.number().int().min(0), mapping: uploadMappingSchema, mode: z.enum(['replace', 'append']).default('replace') })
+  .object({
+    version: z.number().int().min(0),
+    mapping: uploadMappingSchema,
+    mode: z.enum(['replace', 'append']).default('replace'),
+  })
   .meta({ id: 'ApplyUpload' });
 export type ApplyUploadInput = z.input<typeof applyUploadSchema>;
 
-const problemSchema = z.object({ row: z.number().int().nullable(), column: z.string().nullable(), message: z.string() });
+const problemSchema = z.object({
+  row: z.number().int().nullable(),
+  column: z.string().nullable(),
+  message: z.string(),
+});
 
 export const uploadPreviewSchema = z
   .object({

@@ -34,7 +34,12 @@ export function Button({
       className={`inline-flex items-center justify-center gap-2 rounded-md px-4 py-2 text-body font-bold transition-colors disabled:cursor-not-allowed disabled:opacity-60 ${variantClasses[variant]} ${className}`}
       {...button}
     >
-      {pending && <span className="h-3 w-3 animate-spin rounded-full border-2 border-current border-t-transparent" aria-hidden="true" />}
+      {pending && (
+        <span
+          className="h-3 w-3 animate-spin rounded-full border-2 border-current border-t-transparent"
+          aria-hidden="true"
+        />
+      )}
       {pending ? pendingLabel : children}
     </button>
   );

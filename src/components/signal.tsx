@@ -15,7 +15,9 @@ const dotClasses: Record<Tone, string> = {
 /** A small coloured label with a dot; the text always carries the meaning, not the colour alone. */
 export function Signal({ tone, children }: { tone: Tone; children: string }) {
   return (
-    <span className={`inline-flex items-center gap-1.5 rounded-full px-2.5 py-0.5 text-caption font-bold ${toneClasses[tone]}`}>
+    <span
+      className={`inline-flex items-center gap-1.5 rounded-full px-2.5 py-0.5 text-caption font-bold ${toneClasses[tone]}`}
+    >
       <span className={`h-2 w-2 rounded-full ${dotClasses[tone]}`} aria-hidden="true" />
       {children}
     </span>

@@ -8,8 +8,6 @@ const toneClasses: Record<Tone, string> = {
 /** A short word beside a name: a role, or the mark of invented demo data. */
 export function Tag({ tone = 'role', children }: { tone?: Tone; children: string }) {
   return (
-    <span className={`inline-block rounded px-1.5 py-px text-caption font-bold ${toneClasses[tone]}`}>
-      {children}
-    </span>
+    <span className={`inline-block rounded px-1.5 py-px text-caption font-bold ${toneClasses[tone]}`}>{children}</span>
   );
 }

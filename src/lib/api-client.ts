@@ -80,7 +80,11 @@ async function request<T>(method: Method, url: string, options: RequestOptions =
  * A file answer (CSV, PDF, a raw upload): returns the bytes and the name the server suggests.
  * Errors still arrive in the JSON error shape and throw ApiError.
  */
-async function requestFile(method: Method, url: string, options: RequestOptions = {}): Promise<{ blob: Blob; filename: string }> {
+async function requestFile(
+  method: Method,
+  url: string,
+  options: RequestOptions = {},
+): Promise<{ blob: Blob; filename: string }> {
   const response = await send(method, url, options);
   if (!response.ok) {
     const payload = (await response.json().catch(() => null)) as ApiErrorBody | null;

@@ -20,7 +20,8 @@ export function CaughtMailRoute() {
   const session = useSession();
   const lab = session.user.labs.find((membership) => membership.labId === labId);
   if (!lab) return <NotYourLab />;
-  if (!session.mailCatcher) return <NotYourLab reason="This workspace sends real e-mail, so there is no caught mail to read." />;
+  if (!session.mailCatcher)
+    return <NotYourLab reason="This workspace sends real e-mail, so there is no caught mail to read." />;
   if (!can(lab.role, 'mail:read')) return <NotYourLab reason="Only the lab’s admins can read caught mail." />;
   return <CaughtMailScreen labId={labId} />;
 }

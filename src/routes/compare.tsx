@@ -29,12 +29,19 @@ export function CompareRoute() {
     approvedOnly: params.get('approvedOnly') === 'true',
     sort: (sorts.find((sort) => sort.value === params.get('sort'))?.value ?? 'kq') as ComparisonQuery['sort'],
   };
-  const set = (changes: Record<string, string>) => setParams({ ...Object.fromEntries(params), ...changes }, { replace: true });
-  const compounds = useCompounds(labId, { roleHint: query.side === 'emitter' ? 'photocatalyst' : 'quencher', pageSize: 100 });
+  const set = (changes: Record<string, string>) =>
+    setParams({ ...Object.fromEntries(params), ...changes }, { replace: true });
+  const compounds = useCompounds(labId, {
+    roleHint: query.side === 'emitter' ? 'photocatalyst' : 'quencher',
+    pageSize: 100,
+  });
   const comparison = useComparison(labId, query);
   const download = useDownloadComparison(labId);
   const report = useDownloadComparisonReport(labId);
-  const options = [{ value: '', label: 'Choose…' }, ...(compounds.data?.items ?? []).map((item) => ({ value: item.id, label: item.name }))];
+  const options = [
+    { value: '', label: 'Choose…' },
+    ...(compounds.data?.items ?? []).map((item) => ({ value: item.id, label: item.name })),
+  ];
 
   return (
     <div className="max-w-6xl space-y-6">
@@ -47,27 +54,61 @@ export function CompareRoute() {
       </header>
       <Panel title="What to compare">
         <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
-          <SelectField label="Look at one" value={query.side} onChange={(event) => set({ side: event.target.value, compoundId: '' })}
-            options={[{ value: 'emitter', label: 'emitter, all its quenchers' }, { value: 'quencher', label: 'quencher, all its emitters' }]} />
-          <SelectField label={query.side === 'emitter' ? 'Emitter' : 'Quencher'} value={query.compoundId} onChange={(event) => set({ compoundId: event.target.value })} options={options} />
-          <SelectField label="Order by" value={query.sort} onChange={(event) => set({ sort: event.target.value })} options={sorts} />
+          <SelectField
+            label="Look at one"
+            value={query.side}
+            onChange={(event) => set({ side: event.target.value, compoundId: '' })}
+            options={[
+              { value: 'emitter', label: 'emitter, all its quenchers' },
+              { value: 'quencher', label: 'quencher, all its emitters' },
+            ]}
+          />
+          <SelectField
+            label={query.side === 'emitter' ? 'Emitter' : 'Quencher'}
+            value={query.compoundId}
+            onChange={(event) => set({ compoundId: event.target.value })}
+            options={options}
+          />
+          <SelectField
+            label="Order by"
+            value={query.sort}
+            onChange={(event) => set({ sort: event.target.value })}
+            options={sorts}
+          />
           <label className="mt-7 flex items-center gap-2 text-body">
-            <input type="checkbox" checked={query.approvedOnly} onChange={(event) => set({ approvedOnly: String(event.target.checked) })} />
+            <input
+              type="checkbox"
+              checked={query.approvedOnly}
+              onChange={(event) => set({ approvedOnly: String(event.target.checked) })}
+            />
             Fit approved results only
           </label>
         </div>
       </Panel>
-      {!query.compoundId && <EmptyState title="Choose a compound">Its studies appear here with their rate constants.</EmptyState>}
+      {!query.compoundId && (
+        <EmptyState title="Choose a compound">Its studies appear here with their rate constants.</EmptyState>
+      )}
       {comparison.isError && <ErrorNotice error={comparison.error} what="the comparison" />}
       {comparison.data && (
         <>
-          <Panel title={`Studies of ${comparison.data.compound.name}`}
+          <Panel
+            title={`Studies of ${comparison.data.compound.name}`}
             aside={
               <div className="flex gap-2">
-                <Button variant="quiet" pending={download.isPending} onClick={() => download.mutate(query)}>Download CSV</Button>
-                <Button variant="quiet" pending={report.isPending} pendingLabel="Writing…" onClick={() => report.mutate(query)}>PDF summary</Button>
+                <Button variant="quiet" pending={download.isPending} onClick={() => download.mutate(query)}>
+                  Download CSV
+                </Button>
+                <Button
+                  variant="quiet"
+                  pending={report.isPending}
+                  pendingLabel="Writing…"
+                  onClick={() => report.mutate(query)}
+                >
+                  PDF summary
+                </Button>
               </div>
-            }>
+            }
+          >
             {comparison.data.rows.length === 0 ? (
               <EmptyState title="No studies yet">Studies with this compound will be listed here.</EmptyState>
             ) : (
@@ -87,7 +128,8 @@ export function CompareRoute() {
               ))}
             </ul>
             <p className="mt-2 text-caption text-ink-500">
-              Filled points are approved results, open points drafts. Solvents are fitted separately. Engine {comparison.data.engineVersion}.
+              Filled points are approved results, open points drafts. Solvents are fitted separately. Engine{' '}
+              {comparison.data.engineVersion}.
             </p>
           </Panel>
         </>

@@ -44,20 +44,31 @@ export function CompoundDetailRoute() {
   return (
     <div className="max-w-6xl space-y-6">
       <CompoundHeader
-        labId={labId} labName={lab.labName} isDemo={lab.isDemo} compound={data} mayEdit={mayEdit(data)} canCurate={canCurate}
+        labId={labId}
+        labName={lab.labName}
+        isDemo={lab.isDemo}
+        compound={data}
+        mayEdit={mayEdit(data)}
+        canCurate={canCurate}
         onDeleted={() => void navigate(`/labs/${labId}/library`)}
       />
       {data.roleHint !== 'photocatalyst' && (
         <FormAlert tone="note">
-          Handle quenchers as their safety data sheets say: many amines are toxic or corrosive, some bipyridinium salts are
-          highly toxic, and the usual solvents are flammable. Follow your institution&apos;s rules; Halflight gives no safety approval.
+          Handle quenchers as their safety data sheets say: many amines are toxic or corrosive, some bipyridinium salts
+          are highly toxic, and the usual solvents are flammable. Follow your institution&apos;s rules; Halflight gives
+          no safety approval.
         </FormAlert>
       )}
       {remove.isError && <FormAlert>{describeError(remove.error)}</FormAlert>}
       <Panel title="Redox potentials" aside={<Signal tone="good">{`shown vs ${data.displayReference}`}</Signal>}>
         <PotentialsTable
-          labId={labId} compoundId={data.id} defaultSolvent={solvent} potentials={data.potentials} displayReference={data.displayReference}
-          mayEdit={mayEdit} canCurate={canCurate}
+          labId={labId}
+          compoundId={data.id}
+          defaultSolvent={solvent}
+          potentials={data.potentials}
+          displayReference={data.displayReference}
+          mayEdit={mayEdit}
+          canCurate={canCurate}
           onDelete={(record) => remove.mutate({ segment: 'potentials', id: record.id, version: record.version })}
         />
         {canAdd && (
@@ -71,7 +82,11 @@ export function CompoundDetailRoute() {
       {isEmitter && (
         <Panel title="E00 (excited-state energy)">
           <EnergiesTable
-            labId={labId} compoundId={data.id} energies={data.energies} mayEdit={mayEdit} canCurate={canCurate}
+            labId={labId}
+            compoundId={data.id}
+            energies={data.energies}
+            mayEdit={mayEdit}
+            canCurate={canCurate}
             onDelete={(record) => remove.mutate({ segment: 'energies', id: record.id, version: record.version })}
           />
           {canAdd && (
@@ -85,7 +100,13 @@ export function CompoundDetailRoute() {
       {isEmitter && (
         <Panel title="Excited-state lifetimes">
           <LifetimesTable
-            labId={labId} compoundId={data.id} userId={user.id} defaultSolvent={solvent} lifetimes={data.lifetimes} mayEdit={mayEdit} canCurate={canCurate}
+            labId={labId}
+            compoundId={data.id}
+            userId={user.id}
+            defaultSolvent={solvent}
+            lifetimes={data.lifetimes}
+            mayEdit={mayEdit}
+            canCurate={canCurate}
             onDelete={(record) => remove.mutate({ segment: 'lifetimes', id: record.id, version: record.version })}
             // A refit changes the study's fit and version, which the studies screens keep in their own cache.
             onStudyRefitted={() => void queryClient.invalidateQueries({ queryKey: studiesKeys.all })}

@@ -28,12 +28,18 @@ export function ForgotPasswordRoute() {
       </header>
       {requestReset.isSuccess ? (
         <FormAlert tone="good">
-          If that address belongs to a Halflight account, a link is on its way. It works once, for a limited time;
-          check the spam folder if nothing arrives within a few minutes.
+          If that address belongs to a Halflight account, a link is on its way. It works once, for a limited time; check
+          the spam folder if nothing arrives within a few minutes.
         </FormAlert>
       ) : (
         <form onSubmit={onSubmit} noValidate className="space-y-4">
-          <TextField label="E-mail" type="email" autoComplete="email" error={errors.email?.message} {...form.register('email')} />
+          <TextField
+            label="E-mail"
+            type="email"
+            autoComplete="email"
+            error={errors.email?.message}
+            {...form.register('email')}
+          />
           {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
           <Button type="submit" className="w-full" pending={requestReset.isPending} pendingLabel="Sending…">
             Send me a link

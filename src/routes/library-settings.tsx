@@ -26,8 +26,9 @@ function SettingsScreen({ labId, labName }: { labId: string; labName: string }) 
         <p className="text-caption uppercase text-ink-500">{labName}</p>
         <h1 className="text-display font-black text-ink-950">Lab settings</h1>
         <p className="mt-1 text-lead text-ink-700">
-          Potentials are stored exactly as entered and shown converted into this reference, with the original beside them.
-          IUPAC recommends Fc+/Fc for work in organic solvents; aqueous references there carry a junction-potential error.
+          Potentials are stored exactly as entered and shown converted into this reference, with the original beside
+          them. IUPAC recommends Fc+/Fc for work in organic solvents; aqueous references there carry a
+          junction-potential error.
         </p>
       </header>
       <Panel title="Display reference">

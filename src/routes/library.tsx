@@ -26,44 +26,89 @@ export function LibraryRoute() {
   const { user } = useSession();
   const lab = user.labs.find((membership) => membership.labId === labId);
   if (!lab) return <NotYourLab />;
-  return <LibraryScreen labId={lab.labId} labName={lab.labName} isDemo={lab.isDemo} canAdd={can(lab.role, 'library:add')} />;
+  return (
+    <LibraryScreen labId={lab.labId} labName={lab.labName} isDemo={lab.isDemo} canAdd={can(lab.role, 'library:add')} />
+  );
 }
 
-function LibraryScreen({ labId, labName, isDemo, canAdd }: { labId: string; labName: string; isDemo: boolean; canAdd: boolean }) {
+function LibraryScreen({
+  labId,
+  labName,
+  isDemo,
+  canAdd,
+}: {
+  labId: string;
+  labName: string;
+  isDemo: boolean;
+  canAdd: boolean;
+}) {
   const [search, setSearch] = useState('');
   const [roleHint, setRoleHint] = useState<CompoundRoleHint | ''>('');
   const [page, setPage] = useState(1);
-  const compounds = useCompounds(labId, { search: search || undefined, roleHint: roleHint || undefined, page, pageSize });
+  const compounds = useCompounds(labId, {
+    search: search || undefined,
+    roleHint: roleHint || undefined,
+    page,
+    pageSize,
+  });
   const create = useCreateCompound(labId);
   const navigate = useNavigate();
   const pages = compounds.data ? Math.max(1, Math.ceil(compounds.data.total / pageSize)) : 1;
   return (
     <div className="max-w-6xl space-y-6">
       <header>
-        <p className="flex items-center gap-2 text-caption uppercase text-ink-500">{labName} {isDemo && <Tag tone="demo">Demo</Tag>}</p>
+        <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
+          {labName} {isDemo && <Tag tone="demo">Demo</Tag>}
+        </p>
         <h1 className="text-display font-black text-ink-950">Library</h1>
         <p className="mt-1 max-w-3xl text-lead text-ink-700">
-          Emitters and quenchers with their redox potentials, lifetimes and E00, kept as reported and read in one reference.
+          Emitters and quenchers with their redox potentials, lifetimes and E00, kept as reported and read in one
+          reference.
         </p>
       </header>
-      <Panel title="Compounds" aside={compounds.data && <Signal tone="good">{`${compounds.data.total} in the library`}</Signal>}>
+      <Panel
+        title="Compounds"
+        aside={compounds.data && <Signal tone="good">{`${compounds.data.total} in the library`}</Signal>}
+      >
         <div className="mb-3 grid gap-3 sm:grid-cols-[2fr_1fr]">
-          <TextField label="Search by name" type="search" value={search} onChange={(event) => { setSearch(event.target.value); setPage(1); }} />
+          <TextField
+            label="Search by name"
+            type="search"
+            value={search}
+            onChange={(event) => {
+              setSearch(event.target.value);
+              setPage(1);
+            }}
+          />
           <SelectField
             label="Role"
-            options={[{ value: '', label: 'All roles' }, ...Object.entries(roleHintLabels).map(([value, label]) => ({ value, label }))]}
+            options={[
+              { value: '', label: 'All roles' },
+              ...Object.entries(roleHintLabels).map(([value, label]) => ({ value, label })),
+            ]}
             value={roleHint}
-            onChange={(event) => { setRoleHint(event.target.value as CompoundRoleHint | ''); setPage(1); }}
+            onChange={(event) => {
+              setRoleHint(event.target.value as CompoundRoleHint | '');
+              setPage(1);
+            }}
           />
         </div>
         {compounds.isPending && <Signal tone="waiting">Loading the library</Signal>}
         {compounds.isError && <ErrorNotice error={compounds.error} what="the library" />}
-        {compounds.data && <CompoundTable labId={labId} compounds={compounds.data.items} filtered={Boolean(search || roleHint)} />}
+        {compounds.data && (
+          <CompoundTable labId={labId} compounds={compounds.data.items} filtered={Boolean(search || roleHint)} />
+        )}
         {pages > 1 && (
           <nav aria-label="Pages" className="mt-3 flex items-center gap-3 text-body">
-            <Button variant="quiet" disabled={page <= 1} onClick={() => setPage(page - 1)}>Previous</Button>
-            <span>Page {page} of {pages}</span>
-            <Button variant="quiet" disabled={page >= pages} onClick={() => setPage(page + 1)}>Next</Button>
+            <Button variant="quiet" disabled={page <= 1} onClick={() => setPage(page - 1)}>
+              Previous
+            </Button>
+            <span>
+              Page {page} of {pages}
+            </span>
+            <Button variant="quiet" disabled={page >= pages} onClick={() => setPage(page + 1)}>
+              Next
+            </Button>
           </nav>
         )}
       </Panel>

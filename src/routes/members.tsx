@@ -19,7 +19,15 @@ export function MembersRoute() {
   const { user } = useSession();
   const lab = user.labs.find((membership) => membership.labId === labId);
   if (!lab) return <NotYourLab />;
-  return <MembersScreen labId={lab.labId} labName={lab.labName} canManage={can(lab.role, 'members:manage')} isDemo={lab.isDemo} selfUserId={user.id} />;
+  return (
+    <MembersScreen
+      labId={lab.labId}
+      labName={lab.labName}
+      canManage={can(lab.role, 'members:manage')}
+      isDemo={lab.isDemo}
+      selfUserId={user.id}
+    />
+  );
 }
 
 interface MembersScreenProps {
@@ -53,7 +61,10 @@ function MembersScreen({ labId, labName, isDemo, canManage, selfUserId }: Member
             : 'Everyone who works in this lab. Only the lab’s admins can change who is here.'}
         </p>
       </header>
-      <Panel title="People" aside={members.data && <Signal tone="good">{`${members.data.members.length} in the lab`}</Signal>}>
+      <Panel
+        title="People"
+        aside={members.data && <Signal tone="good">{`${members.data.members.length} in the lab`}</Signal>}
+      >
         {members.isPending && <Signal tone="waiting">Loading members</Signal>}
         {members.isError && <ErrorNotice error={members.error} what="the members" />}
         {members.data && (

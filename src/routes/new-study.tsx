@@ -27,21 +27,38 @@ export function NewStudyRoute() {
   if (params.get('dilutionCorrection') === 'true') preset.dilutionCorrection = true;
   if (params.get('stockContainsEmitter') === 'true') preset.stockContainsEmitter = true;
   if (!lab) return <NotYourLab />;
-  if (!can(lab.role, 'studies:write')) return <ErrorNotice error={new Error('Your role in this lab reads studies but cannot start them.')} what="the study form" />;
+  if (!can(lab.role, 'studies:write'))
+    return (
+      <ErrorNotice
+        error={new Error('Your role in this lab reads studies but cannot start them.')}
+        what="the study form"
+      />
+    );
   return (
     <div className="max-w-5xl space-y-6">
       <header>
         <p className="text-caption uppercase text-ink-500">{lab.labName}</p>
         <h1 className="text-display font-black text-ink-950">New quenching study</h1>
-        <p className="mt-1 text-lead text-ink-700">One emitter against one quencher, in one solvent at one temperature.</p>
+        <p className="mt-1 text-lead text-ink-700">
+          One emitter against one quencher, in one solvent at one temperature.
+        </p>
       </header>
       {options.isError && <ErrorNotice error={options.error} what="the lab's compounds" />}
       <Panel title="Set-up">
-        {!options.data && !options.isError && <p className="text-body text-ink-500">Loading the lab&apos;s compounds…</p>}
-        {options.data && <StudyForm options={options.data} preset={preset} submitLabel="Create study" onSubmit={async (body) => {
-          const study = await create.mutateAsync(body);
-          await navigate(`/labs/${labId}/studies/${study.id}`);
-        }} />}
+        {!options.data && !options.isError && (
+          <p className="text-body text-ink-500">Loading the lab&apos;s compounds…</p>
+        )}
+        {options.data && (
+          <StudyForm
+            options={options.data}
+            preset={preset}
+            submitLabel="Create study"
+            onSubmit={async (body) => {
+              const study = await create.mutateAsync(body);
+              await navigate(`/labs/${labId}/studies/${study.id}`);
+            }}
+          />
+        )}
       </Panel>
     </div>
   );

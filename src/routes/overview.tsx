@@ -33,8 +33,8 @@ export function OverviewRoute() {
       <header>
         <h1 className="text-display font-black text-ink-950">Overview</h1>
         <p className="mt-1 max-w-2xl text-lead text-ink-700">
-          Halflight keeps a lab&apos;s quenching titrations, fits and redox potentials in one place, so the team can
-          see which reaction component intercepts the excited catalyst, and how fast.
+          Halflight keeps a lab&apos;s quenching titrations, fits and redox potentials in one place, so the team can see
+          which reaction component intercepts the excited catalyst, and how fast.
         </p>
       </header>
       {lab && <LabDashboard labId={lab.labId} labName={lab.labName} canReview={can(lab.role, 'studies:review')} />}
@@ -61,7 +61,10 @@ export function OverviewRoute() {
               value={health.data.database.latencyMs === null ? '—' : `${health.data.database.latencyMs} ms`}
             />
             <Fact label="PostgreSQL" value={health.data.database.serverVersion ?? '—'} />
-            <Fact label="Database kind" value={health.data.database.embedded ? 'Built-in (this machine)' : 'External'} />
+            <Fact
+              label="Database kind"
+              value={health.data.database.embedded ? 'Built-in (this machine)' : 'External'}
+            />
             <Fact label="Schema changes applied" value={String(health.data.database.migrationsApplied ?? '—')} />
           </dl>
         )}

@@ -66,14 +66,22 @@ export function PlannerRoute() {
           title="Additions"
           aside={
             <div className="flex gap-2 print:hidden">
-              <Button variant="quiet" onClick={() => download.mutate(planned.input)} pending={download.isPending} pendingLabel="Preparing…">
+              <Button
+                variant="quiet"
+                onClick={() => download.mutate(planned.input)}
+                pending={download.isPending}
+                pendingLabel="Preparing…"
+              >
                 Download CSV
               </Button>
               <Button variant="quiet" onClick={() => window.print()}>
                 Print
               </Button>
               {can(role, 'studies:write') && (
-                <Link className="rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300" to={studyFromPlan(labId, planned.input)}>
+                <Link
+                  className="rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300"
+                  to={studyFromPlan(labId, planned.input)}
+                >
                   Start a study from this plan
                 </Link>
               )}
@@ -81,8 +89,8 @@ export function PlannerRoute() {
           }
         >
           <p className="mb-3 text-body text-ink-700">
-            Start with {planned.input.initialVolume * 1e3} mL of {planned.input.emitterConcentration * 1e6} µM emitter and
-            a {planned.input.stockConcentration * 1e3} mM quencher stock
+            Start with {planned.input.initialVolume * 1e3} mL of {planned.input.emitterConcentration * 1e6} µM emitter
+            and a {planned.input.stockConcentration * 1e3} mM quencher stock
             {planned.input.quencherName ? ` (${planned.input.quencherName})` : ''}. In total the sample grows by{' '}
             <strong>{(planned.plan.totalDilution * 100).toFixed(1)} %</strong>.
           </p>

@@ -30,7 +30,8 @@ export function ResetPasswordRoute() {
       <div className="space-y-4">
         <h1 className="text-title font-black text-ink-950">This link is incomplete</h1>
         <p className="text-body text-ink-700">
-          Open the link from the e-mail exactly as it arrived, or <TextLink to="/forgot-password">ask for a new one</TextLink>.
+          Open the link from the e-mail exactly as it arrived, or{' '}
+          <TextLink to="/forgot-password">ask for a new one</TextLink>.
         </p>
       </div>
     );

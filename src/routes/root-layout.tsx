@@ -65,10 +65,20 @@ export function RootLayout() {
           <p className="truncate text-caption text-ink-300" title={session.user.email}>
             Signed in as <strong className="text-paper-50">{session.user.name}</strong>
           </p>
-          <Button variant="quiet" className="w-full" onClick={leave} pending={signOut.isPending} pendingLabel="Signing out…">
+          <Button
+            variant="quiet"
+            className="w-full"
+            onClick={leave}
+            pending={signOut.isPending}
+            pendingLabel="Signing out…"
+          >
             Sign out
           </Button>
-          {signOut.isError && <p role="alert" className="text-caption text-brick-100">Could not sign out; try again.</p>}
+          {signOut.isError && (
+            <p role="alert" className="text-caption text-brick-100">
+              Could not sign out; try again.
+            </p>
+          )}
         </div>
       </aside>
       <main className="flex-1 px-10 py-8">

@@ -29,23 +29,36 @@ export function ScenarioRoute() {
   const report = useDownloadScenarioReport(labId);
   const emitters = useCompounds(labId, { roleHint: 'photocatalyst', pageSize: 100 });
   const quenchers = useCompounds(labId, { roleHint: 'quencher', pageSize: 100 });
-  const options = (list: typeof emitters) => (list.data?.items ?? []).map((item) => ({ value: item.id, label: item.name }));
+  const options = (list: typeof emitters) =>
+    (list.data?.items ?? []).map((item) => ({ value: item.id, label: item.name }));
   const data = scenario.data;
   const [confirming, setConfirming] = useState(false);
 
   if (!isNew && scenario.isError) return <ErrorNotice error={scenario.error} what="this scenario" />;
-  if ((!isNew && !data) || emitters.isPending || quenchers.isPending) return <p className="text-body text-ink-500">Loading…</p>;
+  if ((!isNew && !data) || emitters.isPending || quenchers.isPending)
+    return <p className="text-body text-ink-500">Loading…</p>;
 
   return (
     <div className="max-w-6xl space-y-6">
       <header>
-        <Link to={`/labs/${labId}/scenarios`} className="text-caption text-ink-500 underline">All scenarios</Link>
+        <Link to={`/labs/${labId}/scenarios`} className="text-caption text-ink-500 underline">
+          All scenarios
+        </Link>
         <h1 className="text-display font-black text-ink-950">{data?.name ?? 'New reaction scenario'}</h1>
       </header>
       {data && (
         <Panel
           title="Who intercepts the excited emitter"
-          aside={<Button variant="quiet" pending={report.isPending} pendingLabel="Writing…" onClick={() => report.mutate(data.id)}>PDF summary</Button>}
+          aside={
+            <Button
+              variant="quiet"
+              pending={report.isPending}
+              pendingLabel="Writing…"
+              onClick={() => report.mutate(data.id)}
+            >
+              PDF summary
+            </Button>
+          }
         >
           <div className="grid gap-6 lg:grid-cols-2">
             <ShareTable scenario={data} labId={labId} />
@@ -55,7 +68,10 @@ export function ScenarioRoute() {
             <p key={item.componentId} className="mt-3 text-body text-brick-700">
               No kq for <strong>{item.label}</strong> with {data.emitter.name} yet, so it is left out of the shares.{' '}
               {item.compoundId && (
-                <Link className="font-bold underline" to={`/labs/${labId}/studies/new?emitterId=${data.emitter.id}&quencherId=${item.compoundId}`}>
+                <Link
+                  className="font-bold underline"
+                  to={`/labs/${labId}/studies/new?emitterId=${data.emitter.id}&quencherId=${item.compoundId}`}
+                >
                   Start the study that would supply it
                 </Link>
               )}
@@ -84,13 +100,21 @@ export function ScenarioRoute() {
         <div className="flex items-center gap-3">
           {confirming ? (
             <>
-              <Button variant="danger" pending={remove.isPending} onClick={() => remove.mutate(data.id, { onSuccess: () => navigate(`/labs/${labId}/scenarios`) })}>
+              <Button
+                variant="danger"
+                pending={remove.isPending}
+                onClick={() => remove.mutate(data.id, { onSuccess: () => navigate(`/labs/${labId}/scenarios`) })}
+              >
                 Yes, delete it
               </Button>
-              <Button variant="quiet" onClick={() => setConfirming(false)}>Keep it</Button>
+              <Button variant="quiet" onClick={() => setConfirming(false)}>
+                Keep it
+              </Button>
             </>
           ) : (
-            <Button variant="quiet" onClick={() => setConfirming(true)}>Delete this scenario…</Button>
+            <Button variant="quiet" onClick={() => setConfirming(true)}>
+              Delete this scenario…
+            </Button>
           )}
           {remove.isError && <FormAlert>{describeError(remove.error)}</FormAlert>}
         </div>

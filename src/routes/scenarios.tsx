@@ -18,11 +18,14 @@ export function ScenariosRoute() {
         <div>
           <h1 className="text-display font-black text-ink-950">Who quenches?</h1>
           <p className="mt-1 max-w-3xl text-lead text-ink-700">
-            Put in a reaction as you run it, and see which share of the excited catalyst each component takes, using
-            the rate constants your lab has measured.
+            Put in a reaction as you run it, and see which share of the excited catalyst each component takes, using the
+            rate constants your lab has measured.
           </p>
         </div>
-        <Link to={`/labs/${labId}/scenarios/new`} className="shrink-0 rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300">
+        <Link
+          to={`/labs/${labId}/scenarios/new`}
+          className="shrink-0 rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300"
+        >
           New scenario
         </Link>
       </header>
@@ -35,7 +38,10 @@ export function ScenariosRoute() {
           <ul className="divide-y divide-paper-200">
             {scenarios.data.items.map((item) => (
               <li key={item.id} className="flex items-baseline justify-between gap-4 py-2">
-                <Link to={`/labs/${labId}/scenarios/${item.id}`} className="font-bold text-ink-900 underline decoration-glow-400">
+                <Link
+                  to={`/labs/${labId}/scenarios/${item.id}`}
+                  className="font-bold text-ink-900 underline decoration-glow-400"
+                >
                   {item.name}
                 </Link>
                 <span className="text-caption text-ink-500">
@@ -47,9 +53,15 @@ export function ScenariosRoute() {
         )}
         {pages > 1 && (
           <nav aria-label="Pages" className="mt-3 flex gap-2 text-body">
-            <button type="button" disabled={page <= 1} onClick={() => setPage(page - 1)}>Previous</button>
-            <span>Page {page} of {pages}</span>
-            <button type="button" disabled={page >= pages} onClick={() => setPage(page + 1)}>Next</button>
+            <button type="button" disabled={page <= 1} onClick={() => setPage(page - 1)}>
+              Previous
+            </button>
+            <span>
+              Page {page} of {pages}
+            </span>
+            <button type="button" disabled={page >= pages} onClick={() => setPage(page + 1)}>
+              Next
+            </button>
           </nav>
         )}
       </Panel>

@@ -42,7 +42,13 @@ export function SignInRoute() {
       </header>
       {notice && <FormAlert tone="good">{notice}</FormAlert>}
       <form onSubmit={onSubmit} noValidate className="space-y-4">
-        <TextField label="E-mail" type="email" autoComplete="username" error={errors.email?.message} {...form.register('email')} />
+        <TextField
+          label="E-mail"
+          type="email"
+          autoComplete="username"
+          error={errors.email?.message}
+          {...form.register('email')}
+        />
         <TextField
           label="Password"
           type="password"
@@ -56,8 +62,7 @@ export function SignInRoute() {
         </Button>
       </form>
       <p className="text-body text-ink-700">
-        Forgot it?{' '}
-        <TextLink to="/forgot-password">Get a link to choose a new password</TextLink>
+        Forgot it? <TextLink to="/forgot-password">Get a link to choose a new password</TextLink>
       </p>
     </div>
   );

@@ -16,7 +16,18 @@ import { formatNumber, statusLabels } from '@/features/studies/components/format
 import { StatusSignal } from '@/features/studies/components/status-signal';
 import { can } from '@/lib/policy';
 
-const FILTERS = ['emitterId', 'quencherId', 'solventId', 'status', 'ownerId', 'flagged', 'q', 'sort', 'direction', 'page'] as const;
+const FILTERS = [
+  'emitterId',
+  'quencherId',
+  'solventId',
+  'status',
+  'ownerId',
+  'flagged',
+  'q',
+  'sort',
+  'direction',
+  'page',
+] as const;
 
 /** The lab's studies, filtered, sorted and paged on the server; the filters live in the address. */
 export function StudiesRoute() {
@@ -25,18 +36,31 @@ export function StudiesRoute() {
   const lab = user.labs.find((membership) => membership.labId === labId);
   const [params, setParams] = useSearchParams();
   const [text, setText] = useState(params.get('q') ?? '');
-  const filters = Object.fromEntries(FILTERS.flatMap((key) => (params.get(key) ? [[key, params.get(key)]] : []))) as Partial<ListStudiesQuery>;
+  const filters = Object.fromEntries(
+    FILTERS.flatMap((key) => (params.get(key) ? [[key, params.get(key)]] : [])),
+  ) as Partial<ListStudiesQuery>;
   const studies = useStudies(labId, filters);
   const options = useStudyFormOptions(labId);
   if (!lab) return <NotYourLab />;
   const set = (key: (typeof FILTERS)[number], value: string) => {
     const next = new URLSearchParams(params);
-    if (value) next.set(key, value); else next.delete(key);
+    if (value) next.set(key, value);
+    else next.delete(key);
     if (key !== 'page') next.delete('page');
     setParams(next);
   };
-  const select = (key: (typeof FILTERS)[number], label: string, choices: Array<{ value: string; label: string }>, none = 'all') => (
-    <SelectField label={label} value={params.get(key) ?? ''} onChange={(event) => set(key, event.target.value)} options={[{ value: '', label: none }, ...choices]} />
+  const select = (
+    key: (typeof FILTERS)[number],
+    label: string,
+    choices: Array<{ value: string; label: string }>,
+    none = 'all',
+  ) => (
+    <SelectField
+      label={label}
+      value={params.get(key) ?? ''}
+      onChange={(event) => set(key, event.target.value)}
+      options={[{ value: '', label: none }, ...choices]}
+    />
   );
   const compounds = options.data?.compounds ?? [];
   const page = Number(params.get('page') ?? 1);
@@ -45,38 +69,111 @@ export function StudiesRoute() {
     <div className="max-w-6xl space-y-6">
       <header className="flex items-end justify-between">
         <div>
-          <p className="flex items-center gap-2 text-caption uppercase text-ink-500">{lab.labName} {lab.isDemo && <Tag tone="demo">Demo</Tag>}</p>
+          <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
+            {lab.labName} {lab.isDemo && <Tag tone="demo">Demo</Tag>}
+          </p>
           <h1 className="text-display font-black text-ink-950">Studies</h1>
         </div>
-        {can(lab.role, 'studies:write') && <Link to={`/labs/${labId}/studies/new`} className="rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300">New study</Link>}
+        {can(lab.role, 'studies:write') && (
+          <Link
+            to={`/labs/${labId}/studies/new`}
+            className="rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300"
+          >
+            New study
+          </Link>
+        )}
       </header>
       <Panel title="Find">
-        <form className="grid grid-cols-2 gap-3 md:grid-cols-4" onSubmit={(event) => { event.preventDefault(); set('q', text.trim()); }}>
-          <TextField label="Words in title or notes" value={text} onChange={(event) => setText(event.target.value)} onBlur={() => set('q', text.trim())} />
-          {select('emitterId', 'Emitter', compounds.filter((c) => c.roleHint !== 'quencher').map((c) => ({ value: c.id, label: c.name })))}
-          {select('quencherId', 'Quencher', compounds.filter((c) => c.roleHint !== 'photocatalyst').map((c) => ({ value: c.id, label: c.name })))}
-          {select('solventId', 'Solvent', (options.data?.solvents ?? []).map((s) => ({ value: s.id, label: s.name })))}
-          {select('status', 'Status', studyStatuses.map((s) => ({ value: s, label: statusLabels[s] })))}
-          {select('ownerId', 'Owner', (options.data?.members ?? []).map((m) => ({ value: m.userId, label: m.name })))}
+        <form
+          className="grid grid-cols-2 gap-3 md:grid-cols-4"
+          onSubmit={(event) => {
+            event.preventDefault();
+            set('q', text.trim());
+          }}
+        >
+          <TextField
+            label="Words in title or notes"
+            value={text}
+            onChange={(event) => setText(event.target.value)}
+            onBlur={() => set('q', text.trim())}
+          />
+          {select(
+            'emitterId',
+            'Emitter',
+            compounds.filter((c) => c.roleHint !== 'quencher').map((c) => ({ value: c.id, label: c.name })),
+          )}
+          {select(
+            'quencherId',
+            'Quencher',
+            compounds.filter((c) => c.roleHint !== 'photocatalyst').map((c) => ({ value: c.id, label: c.name })),
+          )}
+          {select(
+            'solventId',
+            'Solvent',
+            (options.data?.solvents ?? []).map((s) => ({ value: s.id, label: s.name })),
+          )}
+          {select(
+            'status',
+            'Status',
+            studyStatuses.map((s) => ({ value: s, label: statusLabels[s] })),
+          )}
+          {select(
+            'ownerId',
+            'Owner',
+            (options.data?.members ?? []).map((m) => ({ value: m.userId, label: m.name })),
+          )}
           {select('flagged', 'Flags', [{ value: 'true', label: 'flagged only' }])}
-          {select('sort', 'Sort by', [{ value: 'kq', label: 'kq, highest first' }, { value: 'k_sv', label: 'K_SV, highest first' }], 'last changed')}
+          {select(
+            'sort',
+            'Sort by',
+            [
+              { value: 'kq', label: 'kq, highest first' },
+              { value: 'k_sv', label: 'K_SV, highest first' },
+            ],
+            'last changed',
+          )}
         </form>
       </Panel>
       {studies.isError && <ErrorNotice error={studies.error} what="the studies" />}
-      {studies.data && studies.data.items.length === 0 && <EmptyState title="No studies match">Change the filters, or start a new study.</EmptyState>}
+      {studies.data && studies.data.items.length === 0 && (
+        <EmptyState title="No studies match">Change the filters, or start a new study.</EmptyState>
+      )}
       {studies.data && studies.data.items.length > 0 && (
         <Panel title={`${studies.data.total} ${studies.data.total === 1 ? 'study' : 'studies'}`}>
           <table className="w-full text-body">
-            <thead><tr className="text-left text-caption text-ink-500"><th>Title</th><th>Emitter → quencher</th><th>Solvent</th><th>K_SV (M⁻¹)</th><th>kq (M⁻¹ s⁻¹)</th><th>Status</th><th>Owner</th><th>Changed</th></tr></thead>
+            <thead>
+              <tr className="text-left text-caption text-ink-500">
+                <th>Title</th>
+                <th>Emitter → quencher</th>
+                <th>Solvent</th>
+                <th>K_SV (M⁻¹)</th>
+                <th>kq (M⁻¹ s⁻¹)</th>
+                <th>Status</th>
+                <th>Owner</th>
+                <th>Changed</th>
+              </tr>
+            </thead>
             <tbody>
               {studies.data.items.map((study) => (
                 <tr key={study.id} className="border-t border-paper-200">
-                  <td className="py-2"><Link className="font-bold text-ink-900 underline" to={`/labs/${labId}/studies/${study.id}`}>{study.title}</Link>{study.revision > 1 && <span className="text-caption text-ink-500"> rev. {study.revision}</span>}</td>
-                  <td>{study.emitter.name} → {study.quencher.name}</td>
+                  <td className="py-2">
+                    <Link className="font-bold text-ink-900 underline" to={`/labs/${labId}/studies/${study.id}`}>
+                      {study.title}
+                    </Link>
+                    {study.revision > 1 && <span className="text-caption text-ink-500"> rev. {study.revision}</span>}
+                  </td>
+                  <td>
+                    {study.emitter.name} → {study.quencher.name}
+                  </td>
                   <td>{study.solventLabel}</td>
                   <td>{formatNumber(study.kSv)}</td>
-                  <td>{formatNumber(study.kq)}{study.flagged && <span className="ml-1 text-caption font-bold text-brick-700">flagged</span>}</td>
-                  <td><StatusSignal status={study.status} /></td>
+                  <td>
+                    {formatNumber(study.kq)}
+                    {study.flagged && <span className="ml-1 text-caption font-bold text-brick-700">flagged</span>}
+                  </td>
+                  <td>
+                    <StatusSignal status={study.status} />
+                  </td>
                   <td>{study.ownerName}</td>
                   <td className="text-caption">{new Date(study.updatedAt).toLocaleDateString()}</td>
                 </tr>
@@ -84,9 +181,25 @@ export function StudiesRoute() {
             </tbody>
           </table>
           <nav aria-label="Pages" className="mt-3 flex items-center gap-3 text-body">
-            <button type="button" disabled={page <= 1} onClick={() => set('page', String(page - 1))} className="underline disabled:opacity-40">Previous</button>
-            <span>Page {page} of {pages}</span>
-            <button type="button" disabled={page >= pages} onClick={() => set('page', String(page + 1))} className="underline disabled:opacity-40">Next</button>
+            <button
+              type="button"
+              disabled={page <= 1}
+              onClick={() => set('page', String(page - 1))}
+              className="underline disabled:opacity-40"
+            >
+              Previous
+            </button>
+            <span>
+              Page {page} of {pages}
+            </span>
+            <button
+              type="button"
+              disabled={page >= pages}
+              onClick={() => set('page', String(page + 1))}
+              className="underline disabled:opacity-40"
+            >
+              Next
+            </button>
           </nav>
         </Panel>
       )}

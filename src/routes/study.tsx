@@ -39,67 +39,186 @@ export function StudyRoute() {
   if (!study.data) return <Signal tone="waiting">Loading the study</Signal>;
   const isOwner = study.data.ownerId === user.id;
   return (
-    <StudyScreen key={study.data.version} labId={labId} labName={lab.labName} isDemo={lab.isDemo} study={study.data}
-      isOwner={isOwner} canWrite={can(lab.role, 'studies:write')} canReview={can(lab.role, 'studies:review')} />
+    <StudyScreen
+      key={study.data.version}
+      labId={labId}
+      labName={lab.labName}
+      isDemo={lab.isDemo}
+      study={study.data}
+      isOwner={isOwner}
+      canWrite={can(lab.role, 'studies:write')}
+      canReview={can(lab.role, 'studies:review')}
+    />
   );
 }
 
-interface ScreenProps { labId: string; labName: string; isDemo: boolean; study: StudyDetail; isOwner: boolean; canWrite: boolean; canReview: boolean }
+interface ScreenProps {
+  labId: string;
+  labName: string;
+  isDemo: boolean;
+  study: StudyDetail;
+  isOwner: boolean;
+  canWrite: boolean;
+  canReview: boolean;
+}
 
 function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canReview }: ScreenProps) {
   const [editing, setEditing] = useState(false);
   const options = useStudyFormOptions(labId);
   const update = useUpdateStudy(labId, study.id);
-  const editable = isOwner && canWrite && (study.status === 'draft' || study.status === 'returned') && study.nextRevisionId === null;
+  const editable =
+    isOwner && canWrite && (study.status === 'draft' || study.status === 'returned') && study.nextRevisionId === null;
   const fit = study.latestFit;
-  const excluded = study.points.filter((p) => p.excluded && p.intensity !== null && fit?.result.reference.kind === 'i0')
+  const excluded = study.points
+    .filter((p) => p.excluded && p.intensity !== null && fit?.result.reference.kind === 'i0')
     .map((p) => ({ x: p.concentration, y: fit!.result.reference.value / p.intensity! }));
   const pinned = study.pinnedMechanism === 'energy-transfer' ? null : study.pinnedMechanism;
 
   return (
     <div className="max-w-6xl space-y-6">
       <header className="space-y-1">
-        <p className="flex items-center gap-2 text-caption uppercase text-ink-500"><Link to={`/labs/${labId}/studies`} className="underline">{labName} · Studies</Link> {isDemo && <Tag tone="demo">Demo</Tag>}</p>
+        <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
+          <Link to={`/labs/${labId}/studies`} className="underline">
+            {labName} · Studies
+          </Link>{' '}
+          {isDemo && <Tag tone="demo">Demo</Tag>}
+        </p>
         <h1 className="text-display font-black text-ink-950">{study.title}</h1>
         <p className="flex flex-wrap items-center gap-3 text-lead text-ink-700">
-          {study.emitter.name} with {study.quencher.name} · {study.solventLabel}, {study.temperature} K, {study.atmosphere} <StatusSignal status={study.status} />
-          <span className="text-caption">revision {study.revision} · {study.ownerName}</span>
-          <a className="rounded-md border border-paper-300 bg-paper-50 px-3 py-1 text-body font-bold text-ink-800 hover:border-ink-300" href={`/api/labs/${labId}/studies/${study.id}/report.pdf`}>
+          {study.emitter.name} with {study.quencher.name} · {study.solventLabel}, {study.temperature} K,{' '}
+          {study.atmosphere} <StatusSignal status={study.status} />
+          <span className="text-caption">
+            revision {study.revision} · {study.ownerName}
+          </span>
+          <a
+            className="rounded-md border border-paper-300 bg-paper-50 px-3 py-1 text-body font-bold text-ink-800 hover:border-ink-300"
+            href={`/api/labs/${labId}/studies/${study.id}/report.pdf`}
+          >
             PDF report
           </a>
         </p>
-        {study.previousRevisionId && <p className="text-caption"><Link className="underline" to={`/labs/${labId}/studies/${study.previousRevisionId}`}>Earlier revision</Link></p>}
-        {study.nextRevisionId && <FormAlert tone="note">A newer revision exists: <Link className="underline" to={`/labs/${labId}/studies/${study.nextRevisionId}`}>open it</Link>. This one stays as it was.</FormAlert>}
-        {study.status === 'approved' && !study.nextRevisionId && <FormAlert tone="good">Approved and locked. A change starts a new revision; this one is kept.</FormAlert>}
+        {study.previousRevisionId && (
+          <p className="text-caption">
+            <Link className="underline" to={`/labs/${labId}/studies/${study.previousRevisionId}`}>
+              Earlier revision
+            </Link>
+          </p>
+        )}
+        {study.nextRevisionId && (
+          <FormAlert tone="note">
+            A newer revision exists:{' '}
+            <Link className="underline" to={`/labs/${labId}/studies/${study.nextRevisionId}`}>
+              open it
+            </Link>
+            . This one stays as it was.
+          </FormAlert>
+        )}
+        {study.status === 'approved' && !study.nextRevisionId && (
+          <FormAlert tone="good">Approved and locked. A change starts a new revision; this one is kept.</FormAlert>
+        )}
       </header>
       <SafetyNotes study={study} />
       {/* minmax(0, …): a chart or wide table shrinks to its column instead of widening the column past the window */}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <Panel title="Stern–Volmer plot" aside={<a className="text-caption underline" href={`/api/labs/${labId}/studies/${study.id}/export.csv?part=points`}>Points as CSV</a>}>
-          {fit ? <SternVolmerPlot plot={fit.result.plot} excluded={excluded} xLabel={fit.model === 'modified' ? '1/[Q] (M⁻¹ × 10⁻³)' : '[Q] (mM)'} xScale={fit.model === 'modified' ? 1e-3 : 1e3} studyTitle={study.title} />
-            : <p className="text-body text-ink-500">{study.fitProblem ?? 'Add points (type, paste or upload) and the fit appears here.'}</p>}
-          {fit?.result.lifetime && <div className="mt-4"><h3 className="text-body font-bold">Lifetimes</h3><LifetimePlot lifetime={fit.result.lifetime} xLabel="[Q] (mM)" xScale={1e3} studyTitle={study.title} /></div>}
+        <Panel
+          title="Stern–Volmer plot"
+          aside={
+            <a
+              className="text-caption underline"
+              href={`/api/labs/${labId}/studies/${study.id}/export.csv?part=points`}
+            >
+              Points as CSV
+            </a>
+          }
+        >
+          {fit ? (
+            <SternVolmerPlot
+              plot={fit.result.plot}
+              excluded={excluded}
+              xLabel={fit.model === 'modified' ? '1/[Q] (M⁻¹ × 10⁻³)' : '[Q] (mM)'}
+              xScale={fit.model === 'modified' ? 1e-3 : 1e3}
+              studyTitle={study.title}
+            />
+          ) : (
+            <p className="text-body text-ink-500">
+              {study.fitProblem ?? 'Add points (type, paste or upload) and the fit appears here.'}
+            </p>
+          )}
+          {fit?.result.lifetime && (
+            <div className="mt-4">
+              <h3 className="text-body font-bold">Lifetimes</h3>
+              <LifetimePlot lifetime={fit.result.lifetime} xLabel="[Q] (mM)" xScale={1e3} studyTitle={study.title} />
+            </div>
+          )}
         </Panel>
-        <Panel title="Results" aside={fit && <a className="text-caption underline" href={`/api/labs/${labId}/studies/${study.id}/export.csv?part=fit`}>Fit as CSV</a>}>
+        <Panel
+          title="Results"
+          aside={
+            fit && (
+              <a className="text-caption underline" href={`/api/labs/${labId}/studies/${study.id}/export.csv?part=fit`}>
+                Fit as CSV
+              </a>
+            )
+          }
+        >
           {study.fitProblem && <FormAlert>{study.fitProblem}</FormAlert>}
           {fit ? <ResultsPanel fit={fit} /> : <p className="text-body text-ink-500">No fit yet.</p>}
-          {editable && fit && <div className="mt-3"><FitControls labId={labId} studyId={study.id} model={study.fitModel} /></div>}
+          {editable && fit && (
+            <div className="mt-3">
+              <FitControls labId={labId} studyId={study.id} model={study.fitModel} />
+            </div>
+          )}
         </Panel>
       </div>
-      <Panel title="Points"><PointsGrid labId={labId} study={study} editable={editable} /></Panel>
-      {editable && <Panel title="Upload an instrument file"><UploadPanel labId={labId} study={study} /></Panel>}
-      <DrivingForcePanel labId={labId} emitterId={study.emitter.id} quencherId={study.quencher.id} solvent={study.solventId} pinned={pinned}
-        onPin={editable ? (pathway) => update.mutate({ version: study.version, pinnedMechanism: pathway }) : undefined} />
-      <Panel title="Set-up" aside={editable && <button type="button" className="text-caption underline" onClick={() => setEditing(!editing)}>{editing ? 'Close' : 'Change'}</button>}>
+      <Panel title="Points">
+        <PointsGrid labId={labId} study={study} editable={editable} />
+      </Panel>
+      {editable && (
+        <Panel title="Upload an instrument file">
+          <UploadPanel labId={labId} study={study} />
+        </Panel>
+      )}
+      <DrivingForcePanel
+        labId={labId}
+        emitterId={study.emitter.id}
+        quencherId={study.quencher.id}
+        solvent={study.solventId}
+        pinned={pinned}
+        onPin={editable ? (pathway) => update.mutate({ version: study.version, pinnedMechanism: pathway }) : undefined}
+      />
+      <Panel
+        title="Set-up"
+        aside={
+          editable && (
+            <button type="button" className="text-caption underline" onClick={() => setEditing(!editing)}>
+              {editing ? 'Close' : 'Change'}
+            </button>
+          )
+        }
+      >
         {update.isError && <FormAlert>{describeError(update.error)}</FormAlert>}
-        {editing ? <StudyForm options={options.data} study={study} submitLabel="Save set-up" onSubmit={(body) => update.mutateAsync({ ...body, version: study.version })} />
-          : <SetupSummary study={study} />}
+        {editing ? (
+          <StudyForm
+            options={options.data}
+            study={study}
+            submitLabel="Save set-up"
+            onSubmit={(body) => update.mutateAsync({ ...body, version: study.version })}
+          />
+        ) : (
+          <SetupSummary study={study} />
+        )}
       </Panel>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
-        <Panel title="Review"><ReviewPanel labId={labId} study={study} isOwner={isOwner} canReview={canReview} canWrite={canWrite} /></Panel>
-        <Panel title="Files"><FilesList labId={labId} studyId={study.id} uploads={study.uploads} /></Panel>
+        <Panel title="Review">
+          <ReviewPanel labId={labId} study={study} isOwner={isOwner} canReview={canReview} canWrite={canWrite} />
+        </Panel>
+        <Panel title="Files">
+          <FilesList labId={labId} studyId={study.id} uploads={study.uploads} />
+        </Panel>
       </div>
-      <Panel title="History"><HistoryPanel labId={labId} studyId={study.id} /></Panel>
+      <Panel title="History">
+        <HistoryPanel labId={labId} studyId={study.id} />
+      </Panel>
     </div>
   );
 }
@@ -107,15 +226,43 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
 function SetupSummary({ study }: { study: StudyDetail }) {
   const facts: Array<[string, string]> = [
     ['Excitation', study.excitationWavelength ? `${study.excitationWavelength} nm` : '—'],
-    ['Emission', study.windowStart !== null && study.windowEnd !== null ? `${study.windowStart}–${study.windowEnd} nm (integrated)` : study.emissionWavelength ? `${study.emissionWavelength} nm` : '—'],
-    ['Degassing', study.degassingMethod], ['τ0', study.tau0 !== null ? `${(study.tau0 * 1e9).toPrecision(4)} ns${study.tau0LifetimeId ? ' (lifetime record)' : ''}` : 'not given'],
-    ['Corrections', [study.dilutionCorrection && 'dilution', study.innerFilterCorrection && 'inner filter'].filter(Boolean).join(', ') || 'none'],
+    [
+      'Emission',
+      study.windowStart !== null && study.windowEnd !== null
+        ? `${study.windowStart}–${study.windowEnd} nm (integrated)`
+        : study.emissionWavelength
+          ? `${study.emissionWavelength} nm`
+          : '—',
+    ],
+    ['Degassing', study.degassingMethod],
+    [
+      'τ0',
+      study.tau0 !== null
+        ? `${(study.tau0 * 1e9).toPrecision(4)} ns${study.tau0LifetimeId ? ' (lifetime record)' : ''}`
+        : 'not given',
+    ],
+    [
+      'Corrections',
+      [study.dilutionCorrection && 'dilution', study.innerFilterCorrection && 'inner filter']
+        .filter(Boolean)
+        .join(', ') || 'none',
+    ],
     ['Series', study.dataKind === 'ratio' ? 'I0/I ratios' : 'intensities'],
   ];
   return (
     <dl className="grid grid-cols-2 gap-2 text-body md:grid-cols-3">
-      {facts.map(([label, value]) => <div key={label}><dt className="text-caption uppercase text-ink-500">{label}</dt><dd className="font-bold">{value}</dd></div>)}
-      {study.notes && <div className="col-span-full"><dt className="text-caption uppercase text-ink-500">Notes</dt><dd className="whitespace-pre-wrap">{study.notes}</dd></div>}
+      {facts.map(([label, value]) => (
+        <div key={label}>
+          <dt className="text-caption uppercase text-ink-500">{label}</dt>
+          <dd className="font-bold">{value}</dd>
+        </div>
+      ))}
+      {study.notes && (
+        <div className="col-span-full">
+          <dt className="text-caption uppercase text-ink-500">Notes</dt>
+          <dd className="whitespace-pre-wrap">{study.notes}</dd>
+        </div>
+      )}
     </dl>
   );
 }

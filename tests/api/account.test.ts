@@ -25,8 +25,13 @@ describe('POST /api/password-resets', () => {
     expect(stored!.expiresAt.getTime() - Date.now()).toBeLessThanOrEqual(60 * 60_000);
 
     const newPassword = 'a-brand-new-passphrase';
-    expect((await client.post('/api/password-resets/complete', { token: tokenOf(link), password: newPassword })).status).toBe(204);
-    const reused = await client.post('/api/password-resets/complete', { token: tokenOf(link), password: 'another-passphrase' });
+    expect(
+      (await client.post('/api/password-resets/complete', { token: tokenOf(link), password: newPassword })).status,
+    ).toBe(204);
+    const reused = await client.post('/api/password-resets/complete', {
+      token: tokenOf(link),
+      password: 'another-passphrase',
+    });
     expect(reused.status).toBe(400);
     expect(reused.body.error.code).toBe('token_invalid');
     await client.signIn({ email: users.researcher.email, password: newPassword });
@@ -46,7 +51,10 @@ describe('POST /api/password-resets', () => {
     await client.post('/api/password-resets', { email: users.viewer.email });
     const { link } = await latestMailTo(users.viewer.email);
     await PasswordReset.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { userId: users.viewer.id } });
-    const response = await client.post('/api/password-resets/complete', { token: tokenOf(link), password: 'too-late-passphrase' });
+    const response = await client.post('/api/password-resets/complete', {
+      token: tokenOf(link),
+      password: 'too-late-passphrase',
+    });
     expect(response.status).toBe(400);
     expect(response.body.error.code).toBe('token_invalid');
     await client.signIn(users.viewer);
@@ -58,12 +66,21 @@ describe('POST /api/account/password', () => {
     const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
     const client = await apiClient(testApp.app);
     await client.signIn(users.viewer);
-    const wrong = await client.post('/api/account/password', { currentPassword: 'nope', newPassword: 'long-enough-passphrase' });
+    const wrong = await client.post('/api/account/password', {
+      currentPassword: 'nope',
+      newPassword: 'long-enough-passphrase',
+    });
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.details).toEqual([{ path: 'body.currentPassword', message: 'is not right' }]);
-    const short = await client.post('/api/account/password', { currentPassword: users.viewer.password, newPassword: 'short' });
+    const short = await client.post('/api/account/password', {
+      currentPassword: users.viewer.password,
+      newPassword: 'short',
+    });
     expect(short.body.error.details).toEqual([{ path: 'body.newPassword', message: 'must be at least 10 characters' }]);
-    const ok = await client.post('/api/account/password', { currentPassword: users.viewer.password, newPassword: 'long-enough-passphrase' });
+    const ok = await client.post('/api/account/password', {
+      currentPassword: users.viewer.password,
+      newPassword: 'long-enough-passphrase',
+    });
     expect(ok.status).toBe(204);
     const again = await apiClient(testApp.app);
     await again.signIn({ email: users.viewer.email, password: 'long-enough-passphrase' });

@@ -17,7 +17,14 @@ const acceptorPotentials = [-1.3, -1.6, -1.9, -2.1];
 
 async function potential(compoundId: string, couple: 'oxidation' | 'reduction', value: number) {
   await RedoxPotential.create({
-    labId, compoundId, couple, value, reference: 'SCE', solvent: 'acetonitrile', kind: 'half-wave', createdById: null,
+    labId,
+    compoundId,
+    couple,
+    value,
+    reference: 'SCE',
+    solvent: 'acetonitrile',
+    kind: 'half-wave',
+    createdById: null,
   });
 }
 
@@ -30,7 +37,13 @@ beforeAll(async () => {
   emitterId = emitter.id;
   await potential(emitterId, 'oxidation', 0.57);
   await potential(emitterId, 'reduction', -2.38);
-  await ExcitedStateEnergy.create({ labId, compoundId: emitterId, value: 2.64, method: 'phosphorescence', createdById: null });
+  await ExcitedStateEnergy.create({
+    labId,
+    compoundId: emitterId,
+    value: 2.64,
+    method: 'phosphorescence',
+    createdById: null,
+  });
   const diffusionLimit = solventDiffusionLimit('acetonitrile');
   for (const [index, reduction] of acceptorPotentials.entries()) {
     const quencher = await createCompound(labId, `acceptor-${index}`, 'quencher');
@@ -40,11 +53,23 @@ beforeAll(async () => {
     const drivingForce = 0.57 - reduction - 2.64;
     const kq = rehmWellerRateConstant({ drivingForce, reorganisationEnergy: 0.8, diffusionLimit });
     await createStudyRecord({
-      labId, emitterId, quencherId: quencher.id, kq, status: index % 2 === 0 ? 'approved' : 'draft', title: `Pt vs acceptor-${index}`,
+      labId,
+      emitterId,
+      quencherId: quencher.id,
+      kq,
+      status: index % 2 === 0 ? 'approved' : 'draft',
+      title: `Pt vs acceptor-${index}`,
     });
   }
   // A study in another solvent: listed, but never mixed into the acetonitrile trend.
-  await createStudyRecord({ labId, emitterId, quencherId: quencherIds[0]!, kq: 1e9, solventId: 'dmf', title: 'in DMF' });
+  await createStudyRecord({
+    labId,
+    emitterId,
+    quencherId: quencherIds[0]!,
+    kq: 1e9,
+    solventId: 'dmf',
+    title: 'in DMF',
+  });
   viewer = await apiClient(testApp.app);
   await viewer.signIn(users.viewer);
 });
@@ -58,7 +83,10 @@ describe('GET /api/labs/:labId/comparisons/:side/:compoundId', () => {
     expect(acetonitrileRows[0].drivingForce.pathway).toBe('oxidative');
     expect(acetonitrileRows[0].drivingForce.electronvolts).toBeCloseTo(-0.77, 10);
     expect(acetonitrileRows.map((row: { partner: { name: string } }) => row.partner.name)).toEqual([
-      'acceptor-0', 'acceptor-1', 'acceptor-2', 'acceptor-3',
+      'acceptor-0',
+      'acceptor-1',
+      'acceptor-2',
+      'acceptor-3',
     ]);
     expect(response.body.rows.find((row: { solvent: string }) => row.solvent === 'dmf').status).toBe('draft');
   });
@@ -86,7 +114,10 @@ describe('GET /api/labs/:labId/comparisons/:side/:compoundId', () => {
 
   it('when a quencher is compared, then its emitters are listed', async () => {
     const response = await viewer.get(`/api/labs/${labId}/comparisons/quencher/${quencherIds[0]}`);
-    expect(response.body.rows.map((row: { partner: { name: string } }) => row.partner.name)).toEqual(['Pt-row', 'Pt-row']);
+    expect(response.body.rows.map((row: { partner: { name: string } }) => row.partner.name)).toEqual([
+      'Pt-row',
+      'Pt-row',
+    ]);
   });
 
   it('when exported, then the CSV carries the same rows with an approved column', async () => {

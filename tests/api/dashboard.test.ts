@@ -26,9 +26,18 @@ beforeAll(async () => {
   await Study.update({ flagged: true }, { where: { id: flagged.id } });
   studyIds.flagged = flagged.id;
   // An automatic refit (noise on a dashboard) before the return that should show.
-  await recordAudit({ userId: users.researcher.id, ip: null }, { action: 'study_fitted', labId, targetType: 'study', targetId: studyIds.flagged, details: { trigger: 'auto' } });
-  await recordAudit({ userId: users.researcher.id, ip: null }, { action: 'study_fitted', labId, targetType: 'study', targetId: studyIds.flagged, details: { trigger: 'manual' } });
-  await recordAudit({ userId: users.reviewer.id, ip: null }, { action: 'study_returned', labId, targetType: 'study', targetId: studyIds.returned });
+  await recordAudit(
+    { userId: users.researcher.id, ip: null },
+    { action: 'study_fitted', labId, targetType: 'study', targetId: studyIds.flagged, details: { trigger: 'auto' } },
+  );
+  await recordAudit(
+    { userId: users.researcher.id, ip: null },
+    { action: 'study_fitted', labId, targetType: 'study', targetId: studyIds.flagged, details: { trigger: 'manual' } },
+  );
+  await recordAudit(
+    { userId: users.reviewer.id, ip: null },
+    { action: 'study_returned', labId, targetType: 'study', targetId: studyIds.returned },
+  );
 });
 
 describe('GET /api/labs/:labId/dashboard', () => {
@@ -41,7 +50,9 @@ describe('GET /api/labs/:labId/dashboard', () => {
     expect(response.body.myReturned).toEqual([]);
     expect(response.body.recentlyFlagged.map((study: { id: string }) => study.id)).toEqual([studyIds.flagged]);
     expect(response.body.recentActivity[0]).toMatchObject({
-      description: 'returned a study with comments “came back”', actor: users.reviewer.name, targetId: studyIds.returned,
+      description: 'returned a study with comments “came back”',
+      actor: users.reviewer.name,
+      targetId: studyIds.returned,
     });
   });
 

@@ -11,7 +11,9 @@ describe('seedDemoStudies', () => {
     await seedDemoData(testApp.sequelize);
     const lab = await Lab.findOne({ where: { slug: demoLabs[0].slug } });
     const studies = await Study.findAll({ where: { labId: lab!.id } });
-    expect(new Set(studies.map((study) => study.status))).toEqual(new Set(['draft', 'submitted', 'approved', 'returned']));
+    expect(new Set(studies.map((study) => study.status))).toEqual(
+      new Set(['draft', 'submitted', 'approved', 'returned']),
+    );
     expect(new Set(studies.map((study) => study.quencherId)).size).toBeGreaterThanOrEqual(5);
     expect(studies.every((study) => study.title.startsWith('Demo') && study.latestFitId !== null)).toBe(true);
     const { StudyFit } = await import('../../server/models');

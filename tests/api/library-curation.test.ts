@@ -20,7 +20,11 @@ async function labWith(roles: Role[]) {
 describe('GET /api/labs/:labId/compounds', () => {
   it('when the library is searched and filtered, then the page, the total and the role filter agree', async () => {
     const { labId, researcher, viewer } = await labWith(['researcher', 'viewer']);
-    for (const [name, roleHint] of [['HL-Ir-a', 'photocatalyst'], ['HL-Ir-b', 'both'], ['Q-amine-a', 'quencher']] as const) {
+    for (const [name, roleHint] of [
+      ['HL-Ir-a', 'photocatalyst'],
+      ['HL-Ir-b', 'both'],
+      ['Q-amine-a', 'quencher'],
+    ] as const) {
       expect((await researcher.post(`/api/labs/${labId}/compounds`, { name, roleHint })).status).toBe(201);
     }
     const emitters = await viewer.get(`/api/labs/${labId}/compounds?roleHint=photocatalyst`);
@@ -43,7 +47,9 @@ describe('PATCH /api/labs/:labId/compounds/:compoundId', () => {
     await Membership.create({ labId, userId: other.users.researcher.id, role: 'researcher' });
     const stranger = await apiClient(testApp.app);
     await stranger.signIn(other.users.researcher);
-    const created = (await researcher.post(`/api/labs/${labId}/compounds`, { name: 'HL-Cz-x', roleHint: 'photocatalyst' })).body;
+    const created = (
+      await researcher.post(`/api/labs/${labId}/compounds`, { name: 'HL-Cz-x', roleHint: 'photocatalyst' })
+    ).body;
     const url = `/api/labs/${labId}/compounds/${created.id}`;
     expect((await stranger.patch(url, { notes: 'mine now', version: created.version })).status).toBe(403);
     const curated = await reviewer.patch(url, { notes: 'checked against the notebook', version: created.version });
@@ -64,9 +70,16 @@ describe('PATCH /api/labs/:labId/compounds/:compoundId', () => {
 describe('PATCH and DELETE /api/labs/:labId/compounds/:compoundId/lifetimes/:lifetimeId', () => {
   it('when the owner edits a lifetime with the current version, then it changes; a reviewer removes it', async () => {
     const { labId, researcher, reviewer } = await labWith(['researcher', 'reviewer']);
-    const compound = (await researcher.post(`/api/labs/${labId}/compounds`, { name: 'HL-Ir-t', roleHint: 'photocatalyst' })).body;
+    const compound = (
+      await researcher.post(`/api/labs/${labId}/compounds`, { name: 'HL-Ir-t', roleHint: 'photocatalyst' })
+    ).body;
     const base = `/api/labs/${labId}/compounds/${compound.id}/lifetimes`;
-    const lifetime = await researcher.post(base, { value: 1.1e-6, solvent: 'acetonitrile', atmosphere: 'argon', method: 'TCSPC' });
+    const lifetime = await researcher.post(base, {
+      value: 1.1e-6,
+      solvent: 'acetonitrile',
+      atmosphere: 'argon',
+      method: 'TCSPC',
+    });
     expect(lifetime.status).toBe(201);
     expect(lifetime.body).toMatchObject({ value: 1.1e-6, temperature: 298.15, version: 0 });
     const changed = await researcher.patch(`${base}/${lifetime.body.id}`, { uncertainty: 2e-8, version: 0 });
@@ -80,13 +93,23 @@ describe('PATCH and DELETE /api/labs/:labId/compounds/:compoundId/lifetimes/:lif
 describe('GET and PATCH /api/labs/:labId/settings', () => {
   it('when an admin switches the display reference to Fc+/Fc, then potentials read against it, originals unchanged', async () => {
     const { labId, admin, viewer } = await labWith(['admin', 'viewer']);
-    expect((await viewer.get(`/api/labs/${labId}/settings`)).body).toEqual({ displayReference: 'SCE', displaySolvent: 'acetonitrile' });
+    expect((await viewer.get(`/api/labs/${labId}/settings`)).body).toEqual({
+      displayReference: 'SCE',
+      displaySolvent: 'acetonitrile',
+    });
     expect((await viewer.patch(`/api/labs/${labId}/settings`, { displayReference: 'Fc+/Fc' })).status).toBe(403);
     expect((await admin.patch(`/api/labs/${labId}/settings`, { displayReference: 'Hg/HgO' })).status).toBe(400);
-    expect((await admin.patch(`/api/labs/${labId}/settings`, { displayReference: 'Fc+/Fc' })).body.displayReference).toBe('Fc+/Fc');
-    const compound = (await admin.post(`/api/labs/${labId}/compounds`, { name: 'HL-Ru-s', roleHint: 'photocatalyst' })).body;
+    expect(
+      (await admin.patch(`/api/labs/${labId}/settings`, { displayReference: 'Fc+/Fc' })).body.displayReference,
+    ).toBe('Fc+/Fc');
+    const compound = (await admin.post(`/api/labs/${labId}/compounds`, { name: 'HL-Ru-s', roleHint: 'photocatalyst' }))
+      .body;
     const potential = await admin.post(`/api/labs/${labId}/compounds/${compound.id}/potentials`, {
-      couple: 'oxidation', value: 1.29, reference: 'SCE', solvent: 'acetonitrile', kind: 'half-wave',
+      couple: 'oxidation',
+      value: 1.29,
+      reference: 'SCE',
+      solvent: 'acetonitrile',
+      kind: 'half-wave',
     });
     // 1.29 V vs SCE − 0.380 V (Pavlishchuk & Addison, check-values §3) = 0.91 V vs Fc+/Fc, the engine's own example.
     expect(potential.body.display).toMatchObject({ reference: 'Fc+/Fc' });
@@ -125,17 +148,27 @@ describe('GET /api/labs/:labId/driving-force', () => {
     // Rule: transfer is downhill only when the quencher's triplet lies below the catalyst's (Turro 2010, from memory).
     expect(result.energyTransfer).toMatchObject({ possible: false });
     expect(result.energyTransfer.energyDifference).toBeCloseTo(0.2, 6);
-    const missing = result.missing.map((item: { compoundName: string; quantity: string }) => `${item.compoundName}:${item.quantity}`);
+    const missing = result.missing.map(
+      (item: { compoundName: string; quantity: string }) => `${item.compoundName}:${item.quantity}`,
+    );
     expect(missing.sort()).toEqual(['Test-Rh:oxidation', 'Test-Ru:reduction']);
     const lone = (await post('/compounds', { name: 'Test-lone', roleHint: 'quencher' })).body;
-    const nothing = await researcher.get(`/api/labs/${labId}/driving-force?emitterId=${lone.id}&quencherId=${quencher.id}&solvent=acetonitrile`);
+    const nothing = await researcher.get(
+      `/api/labs/${labId}/driving-force?emitterId=${lone.id}&quencherId=${quencher.id}&solvent=acetonitrile`,
+    );
     expect(nothing.body).toMatchObject({ oxidative: null, reductive: null, favoured: null });
-    expect(nothing.body.missing.some((item: { quantity: string; compoundName: string }) => item.quantity === 'e00' && item.compoundName === 'Test-lone')).toBe(true);
+    expect(
+      nothing.body.missing.some(
+        (item: { quantity: string; compoundName: string }) =>
+          item.quantity === 'e00' && item.compoundName === 'Test-lone',
+      ),
+    ).toBe(true);
   });
 });
 
 describe('CSV import and export', () => {
-  const header = 'record,compound,role_hint,couple,potential_v,reference,kind,solvent,lifetime_s,atmosphere,method,e00_ev,notes';
+  const header =
+    'record,compound,role_hint,couple,potential_v,reference,kind,solvent,lifetime_s,atmosphere,method,e00_ev,notes';
   it('when one row of the file is bad, then nothing is saved and the row and column are reported', async () => {
     const { labId, researcher } = await labWith(['researcher']);
     const csv = [
@@ -147,7 +180,9 @@ describe('CSV import and export', () => {
     const response = await researcher.post(`/api/labs/${labId}/compounds/import`, { csv });
     expect(response.status).toBe(400);
     expect(response.body.error.code).toBe('import_invalid');
-    expect(response.body.error.details).toEqual([{ path: 'csv.row4.potential_v', message: 'must be a number in volts' }]);
+    expect(response.body.error.details).toEqual([
+      { path: 'csv.row4.potential_v', message: 'must be a number in volts' },
+    ]);
     expect(await Compound.count({ where: { labId } })).toBe(0);
     const dry = await researcher.post(`/api/labs/${labId}/compounds/import`, { csv, dryRun: true });
     expect(dry.body).toMatchObject({ saved: false, problems: [{ row: 4, column: 'potential_v' }] });
@@ -173,6 +208,10 @@ describe('CSV import and export', () => {
     const roundTrip = await other.post(`/api/labs/${otherLab}/compounds/import`, { csv: exported.text });
     expect(roundTrip.status, JSON.stringify(roundTrip.body)).toBe(201);
     const list = await other.get(`/api/labs/${otherLab}/compounds`);
-    expect(list.body.items[0]).toMatchObject({ name: 'CSV-Ir-2', notes: '=HYPERLINK("x")', counts: { potentials: 1, lifetimes: 1, energies: 1 } });
+    expect(list.body.items[0]).toMatchObject({
+      name: 'CSV-Ir-2',
+      notes: '=HYPERLINK("x")',
+      counts: { potentials: 1, lifetimes: 1, energies: 1 },
+    });
   });
 });

@@ -25,7 +25,14 @@ describe('GET /api/labs/:labId/compounds/:compoundId/lifetimes/:lifetimeId/depen
     const post = (url: string, body: object) => researcher.post(`/api/labs/${lab.id}${url}`, body);
     const emitter = (await post('/compounds', { name: 'Dep-Ir', roleHint: 'photocatalyst' })).body;
     const quencher = (await post('/compounds', { name: 'Dep-Q', roleHint: 'quencher' })).body;
-    const lifetime = (await post(`/compounds/${emitter.id}/lifetimes`, { value: 1.1e-6, solvent: 'acetonitrile', atmosphere: 'argon', method: 'TCSPC' })).body;
+    const lifetime = (
+      await post(`/compounds/${emitter.id}/lifetimes`, {
+        value: 1.1e-6,
+        solvent: 'acetonitrile',
+        atmosphere: 'argon',
+        method: 'TCSPC',
+      })
+    ).body;
     const studyId = await insertStudy(lab.id, emitter.id, quencher.id, lifetime.id, 1.1e-6);
     const url = `/api/labs/${lab.id}/compounds/${emitter.id}/lifetimes/${lifetime.id}`;
 
@@ -47,7 +54,14 @@ describe('GET /api/labs/:labId/compounds/:compoundId/lifetimes/:lifetimeId/depen
     const post = (url: string, body: object) => reviewer.post(`/api/labs/${lab.id}${url}`, body);
     const emitter = (await post('/compounds', { name: 'Used-Ir', roleHint: 'photocatalyst' })).body;
     const quencher = (await post('/compounds', { name: 'Used-Q', roleHint: 'quencher' })).body;
-    const lifetime = (await post(`/compounds/${emitter.id}/lifetimes`, { value: 2e-6, solvent: 'acetonitrile', atmosphere: 'argon', method: 'TCSPC' })).body;
+    const lifetime = (
+      await post(`/compounds/${emitter.id}/lifetimes`, {
+        value: 2e-6,
+        solvent: 'acetonitrile',
+        atmosphere: 'argon',
+        method: 'TCSPC',
+      })
+    ).body;
     await insertStudy(lab.id, emitter.id, quencher.id, lifetime.id, 2e-6);
     const refused = await reviewer.delete(`/api/labs/${lab.id}/compounds/${quencher.id}`);
     expect(refused.status).toBe(409);

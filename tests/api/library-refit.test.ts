@@ -14,18 +14,34 @@ async function labWithLifetime() {
   await reviewer.signIn(users.reviewer);
   const base = `/api/labs/${lab.id}`;
   const emitter = (await researcher.post(`${base}/compounds`, { name: 'Refit-Ir', roleHint: 'photocatalyst' })).body;
-  const lifetime = (await researcher.post(`${base}/compounds/${emitter.id}/lifetimes`, {
-    value: 1e-6, uncertainty: 2e-8, solvent: 'acetonitrile', atmosphere: 'argon', method: 'TCSPC',
-  })).body;
+  const lifetime = (
+    await researcher.post(`${base}/compounds/${emitter.id}/lifetimes`, {
+      value: 1e-6,
+      uncertainty: 2e-8,
+      solvent: 'acetonitrile',
+      atmosphere: 'argon',
+      method: 'TCSPC',
+    })
+  ).body;
   const lifetimeUrl = `${base}/compounds/${emitter.id}/lifetimes/${lifetime.id}`;
   /** A study whose tau0 the studies API copies from the lifetime record, with the exact demo series. */
   const study = async (title: string) => {
     const created = await researcher.post(`${base}/studies`, {
-      title, emitterId: emitter.id, newQuencherName: `Q ${title}`, solventId: 'acetonitrile', atmosphere: 'argon',
-      degassingMethod: 'sparging', tau0LifetimeId: lifetime.id, fitModel: 'linear-fixed',
+      title,
+      emitterId: emitter.id,
+      newQuencherName: `Q ${title}`,
+      solventId: 'acetonitrile',
+      atmosphere: 'argon',
+      degassingMethod: 'sparging',
+      tau0LifetimeId: lifetime.id,
+      fitModel: 'linear-fixed',
     });
     expect(created.status).toBe(201);
-    return (await researcher.patch(`${base}/studies/${created.body.id}/points`, { version: created.body.version, points: exactPoints }).expect(200)).body;
+    return (
+      await researcher
+        .patch(`${base}/studies/${created.body.id}/points`, { version: created.body.version, points: exactPoints })
+        .expect(200)
+    ).body;
   };
   return { base, researcher, reviewer, userId: users.researcher.id, lifetime, lifetimeUrl, study };
 }
@@ -40,10 +56,23 @@ describe('refitting the studies that take tau0 from a changed lifetime', () => {
     const listed = (await researcher.get(`${lifetimeUrl}/dependents`)).body;
     expect(listed).toMatchObject({ value: 8e-7, uncertainty: 3e-8 });
     const [entry] = listed.studies;
-    expect(entry).toMatchObject({ studyId: draft.id, status: 'draft', tau0: 1e-6, tau0Uncertainty: 2e-8, matchesRecord: false, fitModel: 'linear-fixed', version: draft.version, ownerId: userId });
+    expect(entry).toMatchObject({
+      studyId: draft.id,
+      status: 'draft',
+      tau0: 1e-6,
+      tau0Uncertainty: 2e-8,
+      matchesRecord: false,
+      fitModel: 'linear-fixed',
+      version: draft.version,
+      ownerId: userId,
+    });
 
     // What the compound screen's "Refit" does, in this order.
-    const patched = await researcher.patch(`${base}/studies/${draft.id}`, { tau0: listed.value, tau0Uncertainty: listed.uncertainty, version: entry.version });
+    const patched = await researcher.patch(`${base}/studies/${draft.id}`, {
+      tau0: listed.value,
+      tau0Uncertainty: listed.uncertainty,
+      version: entry.version,
+    });
     expect(patched.status).toBe(200);
     const fit = await researcher.post(`${base}/studies/${draft.id}/fits`, { model: entry.fitModel });
     expect(fit.status).toBe(201);
@@ -67,13 +96,23 @@ describe('refitting the studies that take tau0 from a changed lifetime', () => {
     const [entry] = (await researcher.get(`${lifetimeUrl}/dependents`)).body.studies;
     expect(entry).toMatchObject({ status: 'approved', matchesRecord: false });
     // The screen offers "start a new revision" here; the API would refuse a refit anyway.
-    const locked = await researcher.patch(`${base}/studies/${approvedOne.id}`, { tau0: 9e-7, tau0Uncertainty: null, version: entry.version });
+    const locked = await researcher.patch(`${base}/studies/${approvedOne.id}`, {
+      tau0: 9e-7,
+      tau0Uncertainty: null,
+      version: entry.version,
+    });
     expect(locked.status).toBe(409);
     expect(locked.body.error.code).toBe('study_locked');
-    expect((await researcher.post(`${base}/studies/${approvedOne.id}/fits`, { model: entry.fitModel })).status).toBe(409);
+    expect((await researcher.post(`${base}/studies/${approvedOne.id}/fits`, { model: entry.fitModel })).status).toBe(
+      409,
+    );
 
     const draft = await study('Refit stale');
-    const stale = await researcher.patch(`${base}/studies/${draft.id}`, { tau0: 9e-7, tau0Uncertainty: null, version: draft.version - 1 });
+    const stale = await researcher.patch(`${base}/studies/${draft.id}`, {
+      tau0: 9e-7,
+      tau0Uncertainty: null,
+      version: draft.version - 1,
+    });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('stale_version');
     expect((await researcher.get(`${base}/studies/${approvedOne.id}`)).body.tau0).toBe(1e-6);

@@ -28,16 +28,28 @@ describe('POST /api/labs/:labId/compounds/:compoundId/potentials', () => {
     const { labId, researcher } = await labWith();
     const compound = await addCompound(researcher, labId, { name: 'Test-Fc-1', roleHint: 'photocatalyst' });
     const added = await researcher.post(`/api/labs/${labId}/compounds/${compound.id}/potentials`, {
-      couple: 'oxidation', value: 0.92, reference: 'Fc+/Fc', solvent: 'acetonitrile', kind: 'half-wave', source: 'doi:10.0000/test',
+      couple: 'oxidation',
+      value: 0.92,
+      reference: 'Fc+/Fc',
+      solvent: 'acetonitrile',
+      kind: 'half-wave',
+      source: 'doi:10.0000/test',
     });
     expect(added.status, JSON.stringify(added.body)).toBe(201);
     // Fc+/Fc vs SCE in MeCN = +0.380 V: Pavlishchuk & Addison, Inorg. Chim. Acta 2000, 298, 97 (check-values §3).
     // Cross-check in check-values §3: Ru(bpy)3 3+/2+ +0.92 V vs Fc (JACS 2023) ↔ +1.29 V vs SCE (Prier 2013), ±0.01 V.
     expect(added.body.display.value).toBeCloseTo(1.3, 6);
     expect(Math.abs(added.body.display.value - 1.29)).toBeLessThanOrEqual(0.011);
-    expect(added.body).toMatchObject({ value: 0.92, reference: 'Fc+/Fc', source: 'doi:10.0000/test', display: { reference: 'SCE' } });
+    expect(added.body).toMatchObject({
+      value: 0.92,
+      reference: 'Fc+/Fc',
+      source: 'doi:10.0000/test',
+      display: { reference: 'SCE' },
+    });
     // Crossing from a non-aqueous to an aqueous reference carries the engine's junction-potential warning.
-    expect(added.body.display.warnings.map((warning: { code: string }) => warning.code)).toContain('JUNCTION_POTENTIAL');
+    expect(added.body.display.warnings.map((warning: { code: string }) => warning.code)).toContain(
+      'JUNCTION_POTENTIAL',
+    );
     const detail = await researcher.get(`/api/labs/${labId}/compounds/${compound.id}`);
     expect(detail.body.potentials).toHaveLength(1);
     expect(detail.body.potentials[0].value).toBe(0.92);
@@ -48,7 +60,11 @@ describe('POST /api/labs/:labId/compounds/:compoundId/potentials', () => {
     const { labId, researcher } = await labWith();
     const compound = await addCompound(researcher, labId, { name: 'Test-AgCl-1', roleHint: 'quencher' });
     const added = await researcher.post(`/api/labs/${labId}/compounds/${compound.id}/potentials`, {
-      couple: 'reduction', value: -1.0, reference: 'Ag/AgCl (sat. KCl)', solvent: 'water', kind: 'half-wave',
+      couple: 'reduction',
+      value: -1.0,
+      reference: 'Ag/AgCl (sat. KCl)',
+      solvent: 'water',
+      kind: 'half-wave',
     });
     // SCE − Ag/AgCl(sat) = 0.2412 − 0.197 = 0.044 V (Bard & Faulkner via consultrsr; check-values §3).
     expect(added.body.display.value).toBeCloseTo(-1.044, 3);
@@ -80,7 +96,9 @@ describe('GET /api/labs/:labId/compounds/:compoundId (excited-state potentials)'
     const base = { reference: 'SCE', solvent: 'acetonitrile', kind: 'half-wave', source: 'PMC6050529 Table 1' };
     await researcher.post(`${url}/potentials`, { ...base, couple: 'oxidation', value: 1.52 });
     await researcher.post(`${url}/potentials`, { ...base, couple: 'reduction', value: -1.21 });
-    expect((await researcher.post(`${url}/energies`, { value: 2.56, method: 'absorption/emission crossing' })).status).toBe(201);
+    expect(
+      (await researcher.post(`${url}/energies`, { value: 2.56, method: 'absorption/emission crossing' })).status,
+    ).toBe(201);
     const { excitedState } = (await researcher.get(url)).body;
     expect(Math.abs(excitedState.excitedOxidation - -1.04)).toBeLessThanOrEqual(0.01);
     expect(Math.abs(excitedState.excitedReduction - 1.35)).toBeLessThanOrEqual(0.01);
@@ -110,7 +128,10 @@ describe('GET /api/labs/:labId/compounds/:compoundId (excited-state potentials)'
     const { labId, researcher } = await labWith();
     const compound = await addCompound(researcher, labId, { name: 'Test-wl', roleHint: 'photocatalyst' });
     for (const wavelength of [150, 1600]) {
-      const response = await researcher.post(`/api/labs/${labId}/compounds/${compound.id}/energies`, { wavelength, method: 'x' });
+      const response = await researcher.post(`/api/labs/${labId}/compounds/${compound.id}/energies`, {
+        wavelength,
+        method: 'x',
+      });
       expect(response.status).toBe(400);
       expect(response.body.error.details[0].path).toBe('body.wavelength');
     }
@@ -122,9 +143,12 @@ describe('POST /api/labs/:labId/compounds/import', () => {
   it('when the file is ";"-separated with decimal commas, then the numbers are read as written and saved', async () => {
     const { labId, researcher } = await labWith();
     // As a spreadsheet with German regional settings saves it (common practice: ';' between cells, ',' as decimal sign).
-    const csv = ['record;compound;role_hint;couple;potential_v;reference;kind;solvent;lifetime_s;atmosphere;method;electrolyte',
-      'compound;Semi-Ir-1;photocatalyst;;;;;;;;;', 'potential;Semi-Ir-1;;oxidation;1,21;SCE;half-wave;acetonitrile;;;;0,1 M Bu4NPF6',
-      'lifetime;Semi-Ir-1;;;;;;acetonitrile;1,9e-6;argon;TCSPC;'].join('\r\n');
+    const csv = [
+      'record;compound;role_hint;couple;potential_v;reference;kind;solvent;lifetime_s;atmosphere;method;electrolyte',
+      'compound;Semi-Ir-1;photocatalyst;;;;;;;;;',
+      'potential;Semi-Ir-1;;oxidation;1,21;SCE;half-wave;acetonitrile;;;;0,1 M Bu4NPF6',
+      'lifetime;Semi-Ir-1;;;;;;acetonitrile;1,9e-6;argon;TCSPC;',
+    ].join('\r\n');
     const saved = await researcher.post(`/api/labs/${labId}/compounds/import`, { csv });
     expect(saved.status, JSON.stringify(saved.body)).toBe(201);
     expect(saved.body).toMatchObject({ saved: true, counts: { compounds: 1, potentials: 1, lifetimes: 1 } });

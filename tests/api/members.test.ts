@@ -29,16 +29,24 @@ describe('POST /api/labs/:labId/invitations', () => {
     const guest = await apiClient(testApp.app);
     const preview = await guest.get(`/api/invitations/${tokenOf(link)}`);
     expect(preview.body).toMatchObject({ labName: lab.name, role: 'reviewer', email, accountExists: false });
-    const missingName = await guest.post(`/api/invitations/${tokenOf(link)}/accept`, { password: 'newcomer-passphrase' });
+    const missingName = await guest.post(`/api/invitations/${tokenOf(link)}/accept`, {
+      password: 'newcomer-passphrase',
+    });
     expect(missingName.status).toBe(400);
     expect(missingName.body.error.details).toEqual([{ path: 'body.name', message: 'is required' }]);
-    const accepted = await guest.post(`/api/invitations/${tokenOf(link)}/accept`, { name: 'New Person', password: 'newcomer-passphrase' });
+    const accepted = await guest.post(`/api/invitations/${tokenOf(link)}/accept`, {
+      name: 'New Person',
+      password: 'newcomer-passphrase',
+    });
     expect(accepted.status).toBe(200);
     expect(accepted.body.user.labs).toEqual([{ labId: lab.id, labName: lab.name, isDemo: false, role: 'reviewer' }]);
     expect((await guest.get('/api/session')).body.user.email).toBe(email);
 
     const reused = await apiClient(testApp.app);
-    const again = await reused.post(`/api/invitations/${tokenOf(link)}/accept`, { name: 'Someone Else', password: 'other-passphrase' });
+    const again = await reused.post(`/api/invitations/${tokenOf(link)}/accept`, {
+      name: 'Someone Else',
+      password: 'other-passphrase',
+    });
     expect(again.status).toBe(404);
     expect(again.body.error.code).toBe('invitation_invalid');
     const audit = await AuditEvent.findOne({ where: { action: 'membership_added', labId: lab.id } });
@@ -74,7 +82,10 @@ describe('POST /api/labs/:labId/invitations', () => {
     expect(list.body.invitations.map((item: { email: string }) => item.email)).toEqual([revoking]);
     expect((await admin.delete(`/api/labs/${lab.id}/invitations/${created.body.id}`)).status).toBe(204);
     const revokedLink = (await latestMailTo(revoking)).link;
-    const accept = await guest.post(`/api/invitations/${tokenOf(revokedLink)}/accept`, { name: 'Too Late', password: 'too-late-passphrase' });
+    const accept = await guest.post(`/api/invitations/${tokenOf(revokedLink)}/accept`, {
+      name: 'Too Late',
+      password: 'too-late-passphrase',
+    });
     expect(accept.status).toBe(404);
   });
 
@@ -85,7 +96,9 @@ describe('POST /api/labs/:labId/invitations', () => {
     expect(member.body.error.code).toBe('already_member');
     const email = `twice-${Date.now()}@tests.halflight.example`;
     await admin.post(`/api/labs/${lab.id}/invitations`, { email, role: 'viewer' });
-    expect((await admin.post(`/api/labs/${lab.id}/invitations`, { email, role: 'viewer' })).body.error.code).toBe('already_invited');
+    expect((await admin.post(`/api/labs/${lab.id}/invitations`, { email, role: 'viewer' })).body.error.code).toBe(
+      'already_invited',
+    );
   });
 });
 
@@ -104,10 +117,15 @@ describe('PATCH and DELETE /api/labs/:labId/members/:memberId', () => {
     const { lab, admin, memberships, users } = await adminOfNewLab(['admin', 'researcher']);
     const promoted = await admin.patch(`/api/labs/${lab.id}/members/${memberships.researcher}`, { role: 'admin' });
     expect(promoted.body.role).toBe('admin');
-    expect((await admin.patch(`/api/labs/${lab.id}/members/${memberships.admin}`, { role: 'viewer' })).status).toBe(200);
+    expect((await admin.patch(`/api/labs/${lab.id}/members/${memberships.admin}`, { role: 'viewer' })).status).toBe(
+      200,
+    );
     const forbidden = await admin.delete(`/api/labs/${lab.id}/members/${memberships.researcher}`);
     expect(forbidden.status).toBe(403);
-    const changes = await AuditEvent.findAll({ where: { action: 'role_changed', labId: lab.id }, order: [['id', 'ASC']] });
+    const changes = await AuditEvent.findAll({
+      where: { action: 'role_changed', labId: lab.id },
+      order: [['id', 'ASC']],
+    });
     expect(changes.map((event) => event.details)).toEqual([
       { userId: users.researcher.id, from: 'researcher', to: 'admin' },
       { userId: users.admin.id, from: 'admin', to: 'viewer' },
@@ -125,11 +143,17 @@ describe('PATCH and DELETE /api/labs/:labId/members/:memberId', () => {
 });
 
 describe('GET /api/labs/:labId/caught-mail', () => {
-  it('when an admin reads caught mail, then only this lab\'s messages are listed', async () => {
+  it("when an admin reads caught mail, then only this lab's messages are listed", async () => {
     const { lab, admin } = await adminOfNewLab();
     const other = await adminOfNewLab();
-    await admin.post(`/api/labs/${lab.id}/invitations`, { email: `mine-${Date.now()}@tests.halflight.example`, role: 'viewer' });
-    await other.admin.post(`/api/labs/${other.lab.id}/invitations`, { email: `theirs-${Date.now()}@tests.halflight.example`, role: 'viewer' });
+    await admin.post(`/api/labs/${lab.id}/invitations`, {
+      email: `mine-${Date.now()}@tests.halflight.example`,
+      role: 'viewer',
+    });
+    await other.admin.post(`/api/labs/${other.lab.id}/invitations`, {
+      email: `theirs-${Date.now()}@tests.halflight.example`,
+      role: 'viewer',
+    });
     const mail = await admin.get(`/api/labs/${lab.id}/caught-mail`);
     expect(mail.body.total).toBe(1);
     expect(mail.body.items[0].to[0]).toMatch(/^mine-/);

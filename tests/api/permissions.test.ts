@@ -47,7 +47,10 @@ const matrix: Record<string, Row> = {
     body: { password: 'whatever-password' },
     expected: same(404),
   },
-  'GET /api/labs/:labId/members': { path: ({ labId }) => `/api/labs/${labId}/members`, expected: labRoute('viewer', 200) },
+  'GET /api/labs/:labId/members': {
+    path: ({ labId }) => `/api/labs/${labId}/members`,
+    expected: labRoute('viewer', 200),
+  },
   'POST /api/labs/:labId/invitations': {
     path: ({ labId }) => `/api/labs/${labId}/invitations`,
     body: { email: 'not-an-address', role: 'viewer' },
@@ -81,36 +84,85 @@ const matrix: Record<string, Row> = {
     expected: labRoute('viewer', 400),
   },
   // Compound library (issue 6). Unknown compound and record ids, incomplete bodies.
-  'GET /api/labs/:labId/compounds': { path: ({ labId }) => `/api/labs/${labId}/compounds`, expected: labRoute('viewer', 200) },
-  'POST /api/labs/:labId/compounds': { path: ({ labId }) => `/api/labs/${labId}/compounds`, body: {}, expected: labRoute('researcher', 400) },
-  'GET /api/labs/:labId/compounds/export.csv': { path: ({ labId }) => `/api/labs/${labId}/compounds/export.csv`, expected: labRoute('viewer', 200) },
-  'POST /api/labs/:labId/compounds/import': { path: ({ labId }) => `/api/labs/${labId}/compounds/import`, body: {}, expected: labRoute('researcher', 400) },
-  'GET /api/labs/:labId/compounds/:compoundId': { path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}`, expected: labRoute('viewer', 404) },
+  'GET /api/labs/:labId/compounds': {
+    path: ({ labId }) => `/api/labs/${labId}/compounds`,
+    expected: labRoute('viewer', 200),
+  },
+  'POST /api/labs/:labId/compounds': {
+    path: ({ labId }) => `/api/labs/${labId}/compounds`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'GET /api/labs/:labId/compounds/export.csv': {
+    path: ({ labId }) => `/api/labs/${labId}/compounds/export.csv`,
+    expected: labRoute('viewer', 200),
+  },
+  'POST /api/labs/:labId/compounds/import': {
+    path: ({ labId }) => `/api/labs/${labId}/compounds/import`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'GET /api/labs/:labId/compounds/:compoundId': {
+    path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}`,
+    expected: labRoute('viewer', 404),
+  },
   'PATCH /api/labs/:labId/compounds/:compoundId': {
     path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}`,
     body: { version: 0 },
     expected: labRoute('researcher', 404),
   },
-  'DELETE /api/labs/:labId/compounds/:compoundId': { path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}`, expected: labRoute('reviewer', 404) },
+  'DELETE /api/labs/:labId/compounds/:compoundId': {
+    path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}`,
+    expected: labRoute('reviewer', 404),
+  },
   ...Object.fromEntries(
     (['potentials:potentialId', 'lifetimes:lifetimeId', 'energies:energyId'] as const).flatMap((entry) => {
       const [segment, idName] = entry.split(':') as [string, string];
       const base = (labId: string) => `/api/labs/${labId}/compounds/${unknownId}/${segment}`;
       return [
-        [`POST /api/labs/:labId/compounds/:compoundId/${segment}`, { path: ({ labId }: { labId: string }) => base(labId), body: {}, expected: labRoute('researcher', 400) }],
-        [`PATCH /api/labs/:labId/compounds/:compoundId/${segment}/:${idName}`, { path: ({ labId }: { labId: string }) => `${base(labId)}/${unknownId}`, body: { version: 0 }, expected: labRoute('researcher', 404) }],
-        [`DELETE /api/labs/:labId/compounds/:compoundId/${segment}/:${idName}`, { path: ({ labId }: { labId: string }) => `${base(labId)}/${unknownId}`, expected: labRoute('reviewer', 404) }],
+        [
+          `POST /api/labs/:labId/compounds/:compoundId/${segment}`,
+          { path: ({ labId }: { labId: string }) => base(labId), body: {}, expected: labRoute('researcher', 400) },
+        ],
+        [
+          `PATCH /api/labs/:labId/compounds/:compoundId/${segment}/:${idName}`,
+          {
+            path: ({ labId }: { labId: string }) => `${base(labId)}/${unknownId}`,
+            body: { version: 0 },
+            expected: labRoute('researcher', 404),
+          },
+        ],
+        [
+          `DELETE /api/labs/:labId/compounds/:compoundId/${segment}/:${idName}`,
+          {
+            path: ({ labId }: { labId: string }) => `${base(labId)}/${unknownId}`,
+            expected: labRoute('reviewer', 404),
+          },
+        ],
       ];
     }),
   ),
-  'GET /api/labs/:labId/settings': { path: ({ labId }) => `/api/labs/${labId}/settings`, expected: labRoute('viewer', 200) },
-  'PATCH /api/labs/:labId/settings': { path: ({ labId }) => `/api/labs/${labId}/settings`, body: {}, expected: labRoute('admin', 400) },
-  'GET /api/labs/:labId/driving-force': { path: ({ labId }) => `/api/labs/${labId}/driving-force`, expected: labRoute('viewer', 400) },
+  'GET /api/labs/:labId/settings': {
+    path: ({ labId }) => `/api/labs/${labId}/settings`,
+    expected: labRoute('viewer', 200),
+  },
+  'PATCH /api/labs/:labId/settings': {
+    path: ({ labId }) => `/api/labs/${labId}/settings`,
+    body: {},
+    expected: labRoute('admin', 400),
+  },
+  'GET /api/labs/:labId/driving-force': {
+    path: ({ labId }) => `/api/labs/${labId}/driving-force`,
+    expected: labRoute('viewer', 400),
+  },
   'GET /api/labs/:labId/compounds/:compoundId/lifetimes/:lifetimeId/dependents': {
     path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}/lifetimes/${unknownId}/dependents`,
     expected: labRoute('viewer', 404),
   },
-  'GET /api/labs/:labId/scenarios': { path: ({ labId }) => `/api/labs/${labId}/scenarios`, expected: labRoute('viewer', 200) },
+  'GET /api/labs/:labId/scenarios': {
+    path: ({ labId }) => `/api/labs/${labId}/scenarios`,
+    expected: labRoute('viewer', 200),
+  },
   'POST /api/labs/:labId/scenarios': {
     path: ({ labId }) => `/api/labs/${labId}/scenarios`,
     body: { name: 'x' },
@@ -130,31 +182,93 @@ const matrix: Record<string, Row> = {
     expected: labRoute('researcher', 404),
   },
   // Studies (issue 5): unknown study ids end in 404, incomplete bodies in 400.
-  'GET /api/labs/:labId/studies': { path: ({ labId }) => `/api/labs/${labId}/studies`, expected: labRoute('viewer', 200) },
-  'POST /api/labs/:labId/studies': { path: ({ labId }) => `/api/labs/${labId}/studies`, body: {}, expected: labRoute('researcher', 400) },
-  'GET /api/labs/:labId/study-form-options': { path: ({ labId }) => `/api/labs/${labId}/study-form-options`, expected: labRoute('viewer', 200) },
-  'GET /api/labs/:labId/studies/:studyId': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}`, expected: labRoute('viewer', 404) },
-  'PATCH /api/labs/:labId/studies/:studyId': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}`, body: { version: 0 }, expected: labRoute('researcher', 404) },
-  'PATCH /api/labs/:labId/studies/:studyId/points': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/points`, body: { version: 0, points: [] }, expected: labRoute('researcher', 404) },
-  'GET /api/labs/:labId/studies/:studyId/fits': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/fits`, expected: labRoute('viewer', 404) },
-  'POST /api/labs/:labId/studies/:studyId/fits': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/fits`, body: { model: 'linear-free' }, expected: labRoute('researcher', 404) },
-  'GET /api/labs/:labId/studies/:studyId/history': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/history`, expected: labRoute('viewer', 404) },
-  'GET /api/labs/:labId/studies/:studyId/export.csv': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/export.csv`, expected: labRoute('viewer', 404) },
-  'POST /api/labs/:labId/studies/:studyId/uploads': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads`, body: {}, expected: labRoute('researcher', 400) },
+  'GET /api/labs/:labId/studies': {
+    path: ({ labId }) => `/api/labs/${labId}/studies`,
+    expected: labRoute('viewer', 200),
+  },
+  'POST /api/labs/:labId/studies': {
+    path: ({ labId }) => `/api/labs/${labId}/studies`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'GET /api/labs/:labId/study-form-options': {
+    path: ({ labId }) => `/api/labs/${labId}/study-form-options`,
+    expected: labRoute('viewer', 200),
+  },
+  'GET /api/labs/:labId/studies/:studyId': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}`,
+    expected: labRoute('viewer', 404),
+  },
+  'PATCH /api/labs/:labId/studies/:studyId': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}`,
+    body: { version: 0 },
+    expected: labRoute('researcher', 404),
+  },
+  'PATCH /api/labs/:labId/studies/:studyId/points': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/points`,
+    body: { version: 0, points: [] },
+    expected: labRoute('researcher', 404),
+  },
+  'GET /api/labs/:labId/studies/:studyId/fits': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/fits`,
+    expected: labRoute('viewer', 404),
+  },
+  'POST /api/labs/:labId/studies/:studyId/fits': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/fits`,
+    body: { model: 'linear-free' },
+    expected: labRoute('researcher', 404),
+  },
+  'GET /api/labs/:labId/studies/:studyId/history': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/history`,
+    expected: labRoute('viewer', 404),
+  },
+  'GET /api/labs/:labId/studies/:studyId/export.csv': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/export.csv`,
+    expected: labRoute('viewer', 404),
+  },
+  'POST /api/labs/:labId/studies/:studyId/uploads': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
   'POST /api/labs/:labId/studies/:studyId/uploads/:uploadId/preview': {
-    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads/${unknownId}/preview`, body: {}, expected: labRoute('researcher', 400),
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads/${unknownId}/preview`,
+    body: {},
+    expected: labRoute('researcher', 400),
   },
   'POST /api/labs/:labId/studies/:studyId/uploads/:uploadId/apply': {
-    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads/${unknownId}/apply`, body: {}, expected: labRoute('researcher', 400),
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads/${unknownId}/apply`,
+    body: {},
+    expected: labRoute('researcher', 400),
   },
   'GET /api/labs/:labId/studies/:studyId/uploads/:uploadId/file': {
-    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads/${unknownId}/file`, expected: labRoute('viewer', 404),
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads/${unknownId}/file`,
+    expected: labRoute('viewer', 404),
   },
-  'POST /api/labs/:labId/studies/:studyId/submit': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/submit`, body: {}, expected: labRoute('researcher', 404) },
-  'POST /api/labs/:labId/studies/:studyId/approve': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/approve`, body: {}, expected: labRoute('reviewer', 404) },
-  'POST /api/labs/:labId/studies/:studyId/return': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/return`, body: {}, expected: labRoute('reviewer', 400) },
-  'POST /api/labs/:labId/studies/:studyId/comments': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/comments`, body: { comment: 'x' }, expected: labRoute('researcher', 404) },
-  'POST /api/labs/:labId/studies/:studyId/revisions': { path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/revisions`, expected: labRoute('researcher', 404) },
+  'POST /api/labs/:labId/studies/:studyId/submit': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/submit`,
+    body: {},
+    expected: labRoute('researcher', 404),
+  },
+  'POST /api/labs/:labId/studies/:studyId/approve': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/approve`,
+    body: {},
+    expected: labRoute('reviewer', 404),
+  },
+  'POST /api/labs/:labId/studies/:studyId/return': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/return`,
+    body: {},
+    expected: labRoute('reviewer', 400),
+  },
+  'POST /api/labs/:labId/studies/:studyId/comments': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/comments`,
+    body: { comment: 'x' },
+    expected: labRoute('researcher', 404),
+  },
+  'POST /api/labs/:labId/studies/:studyId/revisions': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/revisions`,
+    expected: labRoute('researcher', 404),
+  },
   'GET /api/labs/:labId/comparisons/:side/:compoundId': {
     path: ({ labId }) => `/api/labs/${labId}/comparisons/emitter/${unknownId}`,
     expected: labRoute('viewer', 404),
@@ -163,7 +277,10 @@ const matrix: Record<string, Row> = {
     path: ({ labId }) => `/api/labs/${labId}/comparisons/quencher/${unknownId}/export.csv`,
     expected: labRoute('viewer', 404),
   },
-  'GET /api/labs/:labId/dashboard': { path: ({ labId }) => `/api/labs/${labId}/dashboard`, expected: labRoute('viewer', 200) },
+  'GET /api/labs/:labId/dashboard': {
+    path: ({ labId }) => `/api/labs/${labId}/dashboard`,
+    expected: labRoute('viewer', 200),
+  },
   'GET /api/labs/:labId/studies/:studyId/report.pdf': {
     path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/report.pdf`,
     expected: labRoute('viewer', 404),
@@ -203,8 +320,11 @@ afterAll(testApp.close);
 
 /** Routes as Express registered them, read from the router itself. */
 function registeredRoutes(): string[] {
-  const stack = (testApp.app as unknown as { router: { stack: Array<{ route?: { path: string; methods: Record<string, boolean> } }> } })
-    .router.stack;
+  const stack = (
+    testApp.app as unknown as {
+      router: { stack: Array<{ route?: { path: string; methods: Record<string, boolean> } }> };
+    }
+  ).router.stack;
   return stack
     .filter((layer) => typeof layer.route?.path === 'string' && layer.route.path.startsWith('/api'))
     .flatMap((layer) =>
@@ -226,7 +346,11 @@ describe('the permission matrix', () => {
         const client = clients[who];
         const url = row.path({ labId });
         const response =
-          method === 'get' ? await client.get(url) : method === 'delete' ? await client.delete(url) : await client[method](url, row.body);
+          method === 'get'
+            ? await client.get(url)
+            : method === 'delete'
+              ? await client.delete(url)
+              : await client[method](url, row.body);
         expect(response.status, `${who} → ${key}: ${JSON.stringify(response.body)}`).toBe(row.expected[who]);
       }
     });

@@ -70,7 +70,10 @@ describe('POST /api/labs/:labId/titration-plans', () => {
     });
     expect(response.status).toBe(400);
     expect(response.body.error.details).toEqual([
-      { path: 'body.targets', message: 'give target concentrations, or a highest concentration and a number of points' },
+      {
+        path: 'body.targets',
+        message: 'give target concentrations, or a highest concentration and a number of points',
+      },
     ]);
   });
 });

@@ -45,17 +45,24 @@ describe('lab summary reports', () => {
     const study = (await Study.findOne({ where: { labId, isCurrent: true, status: 'approved' } }))!;
     const scenario = (
       await client.post(`/api/labs/${labId}/scenarios`, {
-        name: 'Report check', emitterId: study.emitterId, solvent: 'acetonitrile', tau0: 1e-6,
+        name: 'Report check',
+        emitterId: study.emitterId,
+        solvent: 'acetonitrile',
+        tau0: 1e-6,
         components: [{ compoundId: study.quencherId, concentration: 0.02 }],
       })
     ).body;
-    const scenarioText = (await pdfText(binary(await pdfOf(`/api/labs/${labId}/scenarios/${scenario.id}/report.pdf`)))).replace(/\s+/g, ' ');
+    const scenarioText = (
+      await pdfText(binary(await pdfOf(`/api/labs/${labId}/scenarios/${scenario.id}/report.pdf`)))
+    ).replace(/\s+/g, ' ');
     expect(scenarioText).toContain('Who quenches: Report check');
     expect(scenarioText).toContain(`${(scenario.shares[0].fraction * 100).toFixed(1)} %`);
     expect(scenarioText).toContain(scenario.caution);
 
     const comparison = (await client.get(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}`)).body;
-    const comparisonText = (await pdfText(binary(await pdfOf(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}/report.pdf`)))).replace(/\s+/g, ' ');
+    const comparisonText = (
+      await pdfText(binary(await pdfOf(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}/report.pdf`)))
+    ).replace(/\s+/g, ' ');
     expect(comparisonText).toContain(`Comparison: ${comparison.compound.name}`);
     for (const row of comparison.rows) expect(comparisonText).toContain(row.partner.name);
   });
@@ -91,7 +98,8 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     let withLifetimes: { id: string; kSv: { value: number; standardError: number } } | null = null;
     for (const study of studies) {
       const detail = (await client.get(`/api/labs/${labId}/studies/${study.id}`)).body;
-      if (detail.latestFit?.result.lifetime) withLifetimes = { id: study.id, kSv: detail.latestFit.result.lifetime.kSv };
+      if (detail.latestFit?.result.lifetime)
+        withLifetimes = { id: study.id, kSv: detail.latestFit.result.lifetime.kSv };
     }
     expect(withLifetimes, 'the demo lab has a study with lifetimes').not.toBeNull();
     const response = await client.agent
@@ -103,7 +111,9 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
         res.on('end', () => callback(null, Buffer.concat(chunks)));
       });
     const text = (await pdfText(binary(response))).replace(/\s+/g, ' ');
-    expect(text).toContain(`K_SV from lifetimes: ${sci(withLifetimes!.kSv.value, 4)} ± ${sci(withLifetimes!.kSv.standardError, 2)} M^-1`);
+    expect(text).toContain(
+      `K_SV from lifetimes: ${sci(withLifetimes!.kSv.value, 4)} ± ${sci(withLifetimes!.kSv.standardError, 2)} M^-1`,
+    );
   });
 
   it('when the study is unknown, then 404 in the one error shape', async () => {

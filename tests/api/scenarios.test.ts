@@ -22,9 +22,29 @@ beforeAll(async () => {
   const additive = await createCompound(lab.id, 'T-additive', 'quencher');
   Object.assign(ids, { emitter: emitter.id, amine: amine.id, bromide: bromide.id, additive: additive.id });
   // Test inputs: an approved and a newer draft study of the same pair, and one of the bromide.
-  ids.amineApproved = (await createStudyRecord({ labId, emitterId: emitter.id, quencherId: amine.id, kq: 2e9, status: 'approved', title: 'amine, approved' })).id;
-  ids.amineDraft = (await createStudyRecord({ labId, emitterId: emitter.id, quencherId: amine.id, kq: 5e9, status: 'draft', title: 'amine, draft' })).id;
-  ids.bromideStudy = (await createStudyRecord({ labId, emitterId: emitter.id, quencherId: bromide.id, kq: 1e8, status: 'submitted' })).id;
+  ids.amineApproved = (
+    await createStudyRecord({
+      labId,
+      emitterId: emitter.id,
+      quencherId: amine.id,
+      kq: 2e9,
+      status: 'approved',
+      title: 'amine, approved',
+    })
+  ).id;
+  ids.amineDraft = (
+    await createStudyRecord({
+      labId,
+      emitterId: emitter.id,
+      quencherId: amine.id,
+      kq: 5e9,
+      status: 'draft',
+      title: 'amine, draft',
+    })
+  ).id;
+  ids.bromideStudy = (
+    await createStudyRecord({ labId, emitterId: emitter.id, quencherId: bromide.id, kq: 1e8, status: 'submitted' })
+  ).id;
   researcher = await apiClient(testApp.app);
   await researcher.signIn(users.researcher);
   other = await apiClient(testApp.app);
@@ -69,17 +89,30 @@ describe('POST /api/labs/:labId/scenarios', () => {
     expect(bromide.fraction).toBeCloseTo(engine.components[1]!.fraction, 12);
     // The additive has no study: it is named as missing, not guessed.
     expect(additive.kq).toBeNull();
-    expect(response.body.missing).toEqual([{ componentId: additive.componentId, label: 'T-additive', compoundId: ids.additive }]);
+    expect(response.body.missing).toEqual([
+      { componentId: additive.componentId, label: 'T-additive', compoundId: ids.additive },
+    ]);
     expect(response.body.caution).toMatch(/not that the encounter leads to product/);
   });
 
-  it('when a pair was also studied in another solvent, then the study in the reaction\'s solvent is preferred', async () => {
-    await createStudyRecord({ labId, emitterId: ids.emitter, quencherId: ids.bromide, kq: 9e9, status: 'approved', solventId: 'dmf', title: 'in DMF' });
+  it("when a pair was also studied in another solvent, then the study in the reaction's solvent is preferred", async () => {
+    await createStudyRecord({
+      labId,
+      emitterId: ids.emitter,
+      quencherId: ids.bromide,
+      kq: 9e9,
+      status: 'approved',
+      solventId: 'dmf',
+      title: 'in DMF',
+    });
     const response = await researcher.post(`/api/labs/${labId}/scenarios`, baseScenario());
     const bromide = response.body.shares[1];
     // kq depends on the solvent (viscosity, permittivity): an approved DMF result does not beat an acetonitrile one.
     expect(bromide.kqSource).toMatchObject({ studyId: ids.bromideStudy, solvent: 'acetonitrile' });
-    expect(bromide.candidates.map((candidate: { solvent: string }) => candidate.solvent)).toEqual(['acetonitrile', 'dmf']);
+    expect(bromide.candidates.map((candidate: { solvent: string }) => candidate.solvent)).toEqual([
+      'acetonitrile',
+      'dmf',
+    ]);
   });
 
   it('when a study is picked by hand, then its kq is used instead of the best available', async () => {
@@ -103,7 +136,11 @@ describe('POST /api/labs/:labId/scenarios', () => {
   it('when a study is unknown or of another pair, then 400 says which component and nothing is saved', async () => {
     const before = (await researcher.get(`/api/labs/${labId}/scenarios`)).body.total;
     const input = baseScenario();
-    input.components[0] = { compoundId: ids.amine, concentration: 0.1, studyId: '00000000-0000-4000-8000-000000000000' } as never;
+    input.components[0] = {
+      compoundId: ids.amine,
+      concentration: 0.1,
+      studyId: '00000000-0000-4000-8000-000000000000',
+    } as never;
     input.components[1] = { compoundId: ids.bromide, concentration: 0.05, studyId: ids.amineApproved } as never;
     const response = await researcher.post(`/api/labs/${labId}/scenarios`, input);
     expect(response.status).toBe(400);
@@ -123,7 +160,10 @@ describe('PUT and DELETE /api/labs/:labId/scenarios/:scenarioId', () => {
     const saved = await researcher.put(`/api/labs/${labId}/scenarios/${created.id}`, changed);
     expect(saved.status).toBe(200);
     expect(saved.body.shares[0].concentration).toBe(0.5);
-    const stale = await researcher.put(`/api/labs/${labId}/scenarios/${created.id}`, { ...changed, version: created.version });
+    const stale = await researcher.put(`/api/labs/${labId}/scenarios/${created.id}`, {
+      ...changed,
+      version: created.version,
+    });
     expect(stale.status).toBe(409);
     expect((await researcher.get(`/api/labs/${labId}/scenarios/${created.id}`)).body.name).toBe('More amine');
     expect((await researcher.delete(`/api/labs/${labId}/scenarios/${created.id}`)).status).toBe(204);

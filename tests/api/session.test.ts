@@ -15,7 +15,10 @@ describe('POST /api/session', () => {
     const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
     const client = await apiClient(testApp.app);
     const wrongPassword = await client.post('/api/session', { email: users.researcher.email, password: 'not-the-one' });
-    const unknownAddress = await client.post('/api/session', { email: 'nobody@tests.halflight.example', password: 'x' });
+    const unknownAddress = await client.post('/api/session', {
+      email: 'nobody@tests.halflight.example',
+      password: 'x',
+    });
     expect(wrongPassword.status).toBe(401);
     expect(unknownAddress.status).toBe(401);
     expect(unknownAddress.body).toEqual(wrongPassword.body);
@@ -65,7 +68,9 @@ describe('POST /api/session', () => {
       const client = await apiClient(tight.app);
       const statuses: number[] = [];
       for (let attempt = 0; attempt < 4; attempt++) {
-        statuses.push((await client.post('/api/session', { email: 'someone@tests.halflight.example', password: 'guess' })).status);
+        statuses.push(
+          (await client.post('/api/session', { email: 'someone@tests.halflight.example', password: 'guess' })).status,
+        );
       }
       expect(statuses).toEqual([401, 401, 401, 429]);
     } finally {
@@ -100,7 +105,15 @@ describe('DELETE /api/session', () => {
 
 describe('the audit log', () => {
   it('when someone tries to change or delete an audit row, then the database refuses', async () => {
-    const event = await AuditEvent.create({ labId: null, actorId: null, action: 'test_event', targetType: null, targetId: null, details: {}, ipAddress: null });
+    const event = await AuditEvent.create({
+      labId: null,
+      actorId: null,
+      action: 'test_event',
+      targetType: null,
+      targetId: null,
+      details: {},
+      ipAddress: null,
+    });
     await expect(event.update({ action: 'rewritten' })).rejects.toThrow(/append-only/);
     await expect(event.destroy()).rejects.toThrow(/append-only/);
   });

@@ -18,7 +18,12 @@ beforeAll(async () => {
   labId = lab.id;
   const { Membership } = await import('../../server/models');
   await Membership.create({ labId, userId: second.users.researcher.id, role: 'researcher' });
-  for (const [name, user] of [['researcher', users.researcher], ['reviewer', users.reviewer], ['viewer', users.viewer], ['other', second.users.researcher]] as const) {
+  for (const [name, user] of [
+    ['researcher', users.researcher],
+    ['reviewer', users.reviewer],
+    ['viewer', users.viewer],
+    ['other', second.users.researcher],
+  ] as const) {
     clients[name] = await apiClient(testApp.app);
     await clients[name].signIn(user);
   }
@@ -34,15 +39,38 @@ describe('POST /api/labs/:labId/studies', () => {
     const t = tag();
     const response = await clients.researcher.post(url(), studyBody(t));
     expect(response.status).toBe(201);
-    expect(response.body).toMatchObject({ status: 'draft', revision: 1, version: 0, emitter: { name: `TEST-Ir-${t}` }, solventLabel: 'acetonitrile', temperature: 298.15 });
+    expect(response.body).toMatchObject({
+      status: 'draft',
+      revision: 1,
+      version: 0,
+      emitter: { name: `TEST-Ir-${t}` },
+      solventLabel: 'acetonitrile',
+      temperature: 298.15,
+    });
     const options = await clients.viewer.get(`/api/labs/${labId}/study-form-options`);
-    expect(options.body.compounds).toEqual(expect.arrayContaining([expect.objectContaining({ name: `TEST-Ir-${t}`, roleHint: 'photocatalyst' })]));
+    expect(options.body.compounds).toEqual(
+      expect.arrayContaining([expect.objectContaining({ name: `TEST-Ir-${t}`, roleHint: 'photocatalyst' })]),
+    );
   });
   it('when fields are missing or inconsistent, then 400 names each field', async () => {
-    const response = await clients.researcher.post(url(), { title: '', solventId: null, atmosphere: 'argon', degassingMethod: 'none', dilutionCorrection: true });
+    const response = await clients.researcher.post(url(), {
+      title: '',
+      solventId: null,
+      atmosphere: 'argon',
+      degassingMethod: 'none',
+      dilutionCorrection: true,
+    });
     expect(response.status).toBe(400);
     const paths = response.body.error.details.map((detail: { path: string }) => detail.path);
-    expect(paths).toEqual(expect.arrayContaining(['body.title', 'body.solventId', 'body.initialVolume', 'body.emitterId', 'body.quencherId']));
+    expect(paths).toEqual(
+      expect.arrayContaining([
+        'body.title',
+        'body.solventId',
+        'body.initialVolume',
+        'body.emitterId',
+        'body.quencherId',
+      ]),
+    );
   });
   it('when a viewer tries, then 403', async () => {
     expect((await clients.viewer.post(url(), studyBody(tag()))).status).toBe(403);
@@ -65,7 +93,10 @@ describe('PATCH /api/labs/:labId/studies/:studyId/points', () => {
   it('when the version is stale, then 409 stale_version and the points stay', async () => {
     const study = await createStudy(clients.researcher, labId, tag());
     await clients.researcher.patch(`${url(study.id)}/points`, { version: 0, points: exactPoints }).expect(200);
-    const stale = await clients.researcher.patch(`${url(study.id)}/points`, { version: 0, points: exactPoints.slice(0, 3) });
+    const stale = await clients.researcher.patch(`${url(study.id)}/points`, {
+      version: 0,
+      points: exactPoints.slice(0, 3),
+    });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('stale_version');
     expect((await clients.viewer.get(url(study.id))).body.points).toHaveLength(6);
@@ -112,16 +143,29 @@ describe('review: submit, return, approve, revision', () => {
     await clients.researcher.post(`${url(study.id)}/submit`, {}).expect(200);
     const approved = await clients.reviewer.post(`${url(study.id)}/approve`, { comment: 'Fine' });
     expect(approved.body.status).toBe('approved');
-    expect(approved.body.reviews.map((r: { action: string }) => r.action)).toEqual(['submit', 'return', 'submit', 'approve']);
-    const locked = await clients.researcher.patch(`${url(study.id)}/points`, { version: approved.body.version, points: exactPoints });
+    expect(approved.body.reviews.map((r: { action: string }) => r.action)).toEqual([
+      'submit',
+      'return',
+      'submit',
+      'approve',
+    ]);
+    const locked = await clients.researcher.patch(`${url(study.id)}/points`, {
+      version: approved.body.version,
+      points: exactPoints,
+    });
     expect(locked.body.error.code).toBe('study_locked');
     const revision = await clients.researcher.post(`${url(study.id)}/revisions`, {});
     expect(revision.status).toBe(201);
     expect(revision.body).toMatchObject({ revision: 2, status: 'draft', previousRevisionId: study.id });
     expect(revision.body.points).toHaveLength(6);
-    expect((await clients.viewer.get(url(study.id))).body).toMatchObject({ status: 'approved', nextRevisionId: revision.body.id });
+    expect((await clients.viewer.get(url(study.id))).body).toMatchObject({
+      status: 'approved',
+      nextRevisionId: revision.body.id,
+    });
     const history = await clients.viewer.get(`${url(study.id)}/history`);
-    expect(history.body.events.map((e: { action: string }) => e.action)).toEqual(expect.arrayContaining(['study_created', 'study_points_replaced', 'study_approved']));
+    expect(history.body.events.map((e: { action: string }) => e.action)).toEqual(
+      expect.arrayContaining(['study_created', 'study_points_replaced', 'study_approved']),
+    );
   });
   it('when a return has no comment, then 400', async () => {
     const study = await createStudy(clients.researcher, labId, tag());
@@ -150,7 +194,9 @@ describe('GET /api/labs/:labId/studies', () => {
 describe('GET /api/labs/:labId/studies/:studyId/export.csv', () => {
   it('when a text cell starts with =, then it is neutralised while negative numbers stay numbers', async () => {
     const study = await createStudy(clients.researcher, labId, tag());
-    const points = exactPoints.map((p, i) => (i === 5 ? { ...p, excluded: true, exclusionReason: '=HYPERLINK("x")' } : p));
+    const points = exactPoints.map((p, i) =>
+      i === 5 ? { ...p, excluded: true, exclusionReason: '=HYPERLINK("x")' } : p,
+    );
     await clients.researcher.patch(`${url(study.id)}/points`, { version: 0, points }).expect(200);
     const csv = await clients.viewer.get(`${url(study.id)}/export.csv?part=points`);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);

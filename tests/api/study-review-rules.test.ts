@@ -12,7 +12,12 @@ describe('POST /api/labs/:labId/studies/:studyId/approve', () => {
     const emitter = await createCompound(lab.id, 'R-cat', 'photocatalyst');
     const quencher = await createCompound(lab.id, 'R-q', 'quencher');
     const study = await createStudyRecord({
-      labId: lab.id, emitterId: emitter.id, quencherId: quencher.id, ownerId: users.reviewer.id, status: 'submitted', kq: 1e9,
+      labId: lab.id,
+      emitterId: emitter.id,
+      quencherId: quencher.id,
+      ownerId: users.reviewer.id,
+      status: 'submitted',
+      kq: 1e9,
     });
     const owner = await apiClient(testApp.app);
     await owner.signIn(users.reviewer);

@@ -17,8 +17,14 @@ export async function startBenchServer(sequelize: Sequelize, databaseUrl: string
   const catcher = await startMailCatcher();
   const mailer = createMailer(catcher.url, 'Halflight bench <bench@halflight.invalid>');
   const app = createApp({
-    sequelize, embeddedDatabase: true, logger: pino({ level: 'silent' }), databaseUrl,
-    sessionSecret: crypto.randomBytes(32).toString('hex'), mailer, mailCatcher: true, publicUrl: 'http://127.0.0.1:4310',
+    sequelize,
+    embeddedDatabase: true,
+    logger: pino({ level: 'silent' }),
+    databaseUrl,
+    sessionSecret: crypto.randomBytes(32).toString('hex'),
+    mailer,
+    mailCatcher: true,
+    publicUrl: 'http://127.0.0.1:4310',
   });
   const server = app.listen(0, '127.0.0.1');
   await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
@@ -37,7 +43,11 @@ export async function startBenchServer(sequelize: Sequelize, databaseUrl: string
 /** A new member of the lab with the given role (bench account, invented). */
 export async function createBenchMember(labId: string, role: 'viewer' | 'researcher') {
   const password = crypto.randomBytes(12).toString('hex');
-  const user = await User.create({ email: `bench-${role}-${crypto.randomBytes(3).toString('hex')}@example.invalid`, name: `Bench ${role}`, passwordHash: await hashPassword(password) });
+  const user = await User.create({
+    email: `bench-${role}-${crypto.randomBytes(3).toString('hex')}@example.invalid`,
+    name: `Bench ${role}`,
+    passwordHash: await hashPassword(password),
+  });
   await Membership.create({ labId, userId: user.id, role });
   return { email: user.email, password };
 }

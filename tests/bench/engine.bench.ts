@@ -64,8 +64,12 @@ const bareLargeMs = time(bareLarge, 9);
 const perSecond = (ms: number) => Math.round(10_000 / (ms / 1000)).toLocaleString('en-US');
 console.log(`Halflight engine benchmark (Node ${process.version}, ${process.platform}/${process.arch})`);
 console.log('10,000 series x 12 points');
-console.log(`  full result (fitSternVolmer):          ${fullSmallMs.toFixed(1)} ms  = ${perSecond(fullSmallMs)} fits/s`);
-console.log(`  bare line (ml-regression-simple-linear): ${bareSmallMs.toFixed(1)} ms  = ${perSecond(bareSmallMs)} fits/s`);
+console.log(
+  `  full result (fitSternVolmer):          ${fullSmallMs.toFixed(1)} ms  = ${perSecond(fullSmallMs)} fits/s`,
+);
+console.log(
+  `  bare line (ml-regression-simple-linear): ${bareSmallMs.toFixed(1)} ms  = ${perSecond(bareSmallMs)} fits/s`,
+);
 console.log(`  ratio full / bare: ${(fullSmallMs / bareSmallMs).toFixed(2)}x`);
 console.log('1 series x 100,000 points');
 console.log(`  full result: ${fullLargeMs.toFixed(2)} ms`);

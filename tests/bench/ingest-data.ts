@@ -25,11 +25,16 @@ export function spectrumMatrixCsv(options: { samples: number; targetBytes: numbe
   const scale = concentrationsMm.map((c) => 1 / (1 + INVENTED_K_SV * c * 1e-3));
   const line = (wavelength: number) => {
     const band = 50_000 * Math.exp(-(((wavelength - 600) / 40) ** 2) / 2);
-    return [wavelength.toFixed(3), ...scale.map((s) => (band * s * (1 + 1e-4 * (random() - 0.5)) + 1).toFixed(3))].join(',');
+    return [wavelength.toFixed(3), ...scale.map((s) => (band * s * (1 + 1e-4 * (random() - 0.5)) + 1).toFixed(3))].join(
+      ',',
+    );
   };
   // Estimate the mean row length from rows across the band, then spread the rows evenly over 450–750 nm.
   const sampleLengths = [450, 525, 575, 600, 625, 675, 750].map((wavelength) => line(wavelength).length + 1);
-  const rows = Math.max(10, Math.round(options.targetBytes / (sampleLengths.reduce((sum, length) => sum + length, 0) / sampleLengths.length)));
+  const rows = Math.max(
+    10,
+    Math.round(options.targetBytes / (sampleLengths.reduce((sum, length) => sum + length, 0) / sampleLengths.length)),
+  );
   const lines = [header];
   for (let i = 0; i < rows; i++) lines.push(line(450 + (300 * i) / (rows - 1)));
   return { bytes: Buffer.from(`${lines.join('\n')}\n`, 'utf8'), rows };

@@ -30,11 +30,21 @@ const SAMPLES = 200;
 const targetBytes = Number(process.env.BENCH_INGEST_MB ?? 10) * 1024 * 1024;
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 // The options server/services/studies/parse/read-text-table.ts passes for a comma-separated file.
-const CSV_OPTIONS = { delimiter: ',', relax_column_count: true, skip_empty_lines: true, comment: '#', info: true, trim: true, relax_quotes: true } as const;
+const CSV_OPTIONS = {
+  delimiter: ',',
+  relax_column_count: true,
+  skip_empty_lines: true,
+  comment: '#',
+  info: true,
+  trim: true,
+  relax_quotes: true,
+} as const;
 
 async function main() {
   const { bytes, rows } = spectrumMatrixCsv({ samples: SAMPLES, targetBytes });
-  console.log(`Invented spectrum matrix: ${(bytes.length / 1024 / 1024).toFixed(2)} MB, ${rows} wavelengths x ${SAMPLES} spectra.`);
+  console.log(
+    `Invented spectrum matrix: ${(bytes.length / 1024 / 1024).toFixed(2)} MB, ${rows} wavelengths x ${SAMPLES} spectra.`,
+  );
   const dataRoot = fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-bench-'));
   const database = await startEmbeddedPostgres({ dataRoot, port: await freePort(), database: 'halflight_bench' });
   const sequelize = createSequelize(database.url);
@@ -42,19 +52,48 @@ async function main() {
     await migrateToLatest(sequelize);
     initModels(sequelize);
     const labRecord = await Lab.create({ name: 'Ingest bench lab (invented)', slug: 'ingest-bench' });
-    const user = await User.create({ email: 'ingest-bench@example.invalid', name: 'Bench chemist', passwordHash: 'not-a-login' });
+    const user = await User.create({
+      email: 'ingest-bench@example.invalid',
+      name: 'Bench chemist',
+      passwordHash: 'not-a-login',
+    });
     const membership = await Membership.create({ labId: labRecord.id, userId: user.id, role: 'researcher' });
-    const lab: LabContext = { id: labRecord.id, name: labRecord.name, isDemo: false, role: 'researcher', membershipId: membership.id };
+    const lab: LabContext = {
+      id: labRecord.id,
+      name: labRecord.name,
+      isDemo: false,
+      role: 'researcher',
+      membershipId: membership.id,
+    };
     const actor = { userId: user.id, ip: null };
     const settings = { solventId: 'acetonitrile', atmosphere: 'argon', degassingMethod: 'sparging', tau0: 1e-6 };
-    const first = await createStudy(sequelize, lab, createStudySchema.parse({ ...settings, title: 'Bench 1', newEmitterName: 'HL-Ir-7', newQuencherName: 'HL-Q-3' }), actor);
+    const first = await createStudy(
+      sequelize,
+      lab,
+      createStudySchema.parse({ ...settings, title: 'Bench 1', newEmitterName: 'HL-Ir-7', newQuencherName: 'HL-Q-3' }),
+      actor,
+    );
     const compounds = { emitterId: first.emitter.id, quencherId: first.quencher.id };
 
-    const stages = { receive: [] as number[], preview: [] as number[], apply: [] as number[], total: [] as number[], csvParse: [] as number[] };
+    const stages = {
+      receive: [] as number[],
+      preview: [] as number[],
+      apply: [] as number[],
+      total: [] as number[],
+      csvParse: [] as number[],
+    };
     let kSv: number | null | undefined;
     for (let run = 0; run < RUNS; run++) {
       // A fresh study per run: the same bytes twice in one study are refused as a duplicate.
-      const study = run === 0 ? first : await createStudy(sequelize, lab, createStudySchema.parse({ ...settings, ...compounds, title: `Bench ${run + 1}` }), actor);
+      const study =
+        run === 0
+          ? first
+          : await createStudy(
+              sequelize,
+              lab,
+              createStudySchema.parse({ ...settings, ...compounds, title: `Bench ${run + 1}` }),
+              actor,
+            );
       const file = { originalname: 'bench-spectra.csv', mimetype: 'text/csv', buffer: bytes };
       // csv-parse first, so its garbage is collected during the service's time rather than its own.
       const tParse = performance.now();
@@ -65,7 +104,14 @@ async function main() {
       const t1 = performance.now();
       await previewUpload(lab, study.id, received.upload.id, received.mapping!);
       const t2 = performance.now();
-      await applyUpload(sequelize, lab, study.id, received.upload.id, { version: study.version, mapping: received.mapping!, mode: 'replace' }, actor);
+      await applyUpload(
+        sequelize,
+        lab,
+        study.id,
+        received.upload.id,
+        { version: study.version, mapping: received.mapping!, mode: 'replace' },
+        actor,
+      );
       const t3 = performance.now();
       stages.receive.push(t1 - t0);
       stages.preview.push(t2 - t1);
@@ -82,7 +128,9 @@ async function main() {
     console.log(`  upload service, all three                                     ${ms(stages.total)}`);
     console.log(`  csv-parse alone on the same bytes                             ${ms(stages.csvParse)}`);
     const ratio = median(stages.total) / median(stages.csvParse);
-    console.log(`\nRatio upload service / csv-parse: ${ratio.toFixed(2)} (target at most ${TARGET_RATIO}: ${ratio <= TARGET_RATIO ? 'met' : 'NOT met'}).`);
+    console.log(
+      `\nRatio upload service / csv-parse: ${ratio.toFixed(2)} (target at most ${TARGET_RATIO}: ${ratio <= TARGET_RATIO ? 'met' : 'NOT met'}).`,
+    );
     console.log(`Fitted K_SV ${kSv?.toFixed(1)} M^-1 (the invented data were built with ${INVENTED_K_SV} M^-1).`);
   } finally {
     await sequelize.close();

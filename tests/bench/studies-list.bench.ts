@@ -37,8 +37,16 @@ async function main() {
     initModels(sequelize);
     const started = performance.now();
     const seeded = await seedBenchStudies(sequelize);
-    console.log(`Inserted ${seeded.total} studies (${seeded.inLab} in the measured lab) in ${((performance.now() - started) / 1000).toFixed(1)} s; ANALYZE done.`);
-    const lab: LabContext = { id: seeded.labId, name: 'Bench lab', isDemo: false, role: 'admin', membershipId: seeded.labId };
+    console.log(
+      `Inserted ${seeded.total} studies (${seeded.inLab} in the measured lab) in ${((performance.now() - started) / 1000).toFixed(1)} s; ANALYZE done.`,
+    );
+    const lab: LabContext = {
+      id: seeded.labId,
+      name: 'Bench lab',
+      isDemo: false,
+      role: 'admin',
+      membershipId: seeded.labId,
+    };
 
     const cases: Array<[string, Partial<Record<keyof ListStudiesQuery, string>>]> = [
       ['no filter (updated, desc)', {}],
@@ -56,7 +64,9 @@ async function main() {
     const report = (name: string, times: number[], total: number) => {
       const sorted = [...times].sort((a, b) => a - b);
       const p95 = percentile(sorted, 0.95);
-      console.log(`  ${name.padEnd(28)} ${percentile(sorted, 0.5).toFixed(2).padStart(7)} ms   p95 ${p95.toFixed(2).padStart(6)} ms   ${total} matches`);
+      console.log(
+        `  ${name.padEnd(28)} ${percentile(sorted, 0.5).toFixed(2).padStart(7)} ms   p95 ${p95.toFixed(2).padStart(6)} ms   ${total} matches`,
+      );
       return p95;
     };
     console.log(`\nlistStudies service, page 1 of 25, median and p95 of ${RUNS} runs (after 2 warm-up runs):`);
@@ -77,7 +87,9 @@ async function main() {
     const server = await startBenchServer(sequelize, database.url);
     try {
       const client = await signedInClient(server.baseUrl, await createBenchMember(seeded.labId, 'viewer'));
-      console.log(`\nGET /api/labs/:labId/studies over HTTP, median and p95 of ${HTTP_RUNS} calls (after 5 warm-up calls):`);
+      console.log(
+        `\nGET /api/labs/:labId/studies over HTTP, median and p95 of ${HTTP_RUNS} calls (after 5 warm-up calls):`,
+      );
       let worst = 0;
       for (const [name, raw] of cases) {
         const url = `/api/labs/${seeded.labId}/studies?${new URLSearchParams(raw as Record<string, string>)}`;
@@ -96,16 +108,23 @@ async function main() {
         }
         worst = Math.max(worst, report(name, times, total));
       }
-      console.log(`  Target p95 under ${TARGET_P95_MS} ms: ${worst < TARGET_P95_MS ? 'met' : 'NOT met'} (worst p95 ${worst.toFixed(2)} ms).`);
+      console.log(
+        `  Target p95 under ${TARGET_P95_MS} ms: ${worst < TARGET_P95_MS ? 'met' : 'NOT met'} (worst p95 ${worst.toFixed(2)} ms).`,
+      );
     } finally {
       await server.close();
     }
 
-    console.log('\nEXPLAIN of the page query the service sends (indexes used; "Sort" means PostgreSQL sorted rows itself):');
+    console.log(
+      '\nEXPLAIN of the page query the service sends (indexes used; "Sort" means PostgreSQL sorted rows itself):',
+    );
     const explained: Array<[string, Partial<Record<keyof ListStudiesQuery, string>>]> = [
-      ['owner filter', { ownerId: seeded.ownerId }], ['text search "thiophenol"', { q: 'thiophenol' }],
-      ['sort kq (desc)', { sort: 'kq' }], ['sort kq (asc)', { sort: 'kq', direction: 'asc' }],
-      ['sort K_SV (desc)', { sort: 'k_sv' }], ['sort K_SV (asc)', { sort: 'k_sv', direction: 'asc' }],
+      ['owner filter', { ownerId: seeded.ownerId }],
+      ['text search "thiophenol"', { q: 'thiophenol' }],
+      ['sort kq (desc)', { sort: 'kq' }],
+      ['sort kq (asc)', { sort: 'kq', direction: 'asc' }],
+      ['sort K_SV (desc)', { sort: 'k_sv' }],
+      ['sort K_SV (asc)', { sort: 'k_sv', direction: 'asc' }],
     ];
     for (const [name, raw] of explained) {
       const statements: string[] = [];
@@ -117,9 +136,17 @@ async function main() {
       const pageQuery = statements.find((sql) => !/count\(/i.test(sql))!;
       const [plan] = (await sequelize.query(`EXPLAIN ${pageQuery}`)) as [Array<{ 'QUERY PLAN': string }>, unknown];
       const lines = plan.map((row) => row['QUERY PLAN']);
-      const indexes = [...new Set(lines.flatMap((line) => [...line.matchAll(/Index(?: Only)? Scan(?: Backward)? (?:using|on) (\S+)/g)].map((match) => match[1]!)))];
+      const indexes = [
+        ...new Set(
+          lines.flatMap((line) =>
+            [...line.matchAll(/Index(?: Only)? Scan(?: Backward)? (?:using|on) (\S+)/g)].map((match) => match[1]!),
+          ),
+        ),
+      ];
       const sorts = lines.filter((line) => /\bSort\b/.test(line) && !/Sort Key/.test(line)).length;
-      console.log(`  ${name.padEnd(26)} ${indexes.join(', ') || 'no index (sequential scan)'}${sorts ? `; ${sorts} Sort node(s)` : '; no Sort node'}`);
+      console.log(
+        `  ${name.padEnd(26)} ${indexes.join(', ') || 'no index (sequential scan)'}${sorts ? `; ${sorts} Sort node(s)` : '; no Sort node'}`,
+      );
     }
   } finally {
     await sequelize.close();

@@ -13,7 +13,11 @@ let admin: { email: string; password: string };
 let users: Awaited<ReturnType<typeof createLabWithMembers>>['users'];
 let labName: string;
 let labId: string;
-const newcomer = { email: `newcomer-${Date.now()}@halflight.test`, name: 'Noor Okafor', password: 'amber dusk lantern 42' };
+const newcomer = {
+  email: `newcomer-${Date.now()}@halflight.test`,
+  name: 'Noor Okafor',
+  password: 'amber dusk lantern 42',
+};
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(screenshotDir, name), fullPage: true });
 
@@ -137,7 +141,10 @@ describe('accounts in Chromium', () => {
   });
 
   it('when an admin of two labs works the rail and the member table, then roles follow the lab and the last admin stays', async () => {
-    const { lab: demoLab } = await createLabWithMembers(server.sequelize, { roles: ['viewer'], labName: 'Demo — Lantern Bay Group' });
+    const { lab: demoLab } = await createLabWithMembers(server.sequelize, {
+      roles: ['viewer'],
+      labName: 'Demo — Lantern Bay Group',
+    });
     await demoLab.update({ isDemo: true });
     await Membership.create({ labId: demoLab.id, userId: users.admin.id, role: 'researcher' });
     const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });

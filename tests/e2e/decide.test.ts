@@ -74,8 +74,13 @@ describe('deciding who quenches, in Chromium', () => {
 
     // Expected shares from the API answer the screen was drawn from.
     const scenarioId = page.url().split('/').pop()!;
-    const scenario = await page.evaluate(async (url) => (await fetch(url)).json(), `/api/labs/${labId}/scenarios/${scenarioId}`);
-    const largest = [...scenario.shares].sort((a: { fraction: number }, b: { fraction: number }) => b.fraction - a.fraction)[0];
+    const scenario = await page.evaluate(
+      async (url) => (await fetch(url)).json(),
+      `/api/labs/${labId}/scenarios/${scenarioId}`,
+    );
+    const largest = [...scenario.shares].sort(
+      (a: { fraction: number }, b: { fraction: number }) => b.fraction - a.fraction,
+    )[0];
     const row = page.getByRole('row', { name: new RegExp(largest.label) });
     await expect(row.getByText(`${(largest.fraction * 100).toFixed(1)} %`).isVisible()).resolves.toBe(true);
     await expect(page.getByText(/not that the encounter leads to product/).isVisible()).resolves.toBe(true);
@@ -83,7 +88,9 @@ describe('deciding who quenches, in Chromium', () => {
   });
 
   it('when an emitter is compared, then its quenchers are listed with kq and the trend plot is drawn', async () => {
-    const emitter = (await Compound.findOne({ where: { labId, name: 'HL-Ir-7' } })) ?? (await Compound.findOne({ where: { labId, roleHint: 'photocatalyst' } }));
+    const emitter =
+      (await Compound.findOne({ where: { labId, name: 'HL-Ir-7' } })) ??
+      (await Compound.findOne({ where: { labId, roleHint: 'photocatalyst' } }));
     const studied = await Study.count({ where: { labId, emitterId: emitter!.id, isCurrent: true } });
     await page.goto(`${server.baseUrl}/labs/${labId}/compare?side=emitter&compoundId=${emitter!.id}`);
     await page.getByRole('heading', { name: `Studies of ${emitter!.name}` }).waitFor();
@@ -104,7 +111,10 @@ describe('deciding who quenches, in Chromium', () => {
     await expect(page.getByText('Sample diluted by more than about 10 %').isVisible()).resolves.toBe(true);
     await expect(page.getByRole('cell', { name: '500', exact: true }).isVisible()).resolves.toBe(true);
     await shot('planner.png');
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download CSV' }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('button', { name: 'Download CSV' }).click(),
+    ]);
     const csv = fs.readFileSync((await download.path())!, 'utf8');
     expect(download.suggestedFilename()).toBe('titration-plan.csv');
     expect(csv.trim().split('\n').at(-1)).toMatch(/^5,10,/);

@@ -15,7 +15,8 @@ let labId: string;
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(screenshotDir, name), fullPage: true });
 
-const signIn = (page: Page, person: { email: string; password: string }) => signInThroughPage(page, server.baseUrl, person);
+const signIn = (page: Page, person: { email: string; password: string }) =>
+  signInThroughPage(page, server.baseUrl, person);
 
 beforeAll(async () => {
   server = await startLiveServer();
@@ -41,14 +42,42 @@ describe('correcting library records in Chromium', () => {
     const base = `/api/labs/${labId}`;
     const emitter = (await api.post(`${base}/compounds`, { name: 'E2E-Ir-5', roleHint: 'photocatalyst' })).body;
     const records = `${base}/compounds/${emitter.id}`;
-    expect((await api.post(`${records}/potentials`, { couple: 'oxidation', value: 1.1, reference: 'SCE', solvent: 'acetonitrile', kind: 'half-wave' })).status).toBe(201);
+    expect(
+      (
+        await api.post(`${records}/potentials`, {
+          couple: 'oxidation',
+          value: 1.1,
+          reference: 'SCE',
+          solvent: 'acetonitrile',
+          kind: 'half-wave',
+        })
+      ).status,
+    ).toBe(201);
     const energy = (await api.post(`${records}/energies`, { value: 2.5, method: 'emission onset' })).body;
-    const lifetime = (await api.post(`${records}/lifetimes`, { value: 1e-6, uncertainty: 2e-8, solvent: 'acetonitrile', atmosphere: 'argon', method: 'TCSPC' })).body;
+    const lifetime = (
+      await api.post(`${records}/lifetimes`, {
+        value: 1e-6,
+        uncertainty: 2e-8,
+        solvent: 'acetonitrile',
+        atmosphere: 'argon',
+        method: 'TCSPC',
+      })
+    ).body;
     const study = async (title: string) => {
-      const created = (await api.post(`${base}/studies`, {
-        title, emitterId: emitter.id, newQuencherName: `Q for ${title}`, solventId: 'acetonitrile', atmosphere: 'argon', degassingMethod: 'sparging', tau0LifetimeId: lifetime.id,
-      })).body;
-      return (await api.patch(`${base}/studies/${created.id}/points`, { version: created.version, points: exactPoints })).body as { id: string };
+      const created = (
+        await api.post(`${base}/studies`, {
+          title,
+          emitterId: emitter.id,
+          newQuencherName: `Q for ${title}`,
+          solventId: 'acetonitrile',
+          atmosphere: 'argon',
+          degassingMethod: 'sparging',
+          tau0LifetimeId: lifetime.id,
+        })
+      ).body;
+      return (
+        await api.patch(`${base}/studies/${created.id}/points`, { version: created.version, points: exactPoints })
+      ).body as { id: string };
     };
     const draft = await study('E2E refit draft');
     const approved = await study('E2E approved');
@@ -71,7 +100,10 @@ describe('correcting library records in Chromium', () => {
 
     // Someone else changes the E00 while this page still holds version 0: the save is refused in plain words.
     await page.getByRole('button', { name: 'Edit E00 2.50 eV' }).click();
-    await api.patch(`${records}/energies/${energy.id}`, { method: 'absorption/emission crossing', version: energy.version });
+    await api.patch(`${records}/energies/${energy.id}`, {
+      method: 'absorption/emission crossing',
+      version: energy.version,
+    });
     const editEnergy = page.getByRole('form', { name: 'Edit E00' });
     await editEnergy.getByLabel('Entered as').selectOption('nm');
     await editEnergy.getByLabel('E00', { exact: true }).fill('500');

@@ -15,7 +15,8 @@ let labId: string;
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(screenshotDir, name), fullPage: true });
 
-const signIn = (page: Page, person: { email: string; password: string }) => signInThroughPage(page, server.baseUrl, person);
+const signIn = (page: Page, person: { email: string; password: string }) =>
+  signInThroughPage(page, server.baseUrl, person);
 
 beforeAll(async () => {
   server = await startLiveServer();
@@ -86,7 +87,9 @@ describe('compound library in Chromium', () => {
     await page.getByRole('link', { name: 'HL-Ir-7' }).click();
     await page.getByRole('region', { name: 'Excited-state potentials' }).getByText('E*(PC+/PC*)').waitFor();
     // Demo records were entered by nobody in this lab: a researcher may read them, not change them.
-    expect(await page.getByRole('region', { name: 'Redox potentials' }).getByRole('button', { name: /^Edit/ }).count()).toBe(0);
+    expect(
+      await page.getByRole('region', { name: 'Redox potentials' }).getByRole('button', { name: /^Edit/ }).count(),
+    ).toBe(0);
     await shot(page, 'library-emitter.png');
   });
 
@@ -107,9 +110,14 @@ describe('compound library in Chromium', () => {
     await potentials.getByRole('cell', { name: '+1.21 V vs SCE' }).waitFor();
 
     await page.goto(`${server.baseUrl}/labs/${labId}/library`);
-    const csv = ['record,compound,role_hint,couple,potential_v,reference,kind,solvent', 'compound,E2E-CSV-1,quencher,,,,,',
-      'potential,E2E-CSV-1,,reduction,-1.1,Hg/HgO,half-wave,acetonitrile'].join('\n');
-    await page.getByLabel('CSV file to import').setInputFiles({ name: 'bad-row.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    const csv = [
+      'record,compound,role_hint,couple,potential_v,reference,kind,solvent',
+      'compound,E2E-CSV-1,quencher,,,,,',
+      'potential,E2E-CSV-1,,reduction,-1.1,Hg/HgO,half-wave,acetonitrile',
+    ].join('\n');
+    await page
+      .getByLabel('CSV file to import')
+      .setInputFiles({ name: 'bad-row.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
     const problems = page.getByRole('region', { name: 'Problems in the file' });
     await problems.getByRole('cell', { name: 'reference', exact: true }).waitFor();
     await problems.getByRole('cell', { name: '3', exact: true }).waitFor();

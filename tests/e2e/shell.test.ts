@@ -44,7 +44,14 @@ describe('the app shell in Chromium', () => {
     const navigation = page.getByRole('navigation', { name: 'Main' });
     // A viewer sees only the screens open to viewers: no caught mail or lab settings, which are for admins.
     expect(await navigation.getByRole('link').allTextContents()).toEqual([
-      'Overview', 'Studies', 'Library', 'Members', 'Compare', 'Who quenches?', 'Planner', 'Account',
+      'Overview',
+      'Studies',
+      'Library',
+      'Members',
+      'Compare',
+      'Who quenches?',
+      'Planner',
+      'Account',
     ]);
     const font = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
     expect(font).toContain('Lato');

@@ -21,13 +21,16 @@ async function expectFitsWindow(page: Page, name: string) {
   const overflow = await page.evaluate(() => ({
     page: document.documentElement.scrollWidth,
     window: window.innerWidth,
-    past: [...document.querySelectorAll('main *')].filter((element) => element.getBoundingClientRect().right > window.innerWidth + 1)
-      .slice(0, 5).map((element) => `${element.tagName.toLowerCase()}.${String(element.className)}`),
+    past: [...document.querySelectorAll('main *')]
+      .filter((element) => element.getBoundingClientRect().right > window.innerWidth + 1)
+      .slice(0, 5)
+      .map((element) => `${element.tagName.toLowerCase()}.${String(element.className)}`),
   }));
   expect(overflow.page, `wider than the window: ${overflow.past.join(' | ')}`).toBeLessThanOrEqual(overflow.window);
 }
 
-const signIn = (page: Page, person: { email: string; password: string }) => signInThroughPage(page, server.baseUrl, person);
+const signIn = (page: Page, person: { email: string; password: string }) =>
+  signInThroughPage(page, server.baseUrl, person);
 
 async function fillStudyForm(page: Page, title: string, tag: string) {
   await page.getByRole('link', { name: 'New study' }).click();
@@ -71,8 +74,12 @@ describe('studies in Chromium', () => {
     await shot(page, 'study-upload-preview.png');
     await expectFitsWindow(page, 'study-upload-preview-1400x900.png');
     await page.getByRole('button', { name: 'Use these points' }).click();
-    await expect.poll(async () => (await page.getByLabel('K_SV', { exact: true }).textContent()) ?? '').toMatch(/^500 ± /);
-    await expect.poll(async () => (await page.getByLabel('kq', { exact: true }).textContent()) ?? '').toMatch(/^5\.00 × 10⁸ ± /);
+    await expect
+      .poll(async () => (await page.getByLabel('K_SV', { exact: true }).textContent()) ?? '')
+      .toMatch(/^500 ± /);
+    await expect
+      .poll(async () => (await page.getByLabel('kq', { exact: true }).textContent()) ?? '')
+      .toMatch(/^5\.00 × 10⁸ ± /);
     await page.getByRole('figure', { name: 'Stern–Volmer plot' }).waitFor();
     await shot(page, 'study-fitted.png');
     await expectFitsWindow(page, 'study-fitted-1400x900.png');
@@ -102,12 +109,21 @@ describe('studies in Chromium', () => {
     await page.getByRole('button', { name: 'Create study' }).click();
     await page.getByRole('heading', { name: 'E2E figures: Ir/amine', level: 1 }).waitFor();
     // invented series with lifetimes: I0/I = tau0/tau = 1 + 1000 [Q] (tests/fixtures/uploads/README.md)
-    await page.getByLabel(/Instrument file/).setInputFiles(path.join(import.meta.dirname, '../fixtures/uploads/series-semicolon-decimal-comma-bom.csv'));
+    await page
+      .getByLabel(/Instrument file/)
+      .setInputFiles(path.join(import.meta.dirname, '../fixtures/uploads/series-semicolon-decimal-comma-bom.csv'));
     await page.getByRole('button', { name: 'Use these points' }).click();
     await page.getByRole('figure', { name: 'Lifetime plot' }).waitFor();
-    const figures: Array<[string, string]> = [['Stern–Volmer plot', 'stern-volmer'], ['residual plot', 'residuals'], ['lifetime plot', 'lifetimes']];
+    const figures: Array<[string, string]> = [
+      ['Stern–Volmer plot', 'stern-volmer'],
+      ['residual plot', 'residuals'],
+      ['lifetime plot', 'lifetimes'],
+    ];
     for (const [what, suffix] of figures) {
-      const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: `Save the ${what} as PNG` }).click()]);
+      const [download] = await Promise.all([
+        page.waitForEvent('download'),
+        page.getByRole('button', { name: `Save the ${what} as PNG` }).click(),
+      ]);
       expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}.png`);
       const saved = path.join(screenshotDir, `figure-${suffix}.png`);
       await download.saveAs(saved);

@@ -46,7 +46,8 @@ export async function apiClient(app: Parameters<typeof request.agent>[0]) {
     delete: (url: string) => withToken(agent.delete(url)),
     async signIn(user: { email: string; password: string }) {
       const response = await withToken(agent.post('/api/session')).send({ email: user.email, password: user.password });
-      if (response.status !== 200) throw new Error(`sign-in failed: ${response.status} ${JSON.stringify(response.body)}`);
+      if (response.status !== 200)
+        throw new Error(`sign-in failed: ${response.status} ${JSON.stringify(response.body)}`);
       csrfToken = response.body.csrfToken;
       return response;
     },

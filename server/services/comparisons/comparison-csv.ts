@@ -5,14 +5,39 @@ import { csvTable } from '../../lib/csv-cells';
 export function comparisonCsv(comparison: Comparison): string {
   const partner = comparison.side === 'emitter' ? 'quencher' : 'emitter';
   const header = [
-    partner, 'study', 'solvent', 'status', 'approved', 'kq_M-1_s-1', 'kq_SE', 'K_SV_M-1', 'K_SV_SE',
-    'dG_ET_eV', 'pathway', 'dG_ET_with_Coulomb_eV', 'flags',
+    partner,
+    'study',
+    'solvent',
+    'status',
+    'approved',
+    'kq_M-1_s-1',
+    'kq_SE',
+    'K_SV_M-1',
+    'K_SV_SE',
+    'dG_ET_eV',
+    'pathway',
+    'dG_ET_with_Coulomb_eV',
+    'flags',
   ];
   const rows = comparison.rows.map((row) => [
-    row.partner.name, row.title, row.solvent, row.status, row.status === 'approved' ? 'yes' : 'no',
-    row.kq?.value, row.kq?.standardError, row.kSv?.value, row.kSv?.standardError,
-    row.drivingForce?.electronvolts, row.drivingForce?.pathway, row.drivingForce?.withWorkTerm,
+    row.partner.name,
+    row.title,
+    row.solvent,
+    row.status,
+    row.status === 'approved' ? 'yes' : 'no',
+    row.kq?.value,
+    row.kq?.standardError,
+    row.kSv?.value,
+    row.kSv?.standardError,
+    row.drivingForce?.electronvolts,
+    row.drivingForce?.pathway,
+    row.drivingForce?.withWorkTerm,
     row.flags.map((flag) => flag.code).join(' '),
   ]);
-  return csvTable([[`# ${comparison.side}`, comparison.compound.name], [`# engine`, comparison.engineVersion], header, ...rows]);
+  return csvTable([
+    [`# ${comparison.side}`, comparison.compound.name],
+    [`# engine`, comparison.engineVersion],
+    header,
+    ...rows,
+  ]);
 }

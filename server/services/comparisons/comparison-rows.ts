@@ -9,11 +9,15 @@ type RowDrivingForce = Pick<ComparisonRow, 'drivingForce' | 'drivingForceMissing
 /** The highlighted driving force of a study's pair in its solvent, or why there is none. */
 async function rowDrivingForce(lab: LabContext, study: Study): Promise<RowDrivingForce> {
   const result = await drivingForceOfStudy(lab, study);
-  if (!result) return { drivingForce: null, drivingForceMissing: 'custom solvent: no permittivity in the solvent table' };
+  if (!result)
+    return { drivingForce: null, drivingForceMissing: 'custom solvent: no permittivity in the solvent table' };
   const pathway = result.highlighted;
   const value = pathway ? result[pathway] : null;
   if (!pathway || !value) {
-    return { drivingForce: null, drivingForceMissing: result.missing.map((item) => item.message).join('; ') || 'potentials missing' };
+    return {
+      drivingForce: null,
+      drivingForceMissing: result.missing.map((item) => item.message).join('; ') || 'potentials missing',
+    };
   }
   return {
     drivingForce: { pathway, electronvolts: value.electronvolts, withWorkTerm: value.withWorkTerm },
@@ -26,7 +30,11 @@ async function rowDrivingForce(lab: LabContext, study: Study): Promise<RowDrivin
  * emitter), with kq and K_SV and their standard errors from the newest fit, flags, status and
  * the driving force.
  */
-export async function comparisonRows(lab: LabContext, side: 'emitter' | 'quencher', compoundId: string): Promise<ComparisonRow[]> {
+export async function comparisonRows(
+  lab: LabContext,
+  side: 'emitter' | 'quencher',
+  compoundId: string,
+): Promise<ComparisonRow[]> {
   const studies = await Study.findAll({
     where: { labId: lab.id, isCurrent: true, [side === 'emitter' ? 'emitterId' : 'quencherId']: compoundId },
     include: [{ model: Compound, as: side === 'emitter' ? 'quencher' : 'emitter' }],
@@ -35,7 +43,10 @@ export async function comparisonRows(lab: LabContext, side: 'emitter' | 'quenche
   });
   const fitIds = studies.map((study) => study.latestFitId).filter((id): id is string => id !== null);
   const fits = new Map(
-    (await StudyFit.findAll({ where: { id: { [Op.in]: fitIds } }, attributes: ['id', 'result'] })).map((fit) => [fit.id, fit]),
+    (await StudyFit.findAll({ where: { id: { [Op.in]: fitIds } }, attributes: ['id', 'result'] })).map((fit) => [
+      fit.id,
+      fit,
+    ]),
   );
   // Replicates and revisions of one pair share a driving force: compute it once per pair, solvent and pin.
   const forces = new Map<string, Promise<RowDrivingForce>>();
@@ -55,7 +66,8 @@ export async function comparisonRows(lab: LabContext, side: 'emitter' | 'quenche
       solvent: study.solventId ?? study.customSolventName ?? '',
       status: study.status,
       kq: study.kq === null ? null : { value: study.kq, standardError: result?.parameters.kq?.standardError ?? null },
-      kSv: study.kSv === null ? null : { value: study.kSv, standardError: result?.parameters.kSv?.standardError ?? null },
+      kSv:
+        study.kSv === null ? null : { value: study.kSv, standardError: result?.parameters.kSv?.standardError ?? null },
       flags: (result?.flags ?? []).map((flag) => ({ code: flag.code, title: flag.title })),
       ...(await forceOf(study)),
     });

@@ -1,4 +1,10 @@
-import { ENGINE_VERSION, EngineError, fitRehmWeller, rehmWellerRateConstant, solventDiffusionLimit } from '@shared/engine';
+import {
+  ENGINE_VERSION,
+  EngineError,
+  fitRehmWeller,
+  rehmWellerRateConstant,
+  solventDiffusionLimit,
+} from '@shared/engine';
 import type { Comparison, ComparisonRow, Trend } from '@shared/schemas/comparisons';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../middleware/access';
@@ -28,7 +34,8 @@ function trendFor(solvent: string, rows: ComparisonRow[], approvedOnly: boolean)
   const diffusionLimit = diffusionLimitOf(solvent);
   const base = { solvent, diffusionLimit, points };
   if (diffusionLimit === null) return { ...base, fit: null, note: 'no diffusion limit for this solvent in the table' };
-  if (points.length < 3) return { ...base, fit: null, note: 'a trend needs at least 3 studies with kq and a driving force' };
+  if (points.length < 3)
+    return { ...base, fit: null, note: 'a trend needs at least 3 studies with kq and a driving force' };
   try {
     const fit = fitRehmWeller({
       drivingForces: points.map((point) => point.drivingForce),
@@ -41,7 +48,12 @@ function trendFor(solvent: string, rows: ComparisonRow[], approvedOnly: boolean)
     const high = Math.max(...points.map((point) => point.drivingForce)) + 0.3;
     const curve = Array.from({ length: 61 }, (_, i) => {
       const drivingForce = low + ((high - low) * i) / 60;
-      return { drivingForce, log10Kq: Math.log10(rehmWellerRateConstant({ drivingForce, reorganisationEnergy: lambda, diffusionLimit, kdOverKZ })) };
+      return {
+        drivingForce,
+        log10Kq: Math.log10(
+          rehmWellerRateConstant({ drivingForce, reorganisationEnergy: lambda, diffusionLimit, kdOverKZ }),
+        ),
+      };
     });
     return {
       ...base,
@@ -82,7 +94,13 @@ export async function compare(
     side,
     compound: { id: compound.id, name: compound.name },
     rows,
-    trends: solvents.map((solvent) => trendFor(solvent, rows.filter((row) => row.solvent === solvent), options.approvedOnly)),
+    trends: solvents.map((solvent) =>
+      trendFor(
+        solvent,
+        rows.filter((row) => row.solvent === solvent),
+        options.approvedOnly,
+      ),
+    ),
     engineVersion: ENGINE_VERSION,
   };
 }

@@ -32,11 +32,19 @@ async function studies(where: WhereOptions<Study>, limit = 10): Promise<Dashboar
 
 /** Titles of the studies, compounds and scenarios the events point at, to name them in the activity list. */
 async function targetNames(events: AuditEvent[]): Promise<Map<string, string>> {
-  const idsOf = (type: string) => [...new Set(events.filter((e) => e.targetType === type && e.targetId).map((e) => e.targetId!))];
+  const idsOf = (type: string) => [
+    ...new Set(events.filter((e) => e.targetType === type && e.targetId).map((e) => e.targetId!)),
+  ];
   const names = new Map<string, string>();
-  for (const study of await Study.findAll({ where: { id: idsOf('study') }, attributes: ['id', 'title'] })) names.set(`study:${study.id}`, study.title);
-  for (const compound of await Compound.findAll({ where: { id: idsOf('compound') }, attributes: ['id', 'name'] })) names.set(`compound:${compound.id}`, compound.name);
-  for (const scenario of await ReactionScenario.findAll({ where: { id: idsOf('scenario') }, attributes: ['id', 'name'] })) names.set(`scenario:${scenario.id}`, scenario.name);
+  for (const study of await Study.findAll({ where: { id: idsOf('study') }, attributes: ['id', 'title'] }))
+    names.set(`study:${study.id}`, study.title);
+  for (const compound of await Compound.findAll({ where: { id: idsOf('compound') }, attributes: ['id', 'name'] }))
+    names.set(`compound:${compound.id}`, compound.name);
+  for (const scenario of await ReactionScenario.findAll({
+    where: { id: idsOf('scenario') },
+    attributes: ['id', 'name'],
+  }))
+    names.set(`scenario:${scenario.id}`, scenario.name);
   return names;
 }
 
@@ -54,7 +62,9 @@ export async function getDashboard(lab: LabContext, userId: string): Promise<Das
   });
   const names = await targetNames(events);
   const actorIds = [...new Set(events.map((event) => event.actorId).filter((id): id is string => id !== null))];
-  const actors = new Map((await User.findAll({ where: { id: actorIds }, attributes: ['id', 'name'] })).map((user) => [user.id, user.name]));
+  const actors = new Map(
+    (await User.findAll({ where: { id: actorIds }, attributes: ['id', 'name'] })).map((user) => [user.id, user.name]),
+  );
   return {
     waitingForMyReview: roleAtLeast(lab.role, 'reviewer') ? await studies({ labId: lab.id, status: 'submitted' }) : [],
     myReturned: await studies({ labId: lab.id, status: 'returned', ownerId: userId }),

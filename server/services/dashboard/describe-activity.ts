@@ -26,7 +26,7 @@ const phrases: Record<string, string> = {
   invitation_sent: 'invited someone',
   invitation_revoked: 'withdrew an invitation',
   membership_added: 'joined the lab',
-  role_changed: 'changed someone\'s role',
+  role_changed: "changed someone's role",
   member_removed: 'removed a member',
   scenario_created: 'saved a reaction scenario',
   scenario_updated: 'changed a reaction scenario',

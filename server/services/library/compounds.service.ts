@@ -1,6 +1,12 @@
 import { ForeignKeyConstraintError, literal, Op } from 'sequelize';
 import type { Sequelize, WhereOptions } from 'sequelize';
-import type { CompoundChanges, CompoundList, CompoundListQuery, CompoundSummary, CompoundValues } from '@shared/schemas/library';
+import type {
+  CompoundChanges,
+  CompoundList,
+  CompoundListQuery,
+  CompoundSummary,
+  CompoundValues,
+} from '@shared/schemas/library';
 import type { CompoundDetail } from '@shared/schemas/library-views';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../middleware/access';
@@ -10,7 +16,13 @@ import { recordAudit } from '../audit.service';
 import type { Actor } from '../audit.service';
 import { toPotentialRecord } from './display-potential.service';
 import { excitedStateOf } from './excited-state.service';
-import { assertMayEdit, assertVersion, changedFields, findCompound, labDisplaySettings } from './library-access.service';
+import {
+  assertMayEdit,
+  assertVersion,
+  changedFields,
+  findCompound,
+  labDisplaySettings,
+} from './library-access.service';
 import { measurementsOf } from './measurement-store.service';
 import { toEnergyRecord, toLifetimeRecord } from './measurements.service';
 
@@ -37,7 +49,11 @@ function toSummary(compound: Compound & { createdBy?: User }): CompoundSummary {
     tripletEnergy: compound.tripletEnergy ?? null,
     tripletEnergySource: compound.tripletEnergySource ?? null,
     charge: compound.charge ?? 0,
-    counts: { potentials: counted('potentialCount'), lifetimes: counted('lifetimeCount'), energies: counted('energyCount') },
+    counts: {
+      potentials: counted('potentialCount'),
+      lifetimes: counted('lifetimeCount'),
+      energies: counted('energyCount'),
+    },
     createdById: compound.createdById ?? null,
     createdByName: compound.createdBy?.name ?? null,
     version: compound.version,
@@ -48,9 +64,16 @@ function toSummary(compound: Compound & { createdBy?: User }): CompoundSummary {
 
 const withAuthor = [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }];
 // A role filter for emitters or quenchers also lists compounds marked "both".
-const roleFilter = { photocatalyst: ['photocatalyst', 'both'], quencher: ['quencher', 'both'], both: ['both'] } as const;
+const roleFilter = {
+  photocatalyst: ['photocatalyst', 'both'],
+  quencher: ['quencher', 'both'],
+  both: ['both'],
+} as const;
 
-export async function listCompounds(lab: LabContext, query: CompoundListQuery & { page: number; pageSize: number }): Promise<CompoundList> {
+export async function listCompounds(
+  lab: LabContext,
+  query: CompoundListQuery & { page: number; pageSize: number },
+): Promise<CompoundList> {
   const where: WhereOptions<Compound>[] = [{ labId: lab.id }];
   if (query.search) where.push({ name: { [Op.iLike]: `%${query.search.replace(/[\\%_]/g, '\\$&')}%` } });
   if (query.roleHint) where.push({ roleHint: [...roleFilter[query.roleHint]] });
@@ -67,7 +90,11 @@ export async function listCompounds(lab: LabContext, query: CompoundListQuery & 
 }
 
 export async function getCompound(lab: LabContext, compoundId: string): Promise<CompoundDetail> {
-  const compound = await Compound.findOne({ where: { id: compoundId, labId: lab.id }, attributes: summaryAttributes, include: withAuthor });
+  const compound = await Compound.findOne({
+    where: { id: compoundId, labId: lab.id },
+    attributes: summaryAttributes,
+    include: withAuthor,
+  });
   if (!compound) throw new AppError('not_found', 'No compound with this id in this lab.', 404);
   const { displayReference } = await labDisplaySettings(lab.id);
   const potentials = await measurementsOf<RedoxPotential & { createdBy?: User }>('potential', lab.id, [compound.id]);
@@ -95,18 +122,31 @@ async function assertNameFree(labId: string, name: string, exceptId?: string) {
   if (clash && clash.id !== exceptId) throw nameTaken(name);
 }
 
-export async function createCompound(sequelize: Sequelize, lab: LabContext, actor: Actor, input: CompoundValues): Promise<CompoundDetail> {
+export async function createCompound(
+  sequelize: Sequelize,
+  lab: LabContext,
+  actor: Actor,
+  input: CompoundValues,
+): Promise<CompoundDetail> {
   await assertNameFree(lab.id, input.name);
   const id = await sequelize.transaction(async (transaction) => {
     const compound = await Compound.create({ ...input, labId: lab.id, createdById: actor.userId }, { transaction });
-    await recordAudit(actor, { action: 'compound_added', labId: lab.id, targetType: 'compound', targetId: compound.id, details: { ...input } }, transaction);
+    await recordAudit(
+      actor,
+      { action: 'compound_added', labId: lab.id, targetType: 'compound', targetId: compound.id, details: { ...input } },
+      transaction,
+    );
     return compound.id;
   });
   return getCompound(lab, id);
 }
 
 export async function updateCompound(
-  sequelize: Sequelize, lab: LabContext, actor: Actor, compoundId: string, changes: CompoundChanges,
+  sequelize: Sequelize,
+  lab: LabContext,
+  actor: Actor,
+  compoundId: string,
+  changes: CompoundChanges,
 ): Promise<CompoundDetail> {
   const { version, ...fields } = changes;
   if (fields.name) await assertNameFree(lab.id, fields.name, compoundId);
@@ -116,19 +156,33 @@ export async function updateCompound(
     assertVersion(compound, version, 'compound');
     const diff = changedFields(compound.get({ plain: true }), fields);
     await compound.update(fields, { transaction });
-    await recordAudit(actor, { action: 'compound_changed', labId: lab.id, targetType: 'compound', targetId: compound.id, details: diff }, transaction);
+    await recordAudit(
+      actor,
+      { action: 'compound_changed', labId: lab.id, targetType: 'compound', targetId: compound.id, details: diff },
+      transaction,
+    );
   });
   return getCompound(lab, compoundId);
 }
 
-export async function deleteCompound(sequelize: Sequelize, lab: LabContext, actor: Actor, compoundId: string, version?: number) {
+export async function deleteCompound(
+  sequelize: Sequelize,
+  lab: LabContext,
+  actor: Actor,
+  compoundId: string,
+  version?: number,
+) {
   try {
     await sequelize.transaction(async (transaction) => {
       const compound = await findCompound(lab, compoundId, transaction, true);
       assertVersion(compound, version, 'compound');
       const before = compound.get({ plain: true });
       await compound.destroy({ transaction });
-      await recordAudit(actor, { action: 'compound_deleted', labId: lab.id, targetType: 'compound', targetId: compoundId, details: before }, transaction);
+      await recordAudit(
+        actor,
+        { action: 'compound_deleted', labId: lab.id, targetType: 'compound', targetId: compoundId, details: before },
+        transaction,
+      );
     });
   } catch (error) {
     if (error instanceof ForeignKeyConstraintError) {

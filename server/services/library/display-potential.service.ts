@@ -13,9 +13,19 @@ export function displayPotential(
   displayReference: string,
 ): { display: DisplayedPotential | null; displayProblem: string | null } {
   try {
-    const converted = convertPotential({ value: potential.value, from: potential.reference, to: displayReference, solvent: potential.solvent });
+    const converted = convertPotential({
+      value: potential.value,
+      from: potential.reference,
+      to: displayReference,
+      solvent: potential.solvent,
+    });
     return {
-      display: { value: converted.value, reference: converted.to, constants: converted.constants, warnings: converted.warnings },
+      display: {
+        value: converted.value,
+        reference: converted.to,
+        constants: converted.constants,
+        warnings: converted.warnings,
+      },
       displayProblem: null,
     };
   } catch (error) {
@@ -24,7 +34,11 @@ export function displayPotential(
   }
 }
 
-export function toPotentialRecord(potential: RedoxPotential, displayReference: string, createdByName: string | null): RedoxPotentialRecord {
+export function toPotentialRecord(
+  potential: RedoxPotential,
+  displayReference: string,
+  createdByName: string | null,
+): RedoxPotentialRecord {
   return {
     id: potential.id,
     compoundId: potential.compoundId,
@@ -64,7 +78,8 @@ export function pickPotential(
     .filter((candidate) => candidate.display !== null)
     .sort(
       (a, b) =>
-        kindRank[a.potential.kind] - kindRank[b.potential.kind] || b.potential.createdAt.getTime() - a.potential.createdAt.getTime(),
+        kindRank[a.potential.kind] - kindRank[b.potential.kind] ||
+        b.potential.createdAt.getTime() - a.potential.createdAt.getTime(),
     );
   const best = candidates[0];
   if (!best?.display) return null;
@@ -72,7 +87,13 @@ export function pickPotential(
   return {
     potentialId: potential.id,
     value: best.display.value,
-    original: { value: potential.value, reference: potential.reference, solvent: potential.solvent, kind: potential.kind, source: potential.source ?? null },
+    original: {
+      value: potential.value,
+      reference: potential.reference,
+      solvent: potential.solvent,
+      kind: potential.kind,
+      source: potential.source ?? null,
+    },
     warnings: best.display.warnings.map((warning) => warning.message),
   };
 }

@@ -1,5 +1,9 @@
 import {
-  DEFAULT_ENCOUNTER_DISTANCE, energyTransferFeasibility, getSolvent, quenchingDrivingForces, SOLVENTS,
+  DEFAULT_ENCOUNTER_DISTANCE,
+  energyTransferFeasibility,
+  getSolvent,
+  quenchingDrivingForces,
+  SOLVENTS,
 } from '@shared/engine';
 import type { DrivingForceResult, MissingInput, Pathway } from '@shared/schemas/driving-force';
 import type { LabContext } from '../../middleware/access';
@@ -9,22 +13,76 @@ import { pickEnergy } from './excited-state.service';
 import { findCompound, labDisplaySettings } from './library-access.service';
 import { measurementsOf } from './measurement-store.service';
 
-interface Query { emitterId: string; quencherId: string; solvent: string; pinned?: Pathway; distance?: number }
+interface Query {
+  emitterId: string;
+  quencherId: string;
+  solvent: string;
+  pinned?: Pathway;
+  distance?: number;
+}
 
 const label = { oxidation: 'ground-state oxidation potential', reduction: 'ground-state reduction potential' } as const;
 
 /** Names each number a pathway lacks, for which compound, and which pathways it blocks. */
-function missingInputs(emitter: Compound, quencher: Compound, has: Record<string, boolean>, reference: string): MissingInput[] {
+function missingInputs(
+  emitter: Compound,
+  quencher: Compound,
+  has: Record<string, boolean>,
+  reference: string,
+): MissingInput[] {
   const missing: MissingInput[] = [];
-  const add = (compound: Compound, quantity: MissingInput['quantity'], neededFor: MissingInput['neededFor'], what: string) =>
-    missing.push({ compoundId: compound.id, compoundName: compound.name, quantity, neededFor, message: `${compound.name} has no ${what}` });
-  if (!has.emitterOxidation) add(emitter, 'oxidation', ['oxidative'], `${label.oxidation} E(PC+/PC) usable against ${reference}; oxidative quenching needs it`);
-  if (!has.emitterReduction) add(emitter, 'reduction', ['reductive'], `${label.reduction} E(PC/PC-) usable against ${reference}; reductive quenching needs it`);
-  if (!has.e00) add(emitter, 'e00', ['oxidative', 'reductive'], 'E00 (excited-state energy); both electron-transfer pathways need it');
-  if (!has.quencherReduction) add(quencher, 'reduction', ['oxidative'], `${label.reduction} E(Q/Q-) usable against ${reference}; oxidative quenching needs it`);
-  if (!has.quencherOxidation) add(quencher, 'oxidation', ['reductive'], `${label.oxidation} E(Q+/Q) usable against ${reference}; reductive quenching needs it`);
-  if (!has.emitterTriplet) add(emitter, 'tripletEnergy', ['energy-transfer'], 'triplet energy; the energy-transfer check needs it');
-  if (!has.quencherTriplet) add(quencher, 'tripletEnergy', ['energy-transfer'], 'triplet energy; the energy-transfer check needs it');
+  const add = (
+    compound: Compound,
+    quantity: MissingInput['quantity'],
+    neededFor: MissingInput['neededFor'],
+    what: string,
+  ) =>
+    missing.push({
+      compoundId: compound.id,
+      compoundName: compound.name,
+      quantity,
+      neededFor,
+      message: `${compound.name} has no ${what}`,
+    });
+  if (!has.emitterOxidation)
+    add(
+      emitter,
+      'oxidation',
+      ['oxidative'],
+      `${label.oxidation} E(PC+/PC) usable against ${reference}; oxidative quenching needs it`,
+    );
+  if (!has.emitterReduction)
+    add(
+      emitter,
+      'reduction',
+      ['reductive'],
+      `${label.reduction} E(PC/PC-) usable against ${reference}; reductive quenching needs it`,
+    );
+  if (!has.e00)
+    add(
+      emitter,
+      'e00',
+      ['oxidative', 'reductive'],
+      'E00 (excited-state energy); both electron-transfer pathways need it',
+    );
+  if (!has.quencherReduction)
+    add(
+      quencher,
+      'reduction',
+      ['oxidative'],
+      `${label.reduction} E(Q/Q-) usable against ${reference}; oxidative quenching needs it`,
+    );
+  if (!has.quencherOxidation)
+    add(
+      quencher,
+      'oxidation',
+      ['reductive'],
+      `${label.oxidation} E(Q+/Q) usable against ${reference}; reductive quenching needs it`,
+    );
+  if (!has.emitterTriplet)
+    add(emitter, 'tripletEnergy', ['energy-transfer'], 'triplet energy; the energy-transfer check needs it');
+  if (!has.quencherTriplet)
+    add(quencher, 'tripletEnergy', ['energy-transfer'], 'triplet energy; the energy-transfer check needs it');
   return missing;
 }
 
@@ -51,36 +109,68 @@ export async function drivingForce(lab: LabContext, query: Query): Promise<Drivi
   const solvent = getSolvent(query.solvent);
   const distance = query.distance ?? DEFAULT_ENCOUNTER_DISTANCE;
 
-  const catalyst = { oxidation: used.emitterOxidation?.value, reduction: used.emitterReduction?.value, charge: emitter.charge };
-  const partner = { oxidation: used.quencherOxidation?.value, reduction: used.quencherReduction?.value, charge: quencher.charge };
-  const computable = e00 && ((catalyst.oxidation !== undefined && partner.reduction !== undefined) ||
-    (partner.oxidation !== undefined && catalyst.reduction !== undefined));
-  const plain = computable ? quenchingDrivingForces({ catalyst: { ...catalyst, e00: e00.value }, quencher: partner, pinned: query.pinned }) : null;
+  const catalyst = {
+    oxidation: used.emitterOxidation?.value,
+    reduction: used.emitterReduction?.value,
+    charge: emitter.charge,
+  };
+  const partner = {
+    oxidation: used.quencherOxidation?.value,
+    reduction: used.quencherReduction?.value,
+    charge: quencher.charge,
+  };
+  const computable =
+    e00 &&
+    ((catalyst.oxidation !== undefined && partner.reduction !== undefined) ||
+      (partner.oxidation !== undefined && catalyst.reduction !== undefined));
+  const plain = computable
+    ? quenchingDrivingForces({ catalyst: { ...catalyst, e00: e00.value }, quencher: partner, pinned: query.pinned })
+    : null;
   const withWork = computable
-    ? quenchingDrivingForces({ catalyst: { ...catalyst, e00: e00.value }, quencher: partner, coulomb: { permittivity: solvent.permittivity, distance } })
+    ? quenchingDrivingForces({
+        catalyst: { ...catalyst, e00: e00.value },
+        quencher: partner,
+        coulomb: { permittivity: solvent.permittivity, distance },
+      })
     : null;
   const pathway = (key: Pathway, donor?: number, acceptor?: number) => {
     const force = plain?.[key];
     const work = withWork?.[key];
     if (!force || !work || donor === undefined || acceptor === undefined || !e00) return null;
     return {
-      electronvolts: force.electronvolts, kilojoulesPerMole: force.kilojoulesPerMole, donorOxidation: donor,
-      acceptorReduction: acceptor, e00: e00.value, workTerm: work.workTerm, withWorkTerm: work.electronvolts,
+      electronvolts: force.electronvolts,
+      kilojoulesPerMole: force.kilojoulesPerMole,
+      donorOxidation: donor,
+      acceptorReduction: acceptor,
+      e00: e00.value,
+      workTerm: work.workTerm,
+      withWorkTerm: work.electronvolts,
     };
   };
 
-  const energyTransfer = emitter.tripletEnergy && quencher.tripletEnergy
-    ? energyTransferFeasibility({ catalystTripletEnergy: emitter.tripletEnergy, quencherTripletEnergy: quencher.tripletEnergy })
-    : null;
+  const energyTransfer =
+    emitter.tripletEnergy && quencher.tripletEnergy
+      ? energyTransferFeasibility({
+          catalystTripletEnergy: emitter.tripletEnergy,
+          quencherTripletEnergy: quencher.tripletEnergy,
+        })
+      : null;
   const warnings = new Set(Object.values(used).flatMap((value) => value?.warnings ?? []));
   for (const value of Object.values(used)) {
     if (value && value.original.solvent !== solvent.id) {
-      warnings.add(`A potential measured in ${value.original.solvent} is used for a study in ${solvent.name}; no solvent correction is applied.`);
+      warnings.add(
+        `A potential measured in ${value.original.solvent} is used for a study in ${solvent.name}; no solvent correction is applied.`,
+      );
     }
   }
-  const strip = (value: (typeof used)[keyof typeof used]) => (value ? (({ warnings: _, ...rest }) => rest)(value) : null);
+  const strip = (value: (typeof used)[keyof typeof used]) =>
+    value ? (({ warnings: _, ...rest }) => rest)(value) : null;
   const partnerOut = (compound: Compound, ox: keyof typeof used, red: keyof typeof used) => ({
-    id: compound.id, name: compound.name, charge: compound.charge, oxidation: strip(used[ox]), reduction: strip(used[red]),
+    id: compound.id,
+    name: compound.name,
+    charge: compound.charge,
+    oxidation: strip(used[ox]),
+    reduction: strip(used[red]),
     tripletEnergy: compound.tripletEnergy ?? null,
   });
   return {
@@ -95,13 +185,26 @@ export async function drivingForce(lab: LabContext, query: Query): Promise<Drivi
     pinned: query.pinned ?? null,
     coulomb: { permittivity: solvent.permittivity, distance, source: solvent.permittivitySource },
     energyTransfer: energyTransfer
-      ? { possible: energyTransfer.possible, energyDifference: energyTransfer.energyDifference, kilojoulesPerMole: energyTransfer.energyDifferenceKilojoulesPerMole }
+      ? {
+          possible: energyTransfer.possible,
+          energyDifference: energyTransfer.energyDifference,
+          kilojoulesPerMole: energyTransfer.energyDifferenceKilojoulesPerMole,
+        }
       : null,
-    missing: missingInputs(emitter, quencher, {
-      emitterOxidation: !!used.emitterOxidation, emitterReduction: !!used.emitterReduction, e00: !!e00,
-      quencherOxidation: !!used.quencherOxidation, quencherReduction: !!used.quencherReduction,
-      emitterTriplet: !!emitter.tripletEnergy, quencherTriplet: !!quencher.tripletEnergy,
-    }, reference),
+    missing: missingInputs(
+      emitter,
+      quencher,
+      {
+        emitterOxidation: !!used.emitterOxidation,
+        emitterReduction: !!used.emitterReduction,
+        e00: !!e00,
+        quencherOxidation: !!used.quencherOxidation,
+        quencherReduction: !!used.quencherReduction,
+        emitterTriplet: !!emitter.tripletEnergy,
+        quencherTriplet: !!quencher.tripletEnergy,
+      },
+      reference,
+    ),
     warnings: [...warnings],
   };
 }
@@ -121,6 +224,12 @@ export interface StudyPair {
  */
 export async function drivingForceOfStudy(lab: LabContext, study: StudyPair): Promise<DrivingForceResult | null> {
   if (!study.solventId || !(study.solventId in SOLVENTS)) return null;
-  const pinned = study.pinnedMechanism === 'oxidative' || study.pinnedMechanism === 'reductive' ? study.pinnedMechanism : undefined;
-  return drivingForce(lab, { emitterId: study.emitterId, quencherId: study.quencherId, solvent: study.solventId, pinned });
+  const pinned =
+    study.pinnedMechanism === 'oxidative' || study.pinnedMechanism === 'reductive' ? study.pinnedMechanism : undefined;
+  return drivingForce(lab, {
+    emitterId: study.emitterId,
+    quencherId: study.quencherId,
+    solvent: study.solventId,
+    pinned,
+  });
 }

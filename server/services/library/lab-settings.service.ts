@@ -10,14 +10,25 @@ import { changedFields, labDisplaySettings } from './library-access.service';
 export const getLabSettings = (lab: LabContext): Promise<LabSettings> => labDisplaySettings(lab.id);
 
 /** Admins change the reference the lab reads potentials in; stored values stay as entered. */
-export async function updateLabSettings(sequelize: Sequelize, lab: LabContext, actor: Actor, changes: LabSettingsUpdate): Promise<LabSettings> {
+export async function updateLabSettings(
+  sequelize: Sequelize,
+  lab: LabContext,
+  actor: Actor,
+  changes: LabSettingsUpdate,
+): Promise<LabSettings> {
   return sequelize.transaction(async (transaction) => {
     const row = await Lab.findByPk(lab.id, { transaction, lock: transaction.LOCK.UPDATE });
     const before = { displayReference: row!.displayReference, displaySolvent: row!.displaySolvent };
     await row!.update(changes, { transaction });
     await recordAudit(
       actor,
-      { action: 'lab_settings_changed', labId: lab.id, targetType: 'lab', targetId: lab.id, details: changedFields(before, changes) },
+      {
+        action: 'lab_settings_changed',
+        labId: lab.id,
+        targetType: 'lab',
+        targetId: lab.id,
+        details: changedFields(before, changes),
+      },
       transaction,
     );
     return { displayReference: row!.displayReference, displaySolvent: row!.displaySolvent };

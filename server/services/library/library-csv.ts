@@ -4,22 +4,48 @@ import { restoreCell } from '../../lib/csv-cells';
 /** Which CSV column carries which schema field, per record kind (problems are reported by column). */
 export const fieldColumns = {
   compound: {
-    name: 'compound', roleHint: 'role_hint', smiles: 'smiles', formula: 'formula', emissiveState: 'emissive_state',
-    tripletEnergy: 'triplet_energy_ev', tripletEnergySource: 'source', charge: 'charge', notes: 'notes',
+    name: 'compound',
+    roleHint: 'role_hint',
+    smiles: 'smiles',
+    formula: 'formula',
+    emissiveState: 'emissive_state',
+    tripletEnergy: 'triplet_energy_ev',
+    tripletEnergySource: 'source',
+    charge: 'charge',
+    notes: 'notes',
   },
   potential: {
-    couple: 'couple', value: 'potential_v', reference: 'reference', solvent: 'solvent', electrolyte: 'electrolyte',
-    kind: 'kind', source: 'source', notes: 'notes',
+    couple: 'couple',
+    value: 'potential_v',
+    reference: 'reference',
+    solvent: 'solvent',
+    electrolyte: 'electrolyte',
+    kind: 'kind',
+    source: 'source',
+    notes: 'notes',
   },
   lifetime: {
-    value: 'lifetime_s', uncertainty: 'uncertainty_s', solvent: 'solvent', atmosphere: 'atmosphere',
-    temperature: 'temperature_k', method: 'method', source: 'source', notes: 'notes',
+    value: 'lifetime_s',
+    uncertainty: 'uncertainty_s',
+    solvent: 'solvent',
+    atmosphere: 'atmosphere',
+    temperature: 'temperature_k',
+    method: 'method',
+    source: 'source',
+    notes: 'notes',
   },
   e00: { value: 'e00_ev', wavelength: 'wavelength_nm', method: 'method', source: 'source', notes: 'notes' },
 } as const satisfies Record<string, Record<string, LibraryCsvColumn>>;
 
 export const numericColumns = new Set<LibraryCsvColumn>([
-  'triplet_energy_ev', 'charge', 'potential_v', 'lifetime_s', 'uncertainty_s', 'temperature_k', 'e00_ev', 'wavelength_nm',
+  'triplet_energy_ev',
+  'charge',
+  'potential_v',
+  'lifetime_s',
+  'uncertainty_s',
+  'temperature_k',
+  'e00_ev',
+  'wavelength_nm',
 ]);
 
 /**

@@ -10,7 +10,12 @@ import { measurementsOf } from './measurement-store.service';
 
 type Row = Partial<Record<LibraryCsvColumn, string | number | null>>;
 
-function rowFrom(record: string, compound: string, map: Record<string, LibraryCsvColumn>, values: Record<string, unknown>): Row {
+function rowFrom(
+  record: string,
+  compound: string,
+  map: Record<string, LibraryCsvColumn>,
+  values: Record<string, unknown>,
+): Row {
   const row: Row = { record, compound };
   for (const [field, column] of Object.entries(map)) {
     if (column === 'compound') continue;
@@ -29,11 +34,15 @@ export async function exportLibraryCsv(lab: LabContext): Promise<string> {
   const energies = await measurementsOf<ExcitedStateEnergy>('energy', lab.id, ids);
   const rows: Row[] = [];
   for (const compound of compounds) {
-    const plain = (row: { get(options: { plain: true }): object }) => row.get({ plain: true }) as Record<string, unknown>;
+    const plain = (row: { get(options: { plain: true }): object }) =>
+      row.get({ plain: true }) as Record<string, unknown>;
     rows.push(rowFrom('compound', compound.name, fieldColumns.compound, plain(compound)));
-    const mine = <T extends { compoundId: string }>(list: T[]) => list.filter((item) => item.compoundId === compound.id);
-    for (const potential of mine(potentials)) rows.push(rowFrom('potential', compound.name, fieldColumns.potential, plain(potential)));
-    for (const lifetime of mine(lifetimes)) rows.push(rowFrom('lifetime', compound.name, fieldColumns.lifetime, plain(lifetime)));
+    const mine = <T extends { compoundId: string }>(list: T[]) =>
+      list.filter((item) => item.compoundId === compound.id);
+    for (const potential of mine(potentials))
+      rows.push(rowFrom('potential', compound.name, fieldColumns.potential, plain(potential)));
+    for (const lifetime of mine(lifetimes))
+      rows.push(rowFrom('lifetime', compound.name, fieldColumns.lifetime, plain(lifetime)));
     for (const energy of mine(energies)) {
       // E00 travels in eV only: an import row with both eV and nm is refused as ambiguous.
       const values = { ...plain(energy), wavelength: null };

@@ -15,12 +15,28 @@ import type { Actor } from '../audit.service';
 import { cellValue, csvDelimiter, fieldColumns } from './library-csv';
 
 type Kind = (typeof libraryRecordKinds)[number];
-const schemas = { compound: compoundInputSchema, potential: potentialInputSchema, lifetime: lifetimeInputSchema, e00: energyInputSchema };
-interface Planned { kind: Kind; compound: string; values: Record<string, unknown> }
+const schemas = {
+  compound: compoundInputSchema,
+  potential: potentialInputSchema,
+  lifetime: lifetimeInputSchema,
+  e00: energyInputSchema,
+};
+interface Planned {
+  kind: Kind;
+  compound: string;
+  values: Record<string, unknown>;
+}
 
 function readRows(csv: string, delimiter: ',' | ';', problems: ImportProblem[]) {
   try {
-    return parse(csv, { delimiter, columns: true, skip_empty_lines: true, relax_column_count: true, bom: true, info: true }) as Array<{
+    return parse(csv, {
+      delimiter,
+      columns: true,
+      skip_empty_lines: true,
+      relax_column_count: true,
+      bom: true,
+      info: true,
+    }) as Array<{
       record: Record<string, string>;
       info: { lines: number };
     }>;
@@ -38,10 +54,15 @@ function planImport(csv: string, existing: Map<string, string>) {
   const rows = readRows(csv, delimiter, problems);
   const header = Object.keys(rows[0]?.record ?? {});
   for (const column of header) {
-    if (!(libraryCsvColumns as readonly string[]).includes(column)) problems.push({ row: 1, column, reason: 'is not a column of the library file' });
+    if (!(libraryCsvColumns as readonly string[]).includes(column))
+      problems.push({ row: 1, column, reason: 'is not a column of the library file' });
   }
   if (rows.length && (!header.includes('record') || !header.includes('compound'))) {
-    problems.push({ row: 1, column: 'record', reason: 'the header needs at least the columns "record" and "compound"' });
+    problems.push({
+      row: 1,
+      column: 'record',
+      reason: 'the header needs at least the columns "record" and "compound"',
+    });
   }
   const inFile = new Set<string>();
   const planned: Planned[] = [];
@@ -54,7 +75,9 @@ function planImport(csv: string, existing: Map<string, string>) {
       continue;
     }
     const map = fieldColumns[kind] as Record<string, LibraryCsvColumn>;
-    const input = Object.fromEntries(Object.entries(map).map(([field, column]) => [field, cellValue(column, record[column], delimiter === ';')]));
+    const input = Object.fromEntries(
+      Object.entries(map).map(([field, column]) => [field, cellValue(column, record[column], delimiter === ';')]),
+    );
     const parsed = (schemas[kind] as z.ZodType).safeParse(input);
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
@@ -64,16 +87,26 @@ function planImport(csv: string, existing: Map<string, string>) {
     }
     const key = compound.toLowerCase();
     if (kind === 'compound') {
-      if (existing.has(key) || inFile.has(key)) problems.push({ row, column: 'compound', reason: `"${compound}" is already in the library or earlier in the file` });
+      if (existing.has(key) || inFile.has(key))
+        problems.push({
+          row,
+          column: 'compound',
+          reason: `"${compound}" is already in the library or earlier in the file`,
+        });
       inFile.add(key);
     } else if (!compound) {
       problems.push({ row, column: 'compound', reason: 'must name the compound this record belongs to' });
     } else if (!existing.has(key) && !inFile.has(key)) {
-      problems.push({ row, column: 'compound', reason: `"${compound}" is neither in the library nor in an earlier row` });
+      problems.push({
+        row,
+        column: 'compound',
+        reason: `"${compound}" is neither in the library nor in an earlier row`,
+      });
     }
     planned.push({ kind, compound: key, values: parsed.data as Record<string, unknown> });
   }
-  if (rows.length === 0 && problems.length === 0) problems.push({ row: 1, column: '', reason: 'The file has no records under its header.' });
+  if (rows.length === 0 && problems.length === 0)
+    problems.push({ row: 1, column: '', reason: 'The file has no records under its header.' });
   return { problems, planned };
 }
 
@@ -88,7 +121,13 @@ const countsOf = (planned: Planned[]) => ({
  * Imports a library CSV all or nothing: every row is checked first; with any problem nothing
  * is saved and each problem is reported by row and column; otherwise all rows go in one transaction.
  */
-export async function importLibraryCsv(sequelize: Sequelize, lab: LabContext, actor: Actor, csv: string, dryRun: boolean): Promise<ImportReport> {
+export async function importLibraryCsv(
+  sequelize: Sequelize,
+  lab: LabContext,
+  actor: Actor,
+  csv: string,
+  dryRun: boolean,
+): Promise<ImportReport> {
   const compounds = await Compound.findAll({ where: { labId: lab.id }, attributes: ['id', 'name'] });
   const ids = new Map(compounds.map((compound) => [compound.name.toLowerCase(), compound.id]));
   const { problems, planned } = planImport(csv, ids);
@@ -117,12 +156,28 @@ export async function importLibraryCsv(sequelize: Sequelize, lab: LabContext, ac
       } else {
         const wavelength = item.values.wavelength as number | undefined;
         const value = wavelength === undefined ? item.values.value : e00FromWavelength(wavelength);
-        created = await ExcitedStateEnergy.create({ ...item.values, value, ...owner, compoundId } as never, { transaction });
+        created = await ExcitedStateEnergy.create({ ...item.values, value, ...owner, compoundId } as never, {
+          transaction,
+        });
       }
       const kind = item.kind === 'e00' ? 'energy' : item.kind;
-      await recordAudit(actor, { action: `${kind}_added`, labId: lab.id, targetType: kind, targetId: created.id, details: { import: true, ...item.values } }, transaction);
+      await recordAudit(
+        actor,
+        {
+          action: `${kind}_added`,
+          labId: lab.id,
+          targetType: kind,
+          targetId: created.id,
+          details: { import: true, ...item.values },
+        },
+        transaction,
+      );
     }
-    await recordAudit(actor, { action: 'library_imported', labId: lab.id, targetType: 'lab', targetId: lab.id, details: counts }, transaction);
+    await recordAudit(
+      actor,
+      { action: 'library_imported', labId: lab.id, targetType: 'lab', targetId: lab.id, details: counts },
+      transaction,
+    );
   });
   return { saved: true, counts, problems: [] };
 }

@@ -7,8 +7,16 @@ import type { LabContext } from '../../middleware/access';
 import { ExcitedStateLifetime } from '../../models';
 
 interface StudyRow {
-  id: string; title: string; status: string; tau0: number | null; tau0_uncertainty: number | null;
-  fit_model: string; version: number; owner_id: string | null; owner_name: string | null; updated_at: Date;
+  id: string;
+  title: string;
+  status: string;
+  tau0: number | null;
+  tau0_uncertainty: number | null;
+  fit_model: string;
+  version: number;
+  owner_id: string | null;
+  owner_name: string | null;
+  updated_at: Date;
 }
 
 /**
@@ -17,7 +25,12 @@ interface StudyRow {
  * studies table, which the studies feature owns; the version, model and owner let the screen
  * refit through the studies API.
  */
-export async function lifetimeDependents(sequelize: Sequelize, lab: LabContext, compoundId: string, lifetimeId: string): Promise<LifetimeDependents> {
+export async function lifetimeDependents(
+  sequelize: Sequelize,
+  lab: LabContext,
+  compoundId: string,
+  lifetimeId: string,
+): Promise<LifetimeDependents> {
   const lifetime = await ExcitedStateLifetime.findOne({ where: { id: lifetimeId, compoundId, labId: lab.id } });
   if (!lifetime) throw new AppError('not_found', 'No lifetime with this id on this compound.', 404);
   const rows = await sequelize.query<StudyRow>(

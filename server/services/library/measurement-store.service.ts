@@ -18,11 +18,16 @@ interface MeasurementRow extends Model {
   createdBy?: User;
 }
 
-const stores = { potential: RedoxPotential, lifetime: ExcitedStateLifetime, energy: ExcitedStateEnergy } as unknown as Record<
-  MeasurementKind,
-  ModelStatic<MeasurementRow>
->;
-const words: Record<MeasurementKind, string> = { potential: 'redox potential', lifetime: 'lifetime', energy: 'E00 value' };
+const stores = {
+  potential: RedoxPotential,
+  lifetime: ExcitedStateLifetime,
+  energy: ExcitedStateEnergy,
+} as unknown as Record<MeasurementKind, ModelStatic<MeasurementRow>>;
+const words: Record<MeasurementKind, string> = {
+  potential: 'redox potential',
+  lifetime: 'lifetime',
+  energy: 'E00 value',
+};
 const withAuthor = [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }];
 
 export async function addMeasurement<T extends MeasurementRow>(
@@ -41,7 +46,13 @@ export async function addMeasurement<T extends MeasurementRow>(
     );
     await recordAudit(
       actor,
-      { action: `${kind}_added`, labId: lab.id, targetType: kind, targetId: row.id, details: { compound: compound.name, ...values } },
+      {
+        action: `${kind}_added`,
+        labId: lab.id,
+        targetType: kind,
+        targetId: row.id,
+        details: { compound: compound.name, ...values },
+      },
       transaction,
     );
     return row.id;
@@ -49,9 +60,19 @@ export async function addMeasurement<T extends MeasurementRow>(
   return (await stores[kind].findByPk(id, { include: withAuthor })) as T;
 }
 
-async function loadForChange(sequelize: Sequelize, lab: LabContext, kind: MeasurementKind, compoundId: string, id: string) {
+async function loadForChange(
+  sequelize: Sequelize,
+  lab: LabContext,
+  kind: MeasurementKind,
+  compoundId: string,
+  id: string,
+) {
   const transaction = await sequelize.transaction();
-  const row = await stores[kind].findOne({ where: { id, compoundId, labId: lab.id }, transaction, lock: transaction.LOCK.UPDATE });
+  const row = await stores[kind].findOne({
+    where: { id, compoundId, labId: lab.id },
+    transaction,
+    lock: transaction.LOCK.UPDATE,
+  });
   if (!row) {
     await transaction.rollback();
     throw new AppError('not_found', `No ${words[kind]} with this id on this compound.`, 404);
@@ -74,7 +95,11 @@ export async function updateMeasurement<T extends MeasurementRow>(
     assertVersion(row, version, words[kind]);
     const diff = changedFields(row.get({ plain: true }) as Record<string, unknown>, fields);
     await row.update(fields, { transaction });
-    await recordAudit(actor, { action: `${kind}_changed`, labId: lab.id, targetType: kind, targetId: row.id, details: diff }, transaction);
+    await recordAudit(
+      actor,
+      { action: `${kind}_changed`, labId: lab.id, targetType: kind, targetId: row.id, details: diff },
+      transaction,
+    );
     await transaction.commit();
   } catch (error) {
     await transaction.rollback();
@@ -96,7 +121,11 @@ export async function deleteMeasurement(
     assertVersion(row, version, words[kind]);
     const before = row.get({ plain: true }) as Record<string, unknown>;
     await row.destroy({ transaction });
-    await recordAudit(actor, { action: `${kind}_deleted`, labId: lab.id, targetType: kind, targetId: row.id, details: before }, transaction);
+    await recordAudit(
+      actor,
+      { action: `${kind}_deleted`, labId: lab.id, targetType: kind, targetId: row.id, details: before },
+      transaction,
+    );
     await transaction.commit();
   } catch (error) {
     await transaction.rollback();

@@ -14,8 +14,13 @@ const round = (value: number, digits: number) => Number(value.toPrecision(digits
 /** The plan as CSV for the bench: one row per addition, in units a chemist pipettes with. */
 export function titrationPlanCsv(input: PlanInput, plan: TitrationPlanResult): string {
   const header = [
-    'step', 'target [Q] (mM)', 'add stock (uL)', 'stock added so far (uL)', 'total volume (uL)',
-    '[Q] reached (mM)', 'emitter after dilution (uM)',
+    'step',
+    'target [Q] (mM)',
+    'add stock (uL)',
+    'stock added so far (uL)',
+    'total volume (uL)',
+    '[Q] reached (mM)',
+    'emitter after dilution (uM)',
   ];
   const rows = plan.steps.map((step, index) => [
     String(index + 1),

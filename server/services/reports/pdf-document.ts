@@ -16,7 +16,12 @@ export type Pdf = InstanceType<typeof PDFDocument>;
  * and a footer naming Halflight and the engine version on every page.
  */
 export function createReport(title: string, subtitle: string): Pdf {
-  const doc = new PDFDocument({ size: 'A4', margin: 50, bufferPages: true, info: { Title: title, Creator: `Halflight ${appVersion}` } });
+  const doc = new PDFDocument({
+    size: 'A4',
+    margin: 50,
+    bufferPages: true,
+    info: { Title: title, Creator: `Halflight ${appVersion}` },
+  });
   doc.registerFont('Lato', path.join(fontDir, 'lato-latin-400-normal.woff'));
   doc.registerFont('Lato-Bold', path.join(fontDir, 'lato-latin-700-normal.woff'));
   doc.registerFont('Lato-Black', path.join(fontDir, 'lato-latin-900-normal.woff'));
@@ -47,7 +52,10 @@ export function table(doc: Pdf, header: string[], rows: string[][], widths: numb
     const top = doc.y;
     let x = left;
     let bottom = top;
-    doc.font(bold ? 'Lato-Bold' : 'Lato').fontSize(8.5).fillColor(ink);
+    doc
+      .font(bold ? 'Lato-Bold' : 'Lato')
+      .fontSize(8.5)
+      .fillColor(ink);
     cells.forEach((cell, index) => {
       doc.text(cell, x, top, { width: widths[index]! - 4 });
       bottom = Math.max(bottom, doc.y);
@@ -74,10 +82,16 @@ export function finish(doc: Pdf): Promise<Buffer> {
     doc.switchToPage(index);
     const bottom = doc.page.height - 35;
     doc.page.margins.bottom = 0;
-    doc.font('Lato').fontSize(8).fillColor(muted).text(
-      `Halflight ${appVersion} · engine ${ENGINE_VERSION} · generated ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC · page ${index + 1} of ${range.count}`,
-      50, bottom, { width: doc.page.width - 100, align: 'center', lineBreak: false },
-    );
+    doc
+      .font('Lato')
+      .fontSize(8)
+      .fillColor(muted)
+      .text(
+        `Halflight ${appVersion} · engine ${ENGINE_VERSION} · generated ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC · page ${index + 1} of ${range.count}`,
+        50,
+        bottom,
+        { width: doc.page.width - 100, align: 'center', lineBreak: false },
+      );
   }
   doc.end();
   return done;

@@ -15,10 +15,23 @@ function conditions(doc: Pdf, study: StudyDetail) {
     ['Quencher', study.quencher.name],
     ['Solvent', study.solventLabel],
     ['Temperature', `${fixed(study.temperature, 5)} K`],
-    ['Excitation / emission', `${study.excitationWavelength ?? '—'} nm / ${study.emissionWavelength ?? (study.windowStart ? `${study.windowStart}–${study.windowEnd} nm window` : '—')}${study.emissionWavelength ? ' nm' : ''}`],
+    [
+      'Excitation / emission',
+      `${study.excitationWavelength ?? '—'} nm / ${study.emissionWavelength ?? (study.windowStart ? `${study.windowStart}–${study.windowEnd} nm window` : '—')}${study.emissionWavelength ? ' nm' : ''}`,
+    ],
     ['Atmosphere, degassing', `${study.atmosphere}, ${study.degassingMethod}`],
-    ['tau0', study.tau0 ? `${fixed(study.tau0 * 1e9, 4)} ns${study.tau0Uncertainty ? ` ± ${fixed(study.tau0Uncertainty * 1e9, 2)} ns` : ''}${study.tau0LifetimeId ? ' (from a lifetime record)' : ''}` : 'not given'],
-    ['Corrections', [study.dilutionCorrection && 'dilution', study.innerFilterCorrection && 'inner filter'].filter(Boolean).join(', ') || 'none'],
+    [
+      'tau0',
+      study.tau0
+        ? `${fixed(study.tau0 * 1e9, 4)} ns${study.tau0Uncertainty ? ` ± ${fixed(study.tau0Uncertainty * 1e9, 2)} ns` : ''}${study.tau0LifetimeId ? ' (from a lifetime record)' : ''}`
+        : 'not given',
+    ],
+    [
+      'Corrections',
+      [study.dilutionCorrection && 'dilution', study.innerFilterCorrection && 'inner filter']
+        .filter(Boolean)
+        .join(', ') || 'none',
+    ],
   ]);
 }
 
@@ -32,15 +45,24 @@ function results(doc: Pdf, study: StudyDetail) {
   const p = fit.result.parameters;
   const estimate = (name: string, unit: string, digits = 4) => {
     const value = p[name];
-    return value ? `${sci(value.value, digits)} ± ${sci(value.standardError, 2)} ${unit} (95 %: ${sci(value.interval95.lower, digits)} to ${sci(value.interval95.upper, digits)})` : '—';
+    return value
+      ? `${sci(value.value, digits)} ± ${sci(value.standardError, 2)} ${unit} (95 %: ${sci(value.interval95.lower, digits)} to ${sci(value.interval95.upper, digits)})`
+      : '—';
   };
   facts(doc, [
     ['Model', fit.model],
     ['K_SV', estimate('kSv', 'M^-1')],
-    ...(p.intercept ? [['Intercept', `${fixed(p.intercept.value, 5)} ± ${fixed(p.intercept.standardError, 2)}`] as [string, string]] : []),
+    ...(p.intercept
+      ? [['Intercept', `${fixed(p.intercept.value, 5)} ± ${fixed(p.intercept.standardError, 2)}`] as [string, string]]
+      : []),
     ['kq', estimate('kq', 'M^-1 s^-1')],
     ['R^2, n', `${fixed(fit.result.statistics.rSquared, 6)}, ${fit.result.statistics.n} points`],
-    ['Diffusion limit', fit.result.diffusionLimit ? `${sci(fit.result.diffusionLimit.value)} M^-1 s^-1 (${fit.result.diffusionLimit.basis}); kq/k_diff = ${fixed(fit.result.diffusionLimit.ratio, 3)}` : '—'],
+    [
+      'Diffusion limit',
+      fit.result.diffusionLimit
+        ? `${sci(fit.result.diffusionLimit.value)} M^-1 s^-1 (${fit.result.diffusionLimit.basis}); kq/k_diff = ${fixed(fit.result.diffusionLimit.ratio, 3)}`
+        : '—',
+    ],
     ['Curvature', fit.result.statistics.curvature ?? '—'],
     ['Fitted', `${date(fit.createdAt)} UTC by ${fit.createdBy ?? 'Halflight'}, engine ${fit.engineVersion}`],
   ]);
@@ -48,13 +70,19 @@ function results(doc: Pdf, study: StudyDetail) {
   if (fit.result.lifetime) {
     heading(doc, 'Lifetimes');
     const { kSv, rSquared, verdict } = fit.result.lifetime;
-    doc.text(`K_SV from lifetimes: ${sci(kSv.value, 4)} ± ${sci(kSv.standardError, 2)} M^-1, R^2 ${fixed(rSquared, 5)}${verdict ? `. ${verdict}` : ''}`);
+    doc.text(
+      `K_SV from lifetimes: ${sci(kSv.value, 4)} ± ${sci(kSv.standardError, 2)} M^-1, R^2 ${fixed(rSquared, 5)}${verdict ? `. ${verdict}` : ''}`,
+    );
     drawLifetime(doc, fit.result.lifetime);
   }
   heading(doc, 'Flags');
   if (fit.result.flags.length === 0) doc.text('None.');
   for (const flag of fit.result.flags) {
-    doc.font('Lato-Bold').text(`${flag.title}${flag.detail ? ` (${flag.detail})` : ''}`).font('Lato').text(flag.explanation);
+    doc
+      .font('Lato-Bold')
+      .text(`${flag.title}${flag.detail ? ` (${flag.detail})` : ''}`)
+      .font('Lato')
+      .text(flag.explanation);
     doc.text(`Check: ${flag.whatToCheck.join('; ')}.`).moveDown(0.3);
   }
 }
@@ -63,11 +91,25 @@ function points(doc: Pdf, study: StudyDetail) {
   heading(doc, 'Points');
   table(
     doc,
-    ['#', '[Q] (mM)', study.dataKind === 'ratio' ? 'I0/I' : 'Intensity', 'tau (ns)', 'A ex', 'A em', 'Used', 'Reason left out'],
+    [
+      '#',
+      '[Q] (mM)',
+      study.dataKind === 'ratio' ? 'I0/I' : 'Intensity',
+      'tau (ns)',
+      'A ex',
+      'A em',
+      'Used',
+      'Reason left out',
+    ],
     study.points.map((point) => [
-      String(point.position + 1), fixed(point.concentration * 1e3, 5), fixed(point.intensity, 5),
-      point.lifetime ? fixed(point.lifetime * 1e9, 4) : '—', fixed(point.absorbanceExcitation), fixed(point.absorbanceEmission),
-      point.excluded ? 'no' : 'yes', point.exclusionReason ?? '',
+      String(point.position + 1),
+      fixed(point.concentration * 1e3, 5),
+      fixed(point.intensity, 5),
+      point.lifetime ? fixed(point.lifetime * 1e9, 4) : '—',
+      fixed(point.absorbanceExcitation),
+      fixed(point.absorbanceEmission),
+      point.excluded ? 'no' : 'yes',
+      point.exclusionReason ?? '',
     ]),
     [25, 60, 70, 55, 45, 45, 35, 160],
   );
@@ -75,21 +117,33 @@ function points(doc: Pdf, study: StudyDetail) {
 
 async function drivingForceSection(doc: Pdf, lab: LabContext, study: StudyDetail) {
   heading(doc, 'Driving force (Rehm–Weller estimate)');
-  const result = await drivingForceOfStudy(lab, { ...study, emitterId: study.emitter.id, quencherId: study.quencher.id });
+  const result = await drivingForceOfStudy(lab, {
+    ...study,
+    emitterId: study.emitter.id,
+    quencherId: study.quencher.id,
+  });
   if (!result) {
     doc.text('Not computed: the study uses a custom solvent without a permittivity in the solvent table.');
     return;
   }
   const line = (name: 'oxidative' | 'reductive') => {
     const value = result[name];
-    return value ? `${fixed(value.electronvolts, 3)} eV (${fixed(value.kilojoulesPerMole, 4)} kJ/mol); Coulomb term ${fixed(value.workTerm, 2)} eV` : 'missing inputs';
+    return value
+      ? `${fixed(value.electronvolts, 3)} eV (${fixed(value.kilojoulesPerMole, 4)} kJ/mol); Coulomb term ${fixed(value.workTerm, 2)} eV`
+      : 'missing inputs';
   };
   facts(doc, [
     ['Potentials against', result.reference],
     ['Oxidative quenching', line('oxidative')],
     ['Reductive quenching', line('reductive')],
-    ['Highlighted', result.highlighted ? `${result.highlighted}${result.pinned ? ' (pinned)' : ' (more favourable)'}` : '—'],
-    ['Energy transfer', result.energyTransfer ? (result.energyTransfer.possible ? 'possible' : 'uphill') : 'triplet energies missing'],
+    [
+      'Highlighted',
+      result.highlighted ? `${result.highlighted}${result.pinned ? ' (pinned)' : ' (more favourable)'}` : '—',
+    ],
+    [
+      'Energy transfer',
+      result.energyTransfer ? (result.energyTransfer.possible ? 'possible' : 'uphill') : 'triplet energies missing',
+    ],
   ]);
   result.missing.forEach((item) => doc.fontSize(8.5).text(`Missing: ${item.message}.`));
   doc.fontSize(10);
@@ -102,18 +156,29 @@ function review(doc: Pdf, study: StudyDetail) {
     ['Status', `${study.status}, revision ${study.revision}`],
     ['Approved', approval ? `by ${approval.author ?? 'unknown'} on ${date(approval.createdAt)} UTC` : 'not approved'],
   ]);
-  study.reviews.forEach((entry) => doc.fontSize(8.5).text(`${date(entry.createdAt)} · ${entry.author ?? '—'} · ${entry.action}${entry.comment ? `: ${entry.comment}` : ''}`));
+  study.reviews.forEach((entry) =>
+    doc
+      .fontSize(8.5)
+      .text(
+        `${date(entry.createdAt)} · ${entry.author ?? '—'} · ${entry.action}${entry.comment ? `: ${entry.comment}` : ''}`,
+      ),
+  );
   doc.fontSize(10);
   heading(doc, 'Raw files');
   if (study.uploads.length === 0) doc.text('No files uploaded; points were entered by hand.');
-  study.uploads.forEach((upload) => doc.fontSize(8.5).text(`${upload.fileName} (${upload.size} bytes, ${upload.parseStatus}) SHA-256 ${upload.sha256}`));
+  study.uploads.forEach((upload) =>
+    doc.fontSize(8.5).text(`${upload.fileName} (${upload.size} bytes, ${upload.parseStatus}) SHA-256 ${upload.sha256}`),
+  );
   doc.fontSize(10);
 }
 
 /** The PDF report of one study: identification, conditions, points, plots, fit, flags, driving force, review, files. */
 export async function studyReport(lab: LabContext, studyId: string): Promise<{ pdf: Buffer; filename: string }> {
   const study = await getStudyDetail(lab, studyId);
-  const doc = createReport(study.title, `${lab.name} · owner ${study.ownerName} · created ${date(study.createdAt)} UTC · last changed ${date(study.updatedAt)} UTC`);
+  const doc = createReport(
+    study.title,
+    `${lab.name} · owner ${study.ownerName} · created ${date(study.createdAt)} UTC · last changed ${date(study.updatedAt)} UTC`,
+  );
   conditions(doc, study);
   results(doc, study);
   points(doc, study);
@@ -123,5 +188,8 @@ export async function studyReport(lab: LabContext, studyId: string): Promise<{ p
     heading(doc, 'Notes');
     doc.text(study.notes);
   }
-  return { pdf: await finish(doc), filename: `study-${study.title.replace(/[^\w.-]+/g, '_').slice(0, 60)}-r${study.revision}.pdf` };
+  return {
+    pdf: await finish(doc),
+    filename: `study-${study.title.replace(/[^\w.-]+/g, '_').slice(0, 60)}-r${study.revision}.pdf`,
+  };
 }

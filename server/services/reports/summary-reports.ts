@@ -8,7 +8,10 @@ const safeName = (text: string) => text.replace(/[^\w.-]+/g, '_').slice(0, 60);
 /** A lab summary of one reaction scenario: components, kq sources and the shares intercepted. */
 export async function scenarioReport(lab: LabContext, scenarioId: string) {
   const scenario = await getScenario(lab, scenarioId);
-  const doc = createReport(`Who quenches: ${scenario.name}`, `${lab.name} · reaction scenario · last changed ${scenario.updatedAt.slice(0, 16).replace('T', ' ')} UTC`);
+  const doc = createReport(
+    `Who quenches: ${scenario.name}`,
+    `${lab.name} · reaction scenario · last changed ${scenario.updatedAt.slice(0, 16).replace('T', ' ')} UTC`,
+  );
   facts(doc, [
     ['Emitter', scenario.emitter.name],
     ['Solvent', scenario.solvent],
@@ -20,9 +23,16 @@ export async function scenarioReport(lab: LabContext, scenarioId: string) {
     ['Component', 'In reaction (mM)', 'kq (M^-1 s^-1)', 'kq from', 'Share'],
     [
       ...scenario.shares.map((share) => [
-        share.label, fixed(share.concentration * 1e3, 4),
-        share.kq === null ? 'none' : `${sci(share.kq)}${share.kqStandardError ? ` ± ${sci(share.kqStandardError, 2)}` : ''}`,
-        share.kqSource?.kind === 'study' ? `${share.kqSource.title} (${share.kqSource.status}${share.kqSource.solvent !== scenario.solvent ? `, in ${share.kqSource.solvent}` : ''})` : share.kqSource?.kind === 'manual' ? `by hand: ${share.kqSource.note || 'no source given'}` : 'no study yet',
+        share.label,
+        fixed(share.concentration * 1e3, 4),
+        share.kq === null
+          ? 'none'
+          : `${sci(share.kq)}${share.kqStandardError ? ` ± ${sci(share.kqStandardError, 2)}` : ''}`,
+        share.kqSource?.kind === 'study'
+          ? `${share.kqSource.title} (${share.kqSource.status}${share.kqSource.solvent !== scenario.solvent ? `, in ${share.kqSource.solvent}` : ''})`
+          : share.kqSource?.kind === 'manual'
+            ? `by hand: ${share.kqSource.note || 'no source given'}`
+            : 'no study yet',
         share.fraction === null ? '—' : `${(share.fraction * 100).toFixed(1)} %`,
       ]),
       ['decays unquenched', '', '', '', `${(scenario.unquenched * 100).toFixed(1)} %`],
@@ -35,18 +45,36 @@ export async function scenarioReport(lab: LabContext, scenarioId: string) {
 }
 
 /** A lab summary of a comparison: the table and the Rehm–Weller trend per solvent. */
-export async function comparisonReport(lab: LabContext, side: 'emitter' | 'quencher', compoundId: string, approvedOnly: boolean) {
+export async function comparisonReport(
+  lab: LabContext,
+  side: 'emitter' | 'quencher',
+  compoundId: string,
+  approvedOnly: boolean,
+) {
   const comparison = await compare(lab, side, compoundId, { approvedOnly, sort: 'kq' });
-  const doc = createReport(`Comparison: ${comparison.compound.name}`, `${lab.name} · every ${side === 'emitter' ? 'quencher studied against this emitter' : 'emitter studied with this quencher'}`);
+  const doc = createReport(
+    `Comparison: ${comparison.compound.name}`,
+    `${lab.name} · every ${side === 'emitter' ? 'quencher studied against this emitter' : 'emitter studied with this quencher'}`,
+  );
   table(
     doc,
-    [side === 'emitter' ? 'Quencher' : 'Emitter', 'kq (M^-1 s^-1)', 'K_SV (M^-1)', 'Solvent', 'dG_ET (eV)', 'Status', 'Flags'],
+    [
+      side === 'emitter' ? 'Quencher' : 'Emitter',
+      'kq (M^-1 s^-1)',
+      'K_SV (M^-1)',
+      'Solvent',
+      'dG_ET (eV)',
+      'Status',
+      'Flags',
+    ],
     comparison.rows.map((row) => [
       row.partner.name,
       row.kq ? `${sci(row.kq.value)}${row.kq.standardError ? ` ± ${sci(row.kq.standardError, 2)}` : ''}` : '—',
-      row.kSv ? fixed(row.kSv.value, 4) : '—', row.solvent,
+      row.kSv ? fixed(row.kSv.value, 4) : '—',
+      row.solvent,
       row.drivingForce ? `${fixed(row.drivingForce.electronvolts, 3)} (${row.drivingForce.pathway})` : 'missing',
-      row.status, row.flags.map((flag) => flag.title).join('; '),
+      row.status,
+      row.flags.map((flag) => flag.title).join('; '),
     ]),
     [80, 85, 55, 60, 70, 50, 95],
   );
@@ -58,6 +86,13 @@ export async function comparisonReport(lab: LabContext, side: 'emitter' | 'quenc
         : `${trend.solvent}: no fit (${trend.note}).`,
     );
   }
-  doc.moveDown(0.5).fontSize(8.5).text(approvedOnly ? 'Trend fitted to approved results only.' : 'Trend fitted to approved and unapproved results; the status column tells them apart.');
+  doc
+    .moveDown(0.5)
+    .fontSize(8.5)
+    .text(
+      approvedOnly
+        ? 'Trend fitted to approved results only.'
+        : 'Trend fitted to approved and unapproved results; the status column tells them apart.',
+    );
   return { pdf: await finish(doc), filename: `comparison-${safeName(comparison.compound.name)}.pdf` };
 }

@@ -26,7 +26,11 @@ export async function evaluateScenario(scenario: ReactionScenario, createdBy: st
       kq = chosen.kq;
       kqError = await kqStandardError(chosen.studyId);
       kqSource = {
-        kind: 'study', studyId: chosen.studyId, title: chosen.title, status: chosen.status, solvent: chosen.solvent,
+        kind: 'study',
+        studyId: chosen.studyId,
+        title: chosen.title,
+        status: chosen.status,
+        solvent: chosen.solvent,
         chosen: component.studyId ? 'by-you' : 'best-available',
       };
     } else if (component.manualKq) {
@@ -34,9 +38,17 @@ export async function evaluateScenario(scenario: ReactionScenario, createdBy: st
       kqSource = { kind: 'manual', note: component.manualKqSource ?? '' };
     }
     shares.push({
-      componentId: component.id, kind: component.kind, compoundId: component.compoundId, label,
-      concentration: component.concentration, kq, kqStandardError: kqError, kqSource, candidates,
-      pseudoFirstOrderRate: null, fraction: null,
+      componentId: component.id,
+      kind: component.kind,
+      compoundId: component.compoundId,
+      label,
+      concentration: component.concentration,
+      kq,
+      kqStandardError: kqError,
+      kqSource,
+      candidates,
+      pseudoFirstOrderRate: null,
+      fraction: null,
     });
   }
   const known = shares.filter((share) => share.kq !== null);

@@ -17,7 +17,12 @@ const statusRank: Record<string, number> = { approved: 0, submitted: 1, draft: 2
  * reaction's solvent first (kq depends on the solvent), then approved before unapproved, then
  * the most recently updated.
  */
-export async function kqCandidates(labId: string, emitterId: string, quencherId: string, solvent: string): Promise<KqCandidate[]> {
+export async function kqCandidates(
+  labId: string,
+  emitterId: string,
+  quencherId: string,
+  solvent: string,
+): Promise<KqCandidate[]> {
   const studies = await Study.findAll({
     where: { labId, emitterId, quencherId, isCurrent: true, kq: { [Op.ne]: null } },
     order: [['updatedAt', 'DESC']],

@@ -48,7 +48,12 @@ async function checkReferences(labId: string, input: ScenarioInput, transaction:
     }
   }
   if (issues.length) {
-    throw new AppError('validation_failed', `The scenario has problems: ${issues.map((i) => `${i.path} ${i.message}`).join('; ')}.`, 400, issues);
+    throw new AppError(
+      'validation_failed',
+      `The scenario has problems: ${issues.map((i) => `${i.path} ${i.message}`).join('; ')}.`,
+      400,
+      issues,
+    );
   }
 }
 
@@ -81,7 +86,10 @@ export async function getScenario(lab: LabContext, scenarioId: string): Promise<
 export async function listScenarios(lab: LabContext, page: number, pageSize: number): Promise<ScenarioList> {
   const { rows, count } = await ReactionScenario.findAndCountAll({
     where: { labId: lab.id },
-    include: [{ model: Compound, as: 'emitter' }, { model: ScenarioComponent, as: 'components', attributes: ['id'] }],
+    include: [
+      { model: Compound, as: 'emitter' },
+      { model: ScenarioComponent, as: 'components', attributes: ['id'] },
+    ],
     order: [['updatedAt', 'DESC']],
     limit: pageSize,
     offset: (page - 1) * pageSize,
@@ -109,7 +117,11 @@ export async function createScenario(sequelize: Sequelize, lab: LabContext, acto
       { transaction },
     );
     await writeComponents(scenario.id, input, transaction);
-    await recordAudit(actor, { action: 'scenario_created', labId: lab.id, targetType: 'scenario', targetId: scenario.id }, transaction);
+    await recordAudit(
+      actor,
+      { action: 'scenario_created', labId: lab.id, targetType: 'scenario', targetId: scenario.id },
+      transaction,
+    );
     return scenario.id;
   });
   return getScenario(lab, id);
@@ -118,16 +130,30 @@ export async function createScenario(sequelize: Sequelize, lab: LabContext, acto
 /** Researchers change their own scenarios; reviewers and admins any. */
 function assertMayChange(lab: LabContext, actor: Actor, scenario: ReactionScenario) {
   if (scenario.createdById !== actor.userId && !roleAtLeast(lab.role, 'reviewer')) {
-    throw new AppError('forbidden', 'Only the person who made this scenario, a reviewer or an admin can change it.', 403);
+    throw new AppError(
+      'forbidden',
+      'Only the person who made this scenario, a reviewer or an admin can change it.',
+      403,
+    );
   }
 }
 
-export async function updateScenario(sequelize: Sequelize, lab: LabContext, actor: Actor, scenarioId: string, input: ScenarioInput) {
+export async function updateScenario(
+  sequelize: Sequelize,
+  lab: LabContext,
+  actor: Actor,
+  scenarioId: string,
+  input: ScenarioInput,
+) {
   await sequelize.transaction(async (transaction) => {
     const scenario = await loadScenario(lab.id, scenarioId, transaction);
     assertMayChange(lab, actor, scenario);
     if (input.version !== undefined && input.version !== scenario.version) {
-      throw new AppError('stale_version', 'Someone changed this scenario after you opened it. Reload it and make your change again.', 409);
+      throw new AppError(
+        'stale_version',
+        'Someone changed this scenario after you opened it. Reload it and make your change again.',
+        409,
+      );
     }
     await checkReferences(lab.id, input, transaction);
     const { name, emitterId, solvent, tau0, tau0Source, notes } = input;
@@ -135,7 +161,11 @@ export async function updateScenario(sequelize: Sequelize, lab: LabContext, acto
     scenario.changed('updatedAt', true);
     await scenario.save({ transaction });
     await writeComponents(scenario.id, input, transaction);
-    await recordAudit(actor, { action: 'scenario_updated', labId: lab.id, targetType: 'scenario', targetId: scenario.id }, transaction);
+    await recordAudit(
+      actor,
+      { action: 'scenario_updated', labId: lab.id, targetType: 'scenario', targetId: scenario.id },
+      transaction,
+    );
   });
   return getScenario(lab, scenarioId);
 }
@@ -145,6 +175,16 @@ export async function deleteScenario(sequelize: Sequelize, lab: LabContext, acto
     const scenario = await loadScenario(lab.id, scenarioId, transaction);
     assertMayChange(lab, actor, scenario);
     await scenario.destroy({ transaction });
-    await recordAudit(actor, { action: 'scenario_deleted', labId: lab.id, targetType: 'scenario', targetId: scenarioId, details: { name: scenario.name } }, transaction);
+    await recordAudit(
+      actor,
+      {
+        action: 'scenario_deleted',
+        labId: lab.id,
+        targetType: 'scenario',
+        targetId: scenarioId,
+        details: { name: scenario.name },
+      },
+      transaction,
+    );
   });
 }

@@ -42,12 +42,21 @@ export function requireOwner(study: Study, lab: LabContext, userId: string): voi
 /** A study under review or approved does not change; approved ones change through a new revision. */
 export function requireEditable(study: Study): void {
   if (study.status === 'approved') {
-    throw new AppError('study_locked', 'This study is approved and locked. Start a new revision to change it; the approved one is kept.', 409);
+    throw new AppError(
+      'study_locked',
+      'This study is approved and locked. Start a new revision to change it; the approved one is kept.',
+      409,
+    );
   }
   if (study.status === 'submitted') {
-    throw new AppError('under_review', 'This study is waiting for review and cannot change until a reviewer returns it.', 409);
+    throw new AppError(
+      'under_review',
+      'This study is waiting for review and cannot change until a reviewer returns it.',
+      409,
+    );
   }
-  if (!study.isCurrent) throw new AppError('superseded', 'A newer revision of this study exists; change that one.', 409);
+  if (!study.isCurrent)
+    throw new AppError('superseded', 'A newer revision of this study exists; change that one.', 409);
 }
 
 /** Optimistic locking: the caller must have edited the version the database holds. */

@@ -6,7 +6,16 @@ import { StudyFit, StudyPoint, type Study } from '../../models';
 import { recordAudit, type Actor } from '../audit.service';
 import { computeStudyFit, type ComputedFit } from './fit/compute-study-fit';
 
-type SeriesFields = 'position' | 'concentration' | 'intensity' | 'lifetime' | 'absorbanceExcitation' | 'absorbanceEmission' | 'volumeAdded' | 'uncertainty' | 'excluded';
+type SeriesFields =
+  | 'position'
+  | 'concentration'
+  | 'intensity'
+  | 'lifetime'
+  | 'absorbanceExcitation'
+  | 'absorbanceEmission'
+  | 'volumeAdded'
+  | 'uncertainty'
+  | 'excluded';
 
 export const seriesOf = (points: ReadonlyArray<Pick<StudyPoint, SeriesFields>>) =>
   points.map((point) => ({
@@ -28,7 +37,9 @@ export async function computeForStudy(study: Study, model: FitModel, transaction
     return computeStudyFit(study, seriesOf(points), model);
   } catch (error) {
     if (error instanceof EngineError) {
-      throw new AppError('fit_failed', `The series cannot be fitted: ${error.message}`, 422, [{ path: error.field, message: error.message }]);
+      throw new AppError('fit_failed', `The series cannot be fitted: ${error.message}`, 422, [
+        { path: error.field, message: error.message },
+      ]);
     }
     throw error;
   }
@@ -50,7 +61,10 @@ export async function refitStudy(
     computed = await computeForStudy(study, model, transaction);
   } catch (error) {
     if (options.trigger === 'manual' || !(error instanceof AppError)) throw error;
-    await study.update({ kSv: null, kq: null, flagged: false, fitProblem: error.message, latestFitId: null }, { transaction });
+    await study.update(
+      { kSv: null, kq: null, flagged: false, fitProblem: error.message, latestFitId: null },
+      { transaction },
+    );
     return null;
   }
   const fit = await StudyFit.create(
@@ -85,7 +99,15 @@ export async function refitStudy(
       labId: study.labId,
       targetType: 'study',
       targetId: study.id,
-      details: { fitId: fit.id, model, trigger: options.trigger, kSv: computed.kSv, kq: computed.kq, flags: computed.result.flags.map((flag) => flag.code), engineVersion: ENGINE_VERSION },
+      details: {
+        fitId: fit.id,
+        model,
+        trigger: options.trigger,
+        kSv: computed.kSv,
+        kq: computed.kq,
+        flags: computed.result.flags.map((flag) => flag.code),
+        engineVersion: ENGINE_VERSION,
+      },
     },
     transaction,
   );

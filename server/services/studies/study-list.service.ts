@@ -22,17 +22,27 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
   if (query.flagged === 'true') where.flagged = true;
   if (query.q) {
     const sequelize = Study.sequelize!;
-    where[Op.and] = sequelize.where(
-      sequelize.literal("(\"Study\".\"title\" || ' ' || \"Study\".\"notes\")"),
-      { [Op.iLike]: `%${escapeLike(query.q)}%` },
-    );
+    where[Op.and] = sequelize.where(sequelize.literal('("Study"."title" || \' \' || "Study"."notes")'), {
+      [Op.iLike]: `%${escapeLike(query.q)}%`,
+    });
   }
   const direction = query.direction === 'asc' ? 'ASC' : 'DESC';
   const nulls = direction === 'ASC' ? 'ASC NULLS LAST' : 'DESC NULLS LAST';
   const order: Order =
-    query.sort === 'kq' ? [['kq', nulls], ['id', 'ASC']]
-      : query.sort === 'k_sv' ? [['kSv', nulls], ['id', 'ASC']]
-        : [['updatedAt', direction], ['id', 'ASC']];
+    query.sort === 'kq'
+      ? [
+          ['kq', nulls],
+          ['id', 'ASC'],
+        ]
+      : query.sort === 'k_sv'
+        ? [
+            ['kSv', nulls],
+            ['id', 'ASC'],
+          ]
+        : [
+            ['updatedAt', direction],
+            ['id', 'ASC'],
+          ];
   const { rows, count } = await Study.findAndCountAll({
     where,
     include: [

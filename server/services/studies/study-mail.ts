@@ -13,7 +13,8 @@ const SUBJECTS = {
 
 const LEADS = {
   submit: (actor: string) => `${actor} has submitted a quenching study for review.`,
-  approve: (actor: string) => `${actor} has approved your quenching study. It is now locked; a change starts a new revision.`,
+  approve: (actor: string) =>
+    `${actor} has approved your quenching study. It is now locked; a change starts a new revision.`,
   return: (actor: string) => `${actor} has returned your quenching study with comments.`,
 } as const;
 
@@ -38,12 +39,19 @@ export async function notifyReview(
     });
     recipients = memberships.flatMap((membership) => (membership.user ? [membership.user] : []));
   } else {
-    const owner = study.ownerId && study.ownerId !== actorId ? await User.findByPk(study.ownerId, { attributes: ['email', 'name'] }) : null;
+    const owner =
+      study.ownerId && study.ownerId !== actorId
+        ? await User.findByPk(study.ownerId, { attributes: ['email', 'name'] })
+        : null;
     recipients = owner ? [owner] : [];
   }
   const link = `${context.publicUrl}/labs/${study.labId}/studies/${study.id}`;
   const lead = LEADS[action](actor?.name ?? 'A lab member');
-  const paragraphs = [lead, `Study: ${study.title} (revision ${study.revision}).`, ...(comment ? [`Comment: ${comment}`] : [])];
+  const paragraphs = [
+    lead,
+    `Study: ${study.title} (revision ${study.revision}).`,
+    ...(comment ? [`Comment: ${comment}`] : []),
+  ];
   for (const recipient of recipients) {
     await context.mailer.send({
       to: recipient.email,

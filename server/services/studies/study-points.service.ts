@@ -33,17 +33,31 @@ export async function writeSeries(
   const before = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
   await StudyPoint.destroy({ where: { studyId: study.id }, transaction });
   await StudyPoint.bulkCreate(
-    points.map((point, position) => ({ ...plain(point), exclusionReason: point.excluded ? point.exclusionReason : null, studyId: study.id, position, uploadId: point.uploadId ?? null })),
+    points.map((point, position) => ({
+      ...plain(point),
+      exclusionReason: point.excluded ? point.exclusionReason : null,
+      studyId: study.id,
+      position,
+      uploadId: point.uploadId ?? null,
+    })),
     { transaction },
   );
   await study.update({ version: study.version + 1 }, { transaction });
-  await recordAudit(actor, {
-    action: reason.action,
-    labId: study.labId,
-    targetType: 'study',
-    targetId: study.id,
-    details: { before: before.map(plain), after: points.map(plain), ...(reason.uploadId ? { uploadId: reason.uploadId } : {}) },
-  }, transaction);
+  await recordAudit(
+    actor,
+    {
+      action: reason.action,
+      labId: study.labId,
+      targetType: 'study',
+      targetId: study.id,
+      details: {
+        before: before.map(plain),
+        after: points.map(plain),
+        ...(reason.uploadId ? { uploadId: reason.uploadId } : {}),
+      },
+    },
+    transaction,
+  );
   await refitStudy(study, { trigger: 'auto', actor, transaction });
 }
 

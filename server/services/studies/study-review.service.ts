@@ -11,24 +11,44 @@ import { notifyReview } from './study-mail';
 import { getStudyDetail } from './study.service';
 
 type Step = 'submit' | 'approve' | 'return';
-const allowedFrom: Record<Step, string[]> = { submit: ['draft', 'returned'], approve: ['submitted'], return: ['submitted'] };
+const allowedFrom: Record<Step, string[]> = {
+  submit: ['draft', 'returned'],
+  approve: ['submitted'],
+  return: ['submitted'],
+};
 const nextStatus = { submit: 'submitted', approve: 'approved', return: 'returned' } as const;
 
-interface ReviewContext { actor: Actor & { userId: string }; mailer: Mailer; publicUrl: string }
+interface ReviewContext {
+  actor: Actor & { userId: string };
+  mailer: Mailer;
+  publicUrl: string;
+}
 
 /** Owner submits; a reviewer (or admin) approves or returns with a comment. Each step mails the other side. */
-export async function reviewStep(sequelize: Sequelize, lab: LabContext, studyId: string, step: Step, comment: string, context: ReviewContext) {
+export async function reviewStep(
+  sequelize: Sequelize,
+  lab: LabContext,
+  studyId: string,
+  step: Step,
+  comment: string,
+  context: ReviewContext,
+) {
   const study = await sequelize.transaction(async (transaction) => {
     const found = await loadStudy(lab, studyId, transaction);
     if (step === 'submit') requireOwner(found, lab, context.actor.userId);
-    else if (!roleAtLeast(lab.role, 'reviewer')) throw new AppError('forbidden', 'Only reviewers and admins approve or return studies.', 403);
+    else if (!roleAtLeast(lab.role, 'reviewer'))
+      throw new AppError('forbidden', 'Only reviewers and admins approve or return studies.', 403);
     // A second pair of eyes (common practice in sign-off): nobody approves their own study.
     if (step === 'approve' && found.ownerId === context.actor.userId) {
       throw new AppError('own_study', 'You own this study, so another reviewer or admin has to approve it.', 403);
     }
     if (!found.isCurrent) throw new AppError('superseded', 'A newer revision of this study exists.', 409);
     if (!allowedFrom[step].includes(found.status)) {
-      throw new AppError('wrong_status', `A ${found.status} study cannot be ${step === 'submit' ? 'submitted' : step === 'approve' ? 'approved' : 'returned'}.`, 409);
+      throw new AppError(
+        'wrong_status',
+        `A ${found.status} study cannot be ${step === 'submit' ? 'submitted' : step === 'approve' ? 'approved' : 'returned'}.`,
+        409,
+      );
     }
     if (step === 'submit' && !found.latestFitId) {
       throw new AppError('no_fit', 'The study has no fit yet; add points that can be fitted before submitting.', 409);
@@ -36,7 +56,17 @@ export async function reviewStep(sequelize: Sequelize, lab: LabContext, studyId:
     const before = found.status;
     await found.update({ status: nextStatus[step], version: found.version + 1 }, { transaction });
     await StudyReview.create({ studyId, authorId: context.actor.userId, action: step, comment }, { transaction });
-    await recordAudit(context.actor, { action: `study_${nextStatus[step]}`, labId: lab.id, targetType: 'study', targetId: studyId, details: { before: { status: before }, after: { status: found.status }, comment } }, transaction);
+    await recordAudit(
+      context.actor,
+      {
+        action: `study_${nextStatus[step]}`,
+        labId: lab.id,
+        targetType: 'study',
+        targetId: studyId,
+        details: { before: { status: before }, after: { status: found.status }, comment },
+      },
+      transaction,
+    );
     return found;
   });
   await notifyReview(context, study, step, context.actor.userId, comment);
@@ -47,7 +77,13 @@ export async function reviewStep(sequelize: Sequelize, lab: LabContext, studyId:
 export async function addComment(lab: LabContext, studyId: string, comment: string, actor: Actor & { userId: string }) {
   const study = await loadStudy(lab, studyId);
   await StudyReview.create({ studyId: study.id, authorId: actor.userId, action: 'comment', comment });
-  await recordAudit(actor, { action: 'study_commented', labId: lab.id, targetType: 'study', targetId: study.id, details: { comment } });
+  await recordAudit(actor, {
+    action: 'study_commented',
+    labId: lab.id,
+    targetType: 'study',
+    targetId: study.id,
+    details: { comment },
+  });
   return getStudyDetail(lab, studyId);
 }
 
@@ -55,14 +91,39 @@ export async function addComment(lab: LabContext, studyId: string, comment: stri
  * Changing an approved study: a new draft revision with the same settings and points, owned by
  * the person who starts it; the approved revision stays as it was, marked as superseded.
  */
-export async function startRevision(sequelize: Sequelize, lab: LabContext, studyId: string, actor: Actor & { userId: string }) {
+export async function startRevision(
+  sequelize: Sequelize,
+  lab: LabContext,
+  studyId: string,
+  actor: Actor & { userId: string },
+) {
   const newId = await sequelize.transaction(async (transaction) => {
     const old = await loadStudy(lab, studyId, transaction);
-    if (old.status !== 'approved') throw new AppError('not_approved', 'Only an approved study needs a new revision; edit this one directly.', 409);
+    if (old.status !== 'approved')
+      throw new AppError('not_approved', 'Only an approved study needs a new revision; edit this one directly.', 409);
     if (!old.isCurrent) throw new AppError('superseded', 'A newer revision of this study exists already.', 409);
-    if (old.ownerId !== actor.userId && !roleAtLeast(lab.role, 'reviewer')) throw new AppError('not_owner', 'Only the owner or a reviewer can start a new revision.', 403);
-    const { id: _id, status: _s, revision, version: _v, createdAt: _c, updatedAt: _u, latestFitId: _l, ...copy } = old.get({ plain: true });
-    const fresh = await Study.create({ ...copy, ownerId: old.ownerId ?? actor.userId, revision: revision + 1, previousRevisionId: old.id, isCurrent: true }, { transaction });
+    if (old.ownerId !== actor.userId && !roleAtLeast(lab.role, 'reviewer'))
+      throw new AppError('not_owner', 'Only the owner or a reviewer can start a new revision.', 403);
+    const {
+      id: _id,
+      status: _s,
+      revision,
+      version: _v,
+      createdAt: _c,
+      updatedAt: _u,
+      latestFitId: _l,
+      ...copy
+    } = old.get({ plain: true });
+    const fresh = await Study.create(
+      {
+        ...copy,
+        ownerId: old.ownerId ?? actor.userId,
+        revision: revision + 1,
+        previousRevisionId: old.id,
+        isCurrent: true,
+      },
+      { transaction },
+    );
     await old.update({ isCurrent: false }, { transaction, silent: true });
     const points = await StudyPoint.findAll({ where: { studyId: old.id }, order: [['position', 'ASC']], transaction });
     await StudyPoint.bulkCreate(
@@ -72,7 +133,17 @@ export async function startRevision(sequelize: Sequelize, lab: LabContext, study
       }),
       { transaction },
     );
-    await recordAudit(actor, { action: 'study_revision_started', labId: lab.id, targetType: 'study', targetId: fresh.id, details: { previousRevisionId: old.id, revision: fresh.revision } }, transaction);
+    await recordAudit(
+      actor,
+      {
+        action: 'study_revision_started',
+        labId: lab.id,
+        targetType: 'study',
+        targetId: fresh.id,
+        details: { previousRevisionId: old.id, revision: fresh.revision },
+      },
+      transaction,
+    );
     await refitStudy(fresh, { trigger: 'auto', actor, transaction });
     return fresh.id;
   });

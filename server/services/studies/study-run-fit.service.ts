@@ -9,7 +9,13 @@ import { refitStudy } from './study-fitting.service';
 import { toFit } from './study-serialize';
 
 /** A fit on demand with a chosen model; it becomes the study's model, so the version moves on. */
-export async function runFit(sequelize: Sequelize, lab: LabContext, studyId: string, model: FitModel, actor: Actor & { userId: string }): Promise<StudyFitRecord> {
+export async function runFit(
+  sequelize: Sequelize,
+  lab: LabContext,
+  studyId: string,
+  model: FitModel,
+  actor: Actor & { userId: string },
+): Promise<StudyFitRecord> {
   const fitId = await sequelize.transaction(async (transaction) => {
     const study = await loadStudy(lab, studyId, transaction);
     requireOwner(study, lab, actor.userId);

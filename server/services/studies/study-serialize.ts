@@ -7,7 +7,9 @@ import type { Study, StudyFit, StudyPoint, StudyReview, StudyUpload } from '../.
 import { correctPoint } from './fit/series-corrections';
 
 export const solventLabel = (study: Pick<Study, 'solventId' | 'customSolventName'>) =>
-  study.solventId ? (SOLVENTS[study.solventId as SolventId]?.name ?? study.solventId) : (study.customSolventName ?? 'custom solvent');
+  study.solventId
+    ? (SOLVENTS[study.solventId as SolventId]?.name ?? study.solventId)
+    : (study.customSolventName ?? 'custom solvent');
 
 export const settingsOf = (study: Study): StudySettings => ({
   title: study.title,

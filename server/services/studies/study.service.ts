@@ -12,27 +12,78 @@ import { refitStudy } from './study-fitting.service';
 import { settingsOf, solventLabel, toFit, toPoint, toReview, toUpload } from './study-serialize';
 
 const settingsIssuesError = (issues: { path: string; message: string }[]) =>
-  new AppError('validation_failed', `The study has problems: ${issues.map((issue) => `${issue.path}: ${issue.message}`).join('; ')}`, 400,
-    issues.map((issue) => ({ path: `body.${issue.path}`, message: issue.message })));
+  new AppError(
+    'validation_failed',
+    `The study has problems: ${issues.map((issue) => `${issue.path}: ${issue.message}`).join('; ')}`,
+    400,
+    issues.map((issue) => ({ path: `body.${issue.path}`, message: issue.message })),
+  );
 
-export async function createStudy(sequelize: Sequelize, lab: LabContext, input: CreateStudyInput, actor: Actor & { userId: string }) {
+export async function createStudy(
+  sequelize: Sequelize,
+  lab: LabContext,
+  input: CreateStudyInput,
+  actor: Actor & { userId: string },
+) {
   const studyId = await sequelize.transaction(async (transaction) => {
-    const emitter = await resolveCompound(lab, { id: input.emitterId, newName: input.newEmitterName }, 'photocatalyst', 'emitterId', actor, transaction);
-    const quencher = await resolveCompound(lab, { id: input.quencherId, newName: input.newQuencherName }, 'quencher', 'quencherId', actor, transaction);
+    const emitter = await resolveCompound(
+      lab,
+      { id: input.emitterId, newName: input.newEmitterName },
+      'photocatalyst',
+      'emitterId',
+      actor,
+      transaction,
+    );
+    const quencher = await resolveCompound(
+      lab,
+      { id: input.quencherId, newName: input.newQuencherName },
+      'quencher',
+      'quencherId',
+      actor,
+      transaction,
+    );
     const { emitterId: _e, quencherId: _q, newEmitterName: _ne, newQuencherName: _nq, ...settings } = input;
-    const fromLifetime = settings.tau0LifetimeId && settings.tau0 === null ? await lifetimeForTau0(lab, settings.tau0LifetimeId, emitter.id, transaction) : {};
-    if (settings.tau0LifetimeId && settings.tau0 !== null) await lifetimeForTau0(lab, settings.tau0LifetimeId, emitter.id, transaction);
+    const fromLifetime =
+      settings.tau0LifetimeId && settings.tau0 === null
+        ? await lifetimeForTau0(lab, settings.tau0LifetimeId, emitter.id, transaction)
+        : {};
+    if (settings.tau0LifetimeId && settings.tau0 !== null)
+      await lifetimeForTau0(lab, settings.tau0LifetimeId, emitter.id, transaction);
     const study = await Study.create(
-      { ...settings, ...fromLifetime, labId: lab.id, emitterId: emitter.id, quencherId: quencher.id, ownerId: actor.userId, previousRevisionId: null },
+      {
+        ...settings,
+        ...fromLifetime,
+        labId: lab.id,
+        emitterId: emitter.id,
+        quencherId: quencher.id,
+        ownerId: actor.userId,
+        previousRevisionId: null,
+      },
       { transaction },
     );
-    await recordAudit(actor, { action: 'study_created', labId: lab.id, targetType: 'study', targetId: study.id, details: { after: settingsOf(study) } }, transaction);
+    await recordAudit(
+      actor,
+      {
+        action: 'study_created',
+        labId: lab.id,
+        targetType: 'study',
+        targetId: study.id,
+        details: { after: settingsOf(study) },
+      },
+      transaction,
+    );
     return study.id;
   });
   return getStudyDetail(lab, studyId);
 }
 
-export async function updateStudy(sequelize: Sequelize, lab: LabContext, studyId: string, input: UpdateStudyInput, actor: Actor & { userId: string }) {
+export async function updateStudy(
+  sequelize: Sequelize,
+  lab: LabContext,
+  studyId: string,
+  input: UpdateStudyInput,
+  actor: Actor & { userId: string },
+) {
   await sequelize.transaction(async (transaction) => {
     const study = await loadStudy(lab, studyId, transaction);
     requireChangeable(study, lab, actor.userId, input.version);
@@ -43,16 +94,51 @@ export async function updateStudy(sequelize: Sequelize, lab: LabContext, studyId
     const issues = studySettingsIssues(merged);
     if (issues.length) throw settingsIssuesError(issues);
     const compounds: { emitterId?: string; quencherId?: string } = {};
-    if (emitterId || newEmitterName) compounds.emitterId = (await resolveCompound(lab, { id: emitterId, newName: newEmitterName }, 'photocatalyst', 'emitterId', actor, transaction)).id;
-    if (quencherId || newQuencherName) compounds.quencherId = (await resolveCompound(lab, { id: quencherId, newName: newQuencherName }, 'quencher', 'quencherId', actor, transaction)).id;
+    if (emitterId || newEmitterName)
+      compounds.emitterId = (
+        await resolveCompound(
+          lab,
+          { id: emitterId, newName: newEmitterName },
+          'photocatalyst',
+          'emitterId',
+          actor,
+          transaction,
+        )
+      ).id;
+    if (quencherId || newQuencherName)
+      compounds.quencherId = (
+        await resolveCompound(
+          lab,
+          { id: quencherId, newName: newQuencherName },
+          'quencher',
+          'quencherId',
+          actor,
+          transaction,
+        )
+      ).id;
     if (defined.tau0LifetimeId && defined.tau0 === undefined) {
-      Object.assign(defined, await lifetimeForTau0(lab, defined.tau0LifetimeId as string, compounds.emitterId ?? study.emitterId, transaction));
+      Object.assign(
+        defined,
+        await lifetimeForTau0(
+          lab,
+          defined.tau0LifetimeId as string,
+          compounds.emitterId ?? study.emitterId,
+          transaction,
+        ),
+      );
     }
     await study.update({ ...defined, ...compounds, version: study.version + 1 }, { transaction });
-    await recordAudit(actor, {
-      action: 'study_updated', labId: lab.id, targetType: 'study', targetId: study.id,
-      details: { before, after: { ...settingsOf(study), emitterId: study.emitterId, quencherId: study.quencherId } },
-    }, transaction);
+    await recordAudit(
+      actor,
+      {
+        action: 'study_updated',
+        labId: lab.id,
+        targetType: 'study',
+        targetId: study.id,
+        details: { before, after: { ...settingsOf(study), emitterId: study.emitterId, quencherId: study.quencherId } },
+      },
+      transaction,
+    );
     await refitStudy(study, { trigger: 'auto', actor, transaction });
   });
   return getStudyDetail(lab, studyId);
@@ -62,9 +148,23 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
   const study = await loadStudyWithNames(lab, studyId);
   const [points, latestFit, uploads, reviews, next] = await Promise.all([
     StudyPoint.findAll({ where: { studyId }, order: [['position', 'ASC']] }),
-    study.latestFitId ? StudyFit.findOne({ where: { id: study.latestFitId }, include: [{ model: User, as: 'createdBy', attributes: ['name'] }] }) : null,
-    StudyUpload.findAll({ where: { studyId }, attributes: { exclude: ['content'] }, include: [{ model: User, as: 'uploadedBy', attributes: ['name'] }], order: [['createdAt', 'DESC']] }),
-    StudyReview.findAll({ where: { studyId }, include: [{ model: User, as: 'author', attributes: ['name'] }], order: [['createdAt', 'ASC']] }),
+    study.latestFitId
+      ? StudyFit.findOne({
+          where: { id: study.latestFitId },
+          include: [{ model: User, as: 'createdBy', attributes: ['name'] }],
+        })
+      : null,
+    StudyUpload.findAll({
+      where: { studyId },
+      attributes: { exclude: ['content'] },
+      include: [{ model: User, as: 'uploadedBy', attributes: ['name'] }],
+      order: [['createdAt', 'DESC']],
+    }),
+    StudyReview.findAll({
+      where: { studyId },
+      include: [{ model: User, as: 'author', attributes: ['name'] }],
+      order: [['createdAt', 'ASC']],
+    }),
     Study.findOne({ where: { previousRevisionId: studyId, labId: lab.id }, attributes: ['id'] }),
   ]);
   return {

@@ -1,4 +1,10 @@
-import { requireFiniteArray, requireNonNegative, requireNonNegativeArray, requirePositive, requireSameLength } from '../core/validate';
+import {
+  requireFiniteArray,
+  requireNonNegative,
+  requireNonNegativeArray,
+  requirePositive,
+  requireSameLength,
+} from '../core/validate';
 
 export interface DilutionCorrectedPoint {
   /** [Q] after mixing, mol/L */

@@ -39,7 +39,12 @@ export interface ConvertedPotential {
  * @throws EngineError UNKNOWN_REFERENCE_ELECTRODE, REFERENCE_NOT_AVAILABLE_FOR_SOLVENT, NON_FINITE_VALUE
  * @example convertPotential({ value: 1.29, from: 'SCE', to: 'Fc+/Fc', solvent: 'acetonitrile' }).value // 0.91
  */
-export function convertPotential(input: { value: number; from: string; to: string; solvent?: string }): ConvertedPotential {
+export function convertPotential(input: {
+  value: number;
+  from: string;
+  to: string;
+  solvent?: string;
+}): ConvertedPotential {
   const value = requireFinite(input.value, 'value');
   const from = knownReference(input.from, 'from');
   const to = knownReference(input.to, 'to');
@@ -58,35 +63,52 @@ export function convertPotential(input: { value: number; from: string; to: strin
   if (nonAqueousSolvent && isAqueousReference(to)) {
     warnings.push({
       code: 'PREFER_FERROCENE_REFERENCE',
-      message: 'For potentials measured in organic solvents IUPAC recommends reporting against Fc+/Fc measured in the same solution.',
+      message:
+        'For potentials measured in organic solvents IUPAC recommends reporting against Fc+/Fc measured in the same solution.',
     });
   }
   const distinct = constants.filter(
-    (constant, i) => constants.findIndex((other) => other.reference === constant.reference && other.value === constant.value) === i,
+    (constant, i) =>
+      constants.findIndex((other) => other.reference === constant.reference && other.value === constant.value) === i,
   );
   return { value: value + fromVsShe - toVsShe, from, to, constants: distinct, warnings };
 }
 
 function knownReference(reference: string, field: string): ReferenceElectrode {
   if (!(REFERENCE_ELECTRODES as readonly string[]).includes(reference)) {
-    throw new EngineError('UNKNOWN_REFERENCE_ELECTRODE', field, `"${reference}" is not a known reference electrode`, `Use one of: ${REFERENCE_ELECTRODES.join(', ')}`);
+    throw new EngineError(
+      'UNKNOWN_REFERENCE_ELECTRODE',
+      field,
+      `"${reference}" is not a known reference electrode`,
+      `Use one of: ${REFERENCE_ELECTRODES.join(', ')}`,
+    );
   }
   return reference as ReferenceElectrode;
 }
 
-function potentialVsShe(reference: ReferenceElectrode, solvent: string | undefined, used: ConvertedPotential['constants']): number {
+function potentialVsShe(
+  reference: ReferenceElectrode,
+  solvent: string | undefined,
+  used: ConvertedPotential['constants'],
+): number {
   if (isAqueousReference(reference)) {
     if (reference !== 'SHE') used.push({ reference, ...AQUEOUS_REFERENCES[reference] });
     return AQUEOUS_REFERENCES[reference].value;
   }
-  const forSolvent = solvent !== undefined && Object.hasOwn(NON_AQUEOUS_REFERENCES, solvent) ? NON_AQUEOUS_REFERENCES[solvent] : undefined;
+  const forSolvent =
+    solvent !== undefined && Object.hasOwn(NON_AQUEOUS_REFERENCES, solvent)
+      ? NON_AQUEOUS_REFERENCES[solvent]
+      : undefined;
   const constant = forSolvent?.[reference];
   if (!constant) {
     throw new EngineError(
       'REFERENCE_NOT_AVAILABLE_FOR_SOLVENT',
       'solvent',
       solvent === undefined ? `${reference} needs a solvent` : `no sourced ${reference} constant for "${solvent}"`,
-      `Sourced: ${Object.entries(NON_AQUEOUS_REFERENCES).filter(([, r]) => r[reference]).map(([s]) => s).join(', ')}`,
+      `Sourced: ${Object.entries(NON_AQUEOUS_REFERENCES)
+        .filter(([, r]) => r[reference])
+        .map(([s]) => s)
+        .join(', ')}`,
     );
   }
   used.push({ reference, value: constant.value, source: `${constant.source}; vs SCE` });

@@ -20,10 +20,18 @@ export interface ExcitedStatePotentials {
  * @throws EngineError MISSING_POTENTIAL when neither potential is given; NON_FINITE_VALUE, NON_POSITIVE_VALUE
  * @example excitedStatePotentials({ oxidation: 1.52, reduction: -1.21, e00: 2.56 }) // { excitedOxidation: -1.04, excitedReduction: 1.35 }
  */
-export function excitedStatePotentials(input: { oxidation?: number; reduction?: number; e00: number }): ExcitedStatePotentials {
+export function excitedStatePotentials(input: {
+  oxidation?: number;
+  reduction?: number;
+  e00: number;
+}): ExcitedStatePotentials {
   const e00 = requirePositive(input.e00, 'e00');
   if (input.oxidation === undefined && input.reduction === undefined) {
-    throw new EngineError('MISSING_POTENTIAL', 'oxidation', 'neither a ground-state oxidation nor a reduction potential was given');
+    throw new EngineError(
+      'MISSING_POTENTIAL',
+      'oxidation',
+      'neither a ground-state oxidation nor a reduction potential was given',
+    );
   }
   return {
     excitedOxidation: input.oxidation === undefined ? null : requireFinite(input.oxidation, 'oxidation') - e00,

@@ -5,12 +5,7 @@
  */
 
 export type ReferenceElectrode =
-  | 'SHE'
-  | 'SCE'
-  | 'Ag/AgCl (sat. KCl)'
-  | 'Ag/AgCl (3 M KCl)'
-  | 'Fc+/Fc'
-  | 'Ag/Ag+ (0.01 M AgNO3)';
+  'SHE' | 'SCE' | 'Ag/AgCl (sat. KCl)' | 'Ag/AgCl (3 M KCl)' | 'Fc+/Fc' | 'Ag/Ag+ (0.01 M AgNO3)';
 
 export type AqueousReference = 'SHE' | 'SCE' | 'Ag/AgCl (sat. KCl)' | 'Ag/AgCl (3 M KCl)';
 
@@ -26,15 +21,18 @@ export const AQUEOUS_REFERENCES: Readonly<Record<AqueousReference, SourcedConsta
   // Without liquid junction. Sawyer et al. list 0.244 V with junction; we keep one source.
   SCE: {
     value: 0.2412,
-    source: 'Bard & Faulkner, Electrochemical Methods, 2nd ed., table inside back cover (as tabulated by eDAQ and consultrsr.net)',
+    source:
+      'Bard & Faulkner, Electrochemical Methods, 2nd ed., table inside back cover (as tabulated by eDAQ and consultrsr.net)',
   },
   'Ag/AgCl (sat. KCl)': {
     value: 0.197,
-    source: 'Bard & Faulkner, Electrochemical Methods, 2nd ed. (via consultrsr.net); 0.1970 V in Int. J. Corros. 2010, Table 2',
+    source:
+      'Bard & Faulkner, Electrochemical Methods, 2nd ed. (via consultrsr.net); 0.1970 V in Int. J. Corros. 2010, Table 2',
   },
   'Ag/AgCl (3 M KCl)': {
     value: 0.21,
-    source: 'Inzelt et al., Handbook of Reference Electrodes (Springer 2013), via echemdb; same 0.210 V in consultrsr.net and PMC6192533',
+    source:
+      'Inzelt et al., Handbook of Reference Electrodes (Springer 2013), via echemdb; same 0.210 V in consultrsr.net and PMC6192533',
   },
 };
 

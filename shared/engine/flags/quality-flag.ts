@@ -68,7 +68,7 @@ const FLAG_TEXTS: Record<QualityFlagCode, FlagText> = {
   DOWNWARD_CURVATURE: {
     title: 'Plot curves downward',
     explanation:
-      'A quadratic describes the points significantly better than a line, bending toward a plateau. Part of the emission may be out of the quencher\'s reach, or the emitter is a mixture.',
+      "A quadratic describes the points significantly better than a line, bending toward a plateau. Part of the emission may be out of the quencher's reach, or the emitter is a mixture.",
     whatToCheck: [
       'fit the modified Stern–Volmer plot to estimate the accessible fraction',
       'emitter purity and possible second emitting species',
@@ -88,8 +88,12 @@ const FLAG_TEXTS: Record<QualityFlagCode, FlagText> = {
   },
   NO_I0: {
     title: 'No unquenched intensity',
-    explanation: 'Without a measurement at zero quencher concentration, or an I0 entered by hand, no ratio I0/I can be formed.',
-    whatToCheck: ['include the blank (no quencher) in the series', 'or enter I0 from a separate measurement of the same sample'],
+    explanation:
+      'Without a measurement at zero quencher concentration, or an I0 entered by hand, no ratio I0/I can be formed.',
+    whatToCheck: [
+      'include the blank (no quencher) in the series',
+      'or enter I0 from a separate measurement of the same sample',
+    ],
   },
   INNER_FILTER_LARGE: {
     title: 'Quencher absorbs noticeably',
@@ -110,7 +114,11 @@ const FLAG_TEXTS: Record<QualityFlagCode, FlagText> = {
     title: 'Lifetime plot steeper than intensity plot',
     explanation:
       'Quenching cannot shorten the lifetime more than it lowers the intensity, so this points to a problem in one of the two data sets.',
-    whatToCheck: ['I0 and tau0 reference values', 'fitting of the decays (background, instrument response)', 'that both series used the same samples'],
+    whatToCheck: [
+      'I0 and tau0 reference values',
+      'fitting of the decays (background, instrument response)',
+      'that both series used the same samples',
+    ],
   },
 };
 
@@ -122,7 +130,11 @@ const FLAG_TEXTS: Record<QualityFlagCode, FlagText> = {
  * @param severity - 'warning' unless the result cannot be used
  * @example qualityFlag('FEW_CONCENTRATIONS', '4 distinct concentrations').title // 'Few quencher concentrations'
  */
-export function qualityFlag(code: QualityFlagCode, detail?: string, severity: 'warning' | 'error' = 'warning'): QualityFlag {
+export function qualityFlag(
+  code: QualityFlagCode,
+  detail?: string,
+  severity: 'warning' | 'error' = 'warning',
+): QualityFlag {
   const text = FLAG_TEXTS[code];
   return { code, severity, ...text, whatToCheck: [...text.whatToCheck], ...(detail === undefined ? {} : { detail }) };
 }

@@ -31,7 +31,12 @@ export function diffusionRateConstant(viscosity: number, temperature: number = S
 export function solventDiffusionLimit(solvent: string): number {
   const properties = getSolvent(solvent);
   if (properties.viscosity === null) {
-    throw new EngineError('MISSING_SOLVENT_DATA', 'solvent', `no sourced 25 °C viscosity for ${properties.name}`, 'Enter the viscosity and temperature');
+    throw new EngineError(
+      'MISSING_SOLVENT_DATA',
+      'solvent',
+      `no sourced 25 °C viscosity for ${properties.name}`,
+      'Enter the viscosity and temperature',
+    );
   }
   return diffusionRateConstant(properties.viscosity, STANDARD_TEMPERATURE);
 }

@@ -53,10 +53,17 @@ export function fitRehmWeller(input: {
   requirePositiveArray(rateConstants, 'rateConstants');
   const kd = requirePositive(input.diffusionLimit, 'diffusionLimit');
   const ratio0 = requirePositive(input.kdOverKZ ?? REHM_WELLER_KD_OVER_KZ, 'kdOverKZ');
-  const kT = (BOLTZMANN_CONSTANT * requirePositive(input.temperature ?? STANDARD_TEMPERATURE, 'temperature')) / ELEMENTARY_CHARGE;
+  const kT =
+    (BOLTZMANN_CONSTANT * requirePositive(input.temperature ?? STANDARD_TEMPERATURE, 'temperature')) /
+    ELEMENTARY_CHARGE;
   const p = fitKdOverKZ ? 2 : 1;
   const n = drivingForces.length;
-  if (n <= p) throw new EngineError('TOO_FEW_POINTS', 'rateConstants', `fitting ${p} parameter(s) needs more than ${p} quenchers, got ${n}`);
+  if (n <= p)
+    throw new EngineError(
+      'TOO_FEW_POINTS',
+      'rateConstants',
+      `fitting ${p} parameter(s) needs more than ${p} quenchers, got ${n}`,
+    );
   const logKd = Math.log10(kd);
   const y = rateConstants.map((k) => Math.log10(k));
   const ratioOf = (params: number[]) => (fitKdOverKZ ? 10 ** params[1] : ratio0);
@@ -91,14 +98,22 @@ export function fitRehmWeller(input: {
   });
   const params = result.parameterValues;
   if (!params.every(Number.isFinite)) {
-    throw new EngineError('FIT_DID_NOT_CONVERGE', 'rateConstants', 'the reorganisation-energy fit did not converge', 'Check the driving forces and rate constants');
+    throw new EngineError(
+      'FIT_DID_NOT_CONVERGE',
+      'rateConstants',
+      'the reorganisation-energy fit did not converge',
+      'Check the driving forces and rate constants',
+    );
   }
   const f = model(params);
   const residuals = drivingForces.map((dG, i) => y[i] - f(dG));
   const ss = residuals.reduce((sum, r) => sum + r * r, 0);
   const df = n - p;
   const variance = ss / df;
-  const covariance = inverseNormalMatrix(drivingForces.map((dG) => jacobian(params)(dG)), p).map((row) => row.map((v) => v * variance));
+  const covariance = inverseNormalMatrix(
+    drivingForces.map((dG) => jacobian(params)(dG)),
+    p,
+  ).map((row) => row.map((v) => v * variance));
   const reorganisationEnergy = makeEstimate(params[0], Math.sqrt(covariance[0][0]), df);
   let kdOverKZ: RehmWellerFit['kdOverKZ'] = { value: ratio0, fixed: true };
   if (fitKdOverKZ) {
@@ -113,7 +128,15 @@ export function fitRehmWeller(input: {
       fixed: false,
     };
   }
-  return { reorganisationEnergy, kdOverKZ, residuals, residualStandardDeviation: Math.sqrt(variance), degreesOfFreedom: df, n, iterations: result.iterations };
+  return {
+    reorganisationEnergy,
+    kdOverKZ,
+    residuals,
+    residualStandardDeviation: Math.sqrt(variance),
+    degreesOfFreedom: df,
+    n,
+    iterations: result.iterations,
+  };
 }
 
 /** (J^T J)^-1 for one or two parameters. */
@@ -127,11 +150,23 @@ function inverseNormalMatrix(rows: number[][], p: number): number[][] {
     }
   }
   if (p === 1) {
-    if (!(a[0] > 0)) throw new EngineError('DEGENERATE_DATA', 'drivingForces', 'the data do not depend on the reorganisation energy here', 'Include quenchers closer to thermoneutral');
+    if (!(a[0] > 0))
+      throw new EngineError(
+        'DEGENERATE_DATA',
+        'drivingForces',
+        'the data do not depend on the reorganisation energy here',
+        'Include quenchers closer to thermoneutral',
+      );
     return [[1 / a[0]]];
   }
   const determinant = a[0] * a[2] - a[1] * a[1];
-  if (!(determinant > 0)) throw new EngineError('DEGENERATE_DATA', 'drivingForces', 'lambda and k_d/(K Z) cannot be told apart with these quenchers', 'Fix k_d/(K Z) or add quenchers over a wider range of driving force');
+  if (!(determinant > 0))
+    throw new EngineError(
+      'DEGENERATE_DATA',
+      'drivingForces',
+      'lambda and k_d/(K Z) cannot be told apart with these quenchers',
+      'Fix k_d/(K Z) or add quenchers over a wider range of driving force',
+    );
   return [
     [a[2] / determinant, -a[1] / determinant],
     [-a[1] / determinant, a[0] / determinant],

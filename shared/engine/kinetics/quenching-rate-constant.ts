@@ -48,7 +48,12 @@ export function quenchingRateConstant(input: {
     const limit = requirePositive(input.diffusionLimit, 'diffusionLimit');
     fractionOfDiffusionLimit = value / limit;
     if (value > limit) {
-      flags.push(qualityFlag('KQ_ABOVE_DIFFUSION_LIMIT', `kq ${value.toExponential(2)} vs k_diff ${limit.toExponential(2)} M^-1 s^-1`));
+      flags.push(
+        qualityFlag(
+          'KQ_ABOVE_DIFFUSION_LIMIT',
+          `kq ${value.toExponential(2)} vs k_diff ${limit.toExponential(2)} M^-1 s^-1`,
+        ),
+      );
     }
   }
   return { value, standardError, relativeUncertainty, fractionOfDiffusionLimit, flags };

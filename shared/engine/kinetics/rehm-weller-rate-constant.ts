@@ -21,7 +21,8 @@ export function rehmWellerDenominator(
   const reverseExponent = logR + drivingForce / thermalEnergy;
   const largest = Math.max(0, activationExponent, reverseExponent);
   const logDenominator =
-    largest + Math.log(Math.exp(-largest) + Math.exp(activationExponent - largest) + Math.exp(reverseExponent - largest));
+    largest +
+    Math.log(Math.exp(-largest) + Math.exp(activationExponent - largest) + Math.exp(reverseExponent - largest));
   return { logDenominator, activationExponent, activation };
 }
 

@@ -73,7 +73,11 @@ export function planTitration(input: {
     const exact = (target * v0) / (stock - target);
     const added = step === undefined ? exact : Math.round(exact / step) * step;
     if (added < previousAdded) {
-      throw new EngineError('INVALID_ARGUMENT', `targets[${i}]`, 'targets must not decrease: stock cannot be taken out again');
+      throw new EngineError(
+        'INVALID_ARGUMENT',
+        `targets[${i}]`,
+        'targets must not decrease: stock cannot be taken out again',
+      );
     }
     const total = v0 + added;
     const addition = added - previousAdded;

@@ -27,7 +27,11 @@ export function extraSumOfSquaresFTest(
   full: { residualSumOfSquares: number; degreesOfFreedom: number },
 ): FTestResult {
   if (reduced.degreesOfFreedom - full.degreesOfFreedom !== 1 || full.degreesOfFreedom < 1) {
-    throw new EngineError('INVALID_ARGUMENT', 'degreesOfFreedom', 'the models must differ by exactly one parameter, with at least one residual degree of freedom left');
+    throw new EngineError(
+      'INVALID_ARGUMENT',
+      'degreesOfFreedom',
+      'the models must differ by exactly one parameter, with at least one residual degree of freedom left',
+    );
   }
   if (!(reduced.residualSumOfSquares >= 0) || !(full.residualSumOfSquares >= 0)) {
     throw new EngineError('INVALID_ARGUMENT', 'residualSumOfSquares', 'must be finite and >= 0');

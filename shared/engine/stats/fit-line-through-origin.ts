@@ -33,7 +33,8 @@ export function fitLineThroughOrigin(
 ): OriginLineFit {
   const n = x.length;
   requireSameLength(x, y, 'x', 'y');
-  if (n < 2) throw new EngineError('TOO_FEW_POINTS', 'x', `a line through the origin needs at least 2 points, got ${n}`);
+  if (n < 2)
+    throw new EngineError('TOO_FEW_POINTS', 'x', `a line through the origin needs at least 2 points, got ${n}`);
   requireFiniteArray(x, 'x');
   requireFiniteArray(y, 'y');
   if (weights) {

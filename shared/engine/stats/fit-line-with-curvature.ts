@@ -60,10 +60,22 @@ export function fitLineWithCurvature(
   const toU = 1 / spread;
   const { sxx, sxy, syy, s1, s3, s4 } = centredSums(x, y, centreX, yShift, toU, weights);
   if (!(sxx > 0)) {
-    throw new EngineError('DEGENERATE_DATA', 'x', throughOrigin ? 'all x values are zero, so no slope can be fitted' : 'all x values are equal, so no slope can be fitted');
+    throw new EngineError(
+      'DEGENERATE_DATA',
+      'x',
+      throughOrigin
+        ? 'all x values are zero, so no slope can be fitted'
+        : 'all x values are equal, so no slope can be fitted',
+    );
   }
   const slope = sxy / sxx;
-  const { residuals, rss, sr, sur, su2r, runs, positives, negatives } = residualSums(x, y, { cx: centreX, cy: yShift, slope }, toU, weights);
+  const { residuals, rss, sr, sur, su2r, runs, positives, negatives } = residualSums(
+    x,
+    y,
+    { cx: centreX, cy: yShift, slope },
+    toU,
+    weights,
+  );
   const degreesOfFreedom = n - (throughOrigin ? 1 : 2);
   const variance = rss / degreesOfFreedom;
   const moments = { sumW, s1, s2: sxx * toU * toU, s3, s4, sr, sur, su2r };

@@ -45,7 +45,8 @@ const MAX_OFFSET_TO_SPREAD_SQUARED = 1e6;
 export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, weights?: ArrayLike<number>): LineFit {
   const n = x.length;
   requireSameLength(x, y, 'x', 'y');
-  if (n < 3) throw new EngineError('TOO_FEW_POINTS', 'x', `a line with a free intercept needs at least 3 points, got ${n}`);
+  if (n < 3)
+    throw new EngineError('TOO_FEW_POINTS', 'x', `a line with a free intercept needs at least 3 points, got ${n}`);
   requireFiniteArray(x, 'x');
   requireFiniteArray(y, 'y');
   if (weights) {

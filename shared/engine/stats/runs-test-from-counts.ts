@@ -32,7 +32,14 @@ export function runsTestFromCounts(runs: number, positives: number, negatives: n
     return { runs, positives, negatives, expectedRuns, pValue: 1, method: 'not-applicable' };
   }
   if (total <= EXACT_LIMIT) {
-    return { runs, positives, negatives, expectedRuns, pValue: exactLowerTail(runs, positives, negatives), method: 'exact' };
+    return {
+      runs,
+      positives,
+      negatives,
+      expectedRuns,
+      pValue: exactLowerTail(runs, positives, negatives),
+      method: 'exact',
+    };
   }
   const product = 2 * positives * negatives;
   const variance = (product * (product - total)) / (total * total * (total - 1));

@@ -22,8 +22,7 @@ export function studentTTwoSidedPValueLargeDf(t: number, degreesOfFreedom: numbe
   const t2 = t * t;
   const x = degreesOfFreedom / (degreesOfFreedom + t2);
   const oneMinusX = t2 / (degreesOfFreedom + t2);
-  const gammaRatio =
-    Math.sqrt(a) * (1 - 1 / (8 * a) + 1 / (128 * a * a) + 5 / (1024 * a ** 3) - 21 / (32768 * a ** 4));
+  const gammaRatio = Math.sqrt(a) * (1 - 1 / (8 * a) + 1 / (128 * a * a) + 5 / (1024 * a ** 3) - 21 / (32768 * a ** 4));
   // x^a (1 - x)^(1/2) / B(a, 1/2), in logs: x^a underflows long before the p-value does.
   const front = Math.exp(a * Math.log(x)) * Math.sqrt(oneMinusX) * (gammaRatio / Math.sqrt(Math.PI));
   if (t2 >= 1) return Math.min(1, (front * continuedFraction(a, 0.5, x)) / a);

@@ -40,7 +40,11 @@ export function studentTQuantile975(degreesOfFreedom: number): number {
  */
 export function studentTTwoSidedPValue(t: number, degreesOfFreedom: number): number {
   if (!Number.isInteger(degreesOfFreedom) || degreesOfFreedom < 1) {
-    throw new EngineError('INVALID_ARGUMENT', 'degreesOfFreedom', `must be a positive integer, got ${degreesOfFreedom}`);
+    throw new EngineError(
+      'INVALID_ARGUMENT',
+      'degreesOfFreedom',
+      `must be a positive integer, got ${degreesOfFreedom}`,
+    );
   }
   if (Number.isNaN(t)) throw new EngineError('INVALID_ARGUMENT', 't', 'is NaN');
   if (!Number.isFinite(t)) return 0;

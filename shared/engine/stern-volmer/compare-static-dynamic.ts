@@ -29,7 +29,10 @@ export interface StaticDynamicComparison {
  * @throws EngineError from the K_S fit only on invalid numbers (inputs are fit results)
  * @example compareStaticDynamic(intensityFit, lifetimeFit).verdict // 'dynamic'
  */
-export function compareStaticDynamic(intensityFit: SternVolmerFit, lifetimeFit: SternVolmerFit): StaticDynamicComparison {
+export function compareStaticDynamic(
+  intensityFit: SternVolmerFit,
+  lifetimeFit: SternVolmerFit,
+): StaticDynamicComparison {
   const a = intensityFit.kSv;
   const b = lifetimeFit.kSv;
   const difference = a.value - b.value;
@@ -40,13 +43,19 @@ export function compareStaticDynamic(intensityFit: SternVolmerFit, lifetimeFit: 
     (varianceA * varianceA) / intensityFit.degreesOfFreedom + (varianceB * varianceB) / lifetimeFit.degreesOfFreedom;
   const welchDegreesOfFreedom =
     welchDenominator > 0
-      ? ((varianceA + varianceB) ** 2) / welchDenominator
+      ? (varianceA + varianceB) ** 2 / welchDenominator
       : intensityFit.degreesOfFreedom + lifetimeFit.degreesOfFreedom;
   const halfWidth = studentTQuantile975(welchDegreesOfFreedom) * standardError;
-  const verdict = Math.abs(difference) <= halfWidth ? 'dynamic' : difference > 0 ? 'static-contribution' : 'lifetime-steeper';
+  const verdict =
+    Math.abs(difference) <= halfWidth ? 'dynamic' : difference > 0 ? 'static-contribution' : 'lifetime-steeper';
   const flags: QualityFlag[] =
     verdict === 'lifetime-steeper'
-      ? [qualityFlag('LIFETIME_STEEPER_THAN_INTENSITY', `K_SV ${a.value.toPrecision(3)} (intensity) vs ${b.value.toPrecision(3)} (lifetime) M^-1`)]
+      ? [
+          qualityFlag(
+            'LIFETIME_STEEPER_THAN_INTENSITY',
+            `K_SV ${a.value.toPrecision(3)} (intensity) vs ${b.value.toPrecision(3)} (lifetime) M^-1`,
+          ),
+        ]
       : [];
   return {
     verdict,

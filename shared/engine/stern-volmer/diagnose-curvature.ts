@@ -51,7 +51,11 @@ export function diagnoseCurvature(
   const linear =
     options.linear ??
     (throughOrigin
-      ? fitLineThroughOrigin(concentrations, Array.from(ratios, (ratio) => ratio - 1), weights)
+      ? fitLineThroughOrigin(
+          concentrations,
+          Array.from(ratios, (ratio) => ratio - 1),
+          weights,
+        )
       : fitLine(concentrations, ratios, weights));
   const runs = residualRunsTest(residualsInConcentrationOrder(concentrations, linear.residuals));
   const quadratic = addedQuadraticTerm(concentrations, linear, { throughOrigin, ...(weights ? { weights } : {}) });

@@ -44,6 +44,11 @@ export function fitIntensitySternVolmer(input: {
     requireSameLength(intensities, intensityUncertainties, 'intensities', 'intensityUncertainties');
     ratioUncertainties = intensityUncertainties.map((sigma, i) => (ratios[i] * sigma) / intensities[i]);
   }
-  const fit = fitSternVolmer({ concentrations, ratios, ...(ratioUncertainties ? { ratioUncertainties } : {}), ...(intercept ? { intercept } : {}) });
+  const fit = fitSternVolmer({
+    concentrations,
+    ratios,
+    ...(ratioUncertainties ? { ratioUncertainties } : {}),
+    ...(intercept ? { intercept } : {}),
+  });
   return { ...withReferenceUncertainty(fit, i0), i0 };
 }

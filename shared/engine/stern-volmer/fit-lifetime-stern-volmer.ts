@@ -39,6 +39,11 @@ export function fitLifetimeSternVolmer(input: {
     requireSameLength(lifetimes, lifetimeUncertainties, 'lifetimes', 'lifetimeUncertainties');
     ratioUncertainties = lifetimeUncertainties.map((sigma, i) => (ratios[i] * sigma) / lifetimes[i]);
   }
-  const fit = fitSternVolmer({ concentrations, ratios, ...(ratioUncertainties ? { ratioUncertainties } : {}), ...(intercept ? { intercept } : {}) });
+  const fit = fitSternVolmer({
+    concentrations,
+    ratios,
+    ...(ratioUncertainties ? { ratioUncertainties } : {}),
+    ...(intercept ? { intercept } : {}),
+  });
   return { ...withReferenceUncertainty(fit, tau0), tau0 };
 }

@@ -57,7 +57,11 @@ export function fitModifiedSternVolmer(input: {
     y.push(i0.value / quenched);
   });
   if (countDistinct(x) < 3) {
-    throw new EngineError('TOO_FEW_CONCENTRATIONS', 'concentrations', 'the modified plot needs at least 3 distinct non-zero concentrations');
+    throw new EngineError(
+      'TOO_FEW_CONCENTRATIONS',
+      'concentrations',
+      'the modified plot needs at least 3 distinct non-zero concentrations',
+    );
   }
   const line = fitLine(x, y);
   const { slope, intercept } = line;
@@ -74,11 +78,21 @@ export function fitModifiedSternVolmer(input: {
   const seB = line.slopeStandardError;
   const k = intercept / slope;
   // var(a/b) = (a/b)^2 [var a / a^2 + var b / b^2 - 2 cov(a,b) / (a b)]
-  const kVariance = k * k * ((seA * seA) / (intercept * intercept) + (seB * seB) / (slope * slope) - (2 * line.slopeInterceptCovariance) / (intercept * slope));
+  const kVariance =
+    k *
+    k *
+    ((seA * seA) / (intercept * intercept) +
+      (seB * seB) / (slope * slope) -
+      (2 * line.slopeInterceptCovariance) / (intercept * slope));
   return {
     accessibleFraction: makeEstimate(1 / intercept, seA / (intercept * intercept), df),
     kSv: makeEstimate(k, Math.sqrt(Math.max(kVariance, 0)), df),
-    line: { slope: makeEstimate(slope, seB, df), intercept: makeEstimate(intercept, seA, df), rSquared: line.rSquared, residuals: line.residuals },
+    line: {
+      slope: makeEstimate(slope, seB, df),
+      intercept: makeEstimate(intercept, seA, df),
+      rSquared: line.rSquared,
+      residuals: line.residuals,
+    },
     i0,
     degreesOfFreedom: df,
     n: line.n,

@@ -13,7 +13,12 @@ export interface StaticDynamicFit {
   smallerRoot: ParameterEstimate;
   /** which root is K_D, and why */
   assignment:
-    | { kind: 'resolved'; kD: ParameterEstimate; kS: ParameterEstimate; rule: 'closest-to-lifetime-slope' | 'dynamic-root-below-diffusion-bound' }
+    | {
+        kind: 'resolved';
+        kD: ParameterEstimate;
+        kS: ParameterEstimate;
+        rule: 'closest-to-lifetime-slope' | 'dynamic-root-below-diffusion-bound';
+      }
     | { kind: 'ambiguous'; rule: string };
   residualStandardDeviation: number;
   degreesOfFreedom: number;
@@ -48,9 +53,17 @@ export function fitStaticDynamic(input: {
   requireNonNegativeArray(concentrations, 'concentrations');
   requirePositiveArray(ratios, 'ratios');
   if (countDistinct(concentrations) < 3) {
-    throw new EngineError('TOO_FEW_CONCENTRATIONS', 'concentrations', 'the quadratic model needs at least 3 distinct concentrations');
+    throw new EngineError(
+      'TOO_FEW_CONCENTRATIONS',
+      'concentrations',
+      'the quadratic model needs at least 3 distinct concentrations',
+    );
   }
-  const quadratic = fitQuadratic(concentrations, ratios.map((ratio) => ratio - 1), { throughOrigin: true });
+  const quadratic = fitQuadratic(
+    concentrations,
+    ratios.map((ratio) => ratio - 1),
+    { throughOrigin: true },
+  );
   const df = quadratic.degreesOfFreedom;
   const [, b1, b2] = quadratic.coefficients;
   const discriminant = b1 * b1 - 4 * b2;
@@ -59,7 +72,9 @@ export function fitStaticDynamic(input: {
       'MODEL_NOT_APPLICABLE',
       'ratios',
       `the quadratic coefficients (b1 = ${b1.toPrecision(3)} M^-1, b2 = ${b2.toPrecision(3)} M^-2) have no pair of positive real roots`,
-      b2 <= 0 ? 'The plot bends downward; try the modified Stern–Volmer plot' : 'The curvature is too strong for this model; check inner filter and aggregation',
+      b2 <= 0
+        ? 'The plot bends downward; try the modified Stern–Volmer plot'
+        : 'The curvature is too strong for this model; check inner filter and aggregation',
     );
   }
   const [seB1, seB2] = [quadratic.standardErrors[1], quadratic.standardErrors[2]];

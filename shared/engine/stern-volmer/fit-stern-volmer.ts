@@ -1,5 +1,11 @@
 import { EngineError } from '../core/engine-error';
-import { countDistinct, requireFiniteArray, requireNonNegativeArray, requirePositiveArray, requireSameLength } from '../core/validate';
+import {
+  countDistinct,
+  requireFiniteArray,
+  requireNonNegativeArray,
+  requirePositiveArray,
+  requireSameLength,
+} from '../core/validate';
 import { qualityFlag, type QualityFlag } from '../flags/quality-flag';
 import { fitLineWithCurvature } from '../stats/fit-line-with-curvature';
 import { makeEstimate, type ParameterEstimate } from '../stats/parameter-estimate';
@@ -67,14 +73,22 @@ export function fitSternVolmer(input: SternVolmerInput): SternVolmerFit {
   if (ratioUncertainties) {
     requireSameLength(concentrations, ratioUncertainties, 'concentrations', 'ratioUncertainties');
     requireFiniteArray(ratioUncertainties, 'ratioUncertainties');
-    requirePositiveArray(ratioUncertainties, 'ratioUncertainties', 'Every point needs a positive uncertainty to be weighted');
+    requirePositiveArray(
+      ratioUncertainties,
+      'ratioUncertainties',
+      'Every point needs a positive uncertainty to be weighted',
+    );
     weights = new Float64Array(ratioUncertainties.length);
     for (let i = 0; i < weights.length; i++) weights[i] = 1 / (ratioUncertainties[i] * ratioUncertainties[i]);
   }
   // One pass reads the points; the validators that name a bad entry run only if it saw one.
   const scan = scanPoints(concentrations, ratios, weights);
   if (!scan.finite || !(scan.minX >= 0) || !(scan.minY > 0)) {
-    requireNonNegativeArray(concentrations, 'concentrations', 'Concentrations are amounts added and cannot be negative');
+    requireNonNegativeArray(
+      concentrations,
+      'concentrations',
+      'Concentrations are amounts added and cannot be negative',
+    );
     requirePositiveArray(ratios, 'ratios');
     if (weights) requirePositiveArray(weights, 'weights');
   }
@@ -89,7 +103,11 @@ export function fitSternVolmer(input: SternVolmerInput): SternVolmerFit {
   }
   const fixed = intercept === 'fixed-at-one';
   // With the intercept fixed at 1, ratio - 1 is regressed through the origin.
-  const line = fitLineWithCurvature(concentrations, ratios, scan, { ...(weights ? { weights } : {}), throughOrigin: fixed, yOffset: fixed ? 1 : 0 });
+  const line = fitLineWithCurvature(concentrations, ratios, scan, {
+    ...(weights ? { weights } : {}),
+    throughOrigin: fixed,
+    yOffset: fixed ? 1 : 0,
+  });
   const df = line.degreesOfFreedom;
   const fittedIntercept = fixed ? null : makeEstimate(line.intercept, line.interceptStandardError, df);
   const runs = line.signRuns
@@ -131,7 +149,12 @@ function sternVolmerFlags(
   if (intercept) {
     const { value, interval95 } = intercept;
     if (Math.abs(value - 1) > INTERCEPT_TOLERANCE && (interval95.lower > 1 || interval95.upper < 1)) {
-      flags.push(qualityFlag('INTERCEPT_FAR_FROM_ONE', `intercept ${value.toPrecision(3)} (95 % interval ${interval95.lower.toPrecision(3)} to ${interval95.upper.toPrecision(3)})`));
+      flags.push(
+        qualityFlag(
+          'INTERCEPT_FAR_FROM_ONE',
+          `intercept ${value.toPrecision(3)} (95 % interval ${interval95.lower.toPrecision(3)} to ${interval95.upper.toPrecision(3)})`,
+        ),
+      );
     }
   }
   if (diagnosis.shape !== 'linear') {
@@ -139,7 +162,12 @@ function sternVolmerFlags(
     flags.push(qualityFlag(diagnosis.shape === 'upward' ? 'UPWARD_CURVATURE' : 'DOWNWARD_CURVATURE', pValue));
   }
   if (diagnosis.shape === 'linear' && diagnosis.residualPattern) {
-    flags.push(qualityFlag('RESIDUAL_PATTERN', `${diagnosis.runs.runs} runs where about ${diagnosis.runs.expectedRuns.toFixed(1)} are expected`));
+    flags.push(
+      qualityFlag(
+        'RESIDUAL_PATTERN',
+        `${diagnosis.runs.runs} runs where about ${diagnosis.runs.expectedRuns.toFixed(1)} are expected`,
+      ),
+    );
   }
   return flags;
 }

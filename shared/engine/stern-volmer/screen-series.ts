@@ -36,7 +36,9 @@ export function screenSeries(input: {
   if (bad.length > 0) flags.push(qualityFlag('NON_POSITIVE_INTENSITY', `points ${bad.join(', ')}`, 'error'));
   const distinct = countDistinct(concentrations.filter(Number.isFinite));
   if (distinct < RECOMMENDED_DISTINCT_CONCENTRATIONS) {
-    flags.push(qualityFlag('FEW_CONCENTRATIONS', `${distinct} distinct concentrations`, distinct < 3 ? 'error' : 'warning'));
+    flags.push(
+      qualityFlag('FEW_CONCENTRATIONS', `${distinct} distinct concentrations`, distinct < 3 ? 'error' : 'warning'),
+    );
   }
   if (i0 === undefined && !concentrations.some((c) => c === 0)) flags.push(qualityFlag('NO_I0', undefined, 'error'));
   if (absorbancesExcitation || absorbancesEmission) {

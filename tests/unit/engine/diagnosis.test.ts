@@ -118,8 +118,16 @@ describe('static versus dynamic from intensity and lifetime slopes', () => {
   };
 
   it('equal slopes within error: dynamic', () => {
-    const intensity = fitIntensitySternVolmer({ concentrations: q, intensities: intensities(linear(80), 31, 0.003), intercept: 'fixed-at-one' });
-    const lifetime = fitLifetimeSternVolmer({ concentrations: q, lifetimes: lifetimes(80, 32), intercept: 'fixed-at-one' });
+    const intensity = fitIntensitySternVolmer({
+      concentrations: q,
+      intensities: intensities(linear(80), 31, 0.003),
+      intercept: 'fixed-at-one',
+    });
+    const lifetime = fitLifetimeSternVolmer({
+      concentrations: q,
+      lifetimes: lifetimes(80, 32),
+      intercept: 'fixed-at-one',
+    });
     const result = compareStaticDynamic(intensity, lifetime);
     expect(result.verdict).toBe('dynamic');
     expect(result.staticConstant!.interval95.lower).toBeLessThan(0);
@@ -127,15 +135,26 @@ describe('static versus dynamic from intensity and lifetime slopes', () => {
 
   it('steeper intensity plot: static contribution, K_S from (I0/I)/(tau0/tau) = 1 + K_S[Q]', () => {
     // I0/I = (1 + 40[Q])(1 + 15[Q]) with tau0/tau = 1 + 40[Q]: the ratio of ratios is 1 + 15[Q].
-    const intensity = fitIntensitySternVolmer({ concentrations: q, intensities: intensities(combined(40, 15), 33, 0.002), intercept: 'fixed-at-one' });
-    const lifetime = fitLifetimeSternVolmer({ concentrations: q, lifetimes: lifetimes(40, 34), intercept: 'fixed-at-one' });
+    const intensity = fitIntensitySternVolmer({
+      concentrations: q,
+      intensities: intensities(combined(40, 15), 33, 0.002),
+      intercept: 'fixed-at-one',
+    });
+    const lifetime = fitLifetimeSternVolmer({
+      concentrations: q,
+      lifetimes: lifetimes(40, 34),
+      intercept: 'fixed-at-one',
+    });
     const result = compareStaticDynamic(intensity, lifetime);
     expect(result.verdict).toBe('static-contribution');
     expect(Math.abs(result.staticConstant!.value - 15) / 15).toBeLessThan(0.1);
   });
 
   it('lifetime plot steeper than intensity: flagged as a data problem', () => {
-    const intensity = fitSternVolmer({ concentrations: q, ratios: q.map((c) => 1 + 30 * c + 1e-3 * Math.sin(c * 1e3)) });
+    const intensity = fitSternVolmer({
+      concentrations: q,
+      ratios: q.map((c) => 1 + 30 * c + 1e-3 * Math.sin(c * 1e3)),
+    });
     const lifetime = fitSternVolmer({ concentrations: q, ratios: q.map((c) => 1 + 60 * c + 1e-3 * Math.cos(c * 1e3)) });
     const result = compareStaticDynamic(intensity, lifetime);
     expect(result.verdict).toBe('lifetime-steeper');

@@ -26,7 +26,11 @@ describe('reference-electrode conversions (check-values §3)', () => {
 
   it('acetonitrile: Fc+/Fc = +0.380 V vs SCE, Ag/Ag+ = +0.298 V vs SCE, Fc vs Ag/Ag+ = +0.082 V', () => {
     expectClose(convertPotential({ value: 0, from: 'Fc+/Fc', to: 'SCE', solvent: 'acetonitrile' }).value, 0.38, 1e-12); // Pavlishchuk & Addison 2000
-    expectClose(convertPotential({ value: 0, from: 'Ag/Ag+ (0.01 M AgNO3)', to: 'SCE', solvent: 'acetonitrile' }).value, 0.298, 1e-12); // P&A 2000
+    expectClose(
+      convertPotential({ value: 0, from: 'Ag/Ag+ (0.01 M AgNO3)', to: 'SCE', solvent: 'acetonitrile' }).value,
+      0.298,
+      1e-12,
+    ); // P&A 2000
     const fcVsAg = convertPotential({ value: 0, from: 'Fc+/Fc', to: 'Ag/Ag+ (0.01 M AgNO3)', solvent: 'acetonitrile' });
     expectClose(fcVsAg.value, 0.082, 1e-9); // check-values §3 computed 0.380 - 0.298
     expect(fcVsAg.warnings).toEqual([]); // both references sit in the same organic solution
@@ -54,9 +58,14 @@ describe('reference-electrode conversions (check-values §3)', () => {
 
   it('unknown electrode, or Fc+/Fc without a sourced solvent, is a typed error', () => {
     expect(() => convertPotential({ value: 0, from: 'Hg/HgO', to: 'SHE' })).toThrowError(
-      expect.objectContaining({ code: 'UNKNOWN_REFERENCE_ELECTRODE', message: expect.stringMatching(/^from: "Hg\/HgO" is not a known reference electrode\. Use one of: SHE, SCE/) }),
+      expect.objectContaining({
+        code: 'UNKNOWN_REFERENCE_ELECTRODE',
+        message: expect.stringMatching(/^from: "Hg\/HgO" is not a known reference electrode\. Use one of: SHE, SCE/),
+      }),
     );
-    expect(() => convertPotential({ value: 0, from: 'Fc+/Fc', to: 'SCE' })).toThrowError(expect.objectContaining({ code: 'REFERENCE_NOT_AVAILABLE_FOR_SOLVENT' }));
+    expect(() => convertPotential({ value: 0, from: 'Fc+/Fc', to: 'SCE' })).toThrowError(
+      expect.objectContaining({ code: 'REFERENCE_NOT_AVAILABLE_FOR_SOLVENT' }),
+    );
     expect(() => convertPotential({ value: 0, from: 'Fc+/Fc', to: 'SCE', solvent: 'water' })).toThrowError(EngineError);
   });
 });
@@ -70,7 +79,9 @@ describe('E00 from a wavelength', () => {
 
   it('rejects wavelengths outside 200–1500 nm with a typed error', () => {
     expect(() => e00FromWavelength(150)).toThrowError(expect.objectContaining({ code: 'WAVELENGTH_OUT_OF_RANGE' }));
-    expect(() => e00FromWavelength(2.1)).toThrowError(/^wavelength: 2.1 nm is outside 200–1500 nm\. Enter the wavelength in nanometres\.$/);
+    expect(() => e00FromWavelength(2.1)).toThrowError(
+      /^wavelength: 2.1 nm is outside 200–1500 nm\. Enter the wavelength in nanometres\.$/,
+    );
     expect(() => e00FromWavelength(Number.NaN)).toThrowError(expect.objectContaining({ code: 'NON_FINITE_VALUE' }));
   });
 });
@@ -104,7 +115,9 @@ describe('excited-state potentials E* = E -+ E00 (published, fully confirmed row
   });
 
   it('needs at least one ground-state potential', () => {
-    expect(() => excitedStatePotentials({ e00: 2 })).toThrowError(expect.objectContaining({ code: 'MISSING_POTENTIAL' }));
+    expect(() => excitedStatePotentials({ e00: 2 })).toThrowError(
+      expect.objectContaining({ code: 'MISSING_POTENTIAL' }),
+    );
   });
 });
 
@@ -116,8 +129,12 @@ describe('Coulomb work term (IUPAC Gold Book GT07388)', () => {
 
   it('other rows of check-values §7: MeCN 5 and 10 Å, CH2Cl2, DMF, DMSO, water', () => {
     const cases: [number, number, number][] = [
-      [35.69, 5e-10, -0.081], [35.69, 10e-10, -0.04], [8.93, 7e-10, -0.23],
-      [37.22, 7e-10, -0.055], [46.83, 7e-10, -0.044], [78.36, 7e-10, -0.026],
+      [35.69, 5e-10, -0.081],
+      [35.69, 10e-10, -0.04],
+      [8.93, 7e-10, -0.23],
+      [37.22, 7e-10, -0.055],
+      [46.83, 7e-10, -0.044],
+      [78.36, 7e-10, -0.026],
     ];
     for (const [permittivity, distance, expected] of cases) {
       expect(Math.abs(coulombWorkTerm({ permittivity, distance }) - expected)).toBeLessThan(0.0006);
@@ -126,7 +143,11 @@ describe('Coulomb work term (IUPAC Gold Book GT07388)', () => {
 
   it('charges: products minus reactants, e.g. cationic donor and neutral acceptor give -1 + 0 ... ', () => {
     // D+ (z=+1) -> D2+ (+2), A (0) -> A- (-1): (2)(-1) - (1)(0) = -2 units
-    expectClose(coulombWorkTerm({ donorCharge: 1, acceptorCharge: 0, permittivity: 35.69 }), 2 * coulombWorkTerm({ permittivity: 35.69 }), 1e-12);
+    expectClose(
+      coulombWorkTerm({ donorCharge: 1, acceptorCharge: 0, permittivity: 35.69 }),
+      2 * coulombWorkTerm({ permittivity: 35.69 }),
+      1e-12,
+    );
     // D (0), A+ (+1) -> D+ (+1), A (0): 0 - 0 = no work term
     expect(coulombWorkTerm({ donorCharge: 0, acceptorCharge: 1, permittivity: 35.69 })).toBe(0);
   });
@@ -158,7 +179,9 @@ describe('driving force dG_ET = e[E(D+/D) - E(A/A-)] - E00 + w', () => {
     expect(quenchingDrivingForces({ catalyst, quencher, pinned: 'reductive' }).highlighted).toBe('reductive');
     const withWork = quenchingDrivingForces({ catalyst, quencher, coulomb: { permittivity: 35.69 } });
     expectClose(withWork.oxidative!.workTerm, coulombWorkTerm({ permittivity: 35.69 }), 1e-12);
-    expect(() => quenchingDrivingForces({ catalyst: { e00: 2 }, quencher: {} })).toThrowError(expect.objectContaining({ code: 'MISSING_POTENTIAL' }));
+    expect(() => quenchingDrivingForces({ catalyst: { e00: 2 }, quencher: {} })).toThrowError(
+      expect.objectContaining({ code: 'MISSING_POTENTIAL' }),
+    );
   });
 });
 

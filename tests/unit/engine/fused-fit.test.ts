@@ -25,16 +25,19 @@ describe('fitSternVolmer on NIST StRD data', () => {
     expectClose(fit.rSquared, certified.r_squared, NINE_DIGITS); // NIST Norris R^2
   });
 
-  it.each(['NoInt1', 'NoInt2'])('%s: with the intercept fixed at 1, ratio - 1 = y goes through the origin (nine digits)', (name) => {
-    const { x, y } = readNistSeries(name);
-    const certified = readCertified(name);
-    // NoInt1 and NoInt2 y are integers, so (y + 1) - 1 === y exactly.
-    const fit = fitSternVolmer({ concentrations: x, ratios: y.map((value) => value + 1), intercept: 'fixed-at-one' });
-    expectClose(fit.kSv.value, certified.parameters[0]!.estimate, NINE_DIGITS); // NIST B1
-    expectClose(fit.kSv.standardError, certified.parameters[0]!.sd, NINE_DIGITS); // NIST sd(B1)
-    expectClose(fit.residualStandardDeviation, certified.residual_sd, NINE_DIGITS); // NIST residual SD
-    expectClose(fit.rSquared, certified.r_squared, NINE_DIGITS); // NIST uncentred R^2
-  });
+  it.each(['NoInt1', 'NoInt2'])(
+    '%s: with the intercept fixed at 1, ratio - 1 = y goes through the origin (nine digits)',
+    (name) => {
+      const { x, y } = readNistSeries(name);
+      const certified = readCertified(name);
+      // NoInt1 and NoInt2 y are integers, so (y + 1) - 1 === y exactly.
+      const fit = fitSternVolmer({ concentrations: x, ratios: y.map((value) => value + 1), intercept: 'fixed-at-one' });
+      expectClose(fit.kSv.value, certified.parameters[0]!.estimate, NINE_DIGITS); // NIST B1
+      expectClose(fit.kSv.standardError, certified.parameters[0]!.sd, NINE_DIGITS); // NIST sd(B1)
+      expectClose(fit.residualStandardDeviation, certified.residual_sd, NINE_DIGITS); // NIST residual SD
+      expectClose(fit.rSquared, certified.r_squared, NINE_DIGITS); // NIST uncentred R^2
+    },
+  );
 
   it('Pontius: the x^2 term of the diagnosis gives the certified B2 and sd(B2) to seven digits', () => {
     const { x, y } = readNistSeries('Pontius');

@@ -33,9 +33,19 @@ describe('diffusion limit k_diff = 8RT/(3 eta)', () => {
     // check-values §2 (computed from §1a viscosities); ethanol, toluene, dioxane, benzene rows there
     // use the CRC values (memory) while our table uses Perry: 1.5 % covers that choice.
     const expected: Record<string, number> = {
-      dmf: 8.33e9, dmso: 3.33e9, methanol: 1.22e10, ethanol: 6.16e9, dichloromethane: 1.6e10,
-      '1,2-dichloroethane': 8.49e9, thf: 1.45e10, acetone: 2.16e10, toluene: 1.18e10,
-      benzene: 1.09e10, 'ethyl-acetate': 1.56e10, '1,4-dioxane': 5.62e9, dmac: 7.0e9,
+      dmf: 8.33e9,
+      dmso: 3.33e9,
+      methanol: 1.22e10,
+      ethanol: 6.16e9,
+      dichloromethane: 1.6e10,
+      '1,2-dichloroethane': 8.49e9,
+      thf: 1.45e10,
+      acetone: 2.16e10,
+      toluene: 1.18e10,
+      benzene: 1.09e10,
+      'ethyl-acetate': 1.56e10,
+      '1,4-dioxane': 5.62e9,
+      dmac: 7.0e9,
     };
     for (const [id, value] of Object.entries(expected)) expectClose(solventDiffusionLimit(id), value, 0.015);
   });
@@ -91,7 +101,13 @@ describe('who quenches: competition fractions', () => {
     fc.assert(
       fc.property(
         fc.double({ min: 1e-9, max: 1e-4, noNaN: true }),
-        fc.array(fc.record({ kq: fc.double({ min: 0, max: 1e11, noNaN: true }), concentration: fc.double({ min: 0, max: 1, noNaN: true }) }), { maxLength: 6 }),
+        fc.array(
+          fc.record({
+            kq: fc.double({ min: 0, max: 1e11, noNaN: true }),
+            concentration: fc.double({ min: 0, max: 1, noNaN: true }),
+          }),
+          { maxLength: 6 },
+        ),
         (tau0, parts) => {
           const result = quenchingFractions({ tau0, components: parts.map((part, i) => ({ id: `c${i}`, ...part })) });
           const sum = result.components.reduce((total, c) => total + c.fraction, result.unquenched);
@@ -102,8 +118,18 @@ describe('who quenches: competition fractions', () => {
   });
 
   it('refuses duplicate ids and negative concentrations', () => {
-    expect(() => quenchingFractions({ tau0: 1e-6, components: [{ id: 'a', kq: 1, concentration: 1 }, { id: 'a', kq: 1, concentration: 1 }] })).toThrowError(EngineError);
-    expect(() => quenchingFractions({ tau0: 1e-6, components: [{ id: 'a', kq: 1e9, concentration: -1 }] })).toThrowError(/must not be negative/);
+    expect(() =>
+      quenchingFractions({
+        tau0: 1e-6,
+        components: [
+          { id: 'a', kq: 1, concentration: 1 },
+          { id: 'a', kq: 1, concentration: 1 },
+        ],
+      }),
+    ).toThrowError(EngineError);
+    expect(() =>
+      quenchingFractions({ tau0: 1e-6, components: [{ id: 'a', kq: 1e9, concentration: -1 }] }),
+    ).toThrowError(/must not be negative/);
   });
 });
 
@@ -112,16 +138,26 @@ describe('Rehm–Weller / Marcus correlation', () => {
 
   it('model limits: k_d/1.5 at dG = 0 with lambda -> 0, plateau k_d/1.25 far downhill', () => {
     // Published form (IUPAC Gold Book RT07472): at dG = 0 and lambda -> 0, dG‡ -> 0, so kq = k_d / (1 + 0.25 * 2).
-    expectClose(rehmWellerRateConstant({ drivingForce: 0, reorganisationEnergy: 1e-9, diffusionLimit: kd }), kd / 1.5, 1e-7);
+    expectClose(
+      rehmWellerRateConstant({ drivingForce: 0, reorganisationEnergy: 1e-9, diffusionLimit: kd }),
+      kd / 1.5,
+      1e-7,
+    );
     // dG -> -infinity: dG‡ -> 0 and exp(dG/RT) -> 0, so kq -> k_d/(1 + 0.25) (the Rehm–Weller plateau)
-    expectClose(rehmWellerRateConstant({ drivingForce: -5, reorganisationEnergy: 0.1, diffusionLimit: kd }), kd / 1.25, 2e-3);
+    expectClose(
+      rehmWellerRateConstant({ drivingForce: -5, reorganisationEnergy: 0.1, diffusionLimit: kd }),
+      kd / 1.25,
+      2e-3,
+    );
   });
 
   it('recovers lambda = 0.8 eV from 12 seeded quenchers within 3 SE and 0.1 eV', () => {
     const normal = seededNormal(99);
     const drivingForces = Array.from({ length: 12 }, (_, i) => -0.8 + i * 0.1);
     const rateConstants = drivingForces.map(
-      (dG) => rehmWellerRateConstant({ drivingForce: dG, reorganisationEnergy: 0.8, diffusionLimit: kd }) * 10 ** (0.05 * normal()),
+      (dG) =>
+        rehmWellerRateConstant({ drivingForce: dG, reorganisationEnergy: 0.8, diffusionLimit: kd }) *
+        10 ** (0.05 * normal()),
     );
     const fit = fitRehmWeller({ drivingForces, rateConstants, diffusionLimit: kd });
     expect(Math.abs(fit.reorganisationEnergy.value - 0.8)).toBeLessThan(0.1);
@@ -134,16 +170,31 @@ describe('Rehm–Weller / Marcus correlation', () => {
     const rateConstants = [8e9, 4e9, 6e8, 3e7, 5e5];
     const fit = fitRehmWeller({ drivingForces, rateConstants, diffusionLimit: kd });
     const ss = (lambda: number) =>
-      drivingForces.reduce((sum, dG, i) => sum + (Math.log10(rateConstants[i]!) - Math.log10(rehmWellerRateConstant({ drivingForce: dG, reorganisationEnergy: lambda, diffusionLimit: kd }))) ** 2, 0);
+      drivingForces.reduce(
+        (sum, dG, i) =>
+          sum +
+          (Math.log10(rateConstants[i]!) -
+            Math.log10(
+              rehmWellerRateConstant({ drivingForce: dG, reorganisationEnergy: lambda, diffusionLimit: kd }),
+            )) **
+            2,
+        0,
+      );
     const best = fit.reorganisationEnergy.value;
     expect(ss(best)).toBeLessThanOrEqual(ss(best + 1e-4));
     expect(ss(best)).toBeLessThanOrEqual(ss(best - 1e-4));
-    expectClose(fit.residuals.reduce((sum, r) => sum + r * r, 0), ss(best), 1e-9);
+    expectClose(
+      fit.residuals.reduce((sum, r) => sum + r * r, 0),
+      ss(best),
+      1e-9,
+    );
   });
 
   it('fits k_d/(K Z) as well when asked, recovering both from exact data', () => {
     const drivingForces = Array.from({ length: 10 }, (_, i) => -0.9 + i * 0.12);
-    const rateConstants = drivingForces.map((dG) => rehmWellerRateConstant({ drivingForce: dG, reorganisationEnergy: 1.1, diffusionLimit: kd, kdOverKZ: 0.6 }));
+    const rateConstants = drivingForces.map((dG) =>
+      rehmWellerRateConstant({ drivingForce: dG, reorganisationEnergy: 1.1, diffusionLimit: kd, kdOverKZ: 0.6 }),
+    );
     const fit = fitRehmWeller({ drivingForces, rateConstants, diffusionLimit: kd, fitKdOverKZ: true });
     expectClose(fit.reorganisationEnergy.value, 1.1, 1e-4);
     expectClose(fit.kdOverKZ.value, 0.6, 1e-3);

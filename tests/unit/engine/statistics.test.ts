@@ -91,7 +91,10 @@ describe('Wald–Wolfowitz runs test', () => {
 
 describe('extra-sum-of-squares F test', () => {
   it('F(1, df) p-value equals the two-sided t p-value of sqrt(F) and the critical value is t^2', () => {
-    const result = extraSumOfSquaresFTest({ residualSumOfSquares: 10, degreesOfFreedom: 10 }, { residualSumOfSquares: 5, degreesOfFreedom: 9 });
+    const result = extraSumOfSquaresFTest(
+      { residualSumOfSquares: 10, degreesOfFreedom: 10 },
+      { residualSumOfSquares: 5, degreesOfFreedom: 9 },
+    );
     expect(result.fStatistic).toBe(9); // (10 - 5) / (5 / 9)
     expectClose(result.criticalValue95, quantile(0.975, 9) ** 2, 1e-15); // F(1,9) 0.95 = t(9) 0.975 squared
     expectClose(result.pValue, studentTTwoSidedPValue(3, 9), 1e-15);
@@ -135,7 +138,11 @@ describe('straight-line fits against simple-statistics on seeded random series',
   it('equal weights give the unweighted fit; integer weights equal repeated points', () => {
     const { x, y } = series[0]!;
     const plain = fitLine(x, y);
-    const weighted = fitLine(x, y, x.map(() => 4));
+    const weighted = fitLine(
+      x,
+      y,
+      x.map(() => 4),
+    );
     expectClose(weighted.slope, plain.slope, 1e-12);
     expectClose(weighted.slopeStandardError, plain.slopeStandardError, 1e-10);
     const repeats = x.map((_, i) => 1 + (i % 3));
@@ -147,12 +154,21 @@ describe('straight-line fits against simple-statistics on seeded random series',
 
   it('fit does not depend on point order (property)', () => {
     fc.assert(
-      fc.property(fc.shuffledSubarray(series[1]!.x.map((_, i) => i), { minLength: series[1]!.x.length }), (order) => {
-        const { x, y } = series[1]!;
-        const fit = fitLine(order.map((i) => x[i]!), order.map((i) => y[i]!));
-        const reference = fitLine(x, y);
-        return Math.abs(fit.slope - reference.slope) <= 1e-9 * Math.abs(reference.slope);
-      }),
+      fc.property(
+        fc.shuffledSubarray(
+          series[1]!.x.map((_, i) => i),
+          { minLength: series[1]!.x.length },
+        ),
+        (order) => {
+          const { x, y } = series[1]!;
+          const fit = fitLine(
+            order.map((i) => x[i]!),
+            order.map((i) => y[i]!),
+          );
+          const reference = fitLine(x, y);
+          return Math.abs(fit.slope - reference.slope) <= 1e-9 * Math.abs(reference.slope);
+        },
+      ),
     );
   });
 });

@@ -55,7 +55,11 @@ describe('fitIntensitySternVolmer', () => {
   it('takes I0 as the mean of the zero-concentration replicates, or the given value', () => {
     const intensities = noisyIntensities(200, 5000, 0.005, 3);
     const fit = fitIntensitySternVolmer({ concentrations, intensities });
-    expect(fit.i0).toMatchObject({ value: (intensities[0]! + intensities[1]!) / 2, source: 'mean-of-zero-concentration-points', replicates: 2 });
+    expect(fit.i0).toMatchObject({
+      value: (intensities[0]! + intensities[1]!) / 2,
+      source: 'mean-of-zero-concentration-points',
+      replicates: 2,
+    });
     const given = fitIntensitySternVolmer({ concentrations, intensities, i0: 5000 });
     expect(given.i0.source).toBe('given');
     expectClose(given.points.ratios[3]!, 5000 / intensities[3]!, 1e-15);
@@ -108,7 +112,10 @@ describe('Stern–Volmer properties (fast-check)', () => {
     const reference = fitSternVolmer({ concentrations, ratios });
     fc.assert(
       fc.property(fc.shuffledSubarray([...concentrations.keys()], { minLength: concentrations.length }), (order) => {
-        const fit = fitSternVolmer({ concentrations: order.map((i) => concentrations[i]!), ratios: order.map((i) => ratios[i]!) });
+        const fit = fitSternVolmer({
+          concentrations: order.map((i) => concentrations[i]!),
+          ratios: order.map((i) => ratios[i]!),
+        });
         return (
           Math.abs(fit.kSv.value - reference.kSv.value) <= 1e-9 * reference.kSv.value &&
           Math.abs(fit.kSv.standardError - reference.kSv.standardError) <= 1e-6 * reference.kSv.standardError &&
@@ -143,29 +150,65 @@ describe('Stern–Volmer bad input', () => {
   };
 
   it('fewer than 3 distinct concentrations', () => {
-    expectEngineError(() => fitSternVolmer({ concentrations: [0, 1e-3, 1e-3, 0], ratios: [1, 2, 2, 1] }), 'TOO_FEW_CONCENTRATIONS', /^concentrations: only 2 distinct concentrations; at least 3 are needed\. /);
+    expectEngineError(
+      () => fitSternVolmer({ concentrations: [0, 1e-3, 1e-3, 0], ratios: [1, 2, 2, 1] }),
+      'TOO_FEW_CONCENTRATIONS',
+      /^concentrations: only 2 distinct concentrations; at least 3 are needed\. /,
+    );
   });
 
   it('NaN in intensities or concentrations', () => {
-    expectEngineError(() => fitIntensitySternVolmer({ concentrations: [0, 1, 2], intensities: [1, Number.NaN, 3] }), 'NON_FINITE_VALUE', /^intensities\[1\]: expected a finite number, got NaN/);
-    expectEngineError(() => fitSternVolmer({ concentrations: [0, Number.NaN, 2], ratios: [1, 2, 3] }), 'NON_FINITE_VALUE', /^concentrations\[1\]/);
+    expectEngineError(
+      () => fitIntensitySternVolmer({ concentrations: [0, 1, 2], intensities: [1, Number.NaN, 3] }),
+      'NON_FINITE_VALUE',
+      /^intensities\[1\]: expected a finite number, got NaN/,
+    );
+    expectEngineError(
+      () => fitSternVolmer({ concentrations: [0, Number.NaN, 2], ratios: [1, 2, 3] }),
+      'NON_FINITE_VALUE',
+      /^concentrations\[1\]/,
+    );
   });
 
   it('negative concentration', () => {
-    expectEngineError(() => fitSternVolmer({ concentrations: [0, -1e-3, 2e-3], ratios: [1, 2, 3] }), 'NEGATIVE_VALUE', /^concentrations\[1\]: must not be negative/);
+    expectEngineError(
+      () => fitSternVolmer({ concentrations: [0, -1e-3, 2e-3], ratios: [1, 2, 3] }),
+      'NEGATIVE_VALUE',
+      /^concentrations\[1\]: must not be negative/,
+    );
   });
 
   it('zero or negative intensity', () => {
-    expectEngineError(() => fitIntensitySternVolmer({ concentrations: [0, 1e-3, 2e-3], intensities: [100, 0, 40] }), 'NON_POSITIVE_VALUE', /^intensities\[1\]: must be greater than zero, got 0\. A ratio I0\/I needs positive intensities/);
-    expectEngineError(() => fitIntensitySternVolmer({ concentrations: [0, 1e-3, 2e-3], intensities: [100, -5, 40] }), 'NON_POSITIVE_VALUE', /got -5/);
+    expectEngineError(
+      () => fitIntensitySternVolmer({ concentrations: [0, 1e-3, 2e-3], intensities: [100, 0, 40] }),
+      'NON_POSITIVE_VALUE',
+      /^intensities\[1\]: must be greater than zero, got 0\. A ratio I0\/I needs positive intensities/,
+    );
+    expectEngineError(
+      () => fitIntensitySternVolmer({ concentrations: [0, 1e-3, 2e-3], intensities: [100, -5, 40] }),
+      'NON_POSITIVE_VALUE',
+      /got -5/,
+    );
   });
 
   it('no I0: no zero point and none given', () => {
-    expectEngineError(() => fitIntensitySternVolmer({ concentrations: [1e-3, 2e-3, 3e-3], intensities: [80, 60, 50] }), 'MISSING_I0', /^i0: there is no point at zero quencher concentration/);
-    expectEngineError(() => fitLifetimeSternVolmer({ concentrations: [1e-3, 2e-3, 3e-3], lifetimes: [8e-7, 6e-7, 5e-7] }), 'MISSING_TAU0', /^tau0:/);
+    expectEngineError(
+      () => fitIntensitySternVolmer({ concentrations: [1e-3, 2e-3, 3e-3], intensities: [80, 60, 50] }),
+      'MISSING_I0',
+      /^i0: there is no point at zero quencher concentration/,
+    );
+    expectEngineError(
+      () => fitLifetimeSternVolmer({ concentrations: [1e-3, 2e-3, 3e-3], lifetimes: [8e-7, 6e-7, 5e-7] }),
+      'MISSING_TAU0',
+      /^tau0:/,
+    );
   });
 
   it('mismatched lengths', () => {
-    expectEngineError(() => fitSternVolmer({ concentrations: [0, 1, 2], ratios: [1, 2] }), 'LENGTH_MISMATCH', /^ratios: has 2 values but concentrations has 3/);
+    expectEngineError(
+      () => fitSternVolmer({ concentrations: [0, 1, 2], ratios: [1, 2] }),
+      'LENGTH_MISMATCH',
+      /^ratios: has 2 values but concentrations has 3/,
+    );
   });
 });

@@ -13,7 +13,9 @@ describe('loadConfig', () => {
 
   it('when DATABASE_URL points elsewhere, then demo data is off unless asked for', () => {
     expect(loadConfig({ DATABASE_URL: 'postgres://u:p@db.example:5432/x' }).demoData).toBe(false);
-    expect(loadConfig({ DATABASE_URL: 'postgres://u:p@db.example:5432/x', HALFLIGHT_DEMO_DATA: 'true' }).demoData).toBe(true);
+    expect(loadConfig({ DATABASE_URL: 'postgres://u:p@db.example:5432/x', HALFLIGHT_DEMO_DATA: 'true' }).demoData).toBe(
+      true,
+    );
   });
 
   it('when variables are malformed, then one error names each of them', () => {

@@ -5,7 +5,12 @@ import { cellValue, csvDelimiter } from '../../../server/services/library/librar
 describe('neutraliseCell', () => {
   // OWASP "CSV Injection": cells beginning with =, +, -, @ are prefixed so spreadsheets read them as text.
   it('when a text cell starts with = + - or @, then it gets a leading apostrophe', () => {
-    expect(['=SUM(A1)', '+cmd', '-2+3', '@SUM(1)'].map(neutraliseCell)).toEqual(["'=SUM(A1)", "'+cmd", "'-2+3", "'@SUM(1)"]);
+    expect(['=SUM(A1)', '+cmd', '-2+3', '@SUM(1)'].map(neutraliseCell)).toEqual([
+      "'=SUM(A1)",
+      "'+cmd",
+      "'-2+3",
+      "'@SUM(1)",
+    ]);
   });
 
   it('when a cell is a plain signed number such as a potential, then it stays as written', () => {

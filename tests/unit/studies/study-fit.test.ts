@@ -1,15 +1,44 @@
 import { linearRegression } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
-import { computeStudyFit, type FitSettings, type SeriesPoint } from '../../../server/services/studies/fit/compute-study-fit';
+import {
+  computeStudyFit,
+  type FitSettings,
+  type SeriesPoint,
+} from '../../../server/services/studies/fit/compute-study-fit';
 import { correctPoint } from '../../../server/services/studies/fit/series-corrections';
 
 const settings: FitSettings = {
-  solventId: 'acetonitrile', customSolventName: null, customViscosity: null, temperature: 298.15,
-  tau0: 1e-6, tau0Uncertainty: null, tau0LifetimeId: null, dataKind: 'intensity', i0: null,
-  dilutionCorrection: false, initialVolume: null, stockConcentration: null, stockContainsEmitter: false, innerFilterCorrection: false,
+  solventId: 'acetonitrile',
+  customSolventName: null,
+  customViscosity: null,
+  temperature: 298.15,
+  tau0: 1e-6,
+  tau0Uncertainty: null,
+  tau0LifetimeId: null,
+  dataKind: 'intensity',
+  i0: null,
+  dilutionCorrection: false,
+  initialVolume: null,
+  stockConcentration: null,
+  stockContainsEmitter: false,
+  innerFilterCorrection: false,
 };
-const point = (position: number, concentration: number, intensity: number | null, extra: Partial<SeriesPoint> = {}): SeriesPoint => ({
-  position, concentration, intensity, lifetime: null, absorbanceExcitation: null, absorbanceEmission: null, volumeAdded: null, uncertainty: null, excluded: false, ...extra,
+const point = (
+  position: number,
+  concentration: number,
+  intensity: number | null,
+  extra: Partial<SeriesPoint> = {},
+): SeriesPoint => ({
+  position,
+  concentration,
+  intensity,
+  lifetime: null,
+  absorbanceExcitation: null,
+  absorbanceEmission: null,
+  volumeAdded: null,
+  uncertainty: null,
+  excluded: false,
+  ...extra,
 });
 // Exact line I0/I = 1 + 500 [Q] (constructed, so K_SV = 500 M^-1 by hand).
 const exact = [0, 1e-3, 2e-3, 3e-3, 4e-3, 5e-3].map((q, i) => point(i, q, 1000 / (1 + 500 * q)));
@@ -26,7 +55,9 @@ describe('points -> engine', () => {
   });
 
   it('when the points scatter, then the free-intercept slope equals simple-statistics linearRegression on (Q, I0/I)', () => {
-    const noisy = [0, 1e-3, 2e-3, 3e-3, 4e-3, 5e-3].map((q, i) => point(i, q, 1000 / (1 + 500 * q + [0, 0.02, -0.015, 0.01, -0.02, 0.012][i]!)));
+    const noisy = [0, 1e-3, 2e-3, 3e-3, 4e-3, 5e-3].map((q, i) =>
+      point(i, q, 1000 / (1 + 500 * q + [0, 0.02, -0.015, 0.01, -0.02, 0.012][i]!)),
+    );
     const fit = computeStudyFit(settings, noisy, 'linear-free');
     const reference = linearRegression(fit.pointsUsed.map((p) => [p.concentration, p.ratio])); // simple-statistics 7.x
     expect(fit.kSv).toBeCloseTo(reference.m, 8);
@@ -52,7 +83,9 @@ describe('points -> engine', () => {
   });
 
   it('when there is no blank and no I0, then the engine refuses with MISSING_I0', () => {
-    expect(() => computeStudyFit(settings, exact.slice(1), 'linear-free')).toThrow(/i0: there is no point at zero quencher concentration/);
+    expect(() => computeStudyFit(settings, exact.slice(1), 'linear-free')).toThrow(
+      /i0: there is no point at zero quencher concentration/,
+    );
   });
 
   it('when upward curvature comes from (1 + 300[Q])(1 + 100[Q]), then the combined model returns roots 300 and 100 (hand-computed)', () => {
@@ -79,13 +112,21 @@ describe('corrections', () => {
     expect(corrected.intensity).toBeCloseTo(90.9, 10);
   });
   it('when absorbances are 0.1 and 0.05, then the inner-filter factor is 10^0.075 = 1.18850 (hand-computed)', () => {
-    const corrected = correctPoint({ ...settings, innerFilterCorrection: true }, point(1, 1e-3, 100, { absorbanceExcitation: 0.1, absorbanceEmission: 0.05 }), false)!;
+    const corrected = correctPoint(
+      { ...settings, innerFilterCorrection: true },
+      point(1, 1e-3, 100, { absorbanceExcitation: 0.1, absorbanceEmission: 0.05 }),
+      false,
+    )!;
     expect(corrected.innerFilterFactor).toBeCloseTo(1.1885, 4);
     expect(corrected.intensity).toBeCloseTo(118.85, 2);
   });
   it('when a ratio is corrected, then it is divided by the factor (I0/I_corr = (I0/I)/f)', () => {
-    const corrected = correctPoint({ ...settings, innerFilterCorrection: true }, point(1, 1e-3, 2, { absorbanceExcitation: 0.1, absorbanceEmission: 0.05 }), true)!;
-    expect(corrected.intensity).toBeCloseTo(2 / 1.18850, 4);
+    const corrected = correctPoint(
+      { ...settings, innerFilterCorrection: true },
+      point(1, 1e-3, 2, { absorbanceExcitation: 0.1, absorbanceEmission: 0.05 }),
+      true,
+    )!;
+    expect(corrected.intensity).toBeCloseTo(2 / 1.1885, 4);
   });
 });
 
@@ -99,13 +140,17 @@ describe('lifetimes with the dilution correction on', () => {
   const added = [0, 20e-6, 40e-6, 60e-6, 80e-6];
   const lifetimesNs = [1000, 668.8742, 504.9505, 407.1146, 342.1053];
   const observed = [1000, 662.2517, 495.0495, 395.2569, 328.9474];
-  const diluted = added.map((volume, i) => point(i, i * 1e-3, observed[i]!, { volumeAdded: volume, lifetime: lifetimesNs[i]! * 1e-9 }));
+  const diluted = added.map((volume, i) =>
+    point(i, i * 1e-3, observed[i]!, { volumeAdded: volume, lifetime: lifetimesNs[i]! * 1e-9 }),
+  );
   const dilution = { ...settings, tau0: null, dilutionCorrection: true, initialVolume: 2e-3, stockConcentration: 0.1 };
 
   it('when lifetimes are fitted, then their [Q] are the diluted ones and tau0/tau gives 500 M^-1 like the intensities', () => {
     const fit = computeStudyFit(dilution, diluted, 'linear-free');
     const lifetime = fit.result.lifetime!;
-    expect(lifetime.points.map((p) => p.x)).toEqual([0, 9.900990e-4, 1.960784e-3, 2.912621e-3, 3.846154e-3].map((q) => expect.closeTo(q, 9)));
+    expect(lifetime.points.map((p) => p.x)).toEqual(
+      [0, 9.90099e-4, 1.960784e-3, 2.912621e-3, 3.846154e-3].map((q) => expect.closeTo(q, 9)),
+    );
     expect(lifetime.kSv.value).toBeCloseTo(500, 1); // the raw 0–4 mM would give about 481 M^-1
     expect(fit.kSv).toBeCloseTo(500, 1);
     expect(lifetime.verdict).toMatch(/dynamic quenching/);

@@ -36,7 +36,9 @@ describe('reading fixture files', () => {
     const { points, problems, table } = await read('series-comma-mM.csv');
     expect(problems).toEqual([]);
     expect(table.format).toMatch(/comma/);
-    expect(points.map((p) => p.concentration)).toEqual([0, 5e-4, 1e-3, 1.5e-3, 2e-3, 3e-3].map((q) => expect.closeTo(q, 15)));
+    expect(points.map((p) => p.concentration)).toEqual(
+      [0, 5e-4, 1e-3, 1.5e-3, 2e-3, 3e-3].map((q) => expect.closeTo(q, 15)),
+    );
     expect(points[1]!.intensity).toBeCloseTo(800, 6); // 1000 / (1 + 500 * 5e-4)
   });
   it('when the file has a BOM, semicolons, decimal commas, µM and ns, then all are understood', async () => {
@@ -81,10 +83,14 @@ describe('problems name row and column', () => {
   });
   it('when a concentration is negative, then that cell is named', async () => {
     const { problems } = await read('bad-negative-concentration.csv');
-    expect(problems[0]!.message).toMatch(/^Row 3, column 1 \("\[Q\] \(mM\)"\): expected a concentration of zero or more/);
+    expect(problems[0]!.message).toMatch(
+      /^Row 3, column 1 \("\[Q\] \(mM\)"\): expected a concentration of zero or more/,
+    );
   });
   it('when rows have fewer cells than the header, then the row is named', async () => {
-    await expect(readUpload('x.csv', fixture('bad-mismatched-columns.csv'))).rejects.toThrow('Row 3 has 2 cells where the header has 3 columns.');
+    await expect(readUpload('x.csv', fixture('bad-mismatched-columns.csv'))).rejects.toThrow(
+      'Row 3 has 2 cells where the header has 3 columns.',
+    );
   });
   it('when there is only a header, or nothing, or binary bytes, then the problem says so', async () => {
     await expect(readUpload('x.csv', fixture('bad-header-only.csv'))).rejects.toThrow(/no data rows/);
@@ -108,7 +114,20 @@ describe('spectrum reduction', () => {
   it('when a long spectrum is integrated, then the trapezoid sum matches the exact integral of a straight line', () => {
     // y = 3x + 1 over 400..800 nm read every 0.1 nm: exact integral 1.5 (700^2 - 450^2) + (700 - 450) = 431,500 (hand-computed)
     const x = Array.from({ length: 4001 }, (_, i) => 400 + i / 10);
-    expect(integrateWindow(x, x.map((value) => 3 * value + 1), 450.05, 700)).toBeCloseTo(1.5 * (700 ** 2 - 450.05 ** 2) + (700 - 450.05), 6);
-    expect(valueAt(x, x.map((value) => 3 * value + 1), 612.34)).toBeCloseTo(3 * 612.34 + 1, 9);
+    expect(
+      integrateWindow(
+        x,
+        x.map((value) => 3 * value + 1),
+        450.05,
+        700,
+      ),
+    ).toBeCloseTo(1.5 * (700 ** 2 - 450.05 ** 2) + (700 - 450.05), 6);
+    expect(
+      valueAt(
+        x,
+        x.map((value) => 3 * value + 1),
+        612.34,
+      ),
+    ).toBeCloseTo(3 * 612.34 + 1, 9);
   });
 });

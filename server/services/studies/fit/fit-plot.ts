@@ -1,6 +1,11 @@
 import { fitLine, fitQuadratic, studentTQuantile975 } from '@shared/engine';
 
-export interface BandPoint { x: number; y: number; lower: number; upper: number }
+export interface BandPoint {
+  x: number;
+  y: number;
+  lower: number;
+  upper: number;
+}
 
 const SAMPLES = 40;
 
@@ -14,19 +19,32 @@ function sampleX(x: readonly number[], from = 0): number[] {
  * Fitted line with its 95 % confidence band, var(y) = se_a^2 + x^2 se_b^2 + 2x cov(a,b)
  * (standard result for a least-squares line; the engine's fitLine supplies the covariance).
  */
-export function freeLineBand(x: readonly number[], y: readonly number[], weights?: readonly number[], from = 0): BandPoint[] {
+export function freeLineBand(
+  x: readonly number[],
+  y: readonly number[],
+  weights?: readonly number[],
+  from = 0,
+): BandPoint[] {
   const line = fitLine(x, y, weights);
   const t = studentTQuantile975(line.degreesOfFreedom);
   return sampleX(x, from).map((xi) => {
     const yi = line.intercept + line.slope * xi;
-    const variance = line.interceptStandardError ** 2 + xi * xi * line.slopeStandardError ** 2 + 2 * xi * line.slopeInterceptCovariance;
+    const variance =
+      line.interceptStandardError ** 2 +
+      xi * xi * line.slopeStandardError ** 2 +
+      2 * xi * line.slopeInterceptCovariance;
     const half = t * Math.sqrt(Math.max(variance, 0));
     return { x: xi, y: yi, lower: yi - half, upper: yi + half };
   });
 }
 
 /** Line 1 + K x through (0, 1): the band is t * x * SE(K). */
-export function fixedLineBand(x: readonly number[], k: number, kStandardError: number, degreesOfFreedom: number): BandPoint[] {
+export function fixedLineBand(
+  x: readonly number[],
+  k: number,
+  kStandardError: number,
+  degreesOfFreedom: number,
+): BandPoint[] {
   const t = studentTQuantile975(degreesOfFreedom);
   return sampleX(x).map((xi) => {
     const yi = 1 + k * xi;
@@ -36,7 +54,11 @@ export function fixedLineBand(x: readonly number[], k: number, kStandardError: n
 
 /** 1 + b1 x + b2 x^2 with the band from the (b1, b2) covariance of the engine's fitQuadratic. */
 export function quadraticBand(x: readonly number[], ratios: readonly number[]): BandPoint[] {
-  const fit = fitQuadratic(x, ratios.map((ratio) => ratio - 1), { throughOrigin: true });
+  const fit = fitQuadratic(
+    x,
+    ratios.map((ratio) => ratio - 1),
+    { throughOrigin: true },
+  );
   const [, b1, b2] = fit.coefficients;
   const [, se1, se2] = fit.standardErrors;
   const t = studentTQuantile975(fit.degreesOfFreedom);

@@ -1,6 +1,12 @@
 import {
-  diffusionRateConstant, EngineError, getSolvent, quenchingRateConstant, solventDiffusionLimit, studentTQuantile975,
-  type ParameterEstimate, type QualityFlag,
+  diffusionRateConstant,
+  EngineError,
+  getSolvent,
+  quenchingRateConstant,
+  solventDiffusionLimit,
+  studentTQuantile975,
+  type ParameterEstimate,
+  type QualityFlag,
 } from '@shared/engine';
 import type { FitResult } from '@shared/schemas/study-fits';
 
@@ -18,7 +24,10 @@ export interface KineticsSettings {
  * Diffusion limit k_diff = 8RT/(3 eta) for the study: the entered viscosity at the study's
  * temperature when there is one, else the engine's 25 °C table value for the solvent.
  */
-export function diffusionLimitFor(settings: KineticsSettings, notes: string[]): { value: number; basis: string } | null {
+export function diffusionLimitFor(
+  settings: KineticsSettings,
+  notes: string[],
+): { value: number; basis: string } | null {
   if (settings.customViscosity !== null) {
     const value = diffusionRateConstant(settings.customViscosity, settings.temperature);
     return { value, basis: `entered viscosity ${settings.customViscosity} Pa s at ${settings.temperature} K` };
@@ -28,7 +37,9 @@ export function diffusionLimitFor(settings: KineticsSettings, notes: string[]): 
     const value = solventDiffusionLimit(settings.solventId);
     const solvent = getSolvent(settings.solventId);
     if (Math.abs(settings.temperature - 298.15) > 0.5) {
-      notes.push(`The diffusion limit uses the 25 °C viscosity of ${solvent.name}; enter the viscosity at ${settings.temperature} K for a closer limit.`);
+      notes.push(
+        `The diffusion limit uses the 25 °C viscosity of ${solvent.name}; enter the viscosity at ${settings.temperature} K for a closer limit.`,
+      );
     }
     return { value, basis: `${solvent.name} at 25 °C (${solvent.viscositySource})` };
   } catch (error) {
@@ -56,14 +67,21 @@ export function rateConstant(
   });
   const half = studentTQuantile975(degreesOfFreedom) * result.standardError;
   return {
-    kq: { value: result.value, standardError: result.standardError, interval95: { lower: result.value - half, upper: result.value + half } },
+    kq: {
+      value: result.value,
+      standardError: result.standardError,
+      interval95: { lower: result.value - half, upper: result.value + half },
+    },
     ratio: result.fractionOfDiffusionLimit,
     flags: result.flags,
   };
 }
 
 /** The tau0 used for kq: entered (or from a lifetime record), else from the lifetime series' blanks. */
-export function tau0For(settings: KineticsSettings, lifetimeTau0: { value: number; relativeStandardError: number | null } | null): FitResult['tau0'] {
+export function tau0For(
+  settings: KineticsSettings,
+  lifetimeTau0: { value: number; relativeStandardError: number | null } | null,
+): FitResult['tau0'] {
   if (settings.tau0 !== null) {
     return {
       value: settings.tau0,
@@ -72,7 +90,11 @@ export function tau0For(settings: KineticsSettings, lifetimeTau0: { value: numbe
     };
   }
   if (lifetimeTau0) {
-    return { value: lifetimeTau0.value, standardError: lifetimeTau0.value * (lifetimeTau0.relativeStandardError ?? 0), source: 'lifetime series at zero quencher' };
+    return {
+      value: lifetimeTau0.value,
+      standardError: lifetimeTau0.value * (lifetimeTau0.relativeStandardError ?? 0),
+      source: 'lifetime series at zero quencher',
+    };
   }
   return null;
 }

@@ -1,7 +1,16 @@
-import { compareStaticDynamic, EngineError, fitLifetimeSternVolmer, type QualityFlag, type SternVolmerFit } from '@shared/engine';
+import {
+  compareStaticDynamic,
+  EngineError,
+  fitLifetimeSternVolmer,
+  type QualityFlag,
+  type SternVolmerFit,
+} from '@shared/engine';
 import type { LifetimeSternVolmerFit } from '@shared/engine';
 
-interface LifetimePoint { concentration: number; lifetime: number | null }
+interface LifetimePoint {
+  concentration: number;
+  lifetime: number | null;
+}
 
 export interface LifetimeAnalysis {
   fit: LifetimeSternVolmerFit;
@@ -23,7 +32,11 @@ const VERDICTS = {
  * points carry a lifetime; tau0 from the blanks, else the study's tau0. Returns null with a
  * note when the lifetimes cannot be fitted.
  */
-export function lifetimeAnalysis(points: readonly LifetimePoint[], studyTau0: number | null, notes: string[]): LifetimeAnalysis | null {
+export function lifetimeAnalysis(
+  points: readonly LifetimePoint[],
+  studyTau0: number | null,
+  notes: string[],
+): LifetimeAnalysis | null {
   const withLifetime = points.filter((point) => point.lifetime !== null);
   if (withLifetime.length < 3) return null;
   const concentrations = withLifetime.map((point) => point.concentration);
@@ -31,7 +44,11 @@ export function lifetimeAnalysis(points: readonly LifetimePoint[], studyTau0: nu
   const hasBlank = concentrations.includes(0);
   let fit: LifetimeSternVolmerFit;
   try {
-    fit = fitLifetimeSternVolmer({ concentrations, lifetimes, ...(!hasBlank && studyTau0 !== null ? { tau0: studyTau0 } : {}) });
+    fit = fitLifetimeSternVolmer({
+      concentrations,
+      lifetimes,
+      ...(!hasBlank && studyTau0 !== null ? { tau0: studyTau0 } : {}),
+    });
   } catch (error) {
     if (error instanceof EngineError) {
       notes.push(`Lifetimes not fitted: ${error.message}`);

@@ -31,7 +31,11 @@ export interface CorrectedValues {
  * correctInnerFilter. With ratio data (I0/I) the ratio is divided by the factor, because
  * correcting I by a factor f turns I0/I into (I0/I)/f. Returns null when no correction is on.
  */
-export function correctPoint(settings: CorrectionSettings, point: CorrectablePoint, isRatio: boolean): CorrectedValues | null {
+export function correctPoint(
+  settings: CorrectionSettings,
+  point: CorrectablePoint,
+  isRatio: boolean,
+): CorrectedValues | null {
   if (!settings.dilutionCorrection && !settings.innerFilterCorrection) return null;
   let concentration = point.concentration;
   let factor = 1;

@@ -15,7 +15,9 @@ function columnName(table: RawTable, index: number) {
 
 function requireColumn(table: RawTable, index: number | null, what: string) {
   if (index !== null && (index < 0 || index >= table.headers.length)) {
-    throw new ParseProblem(`The mapping puts ${what} in column ${index + 1}, but the table has ${table.headers.length} columns.`);
+    throw new ParseProblem(
+      `The mapping puts ${what} in column ${index + 1}, but the table has ${table.headers.length} columns.`,
+    );
   }
 }
 
@@ -30,7 +32,8 @@ function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParsePr
     ['uncertainty', mapping.uncertainty, 'an uncertainty above zero'],
   ];
   for (const [name, index] of roles) requireColumn(table, index, name);
-  if (mapping.intensity === null && mapping.lifetime === null) throw new ParseProblem('Map an intensity (or I0/I) column or a lifetime column.');
+  if (mapping.intensity === null && mapping.lifetime === null)
+    throw new ParseProblem('Map an intensity (or I0/I) column or a lifetime column.');
   const scale: Record<string, number> = {
     concentration: CONCENTRATION_FACTORS[mapping.concentrationUnit],
     lifetime: TIME_FACTORS[mapping.lifetimeUnit],
@@ -45,10 +48,16 @@ function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParsePr
       }
       const text = row.cells[index] ?? '';
       const value = parseCellNumber(text, table.decimalComma);
-      const bad = value === undefined || (value === null && name === 'concentration')
-        || (value !== null && value !== undefined && (((name === 'concentration' || name === 'volumeAdded') && value < 0) || ((name === 'lifetime' || name === 'uncertainty') && value <= 0)));
+      const bad =
+        value === undefined ||
+        (value === null && name === 'concentration') ||
+        (value !== null &&
+          value !== undefined &&
+          (((name === 'concentration' || name === 'volumeAdded') && value < 0) ||
+            ((name === 'lifetime' || name === 'uncertainty') && value <= 0)));
       if (bad) {
-        if (problems.length < MAX_PROBLEMS) problems.push(cellProblem(row.line, columnName(table, index), expected, text));
+        if (problems.length < MAX_PROBLEMS)
+          problems.push(cellProblem(row.line, columnName(table, index), expected, text));
         values[name] = null;
         continue;
       }
@@ -77,7 +86,10 @@ function spectrumPoints(table: RawTable, mapping: SpectrumMapping, problems: Par
     return (i: number) => {
       const value = values[i];
       if (value === null || value === undefined) {
-        if (problems.length < MAX_PROBLEMS) problems.push(cellProblem(table.rows[i]!.line, columnName(table, index), expected, table.rows[i]!.cells[index] ?? ''));
+        if (problems.length < MAX_PROBLEMS)
+          problems.push(
+            cellProblem(table.rows[i]!.line, columnName(table, index), expected, table.rows[i]!.cells[index] ?? ''),
+          );
         return Number.NaN;
       }
       return value;
@@ -102,9 +114,10 @@ function spectrumPoints(table: RawTable, mapping: SpectrumMapping, problems: Par
   if (problems.length > 0) return [];
   return mapping.samples.map((sample, i) => ({
     concentration: sample.concentration,
-    intensity: mapping.reduction.kind === 'window'
-      ? integrateWindow(spectra[i]!.x, spectra[i]!.y, mapping.reduction.start, mapping.reduction.end)
-      : valueAt(spectra[i]!.x, spectra[i]!.y, mapping.reduction.at),
+    intensity:
+      mapping.reduction.kind === 'window'
+        ? integrateWindow(spectra[i]!.x, spectra[i]!.y, mapping.reduction.start, mapping.reduction.end)
+        : valueAt(spectra[i]!.x, spectra[i]!.y, mapping.reduction.at),
     lifetime: null,
     absorbanceExcitation: null,
     absorbanceEmission: null,
@@ -116,8 +129,12 @@ function spectrumPoints(table: RawTable, mapping: SpectrumMapping, problems: Par
 }
 
 /** Table + mapping -> series points in SI units; every bad cell is reported by row and column. */
-export function applyMapping(table: RawTable, mapping: UploadMapping): { points: StudyPointValues[]; problems: ParseProblem[] } {
+export function applyMapping(
+  table: RawTable,
+  mapping: UploadMapping,
+): { points: StudyPointValues[]; problems: ParseProblem[] } {
   const problems: ParseProblem[] = [];
-  const points = mapping.layout === 'series' ? seriesPoints(table, mapping, problems) : spectrumPoints(table, mapping, problems);
+  const points =
+    mapping.layout === 'series' ? seriesPoints(table, mapping, problems) : spectrumPoints(table, mapping, problems);
   return { points: problems.length > 0 ? [] : points, problems };
 }

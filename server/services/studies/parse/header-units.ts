@@ -5,14 +5,23 @@ export const VOLUME_FACTORS = { L: 1, mL: 1e-3, uL: 1e-6 } as const;
 
 const micro = (unit: string) => unit.replace(/^[µμ]/, 'u');
 
-const KNOWN_UNITS = new Set<string>([...Object.keys(CONCENTRATION_FACTORS), ...Object.keys(TIME_FACTORS), ...Object.keys(VOLUME_FACTORS)]);
+const KNOWN_UNITS = new Set<string>([
+  ...Object.keys(CONCENTRATION_FACTORS),
+  ...Object.keys(TIME_FACTORS),
+  ...Object.keys(VOLUME_FACTORS),
+]);
 
 /** The unit written in a header, e.g. "[Q] (mM)", "conc / µM", "tau_ns", "lifetime [us]"; the last known unit wins. */
 export function headerUnit(header: string): string | null {
   const candidates = [...header.matchAll(/[([]\s*([a-zA-Zµμ]{1,3})\s*[)\]]/g)].map((match) => match[1]!);
   const trailing = header.match(/(?:[/_ ]|^)([a-zA-Zµμ]{1,3})\s*$/);
   if (trailing) candidates.push(trailing[1]!);
-  return candidates.map(micro).filter((unit) => KNOWN_UNITS.has(unit)).at(-1) ?? null;
+  return (
+    candidates
+      .map(micro)
+      .filter((unit) => KNOWN_UNITS.has(unit))
+      .at(-1) ?? null
+  );
 }
 
 export const concentrationUnitOf = (header: string) => {

@@ -12,5 +12,9 @@ export class ParseProblem extends Error {
 
 /** "Row 5, column 2 (intensity): expected a number, found "abc"." */
 export function cellProblem(row: number, column: string, expected: string, found: string): ParseProblem {
-  return new ParseProblem(`Row ${row}, column ${column}: expected ${expected}, found "${found.slice(0, 40)}".`, row, column);
+  return new ParseProblem(
+    `Row ${row}, column ${column}: expected ${expected}, found "${found.slice(0, 40)}".`,
+    row,
+    column,
+  );
 }

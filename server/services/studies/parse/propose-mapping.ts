@@ -34,8 +34,13 @@ function sharedRange(table: RawTable, columns: number[]) {
 export function mappingNotes(table: RawTable, mapping: UploadMapping): string[] {
   if (mapping.layout !== 'spectrum') return [];
   const used = new Set(mapping.samples.map((sample) => sample.column));
-  return table.headers.flatMap((header, column) => (column === mapping.wavelength || used.has(column) ? []
-    : [`Spectrum "${header}" names no quencher concentration (in its title, ##CONCENTRATIONS= or sample description); type it to use this spectrum.`]));
+  return table.headers.flatMap((header, column) =>
+    column === mapping.wavelength || used.has(column)
+      ? []
+      : [
+          `Spectrum "${header}" names no quencher concentration (in its title, ##CONCENTRATIONS= or sample description); type it to use this spectrum.`,
+        ],
+  );
 }
 
 /**
@@ -45,12 +50,22 @@ export function mappingNotes(table: RawTable, mapping: UploadMapping): string[] 
  */
 export function proposeMapping(table: RawTable): UploadMapping {
   const { headers } = table;
-  const sampleColumns = headers.slice(1).map((header, i) => ({ column: i + 1, concentration: concentrationInHeader(header) }));
+  const sampleColumns = headers
+    .slice(1)
+    .map((header, i) => ({ column: i + 1, concentration: concentrationInHeader(header) }));
   const named = sampleColumns.every((sample) => sample.concentration !== null);
-  if (table.layoutHint === 'spectrum' || (/wave|lambda|λ|\bnm\b/i.test(headers[0]!) && sampleColumns.length >= 2 && named)) {
+  if (
+    table.layoutHint === 'spectrum' ||
+    (/wave|lambda|λ|\bnm\b/i.test(headers[0]!) && sampleColumns.length >= 2 && named)
+  ) {
     // Spectra without a concentration stay out until the user types one (mappingNotes says which).
-    const samples = sampleColumns.flatMap((sample) => (sample.concentration === null ? [] : [{ column: sample.column, concentration: sample.concentration }]));
-    const { low, high } = sharedRange(table, sampleColumns.map((sample) => sample.column));
+    const samples = sampleColumns.flatMap((sample) =>
+      sample.concentration === null ? [] : [{ column: sample.column, concentration: sample.concentration }],
+    );
+    const { low, high } = sharedRange(
+      table,
+      sampleColumns.map((sample) => sample.column),
+    );
     return { layout: 'spectrum', wavelength: 0, samples, reduction: { kind: 'window', start: low, end: high } };
   }
   const taken = new Set<number>();
@@ -71,7 +86,8 @@ export function proposeMapping(table: RawTable): UploadMapping {
     concentrationUnit: concentrationUnitOf(concentrationHeader) ?? 'M',
     intensity: byPosition,
     intensityIsRatio: ratio !== null,
-    lifetime: lifetime ?? (headers.length >= 3 && byPosition !== null && intensity === null ? (free.shift() ?? null) : null),
+    lifetime:
+      lifetime ?? (headers.length >= 3 && byPosition !== null && intensity === null ? (free.shift() ?? null) : null),
     lifetimeUnit: lifetime !== null ? (timeUnitOf(headers[lifetime]!) ?? 's') : 's',
     absorbanceExcitation,
     absorbanceEmission,

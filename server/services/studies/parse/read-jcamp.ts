@@ -16,7 +16,10 @@ function fromConcentrationsLabel(text: string): number | null {
   const entries = [...text.matchAll(/\(([^,()]*),\s*([^,()]+?)\s*,\s*([^,()]+?)\s*\)/g)];
   // Several substances (emitter and quencher) leave it open which one is [Q]: ask in the mapping instead.
   if (entries.length !== 1) return null;
-  const unit = entries[0]![3]!.replace(/mol\s*\/\s*L$/i, 'M').replace(/^mmol\s*\/\s*L$/i, 'mM').replace(/^MM$/, 'mM');
+  const unit = entries[0]![3]!
+    .replace(/mol\s*\/\s*L$/i, 'M')
+    .replace(/^mmol\s*\/\s*L$/i, 'mM')
+    .replace(/^MM$/, 'mM');
   return concentrationInHeader(`${entries[0]![2]} ${unit}`);
 }
 
@@ -31,12 +34,17 @@ function blockConcentration(entry: Entry): number | null {
     concentrationInHeader(text(entry.title)),
     fromConcentrationsLabel(text(entry.info.CONCENTRATIONS)),
     concentrationInHeader(text(entry.info.SAMPLEDESCRIPTION)),
-    ...Object.entries(entry.meta).filter(([label]) => /CONC/i.test(label)).map(([, value]) => concentrationInHeader(text(value))),
+    ...Object.entries(entry.meta)
+      .filter(([label]) => /CONC/i.test(label))
+      .map(([, value]) => concentrationInHeader(text(value))),
   ];
   return candidates.find((value) => value !== null) ?? null;
 }
 
-interface Column { header: string; byWavelength: Map<number, number> }
+interface Column {
+  header: string;
+  byWavelength: Map<number, number>;
+}
 
 // 15 significant digits drop the float noise of Y x YFACTOR (33.333333 rather than 33.333332999999996).
 const cellText = (value: number | undefined) => (value === undefined ? '' : String(Number(value.toPrecision(15))));
@@ -44,21 +52,32 @@ const cellText = (value: number | undefined) => (value === undefined ? '' : Stri
 function blockColumns(entry: Entry, index: number): Column[] {
   const title = entry.title?.trim() || `spectrum ${index + 1}`;
   return entry.spectra.map((spectrum, page) => {
-    const units = String(spectrum.xUnits ?? entry.info.XUNITS ?? '').trim().toUpperCase();
+    const units = String(spectrum.xUnits ?? entry.info.XUNITS ?? '')
+      .trim()
+      .toUpperCase();
     const toNm = TO_NANOMETRES[units];
-    if (!toNm) throw new ParseProblem(`Block "${title}" has ##XUNITS=${units || ' (none)'}; Halflight reads NANOMETERS, MICROMETERS or 1/CM.`);
+    if (!toNm)
+      throw new ParseProblem(
+        `Block "${title}" has ##XUNITS=${units || ' (none)'}; Halflight reads NANOMETERS, MICROMETERS or 1/CM.`,
+      );
     const { x = [], y = [] } = spectrum.data;
     if (x.length === 0 || x.length !== y.length) throw new ParseProblem(`Block "${title}" holds no readable x,y data.`);
     const byWavelength = new Map<number, number>();
     x.forEach((xi, i) => {
       const nm = toNm(xi);
-      if (!Number.isFinite(nm) || !Number.isFinite(y[i]!) || nm <= 0) throw new ParseProblem(`Block "${title}", point ${i + 1}: expected a positive x and a number y, found ${xi}, ${y[i]}.`);
+      if (!Number.isFinite(nm) || !Number.isFinite(y[i]!) || nm <= 0)
+        throw new ParseProblem(
+          `Block "${title}", point ${i + 1}: expected a positive x and a number y, found ${xi}, ${y[i]}.`,
+        );
       byWavelength.set(Number(nm.toPrecision(10)), y[i]!);
     });
     const concentration = blockConcentration(entry);
     const name = entry.spectra.length > 1 ? `${title} (page ${page + 1})` : title;
     // The header carries the concentration so the spectrum-matrix mapping reads it as from a CSV header.
-    const header = concentration !== null && concentrationInHeader(name) === null ? `${name} ([Q] ${Number(concentration.toPrecision(6))} M)` : name;
+    const header =
+      concentration !== null && concentrationInHeader(name) === null
+        ? `${name} ([Q] ${Number(concentration.toPrecision(6))} M)`
+        : name;
     return { header, byWavelength };
   });
 }
@@ -70,7 +89,8 @@ function blockColumns(entry: Entry, index: number): Column[] {
  */
 export function readJcamp(bytes: Buffer): RawTable {
   const text = decodeText(bytes).replace(/^\uFEFF/, '');
-  if (!text.trimStart().startsWith('##')) throw new ParseProblem('This is not JCAMP-DX: the file should start with a ##TITLE= line.');
+  if (!text.trimStart().startsWith('##'))
+    throw new ParseProblem('This is not JCAMP-DX: the file should start with a ##TITLE= line.');
   let entries: Entry[];
   try {
     entries = convert(text, { keepRecordsRegExp: /.*/ }).flatten;
@@ -78,9 +98,13 @@ export function readJcamp(bytes: Buffer): RawTable {
     throw new ParseProblem(`The JCAMP-DX file could not be read: ${(error as Error).message}`);
   }
   const columns = entries.filter((entry) => entry.spectra.length > 0).flatMap(blockColumns);
-  if (columns.length === 0) throw new ParseProblem('The JCAMP-DX file holds no spectrum (no ##XYDATA= or ##PEAK TABLE= block).');
+  if (columns.length === 0)
+    throw new ParseProblem('The JCAMP-DX file holds no spectrum (no ##XYDATA= or ##PEAK TABLE= block).');
   const wavelengths = [...new Set(columns.flatMap((column) => [...column.byWavelength.keys()]))].sort((a, b) => a - b);
-  const rows = wavelengths.map((nm, i) => ({ line: i + 1, cells: [String(nm), ...columns.map((column) => cellText(column.byWavelength.get(nm)))] }));
+  const rows = wavelengths.map((nm, i) => ({
+    line: i + 1,
+    cells: [String(nm), ...columns.map((column) => cellText(column.byWavelength.get(nm)))],
+  }));
   const gaps = rows.some((row) => row.cells.includes(''));
   return {
     headers: ['wavelength (nm)', ...columns.map((column) => column.header)],

@@ -15,12 +15,20 @@ export interface RawTable {
 }
 
 type Delimiter = ',' | ';' | '\t' | 'whitespace';
-const DELIMITER_NAMES: Record<Delimiter, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab', whitespace: 'whitespace' };
+const DELIMITER_NAMES: Record<Delimiter, string> = {
+  ',': 'comma',
+  ';': 'semicolon',
+  '\t': 'tab',
+  whitespace: 'whitespace',
+};
 
 /** Bytes to text: UTF-8 (BOM dropped), refusing binary data rather than guessing. */
 export function decodeText(bytes: Buffer): string {
   if (bytes.length === 0) throw new ParseProblem('The file is empty.');
-  if (bytes.includes(0)) throw new ParseProblem('The file holds binary data, not text; export the data as CSV or text, or upload the .xlsx workbook.');
+  if (bytes.includes(0))
+    throw new ParseProblem(
+      'The file holds binary data, not text; export the data as CSV or text, or upload the .xlsx workbook.',
+    );
   try {
     return new TextDecoder('utf-8', { fatal: true, ignoreBOM: false }).decode(bytes);
   } catch {
@@ -44,7 +52,9 @@ function detectDelimiter(lines: string[]): Delimiter {
 }
 
 function isNumberRow(cells: string[], decimalComma: boolean) {
-  return cells.length > 0 && cells.every((cell) => cell.trim() === '' || parseCellNumber(cell, decimalComma) !== undefined);
+  return (
+    cells.length > 0 && cells.every((cell) => cell.trim() === '' || parseCellNumber(cell, decimalComma) !== undefined)
+  );
 }
 
 /**
@@ -61,11 +71,20 @@ export function readTextTable(bytes: Buffer): RawTable {
   if (delimiter === 'whitespace') {
     records = [];
     text.split(/\r?\n/).forEach((line, index) => {
-      if (line.trim() !== '' && !line.trimStart().startsWith('#')) records.push({ line: index + 1, cells: line.trim().split(/\s+/) });
+      if (line.trim() !== '' && !line.trimStart().startsWith('#'))
+        records.push({ line: index + 1, cells: line.trim().split(/\s+/) });
     });
   } else {
     try {
-      const parsed = parse(text, { delimiter, relax_column_count: true, skip_empty_lines: true, comment: '#', info: true, trim: true, relax_quotes: true }) as unknown as Array<{ record: string[]; info: { lines: number } }>;
+      const parsed = parse(text, {
+        delimiter,
+        relax_column_count: true,
+        skip_empty_lines: true,
+        comment: '#',
+        info: true,
+        trim: true,
+        relax_quotes: true,
+      }) as unknown as Array<{ record: string[]; info: { lines: number } }>;
       records = parsed.map((entry) => ({ line: entry.info.lines, cells: entry.record }));
     } catch (error) {
       throw new ParseProblem(`The text could not be split into columns: ${(error as Error).message}`);
@@ -74,14 +93,27 @@ export function readTextTable(bytes: Buffer): RawTable {
   // A comma-separated file cannot use decimal commas; only the others are searched (cell by cell, no copy).
   const decimalComma = delimiter !== ',' && records.slice(1).some((record) => record.cells.some(looksLikeDecimalComma));
   const hasHeader = !isNumberRow(records[0]!.cells, decimalComma);
-  const headers = hasHeader ? records[0]!.cells.map((cell) => cell.trim()) : records[0]!.cells.map((_, i) => `column ${i + 1}`);
+  const headers = hasHeader
+    ? records[0]!.cells.map((cell) => cell.trim())
+    : records[0]!.cells.map((_, i) => `column ${i + 1}`);
   const rows = hasHeader ? records.slice(1) : records;
   if (rows.length === 0) throw new ParseProblem('The file has a header row but no data rows.', records[0]!.line);
-  if (headers.length < 2 || rows.every((row) => row.cells.length === 1)) throw new ParseProblem(`Only one column was found (read as ${DELIMITER_NAMES[delimiter]}-separated); a series needs at least concentration and intensity.`);
+  if (headers.length < 2 || rows.every((row) => row.cells.length === 1))
+    throw new ParseProblem(
+      `Only one column was found (read as ${DELIMITER_NAMES[delimiter]}-separated); a series needs at least concentration and intensity.`,
+    );
   for (const row of rows) {
     if (row.cells.length !== headers.length) {
-      throw new ParseProblem(`Row ${row.line} has ${row.cells.length} cells where the header has ${headers.length} columns.`, row.line);
+      throw new ParseProblem(
+        `Row ${row.line} has ${row.cells.length} cells where the header has ${headers.length} columns.`,
+        row.line,
+      );
     }
   }
-  return { headers, rows, decimalComma, format: `${DELIMITER_NAMES[delimiter]}-separated text${decimalComma ? ' with decimal commas' : ''}` };
+  return {
+    headers,
+    rows,
+    decimalComma,
+    format: `${DELIMITER_NAMES[delimiter]}-separated text${decimalComma ? ' with decimal commas' : ''}`,
+  };
 }

@@ -20,7 +20,7 @@ export async function readWorkbook(bytes: Buffer): Promise<RawTable> {
     throw new ParseProblem('The file is not a readable .xlsx workbook.');
   }
   const sheet = workbook.worksheets[0];
-  if (!sheet || sheet.rowCount === 0) throw new ParseProblem('The workbook\'s first sheet is empty.');
+  if (!sheet || sheet.rowCount === 0) throw new ParseProblem("The workbook's first sheet is empty.");
   const records: Array<{ line: number; cells: string[] }> = [];
   const width = sheet.columnCount;
   sheet.eachRow({ includeEmpty: false }, (row, rowNumber) => {

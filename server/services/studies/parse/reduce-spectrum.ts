@@ -32,7 +32,8 @@ function interpolateSorted(xs: readonly number[], ys: readonly number[], at: num
 /** Linear interpolation inside the measured range; outside it is an error. */
 export function valueAt(x: readonly number[], y: readonly number[], at: number): number {
   const { xs, ys } = sorted(x, y);
-  if (at < xs[0]! || at > xs.at(-1)!) throw new ParseProblem(`The reading wavelength ${at} nm lies outside the spectrum (${xs[0]}–${xs.at(-1)} nm).`);
+  if (at < xs[0]! || at > xs.at(-1)!)
+    throw new ParseProblem(`The reading wavelength ${at} nm lies outside the spectrum (${xs[0]}–${xs.at(-1)} nm).`);
   return interpolateSorted(xs, ys, at);
 }
 
@@ -43,7 +44,8 @@ export function valueAt(x: readonly number[], y: readonly number[], at: number):
 export function integrateWindow(x: readonly number[], y: readonly number[], start: number, end: number): number {
   if (!(end > start)) throw new ParseProblem(`The integration window must end above its start (${start}–${end} nm).`);
   const { xs, ys } = sorted(x, y);
-  if (start < xs[0]! || end > xs.at(-1)!) throw new ParseProblem(`The window ${start}–${end} nm reaches outside the spectrum (${xs[0]}–${xs.at(-1)} nm).`);
+  if (start < xs[0]! || end > xs.at(-1)!)
+    throw new ParseProblem(`The window ${start}–${end} nm reaches outside the spectrum (${xs[0]}–${xs.at(-1)} nm).`);
   // Trapezoids summed as the readings are walked: start edge, every reading inside, end edge.
   let area = 0;
   let previousX = start;

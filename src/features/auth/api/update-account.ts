@@ -14,6 +14,8 @@ export function useUpdateAccount() {
   return useMutation({
     mutationFn: updateAccount,
     onSuccess: (user) =>
-      queryClient.setQueryData<Session | null>(authKeys.session(), (session) => (session ? { ...session, user } : session)),
+      queryClient.setQueryData<Session | null>(authKeys.session(), (session) =>
+        session ? { ...session, user } : session,
+      ),
   });
 }

@@ -36,7 +36,10 @@ type FormProps = Omit<AcceptInvitationFormProps, 'invitation'>;
 
 function ExistingAccountForm({ token, onJoined }: FormProps) {
   const accept = useAcceptInvitation();
-  const form = useForm({ resolver: zodResolver(acceptInvitationSchema.pick({ password: true })), defaultValues: { password: '' } });
+  const form = useForm({
+    resolver: zodResolver(acceptInvitationSchema.pick({ password: true })),
+    defaultValues: { password: '' },
+  });
   const { errors } = form.formState;
   const onSubmit = form.handleSubmit(({ password }) =>
     accept.mutate(
@@ -77,7 +80,13 @@ function NewAccountForm({ token, onJoined }: FormProps) {
   );
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <TextField label="Your name" autoComplete="name" hint="As your lab mates will see it." error={errors.name?.message} {...form.register('name')} />
+      <TextField
+        label="Your name"
+        autoComplete="name"
+        hint="As your lab mates will see it."
+        error={errors.name?.message}
+        {...form.register('name')}
+      />
       <NewPasswordFields
         label="Password"
         hint="At least 10 characters."

@@ -14,8 +14,21 @@ interface NewPasswordFieldsProps {
 export function NewPasswordFields({ password, confirm, errors, label = 'New password', hint }: NewPasswordFieldsProps) {
   return (
     <>
-      <TextField label={label} type="password" autoComplete="new-password" hint={hint} error={errors.password} {...password} />
-      <TextField label={`${label}, once more`} type="password" autoComplete="new-password" error={errors.confirm} {...confirm} />
+      <TextField
+        label={label}
+        type="password"
+        autoComplete="new-password"
+        hint={hint}
+        error={errors.password}
+        {...password}
+      />
+      <TextField
+        label={`${label}, once more`}
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirm}
+        {...confirm}
+      />
     </>
   );
 }

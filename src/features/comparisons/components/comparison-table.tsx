@@ -12,20 +12,37 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
       <caption className="sr-only">Studies of {comparison.compound.name}</caption>
       <thead className="border-b border-paper-300 text-caption uppercase text-ink-500">
         <tr>
-          <th scope="col" className="py-2 pr-3">{partner}</th>
-          <th scope="col" className="pr-3">kq (M⁻¹ s⁻¹)</th>
-          <th scope="col" className="pr-3">K_SV (M⁻¹)</th>
-          <th scope="col" className="pr-3">Solvent</th>
-          <th scope="col" className="pr-3">ΔG_ET (eV)</th>
-          <th scope="col" className="pr-3">Flags</th>
+          <th scope="col" className="py-2 pr-3">
+            {partner}
+          </th>
+          <th scope="col" className="pr-3">
+            kq (M⁻¹ s⁻¹)
+          </th>
+          <th scope="col" className="pr-3">
+            K_SV (M⁻¹)
+          </th>
+          <th scope="col" className="pr-3">
+            Solvent
+          </th>
+          <th scope="col" className="pr-3">
+            ΔG_ET (eV)
+          </th>
+          <th scope="col" className="pr-3">
+            Flags
+          </th>
           <th scope="col">Review</th>
         </tr>
       </thead>
       <tbody>
         {comparison.rows.map((row) => (
-          <tr key={row.studyId} className={`border-b border-paper-200 tabular-nums ${row.status === 'approved' ? '' : 'text-ink-600'}`}>
+          <tr
+            key={row.studyId}
+            className={`border-b border-paper-200 tabular-nums ${row.status === 'approved' ? '' : 'text-ink-600'}`}
+          >
             <th scope="row" className="py-1.5 pr-3 font-bold">
-              <Link to={`/labs/${labId}/studies/${row.studyId}`} className="underline decoration-glow-400">{row.partner.name}</Link>
+              <Link to={`/labs/${labId}/studies/${row.studyId}`} className="underline decoration-glow-400">
+                {row.partner.name}
+              </Link>
             </th>
             <td className="pr-3">
               {row.kq ? sci(row.kq.value) : '—'}
@@ -34,10 +51,18 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
             <td className="pr-3">{row.kSv ? Number(row.kSv.value.toPrecision(3)) : '—'}</td>
             <td className="pr-3">{row.solvent}</td>
             <td className="pr-3" title={row.drivingForceMissing ?? undefined}>
-              {row.drivingForce ? `${row.drivingForce.electronvolts.toFixed(2)} (${row.drivingForce.pathway === 'oxidative' ? 'ox.' : 'red.'})` : 'missing'}
+              {row.drivingForce
+                ? `${row.drivingForce.electronvolts.toFixed(2)} (${row.drivingForce.pathway === 'oxidative' ? 'ox.' : 'red.'})`
+                : 'missing'}
             </td>
             <td className="pr-3 text-caption">{row.flags.map((flag) => flag.title).join('; ') || '—'}</td>
-            <td>{row.status === 'approved' ? <Signal tone="good">approved</Signal> : <Signal tone="waiting">{row.status}</Signal>}</td>
+            <td>
+              {row.status === 'approved' ? (
+                <Signal tone="good">approved</Signal>
+              ) : (
+                <Signal tone="waiting">{row.status}</Signal>
+              )}
+            </td>
           </tr>
         ))}
       </tbody>

@@ -28,17 +28,29 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
     ];
     if (trend.fit) {
       sets.push({
-        type: 'line', label: `${trend.solvent}: fit, λ = ${trend.fit.reorganisationEnergy.toFixed(2)} ± ${trend.fit.reorganisationEnergyStandardError.toFixed(2)} eV`,
+        type: 'line',
+        label: `${trend.solvent}: fit, λ = ${trend.fit.reorganisationEnergy.toFixed(2)} ± ${trend.fit.reorganisationEnergyStandardError.toFixed(2)} eV`,
         data: trend.fit.curve.map((point) => ({ x: point.drivingForce, y: point.log10Kq })),
-        borderColor: hue, pointRadius: 0, borderWidth: 2, showLine: true,
+        borderColor: hue,
+        pointRadius: 0,
+        borderWidth: 2,
+        showLine: true,
       });
     }
     if (trend.diffusionLimit && trend.points.length > 0) {
       const xs = trend.points.map((point) => point.drivingForce);
       sets.push({
-        type: 'line', label: `${trend.solvent}: diffusion limit`,
-        data: [{ x: Math.min(...xs) - 0.3, y: Math.log10(trend.diffusionLimit) }, { x: Math.max(...xs) + 0.3, y: Math.log10(trend.diffusionLimit) }],
-        borderColor: hue, borderDash: [6, 4], pointRadius: 0, borderWidth: 1, showLine: true,
+        type: 'line',
+        label: `${trend.solvent}: diffusion limit`,
+        data: [
+          { x: Math.min(...xs) - 0.3, y: Math.log10(trend.diffusionLimit) },
+          { x: Math.max(...xs) + 0.3, y: Math.log10(trend.diffusionLimit) },
+        ],
+        borderColor: hue,
+        borderDash: [6, 4],
+        pointRadius: 0,
+        borderWidth: 1,
+        showLine: true,
       });
     }
     return sets;
@@ -56,7 +68,8 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
           },
           onClick: (_event, elements, chart) => {
             const element = elements[0];
-            const point = element && (chart.data.datasets[element.datasetIndex]?.data[element.index] as { studyId?: string });
+            const point =
+              element && (chart.data.datasets[element.datasetIndex]?.data[element.index] as { studyId?: string });
             if (point?.studyId) void navigate(`/labs/${labId}/studies/${point.studyId}`);
           },
         }}

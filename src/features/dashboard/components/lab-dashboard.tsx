@@ -12,7 +12,10 @@ function StudyList({ labId, studies, empty }: { labId: string; studies: Dashboar
     <ul className="divide-y divide-paper-200">
       {studies.map((study) => (
         <li key={study.id} className="py-1.5">
-          <Link to={`/labs/${labId}/studies/${study.id}`} className="font-bold text-ink-900 underline decoration-glow-400">
+          <Link
+            to={`/labs/${labId}/studies/${study.id}`}
+            className="font-bold text-ink-900 underline decoration-glow-400"
+          >
             {study.title}
           </Link>
           <p className="text-caption text-ink-500">
@@ -54,7 +57,13 @@ export function LabDashboard({ labId, labName, canReview }: { labId: string; lab
               <li key={event.id}>
                 <strong className="text-ink-900">{event.actor ?? 'Halflight'}</strong> {event.description}
                 {event.targetType === 'study' && event.targetId && (
-                  <> · <Link className="underline" to={`/labs/${labId}/studies/${event.targetId}`}>open</Link></>
+                  <>
+                    {' '}
+                    ·{' '}
+                    <Link className="underline" to={`/labs/${labId}/studies/${event.targetId}`}>
+                      open
+                    </Link>
+                  </>
                 )}
                 <span className="ml-1 text-caption text-ink-500">{formatDateTime(event.at)}</span>
               </li>

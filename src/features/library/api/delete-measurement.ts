@@ -5,8 +5,13 @@ import { libraryKeys } from './library-keys';
 export type MeasurementSegment = 'potentials' | 'lifetimes' | 'energies';
 
 /** DELETE /api/labs/:labId/compounds/:compoundId/{potentials|lifetimes|energies}/:id (reviewers and admins). */
-export const deleteMeasurement = (labId: string, compoundId: string, segment: MeasurementSegment, id: string, version: number) =>
-  apiClient.delete<void>(`/api/labs/${labId}/compounds/${compoundId}/${segment}/${id}?version=${version}`);
+export const deleteMeasurement = (
+  labId: string,
+  compoundId: string,
+  segment: MeasurementSegment,
+  id: string,
+  version: number,
+) => apiClient.delete<void>(`/api/labs/${labId}/compounds/${compoundId}/${segment}/${id}?version=${version}`);
 
 export function useDeleteMeasurement(labId: string, compoundId: string) {
   const queryClient = useQueryClient();

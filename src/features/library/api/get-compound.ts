@@ -8,6 +8,9 @@ export const getCompound = (labId: string, compoundId: string, signal?: AbortSig
   apiClient.get<CompoundDetail>(`/api/labs/${labId}/compounds/${compoundId}`, { signal });
 
 export const getCompoundQueryOptions = (labId: string, compoundId: string) =>
-  queryOptions({ queryKey: libraryKeys.detail(labId, compoundId), queryFn: ({ signal }) => getCompound(labId, compoundId, signal) });
+  queryOptions({
+    queryKey: libraryKeys.detail(labId, compoundId),
+    queryFn: ({ signal }) => getCompound(labId, compoundId, signal),
+  });
 
 export const useCompound = (labId: string, compoundId: string) => useQuery(getCompoundQueryOptions(labId, compoundId));

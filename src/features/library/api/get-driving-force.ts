@@ -11,7 +11,10 @@ export function getDrivingForce(labId: string, query: DrivingForceQuery, signal?
 }
 
 export const getDrivingForceQueryOptions = (labId: string, query: DrivingForceQuery) =>
-  queryOptions({ queryKey: libraryKeys.drivingForce(labId, query), queryFn: ({ signal }) => getDrivingForce(labId, query, signal) });
+  queryOptions({
+    queryKey: libraryKeys.drivingForce(labId, query),
+    queryFn: ({ signal }) => getDrivingForce(labId, query, signal),
+  });
 
 export const useDrivingForce = (labId: string, query: DrivingForceQuery, enabled = true) =>
   useQuery({ ...getDrivingForceQueryOptions(labId, query), enabled });

@@ -5,7 +5,9 @@ import { libraryKeys } from './library-keys';
 
 /** GET .../lifetimes/:lifetimeId/dependents: the studies whose tau0 comes from this record. */
 export const getLifetimeDependents = (labId: string, compoundId: string, lifetimeId: string, signal?: AbortSignal) =>
-  apiClient.get<LifetimeDependents>(`/api/labs/${labId}/compounds/${compoundId}/lifetimes/${lifetimeId}/dependents`, { signal });
+  apiClient.get<LifetimeDependents>(`/api/labs/${labId}/compounds/${compoundId}/lifetimes/${lifetimeId}/dependents`, {
+    signal,
+  });
 
 export const getLifetimeDependentsQueryOptions = (labId: string, compoundId: string, lifetimeId: string) =>
   queryOptions({

@@ -7,6 +7,7 @@ export const libraryKeys = {
   list: (labId: string, query: CompoundListQuery) => [...libraryKeys.lab(labId), 'list', query] as const,
   detail: (labId: string, compoundId: string) => [...libraryKeys.lab(labId), 'detail', compoundId] as const,
   settings: (labId: string) => [...libraryKeys.lab(labId), 'settings'] as const,
-  drivingForce: (labId: string, query: DrivingForceQuery) => [...libraryKeys.lab(labId), 'driving-force', query] as const,
+  drivingForce: (labId: string, query: DrivingForceQuery) =>
+    [...libraryKeys.lab(labId), 'driving-force', query] as const,
   dependents: (labId: string, lifetimeId: string) => [...libraryKeys.lab(labId), 'dependents', lifetimeId] as const,
 };

@@ -11,17 +11,29 @@ import { libraryKeys } from './library-keys';
  * the version read): the studies API refits on every change, so that one call stores the new
  * fit. Otherwise POST /studies/:studyId/fits with the study's current model.
  */
-export async function refitStudy(labId: string, record: Pick<LifetimeDependents, 'value' | 'uncertainty'>, study: LifetimeDependent) {
+export async function refitStudy(
+  labId: string,
+  record: Pick<LifetimeDependents, 'value' | 'uncertainty'>,
+  study: LifetimeDependent,
+) {
   const studyUrl = `/api/labs/${labId}/studies/${study.studyId}`;
   if (!study.matchesRecord) {
-    const updated = await apiClient.patch<StudyDetail>(studyUrl, { tau0: record.value, tau0Uncertainty: record.uncertainty, version: study.version });
+    const updated = await apiClient.patch<StudyDetail>(studyUrl, {
+      tau0: record.value,
+      tau0Uncertainty: record.uncertainty,
+      version: study.version,
+    });
     return updated.latestFit;
   }
   return apiClient.post<StudyFit>(`${studyUrl}/fits`, { model: study.fitModel });
 }
 
 /** `onRefitted` lets the screen refresh what the studies feature keeps of the study. */
-export function useRefitStudy(labId: string, record: Pick<LifetimeDependents, 'lifetimeId' | 'value' | 'uncertainty'>, onRefitted?: () => void) {
+export function useRefitStudy(
+  labId: string,
+  record: Pick<LifetimeDependents, 'lifetimeId' | 'value' | 'uncertainty'>,
+  onRefitted?: () => void,
+) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (study: LifetimeDependent) => refitStudy(labId, record, study),

@@ -10,7 +10,8 @@ export const updateEnergy = (labId: string, compoundId: string, energyId: string
 export function useUpdateEnergy(labId: string, compoundId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ energyId, ...input }: EnergyUpdate & { energyId: string }) => updateEnergy(labId, compoundId, energyId, input),
+    mutationFn: ({ energyId, ...input }: EnergyUpdate & { energyId: string }) =>
+      updateEnergy(labId, compoundId, energyId, input),
     onSettled: () => queryClient.invalidateQueries({ queryKey: libraryKeys.lab(labId) }),
   });
 }

@@ -5,7 +5,8 @@ import { apiClient } from '@/lib/api-client';
 import { libraryKeys } from './library-keys';
 
 /** PATCH /api/labs/:labId/settings (admins). Every displayed potential changes with it. */
-export const updateLabSettings = (labId: string, input: LabSettingsUpdate) => apiClient.patch<LabSettings>(`/api/labs/${labId}/settings`, input);
+export const updateLabSettings = (labId: string, input: LabSettingsUpdate) =>
+  apiClient.patch<LabSettings>(`/api/labs/${labId}/settings`, input);
 
 export function useUpdateLabSettings(labId: string) {
   const queryClient = useQueryClient();

@@ -10,7 +10,8 @@ export const updateLifetime = (labId: string, compoundId: string, lifetimeId: st
 export function useUpdateLifetime(labId: string, compoundId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ lifetimeId, ...input }: LifetimeUpdate & { lifetimeId: string }) => updateLifetime(labId, compoundId, lifetimeId, input),
+    mutationFn: ({ lifetimeId, ...input }: LifetimeUpdate & { lifetimeId: string }) =>
+      updateLifetime(labId, compoundId, lifetimeId, input),
     onSettled: () => queryClient.invalidateQueries({ queryKey: libraryKeys.lab(labId) }),
   });
 }

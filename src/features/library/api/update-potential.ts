@@ -10,7 +10,8 @@ export const updatePotential = (labId: string, compoundId: string, potentialId: 
 export function useUpdatePotential(labId: string, compoundId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ potentialId, ...input }: PotentialUpdate & { potentialId: string }) => updatePotential(labId, compoundId, potentialId, input),
+    mutationFn: ({ potentialId, ...input }: PotentialUpdate & { potentialId: string }) =>
+      updatePotential(labId, compoundId, potentialId, input),
     // Excited-state potentials and every driving force that used the old value change with it.
     onSettled: () => queryClient.invalidateQueries({ queryKey: libraryKeys.lab(labId) }),
   });

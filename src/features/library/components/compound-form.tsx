@@ -11,7 +11,17 @@ import { showServerErrors } from '@/lib/form-errors';
 import { roleHintLabels } from './library-format';
 import { toNumber } from './form-number';
 
-const fields = ['name', 'roleHint', 'smiles', 'formula', 'emissiveState', 'tripletEnergy', 'tripletEnergySource', 'charge', 'notes'] as const;
+const fields = [
+  'name',
+  'roleHint',
+  'smiles',
+  'formula',
+  'emissiveState',
+  'tripletEnergy',
+  'tripletEnergySource',
+  'charge',
+  'notes',
+] as const;
 
 interface CompoundFormProps {
   initial?: Partial<CompoundInput>;
@@ -25,7 +35,16 @@ interface CompoundFormProps {
 export function CompoundForm({ initial, submitLabel, pending, onSave }: CompoundFormProps) {
   const form = useForm({
     resolver: zodResolver(compoundInputSchema),
-    defaultValues: { name: '', roleHint: 'photocatalyst' as const, smiles: '', formula: '', notes: '', charge: 0, tripletEnergySource: '', ...initial },
+    defaultValues: {
+      name: '',
+      roleHint: 'photocatalyst' as const,
+      smiles: '',
+      formula: '',
+      notes: '',
+      charge: 0,
+      tripletEnergySource: '',
+      ...initial,
+    },
   });
   const { errors } = form.formState;
   const onSubmit = form.handleSubmit(async (values) => {
@@ -36,21 +55,53 @@ export function CompoundForm({ initial, submitLabel, pending, onSave }: Compound
       showServerErrors(error, form.setError, fields);
     }
   });
-  const stateOptions = [{ value: '', label: 'not stated' }, ...emissiveStates.map((value) => ({ value, label: value }))];
+  const stateOptions = [
+    { value: '', label: 'not stated' },
+    ...emissiveStates.map((value) => ({ value, label: value })),
+  ];
   return (
     <form onSubmit={onSubmit} noValidate aria-label={submitLabel} className="grid gap-3 sm:grid-cols-3">
       <TextField label="Name or code" error={errors.name?.message} {...form.register('name')} />
-      <SelectField label="Used as" options={compoundRoleHints.map((value) => ({ value, label: roleHintLabels[value] }))} error={errors.roleHint?.message} {...form.register('roleHint')} />
+      <SelectField
+        label="Used as"
+        options={compoundRoleHints.map((value) => ({ value, label: roleHintLabels[value] }))}
+        error={errors.roleHint?.message}
+        {...form.register('roleHint')}
+      />
       <TextField label="Formula" error={errors.formula?.message} {...form.register('formula')} />
       <TextField label="SMILES" className="sm:col-span-2" error={errors.smiles?.message} {...form.register('smiles')} />
-      <TextField label="Charge" hint="Before electron transfer; sets the Coulomb term" inputMode="numeric" error={errors.charge?.message} {...form.register('charge', { setValueAs: toNumber })} />
-      <SelectField label="Emissive state" options={stateOptions} error={errors.emissiveState?.message} {...form.register('emissiveState', { setValueAs: (value) => value || null })} />
-      <TextField label="Triplet energy (eV)" inputMode="decimal" error={errors.tripletEnergy?.message} {...form.register('tripletEnergy', { setValueAs: (value) => (value === '' || value === null ? null : toNumber(value)) })} />
-      <TextField label="Triplet energy source" error={errors.tripletEnergySource?.message} {...form.register('tripletEnergySource')} />
+      <TextField
+        label="Charge"
+        hint="Before electron transfer; sets the Coulomb term"
+        inputMode="numeric"
+        error={errors.charge?.message}
+        {...form.register('charge', { setValueAs: toNumber })}
+      />
+      <SelectField
+        label="Emissive state"
+        options={stateOptions}
+        error={errors.emissiveState?.message}
+        {...form.register('emissiveState', { setValueAs: (value) => value || null })}
+      />
+      <TextField
+        label="Triplet energy (eV)"
+        inputMode="decimal"
+        error={errors.tripletEnergy?.message}
+        {...form.register('tripletEnergy', {
+          setValueAs: (value) => (value === '' || value === null ? null : toNumber(value)),
+        })}
+      />
+      <TextField
+        label="Triplet energy source"
+        error={errors.tripletEnergySource?.message}
+        {...form.register('tripletEnergySource')}
+      />
       <TextField label="Notes" className="sm:col-span-3" error={errors.notes?.message} {...form.register('notes')} />
       <div className="space-y-2 sm:col-span-3">
         {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-        <Button type="submit" pending={pending} pendingLabel="Saving…">{submitLabel}</Button>
+        <Button type="submit" pending={pending} pendingLabel="Saving…">
+          {submitLabel}
+        </Button>
       </div>
     </form>
   );

@@ -22,14 +22,27 @@ interface CompoundHeaderProps {
 }
 
 /** Name, role and identity of the compound, with editing for its author and curators. */
-export function CompoundHeader({ labId, labName, isDemo, compound, mayEdit, canCurate, onDeleted }: CompoundHeaderProps) {
+export function CompoundHeader({
+  labId,
+  labName,
+  isDemo,
+  compound,
+  mayEdit,
+  canCurate,
+  onDeleted,
+}: CompoundHeaderProps) {
   const [editing, setEditing] = useState(false);
   const [confirming, setConfirming] = useState(false);
   const update = useUpdateCompound(labId, compound.id);
   const remove = useDeleteCompound(labId, compound.id);
-  const facts = [compound.formula, compound.emissiveState && `emissive state ${compound.emissiveState}`,
-    compound.tripletEnergy !== null && `triplet energy ${compound.tripletEnergy.toFixed(2)} eV`, compound.charge !== 0 && `charge ${compound.charge > 0 ? '+' : ''}${compound.charge}`]
-    .filter(Boolean).join(' · ');
+  const facts = [
+    compound.formula,
+    compound.emissiveState && `emissive state ${compound.emissiveState}`,
+    compound.tripletEnergy !== null && `triplet energy ${compound.tripletEnergy.toFixed(2)} eV`,
+    compound.charge !== 0 && `charge ${compound.charge > 0 ? '+' : ''}${compound.charge}`,
+  ]
+    .filter(Boolean)
+    .join(' · ');
   return (
     <header className="space-y-2">
       <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
@@ -43,14 +56,29 @@ export function CompoundHeader({ labId, labName, isDemo, compound, mayEdit, canC
       {compound.smiles && <p className="break-all font-mono text-caption text-ink-600">{compound.smiles}</p>}
       {compound.notes && <p className="max-w-3xl text-body text-ink-700">{compound.notes}</p>}
       <div className="flex flex-wrap gap-2">
-        {mayEdit && <Button variant="quiet" onClick={() => setEditing(!editing)}>{editing ? 'Stop editing' : 'Edit compound'}</Button>}
-        {canCurate && !confirming && <Button variant="quiet" onClick={() => setConfirming(true)}>Remove compound</Button>}
+        {mayEdit && (
+          <Button variant="quiet" onClick={() => setEditing(!editing)}>
+            {editing ? 'Stop editing' : 'Edit compound'}
+          </Button>
+        )}
+        {canCurate && !confirming && (
+          <Button variant="quiet" onClick={() => setConfirming(true)}>
+            Remove compound
+          </Button>
+        )}
         {confirming && (
           <>
-            <Button variant="danger" pending={remove.isPending} pendingLabel="Removing…" onClick={() => remove.mutate(compound.version, { onSuccess: onDeleted })}>
+            <Button
+              variant="danger"
+              pending={remove.isPending}
+              pendingLabel="Removing…"
+              onClick={() => remove.mutate(compound.version, { onSuccess: onDeleted })}
+            >
               Remove {compound.name} and its measurements
             </Button>
-            <Button variant="quiet" onClick={() => setConfirming(false)}>Keep it</Button>
+            <Button variant="quiet" onClick={() => setConfirming(false)}>
+              Keep it
+            </Button>
           </>
         )}
       </div>
@@ -59,9 +87,15 @@ export function CompoundHeader({ labId, labName, isDemo, compound, mayEdit, canC
         <div id="add-compound" className="rounded-card border border-paper-200 bg-paper-50 p-4">
           <CompoundForm
             initial={{
-              name: compound.name, roleHint: compound.roleHint, smiles: compound.smiles ?? '', formula: compound.formula ?? '',
-              notes: compound.notes, emissiveState: compound.emissiveState as CompoundInput['emissiveState'], tripletEnergy: compound.tripletEnergy,
-              tripletEnergySource: compound.tripletEnergySource ?? '', charge: compound.charge,
+              name: compound.name,
+              roleHint: compound.roleHint,
+              smiles: compound.smiles ?? '',
+              formula: compound.formula ?? '',
+              notes: compound.notes,
+              emissiveState: compound.emissiveState as CompoundInput['emissiveState'],
+              tripletEnergy: compound.tripletEnergy,
+              tripletEnergySource: compound.tripletEnergySource ?? '',
+              charge: compound.charge,
             }}
             submitLabel="Save compound"
             pending={update.isPending}

@@ -5,11 +5,23 @@ import { TextLink } from '@/components/text-link';
 import { roleHintLabels } from './library-format';
 
 /** One page of the library; each name opens the compound. */
-export function CompoundTable({ labId, compounds, filtered }: { labId: string; compounds: CompoundSummary[]; filtered: boolean }) {
+export function CompoundTable({
+  labId,
+  compounds,
+  filtered,
+}: {
+  labId: string;
+  compounds: CompoundSummary[];
+  filtered: boolean;
+}) {
   if (compounds.length === 0) {
-    return filtered
-      ? <EmptyState title="No compound matches.">Try another part of the name or another role.</EmptyState>
-      : <EmptyState title="The library is empty.">Add a compound, or import a CSV file of compounds and potentials.</EmptyState>;
+    return filtered ? (
+      <EmptyState title="No compound matches.">Try another part of the name or another role.</EmptyState>
+    ) : (
+      <EmptyState title="The library is empty.">
+        Add a compound, or import a CSV file of compounds and potentials.
+      </EmptyState>
+    );
   }
   const heading = 'px-3 py-2 text-left text-caption font-bold uppercase text-ink-500';
   const cell = 'px-3 py-2.5';
@@ -18,19 +30,35 @@ export function CompoundTable({ labId, compounds, filtered }: { labId: string; c
       <table className="w-full text-body">
         <thead>
           <tr>
-            <th scope="col" className={heading}>Compound</th>
-            <th scope="col" className={heading}>Used as</th>
-            <th scope="col" className={heading}>Emissive state</th>
-            <th scope="col" className={heading}>Potentials</th>
-            <th scope="col" className={heading}>Lifetimes</th>
-            <th scope="col" className={heading}>E00</th>
+            <th scope="col" className={heading}>
+              Compound
+            </th>
+            <th scope="col" className={heading}>
+              Used as
+            </th>
+            <th scope="col" className={heading}>
+              Emissive state
+            </th>
+            <th scope="col" className={heading}>
+              Potentials
+            </th>
+            <th scope="col" className={heading}>
+              Lifetimes
+            </th>
+            <th scope="col" className={heading}>
+              E00
+            </th>
           </tr>
         </thead>
         <tbody>
           {compounds.map((compound) => (
             <tr key={compound.id} className="border-t border-paper-200">
-              <td className={cell}><TextLink to={`/labs/${labId}/library/${compound.id}`}>{compound.name}</TextLink></td>
-              <td className={cell}><Tag>{roleHintLabels[compound.roleHint]}</Tag></td>
+              <td className={cell}>
+                <TextLink to={`/labs/${labId}/library/${compound.id}`}>{compound.name}</TextLink>
+              </td>
+              <td className={cell}>
+                <Tag>{roleHintLabels[compound.roleHint]}</Tag>
+              </td>
               <td className={`${cell} text-ink-700`}>{compound.emissiveState ?? '—'}</td>
               <td className={cell}>{compound.counts.potentials}</td>
               <td className={cell}>{compound.counts.lifetimes}</td>

@@ -29,12 +29,20 @@ const pathwayWords: Record<Pathway, { title: string; says: string }> = {
  * Coulomb term apart, energy transfer, and each missing number with a link to add it.
  */
 export function DrivingForcePanel({ labId, emitterId, quencherId, solvent, pinned, onPin }: DrivingForcePanelProps) {
-  const force = useDrivingForce(labId, { emitterId, quencherId, solvent: solvent ?? '', pinned: pinned ?? undefined }, solvent !== null);
+  const force = useDrivingForce(
+    labId,
+    { emitterId, quencherId, solvent: solvent ?? '', pinned: pinned ?? undefined },
+    solvent !== null,
+  );
   return (
-    <Panel title="Electron-transfer driving force" aside={force.isFetching ? <Signal tone="waiting">Computing</Signal> : undefined}>
+    <Panel
+      title="Electron-transfer driving force"
+      aside={force.isFetching ? <Signal tone="waiting">Computing</Signal> : undefined}
+    >
       {solvent === null && (
         <p className="text-body text-ink-700">
-          The driving force is read in a solvent of the table (its permittivity sets the Coulomb term); this study&apos;s solvent is not in it.
+          The driving force is read in a solvent of the table (its permittivity sets the Coulomb term); this
+          study&apos;s solvent is not in it.
         </p>
       )}
       {force.isError && <ErrorNotice error={force.error} what="the driving force" />}
@@ -43,29 +51,53 @@ export function DrivingForcePanel({ labId, emitterId, quencherId, solvent, pinne
   );
 }
 
-function DrivingForceBody({ labId, result, onPin }: { labId: string; result: DrivingForceResult; onPin?: DrivingForcePanelProps['onPin'] }) {
+function DrivingForceBody({
+  labId,
+  result,
+  onPin,
+}: {
+  labId: string;
+  result: DrivingForceResult;
+  onPin?: DrivingForcePanelProps['onPin'];
+}) {
   const blocked = (pathway: Pathway) => result.missing.filter((item) => item.neededFor.includes(pathway));
   return (
     <div className="space-y-4">
       <p className="text-body text-ink-700">
-        {result.emitter.name} with {result.quencher.name} in {solventName(result.solvent)}; potentials against {result.reference}. ΔG<sub>ET</sub> = e[E(D+/D) − E(A/A−)] − E00, with the Coulomb term w shown apart.
+        {result.emitter.name} with {result.quencher.name} in {solventName(result.solvent)}; potentials against{' '}
+        {result.reference}. ΔG<sub>ET</sub> = e[E(D+/D) − E(A/A−)] − E00, with the Coulomb term w shown apart.
       </p>
       <div className="grid gap-3 md:grid-cols-2">
         {(['oxidative', 'reductive'] as const).map((pathway) => (
-          <PathwayCard key={pathway} pathway={pathway} result={result} missing={blocked(pathway)} labId={labId} onPin={onPin} />
+          <PathwayCard
+            key={pathway}
+            pathway={pathway}
+            result={result}
+            missing={blocked(pathway)}
+            labId={labId}
+            onPin={onPin}
+          />
         ))}
       </div>
       <EnergyTransfer result={result} labId={labId} />
       {result.warnings.length > 0 && (
         <ul aria-label="Conversion warnings" className="list-disc space-y-1 pl-5 text-caption text-ink-700">
-          {result.warnings.map((warning) => <li key={warning}>{warning}</li>)}
+          {result.warnings.map((warning) => (
+            <li key={warning}>{warning}</li>
+          ))}
         </ul>
       )}
     </div>
   );
 }
 
-interface CardProps { pathway: Pathway; result: DrivingForceResult; missing: MissingInput[]; labId: string; onPin?: DrivingForcePanelProps['onPin'] }
+interface CardProps {
+  pathway: Pathway;
+  result: DrivingForceResult;
+  missing: MissingInput[];
+  labId: string;
+  onPin?: DrivingForcePanelProps['onPin'];
+}
 
 function PathwayCard({ pathway, result, missing, labId, onPin }: CardProps) {
   const value = result[pathway];
@@ -86,12 +118,23 @@ function PathwayCard({ pathway, result, missing, labId, onPin }: CardProps) {
       <p className="text-caption text-ink-500">{pathwayWords[pathway].says}</p>
       {value ? (
         <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-body">
-          <dt className="text-ink-600">ΔG<sub>ET</sub></dt>
-          <dd className="font-bold text-ink-950">{formatElectronvolts(value.electronvolts)} <span className="font-normal text-ink-600">({formatKilojoules(value.kilojoulesPerMole)})</span></dd>
+          <dt className="text-ink-600">
+            ΔG<sub>ET</sub>
+          </dt>
+          <dd className="font-bold text-ink-950">
+            {formatElectronvolts(value.electronvolts)}{' '}
+            <span className="font-normal text-ink-600">({formatKilojoules(value.kilojoulesPerMole)})</span>
+          </dd>
           <dt className="text-ink-600">Coulomb term w</dt>
-          <dd>{formatElectronvolts(value.workTerm)} <span className="text-caption text-ink-500">(with w: {formatElectronvolts(value.withWorkTerm)})</span></dd>
+          <dd>
+            {formatElectronvolts(value.workTerm)}{' '}
+            <span className="text-caption text-ink-500">(with w: {formatElectronvolts(value.withWorkTerm)})</span>
+          </dd>
           <dt className="text-ink-600">from</dt>
-          <dd className="text-caption text-ink-700">E(D+/D) {formatVolts(value.donorOxidation)}, E(A/A−) {formatVolts(value.acceptorReduction)}, E00 {formatElectronvolts(value.e00, false)}</dd>
+          <dd className="text-caption text-ink-700">
+            E(D+/D) {formatVolts(value.donorOxidation)}, E(A/A−) {formatVolts(value.acceptorReduction)}, E00{' '}
+            {formatElectronvolts(value.e00, false)}
+          </dd>
         </dl>
       ) : (
         <MissingList labId={labId} missing={missing} />
@@ -115,7 +158,9 @@ function MissingList({ labId, missing }: { labId: string; missing: MissingInput[
       {missing.map((item) => (
         <li key={`${item.compoundId}-${item.quantity}`}>
           Missing: {item.message}.{' '}
-          <TextLink to={`/labs/${labId}/library/${item.compoundId}#add-${item.quantity === 'tripletEnergy' ? 'compound' : item.quantity === 'e00' ? 'e00' : 'potential'}`}>
+          <TextLink
+            to={`/labs/${labId}/library/${item.compoundId}#add-${item.quantity === 'tripletEnergy' ? 'compound' : item.quantity === 'e00' ? 'e00' : 'potential'}`}
+          >
             Add it
           </TextLink>
         </li>
@@ -132,8 +177,10 @@ function EnergyTransfer({ result, labId }: { result: DrivingForceResult; labId: 
       {result.energyTransfer ? (
         <p className="text-body text-ink-800">
           {result.energyTransfer.possible ? 'Possible: ' : 'Uphill: '}
-          the quencher&apos;s triplet lies {formatElectronvolts(Math.abs(result.energyTransfer.energyDifference), false)}{' '}
-          {result.energyTransfer.possible ? 'below' : 'above'} the emitter&apos;s ({formatKilojoules(result.energyTransfer.kilojoulesPerMole)}).
+          the quencher&apos;s triplet lies{' '}
+          {formatElectronvolts(Math.abs(result.energyTransfer.energyDifference), false)}{' '}
+          {result.energyTransfer.possible ? 'below' : 'above'} the emitter&apos;s (
+          {formatKilojoules(result.energyTransfer.kilojoulesPerMole)}).
         </p>
       ) : (
         <MissingList labId={labId} missing={missing} />

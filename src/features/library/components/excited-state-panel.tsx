@@ -5,7 +5,8 @@ import { formatElectronvolts, formatVolts, kindLabels } from './library-format';
 function Source({ used }: { used: UsedPotential }) {
   return (
     <span className="block text-caption text-ink-500">
-      entered {formatVolts(used.original.value)} vs {used.original.reference}, {kindLabels[used.original.kind as keyof typeof kindLabels] ?? used.original.kind}
+      entered {formatVolts(used.original.value)} vs {used.original.reference},{' '}
+      {kindLabels[used.original.kind as keyof typeof kindLabels] ?? used.original.kind}
       {used.original.source ? `, ${used.original.source}` : ''}
     </span>
   );
@@ -20,7 +21,13 @@ export function ExcitedStatePanel({ state }: { state: ExcitedState }) {
         <div className={row}>
           <span className="font-bold text-ink-900">E*(PC+/PC*)</span>
           <span>
-            {state.excitedOxidation === null ? '—' : <strong>{formatVolts(state.excitedOxidation)} vs {state.reference}</strong>}
+            {state.excitedOxidation === null ? (
+              '—'
+            ) : (
+              <strong>
+                {formatVolts(state.excitedOxidation)} vs {state.reference}
+              </strong>
+            )}
             {state.oxidation && state.e00 && (
               <span className="block text-caption text-ink-600">
                 = E(PC+/PC) {formatVolts(state.oxidation.value)} − E00 {formatElectronvolts(state.e00.value, false)}
@@ -31,7 +38,13 @@ export function ExcitedStatePanel({ state }: { state: ExcitedState }) {
         <div className={row}>
           <span className="font-bold text-ink-900">E*(PC*/PC−)</span>
           <span>
-            {state.excitedReduction === null ? '—' : <strong>{formatVolts(state.excitedReduction)} vs {state.reference}</strong>}
+            {state.excitedReduction === null ? (
+              '—'
+            ) : (
+              <strong>
+                {formatVolts(state.excitedReduction)} vs {state.reference}
+              </strong>
+            )}
             {state.reduction && state.e00 && (
               <span className="block text-caption text-ink-600">
                 = E(PC/PC−) {formatVolts(state.reduction.value)} + E00 {formatElectronvolts(state.e00.value, false)}
@@ -42,13 +55,24 @@ export function ExcitedStatePanel({ state }: { state: ExcitedState }) {
         <div className={row}>
           <span className="text-ink-700">From</span>
           <span className="space-y-1">
-            {state.oxidation && <span className="block">E(PC+/PC) {formatVolts(state.oxidation.value)}<Source used={state.oxidation} /></span>}
-            {state.reduction && <span className="block">E(PC/PC−) {formatVolts(state.reduction.value)}<Source used={state.reduction} /></span>}
+            {state.oxidation && (
+              <span className="block">
+                E(PC+/PC) {formatVolts(state.oxidation.value)}
+                <Source used={state.oxidation} />
+              </span>
+            )}
+            {state.reduction && (
+              <span className="block">
+                E(PC/PC−) {formatVolts(state.reduction.value)}
+                <Source used={state.reduction} />
+              </span>
+            )}
             {state.e00 && (
               <span className="block">
                 E00 {formatElectronvolts(state.e00.value, false)}
                 <span className="block text-caption text-ink-500">
-                  {state.e00.wavelength ? `from ${state.e00.wavelength} nm, ` : ''}{state.e00.method}
+                  {state.e00.wavelength ? `from ${state.e00.wavelength} nm, ` : ''}
+                  {state.e00.method}
                 </span>
               </span>
             )}
@@ -57,7 +81,9 @@ export function ExcitedStatePanel({ state }: { state: ExcitedState }) {
       </div>
       {state.missing.length > 0 && (
         <ul className="mt-2 list-disc pl-5 text-body text-brick-700">
-          {state.missing.map((item) => <li key={item}>Missing: {item}.</li>)}
+          {state.missing.map((item) => (
+            <li key={item}>Missing: {item}.</li>
+          ))}
         </ul>
       )}
       <p className="mt-2 text-caption text-ink-500">

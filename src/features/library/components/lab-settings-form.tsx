@@ -15,16 +15,32 @@ export function LabSettingsForm({ labId, settings }: { labId: string; settings: 
   const form = useForm({ resolver: zodResolver(labSettingsUpdateSchema), defaultValues: settings });
   const { errors } = form.formState;
   const onSubmit = form.handleSubmit((values) =>
-    update.mutate(values, { onError: (error) => showServerErrors(error, form.setError, ['displayReference', 'displaySolvent']) }),
+    update.mutate(values, {
+      onError: (error) => showServerErrors(error, form.setError, ['displayReference', 'displaySolvent']),
+    }),
   );
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Display reference" className="grid max-w-xl gap-3 sm:grid-cols-2">
-      <SelectField label="Display reference electrode" options={referenceOptions} error={errors.displayReference?.message} {...form.register('displayReference')} />
-      <SelectField label="Usual solvent" options={solventOptions} error={errors.displaySolvent?.message} {...form.register('displaySolvent')} />
+      <SelectField
+        label="Display reference electrode"
+        options={referenceOptions}
+        error={errors.displayReference?.message}
+        {...form.register('displayReference')}
+      />
+      <SelectField
+        label="Usual solvent"
+        options={solventOptions}
+        error={errors.displaySolvent?.message}
+        {...form.register('displaySolvent')}
+      />
       <div className="space-y-2 sm:col-span-2">
         {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-        {update.isSuccess && <FormAlert tone="good">Saved. Potentials are now read against {update.data.displayReference}.</FormAlert>}
-        <Button type="submit" pending={update.isPending} pendingLabel="Saving…">Save settings</Button>
+        {update.isSuccess && (
+          <FormAlert tone="good">Saved. Potentials are now read against {update.data.displayReference}.</FormAlert>
+        )}
+        <Button type="submit" pending={update.isPending} pendingLabel="Saving…">
+          Save settings
+        </Button>
       </div>
     </form>
   );

@@ -20,7 +20,8 @@ export function formatLifetime(seconds: number, scaleOf?: number): string {
 
 export const referenceOptions = REFERENCE_ELECTRODES.map((reference) => ({ value: reference, label: reference }));
 export const solventOptions = Object.values(SOLVENTS).map((solvent) => ({ value: solvent.id, label: solvent.name }));
-export const solventName = (id: string) => (Object.hasOwn(SOLVENTS, id) ? SOLVENTS[id as keyof typeof SOLVENTS].name : id);
+export const solventName = (id: string) =>
+  Object.hasOwn(SOLVENTS, id) ? SOLVENTS[id as keyof typeof SOLVENTS].name : id;
 
 export const roleHintLabels = { photocatalyst: 'Emitter', quencher: 'Quencher', both: 'Emitter or quencher' } as const;
 export const kindLabels = { 'half-wave': 'E1/2 (reversible)', 'half-peak': 'Ep/2', peak: 'Ep (irreversible)' } as const;

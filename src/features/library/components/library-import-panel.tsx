@@ -26,7 +26,11 @@ export function LibraryImportPanel({ labId, canImport }: { labId: string; canImp
   return (
     <div className="space-y-3 text-body">
       <p className="text-ink-700">
-        <a className="font-bold text-ink-800 underline decoration-glow-400 underline-offset-4" href={libraryExportUrl(labId)} download>
+        <a
+          className="font-bold text-ink-800 underline decoration-glow-400 underline-offset-4"
+          href={libraryExportUrl(labId)}
+          download
+        >
           Download the library as CSV
         </a>{' '}
         — one row per compound, potential, lifetime or E00; the same columns import back.
@@ -35,18 +39,39 @@ export function LibraryImportPanel({ labId, canImport }: { labId: string; canImp
         <>
           <label className="flex flex-col gap-1">
             <span className="font-bold text-ink-900">CSV file to import</span>
-            <input type="file" accept=".csv,text/csv" onChange={(event) => void choose(event.target.files?.[0])} className="text-body" />
+            <input
+              type="file"
+              accept=".csv,text/csv"
+              onChange={(event) => void choose(event.target.files?.[0])}
+              className="text-body"
+            />
           </label>
-          <p className="text-caption text-ink-500">Columns: {libraryCsvColumns.join(', ')}. Potentials in V, lifetimes in s, E00 in eV or nm. Files separated by semicolons may use decimal commas (1,21).</p>
+          <p className="text-caption text-ink-500">
+            Columns: {libraryCsvColumns.join(', ')}. Potentials in V, lifetimes in s, E00 in eV or nm. Files separated
+            by semicolons may use decimal commas (1,21).
+          </p>
           {importer.isError && <FormAlert>{describeError(importer.error)}</FormAlert>}
           {report && report.problems.length > 0 && (
             <div role="region" aria-label="Problems in the file" className="space-y-1">
-              <FormAlert>{fileName}: {report.problems.length === 1 ? '1 problem' : `${report.problems.length} problems`}; nothing will be saved until the file is fixed.</FormAlert>
+              <FormAlert>
+                {fileName}: {report.problems.length === 1 ? '1 problem' : `${report.problems.length} problems`}; nothing
+                will be saved until the file is fixed.
+              </FormAlert>
               <table className="w-full text-caption">
-                <thead><tr><th className="px-2 py-1 text-left">Row</th><th className="px-2 py-1 text-left">Column</th><th className="px-2 py-1 text-left">Reason</th></tr></thead>
+                <thead>
+                  <tr>
+                    <th className="px-2 py-1 text-left">Row</th>
+                    <th className="px-2 py-1 text-left">Column</th>
+                    <th className="px-2 py-1 text-left">Reason</th>
+                  </tr>
+                </thead>
                 <tbody>
                   {report.problems.map((problem, index) => (
-                    <tr key={index} className="border-t border-paper-200"><td className="px-2 py-1">{problem.row}</td><td className="px-2 py-1">{problem.column || "—"}</td><td className="px-2 py-1">{problem.reason}</td></tr>
+                    <tr key={index} className="border-t border-paper-200">
+                      <td className="px-2 py-1">{problem.row}</td>
+                      <td className="px-2 py-1">{problem.column || '—'}</td>
+                      <td className="px-2 py-1">{problem.reason}</td>
+                    </tr>
                   ))}
                 </tbody>
               </table>
@@ -55,14 +80,23 @@ export function LibraryImportPanel({ labId, canImport }: { labId: string; canImp
           {report && report.problems.length === 0 && !report.saved && csv && (
             <div className="flex flex-wrap items-center gap-3">
               <FormAlert tone="note">
-                {fileName} is valid: {report.counts.compounds} compounds, {report.counts.potentials} potentials, {report.counts.lifetimes} lifetimes, {report.counts.energies} E00.
+                {fileName} is valid: {report.counts.compounds} compounds, {report.counts.potentials} potentials,{' '}
+                {report.counts.lifetimes} lifetimes, {report.counts.energies} E00.
               </FormAlert>
-              <Button pending={importer.isPending} pendingLabel="Importing…" onClick={() => importer.mutate({ csv }, { onSuccess: setReport })}>
+              <Button
+                pending={importer.isPending}
+                pendingLabel="Importing…"
+                onClick={() => importer.mutate({ csv }, { onSuccess: setReport })}
+              >
                 Import {total} records
               </Button>
             </div>
           )}
-          {report?.saved && <FormAlert tone="good">Imported {total} records from {fileName}.</FormAlert>}
+          {report?.saved && (
+            <FormAlert tone="good">
+              Imported {total} records from {fileName}.
+            </FormAlert>
+          )}
         </>
       )}
     </div>

@@ -22,10 +22,22 @@ interface LifetimesTableProps {
 type Open = { id: string; view: 'edit' | 'studies' | 'saved' } | null;
 
 /** Unquenched lifetimes with their conditions; after a change the studies that took their tau0 from it are listed. */
-export function LifetimesTable({ labId, compoundId, userId, defaultSolvent, lifetimes, mayEdit, canCurate, onDelete, onStudyRefitted }: LifetimesTableProps) {
+export function LifetimesTable({
+  labId,
+  compoundId,
+  userId,
+  defaultSolvent,
+  lifetimes,
+  mayEdit,
+  canCurate,
+  onDelete,
+  onStudyRefitted,
+}: LifetimesTableProps) {
   const [open, setOpen] = useState<Open>(null);
-  if (lifetimes.length === 0) return <EmptyState title="No lifetimes yet.">Studies can take their τ0 from a lifetime entered here.</EmptyState>;
-  const toggle = (id: string, view: 'edit' | 'studies') => setOpen(open?.id === id && open.view === view ? null : { id, view });
+  if (lifetimes.length === 0)
+    return <EmptyState title="No lifetimes yet.">Studies can take their τ0 from a lifetime entered here.</EmptyState>;
+  const toggle = (id: string, view: 'edit' | 'studies') =>
+    setOpen(open?.id === id && open.view === view ? null : { id, view });
   return (
     <ul className="divide-y divide-paper-200" aria-label="Lifetimes">
       {lifetimes.map((lifetime) => {
@@ -35,30 +47,57 @@ export function LifetimesTable({ labId, compoundId, userId, defaultSolvent, life
             <div className="flex flex-wrap items-center justify-between gap-2 text-body">
               <span>
                 <strong className="text-ink-950">{formatLifetime(lifetime.value)}</strong>
-                {lifetime.uncertainty !== null && <span> ± {formatLifetime(lifetime.uncertainty, lifetime.value)}</span>}
+                {lifetime.uncertainty !== null && (
+                  <span> ± {formatLifetime(lifetime.uncertainty, lifetime.value)}</span>
+                )}
                 <span className="ml-2 text-caption text-ink-600">
                   {solventName(lifetime.solvent)}, {lifetime.atmosphere}, {lifetime.temperature} K, {lifetime.method}
-                  {lifetime.source ? `, ${lifetime.source}` : ''}{lifetime.createdByName ? `; entered by ${lifetime.createdByName}` : ''}
+                  {lifetime.source ? `, ${lifetime.source}` : ''}
+                  {lifetime.createdByName ? `; entered by ${lifetime.createdByName}` : ''}
                 </span>
               </span>
               <span className="flex gap-2">
-                {mayEdit(lifetime) && <Button variant="quiet" onClick={() => toggle(lifetime.id, 'edit')}>{view === 'edit' ? 'Close' : 'Edit'}</Button>}
-                <Button variant="quiet" onClick={() => toggle(lifetime.id, 'studies')}>{view === 'studies' ? 'Hide studies' : 'Studies using it'}</Button>
-                {canCurate && <Button variant="quiet" onClick={() => onDelete(lifetime)}>Remove</Button>}
+                {mayEdit(lifetime) && (
+                  <Button variant="quiet" onClick={() => toggle(lifetime.id, 'edit')}>
+                    {view === 'edit' ? 'Close' : 'Edit'}
+                  </Button>
+                )}
+                <Button variant="quiet" onClick={() => toggle(lifetime.id, 'studies')}>
+                  {view === 'studies' ? 'Hide studies' : 'Studies using it'}
+                </Button>
+                {canCurate && (
+                  <Button variant="quiet" onClick={() => onDelete(lifetime)}>
+                    Remove
+                  </Button>
+                )}
               </span>
             </div>
             {view === 'edit' && (
               <div className="rounded-md bg-paper-100 p-3">
                 <LifetimeForm
-                  labId={labId} compoundId={compoundId} defaultSolvent={defaultSolvent} existing={lifetime}
-                  onSaved={() => setOpen({ id: lifetime.id, view: 'saved' })} onCancel={() => setOpen(null)}
+                  labId={labId}
+                  compoundId={compoundId}
+                  defaultSolvent={defaultSolvent}
+                  existing={lifetime}
+                  onSaved={() => setOpen({ id: lifetime.id, view: 'saved' })}
+                  onCancel={() => setOpen(null)}
                 />
               </div>
             )}
             {(view === 'studies' || view === 'saved') && (
               <div className="space-y-2 rounded-md bg-paper-100 p-3">
-                {view === 'saved' && <FormAlert tone="good">Lifetime saved. Studies keep their own τ0 until you refit them below.</FormAlert>}
-                <LifetimeDependents labId={labId} compoundId={compoundId} lifetimeId={lifetime.id} userId={userId} onStudyRefitted={onStudyRefitted} />
+                {view === 'saved' && (
+                  <FormAlert tone="good">
+                    Lifetime saved. Studies keep their own τ0 until you refit them below.
+                  </FormAlert>
+                )}
+                <LifetimeDependents
+                  labId={labId}
+                  compoundId={compoundId}
+                  lifetimeId={lifetime.id}
+                  userId={userId}
+                  onStudyRefitted={onStudyRefitted}
+                />
               </div>
             )}
           </li>

@@ -11,7 +11,15 @@ import { solventOptions } from './library-format';
  * Pick a partner and a solvent and read the driving force of the pair; the compound on screen
  * is the emitter when it is one, else the quencher.
  */
-export function PairDrivingForce({ labId, compound, defaultSolvent }: { labId: string; compound: CompoundDetail; defaultSolvent: string }) {
+export function PairDrivingForce({
+  labId,
+  compound,
+  defaultSolvent,
+}: {
+  labId: string;
+  compound: CompoundDetail;
+  defaultSolvent: string;
+}) {
   const asEmitter = compound.roleHint !== 'quencher';
   const partners = useCompounds(labId, { roleHint: asEmitter ? 'quencher' : 'photocatalyst', pageSize: 100 });
   const options = (partners.data?.items ?? []).filter((item) => item.id !== compound.id);
@@ -28,7 +36,12 @@ export function PairDrivingForce({ labId, compound, defaultSolvent }: { labId: s
           value={chosen}
           onChange={(event) => setPartnerId(event.target.value)}
         />
-        <SelectField label="Solvent of the reaction" options={solventOptions} value={solvent} onChange={(event) => setSolvent(event.target.value)} />
+        <SelectField
+          label="Solvent of the reaction"
+          options={solventOptions}
+          value={solvent}
+          onChange={(event) => setSolvent(event.target.value)}
+        />
       </div>
       {chosen ? (
         <DrivingForcePanel
@@ -40,7 +53,9 @@ export function PairDrivingForce({ labId, compound, defaultSolvent }: { labId: s
           onPin={setPinned}
         />
       ) : (
-        <EmptyState title={`No ${asEmitter ? 'quencher' : 'emitter'} in the library yet.`}>Add one to read the driving force of the pair.</EmptyState>
+        <EmptyState title={`No ${asEmitter ? 'quencher' : 'emitter'} in the library yet.`}>
+          Add one to read the driving force of the pair.
+        </EmptyState>
       )}
       <p className="text-caption text-ink-500">
         Pinning here is for reading only; a study keeps its own expected mechanism.

@@ -59,7 +59,9 @@ export function InviteForm({ labId }: { labId: string }) {
       </fieldset>
       {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
       {invite.isSuccess && !errors.root && (
-        <FormAlert tone="good">Invitation sent to {invite.data.email}. It appears below until it is answered.</FormAlert>
+        <FormAlert tone="good">
+          Invitation sent to {invite.data.email}. It appears below until it is answered.
+        </FormAlert>
       )}
       <Button type="submit" pending={invite.isPending} pendingLabel="Sending…">
         Send invitation

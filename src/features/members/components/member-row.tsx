@@ -55,7 +55,12 @@ export function MemberRow({ member, isSelf, canManage, busy, onRoleChange, onRem
               </Button>
             </span>
           ) : (
-            <Button variant="quiet" aria-label={`Remove ${member.name}`} onClick={() => setConfirming(true)} disabled={busy}>
+            <Button
+              variant="quiet"
+              aria-label={`Remove ${member.name}`}
+              onClick={() => setConfirming(true)}
+              disabled={busy}
+            >
               Remove
             </Button>
           )}

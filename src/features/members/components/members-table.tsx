@@ -52,10 +52,18 @@ export function MembersTable({ labId, members, canManage, selfUserId, onSelfChan
         <table className="w-full text-body">
           <thead>
             <tr>
-              <th scope="col" className={heading}>Name</th>
-              <th scope="col" className={heading}>E-mail</th>
-              <th scope="col" className={heading}>Role</th>
-              <th scope="col" className={`${heading} whitespace-nowrap`}>Member since</th>
+              <th scope="col" className={heading}>
+                Name
+              </th>
+              <th scope="col" className={heading}>
+                E-mail
+              </th>
+              <th scope="col" className={heading}>
+                Role
+              </th>
+              <th scope="col" className={`${heading} whitespace-nowrap`}>
+                Member since
+              </th>
               {canManage && (
                 <th scope="col" className={heading}>
                   <span className="sr-only">Actions</span>

@@ -12,7 +12,9 @@ import { describeMemberProblem } from './member-problem';
 export function PendingInvitations({ labId, invitations }: { labId: string; invitations: PendingInvitation[] }) {
   const revoke = useRevokeInvitation(labId);
   if (invitations.length === 0) {
-    return <EmptyState title="No invitations waiting.">Invitations you send appear here until they are answered.</EmptyState>;
+    return (
+      <EmptyState title="No invitations waiting.">Invitations you send appear here until they are answered.</EmptyState>
+    );
   }
   return (
     <div className="space-y-3">

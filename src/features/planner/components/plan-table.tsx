@@ -1,6 +1,7 @@
 import type { TitrationPlanResult } from '@shared/schemas/planner';
 
-const format = (value: number, digits = 4) => Number(value.toPrecision(digits)).toLocaleString('en', { maximumFractionDigits: 6 });
+const format = (value: number, digits = 4) =>
+  Number(value.toPrecision(digits)).toLocaleString('en', { maximumFractionDigits: 6 });
 
 /** One row per addition, in µL, mL, mM and µM: what goes on the bench sheet. */
 export function PlanTable({ plan }: { plan: TitrationPlanResult }) {
@@ -9,12 +10,24 @@ export function PlanTable({ plan }: { plan: TitrationPlanResult }) {
       <caption className="sr-only">Additions of quencher stock</caption>
       <thead className="border-b border-paper-300 text-caption uppercase text-ink-500">
         <tr>
-          <th scope="col" className="py-2 pr-3">Step</th>
-          <th scope="col" className="pr-3">Target [Q] (mM)</th>
-          <th scope="col" className="pr-3">Add stock (µL)</th>
-          <th scope="col" className="pr-3">Added so far (µL)</th>
-          <th scope="col" className="pr-3">Volume (mL)</th>
-          <th scope="col" className="pr-3">[Q] reached (mM)</th>
+          <th scope="col" className="py-2 pr-3">
+            Step
+          </th>
+          <th scope="col" className="pr-3">
+            Target [Q] (mM)
+          </th>
+          <th scope="col" className="pr-3">
+            Add stock (µL)
+          </th>
+          <th scope="col" className="pr-3">
+            Added so far (µL)
+          </th>
+          <th scope="col" className="pr-3">
+            Volume (mL)
+          </th>
+          <th scope="col" className="pr-3">
+            [Q] reached (mM)
+          </th>
           <th scope="col">Emitter (µM)</th>
         </tr>
       </thead>

@@ -35,12 +35,20 @@ export const plannerFormSchema = z
         context.addIssue({ code: 'custom', path: ['count'], message: 'must be a whole number from 1 to 60' });
       }
     } else if (parseTargets(form.targetsMillimolar).some((value) => !Number.isFinite(value) || value < 0)) {
-      context.addIssue({ code: 'custom', path: ['targetsMillimolar'], message: 'must be numbers separated by spaces, semicolons or new lines' });
+      context.addIssue({
+        code: 'custom',
+        path: ['targetsMillimolar'],
+        message: 'must be numbers separated by spaces, semicolons or new lines',
+      });
     } else if (parseTargets(form.targetsMillimolar).length === 0) {
       context.addIssue({ code: 'custom', path: ['targetsMillimolar'], message: 'needs at least one concentration' });
     }
     if (form.pipetteStepMicrolitres && !(Number(form.pipetteStepMicrolitres.replace(',', '.')) > 0)) {
-      context.addIssue({ code: 'custom', path: ['pipetteStepMicrolitres'], message: 'must be a number above zero, or empty' });
+      context.addIssue({
+        code: 'custom',
+        path: ['pipetteStepMicrolitres'],
+        message: 'must be a number above zero, or empty',
+      });
     }
   });
 

@@ -7,7 +7,6 @@ import { plannerFormSchema } from './planner-form-schema';
 import { plannerDefaults } from './planner-form-schema';
 import type { PlannerFormInput, PlannerFormValues } from './planner-form-schema';
 
-
 interface PlannerFormProps {
   onPlan: (values: PlannerFormValues) => void;
   pending: boolean;
@@ -25,9 +24,24 @@ export function PlannerForm({ onPlan, pending, serverError }: PlannerFormProps) 
   return (
     <form onSubmit={handleSubmit(onPlan)} noValidate className="space-y-4" aria-label="Titration to plan">
       <div className="grid grid-cols-3 gap-3">
-        <TextField label="Starting volume (mL)" inputMode="decimal" error={errors.initialVolumeMl?.message} {...register('initialVolumeMl')} />
-        <TextField label="Emitter (µM)" inputMode="decimal" error={errors.emitterMicromolar?.message} {...register('emitterMicromolar')} />
-        <TextField label="Quencher stock (mM)" inputMode="decimal" error={errors.stockMillimolar?.message} {...register('stockMillimolar')} />
+        <TextField
+          label="Starting volume (mL)"
+          inputMode="decimal"
+          error={errors.initialVolumeMl?.message}
+          {...register('initialVolumeMl')}
+        />
+        <TextField
+          label="Emitter (µM)"
+          inputMode="decimal"
+          error={errors.emitterMicromolar?.message}
+          {...register('emitterMicromolar')}
+        />
+        <TextField
+          label="Quencher stock (mM)"
+          inputMode="decimal"
+          error={errors.stockMillimolar?.message}
+          {...register('stockMillimolar')}
+        />
       </div>
       <fieldset className="space-y-2">
         <legend className="text-body font-bold text-ink-900">Concentrations to reach</legend>
@@ -39,8 +53,18 @@ export function PlannerForm({ onPlan, pending, serverError }: PlannerFormProps) 
         </label>
         {mode === 'even' ? (
           <div className="grid grid-cols-2 gap-3">
-            <TextField label="Highest [Q] (mM)" inputMode="decimal" error={errors.maximumMillimolar?.message} {...register('maximumMillimolar')} />
-            <TextField label="Number of additions" inputMode="numeric" error={errors.count?.message} {...register('count')} />
+            <TextField
+              label="Highest [Q] (mM)"
+              inputMode="decimal"
+              error={errors.maximumMillimolar?.message}
+              {...register('maximumMillimolar')}
+            />
+            <TextField
+              label="Number of additions"
+              inputMode="numeric"
+              error={errors.count?.message}
+              {...register('count')}
+            />
           </div>
         ) : (
           <TextField
@@ -52,11 +76,22 @@ export function PlannerForm({ onPlan, pending, serverError }: PlannerFormProps) 
         )}
       </fieldset>
       <div className="grid grid-cols-2 gap-3">
-        <TextField label="Pipette step (µL, optional)" inputMode="decimal" hint="Round each volume to what you can pipette." error={errors.pipetteStepMicrolitres?.message} {...register('pipetteStepMicrolitres')} />
-        <TextField label="Quencher name (optional)" error={errors.quencherName?.message} {...register('quencherName')} />
+        <TextField
+          label="Pipette step (µL, optional)"
+          inputMode="decimal"
+          hint="Round each volume to what you can pipette."
+          error={errors.pipetteStepMicrolitres?.message}
+          {...register('pipetteStepMicrolitres')}
+        />
+        <TextField
+          label="Quencher name (optional)"
+          error={errors.quencherName?.message}
+          {...register('quencherName')}
+        />
       </div>
       <label className="flex items-center gap-2 text-body text-ink-900">
-        <input type="checkbox" {...register('stockContainsEmitter')} /> The stock also holds the emitter at the starting concentration
+        <input type="checkbox" {...register('stockContainsEmitter')} /> The stock also holds the emitter at the starting
+        concentration
       </label>
       {serverError && <FormAlert>{serverError}</FormAlert>}
       <Button type="submit" pending={pending} pendingLabel="Working it out…">

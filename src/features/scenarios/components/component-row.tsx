@@ -31,7 +31,10 @@ export function ComponentRow({ index, kind, register, errors, quencherOptions, s
       <legend className="sr-only">Component {index + 1}</legend>
       <SelectField
         label="Kind"
-        options={[{ value: 'compound', label: 'Compound' }, { value: 'oxygen', label: 'Dissolved O₂' }]}
+        options={[
+          { value: 'compound', label: 'Compound' },
+          { value: 'oxygen', label: 'Dissolved O₂' },
+        ]}
         {...register(`components.${index}.kind`)}
       />
       {kind === 'compound' ? (
@@ -42,9 +45,19 @@ export function ComponentRow({ index, kind, register, errors, quencherOptions, s
           {...register(`components.${index}.compoundId`)}
         />
       ) : (
-        <TextField label="kq of O₂ (M⁻¹ s⁻¹)" inputMode="decimal" error={rowErrors?.manualKq?.message} {...register(`components.${index}.manualKq`)} />
+        <TextField
+          label="kq of O₂ (M⁻¹ s⁻¹)"
+          inputMode="decimal"
+          error={rowErrors?.manualKq?.message}
+          {...register(`components.${index}.manualKq`)}
+        />
       )}
-      <TextField label="In reaction (mM)" inputMode="decimal" error={rowErrors?.concentrationMillimolar?.message} {...register(`components.${index}.concentrationMillimolar`)} />
+      <TextField
+        label="In reaction (mM)"
+        inputMode="decimal"
+        error={rowErrors?.concentrationMillimolar?.message}
+        {...register(`components.${index}.concentrationMillimolar`)}
+      />
       {kind === 'compound' ? (
         <SelectField label="kq from" options={studyOptions} {...register(`components.${index}.studyId`)} />
       ) : (

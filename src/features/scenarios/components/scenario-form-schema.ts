@@ -42,7 +42,12 @@ export const scenarioFormSchema = z.object({
 export type ScenarioFormValues = z.infer<typeof scenarioFormSchema>;
 
 export const emptyComponent: ScenarioFormValues['components'][number] = {
-  kind: 'compound', compoundId: '', concentrationMillimolar: '', studyId: '', manualKq: '', manualKqSource: '',
+  kind: 'compound',
+  compoundId: '',
+  concentrationMillimolar: '',
+  studyId: '',
+  manualKq: '',
+  manualKqSource: '',
 };
 
 export function toScenarioInput(form: ScenarioFormValues, version?: number): ScenarioInput {

@@ -20,7 +20,12 @@ interface ScenarioFormProps {
 }
 
 const blank: ScenarioFormValues = {
-  name: '', emitterId: '', solvent: 'acetonitrile', tau0Nanoseconds: '', tau0Source: '', notes: '',
+  name: '',
+  emitterId: '',
+  solvent: 'acetonitrile',
+  tau0Nanoseconds: '',
+  tau0Source: '',
+  notes: '',
   components: [{ ...emptyComponent }],
 };
 
@@ -37,10 +42,25 @@ export function ScenarioForm(props: ScenarioFormProps) {
     <form onSubmit={handleSubmit(props.onSave)} noValidate className="space-y-4" aria-label="Reaction scenario">
       <div className="grid grid-cols-2 gap-3">
         <TextField label="Name" error={errors.name?.message} {...register('name')} />
-        <SelectField label="Emitter (catalyst)" options={[{ value: '', label: 'Choose…' }, ...props.emitterOptions]} error={errors.emitterId?.message} {...register('emitterId')} />
-        <SelectField label="Solvent" options={props.solventOptions} error={errors.solvent?.message} {...register('solvent')} />
+        <SelectField
+          label="Emitter (catalyst)"
+          options={[{ value: '', label: 'Choose…' }, ...props.emitterOptions]}
+          error={errors.emitterId?.message}
+          {...register('emitterId')}
+        />
+        <SelectField
+          label="Solvent"
+          options={props.solventOptions}
+          error={errors.solvent?.message}
+          {...register('solvent')}
+        />
         <div className="grid grid-cols-2 gap-3">
-          <TextField label="τ0 (ns)" inputMode="decimal" error={errors.tau0Nanoseconds?.message} {...register('tau0Nanoseconds')} />
+          <TextField
+            label="τ0 (ns)"
+            inputMode="decimal"
+            error={errors.tau0Nanoseconds?.message}
+            {...register('tau0Nanoseconds')}
+          />
           <TextField label="τ0 from" hint="Lifetime record, paper or notebook page" {...register('tau0Source')} />
         </div>
       </div>
@@ -60,8 +80,12 @@ export function ScenarioForm(props: ScenarioFormProps) {
         ))}
         {errors.components?.root?.message && <FormAlert>{errors.components.root.message}</FormAlert>}
         <div className="flex gap-2">
-          <Button variant="quiet" onClick={() => append({ ...emptyComponent })}>Add a component</Button>
-          <Button variant="quiet" onClick={() => append({ ...emptyComponent, kind: 'oxygen' })}>Add dissolved O₂</Button>
+          <Button variant="quiet" onClick={() => append({ ...emptyComponent })}>
+            Add a component
+          </Button>
+          <Button variant="quiet" onClick={() => append({ ...emptyComponent, kind: 'oxygen' })}>
+            Add dissolved O₂
+          </Button>
         </div>
       </div>
       <TextField label="Notes" {...register('notes')} />

@@ -12,21 +12,33 @@ export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: str
       <caption className="sr-only">Share of excited emitter intercepted by each component</caption>
       <thead className="border-b border-paper-300 text-caption uppercase text-ink-500">
         <tr>
-          <th scope="col" className="py-2 pr-3">Component</th>
-          <th scope="col" className="pr-3">In reaction (mM)</th>
-          <th scope="col" className="pr-3">kq (M⁻¹ s⁻¹)</th>
-          <th scope="col" className="pr-3">kq from</th>
+          <th scope="col" className="py-2 pr-3">
+            Component
+          </th>
+          <th scope="col" className="pr-3">
+            In reaction (mM)
+          </th>
+          <th scope="col" className="pr-3">
+            kq (M⁻¹ s⁻¹)
+          </th>
+          <th scope="col" className="pr-3">
+            kq from
+          </th>
           <th scope="col">Share</th>
         </tr>
       </thead>
       <tbody>
         {scenario.shares.map((share) => (
           <tr key={share.componentId} className="border-b border-paper-200 tabular-nums">
-            <th scope="row" className="py-1.5 pr-3 font-bold text-ink-900">{share.label}</th>
+            <th scope="row" className="py-1.5 pr-3 font-bold text-ink-900">
+              {share.label}
+            </th>
             <td className="pr-3">{Number((share.concentration * 1e3).toPrecision(4))}</td>
             <td className="pr-3">
               {share.kq === null ? '—' : scientific(share.kq)}
-              {share.kqStandardError !== null && <span className="text-ink-500"> ± {scientific(share.kqStandardError)}</span>}
+              {share.kqStandardError !== null && (
+                <span className="text-ink-500"> ± {scientific(share.kqStandardError)}</span>
+              )}
             </td>
             <td className="pr-3 text-caption">
               {share.kqSource?.kind === 'study' && (
@@ -35,7 +47,9 @@ export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: str
                 </Link>
               )}
               {share.kqSource?.kind === 'study' && share.kqSource.solvent !== scenario.solvent && (
-                <span className="block font-bold text-brick-700">measured in {share.kqSource.solvent ?? 'another solvent'}, not {scenario.solvent}</span>
+                <span className="block font-bold text-brick-700">
+                  measured in {share.kqSource.solvent ?? 'another solvent'}, not {scenario.solvent}
+                </span>
               )}
               {share.kqSource?.kind === 'manual' && <span>by hand: {share.kqSource.note || 'no source given'}</span>}
               {share.kqSource === null && <span className="font-bold text-brick-700">no kq yet</span>}
@@ -46,8 +60,12 @@ export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: str
           </tr>
         ))}
         <tr className="tabular-nums">
-          <th scope="row" className="py-1.5 pr-3 font-bold text-ink-600">Decays unquenched</th>
-          <td colSpan={3} className="pr-3 text-caption text-ink-500">1/τ0 against the total decay rate</td>
+          <th scope="row" className="py-1.5 pr-3 font-bold text-ink-600">
+            Decays unquenched
+          </th>
+          <td colSpan={3} className="pr-3 text-caption text-ink-500">
+            1/τ0 against the total decay rate
+          </td>
           <td>{percent(scenario.unquenched)}</td>
         </tr>
       </tbody>

@@ -8,4 +8,6 @@ export const applyUpload = (labId: string, studyId: string, uploadId: string, bo
   apiClient.post<StudyDetail>(`/api/labs/${labId}/studies/${studyId}/uploads/${uploadId}/apply`, body);
 
 export const useApplyUpload = (labId: string, studyId: string) =>
-  useStudyMutation(labId, studyId, ({ uploadId, ...body }: ApplyUploadInput & { uploadId: string }) => applyUpload(labId, studyId, uploadId, body));
+  useStudyMutation(labId, studyId, ({ uploadId, ...body }: ApplyUploadInput & { uploadId: string }) =>
+    applyUpload(labId, studyId, uploadId, body),
+  );

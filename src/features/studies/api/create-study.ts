@@ -5,7 +5,8 @@ import { apiClient } from '@/lib/api-client';
 import { studiesKeys } from './studies-keys';
 
 /** POST /api/labs/:labId/studies. New compound names are created in the lab's library. */
-export const createStudy = (labId: string, body: CreateStudyBody) => apiClient.post<StudyDetail>(`/api/labs/${labId}/studies`, body);
+export const createStudy = (labId: string, body: CreateStudyBody) =>
+  apiClient.post<StudyDetail>(`/api/labs/${labId}/studies`, body);
 
 export function useCreateStudy(labId: string) {
   const queryClient = useQueryClient();

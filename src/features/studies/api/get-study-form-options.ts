@@ -8,6 +8,9 @@ export const getStudyFormOptions = (labId: string, signal?: AbortSignal) =>
   apiClient.get<StudyFormOptions>(`/api/labs/${labId}/study-form-options`, { signal });
 
 export const getStudyFormOptionsQueryOptions = (labId: string) =>
-  queryOptions({ queryKey: studiesKeys.formOptions(labId), queryFn: ({ signal }) => getStudyFormOptions(labId, signal) });
+  queryOptions({
+    queryKey: studiesKeys.formOptions(labId),
+    queryFn: ({ signal }) => getStudyFormOptions(labId, signal),
+  });
 
 export const useStudyFormOptions = (labId: string) => useQuery(getStudyFormOptionsQueryOptions(labId));

@@ -8,6 +8,10 @@ export const getStudyHistory = (labId: string, studyId: string, signal?: AbortSi
   apiClient.get<StudyHistory>(`/api/labs/${labId}/studies/${studyId}/history`, { signal });
 
 export const getStudyHistoryQueryOptions = (labId: string, studyId: string) =>
-  queryOptions({ queryKey: studiesKeys.history(labId, studyId), queryFn: ({ signal }) => getStudyHistory(labId, studyId, signal) });
+  queryOptions({
+    queryKey: studiesKeys.history(labId, studyId),
+    queryFn: ({ signal }) => getStudyHistory(labId, studyId, signal),
+  });
 
-export const useStudyHistory = (labId: string, studyId: string) => useQuery(getStudyHistoryQueryOptions(labId, studyId));
+export const useStudyHistory = (labId: string, studyId: string) =>
+  useQuery(getStudyHistoryQueryOptions(labId, studyId));

@@ -8,6 +8,9 @@ export const getStudy = (labId: string, studyId: string, signal?: AbortSignal) =
   apiClient.get<StudyDetail>(`/api/labs/${labId}/studies/${studyId}`, { signal });
 
 export const getStudyQueryOptions = (labId: string, studyId: string) =>
-  queryOptions({ queryKey: studiesKeys.detail(labId, studyId), queryFn: ({ signal }) => getStudy(labId, studyId, signal) });
+  queryOptions({
+    queryKey: studiesKeys.detail(labId, studyId),
+    queryFn: ({ signal }) => getStudy(labId, studyId, signal),
+  });
 
 export const useStudy = (labId: string, studyId: string) => useQuery(getStudyQueryOptions(labId, studyId));

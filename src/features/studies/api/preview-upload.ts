@@ -7,4 +7,7 @@ export const previewUpload = (labId: string, studyId: string, uploadId: string, 
   apiClient.post<UploadPreview>(`/api/labs/${labId}/studies/${studyId}/uploads/${uploadId}/preview`, { mapping });
 
 export const usePreviewUpload = (labId: string, studyId: string) =>
-  useMutation({ mutationFn: ({ uploadId, mapping }: { uploadId: string; mapping: UploadMapping }) => previewUpload(labId, studyId, uploadId, mapping) });
+  useMutation({
+    mutationFn: ({ uploadId, mapping }: { uploadId: string; mapping: UploadMapping }) =>
+      previewUpload(labId, studyId, uploadId, mapping),
+  });

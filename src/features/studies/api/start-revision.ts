@@ -9,5 +9,8 @@ export const startRevision = (labId: string, studyId: string) =>
 
 export function useStartRevision(labId: string, studyId: string) {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: () => startRevision(labId, studyId), onSettled: () => queryClient.invalidateQueries({ queryKey: studiesKeys.all }) });
+  return useMutation({
+    mutationFn: () => startRevision(labId, studyId),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: studiesKeys.all }),
+  });
 }

@@ -11,10 +11,11 @@ export function useStudyMutation<I>(labId: string, studyId: string, call: (input
   return useMutation({
     mutationFn: call,
     onSuccess: (study) => queryClient.setQueryData(studiesKeys.detail(labId, studyId), study),
-    onSettled: () => Promise.all([
-      queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) }),
-      queryClient.invalidateQueries({ queryKey: studiesKeys.history(labId, studyId) }),
-      queryClient.invalidateQueries({ queryKey: studiesKeys.fits(labId, studyId) }),
-    ]),
+    onSettled: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) }),
+        queryClient.invalidateQueries({ queryKey: studiesKeys.history(labId, studyId) }),
+        queryClient.invalidateQueries({ queryKey: studiesKeys.fits(labId, studyId) }),
+      ]),
   });
 }

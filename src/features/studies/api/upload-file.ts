@@ -9,4 +9,5 @@ export const uploadFile = (labId: string, studyId: string, file: File) => {
   return apiClient.post<UploadPreview>(`/api/labs/${labId}/studies/${studyId}/uploads`, form);
 };
 
-export const useUploadFile = (labId: string, studyId: string) => useMutation({ mutationFn: (file: File) => uploadFile(labId, studyId, file) });
+export const useUploadFile = (labId: string, studyId: string) =>
+  useMutation({ mutationFn: (file: File) => uploadFile(labId, studyId, file) });

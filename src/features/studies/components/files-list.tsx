@@ -5,15 +5,28 @@ const statusWords = { parsed: 'read, not used yet', failed: 'could not be read',
 
 /** Raw files as received, each downloadable again. */
 export function FilesList({ labId, studyId, uploads }: { labId: string; studyId: string; uploads: UploadSummary[] }) {
-  if (uploads.length === 0) return <EmptyState title="No files yet">Upload an instrument export to keep it with the study.</EmptyState>;
+  if (uploads.length === 0)
+    return <EmptyState title="No files yet">Upload an instrument export to keep it with the study.</EmptyState>;
   return (
     <ul className="space-y-2 text-body">
       {uploads.map((upload) => (
         <li key={upload.id}>
-          <a className="font-bold text-ink-800 underline" href={`/api/labs/${labId}/studies/${studyId}/uploads/${upload.id}/file`} download>{upload.fileName}</a>
-          <span className="text-ink-500"> · {(upload.size / 1024).toFixed(1)} kB · {statusWords[upload.parseStatus]} · {upload.uploadedBy ?? 'former member'}, {new Date(upload.createdAt).toLocaleString()}</span>
+          <a
+            className="font-bold text-ink-800 underline"
+            href={`/api/labs/${labId}/studies/${studyId}/uploads/${upload.id}/file`}
+            download
+          >
+            {upload.fileName}
+          </a>
+          <span className="text-ink-500">
+            {' '}
+            · {(upload.size / 1024).toFixed(1)} kB · {statusWords[upload.parseStatus]} ·{' '}
+            {upload.uploadedBy ?? 'former member'}, {new Date(upload.createdAt).toLocaleString()}
+          </span>
           {upload.problem && <span className="block text-caption text-brick-700">{upload.problem}</span>}
-          <span className="block truncate text-caption text-ink-300" title="SHA-256">{upload.sha256}</span>
+          <span className="block truncate text-caption text-ink-300" title="SHA-256">
+            {upload.sha256}
+          </span>
         </li>
       ))}
     </ul>

@@ -13,8 +13,15 @@ export function FitControls({ labId, studyId, model }: { labId: string; studyId:
   const run = useRunFit(labId, studyId);
   return (
     <div className="flex flex-wrap items-end gap-2">
-      <SelectField label="Model" value={chosen} onChange={(event) => setChosen(event.target.value as FitModel)} options={fitModels.map((value) => ({ value, label: modelLabels[value] }))} />
-      <Button variant="quiet" onClick={() => run.mutate(chosen)} pending={run.isPending} pendingLabel="Fitting…">Fit with this model</Button>
+      <SelectField
+        label="Model"
+        value={chosen}
+        onChange={(event) => setChosen(event.target.value as FitModel)}
+        options={fitModels.map((value) => ({ value, label: modelLabels[value] }))}
+      />
+      <Button variant="quiet" onClick={() => run.mutate(chosen)} pending={run.isPending} pendingLabel="Fitting…">
+        Fit with this model
+      </Button>
       {run.isError && <FormAlert>{describeError(run.error)}</FormAlert>}
     </div>
   );

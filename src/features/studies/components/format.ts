@@ -1,4 +1,16 @@
-const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
+const SUPERSCRIPT: Record<string, string> = {
+  '-': '⁻',
+  '0': '⁰',
+  '1': '¹',
+  '2': '²',
+  '3': '³',
+  '4': '⁴',
+  '5': '⁵',
+  '6': '⁶',
+  '7': '⁷',
+  '8': '⁸',
+  '9': '⁹',
+};
 
 /** 5.0e8 -> "5.00 × 10⁸"; numbers between 0.01 and 10 000 stay plain. */
 export function formatNumber(value: number | null | undefined, digits = 3): string {
@@ -6,17 +18,26 @@ export function formatNumber(value: number | null | undefined, digits = 3): stri
   const magnitude = Math.abs(value);
   if (magnitude === 0 || (magnitude >= 0.01 && magnitude < 10000)) return Number(value.toPrecision(digits)).toString();
   const [mantissa, exponent] = value.toExponential(digits - 1).split('e');
-  return `${mantissa} × 10${exponent!.replace('+', '').split('').map((char) => SUPERSCRIPT[char] ?? char).join('')}`;
+  return `${mantissa} × 10${exponent!
+    .replace('+', '')
+    .split('')
+    .map((char) => SUPERSCRIPT[char] ?? char)
+    .join('')}`;
 }
 
 export const concentrationUnits = { M: 1, mM: 1e-3, uM: 1e-6 } as const;
 export type ConcentrationUnit = keyof typeof concentrationUnits;
 export const unitLabel: Record<ConcentrationUnit, string> = { M: 'M', mM: 'mM', uM: 'µM' };
 
-export const statusLabels = { draft: 'Draft', submitted: 'Awaiting review', approved: 'Approved', returned: 'Returned' } as const;
+export const statusLabels = {
+  draft: 'Draft',
+  submitted: 'Awaiting review',
+  approved: 'Approved',
+  returned: 'Returned',
+} as const;
 export const modelLabels = {
   'linear-free': 'Straight line, free intercept',
   'linear-fixed': 'Straight line through 1',
   'static-dynamic': 'Static + dynamic (quadratic)',
-  'modified': 'Accessible fraction (modified plot)',
+  modified: 'Accessible fraction (modified plot)',
 } as const;

@@ -2,9 +2,17 @@ import { ErrorNotice } from '@/components/error-notice';
 import { useStudyHistory } from '../api/get-study-history';
 
 const words: Record<string, string> = {
-  study_created: 'created the study', study_updated: 'changed the settings', study_points_replaced: 'saved points', study_points_from_upload: 'took points from a file',
-  study_file_uploaded: 'uploaded a file', study_fitted: 'fitted', study_submitted: 'submitted', study_approved: 'approved', study_returned: 'returned',
-  study_commented: 'commented', study_revision_started: 'started this revision',
+  study_created: 'created the study',
+  study_updated: 'changed the settings',
+  study_points_replaced: 'saved points',
+  study_points_from_upload: 'took points from a file',
+  study_file_uploaded: 'uploaded a file',
+  study_fitted: 'fitted',
+  study_submitted: 'submitted',
+  study_approved: 'approved',
+  study_returned: 'returned',
+  study_commented: 'commented',
+  study_revision_started: 'started this revision',
 };
 
 /** Every change to the study with who and when; before/after values open on demand. */
@@ -17,9 +25,19 @@ export function HistoryPanel({ labId, studyId }: { labId: string; studyId: strin
       {history.data.events.map((event) => (
         <li key={event.id}>
           <details>
-            <summary><strong>{event.actor ?? 'system'}</strong> {words[event.action] ?? event.action} · {new Date(event.createdAt).toLocaleString()}
-              {event.action === 'study_fitted' && typeof event.details.kSv === 'number' && <> (K_SV {Number(event.details.kSv).toPrecision(3)} M⁻¹, {String(event.details.model)})</>}</summary>
-            <pre className="overflow-auto whitespace-pre-wrap text-caption text-ink-700">{JSON.stringify(event.details, null, 1)}</pre>
+            <summary>
+              <strong>{event.actor ?? 'system'}</strong> {words[event.action] ?? event.action} ·{' '}
+              {new Date(event.createdAt).toLocaleString()}
+              {event.action === 'study_fitted' && typeof event.details.kSv === 'number' && (
+                <>
+                  {' '}
+                  (K_SV {Number(event.details.kSv).toPrecision(3)} M⁻¹, {String(event.details.model)})
+                </>
+              )}
+            </summary>
+            <pre className="overflow-auto whitespace-pre-wrap text-caption text-ink-700">
+              {JSON.stringify(event.details, null, 1)}
+            </pre>
           </details>
         </li>
       ))}

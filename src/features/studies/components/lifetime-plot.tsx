@@ -7,22 +7,48 @@ import { figureFileName } from './figure-file-name';
 import { SavePngButton } from './save-png-button';
 
 /** tau0/tau against [Q] with the line 1 + K_SV[Q] from the lifetime fit. */
-export function LifetimePlot({ lifetime, xLabel, xScale, studyTitle }: { lifetime: NonNullable<FitResult['lifetime']>; xLabel: string; xScale: number; studyTitle: string }) {
+export function LifetimePlot({
+  lifetime,
+  xLabel,
+  xScale,
+  studyTitle,
+}: {
+  lifetime: NonNullable<FitResult['lifetime']>;
+  xLabel: string;
+  xScale: number;
+  studyTitle: string;
+}) {
   const chart = useRef<Chart<'scatter'>>(null);
   const maxX = Math.max(...lifetime.points.map((p) => p.x));
   const line = [0, maxX].map((x) => ({ x: x * xScale, y: 1 + lifetime.kSv.value * x }));
   return (
     <figure aria-label="Lifetime plot" className="space-y-2">
-      <div className="flex justify-end"><SavePngButton chart={chart} fileName={figureFileName(studyTitle, 'lifetimes')} what="lifetime plot" /></div>
+      <div className="flex justify-end">
+        <SavePngButton chart={chart} fileName={figureFileName(studyTitle, 'lifetimes')} what="lifetime plot" />
+      </div>
       <div className="relative h-56">
         <Scatter
           ref={chart}
           plugins={[paperBackground]}
-          data={{ datasets: [
-            { label: 'τ0/τ', data: lifetime.points.map((p) => ({ x: p.x * xScale, y: p.y })), backgroundColor: plotColours.points, pointRadius: 5 },
-            { showLine: true, label: 'Fit', data: line, borderColor: plotColours.line, pointRadius: 0 },
-          ] }}
-          options={{ maintainAspectRatio: false, animation: false, scales: { x: { type: 'linear', title: { display: true, text: xLabel } }, y: { title: { display: true, text: 'τ0/τ' } } } }}
+          data={{
+            datasets: [
+              {
+                label: 'τ0/τ',
+                data: lifetime.points.map((p) => ({ x: p.x * xScale, y: p.y })),
+                backgroundColor: plotColours.points,
+                pointRadius: 5,
+              },
+              { showLine: true, label: 'Fit', data: line, borderColor: plotColours.line, pointRadius: 0 },
+            ],
+          }}
+          options={{
+            maintainAspectRatio: false,
+            animation: false,
+            scales: {
+              x: { type: 'linear', title: { display: true, text: xLabel } },
+              y: { title: { display: true, text: 'τ0/τ' } },
+            },
+          }}
         />
       </div>
     </figure>

@@ -6,46 +6,122 @@ import { SpectrumSamplesEditor } from './spectrum-samples-editor';
 
 type Series = Extract<UploadMapping, { layout: 'series' }>;
 const ROLES: Array<[keyof Series & string, string]> = [
-  ['concentration', 'Concentration column'], ['intensity', 'Intensity or I0/I column'], ['lifetime', 'Lifetime column'],
-  ['absorbanceExcitation', 'A at λex column'], ['absorbanceEmission', 'A at λem column'], ['volumeAdded', 'Volume added column'], ['uncertainty', 'Uncertainty column'],
+  ['concentration', 'Concentration column'],
+  ['intensity', 'Intensity or I0/I column'],
+  ['lifetime', 'Lifetime column'],
+  ['absorbanceExcitation', 'A at λex column'],
+  ['absorbanceEmission', 'A at λem column'],
+  ['volumeAdded', 'Volume added column'],
+  ['uncertainty', 'Uncertainty column'],
 ];
 
 /** Which column holds what, in which unit; or, for a spectrum matrix, how each sample is reduced to one intensity. */
-export function MappingEditor({ headers, mapping, onChange }: { headers: string[]; mapping: UploadMapping; onChange: (next: UploadMapping) => void }) {
-  const columns = [{ value: '', label: '— none —' }, ...headers.map((header, i) => ({ value: String(i), label: `${i + 1}: ${header}` }))];
+export function MappingEditor({
+  headers,
+  mapping,
+  onChange,
+}: {
+  headers: string[];
+  mapping: UploadMapping;
+  onChange: (next: UploadMapping) => void;
+}) {
+  const columns = [
+    { value: '', label: '— none —' },
+    ...headers.map((header, i) => ({ value: String(i), label: `${i + 1}: ${header}` })),
+  ];
   if (mapping.layout === 'spectrum') {
     const reduction = mapping.reduction;
     return (
       <div className="flex flex-wrap items-end gap-3">
-        <p className="w-full text-body">Spectra: {mapping.samples.length} of {headers.length - 1} have a quencher concentration (read from the file or typed below).</p>
+        <p className="w-full text-body">
+          Spectra: {mapping.samples.length} of {headers.length - 1} have a quencher concentration (read from the file or
+          typed below).
+        </p>
         <SpectrumSamplesEditor headers={headers} mapping={mapping} onChange={onChange} />
-        <SelectField label="Reduce each spectrum by" value={reduction.kind} options={[{ value: 'window', label: 'integrating over a window' }, { value: 'wavelength', label: 'reading one wavelength' }]}
-          onChange={(event) => onChange({ ...mapping, reduction: event.target.value === 'window' ? { kind: 'window', start: 0, end: 0 } : { kind: 'wavelength', at: 0 } })} />
+        <SelectField
+          label="Reduce each spectrum by"
+          value={reduction.kind}
+          options={[
+            { value: 'window', label: 'integrating over a window' },
+            { value: 'wavelength', label: 'reading one wavelength' },
+          ]}
+          onChange={(event) =>
+            onChange({
+              ...mapping,
+              reduction:
+                event.target.value === 'window' ? { kind: 'window', start: 0, end: 0 } : { kind: 'wavelength', at: 0 },
+            })
+          }
+        />
         {reduction.kind === 'window' ? (
           <>
-            <TextField label="From (nm)" type="number" value={reduction.start} onChange={(event) => onChange({ ...mapping, reduction: { ...reduction, start: Number(event.target.value) } })} />
-            <TextField label="To (nm)" type="number" value={reduction.end} onChange={(event) => onChange({ ...mapping, reduction: { ...reduction, end: Number(event.target.value) } })} />
+            <TextField
+              label="From (nm)"
+              type="number"
+              value={reduction.start}
+              onChange={(event) =>
+                onChange({ ...mapping, reduction: { ...reduction, start: Number(event.target.value) } })
+              }
+            />
+            <TextField
+              label="To (nm)"
+              type="number"
+              value={reduction.end}
+              onChange={(event) =>
+                onChange({ ...mapping, reduction: { ...reduction, end: Number(event.target.value) } })
+              }
+            />
           </>
         ) : (
-          <TextField label="At (nm)" type="number" value={reduction.at} onChange={(event) => onChange({ ...mapping, reduction: { kind: 'wavelength', at: Number(event.target.value) } })} />
+          <TextField
+            label="At (nm)"
+            type="number"
+            value={reduction.at}
+            onChange={(event) =>
+              onChange({ ...mapping, reduction: { kind: 'wavelength', at: Number(event.target.value) } })
+            }
+          />
         )}
       </div>
     );
   }
-  const unitSelect = (label: string, key: 'concentrationUnit' | 'lifetimeUnit' | 'volumeUnit', units: readonly string[]) => (
-    <SelectField label={label} value={mapping[key]} options={units.map((unit) => ({ value: unit, label: unit.replace(/^u/, 'µ') }))} onChange={(event) => onChange({ ...mapping, [key]: event.target.value } as UploadMapping)} />
+  const unitSelect = (
+    label: string,
+    key: 'concentrationUnit' | 'lifetimeUnit' | 'volumeUnit',
+    units: readonly string[],
+  ) => (
+    <SelectField
+      label={label}
+      value={mapping[key]}
+      options={units.map((unit) => ({ value: unit, label: unit.replace(/^u/, 'µ') }))}
+      onChange={(event) => onChange({ ...mapping, [key]: event.target.value } as UploadMapping)}
+    />
   );
   return (
     <div className="grid grid-cols-2 gap-3 md:grid-cols-4">
       {ROLES.map(([key, label]) => (
-        <SelectField key={key} label={label} value={mapping[key] === null ? '' : String(mapping[key])} options={key === 'concentration' ? columns.slice(1) : columns}
-          onChange={(event) => onChange({ ...mapping, [key]: event.target.value === '' ? null : Number(event.target.value) } as UploadMapping)} />
+        <SelectField
+          key={key}
+          label={label}
+          value={mapping[key] === null ? '' : String(mapping[key])}
+          options={key === 'concentration' ? columns.slice(1) : columns}
+          onChange={(event) =>
+            onChange({
+              ...mapping,
+              [key]: event.target.value === '' ? null : Number(event.target.value),
+            } as UploadMapping)
+          }
+        />
       ))}
       {unitSelect('Concentration unit', 'concentrationUnit', concentrationUnits)}
       {unitSelect('Lifetime unit', 'lifetimeUnit', timeUnits)}
       {unitSelect('Volume unit', 'volumeUnit', volumeUnits)}
       <label className="flex items-center gap-2 self-end pb-2 text-body font-bold text-ink-900">
-        <input type="checkbox" checked={mapping.intensityIsRatio} onChange={(event) => onChange({ ...mapping, intensityIsRatio: event.target.checked })} />
+        <input
+          type="checkbox"
+          checked={mapping.intensityIsRatio}
+          onChange={(event) => onChange({ ...mapping, intensityIsRatio: event.target.checked })}
+        />
         Column holds I0/I ratios
       </label>
     </div>

@@ -17,17 +17,38 @@ export type GridKey = (typeof gridColumns)[number]['key'];
 export type GridRow = Record<GridKey, string> & { excluded: boolean; exclusionReason: string; pointId: string | null };
 
 const scale = (unit: ConcentrationUnit): Record<GridKey, number> => ({
-  concentration: concentrationUnits[unit], intensity: 1, lifetime: 1e-9, absorbanceExcitation: 1, absorbanceEmission: 1, volumeAdded: 1e-6, uncertainty: 1,
+  concentration: concentrationUnits[unit],
+  intensity: 1,
+  lifetime: 1e-9,
+  absorbanceExcitation: 1,
+  absorbanceEmission: 1,
+  volumeAdded: 1e-6,
+  uncertainty: 1,
 });
 
-const show = (value: number | null, factor: number) => (value === null ? '' : String(Number((value / factor).toPrecision(10))));
+const show = (value: number | null, factor: number) =>
+  value === null ? '' : String(Number((value / factor).toPrecision(10)));
 
-export const emptyRow = (): GridRow => ({ concentration: '', intensity: '', lifetime: '', absorbanceExcitation: '', absorbanceEmission: '', volumeAdded: '', uncertainty: '', excluded: false, exclusionReason: '', pointId: null });
+export const emptyRow = (): GridRow => ({
+  concentration: '',
+  intensity: '',
+  lifetime: '',
+  absorbanceExcitation: '',
+  absorbanceEmission: '',
+  volumeAdded: '',
+  uncertainty: '',
+  excluded: false,
+  exclusionReason: '',
+  pointId: null,
+});
 
 export function rowsFromPoints(points: StudyPoint[], unit: ConcentrationUnit): GridRow[] {
   const factors = scale(unit);
   return points.map((point) => ({
-    ...(Object.fromEntries(gridColumns.map(({ key }) => [key, show(point[key], factors[key])])) as Record<GridKey, string>),
+    ...(Object.fromEntries(gridColumns.map(({ key }) => [key, show(point[key], factors[key])])) as Record<
+      GridKey,
+      string
+    >),
     excluded: point.excluded,
     exclusionReason: point.exclusionReason ?? '',
     pointId: point.id,
@@ -38,7 +59,11 @@ export function rowsFromPoints(points: StudyPoint[], unit: ConcentrationUnit): G
  * The saved point whose corrected values belong beside this row: the one it was loaded from,
  * and only while the row still holds that point's values (an edited row waits for the save).
  */
-export function savedPointOf(row: GridRow, savedById: ReadonlyMap<string, StudyPoint>, unit: ConcentrationUnit): StudyPoint | null {
+export function savedPointOf(
+  row: GridRow,
+  savedById: ReadonlyMap<string, StudyPoint>,
+  unit: ConcentrationUnit,
+): StudyPoint | null {
   const point = row.pointId === null ? undefined : savedById.get(row.pointId);
   if (!point || row.excluded !== point.excluded) return null;
   const factors = scale(unit);
@@ -53,7 +78,10 @@ export function savedPointOf(row: GridRow, savedById: ReadonlyMap<string, StudyP
 }
 
 /** Grid text -> API points in SI units; a cell that is not a number comes back as a problem naming row and column. */
-export function pointsFromRows(rows: GridRow[], unit: ConcentrationUnit): { points: StudyPointInput[]; problems: string[] } {
+export function pointsFromRows(
+  rows: GridRow[],
+  unit: ConcentrationUnit,
+): { points: StudyPointInput[]; problems: string[] } {
   const factors = scale(unit);
   const problems: string[] = [];
   const points = rows
@@ -70,14 +98,22 @@ export function pointsFromRows(rows: GridRow[], unit: ConcentrationUnit): { poin
         }
       }
       if (values.concentration === null) problems.push(`Row ${index + 1}: the concentration is missing.`);
-      return { ...values, concentration: values.concentration ?? 0, excluded: row.excluded, exclusionReason: row.excluded ? row.exclusionReason || null : null };
+      return {
+        ...values,
+        concentration: values.concentration ?? 0,
+        excluded: row.excluded,
+        exclusionReason: row.excluded ? row.exclusionReason || null : null,
+      };
     });
   return { points, problems };
 }
 
 /** Tab- and line-separated text from a spreadsheet, pasted from a starting cell. */
 export function pasteInto(rows: GridRow[], text: string, startRow: number, startColumn: number): GridRow[] {
-  const lines = text.replace(/\r/g, '').split('\n').filter((line, i, all) => line !== '' || i < all.length - 1);
+  const lines = text
+    .replace(/\r/g, '')
+    .split('\n')
+    .filter((line, i, all) => line !== '' || i < all.length - 1);
   const next = rows.map((row) => ({ ...row }));
   lines.forEach((line, offset) => {
     const target = startRow + offset;

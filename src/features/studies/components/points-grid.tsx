@@ -6,9 +6,21 @@ import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
 import { useReplacePoints } from '../api/replace-points';
 import { concentrationUnits, formatNumber, unitLabel, type ConcentrationUnit } from './format';
-import { emptyRow, gridColumns, pasteInto, pointsFromRows, rowsFromPoints, savedPointOf, type GridRow } from './points-grid-model';
+import {
+  emptyRow,
+  gridColumns,
+  pasteInto,
+  pointsFromRows,
+  rowsFromPoints,
+  savedPointOf,
+  type GridRow,
+} from './points-grid-model';
 
-interface Props { labId: string; study: StudyDetail; editable: boolean }
+interface Props {
+  labId: string;
+  study: StudyDetail;
+  editable: boolean;
+}
 
 /** The series as an editable table; paste a block from a spreadsheet into any cell. Corrected values sit beside the raw ones. */
 export function PointsGrid({ labId, study, editable }: Props) {
@@ -29,63 +41,129 @@ export function PointsGrid({ labId, study, editable }: Props) {
 
   function changeUnit(next: ConcentrationUnit) {
     const ratio = concentrationUnits[unit] / concentrationUnits[next];
-    setRows((current) => current.map((row) => {
-      const value = Number(row.concentration.replace(',', '.'));
-      return row.concentration.trim() === '' || !Number.isFinite(value) ? row : { ...row, concentration: String(Number((value * ratio).toPrecision(10))) };
-    }));
+    setRows((current) =>
+      current.map((row) => {
+        const value = Number(row.concentration.replace(',', '.'));
+        return row.concentration.trim() === '' || !Number.isFinite(value)
+          ? row
+          : { ...row, concentration: String(Number((value * ratio).toPrecision(10))) };
+      }),
+    );
     setUnit(next);
   }
   function onSave() {
     const { points, problems: found } = pointsFromRows(rows, unit);
     setProblems(found);
-    if (found.length === 0) save.mutate({ version: study.version, points }, { onSuccess: (saved) => setRows([...rowsFromPoints(saved.points, unit), emptyRow()]) });
+    if (found.length === 0)
+      save.mutate(
+        { version: study.version, points },
+        { onSuccess: (saved) => setRows([...rowsFromPoints(saved.points, unit), emptyRow()]) },
+      );
   }
-  const set = (index: number, patch: Partial<GridRow>) => setRows((current) => current.map((row, i) => (i === index ? { ...row, ...patch } : row)));
+  const set = (index: number, patch: Partial<GridRow>) =>
+    setRows((current) => current.map((row, i) => (i === index ? { ...row, ...patch } : row)));
 
   return (
     <div className="space-y-3">
       <div className="flex items-end gap-4">
-        <SelectField label="Concentration unit" value={unit} onChange={(event) => changeUnit(event.target.value as ConcentrationUnit)} options={(Object.keys(unitLabel) as ConcentrationUnit[]).map((value) => ({ value, label: unitLabel[value] }))} />
-        <p className="pb-2 text-caption text-ink-500">{study.dataKind === 'ratio' ? 'The intensity column holds I0/I ratios.' : 'Paste a block of cells copied from a spreadsheet into any cell.'}</p>
+        <SelectField
+          label="Concentration unit"
+          value={unit}
+          onChange={(event) => changeUnit(event.target.value as ConcentrationUnit)}
+          options={(Object.keys(unitLabel) as ConcentrationUnit[]).map((value) => ({ value, label: unitLabel[value] }))}
+        />
+        <p className="pb-2 text-caption text-ink-500">
+          {study.dataKind === 'ratio'
+            ? 'The intensity column holds I0/I ratios.'
+            : 'Paste a block of cells copied from a spreadsheet into any cell.'}
+        </p>
       </div>
       {/* contain:inline-size: with the corrected column the grid scrolls here instead of widening the page */}
       <div className="overflow-x-auto [contain:inline-size]">
         <table className="w-full text-body">
-          <thead><tr className="text-left text-caption text-ink-500">
-            <th>#</th>{gridColumns.map((column) => <th key={column.key}>{column.key === 'concentration' ? `[Q] (${unitLabel[unit]})` : column.label}</th>)}
-            <th>Leave out</th><th>Reason</th>{corrections && <th>Corrected [Q] / I</th>}
-          </tr></thead>
+          <thead>
+            <tr className="text-left text-caption text-ink-500">
+              <th>#</th>
+              {gridColumns.map((column) => (
+                <th key={column.key}>{column.key === 'concentration' ? `[Q] (${unitLabel[unit]})` : column.label}</th>
+              ))}
+              <th>Leave out</th>
+              <th>Reason</th>
+              {corrections && <th>Corrected [Q] / I</th>}
+            </tr>
+          </thead>
           <tbody>
             {rows.map((row, index) => (
               <tr key={index} className={row.excluded ? 'bg-brick-100/50' : ''}>
                 <td className="pr-2 text-caption text-ink-500">{index + 1}</td>
                 {gridColumns.map((column, columnIndex) => (
                   <td key={column.key} className="pr-1">
-                    <input aria-label={`Row ${index + 1} ${column.label}`} disabled={!editable} value={row[column.key]} className="w-24 rounded border border-paper-300 px-1.5 py-1"
+                    <input
+                      aria-label={`Row ${index + 1} ${column.label}`}
+                      disabled={!editable}
+                      value={row[column.key]}
+                      className="w-24 rounded border border-paper-300 px-1.5 py-1"
                       onChange={(event) => set(index, { [column.key]: event.target.value })}
                       onPaste={(event) => {
                         const text = event.clipboardData.getData('text');
                         if (!/[\t\n]/.test(text)) return;
                         event.preventDefault();
-                        setRows((current) => [...pasteInto(current, text, index, columnIndex).filter((r, i, all) => i < all.length - 1 || Object.values(r).some((v) => v !== '' && v !== false)), emptyRow()]);
-                      }} />
+                        setRows((current) => [
+                          ...pasteInto(current, text, index, columnIndex).filter(
+                            (r, i, all) => i < all.length - 1 || Object.values(r).some((v) => v !== '' && v !== false),
+                          ),
+                          emptyRow(),
+                        ]);
+                      }}
+                    />
                   </td>
                 ))}
-                <td><input type="checkbox" aria-label={`Row ${index + 1} leave out`} disabled={!editable} checked={row.excluded} onChange={(event) => set(index, { excluded: event.target.checked })} /></td>
-                <td><input aria-label={`Row ${index + 1} reason`} disabled={!editable || !row.excluded} value={row.exclusionReason} className="w-36 rounded border border-paper-300 px-1.5 py-1" onChange={(event) => set(index, { exclusionReason: event.target.value })} /></td>
+                <td>
+                  <input
+                    type="checkbox"
+                    aria-label={`Row ${index + 1} leave out`}
+                    disabled={!editable}
+                    checked={row.excluded}
+                    onChange={(event) => set(index, { excluded: event.target.checked })}
+                  />
+                </td>
+                <td>
+                  <input
+                    aria-label={`Row ${index + 1} reason`}
+                    disabled={!editable || !row.excluded}
+                    value={row.exclusionReason}
+                    className="w-36 rounded border border-paper-300 px-1.5 py-1"
+                    onChange={(event) => set(index, { exclusionReason: event.target.value })}
+                  />
+                </td>
                 {corrections && <td className="text-caption text-ink-700">{correctedCell(row)}</td>}
               </tr>
             ))}
           </tbody>
         </table>
       </div>
-      {waiting && <p className="text-caption text-ink-500">Corrected values are worked out on the server from saved points; new and changed rows show theirs after saving.</p>}
-      {problems.length > 0 && <FormAlert>{problems.map((problem) => <p key={problem}>{problem}</p>)}</FormAlert>}
+      {waiting && (
+        <p className="text-caption text-ink-500">
+          Corrected values are worked out on the server from saved points; new and changed rows show theirs after
+          saving.
+        </p>
+      )}
+      {problems.length > 0 && (
+        <FormAlert>
+          {problems.map((problem) => (
+            <p key={problem}>{problem}</p>
+          ))}
+        </FormAlert>
+      )}
       {save.isError && <FormAlert>{describeError(save.error)}</FormAlert>}
       {editable && (
         <div className="flex gap-2">
-          <Button onClick={onSave} pending={save.isPending} pendingLabel="Saving and fitting…">Save points and fit</Button>
-          <Button variant="quiet" onClick={() => setRows((current) => [...current, emptyRow()])}>Add a row</Button>
+          <Button onClick={onSave} pending={save.isPending} pendingLabel="Saving and fitting…">
+            Save points and fit
+          </Button>
+          <Button variant="quiet" onClick={() => setRows((current) => [...current, emptyRow()])}>
+            Add a row
+          </Button>
         </div>
       )}
     </div>

@@ -8,8 +8,11 @@ function Row({ label, estimate, unit }: { label: string; estimate: Estimate | un
     <div className="grid grid-cols-[9rem_1fr] gap-2 py-1">
       <dt className="font-bold text-ink-900">{label}</dt>
       <dd aria-label={label}>
-        <span className="text-lead font-black text-ink-950">{formatNumber(estimate.value)}</span> ± {formatNumber(estimate.standardError, 2)} {unit}
-        <span className="block text-caption text-ink-500">95 % interval {formatNumber(estimate.interval95.lower)} to {formatNumber(estimate.interval95.upper)}</span>
+        <span className="text-lead font-black text-ink-950">{formatNumber(estimate.value)}</span> ±{' '}
+        {formatNumber(estimate.standardError, 2)} {unit}
+        <span className="block text-caption text-ink-500">
+          95 % interval {formatNumber(estimate.interval95.lower)} to {formatNumber(estimate.interval95.upper)}
+        </span>
       </dd>
     </div>
   );
@@ -20,7 +23,9 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
   const { parameters, statistics, diffusionLimit, tau0, flags, notes } = fit.result;
   return (
     <div className="space-y-3 text-body text-ink-800">
-      <p className="text-caption text-ink-500">{modelLabels[fit.model]} · engine {fit.engineVersion} · {new Date(fit.createdAt).toLocaleString()}</p>
+      <p className="text-caption text-ink-500">
+        {modelLabels[fit.model]} · engine {fit.engineVersion} · {new Date(fit.createdAt).toLocaleString()}
+      </p>
       <dl>
         <Row label="K_SV" estimate={parameters.kSv} unit="M⁻¹" />
         <Row label="K_D (dynamic)" estimate={parameters.kD} unit="M⁻¹" />
@@ -30,12 +35,25 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
         <Row label="kq" estimate={parameters.kq} unit="M⁻¹ s⁻¹" />
         <Row label="kq from lifetimes" estimate={parameters.kqFromLifetimes} unit="M⁻¹ s⁻¹" />
       </dl>
-      <p>n = {statistics.n}{statistics.rSquared !== null && <> · R² = {statistics.rSquared.toFixed(4)}</>}{statistics.curvature && <> · shape: {statistics.curvature}</>}</p>
-      {tau0 && <p>τ0 = {formatNumber(tau0.value)} s ± {formatNumber(tau0.standardError, 2)} ({tau0.source})</p>}
+      <p>
+        n = {statistics.n}
+        {statistics.rSquared !== null && <> · R² = {statistics.rSquared.toFixed(4)}</>}
+        {statistics.curvature && <> · shape: {statistics.curvature}</>}
+      </p>
+      {tau0 && (
+        <p>
+          τ0 = {formatNumber(tau0.value)} s ± {formatNumber(tau0.standardError, 2)} ({tau0.source})
+        </p>
+      )}
       {diffusionLimit && (
         <p>
           Diffusion limit k_diff = {formatNumber(diffusionLimit.value)} M⁻¹ s⁻¹
-          {diffusionLimit.ratio !== null && <> · kq/k_diff = <strong>{diffusionLimit.ratio.toFixed(2)}</strong></>}
+          {diffusionLimit.ratio !== null && (
+            <>
+              {' '}
+              · kq/k_diff = <strong>{diffusionLimit.ratio.toFixed(2)}</strong>
+            </>
+          )}
           <span className="block text-caption text-ink-500">8RT/(3η), {diffusionLimit.basis}</span>
         </p>
       )}
@@ -43,15 +61,25 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
       {flags.length > 0 && (
         <ul aria-label="Flags" className="space-y-2">
           {flags.map((flag) => (
-            <li key={flag.code} className={`rounded-md border px-3 py-2 ${flag.severity === 'error' ? 'border-brick-500 bg-brick-100' : 'border-glow-300 bg-glow-50'}`}>
-              <p className="font-bold">{flag.title}{flag.detail && <span className="font-normal text-ink-500"> — {flag.detail}</span>}</p>
+            <li
+              key={flag.code}
+              className={`rounded-md border px-3 py-2 ${flag.severity === 'error' ? 'border-brick-500 bg-brick-100' : 'border-glow-300 bg-glow-50'}`}
+            >
+              <p className="font-bold">
+                {flag.title}
+                {flag.detail && <span className="font-normal text-ink-500"> — {flag.detail}</span>}
+              </p>
               <p>{flag.explanation}</p>
               <p className="text-caption">Check: {flag.whatToCheck.join('; ')}.</p>
             </li>
           ))}
         </ul>
       )}
-      {notes.map((note) => <p key={note} className="text-caption text-ink-500">{note}</p>)}
+      {notes.map((note) => (
+        <p key={note} className="text-caption text-ink-500">
+          {note}
+        </p>
+      ))}
     </div>
   );
 }

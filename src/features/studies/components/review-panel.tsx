@@ -12,7 +12,13 @@ import { useSubmitStudy } from '../api/submit-study';
 
 const verbs = { submit: 'submitted', approve: 'approved', return: 'returned', comment: 'commented' } as const;
 
-interface Props { labId: string; study: StudyDetail; isOwner: boolean; canReview: boolean; canWrite: boolean }
+interface Props {
+  labId: string;
+  study: StudyDetail;
+  isOwner: boolean;
+  canReview: boolean;
+  canWrite: boolean;
+}
 
 /** The review thread and the steps this person may take now. */
 export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Props) {
@@ -32,27 +38,67 @@ export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Prop
       <ol className="space-y-2">
         {study.reviews.length === 0 && <li className="text-body text-ink-500">No review steps or comments yet.</li>}
         {study.reviews.map((entry) => (
-          <li key={entry.id} className="text-body"><strong>{entry.author ?? 'former member'}</strong> {verbs[entry.action]} · {new Date(entry.createdAt).toLocaleString()}{entry.comment && <span className="block text-ink-700">“{entry.comment}”</span>}</li>
+          <li key={entry.id} className="text-body">
+            <strong>{entry.author ?? 'former member'}</strong> {verbs[entry.action]} ·{' '}
+            {new Date(entry.createdAt).toLocaleString()}
+            {entry.comment && <span className="block text-ink-700">“{entry.comment}”</span>}
+          </li>
         ))}
       </ol>
       {canWrite && current && (
         <label className="flex flex-col gap-1 text-body font-bold text-ink-900">
           Comment
-          <textarea value={comment} onChange={(event) => setComment(event.target.value)} rows={2} className="rounded-md border border-paper-300 px-3 py-2 font-normal" />
+          <textarea
+            value={comment}
+            onChange={(event) => setComment(event.target.value)}
+            rows={2}
+            className="rounded-md border border-paper-300 px-3 py-2 font-normal"
+          />
         </label>
       )}
       {failed && <FormAlert>{describeError(failed.error)}</FormAlert>}
       <div className="flex flex-wrap gap-2">
-        {isOwner && current && (study.status === 'draft' || study.status === 'returned') && <Button onClick={() => submit.mutate(comment, done)} pending={submit.isPending} disabled={!study.latestFit}>Submit for review</Button>}
+        {isOwner && current && (study.status === 'draft' || study.status === 'returned') && (
+          <Button onClick={() => submit.mutate(comment, done)} pending={submit.isPending} disabled={!study.latestFit}>
+            Submit for review
+          </Button>
+        )}
         {canReview && current && study.status === 'submitted' && (
           <>
-            <Button onClick={() => approve.mutate(comment, done)} pending={approve.isPending}>Approve</Button>
-            <Button variant="danger" onClick={() => giveBack.mutate(comment, done)} pending={giveBack.isPending} disabled={comment.trim() === ''} title="Say what should change">Return with comment</Button>
+            <Button onClick={() => approve.mutate(comment, done)} pending={approve.isPending}>
+              Approve
+            </Button>
+            <Button
+              variant="danger"
+              onClick={() => giveBack.mutate(comment, done)}
+              pending={giveBack.isPending}
+              disabled={comment.trim() === ''}
+              title="Say what should change"
+            >
+              Return with comment
+            </Button>
           </>
         )}
-        {canWrite && current && <Button variant="quiet" onClick={() => addComment.mutate(comment, done)} pending={addComment.isPending} disabled={comment.trim() === ''}>Add comment</Button>}
+        {canWrite && current && (
+          <Button
+            variant="quiet"
+            onClick={() => addComment.mutate(comment, done)}
+            pending={addComment.isPending}
+            disabled={comment.trim() === ''}
+          >
+            Add comment
+          </Button>
+        )}
         {(isOwner || canReview) && current && study.status === 'approved' && (
-          <Button variant="quiet" pending={revision.isPending} onClick={() => revision.mutate(undefined, { onSuccess: (next) => navigate(`/labs/${labId}/studies/${next.id}`) })}>Start a new revision</Button>
+          <Button
+            variant="quiet"
+            pending={revision.isPending}
+            onClick={() =>
+              revision.mutate(undefined, { onSuccess: (next) => navigate(`/labs/${labId}/studies/${next.id}`) })
+            }
+          >
+            Start a new revision
+          </Button>
         )}
       </div>
     </div>

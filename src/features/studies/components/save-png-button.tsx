@@ -3,7 +3,15 @@ import type { Chart } from 'chart.js';
 import { Button } from '@/components/button';
 
 /** Saves what a chart shows as a PNG (chart.js toBase64Image), named after the study. */
-export function SavePngButton({ chart, fileName, what }: { chart: RefObject<Chart<'scatter'> | null>; fileName: string; what: string }) {
+export function SavePngButton({
+  chart,
+  fileName,
+  what,
+}: {
+  chart: RefObject<Chart<'scatter'> | null>;
+  fileName: string;
+  what: string;
+}) {
   function save() {
     const current = chart.current;
     if (!current) return;
@@ -12,5 +20,9 @@ export function SavePngButton({ chart, fileName, what }: { chart: RefObject<Char
     link.download = fileName;
     link.click();
   }
-  return <Button variant="quiet" aria-label={`Save the ${what} as PNG`} onClick={save}>Save as PNG</Button>;
+  return (
+    <Button variant="quiet" aria-label={`Save the ${what} as PNG`} onClick={save}>
+      Save as PNG
+    </Button>
+  );
 }

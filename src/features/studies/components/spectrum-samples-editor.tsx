@@ -3,9 +3,14 @@ import type { SpectrumMapping } from '@shared/schemas/study-uploads';
 import { SelectField } from '@/components/select-field';
 import { concentrationUnits, unitLabel, type ConcentrationUnit } from './format';
 
-interface Props { headers: string[]; mapping: SpectrumMapping; onChange: (next: SpectrumMapping) => void }
+interface Props {
+  headers: string[];
+  mapping: SpectrumMapping;
+  onChange: (next: SpectrumMapping) => void;
+}
 
-const shown = (molar: number, unit: ConcentrationUnit) => String(Number((molar / concentrationUnits[unit]).toPrecision(8)));
+const shown = (molar: number, unit: ConcentrationUnit) =>
+  String(Number((molar / concentrationUnits[unit]).toPrecision(8)));
 
 /**
  * One quencher concentration per spectrum: filled from the file where it names one, typed
@@ -14,37 +19,66 @@ const shown = (molar: number, unit: ConcentrationUnit) => String(Number((molar /
 export function SpectrumSamplesEditor({ headers, mapping, onChange }: Props) {
   const [unit, setUnit] = useState<ConcentrationUnit>('mM');
   const [texts, setTexts] = useState<Record<number, string>>(() =>
-    Object.fromEntries(mapping.samples.map((sample) => [sample.column, shown(sample.concentration, 'mM')])));
-  const columns = headers.map((header, column) => ({ header, column })).filter(({ column }) => column !== mapping.wavelength);
+    Object.fromEntries(mapping.samples.map((sample) => [sample.column, shown(sample.concentration, 'mM')])),
+  );
+  const columns = headers
+    .map((header, column) => ({ header, column }))
+    .filter(({ column }) => column !== mapping.wavelength);
 
   function publish(nextTexts: Record<number, string>, nextUnit: ConcentrationUnit) {
     const samples = columns.flatMap(({ column }) => {
       const value = Number((nextTexts[column] ?? '').trim().replace(',', '.'));
-      return (nextTexts[column] ?? '').trim() !== '' && Number.isFinite(value) && value >= 0 ? [{ column, concentration: value * concentrationUnits[nextUnit] }] : [];
+      return (nextTexts[column] ?? '').trim() !== '' && Number.isFinite(value) && value >= 0
+        ? [{ column, concentration: value * concentrationUnits[nextUnit] }]
+        : [];
     });
     onChange({ ...mapping, samples });
   }
-  const invalid = (text: string | undefined) => text !== undefined && text.trim() !== '' && !(Number(text.replace(',', '.')) >= 0);
+  const invalid = (text: string | undefined) =>
+    text !== undefined && text.trim() !== '' && !(Number(text.replace(',', '.')) >= 0);
 
   return (
     <div className="w-full space-y-2">
       <div className="flex items-end gap-3">
-        <SelectField label="Typed concentrations in" value={unit} options={(Object.keys(unitLabel) as ConcentrationUnit[]).map((value) => ({ value, label: unitLabel[value] }))}
-          onChange={(event) => { const next = event.target.value as ConcentrationUnit; setUnit(next); publish(texts, next); }} />
+        <SelectField
+          label="Typed concentrations in"
+          value={unit}
+          options={(Object.keys(unitLabel) as ConcentrationUnit[]).map((value) => ({ value, label: unitLabel[value] }))}
+          onChange={(event) => {
+            const next = event.target.value as ConcentrationUnit;
+            setUnit(next);
+            publish(texts, next);
+          }}
+        />
         <p className="pb-2 text-caption text-ink-500">Leave a field empty to keep that spectrum out of the series.</p>
       </div>
       <table aria-label="Spectra and their concentrations" className="text-body">
-        <thead><tr className="text-left text-caption text-ink-500"><th className="pr-4">Spectrum</th><th>[Q] ({unitLabel[unit]})</th></tr></thead>
+        <thead>
+          <tr className="text-left text-caption text-ink-500">
+            <th className="pr-4">Spectrum</th>
+            <th>[Q] ({unitLabel[unit]})</th>
+          </tr>
+        </thead>
         <tbody>
           {columns.map(({ header, column }) => (
             <tr key={column}>
               <td className="pr-4">{header}</td>
               <td>
-                <input aria-label={`Concentration of ${header}`} value={texts[column] ?? ''} inputMode="decimal"
+                <input
+                  aria-label={`Concentration of ${header}`}
+                  value={texts[column] ?? ''}
+                  inputMode="decimal"
                   aria-invalid={invalid(texts[column]) || undefined}
                   className={`w-28 rounded border px-1.5 py-1 ${invalid(texts[column]) ? 'border-brick-500' : 'border-paper-300'}`}
-                  onChange={(event) => { const next = { ...texts, [column]: event.target.value }; setTexts(next); publish(next, unit); }} />
-                {invalid(texts[column]) && <span className="ml-2 text-caption text-brick-700">a number of zero or more</span>}
+                  onChange={(event) => {
+                    const next = { ...texts, [column]: event.target.value };
+                    setTexts(next);
+                    publish(next, unit);
+                  }}
+                />
+                {invalid(texts[column]) && (
+                  <span className="ml-2 text-caption text-brick-700">a number of zero or more</span>
+                )}
               </td>
             </tr>
           ))}

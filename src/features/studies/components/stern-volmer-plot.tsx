@@ -29,31 +29,89 @@ const axis = (title: string) => ({
 export function SternVolmerPlot({ plot, excluded, xLabel, xScale, studyTitle }: Props) {
   const main = useRef<Chart<'scatter'>>(null);
   const residuals = useRef<Chart<'scatter'>>(null);
-  const scaled = (points: Array<{ x: number; y: number }>) => points.map((point) => ({ x: point.x * xScale, y: point.y }));
+  const scaled = (points: Array<{ x: number; y: number }>) =>
+    points.map((point) => ({ x: point.x * xScale, y: point.y }));
   const data = {
     datasets: [
-      { showLine: true, label: '95 % band', data: scaled(plot.line.map((p) => ({ x: p.x, y: p.upper }))), borderWidth: 0, pointRadius: 0, backgroundColor: plotColours.band, fill: '+1' },
-      { showLine: true, label: 'band lower', data: scaled(plot.line.map((p) => ({ x: p.x, y: p.lower }))), borderWidth: 0, pointRadius: 0 },
-      { showLine: true, label: 'Fit', data: scaled(plot.line), borderColor: plotColours.line, borderWidth: 2, pointRadius: 0 },
+      {
+        showLine: true,
+        label: '95 % band',
+        data: scaled(plot.line.map((p) => ({ x: p.x, y: p.upper }))),
+        borderWidth: 0,
+        pointRadius: 0,
+        backgroundColor: plotColours.band,
+        fill: '+1',
+      },
+      {
+        showLine: true,
+        label: 'band lower',
+        data: scaled(plot.line.map((p) => ({ x: p.x, y: p.lower }))),
+        borderWidth: 0,
+        pointRadius: 0,
+      },
+      {
+        showLine: true,
+        label: 'Fit',
+        data: scaled(plot.line),
+        borderColor: plotColours.line,
+        borderWidth: 2,
+        pointRadius: 0,
+      },
       { label: 'Points used', data: scaled(plot.points), backgroundColor: plotColours.points, pointRadius: 5 },
-      { label: 'Left out', data: scaled(excluded), backgroundColor: 'transparent', borderColor: plotColours.excluded, pointStyle: 'crossRot' as const, pointRadius: 7, borderWidth: 2 },
+      {
+        label: 'Left out',
+        data: scaled(excluded),
+        backgroundColor: 'transparent',
+        borderColor: plotColours.excluded,
+        pointStyle: 'crossRot' as const,
+        pointRadius: 7,
+        borderWidth: 2,
+      },
     ],
   };
   const legend = { labels: { filter: (item: { text: string }) => item.text !== 'band lower' } };
   return (
     <figure aria-label="Stern–Volmer plot" className="space-y-2">
-      <div className="flex justify-end"><SavePngButton chart={main} fileName={figureFileName(studyTitle, 'stern-volmer')} what="Stern–Volmer plot" /></div>
-      <div className="relative h-72">
-        <Scatter ref={main} plugins={[paperBackground]} data={data} options={{ maintainAspectRatio: false, animation: false, plugins: { legend }, scales: { x: axis(xLabel), y: axis(plot.yLabel) } }} />
+      <div className="flex justify-end">
+        <SavePngButton chart={main} fileName={figureFileName(studyTitle, 'stern-volmer')} what="Stern–Volmer plot" />
       </div>
-      <div className="flex justify-end"><SavePngButton chart={residuals} fileName={figureFileName(studyTitle, 'residuals')} what="residual plot" /></div>
+      <div className="relative h-72">
+        <Scatter
+          ref={main}
+          plugins={[paperBackground]}
+          data={data}
+          options={{
+            maintainAspectRatio: false,
+            animation: false,
+            plugins: { legend },
+            scales: { x: axis(xLabel), y: axis(plot.yLabel) },
+          }}
+        />
+      </div>
+      <div className="flex justify-end">
+        <SavePngButton chart={residuals} fileName={figureFileName(studyTitle, 'residuals')} what="residual plot" />
+      </div>
       <div className="relative h-32">
         <Scatter
           ref={residuals}
           plugins={[paperBackground]}
           aria-label="Residuals"
-          data={{ datasets: [{ label: 'Residual', data: scaled(plot.points.map((p) => ({ x: p.x, y: p.residual }))), backgroundColor: plotColours.line, pointRadius: 4 }] }}
-          options={{ maintainAspectRatio: false, animation: false, plugins: { legend: { display: false } }, scales: { x: axis(xLabel), y: axis('residual') } }}
+          data={{
+            datasets: [
+              {
+                label: 'Residual',
+                data: scaled(plot.points.map((p) => ({ x: p.x, y: p.residual }))),
+                backgroundColor: plotColours.line,
+                pointRadius: 4,
+              },
+            ],
+          }}
+          options={{
+            maintainAspectRatio: false,
+            animation: false,
+            plugins: { legend: { display: false } },
+            scales: { x: axis(xLabel), y: axis('residual') },
+          }}
         />
       </div>
     </figure>
