@@ -4,14 +4,6 @@ import { roleAtLeast } from '@shared/schemas/roles';
 import { AppError } from '../lib/app-error';
 import { Lab, Membership } from '../models';
 
-export interface LabContext {
-  id: string;
-  name: string;
-  isDemo: boolean;
-  role: Role;
-  membershipId: string;
-}
-
 /** 401 JSON for a signed-out request (never a redirect). */
 export const requireAuth: RequestHandler = (req, _res, next) => {
   if (!req.user) throw new AppError('not_signed_in', 'Sign in to use this part of Halflight.', 401);

@@ -7,7 +7,7 @@ import type { Mailer } from '../mail/mailer';
 import { passwordResetMessage } from '../mail/templates';
 import { PasswordReset, User } from '../models';
 import { recordAudit } from './audit.service';
-import type { Actor } from './audit.service';
+import type { Actor } from '../domain/actor';
 
 const resetLifetimeMs = 60 * 60_000;
 

@@ -1,10 +1,6 @@
 import type { Transaction } from 'sequelize';
 import { AuditEvent } from '../models';
-
-export interface Actor {
-  userId: string | null;
-  ip: string | null;
-}
+import type { Actor } from '../domain/actor';
 
 export interface AuditEntry {
   action: string;

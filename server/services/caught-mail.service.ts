@@ -1,6 +1,6 @@
 import { Op } from 'sequelize';
 import type { CaughtMailList } from '@shared/schemas/members';
-import type { LabContext } from '../middleware/access';
+import type { LabContext } from '../domain/lab-context';
 import { CaughtMail, Membership, User } from '../models';
 
 /**

@@ -7,10 +7,10 @@ import { createLinkToken, hashLinkToken } from '../auth/tokens';
 import { AppError } from '../lib/app-error';
 import type { Mailer } from '../mail/mailer';
 import { invitationMessage } from '../mail/templates';
-import type { LabContext } from '../middleware/access';
+import type { LabContext } from '../domain/lab-context';
 import { Invitation, Lab, Membership, User } from '../models';
 import { recordAudit } from './audit.service';
-import type { Actor } from './audit.service';
+import type { Actor, SignedInActor } from '../domain/actor';
 
 const invitationLifetimeMs = 7 * 24 * 60 * 60_000;
 
@@ -30,7 +30,7 @@ const openInvitation = () => ({ acceptedAt: null, revokedAt: null, expiresAt: { 
 export async function inviteMember(
   lab: LabContext,
   input: InviteMemberInput,
-  context: { actor: Actor & { userId: string }; mailer: Mailer; publicUrl: string },
+  context: { actor: SignedInActor; mailer: Mailer; publicUrl: string },
 ): Promise<PendingInvitation> {
   const existingUser = await User.findOne({ where: { email: input.email } });
   if (existingUser && (await Membership.count({ where: { labId: lab.id, userId: existingUser.id } }))) {

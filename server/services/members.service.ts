@@ -3,10 +3,10 @@ import type { Sequelize, Transaction } from 'sequelize';
 import type { Member, MembersList } from '@shared/schemas/members';
 import type { Role } from '@shared/schemas/roles';
 import { AppError } from '../lib/app-error';
-import type { LabContext } from '../middleware/access';
+import type { LabContext } from '../domain/lab-context';
 import { Invitation, Membership, User } from '../models';
 import { recordAudit } from './audit.service';
-import type { Actor } from './audit.service';
+import type { Actor } from '../domain/actor';
 import { toPendingInvitation } from './invitations.service';
 
 const toMember = (membership: Membership): Member => ({

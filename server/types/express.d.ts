@@ -1,5 +1,5 @@
 import type { AppServices } from '../app';
-import type { LabContext } from '../middleware/access';
+import type { LabContext } from '../domain/lab-context';
 
 declare global {
   namespace Express {

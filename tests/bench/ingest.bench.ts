@@ -17,7 +17,7 @@ import { createStudySchema } from '../../shared/schemas/studies';
 import { startEmbeddedPostgres } from '../../server/db/embedded-postgres';
 import { migrateToLatest } from '../../server/db/migrator';
 import { createSequelize } from '../../server/db/sequelize';
-import type { LabContext } from '../../server/middleware/access';
+import type { LabContext } from '../../server/domain/lab-context';
 import { initModels, Lab, Membership, User } from '../../server/models';
 import { applyUpload, previewUpload, receiveUpload } from '../../server/services/studies/study-upload.service';
 import { createStudy, getStudyDetail } from '../../server/services/studies/study.service';

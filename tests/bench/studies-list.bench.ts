@@ -14,7 +14,7 @@ import { listStudiesQuerySchema, type ListStudiesQuery } from '../../shared/sche
 import { startEmbeddedPostgres } from '../../server/db/embedded-postgres';
 import { migrateToLatest } from '../../server/db/migrator';
 import { createSequelize } from '../../server/db/sequelize';
-import type { LabContext } from '../../server/middleware/access';
+import type { LabContext } from '../../server/domain/lab-context';
 import { initModels } from '../../server/models';
 import { listStudies } from '../../server/services/studies/study-list.service';
 import { freePort } from '../support/free-port';

@@ -1,6 +1,6 @@
 import { Op } from 'sequelize';
 import type { ComparisonRow } from '@shared/schemas/comparisons';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound, Study, StudyFit } from '../../models';
 import { drivingForceOfStudy } from '../library/driving-force.service';
 

@@ -7,7 +7,7 @@ import {
 } from '@shared/engine';
 import type { Comparison, ComparisonRow, Trend } from '@shared/schemas/comparisons';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound } from '../../models';
 import { comparisonRows } from './comparison-rows';
 

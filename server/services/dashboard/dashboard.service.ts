@@ -2,7 +2,7 @@ import { Op } from 'sequelize';
 import type { WhereOptions } from 'sequelize';
 import type { Dashboard, DashboardStudy } from '@shared/schemas/dashboard';
 import { roleAtLeast } from '@shared/schemas/roles';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { AuditEvent, Compound, ReactionScenario, Study, User } from '../../models';
 import { describeActivity } from './describe-activity';
 

@@ -9,11 +9,11 @@ import type {
 } from '@shared/schemas/library';
 import type { CompoundDetail } from '@shared/schemas/library-views';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound, User } from '../../models';
 import type { ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential } from '../../models';
 import { recordAudit } from '../audit.service';
-import type { Actor } from '../audit.service';
+import type { Actor } from '../../domain/actor';
 import { toPotentialRecord } from './display-potential.service';
 import { excitedStateOf } from './excited-state.service';
 import {

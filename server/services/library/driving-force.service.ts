@@ -6,7 +6,7 @@ import {
   SOLVENTS,
 } from '@shared/engine';
 import type { DrivingForceResult, MissingInput, Pathway } from '@shared/schemas/driving-force';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import type { Compound, ExcitedStateEnergy, RedoxPotential } from '../../models';
 import { pickPotential } from './display-potential.service';
 import { pickEnergy } from './excited-state.service';

@@ -1,10 +1,10 @@
 import type { Sequelize } from 'sequelize';
 import type { LabSettingsUpdate } from '@shared/schemas/lab-settings';
 import type { LabSettings } from '@shared/schemas/library-views';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Lab } from '../../models';
 import { recordAudit } from '../audit.service';
-import type { Actor } from '../audit.service';
+import type { Actor } from '../../domain/actor';
 import { changedFields, labDisplaySettings } from './library-access.service';
 
 export const getLabSettings = (lab: LabContext): Promise<LabSettings> => labDisplaySettings(lab.id);

@@ -1,9 +1,9 @@
 import type { Transaction } from 'sequelize';
 import { roleAtLeast } from '@shared/schemas/roles';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound, Lab } from '../../models';
-import type { Actor } from '../audit.service';
+import type { Actor } from '../../domain/actor';
 
 /** The compound with this id in this lab, or 404 (another lab's id looks exactly like an unknown one). */
 export async function findCompound(lab: LabContext, compoundId: string, transaction?: Transaction, lock = false) {

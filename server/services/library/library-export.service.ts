@@ -1,7 +1,7 @@
 import { stringify } from 'csv-stringify/sync';
 import { libraryCsvColumns } from '@shared/schemas/library-import';
 import type { LibraryCsvColumn } from '@shared/schemas/library-import';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound } from '../../models';
 import type { ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential } from '../../models';
 import { neutraliseCell } from '../../lib/csv-cells';

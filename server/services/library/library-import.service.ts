@@ -8,10 +8,10 @@ import { libraryCsvColumns, libraryRecordKinds } from '@shared/schemas/library-i
 import type { ImportProblem, ImportReport, LibraryCsvColumn } from '@shared/schemas/library-import';
 import { energyInputSchema, lifetimeInputSchema, potentialInputSchema } from '@shared/schemas/library-measurements';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound, ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential } from '../../models';
 import { recordAudit } from '../audit.service';
-import type { Actor } from '../audit.service';
+import type { Actor } from '../../domain/actor';
 import { cellValue, csvDelimiter, fieldColumns } from './library-csv';
 
 type Kind = (typeof libraryRecordKinds)[number];

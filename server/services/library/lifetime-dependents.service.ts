@@ -3,7 +3,7 @@ import type { Sequelize } from 'sequelize';
 import type { LifetimeDependents } from '@shared/schemas/library-views';
 import { fitModelSchema } from '@shared/schemas/studies';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { ExcitedStateLifetime } from '../../models';
 
 interface StudyRow {

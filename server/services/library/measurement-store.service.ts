@@ -1,9 +1,9 @@
 import type { Model, ModelStatic, Sequelize } from 'sequelize';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential, User } from '../../models';
 import { recordAudit } from '../audit.service';
-import type { Actor } from '../audit.service';
+import type { Actor } from '../../domain/actor';
 import { assertMayEdit, assertVersion, changedFields, findCompound } from './library-access.service';
 
 /** The three kinds of per-compound measurement share one life cycle: add, edit (own or curate), delete (curate). */

@@ -12,9 +12,9 @@ import type {
   RedoxPotentialRecord,
 } from '@shared/schemas/library-measurements';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import type { ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential, User } from '../../models';
-import type { Actor } from '../audit.service';
+import type { Actor } from '../../domain/actor';
 import { toPotentialRecord } from './display-potential.service';
 import { labDisplaySettings } from './library-access.service';
 import { addMeasurement, deleteMeasurement, updateMeasurement } from './measurement-store.service';

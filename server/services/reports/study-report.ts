@@ -1,5 +1,5 @@
 import type { StudyDetail } from '@shared/schemas/study-detail';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { drivingForceOfStudy } from '../library/driving-force.service';
 import { getStudyDetail } from '../studies/study.service';
 import { createReport, facts, finish, fixed, heading, sci, table } from './pdf-document';

@@ -1,4 +1,4 @@
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { compare } from '../comparisons/comparison.service';
 import { getScenario } from '../scenarios/scenario.service';
 import { createReport, facts, finish, fixed, heading, sci, table } from './pdf-document';

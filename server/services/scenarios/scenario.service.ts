@@ -3,10 +3,10 @@ import type { z } from 'zod';
 import { roleAtLeast } from '@shared/schemas/roles';
 import type { Scenario, ScenarioList, scenarioInputSchema } from '@shared/schemas/scenarios';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound, ReactionScenario, ScenarioComponent, Study, User } from '../../models';
 import { recordAudit } from '../audit.service';
-import type { Actor } from '../audit.service';
+import type { Actor } from '../../domain/actor';
 import { evaluateScenario } from './evaluate-scenario';
 
 type ScenarioInput = z.infer<typeof scenarioInputSchema>;

@@ -1,7 +1,7 @@
 import type { Transaction } from 'sequelize';
 import { roleAtLeast } from '@shared/schemas/roles';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound, Study, User } from '../../models';
 
 const notFound = () => new AppError('not_found', 'No study with this id in this lab.', 404);

@@ -1,9 +1,10 @@
 import type { Transaction } from 'sequelize';
 import { Op } from 'sequelize';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound, ExcitedStateLifetime } from '../../models';
-import { recordAudit, type Actor } from '../audit.service';
+import { recordAudit } from '../audit.service';
+import type { Actor } from '../../domain/actor';
 
 /**
  * The emitter or quencher of a study: an existing compound of this lab, or one named inline.

@@ -1,5 +1,5 @@
 import { csvTable } from '../../lib/csv-cells';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { getStudyDetail } from './study.service';
 
 /** The series with raw and corrected values (SI units), the fit's ratio and residual per point. */

@@ -3,7 +3,8 @@ import { ENGINE_VERSION, EngineError } from '@shared/engine';
 import type { FitModel } from '@shared/schemas/studies';
 import { AppError } from '../../lib/app-error';
 import { StudyFit, StudyPoint, type Study } from '../../models';
-import { recordAudit, type Actor } from '../audit.service';
+import { recordAudit } from '../audit.service';
+import type { Actor } from '../../domain/actor';
 import { computeStudyFit, type ComputedFit } from './fit/compute-study-fit';
 
 type SeriesFields =

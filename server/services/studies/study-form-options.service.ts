@@ -1,6 +1,6 @@
 import { SOLVENTS } from '@shared/engine';
 import type { StudyFormOptions } from '@shared/schemas/studies';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound, ExcitedStateLifetime, Membership, User } from '../../models';
 
 /** What the study form and the list filters pick from: the lab's compounds, emitter lifetimes, solvents, people. */

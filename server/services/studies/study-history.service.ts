@@ -1,7 +1,7 @@
 import { Op } from 'sequelize';
 import type { StudyHistory } from '@shared/schemas/study-detail';
 import type { StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { AuditEvent, StudyFit, User } from '../../models';
 import { loadStudy } from './study-access';
 import { toFit } from './study-serialize';

@@ -1,6 +1,6 @@
 import { Op, type Order, type WhereOptions } from 'sequelize';
 import type { ListStudiesQuery, StudyList } from '@shared/schemas/studies';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Compound, Study, User } from '../../models';
 import { toSummary } from './study-serialize';
 

@@ -1,8 +1,9 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import type { StudyPointValues } from '@shared/schemas/study-points';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { StudyPoint, type Study } from '../../models';
-import { recordAudit, type Actor } from '../audit.service';
+import { recordAudit } from '../audit.service';
+import type { Actor, SignedInActor } from '../../domain/actor';
 import { loadStudy, requireChangeable } from './study-access';
 import { refitStudy } from './study-fitting.service';
 import { getStudyDetail } from './study.service';
@@ -66,7 +67,7 @@ export async function replacePoints(
   lab: LabContext,
   studyId: string,
   input: { version: number; points: StudyPointValues[] },
-  actor: Actor & { userId: string },
+  actor: SignedInActor,
 ) {
   await sequelize.transaction(async (transaction) => {
     const study = await loadStudy(lab, studyId, transaction);

@@ -2,9 +2,10 @@ import type { Sequelize } from 'sequelize';
 import { roleAtLeast } from '@shared/schemas/roles';
 import { AppError } from '../../lib/app-error';
 import type { Mailer } from '../../mail/mailer';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Study, StudyPoint, StudyReview } from '../../models';
-import { recordAudit, type Actor } from '../audit.service';
+import { recordAudit } from '../audit.service';
+import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, requireOwner } from './study-access';
 import { refitStudy } from './study-fitting.service';
 import { notifyReview } from './study-mail';
@@ -19,7 +20,7 @@ const allowedFrom: Record<Step, string[]> = {
 const nextStatus = { submit: 'submitted', approve: 'approved', return: 'returned' } as const;
 
 interface ReviewContext {
-  actor: Actor & { userId: string };
+  actor: SignedInActor;
   mailer: Mailer;
   publicUrl: string;
 }
@@ -74,7 +75,7 @@ export async function reviewStep(
 }
 
 /** Any member who can write (researcher and up) may add to the comment thread. */
-export async function addComment(lab: LabContext, studyId: string, comment: string, actor: Actor & { userId: string }) {
+export async function addComment(lab: LabContext, studyId: string, comment: string, actor: SignedInActor) {
   const study = await loadStudy(lab, studyId);
   await StudyReview.create({ studyId: study.id, authorId: actor.userId, action: 'comment', comment });
   await recordAudit(actor, {
@@ -91,12 +92,7 @@ export async function addComment(lab: LabContext, studyId: string, comment: stri
  * Changing an approved study: a new draft revision with the same settings and points, owned by
  * the person who starts it; the approved revision stays as it was, marked as superseded.
  */
-export async function startRevision(
-  sequelize: Sequelize,
-  lab: LabContext,
-  studyId: string,
-  actor: Actor & { userId: string },
-) {
+export async function startRevision(sequelize: Sequelize, lab: LabContext, studyId: string, actor: SignedInActor) {
   const newId = await sequelize.transaction(async (transaction) => {
     const old = await loadStudy(lab, studyId, transaction);
     if (old.status !== 'approved')

@@ -1,9 +1,9 @@
 import type { Sequelize } from 'sequelize';
 import type { FitModel } from '@shared/schemas/studies';
 import type { StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { StudyFit, User } from '../../models';
-import type { Actor } from '../audit.service';
+import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, requireEditable, requireOwner } from './study-access';
 import { refitStudy } from './study-fitting.service';
 import { toFit } from './study-serialize';
@@ -14,7 +14,7 @@ export async function runFit(
   lab: LabContext,
   studyId: string,
   model: FitModel,
-  actor: Actor & { userId: string },
+  actor: SignedInActor,
 ): Promise<StudyFitRecord> {
   const fitId = await sequelize.transaction(async (transaction) => {
     const study = await loadStudy(lab, studyId, transaction);

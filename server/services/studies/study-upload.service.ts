@@ -4,9 +4,10 @@ import { EngineError } from '@shared/engine';
 import type { StudyPointValues } from '@shared/schemas/study-points';
 import type { UploadMapping, UploadPreview } from '@shared/schemas/study-uploads';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { StudyPoint, StudyUpload, User } from '../../models';
-import { recordAudit, type Actor } from '../audit.service';
+import { recordAudit } from '../audit.service';
+import type { SignedInActor } from '../../domain/actor';
 import { computeStudyFit } from './fit/compute-study-fit';
 import { applyMapping } from './parse/apply-mapping';
 import { ParseProblem } from './parse/parse-problem';
@@ -96,7 +97,7 @@ export async function receiveUpload(
   lab: LabContext,
   studyId: string,
   file: { originalname: string; mimetype: string; buffer: Buffer },
-  actor: Actor & { userId: string },
+  actor: SignedInActor,
 ) {
   const study = await loadStudy(lab, studyId);
   requireOwner(study, lab, actor.userId);
@@ -180,7 +181,7 @@ export async function applyUpload(
   studyId: string,
   uploadId: string,
   input: { version: number; mapping: UploadMapping; mode: 'replace' | 'append' },
-  actor: Actor & { userId: string },
+  actor: SignedInActor,
 ) {
   await sequelize.transaction(async (transaction) => {
     const study = await loadStudy(lab, studyId, transaction);

@@ -3,9 +3,10 @@ import type { CreateStudyInput, UpdateStudyInput } from '@shared/schemas/studies
 import { studySettingsIssues } from '@shared/schemas/studies';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { AppError } from '../../lib/app-error';
-import type { LabContext } from '../../middleware/access';
+import type { LabContext } from '../../domain/lab-context';
 import { Study, StudyFit, StudyPoint, StudyReview, StudyUpload, User } from '../../models';
-import { recordAudit, type Actor } from '../audit.service';
+import { recordAudit } from '../audit.service';
+import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, loadStudyWithNames, requireChangeable } from './study-access';
 import { lifetimeForTau0, resolveCompound } from './study-compounds';
 import { refitStudy } from './study-fitting.service';
@@ -23,7 +24,7 @@ export async function createStudy(
   sequelize: Sequelize,
   lab: LabContext,
   input: CreateStudyInput,
-  actor: Actor & { userId: string },
+  actor: SignedInActor,
 ) {
   const studyId = await sequelize.transaction(async (transaction) => {
     const emitter = await resolveCompound(
@@ -82,7 +83,7 @@ export async function updateStudy(
   lab: LabContext,
   studyId: string,
   input: UpdateStudyInput,
-  actor: Actor & { userId: string },
+  actor: SignedInActor,
 ) {
   await sequelize.transaction(async (transaction) => {
     const study = await loadStudy(lab, studyId, transaction);
