@@ -12,7 +12,10 @@ import { projectRoot } from './config/env';
 import { toHandler } from './http/define-route';
 import type { AnyRouteSpec, RouteAccess } from './http/define-route';
 import { buildOpenApiDocument } from './http/openapi';
+import { createJobQueue } from './jobs/job-queue';
+import type { JobQueue } from './jobs/job-queue';
 import { appVersion } from './lib/version';
+import { registerMailJobs } from './mail/mail-jobs';
 import type { Mailer } from './mail/mailer';
 import { requireAuth, requireLabRole } from './middleware/access';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -23,8 +26,9 @@ import { apiRoutes } from './routes';
 export interface AppServices {
   sequelize: Sequelize;
   embeddedDatabase: boolean;
-  mailer: Mailer;
-  /** True when outgoing mail goes to the local catcher (admins can read it in the app). */
+  /** Background jobs in PostgreSQL; every e-mail goes through it. */
+  jobs: JobQueue;
+  /** True when outgoing mail goes to the local catcher (people read their own in the app). */
   mailCatcher: boolean;
   /** Base address for links in e-mails, e.g. http://127.0.0.1:4310 */
   publicUrl: string;
@@ -39,9 +43,17 @@ export interface CreateAppOptions {
   logger: Logger;
   databaseUrl: string;
   sessionSecret: string;
+  /** Where the job worker sends e-mail (an SMTP relay or the local catcher). */
   mailer: Mailer;
   mailCatcher: boolean;
   publicUrl: string;
+  /**
+   * Run the background job worker (e-mail) in this process; default true. With several instances
+   * on one database, any number may run it: each job is claimed by exactly one.
+   */
+  jobWorker?: boolean;
+  /** First retry delay of a failed job in seconds (default 5; tests use 1). */
+  jobRetryDelaySeconds?: number;
   /** Behind a TLS-terminating proxy: secure cookies, HSTS, trust X-Forwarded-*. */
   behindTls?: boolean;
   rateLimits?: Partial<Record<RateLimitName, RateLimitSettings>>;
@@ -51,7 +63,9 @@ export interface CreateAppOptions {
 }
 
 export interface HalflightApp extends express.Express {
-  /** Closes what the app opened itself (the session store's connection pool). */
+  /** Starts the job queue (and its worker where enabled); sending a job also starts it. */
+  startJobs(): Promise<void>;
+  /** Closes what the app opened itself (job queue, the session store's connection pool). */
   closeResources(): Promise<void>;
 }
 
@@ -73,18 +87,31 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   const passport = createPassport();
   const csrf = csrfProtection(options.sessionSecret, secure);
   const limiters = createRateLimiters({ ...defaultRateLimits, ...options.rateLimits });
+  const publicUrl = options.publicUrl.replace(/\/$/, '');
+  const jobs = createJobQueue({
+    databaseUrl: options.databaseUrl,
+    sequelize: options.sequelize,
+    logger: options.logger,
+    runWorker: options.jobWorker ?? true,
+    retryDelaySeconds: options.jobRetryDelaySeconds,
+  });
+  registerMailJobs(jobs, { sequelize: options.sequelize, mailer: options.mailer, publicUrl, logger: options.logger });
   app.locals.services = {
     sequelize: options.sequelize,
     embeddedDatabase: options.embeddedDatabase,
-    mailer: options.mailer,
+    jobs,
     mailCatcher: options.mailCatcher,
-    publicUrl: options.publicUrl.replace(/\/$/, ''),
+    publicUrl,
     passport,
     generateCsrfToken: csrf.generateCsrfToken,
     sessionCookieName: session.cookieName,
   };
   app.locals.openApiDocument = buildOpenApiDocument(routes, appVersion);
-  app.closeResources = session.close;
+  app.startJobs = () => jobs.start();
+  app.closeResources = async () => {
+    await jobs.stop();
+    await session.close();
+  };
 
   app.use(pinoHttp({ logger: options.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(securityHeaders(secure));

@@ -80,7 +80,7 @@ async function main(): Promise<void> {
     mailer = createMailer(config.SMTP_URL, config.MAIL_FROM);
   } else {
     catcher = await startMailCatcher();
-    mailer = createMailer(catcher.url, config.MAIL_FROM);
+    mailer = createMailer(catcher.url, config.MAIL_FROM, { tagForCatcher: true });
     logger.info(`No SMTP_URL: outgoing mail is caught on 127.0.0.1:${catcher.port}; admins read it in the app.`);
   }
 
@@ -94,7 +94,9 @@ async function main(): Promise<void> {
     mailCatcher: catcher !== undefined,
     publicUrl: config.publicUrl,
     behindTls: config.HALFLIGHT_BEHIND_TLS,
+    jobWorker: config.HALFLIGHT_JOB_WORKER,
   });
+  await app.startJobs();
   server = app.listen(config.PORT, config.HOST);
   await new Promise<void>((resolve, reject) => {
     server!.once('listening', resolve);

@@ -26,6 +26,7 @@ const envSchema = z.object({
   HALFLIGHT_PG_PORT: z.coerce.number().int().min(1024).max(65535).default(55432),
   HALFLIGHT_DEMO_DATA: booleanFlag.optional(),
   HALFLIGHT_BEHIND_TLS: booleanFlag.default(false),
+  HALFLIGHT_JOB_WORKER: booleanFlag.default(true),
   HALFLIGHT_PUBLIC_URL: z
     .string()
     .regex(/^https?:\/\//, 'must start with http:// or https://')

@@ -1,5 +1,12 @@
 import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
+import type {
+  CreationOptional,
+  ForeignKey,
+  InferAttributes,
+  InferCreationAttributes,
+  NonAttribute,
+  Sequelize,
+} from 'sequelize';
 import type { User } from './user.model';
 
 export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCreationAttributes<PasswordReset>> {
@@ -11,6 +18,7 @@ export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCr
   declare usedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  declare user?: NonAttribute<User>;
 
   static initModel(sequelize: Sequelize): void {
     PasswordReset.init(

@@ -63,8 +63,7 @@ export const accountRoutes = [
       429: { description: 'Too many requests' },
     },
     handler: async ({ req, res, body }) => {
-      const { mailer, publicUrl } = req.app.locals.services;
-      await requestPasswordReset(body.email, { actor: actorOf(req), mailer, publicUrl });
+      await requestPasswordReset(body.email, { actor: actorOf(req), jobs: req.app.locals.services.jobs });
       res.status(202).json({
         message: 'If this address has a Halflight account, a link to set a new password is on its way.',
       });

@@ -44,8 +44,8 @@ export const memberRoutes = [
       409: { description: 'Already a member, or already invited' },
     },
     handler: async ({ req, res, body }) => {
-      const { mailer, publicUrl } = req.app.locals.services;
-      res.status(201).json(await inviteMember(labOf(req), body, { actor: signedInActor(req), mailer, publicUrl }));
+      const { sequelize, jobs } = req.app.locals.services;
+      res.status(201).json(await inviteMember(sequelize, labOf(req), body, { actor: signedInActor(req), jobs }));
     },
   }),
   defineRoute({

@@ -21,11 +21,11 @@ export const studyReviewRoutes = [
     request: { params: studyParamsSchema, body: reviewCommentSchema },
     responses: stepResponses,
     handler: async ({ req, res, params, body }) => {
-      const { sequelize, mailer, publicUrl } = req.app.locals.services;
+      const { sequelize, jobs, publicUrl } = req.app.locals.services;
       res.json(
         await reviewStep(sequelize, labOf(req), params.studyId, 'submit', body.comment, {
           actor: signedInActor(req),
-          mailer,
+          jobs,
           publicUrl,
         }),
       );
@@ -40,11 +40,11 @@ export const studyReviewRoutes = [
     request: { params: studyParamsSchema, body: reviewCommentSchema },
     responses: stepResponses,
     handler: async ({ req, res, params, body }) => {
-      const { sequelize, mailer, publicUrl } = req.app.locals.services;
+      const { sequelize, jobs, publicUrl } = req.app.locals.services;
       res.json(
         await reviewStep(sequelize, labOf(req), params.studyId, 'approve', body.comment, {
           actor: signedInActor(req),
-          mailer,
+          jobs,
           publicUrl,
         }),
       );
@@ -59,11 +59,11 @@ export const studyReviewRoutes = [
     request: { params: studyParamsSchema, body: returnStudySchema },
     responses: { ...stepResponses, 400: { description: 'A comment is required' } },
     handler: async ({ req, res, params, body }) => {
-      const { sequelize, mailer, publicUrl } = req.app.locals.services;
+      const { sequelize, jobs, publicUrl } = req.app.locals.services;
       res.json(
         await reviewStep(sequelize, labOf(req), params.studyId, 'return', body.comment, {
           actor: signedInActor(req),
-          mailer,
+          jobs,
           publicUrl,
         }),
       );

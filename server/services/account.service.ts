@@ -1,36 +1,22 @@
 import { Op } from 'sequelize';
 import type { Sequelize } from 'sequelize';
 import { hashPassword, verifyPassword } from '../auth/passwords';
-import { createLinkToken, hashLinkToken } from '../auth/tokens';
+import { hashLinkToken } from '../auth/tokens';
 import { AppError } from '../lib/app-error';
-import type { Mailer } from '../mail/mailer';
-import { passwordResetMessage } from '../mail/templates';
+import type { JobQueue } from '../jobs/job-queue';
+import { mailJobs } from '../mail/mail-jobs';
+import type { ResetRequestJob } from '../mail/mail-jobs';
 import { PasswordReset, User } from '../models';
 import { recordAudit } from './audit.service';
 import type { Actor } from '../domain/actor';
 
-const resetLifetimeMs = 60 * 60_000;
-
 /**
- * Mails a single-use reset link (one hour) when the address has an account. The caller
- * answers the same way either way, so the answer reveals nothing about who has an account.
+ * Queues the request and returns: whether the address has an account is looked up later by the
+ * job (server/mail/mail-jobs.ts), so known and unknown addresses take the same path and the
+ * same time here, and a slow or absent mail relay never delays the answer.
  */
-export async function requestPasswordReset(
-  email: string,
-  context: { actor: Actor; mailer: Mailer; publicUrl: string },
-): Promise<void> {
-  const user = await User.findOne({ where: { email } });
-  await recordAudit(context.actor, {
-    action: 'password_reset_requested',
-    targetType: 'user',
-    targetId: user?.id,
-    details: { email, known: Boolean(user) },
-  });
-  if (!user) return;
-  const { token, tokenHash } = createLinkToken();
-  await PasswordReset.create({ userId: user.id, tokenHash, expiresAt: new Date(Date.now() + resetLifetimeMs) });
-  const link = `${context.publicUrl}/reset-password?token=${token}`;
-  await context.mailer.send({ to: user.email, ...passwordResetMessage({ name: user.name, link }) });
+export async function requestPasswordReset(email: string, context: { actor: Actor; jobs: JobQueue }): Promise<void> {
+  await context.jobs.send<ResetRequestJob>(mailJobs.resetRequest, { email, ip: context.actor.ip });
 }
 
 const invalidToken = () =>

@@ -5,8 +5,8 @@ import type { InviteMemberInput, PendingInvitation } from '@shared/schemas/membe
 import { hashPassword, verifyPassword } from '../auth/passwords';
 import { createLinkToken, hashLinkToken } from '../auth/tokens';
 import { AppError } from '../lib/app-error';
-import type { Mailer } from '../mail/mailer';
-import { invitationMessage } from '../mail/templates';
+import type { JobQueue } from '../jobs/job-queue';
+import { mailJobs } from '../mail/mail-jobs';
 import type { LabContext } from '../domain/lab-context';
 import { Invitation, Lab, Membership, User } from '../models';
 import { recordAudit } from './audit.service';
@@ -26,11 +26,15 @@ export const toPendingInvitation = (invitation: Invitation): PendingInvitation =
 /** Conditions of an invitation that can still be used, evaluated now. */
 const openInvitation = () => ({ acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } });
 
-/** Mails a single-use invitation (7 days) to join the lab with a role. */
+/**
+ * Stores a single-use invitation (7 days) to join the lab with a role, and queues its e-mail in
+ * the same transaction; the worker makes the link (server/mail/mail-jobs.ts).
+ */
 export async function inviteMember(
+  sequelize: Sequelize,
   lab: LabContext,
   input: InviteMemberInput,
-  context: { actor: SignedInActor; mailer: Mailer; publicUrl: string },
+  context: { actor: SignedInActor; jobs: JobQueue },
 ): Promise<PendingInvitation> {
   const existingUser = await User.findOne({ where: { email: input.email } });
   if (existingUser && (await Membership.count({ where: { labId: lab.id, userId: existingUser.id } }))) {
@@ -44,31 +48,34 @@ export async function inviteMember(
     );
   }
   const inviter = await User.findByPk(context.actor.userId);
-  const { token, tokenHash } = createLinkToken();
-  const invitation = await Invitation.create({
-    labId: lab.id,
-    email: input.email,
-    role: input.role,
-    tokenHash,
-    invitedById: context.actor.userId,
-    expiresAt: new Date(Date.now() + invitationLifetimeMs),
+  const invitation = await sequelize.transaction(async (transaction) => {
+    const created = await Invitation.create(
+      {
+        labId: lab.id,
+        email: input.email,
+        role: input.role,
+        // Replaced by the mail job, which makes the token that goes into the link.
+        tokenHash: createLinkToken().tokenHash,
+        invitedById: context.actor.userId,
+        expiresAt: new Date(Date.now() + invitationLifetimeMs),
+      },
+      { transaction },
+    );
+    await recordAudit(
+      context.actor,
+      {
+        action: 'invitation_sent',
+        labId: lab.id,
+        targetType: 'invitation',
+        targetId: created.id,
+        details: { email: input.email, role: input.role },
+      },
+      transaction,
+    );
+    await context.jobs.send(mailJobs.invitation, { invitationId: created.id }, { transaction });
+    return created;
   });
   invitation.invitedBy = inviter ?? undefined;
-  await recordAudit(context.actor, {
-    action: 'invitation_sent',
-    labId: lab.id,
-    targetType: 'invitation',
-    targetId: invitation.id,
-    details: { email: input.email, role: input.role },
-  });
-  const message = invitationMessage({
-    labName: lab.name,
-    inviterName: inviter?.name ?? 'A lab admin',
-    role: input.role,
-    link: `${context.publicUrl}/invitations/${token}`,
-    expiresAt: invitation.expiresAt,
-  });
-  await context.mailer.send({ to: input.email, labId: lab.id, ...message });
   return toPendingInvitation(invitation);
 }
 

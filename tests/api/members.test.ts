@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { AuditEvent, Invitation } from '../../server/models';
-import { apiClient, createLabWithMembers, latestMailTo } from '../support/accounts';
+import { apiClient, createLabWithMembers, latestMailTo, settleMailQueue } from '../support/accounts';
 import { createTestApp } from '../support/test-app';
 
 const testApp = await createTestApp();
@@ -80,8 +80,8 @@ describe('POST /api/labs/:labId/invitations', () => {
     const created = await admin.post(`/api/labs/${lab.id}/invitations`, { email: revoking, role: 'viewer' });
     const list = await admin.get(`/api/labs/${lab.id}/members`);
     expect(list.body.invitations.map((item: { email: string }) => item.email)).toEqual([revoking]);
-    expect((await admin.delete(`/api/labs/${lab.id}/invitations/${created.body.id}`)).status).toBe(204);
     const revokedLink = (await latestMailTo(revoking)).link;
+    expect((await admin.delete(`/api/labs/${lab.id}/invitations/${created.body.id}`)).status).toBe(204);
     const accept = await guest.post(`/api/invitations/${tokenOf(revokedLink)}/accept`, {
       name: 'Too Late',
       password: 'too-late-passphrase',
@@ -154,6 +154,7 @@ describe('GET /api/labs/:labId/caught-mail', () => {
       email: `theirs-${Date.now()}@tests.halflight.example`,
       role: 'viewer',
     });
+    await settleMailQueue();
     const mail = await admin.get(`/api/labs/${lab.id}/caught-mail`);
     expect(mail.body.total).toBe(1);
     expect(mail.body.items[0].to[0]).toMatch(/^mine-/);

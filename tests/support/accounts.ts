@@ -57,10 +57,28 @@ export async function apiClient(app: Parameters<typeof request.agent>[0]) {
   };
 }
 
-/** The newest message the local catcher took for an address, and the first link in it. */
+/**
+ * Waits until the mail jobs are done (sent, or given up), so a test reads what the worker sent.
+ * A retry that is waiting for a relay that is down counts as not done.
+ */
+export async function settleMailQueue(timeoutMs = 15_000) {
+  const { CaughtMail } = await import('../../server/models');
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const [rows] = await CaughtMail.sequelize!.query(
+      "SELECT count(*)::int AS count FROM pgboss.job WHERE (name LIKE 'mail-%' OR name LIKE 'password-reset-%') AND state < 'completed'",
+    );
+    if ((rows as Array<{ count: number }>)[0]!.count === 0) return;
+    if (Date.now() > deadline) throw new Error(`the mail queue did not settle within ${timeoutMs} ms`);
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+}
+
+/** The newest message the local catcher took for an address (once the queue settled), and the first link in it. */
 export async function latestMailTo(email: string) {
   const { CaughtMail } = await import('../../server/models');
   const { Op } = await import('sequelize');
+  await settleMailQueue();
   const mail = await CaughtMail.findOne({
     where: { toAddresses: { [Op.contains]: [email] } },
     order: [['receivedAt', 'DESC']],

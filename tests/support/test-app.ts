@@ -19,7 +19,7 @@ export async function createTestApp(overrides: Partial<CreateAppOptions> = {}) {
   const sequelize = overrides.sequelize ?? createSequelize(databaseUrl);
   if (ownsDatabase) initModels(sequelize);
   const catcher = await startMailCatcher();
-  const mailer = createMailer(catcher.url, 'Halflight tests <tests@halflight.invalid>');
+  const mailer = createMailer(catcher.url, 'Halflight tests <tests@halflight.invalid>', { tagForCatcher: true });
   const app = createApp({
     sequelize,
     embeddedDatabase: true,
@@ -29,6 +29,7 @@ export async function createTestApp(overrides: Partial<CreateAppOptions> = {}) {
     mailer,
     mailCatcher: true,
     publicUrl: 'http://127.0.0.1:4310',
+    jobRetryDelaySeconds: 1,
     rateLimits: {
       signIn: { windowMs: 60_000, limit: 1000 },
       passwordReset: { windowMs: 60_000, limit: 1000 },
@@ -36,6 +37,7 @@ export async function createTestApp(overrides: Partial<CreateAppOptions> = {}) {
     },
     ...overrides,
   });
+  await app.startJobs();
   return {
     app,
     sequelize,

@@ -1,5 +1,8 @@
 import { Op } from 'sequelize';
-import type { Mailer } from '../../mail/mailer';
+import type { Transaction } from 'sequelize';
+import type { JobQueue } from '../../jobs/job-queue';
+import { mailJobs } from '../../mail/mail-jobs';
+import type { OutgoingMessage } from '../../mail/mailer';
 import { Membership, User, type Study } from '../../models';
 
 const escapeHtml = (value: string) =>
@@ -20,11 +23,11 @@ const LEADS = {
 
 /**
  * Review e-mails: a submission goes to the lab's reviewers and admins, a decision to the
- * owner; the actor is never mailed about their own step. Sent after the change is saved, so a
- * mail failure cannot undo a review.
+ * owner; the actor is never mailed about their own step. Queued in the review's transaction, so
+ * the step and its e-mails are saved together, and a mail relay that is down only delays them.
  */
 export async function notifyReview(
-  context: { mailer: Mailer; publicUrl: string },
+  context: { jobs: JobQueue; publicUrl: string; transaction: Transaction },
   study: Study,
   action: 'submit' | 'approve' | 'return',
   actorId: string,
@@ -53,14 +56,19 @@ export async function notifyReview(
     ...(comment ? [`Comment: ${comment}`] : []),
   ];
   for (const recipient of recipients) {
-    await context.mailer.send({
-      to: recipient.email,
-      labId: study.labId,
-      subject: SUBJECTS[action](study.title),
-      text: `${paragraphs.join('\n\n')}\n\nOpen the study:\n${link}\n`,
-      html: `<!doctype html><html><body style="font-family: Lato, Arial, sans-serif; color: #1c1938;">${paragraphs
-        .map((text) => `<p>${escapeHtml(text)}</p>`)
-        .join('\n')}<p><a href="${escapeHtml(link)}">Open the study</a></p></body></html>`,
-    });
+    await context.jobs.send<OutgoingMessage>(
+      mailJobs.message,
+      {
+        to: recipient.email,
+        kind: 'review',
+        labId: study.labId,
+        subject: SUBJECTS[action](study.title),
+        text: `${paragraphs.join('\n\n')}\n\nOpen the study:\n${link}\n`,
+        html: `<!doctype html><html><body style="font-family: Lato, Arial, sans-serif; color: #1c1938;">${paragraphs
+          .map((text) => `<p>${escapeHtml(text)}</p>`)
+          .join('\n')}<p><a href="${escapeHtml(link)}">Open the study</a></p></body></html>`,
+      },
+      { transaction: context.transaction },
+    );
   }
 }

@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { roleAtLeast } from '@shared/schemas/roles';
 import { AppError } from '../../lib/app-error';
-import type { Mailer } from '../../mail/mailer';
+import type { JobQueue } from '../../jobs/job-queue';
 import type { LabContext } from '../../domain/lab-context';
 import { Study, StudyPoint, StudyReview } from '../../models';
 import { recordAudit } from '../audit.service';
@@ -21,7 +21,7 @@ const nextStatus = { submit: 'submitted', approve: 'approved', return: 'returned
 
 interface ReviewContext {
   actor: SignedInActor;
-  mailer: Mailer;
+  jobs: JobQueue;
   publicUrl: string;
 }
 
@@ -34,7 +34,7 @@ export async function reviewStep(
   comment: string,
   context: ReviewContext,
 ) {
-  const study = await sequelize.transaction(async (transaction) => {
+  await sequelize.transaction(async (transaction) => {
     const found = await loadStudy(lab, studyId, transaction);
     if (step === 'submit') requireOwner(found, lab, context.actor.userId);
     else if (!roleAtLeast(lab.role, 'reviewer'))
@@ -68,9 +68,8 @@ export async function reviewStep(
       },
       transaction,
     );
-    return found;
+    await notifyReview({ ...context, transaction }, found, step, context.actor.userId, comment);
   });
-  await notifyReview(context, study, step, context.actor.userId, comment);
   return getStudyDetail(lab, studyId);
 }
 
