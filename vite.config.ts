@@ -6,7 +6,6 @@ import { defineConfig } from 'vitest/config';
 const alias = {
   '@': fileURLToPath(new URL('./src', import.meta.url)),
   '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
-  '@server': fileURLToPath(new URL('./server', import.meta.url)),
 };
 
 // The API server listens on PORT (default 4310); the Vite dev server proxies /api to it.

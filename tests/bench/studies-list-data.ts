@@ -30,7 +30,11 @@ const NOTE_WORDS = [
  * quenchers, 8 owners, 6 solvents) and `elsewhere` in a second lab; bulk inserts in chunks,
  * updated_at spread over a year, then ANALYZE so the planner sees the real distribution.
  */
-export async function seedBenchStudies(sequelize: Sequelize, inLab = 10_000, elsewhere = 1_000) {
+export async function seedBenchStudies(
+  sequelize: Sequelize,
+  inLab = 10_000,
+  elsewhere = 1_000,
+): Promise<{ labId: string; ownerId: string; emitterId: string; quencherId: string; inLab: number; total: number }> {
   const random = seeded(20260301);
   const pick = <T>(items: readonly T[]) => items[Math.floor(random() * items.length)]!;
   const [lab, other] = await Lab.bulkCreate([

@@ -41,7 +41,10 @@ export function assertVersion(record: { version: number }, sent: number | undefi
 }
 
 /** The lab's display reference electrode and solvent. */
-export async function labDisplaySettings(labId: string, transaction?: Transaction) {
+export async function labDisplaySettings(
+  labId: string,
+  transaction?: Transaction,
+): Promise<{ displayReference: string; displaySolvent: string }> {
   const lab = await Lab.findByPk(labId, { transaction, attributes: ['id', 'displayReference', 'displaySolvent'] });
   if (!lab) throw new AppError('not_found', 'No such lab, or you are not a member of it.', 404);
   return { displayReference: lab.displayReference, displaySolvent: lab.displaySolvent };

@@ -57,7 +57,7 @@ export async function lifetimeForTau0(
   lifetimeId: string,
   emitterId: string,
   transaction: Transaction,
-) {
+): Promise<{ tau0: number; tau0Uncertainty: number | null }> {
   const lifetime = await ExcitedStateLifetime.findOne({ where: { id: lifetimeId, labId: lab.id }, transaction });
   if (!lifetime || lifetime.compoundId !== emitterId) {
     throw new AppError('validation_failed', "The lifetime record must belong to the study's emitter.", 400, [
