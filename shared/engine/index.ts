@@ -1,7 +1,7 @@
 /**
  * Halflight science engine: pure functions for luminescence-quenching studies.
  * Values are SI-coherent (mol/L, s, V, eV, M^-1 s^-1); convert at the edges with the
- * helpers in core/units. Every function throws EngineError on bad input.
+ * helpers in ../units/units. Every function throws EngineError on bad input.
  */
 
 /** Recorded with every stored fit. */
@@ -10,7 +10,7 @@ export const ENGINE_VERSION = '1.0.0';
 export { EngineError, type EngineErrorCode } from './core/engine-error';
 export { approxEqual, relativeDifference } from './core/approx-equal';
 export * from './core/constants';
-export * from './core/units';
+export * from '../units/units';
 
 export { fitLine, type LineFit } from './stats/fit-line';
 export { fitLineThroughOrigin, type OriginLineFit } from './stats/fit-line-through-origin';

@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import { uploadSummarySchema } from './study-detail';
 import { studyPointInputSchema } from './study-points';
+import { concentrationUnitKeys, timeUnitKeys, volumeUnitKeys } from '../units/units';
 
-export const concentrationUnits = ['M', 'mM', 'uM', 'nM'] as const;
-export const timeUnits = ['s', 'ms', 'us', 'ns'] as const;
-export const volumeUnits = ['L', 'mL', 'uL'] as const;
+export const concentrationUnits = concentrationUnitKeys;
+export const timeUnits = timeUnitKeys;
+export const volumeUnits = volumeUnitKeys;
 
 const column = z.number().int().min(0).describe('0-based column index in the parsed table');
 

@@ -1,3 +1,5 @@
+import type { ConcentrationUnit } from '@shared/units/units';
+
 const SUPERSCRIPT: Record<string, string> = {
   '-': '⁻',
   '0': '⁰',
@@ -25,9 +27,9 @@ export function formatNumber(value: number | null | undefined, digits = 3): stri
     .join('')}`;
 }
 
-export const concentrationUnits = { M: 1, mM: 1e-3, uM: 1e-6 } as const;
-export type ConcentrationUnit = keyof typeof concentrationUnits;
-export const unitLabel: Record<ConcentrationUnit, string> = { M: 'M', mM: 'mM', uM: 'µM' };
+/** Concentration units the grid and the spectrum editor offer (factors in @shared/units/units). */
+export const gridConcentrationUnits = ['M', 'mM', 'uM'] as const satisfies readonly ConcentrationUnit[];
+export type GridConcentrationUnit = (typeof gridConcentrationUnits)[number];
 
 export const statusLabels = {
   draft: 'Draft',

@@ -1,5 +1,6 @@
 import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { concentrationUnits, timeUnits, volumeUnits } from '@shared/schemas/study-uploads';
+import { unitLabel, type Unit } from '@shared/units/units';
 import { SelectField } from '@/components/select-field';
 import { TextField } from '@/components/text-field';
 import { SpectrumSamplesEditor } from './spectrum-samples-editor';
@@ -88,12 +89,12 @@ export function MappingEditor({
   const unitSelect = (
     label: string,
     key: 'concentrationUnit' | 'lifetimeUnit' | 'volumeUnit',
-    units: readonly string[],
+    units: readonly Unit[],
   ) => (
     <SelectField
       label={label}
       value={mapping[key]}
-      options={units.map((unit) => ({ value: unit, label: unit.replace(/^u/, 'µ') }))}
+      options={units.map((unit) => ({ value: unit, label: unitLabel(unit) }))}
       onChange={(event) => onChange({ ...mapping, [key]: event.target.value } as UploadMapping)}
     />
   );

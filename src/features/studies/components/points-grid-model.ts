@@ -1,6 +1,6 @@
 import type { StudyPoint } from '@shared/schemas/study-points';
 import type { StudyPointInput } from '@shared/schemas/study-points';
-import { concentrationUnits, type ConcentrationUnit } from './format';
+import { CONCENTRATION_UNITS, TIME_UNITS, VOLUME_UNITS, type ConcentrationUnit } from '@shared/units/units';
 
 /** Grid columns in order; lifetimes are typed in ns and volumes in µL, converted at save. */
 export const gridColumns = [
@@ -17,12 +17,12 @@ export type GridKey = (typeof gridColumns)[number]['key'];
 export type GridRow = Record<GridKey, string> & { excluded: boolean; exclusionReason: string; pointId: string | null };
 
 const scale = (unit: ConcentrationUnit): Record<GridKey, number> => ({
-  concentration: concentrationUnits[unit],
+  concentration: CONCENTRATION_UNITS[unit],
   intensity: 1,
-  lifetime: 1e-9,
+  lifetime: TIME_UNITS.ns,
   absorbanceExcitation: 1,
   absorbanceEmission: 1,
-  volumeAdded: 1e-6,
+  volumeAdded: VOLUME_UNITS.uL,
   uncertainty: 1,
 });
 

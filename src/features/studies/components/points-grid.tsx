@@ -5,7 +5,8 @@ import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
 import { useReplacePoints } from '../api/replace-points';
-import { concentrationUnits, formatNumber, unitLabel, type ConcentrationUnit } from './format';
+import { CONCENTRATION_UNITS, unitLabel } from '@shared/units/units';
+import { formatNumber, gridConcentrationUnits, type GridConcentrationUnit } from './format';
 import {
   emptyRow,
   gridColumns,
@@ -24,7 +25,7 @@ interface Props {
 
 /** The series as an editable table; paste a block from a spreadsheet into any cell. Corrected values sit beside the raw ones. */
 export function PointsGrid({ labId, study, editable }: Props) {
-  const [unit, setUnit] = useState<ConcentrationUnit>('mM');
+  const [unit, setUnit] = useState<GridConcentrationUnit>('mM');
   const [rows, setRows] = useState<GridRow[]>(() => [...rowsFromPoints(study.points, 'mM'), emptyRow()]);
   const [problems, setProblems] = useState<string[]>([]);
   const save = useReplacePoints(labId, study.id);
@@ -39,8 +40,8 @@ export function PointsGrid({ labId, study, editable }: Props) {
   };
   const waiting = corrections && rows.some((row) => hasValues(row) && !savedPointOf(row, savedById, unit));
 
-  function changeUnit(next: ConcentrationUnit) {
-    const ratio = concentrationUnits[unit] / concentrationUnits[next];
+  function changeUnit(next: GridConcentrationUnit) {
+    const ratio = CONCENTRATION_UNITS[unit] / CONCENTRATION_UNITS[next];
     setRows((current) =>
       current.map((row) => {
         const value = Number(row.concentration.replace(',', '.'));
@@ -69,8 +70,8 @@ export function PointsGrid({ labId, study, editable }: Props) {
         <SelectField
           label="Concentration unit"
           value={unit}
-          onChange={(event) => changeUnit(event.target.value as ConcentrationUnit)}
-          options={(Object.keys(unitLabel) as ConcentrationUnit[]).map((value) => ({ value, label: unitLabel[value] }))}
+          onChange={(event) => changeUnit(event.target.value as GridConcentrationUnit)}
+          options={gridConcentrationUnits.map((value) => ({ value, label: unitLabel(value) }))}
         />
         <p className="pb-2 text-caption text-ink-500">
           {study.dataKind === 'ratio'
@@ -85,7 +86,7 @@ export function PointsGrid({ labId, study, editable }: Props) {
             <tr className="text-left text-caption text-ink-500">
               <th>#</th>
               {gridColumns.map((column) => (
-                <th key={column.key}>{column.key === 'concentration' ? `[Q] (${unitLabel[unit]})` : column.label}</th>
+                <th key={column.key}>{column.key === 'concentration' ? `[Q] (${unitLabel(unit)})` : column.label}</th>
               ))}
               <th>Leave out</th>
               <th>Reason</th>

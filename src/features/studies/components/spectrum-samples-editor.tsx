@@ -1,7 +1,8 @@
 import { useState } from 'react';
 import type { SpectrumMapping } from '@shared/schemas/study-uploads';
 import { SelectField } from '@/components/select-field';
-import { concentrationUnits, unitLabel, type ConcentrationUnit } from './format';
+import { CONCENTRATION_UNITS, unitLabel } from '@shared/units/units';
+import { gridConcentrationUnits, type GridConcentrationUnit } from './format';
 
 interface Props {
   headers: string[];
@@ -9,15 +10,15 @@ interface Props {
   onChange: (next: SpectrumMapping) => void;
 }
 
-const shown = (molar: number, unit: ConcentrationUnit) =>
-  String(Number((molar / concentrationUnits[unit]).toPrecision(8)));
+const shown = (molar: number, unit: GridConcentrationUnit) =>
+  String(Number((molar / CONCENTRATION_UNITS[unit]).toPrecision(8)));
 
 /**
  * One quencher concentration per spectrum: filled from the file where it names one, typed
  * where it does not. A spectrum with an empty field stays out of the series.
  */
 export function SpectrumSamplesEditor({ headers, mapping, onChange }: Props) {
-  const [unit, setUnit] = useState<ConcentrationUnit>('mM');
+  const [unit, setUnit] = useState<GridConcentrationUnit>('mM');
   const [texts, setTexts] = useState<Record<number, string>>(() =>
     Object.fromEntries(mapping.samples.map((sample) => [sample.column, shown(sample.concentration, 'mM')])),
   );
@@ -25,11 +26,11 @@ export function SpectrumSamplesEditor({ headers, mapping, onChange }: Props) {
     .map((header, column) => ({ header, column }))
     .filter(({ column }) => column !== mapping.wavelength);
 
-  function publish(nextTexts: Record<number, string>, nextUnit: ConcentrationUnit) {
+  function publish(nextTexts: Record<number, string>, nextUnit: GridConcentrationUnit) {
     const samples = columns.flatMap(({ column }) => {
       const value = Number((nextTexts[column] ?? '').trim().replace(',', '.'));
       return (nextTexts[column] ?? '').trim() !== '' && Number.isFinite(value) && value >= 0
-        ? [{ column, concentration: value * concentrationUnits[nextUnit] }]
+        ? [{ column, concentration: value * CONCENTRATION_UNITS[nextUnit] }]
         : [];
     });
     onChange({ ...mapping, samples });
@@ -43,9 +44,9 @@ export function SpectrumSamplesEditor({ headers, mapping, onChange }: Props) {
         <SelectField
           label="Typed concentrations in"
           value={unit}
-          options={(Object.keys(unitLabel) as ConcentrationUnit[]).map((value) => ({ value, label: unitLabel[value] }))}
+          options={gridConcentrationUnits.map((value) => ({ value, label: unitLabel(value) }))}
           onChange={(event) => {
-            const next = event.target.value as ConcentrationUnit;
+            const next = event.target.value as GridConcentrationUnit;
             setUnit(next);
             publish(texts, next);
           }}
@@ -56,7 +57,7 @@ export function SpectrumSamplesEditor({ headers, mapping, onChange }: Props) {
         <thead>
           <tr className="text-left text-caption text-ink-500">
             <th className="pr-4">Spectrum</th>
-            <th>[Q] ({unitLabel[unit]})</th>
+            <th>[Q] ({unitLabel(unit)})</th>
           </tr>
         </thead>
         <tbody>
