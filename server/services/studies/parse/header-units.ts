@@ -1,9 +1,12 @@
-/** mol/L per unit; "u", "µ" (micro sign) and "μ" (Greek mu) all mean micro. */
-export const CONCENTRATION_FACTORS = { M: 1, mM: 1e-3, uM: 1e-6, nM: 1e-9 } as const;
-export const TIME_FACTORS = { s: 1, ms: 1e-3, us: 1e-6, ns: 1e-9 } as const;
-export const VOLUME_FACTORS = { L: 1, mL: 1e-3, uL: 1e-6 } as const;
+import {
+  CONCENTRATION_UNITS as CONCENTRATION_FACTORS,
+  normaliseMicro as micro,
+  TIME_UNITS as TIME_FACTORS,
+  VOLUME_UNITS as VOLUME_FACTORS,
+} from '@shared/units/units';
 
-const micro = (unit: string) => unit.replace(/^[µμ]/, 'u');
+// The factors live in the shared units module; "u", "µ" (micro sign) and "μ" (Greek mu) all mean micro.
+export { CONCENTRATION_FACTORS, TIME_FACTORS, VOLUME_FACTORS };
 
 const KNOWN_UNITS = new Set<string>([
   ...Object.keys(CONCENTRATION_FACTORS),
