@@ -36,7 +36,14 @@ export const fitResultSchema = z
       curvaturePValue: z.number().nullable(),
     }),
     reference: z.object({ kind: z.enum(['i0', 'ratio-data']), value: z.number(), source: z.string() }),
-    tau0: z.object({ value: z.number(), standardError: z.number(), source: z.string() }).nullable(),
+    tau0: z
+      .object({
+        value: z.number(),
+        standardError: z.number(),
+        kind: z.enum(['lifetime-record', 'entered', 'lifetime-series']),
+        source: z.string(),
+      })
+      .nullable(),
     diffusionLimit: z
       .object({ value: z.number(), basis: z.string(), ratio: z.number().nullable() })
       .nullable()

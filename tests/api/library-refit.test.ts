@@ -69,8 +69,7 @@ describe('refitting the studies that take tau0 from a changed lifetime', () => {
 
     // What the compound screen's "Refit" does, in this order.
     const patched = await researcher.patch(`${base}/studies/${draft.id}`, {
-      tau0: listed.value,
-      tau0Uncertainty: listed.uncertainty,
+      tau0LifetimeId: listed.lifetimeId,
       version: entry.version,
     });
     expect(patched.status).toBe(200);
@@ -97,8 +96,7 @@ describe('refitting the studies that take tau0 from a changed lifetime', () => {
     expect(entry).toMatchObject({ status: 'approved', matchesRecord: false });
     // The screen offers "start a new revision" here; the API would refuse a refit anyway.
     const locked = await researcher.patch(`${base}/studies/${approvedOne.id}`, {
-      tau0: 9e-7,
-      tau0Uncertainty: null,
+      tau0LifetimeId: lifetime.id,
       version: entry.version,
     });
     expect(locked.status).toBe(409);
@@ -109,8 +107,7 @@ describe('refitting the studies that take tau0 from a changed lifetime', () => {
 
     const draft = await study('Refit stale');
     const stale = await researcher.patch(`${base}/studies/${draft.id}`, {
-      tau0: 9e-7,
-      tau0Uncertainty: null,
+      tau0LifetimeId: lifetime.id,
       version: draft.version - 1,
     });
     expect(stale.status).toBe(409);

@@ -2,7 +2,7 @@ import type { Transaction } from 'sequelize';
 import { Op } from 'sequelize';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import { Compound, ExcitedStateLifetime } from '../../models';
+import { Compound } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 
@@ -49,20 +49,4 @@ export async function resolveCompound(
     transaction,
   );
   return compound;
-}
-
-/** A lifetime record used as tau0 must be the emitter's, in this lab; its value and uncertainty become tau0. */
-export async function lifetimeForTau0(
-  lab: LabContext,
-  lifetimeId: string,
-  emitterId: string,
-  transaction: Transaction,
-): Promise<{ tau0: number; tau0Uncertainty: number | null }> {
-  const lifetime = await ExcitedStateLifetime.findOne({ where: { id: lifetimeId, labId: lab.id }, transaction });
-  if (!lifetime || lifetime.compoundId !== emitterId) {
-    throw new AppError('validation_failed', "The lifetime record must belong to the study's emitter.", 400, [
-      { path: 'body.tau0LifetimeId', message: 'no lifetime of this emitter with this id' },
-    ]);
-  }
-  return { tau0: lifetime.value, tau0Uncertainty: lifetime.uncertainty ?? null };
 }

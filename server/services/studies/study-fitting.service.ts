@@ -6,6 +6,7 @@ import { StudyFit, StudyPoint, type Study } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 import { computeStudyFit, type ComputedFit } from './fit/compute-study-fit';
+import { lifetimeOfEmitter } from './study-tau0';
 
 type SeriesFields =
   | 'position'
@@ -33,6 +34,8 @@ export const seriesOf = (points: ReadonlyArray<Pick<StudyPoint, SeriesFields>>) 
 
 /** Runs the engine on the study's stored points; an EngineError becomes a 422 naming the field. */
 export async function computeForStudy(study: Study, model: FitModel, transaction?: Transaction): Promise<ComputedFit> {
+  // The record behind tau0 is checked on every refit too: same lab, same emitter.
+  if (study.tau0LifetimeId) await lifetimeOfEmitter(study.labId, study.tau0LifetimeId, study.emitterId, transaction);
   const points = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
   try {
     return computeStudyFit(study, seriesOf(points), model);

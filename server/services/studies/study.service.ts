@@ -8,8 +8,9 @@ import { Study, StudyFit, StudyPoint, StudyReview, StudyUpload, User } from '../
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, loadStudyWithNames, requireChangeable } from './study-access';
-import { lifetimeForTau0, resolveCompound } from './study-compounds';
+import { resolveCompound } from './study-compounds';
 import { refitStudy } from './study-fitting.service';
+import { resolveTau0 } from './study-tau0';
 import { settingsOf, solventLabel, toFit, toPoint, toReview, toUpload } from './study-serialize';
 
 const settingsIssuesError = (issues: { path: string; message: string }[]) =>
@@ -44,16 +45,11 @@ export async function createStudy(
       transaction,
     );
     const { emitterId: _e, quencherId: _q, newEmitterName: _ne, newQuencherName: _nq, ...settings } = input;
-    const fromLifetime =
-      settings.tau0LifetimeId && settings.tau0 === null
-        ? await lifetimeForTau0(lab, settings.tau0LifetimeId, emitter.id, transaction)
-        : {};
-    if (settings.tau0LifetimeId && settings.tau0 !== null)
-      await lifetimeForTau0(lab, settings.tau0LifetimeId, emitter.id, transaction);
+    const tau0 = await resolveTau0(lab, settings, null, emitter.id, transaction);
     const study = await Study.create(
       {
         ...settings,
-        ...fromLifetime,
+        ...tau0,
         labId: lab.id,
         emitterId: emitter.id,
         quencherId: quencher.id,
@@ -117,18 +113,14 @@ export async function updateStudy(
           transaction,
         )
       ).id;
-    if (defined.tau0LifetimeId && defined.tau0 === undefined) {
-      Object.assign(
-        defined,
-        await lifetimeForTau0(
-          lab,
-          defined.tau0LifetimeId as string,
-          compounds.emitterId ?? study.emitterId,
-          transaction,
-        ),
-      );
-    }
-    await study.update({ ...defined, ...compounds, version: study.version + 1 }, { transaction });
+    const tau0 = await resolveTau0(
+      lab,
+      { tau0: changes.tau0, tau0Uncertainty: changes.tau0Uncertainty, tau0LifetimeId: changes.tau0LifetimeId },
+      study,
+      compounds.emitterId ?? study.emitterId,
+      transaction,
+    );
+    await study.update({ ...defined, ...compounds, ...tau0, version: study.version + 1 }, { transaction });
     await recordAudit(
       actor,
       {

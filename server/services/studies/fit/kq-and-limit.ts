@@ -86,6 +86,7 @@ export function tau0For(
     return {
       value: settings.tau0,
       standardError: settings.tau0Uncertainty ?? 0,
+      kind: settings.tau0LifetimeId ? 'lifetime-record' : 'entered',
       source: settings.tau0LifetimeId ? 'lifetime record of the emitter' : 'entered with the study',
     };
   }
@@ -93,6 +94,7 @@ export function tau0For(
     return {
       value: lifetimeTau0.value,
       standardError: lifetimeTau0.value * (lifetimeTau0.relativeStandardError ?? 0),
+      kind: 'lifetime-series',
       source: 'lifetime series at zero quencher',
     };
   }

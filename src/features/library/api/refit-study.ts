@@ -7,20 +7,20 @@ import { libraryKeys } from './library-keys';
 
 /**
  * Refits one study that takes its tau0 from a lifetime record, through the studies API. When the
- * study holds older values, PATCH /studies/:studyId with the record's tau0 and uncertainty (and
- * the version read): the studies API refits on every change, so that one call stores the new
- * fit. Otherwise POST /studies/:studyId/fits with the study's current model.
+ * study holds older values, PATCH /studies/:studyId with the record's id (and the version read):
+ * the server copies the record's tau0 and uncertainty itself, and the studies API refits on every
+ * change, so that one call stores the new fit. Otherwise POST /studies/:studyId/fits with the
+ * study's current model.
  */
 export async function refitStudy(
   labId: string,
-  record: Pick<LifetimeDependents, 'value' | 'uncertainty'>,
+  record: Pick<LifetimeDependents, 'lifetimeId'>,
   study: LifetimeDependent,
 ) {
   const studyUrl = `/api/labs/${labId}/studies/${study.studyId}`;
   if (!study.matchesRecord) {
     const updated = await apiClient.patch<StudyDetail>(studyUrl, {
-      tau0: record.value,
-      tau0Uncertainty: record.uncertainty,
+      tau0LifetimeId: record.lifetimeId,
       version: study.version,
     });
     return updated.latestFit;

@@ -88,8 +88,9 @@ export function toBody(values: StudyFormValues, options: StudyFormOptions | unde
     windowEnd: num(values.windowEnd),
     atmosphere: values.atmosphere as CreateStudyBody['atmosphere'],
     degassingMethod: values.degassingMethod as CreateStudyBody['degassingMethod'],
-    tau0: lifetime ? lifetime.value : num(values.tau0Nano, 1e-9),
-    tau0Uncertainty: lifetime ? lifetime.uncertainty : num(values.tau0UncertaintyNano, 1e-9),
+    // With a lifetime record the server copies its value and uncertainty; only a typed tau0 is sent.
+    tau0: lifetime ? null : num(values.tau0Nano, 1e-9),
+    tau0Uncertainty: lifetime ? null : num(values.tau0UncertaintyNano, 1e-9),
     tau0LifetimeId: lifetime?.id ?? null,
     i0: num(values.i0),
     dataKind: values.dataKind,
