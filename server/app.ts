@@ -22,6 +22,8 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { createRateLimiters, csrfProtection, defaultRateLimits, securityHeaders } from './middleware/security';
 import type { RateLimitName, RateLimitSettings } from './middleware/security';
 import { apiRoutes } from './routes';
+import { createUploadReader, type UploadReader } from './services/studies/parse/upload-reader';
+import type { UploadLimits } from './services/studies/parse/upload-limits';
 
 export interface AppServices {
   sequelize: Sequelize;
@@ -35,6 +37,8 @@ export interface AppServices {
   passport: ReturnType<typeof createPassport>;
   generateCsrfToken: (req: Request, res: Response, options?: { overwrite?: boolean }) => string;
   sessionCookieName: string;
+  /** Threads that read uploaded files under the upload limits. */
+  uploadReader: UploadReader;
 }
 
 export interface CreateAppOptions {
@@ -60,6 +64,8 @@ export interface CreateAppOptions {
   /** Folder of the built client; defaults to dist/ in the project. */
   clientDir?: string;
   routes?: AnyRouteSpec[];
+  /** Tighter (or looser) limits for reading uploaded files; the defaults suit real instrument files. */
+  uploadLimits?: Partial<UploadLimits>;
 }
 
 export interface HalflightApp extends express.Express {
@@ -96,6 +102,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     retryDelaySeconds: options.jobRetryDelaySeconds,
   });
   registerMailJobs(jobs, { sequelize: options.sequelize, mailer: options.mailer, publicUrl, logger: options.logger });
+  const uploadReader = createUploadReader({ limits: options.uploadLimits });
   app.locals.services = {
     sequelize: options.sequelize,
     embeddedDatabase: options.embeddedDatabase,
@@ -105,12 +112,13 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     passport,
     generateCsrfToken: csrf.generateCsrfToken,
     sessionCookieName: session.cookieName,
+    uploadReader,
   };
   app.locals.openApiDocument = buildOpenApiDocument(routes, appVersion);
   app.startJobs = () => jobs.start();
   app.closeResources = async () => {
     await jobs.stop();
-    await session.close();
+    await Promise.all([session.close(), uploadReader.close()]);
   };
 
   app.use(pinoHttp({ logger: options.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));

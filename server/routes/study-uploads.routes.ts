@@ -70,9 +70,13 @@ export const studyUploadRoutes = [
       403: { description: 'Not the owner' },
       404: { description: 'No such study' },
       409: { description: 'The same bytes were uploaded to this study before, or the study is locked' },
-      413: { description: 'Larger than 20 MB' },
+      413: {
+        description:
+          'Larger than 20 MB (nothing kept), or over a reading limit (rows, columns, cells, line length, points, unpacked size; kept as failed)',
+      },
       415: { description: 'Not an accepted file type' },
-      422: { description: 'Kept but unreadable; details name row and column' },
+      422: { description: 'Kept but unreadable (details name row and column), or reading ran over its time limit' },
+      503: { description: 'Too many files are being read; nothing kept, send it again shortly' },
     },
     handler: async ({ req, res, params }) => {
       const file = await receiveFile(req, res);
@@ -84,9 +88,7 @@ export const studyUploadRoutes = [
         );
       }
       const lab = labOf(req);
-      res
-        .status(201)
-        .json(await receiveUpload(req.app.locals.services.sequelize, lab, params.studyId, file, signedInActor(req)));
+      res.status(201).json(await receiveUpload(req.app.locals.services, lab, params.studyId, file, signedInActor(req)));
     },
   }),
   defineRoute({
@@ -99,9 +101,10 @@ export const studyUploadRoutes = [
     responses: {
       200: { description: 'Preview; problems name row and column', schema: uploadPreviewSchema },
       404: { description: 'No such upload' },
+      413: { description: 'This mapping goes over a reading limit (for instance the points of one series)' },
     },
     handler: async ({ req, res, params, body }) => {
-      res.json(await previewUpload(labOf(req), params.studyId, params.uploadId, body.mapping));
+      res.json(await previewUpload(req.app.locals.services, labOf(req), params.studyId, params.uploadId, body.mapping));
     },
   }),
   defineRoute({
@@ -120,14 +123,7 @@ export const studyUploadRoutes = [
     },
     handler: async ({ req, res, params, body }) => {
       const lab = labOf(req);
-      await applyUpload(
-        req.app.locals.services.sequelize,
-        lab,
-        params.studyId,
-        params.uploadId,
-        body,
-        signedInActor(req),
-      );
+      await applyUpload(req.app.locals.services, lab, params.studyId, params.uploadId, body, signedInActor(req));
       res.json(await getStudyDetail(lab, params.studyId));
     },
   }),

@@ -76,10 +76,15 @@ export const uploadPreviewSchema = z
     upload: uploadSummarySchema,
     format: z.string().describe('what was read: delimiter, decimal mark, sheet'),
     headers: z.array(z.string()),
-    rows: z.array(z.array(z.string())).describe('the parsed table (first 200 rows)'),
-    rowCount: z.number().int(),
+    rows: z
+      .array(z.array(z.string()))
+      .describe(
+        'the first rows of the parsed table (at most 200, fewer for a wide table; cells cut at 200 characters)',
+      ),
+    rowCount: z.number().int().describe('data rows in the whole table'),
     mapping: uploadMappingSchema.nullable(),
-    points: z.array(studyPointInputSchema),
+    points: z.array(studyPointInputSchema).describe('the first 200 points the mapping gives'),
+    pointCount: z.number().int().describe('points the mapping gives in all'),
     problems: z.array(problemSchema),
     warnings: z.array(z.string()),
   })

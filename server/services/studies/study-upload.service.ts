@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import type { Sequelize } from 'sequelize';
+import { UniqueConstraintError } from 'sequelize';
 import { EngineError } from '@shared/engine';
 import type { StudyPointValues } from '@shared/schemas/study-points';
 import type { UploadMapping, UploadPreview } from '@shared/schemas/study-uploads';
@@ -9,33 +10,43 @@ import { StudyPoint, StudyUpload, User } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { computeStudyFit } from './fit/compute-study-fit';
-import { applyMapping } from './parse/apply-mapping';
-import { ParseProblem } from './parse/parse-problem';
-import { mappingNotes, proposeMapping } from './parse/propose-mapping';
-import { readUpload } from './parse/read-upload';
-import { cachedTable, rememberTable } from './parse/table-cache';
-import type { RawTable } from './parse/read-text-table';
+import type { Problem, ReadOutcome } from './parse/read-and-map';
+import type { UploadReader } from './parse/upload-reader';
 import { loadStudy, requireChangeable, requireEditable, requireOwner } from './study-access';
 import { seriesOf } from './study-fitting.service';
 import { writeSeries } from './study-points.service';
 import { toUpload } from './study-serialize';
 
-const PREVIEW_ROWS = 200;
-const problemDetails = (problems: ParseProblem[]) =>
+/** What the upload flows need from the app: the database and the reading threads. */
+export interface UploadServices {
+  sequelize: Sequelize;
+  uploadReader: UploadReader;
+}
+
+const PREVIEW_POINTS = 200;
+const problemDetails = (problems: Problem[]) =>
   problems.map((problem) => ({
     path:
       problem.row === null ? 'file' : `file.row ${problem.row}${problem.column ? `, column ${problem.column}` : ''}`,
     message: problem.message,
   }));
-const unreadable = (problems: ParseProblem[], uploadId: string) =>
+const unreadable = (problems: Problem[], uploadId: string) =>
   new AppError(
     'upload_unreadable',
     `${problems[0]!.message}${problems.length > 1 ? ` (and ${problems.length - 1} more problem${problems.length > 2 ? 's' : ''})` : ''} The file is kept (upload ${uploadId}); fix it or choose another mapping.`,
     422,
     problemDetails(problems),
   );
+/** Over a limit: 413 for a file that expands too far, 422 for one that takes too long. */
+const overLimit = (outcome: Extract<ReadOutcome, { kind: 'limit' }>, kept: string | null) =>
+  new AppError(
+    'upload_limit',
+    kept ? `${outcome.message} The file is kept (upload ${kept}).` : outcome.message,
+    outcome.limit === 'seconds' ? 422 : 413,
+    [{ path: 'file', message: `over the ${outcome.limit} limit` }],
+  );
 
-/** The upload without its bytes unless asked for (a 10 MB file takes a while to read back; a kept table needs none). */
+/** The upload without its bytes unless asked for (a 20 MB file takes a while to read back). */
 async function findUpload(lab: LabContext, studyId: string, uploadId: string, withContent = false) {
   const upload = await StudyUpload.findOne({
     where: { id: uploadId, studyId, labId: lab.id },
@@ -46,54 +57,52 @@ async function findUpload(lab: LabContext, studyId: string, uploadId: string, wi
   return upload;
 }
 
-function preview(
-  upload: StudyUpload,
-  table: RawTable | null,
-  mapping: UploadMapping | null,
-  points: StudyPointValues[],
-  problems: ParseProblem[],
-): UploadPreview {
+/** The kept bytes of an upload found without them. */
+const contentOf = async (upload: StudyUpload) =>
+  (await StudyUpload.findByPk(upload.id, { attributes: ['content'], rejectOnEmpty: true })).content;
+
+/** The answer: the table's first rows and the first points, never every parsed value. */
+function preview(upload: StudyUpload, outcome: ReadOutcome): UploadPreview {
+  const read = outcome.kind === 'read' ? outcome : null;
   return {
     upload: toUpload(upload),
-    format: table?.format ?? 'unreadable',
-    headers: table?.headers ?? [],
-    rows: table?.rows.slice(0, PREVIEW_ROWS).map((row) => row.cells) ?? [],
-    rowCount: table?.rows.length ?? 0,
-    mapping,
-    points,
-    problems: problems.map((problem) => ({ row: problem.row, column: problem.column, message: problem.message })),
-    warnings: table && mapping ? mappingNotes(table, mapping) : [],
+    format: read?.table.format ?? 'unreadable',
+    headers: read?.table.headers ?? [],
+    rows: read?.table.rows ?? [],
+    rowCount: read?.table.rowCount ?? 0,
+    mapping: read?.mapping ?? null,
+    points: read?.points.slice(0, PREVIEW_POINTS) ?? [],
+    pointCount: read?.points.length ?? 0,
+    problems: outcome.kind === 'limit' ? [] : outcome.problems,
+    warnings: read?.warnings ?? [],
   };
 }
 
-/** Reads a file into table + points; a ParseProblem (not other errors) becomes a list of problems. */
-async function readWith(
-  fileName: string,
-  bytes: Buffer | (() => Promise<Buffer>),
-  sha256: string,
-  mapping: UploadMapping | null,
-) {
-  try {
-    let table = cachedTable(fileName, sha256);
-    if (!table) {
-      table = await readUpload(fileName, Buffer.isBuffer(bytes) ? bytes : await bytes());
-      rememberTable(fileName, sha256, table);
-    }
-    const chosen = mapping ?? proposeMapping(table);
-    const { points, problems } = applyMapping(table, chosen);
-    return { table, mapping: chosen, points, problems };
-  } catch (error) {
-    if (error instanceof ParseProblem) return { table: null, mapping, points: [], problems: [error] };
-    throw error;
-  }
+function parseReportOf(outcome: ReadOutcome) {
+  if (outcome.kind === 'limit') return { problem: outcome.message, limit: outcome.limit };
+  if (outcome.kind === 'unreadable' || outcome.problems.length > 0)
+    return { problem: outcome.problems[0]!.message, problems: outcome.problems.map((p) => p.message) };
+  return { format: outcome.table.format, rows: outcome.table.rowCount, mapping: outcome.mapping };
 }
 
+const duplicate = (earlier: Pick<StudyUpload, 'id' | 'fileName' | 'createdAt'>) =>
+  new AppError(
+    'duplicate_upload',
+    `These exact bytes were uploaded to this study already as "${earlier.fileName}" on ${earlier.createdAt.toISOString().slice(0, 10)}.`,
+    409,
+    [{ path: 'file', message: `same SHA-256 as upload ${earlier.id}` }],
+  );
+
 /**
- * Keeps the file exactly as received (also when it does not parse; the same bytes twice in one
- * study are refused with 409), reads it and proposes a mapping. Nothing reaches the series here.
+ * Keeps the file exactly as received (also when it does not parse: then the error names the
+ * upload), reads it off the main thread and proposes a mapping. Nothing reaches the series
+ * here. The file is read before anything is written, and the row, its parse report and the
+ * audit entry are written in one transaction: a failure leaves nothing half-kept. The same
+ * bytes twice in one study are refused with 409, unless the earlier copy failed to read: then
+ * the kept row is read again (a timeout on a busy machine must not block a retry).
  */
 export async function receiveUpload(
-  sequelize: Sequelize,
+  services: UploadServices,
   lab: LabContext,
   studyId: string,
   file: { originalname: string; mimetype: string; buffer: Buffer },
@@ -102,101 +111,122 @@ export async function receiveUpload(
   const study = await loadStudy(lab, studyId);
   requireOwner(study, lab, actor.userId);
   requireEditable(study);
-  const sha256 = crypto.createHash('sha256').update(file.buffer).digest('hex');
+  // SubtleCrypto hashes on libuv's thread pool; a 20 MB digest would otherwise hold the event loop.
+  const sha256 = Buffer.from(await crypto.subtle.digest('SHA-256', file.buffer)).toString('hex');
   const earlier = await StudyUpload.findOne({
     where: { studyId, sha256 },
-    attributes: ['id', 'fileName', 'createdAt'],
+    attributes: ['id', 'fileName', 'createdAt', 'parseStatus'],
   });
-  if (earlier) {
-    throw new AppError(
-      'duplicate_upload',
-      `These exact bytes were uploaded to this study already as "${earlier.fileName}" on ${earlier.createdAt.toISOString().slice(0, 10)}.`,
-      409,
-      [{ path: 'file', message: `same SHA-256 as upload ${earlier.id}` }],
-    );
-  }
-  const read = await readWith(file.originalname, file.buffer, sha256, null);
-  const failed = read.problems.length > 0;
-  const upload = await sequelize.transaction(async (transaction) => {
-    const created = await StudyUpload.create(
-      {
-        labId: lab.id,
-        studyId,
-        fileName: file.originalname.slice(0, 255),
-        mediaType: file.mimetype || 'application/octet-stream',
-        size: file.buffer.length,
-        sha256,
-        content: file.buffer,
-        uploadedById: actor.userId,
-        parseStatus: failed ? 'failed' : 'parsed',
-        parseReport: failed
-          ? { problem: read.problems[0]!.message, problems: read.problems.map((p) => p.message) }
-          : { format: read.table!.format, rows: read.table!.rows.length, mapping: read.mapping },
-      },
-      { transaction },
-    );
-    await recordAudit(
-      actor,
-      {
-        action: 'study_file_uploaded',
-        labId: lab.id,
-        targetType: 'study',
-        targetId: studyId,
-        details: {
-          uploadId: created.id,
-          fileName: created.fileName,
-          size: created.size,
-          sha256,
-          parseStatus: created.parseStatus,
+  if (earlier && earlier.parseStatus !== 'failed') throw duplicate(earlier);
+  const outcome = await services.uploadReader.read(file.originalname, file.buffer, null);
+  const report = parseReportOf(outcome);
+  const failed = 'problem' in report;
+  const fields = {
+    fileName: file.originalname.slice(0, 255),
+    mediaType: file.mimetype || 'application/octet-stream',
+    uploadedById: actor.userId,
+    parseStatus: failed ? ('failed' as const) : ('parsed' as const),
+    parseReport: report,
+  };
+  let upload: StudyUpload;
+  try {
+    upload = await services.sequelize.transaction(async (transaction) => {
+      const kept = earlier
+        ? await (
+            await StudyUpload.findByPk(earlier.id, {
+              attributes: { exclude: ['content'] },
+              transaction,
+              rejectOnEmpty: true,
+            })
+          ).update(fields, { transaction })
+        : await StudyUpload.create(
+            { ...fields, labId: lab.id, studyId, size: file.buffer.length, sha256, content: file.buffer },
+            { transaction },
+          );
+      await recordAudit(
+        actor,
+        {
+          action: 'study_file_uploaded',
+          labId: lab.id,
+          targetType: 'study',
+          targetId: studyId,
+          details: {
+            uploadId: kept.id,
+            fileName: kept.fileName,
+            size: file.buffer.length,
+            sha256,
+            parseStatus: kept.parseStatus,
+            ...(earlier ? { readAgain: true } : {}),
+          },
         },
-      },
-      transaction,
-    );
-    return created;
-  });
-  if (failed) throw unreadable(read.problems, upload.id);
-  return preview(upload, read.table, read.mapping, read.points, []);
+        transaction,
+      );
+      return kept;
+    });
+  } catch (error) {
+    // The same bytes sent twice at once: the second insert meets the unique index.
+    if (error instanceof UniqueConstraintError) {
+      const winner = await StudyUpload.findOne({
+        where: { studyId, sha256 },
+        attributes: ['id', 'fileName', 'createdAt'],
+      });
+      if (winner) throw duplicate(winner);
+    }
+    throw error;
+  }
+  if (outcome.kind === 'limit') throw overLimit(outcome, upload.id);
+  if (outcome.problems.length > 0) throw unreadable(outcome.problems, upload.id);
+  return preview(upload, outcome);
 }
 
-/** The kept bytes of an upload found without them. */
-const contentOf = (upload: StudyUpload) => async () =>
-  (await StudyUpload.findByPk(upload.id, { attributes: ['content'], rejectOnEmpty: true })).content;
-
-/** The table read again with another mapping (a spectrum window, other columns, units). */
+/** The table read again from the kept bytes with another mapping (a spectrum window, other columns, units). */
 export async function previewUpload(
+  services: UploadServices,
   lab: LabContext,
   studyId: string,
   uploadId: string,
   mapping: UploadMapping,
 ): Promise<UploadPreview> {
   const upload = await findUpload(lab, studyId, uploadId);
-  const read = await readWith(upload.fileName, contentOf(upload), upload.sha256, mapping);
-  return preview(upload, read.table, read.mapping, read.points, read.problems);
+  const outcome = await services.uploadReader.read(upload.fileName, await contentOf(upload), mapping);
+  if (outcome.kind === 'limit') throw overLimit(outcome, null);
+  return preview(upload, outcome);
 }
 
-/** Confirms a mapping: the points replace (or extend) the series only when the result can be fitted. */
+/**
+ * Confirms a mapping: the points replace (or extend) the series only when the result can be
+ * fitted. The file is read again from its kept bytes before the transaction (no connection is
+ * held while a thread reads), so any instance can apply what another previewed.
+ */
 export async function applyUpload(
-  sequelize: Sequelize,
+  services: UploadServices,
   lab: LabContext,
   studyId: string,
   uploadId: string,
   input: { version: number; mapping: UploadMapping; mode: 'replace' | 'append' },
   actor: SignedInActor,
 ) {
-  await sequelize.transaction(async (transaction) => {
+  const found = await findUpload(lab, studyId, uploadId);
+  const outcome = await services.uploadReader.read(found.fileName, await contentOf(found), input.mapping);
+  if (outcome.kind === 'limit') throw overLimit(outcome, null);
+  if (outcome.problems.length > 0) throw unreadable(outcome.problems, uploadId);
+  if (outcome.kind !== 'read' || outcome.points.length === 0) {
+    throw new AppError(
+      'no_points',
+      'Nothing was saved: this mapping gives no points; give the quencher concentration of at least one spectrum.',
+      422,
+      [{ path: 'body.mapping.samples', message: 'empty' }],
+    );
+  }
+  const read = outcome;
+  await services.sequelize.transaction(async (transaction) => {
     const study = await loadStudy(lab, studyId, transaction);
     requireChangeable(study, lab, actor.userId, input.version);
-    const upload = await findUpload(lab, studyId, uploadId);
-    const read = await readWith(upload.fileName, contentOf(upload), upload.sha256, input.mapping);
-    if (read.problems.length > 0) throw unreadable(read.problems, upload.id);
-    if (read.points.length === 0) {
-      throw new AppError(
-        'no_points',
-        'Nothing was saved: this mapping gives no points; give the quencher concentration of at least one spectrum.',
-        422,
-        [{ path: 'body.mapping.samples', message: 'empty' }],
-      );
-    }
+    const upload = await StudyUpload.findByPk(uploadId, {
+      attributes: { exclude: ['content'] },
+      transaction,
+      rejectOnEmpty: true,
+    });
     const isRatio = input.mapping.layout === 'series' && input.mapping.intensityIsRatio;
     const existing =
       input.mode === 'append'

@@ -131,3 +131,16 @@ describe('spectrum reduction', () => {
     ).toBeCloseTo(3 * 612.34 + 1, 9);
   });
 });
+
+describe('ragged rows are found before the delimiter is chosen', () => {
+  it('when one row of a comma file is short, then the file is still read as comma-separated and that row is named', async () => {
+    const text = '[Q] (mM),intensity,tau (ns)\n0,1000,500\n1,800,400\n2\n3,550,310\n4,480,270\n';
+    await expect(readUpload('x.csv', Buffer.from(text))).rejects.toThrow(
+      'Row 4 has 1 cell where the header has 3 columns. The file was read as comma-separated, as most of its lines are.',
+    );
+  });
+  it('when several rows are ragged, then each is named by its line', async () => {
+    const text = 'c;I\n0;100\n1\n2;80;7\n3;70\n4\n';
+    await expect(readUpload('x.csv', Buffer.from(text))).rejects.toThrow(/^Row 3 has 1 cell .* Rows 4, 6 differ too\./);
+  });
+});

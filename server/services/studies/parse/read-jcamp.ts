@@ -1,7 +1,9 @@
 import { convert, type Entry } from 'jcampconverter';
+import { checkJcamp } from './check-jcamp';
 import { concentrationInHeader } from './header-units';
 import { ParseProblem } from './parse-problem';
 import { decodeText, type RawTable } from './read-text-table';
+import { DEFAULT_UPLOAD_LIMITS, limitMessage, UploadLimitExceeded, type UploadLimits } from './upload-limits';
 
 /** ##XUNITS= values (JCAMP-DX 4.24 spells them out) -> wavelength in nm. */
 const TO_NANOMETRES: Record<string, (x: number) => number> = {
@@ -87,10 +89,11 @@ function blockColumns(entry: Entry, index: number): Column[] {
  * into a spectrum matrix: wavelength in nm, one column per spectrum. Spectra on different
  * grids share one wavelength column; a blank cell then means "not measured there".
  */
-export function readJcamp(bytes: Buffer): RawTable {
+export function readJcamp(bytes: Buffer, limits: UploadLimits = DEFAULT_UPLOAD_LIMITS): RawTable {
   const text = decodeText(bytes).replace(/^\uFEFF/, '');
   if (!text.trimStart().startsWith('##'))
     throw new ParseProblem('This is not JCAMP-DX: the file should start with a ##TITLE= line.');
+  checkJcamp(bytes, text, limits);
   let entries: Entry[];
   try {
     entries = convert(text, { keepRecordsRegExp: /.*/ }).flatten;
@@ -100,7 +103,12 @@ export function readJcamp(bytes: Buffer): RawTable {
   const columns = entries.filter((entry) => entry.spectra.length > 0).flatMap(blockColumns);
   if (columns.length === 0)
     throw new ParseProblem('The JCAMP-DX file holds no spectrum (no ##XYDATA= or ##PEAK TABLE= block).');
+  if (columns.length > limits.columns)
+    throw new UploadLimitExceeded('columns', limitMessage.columns(limits, 1, columns.length + 1));
   const wavelengths = [...new Set(columns.flatMap((column) => [...column.byWavelength.keys()]))].sort((a, b) => a - b);
+  if (wavelengths.length > limits.rows) throw new UploadLimitExceeded('rows', limitMessage.rows(limits));
+  if (wavelengths.length * (columns.length + 1) > limits.cells)
+    throw new UploadLimitExceeded('cells', limitMessage.cells(limits));
   const rows = wavelengths.map((nm, i) => ({
     line: i + 1,
     cells: [String(nm), ...columns.map((column) => cellText(column.byWavelength.get(nm)))],

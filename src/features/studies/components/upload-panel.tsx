@@ -93,12 +93,12 @@ export function UploadPanel({ labId, study }: { labId: string; study: StudyDetai
           )}
           {preview.points.length > 0 && (
             <p aria-label="Points from the file" className="text-body">
-              {preview.points.length} points:{' '}
+              {preview.pointCount} points:{' '}
               {preview.points
                 .slice(0, 8)
                 .map((point) => `${formatNumber(point.concentration)} M → ${formatNumber(point.intensity)}`)
                 .join(' · ')}
-              {preview.points.length > 8 ? ' …' : ''}
+              {preview.pointCount > 8 ? ' …' : ''}
             </p>
           )}
           {apply.isError && <FormAlert>{describeError(apply.error)}</FormAlert>}

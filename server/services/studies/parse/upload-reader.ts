@@ -1,0 +1,72 @@
+import { Piscina } from 'piscina';
+import type { UploadMapping } from '@shared/schemas/study-uploads';
+import { AppError } from '../../../lib/app-error';
+import type { ReadOutcome, ReadTask } from './read-and-map';
+import { DEFAULT_UPLOAD_LIMITS, limitMessage, type UploadLimits } from './upload-limits';
+
+export interface UploadReader {
+  readonly limits: UploadLimits;
+  /** Reads the bytes and applies the mapping (or proposes one) off the main thread, within the limits. */
+  read(fileName: string, bytes: Uint8Array, mapping: UploadMapping | null): Promise<ReadOutcome>;
+  close(): Promise<void>;
+}
+
+export interface UploadReaderOptions {
+  limits?: Partial<UploadLimits>;
+  /** reading threads at most (default 2: the machine's web process keeps a core) */
+  threads?: number;
+  /** files waiting for a thread before new ones get 503 */
+  queue?: number;
+}
+
+// From source (tsx, vitest) the thread loads the TypeScript file and needs tsx's loader; compiled, the .js beside this one.
+const workerFile = new URL(`./read-upload.worker${import.meta.url.endsWith('.ts') ? '.ts' : '.js'}`, import.meta.url);
+const threadArguments = () =>
+  workerFile.pathname.endsWith('.ts') && !process.execArgv.some((argument) => argument.includes('tsx'))
+    ? [...process.execArgv, '--import', 'tsx']
+    : process.execArgv;
+
+/**
+ * A small pool of worker threads that read untrusted files: a file that takes seconds or
+ * hundreds of megabytes costs a thread, never the event loop that answers everyone else. Each
+ * thread has a heap cap (limits.memoryMb) and each file a time limit (limits.seconds); a thread
+ * that runs over either is ended and replaced, and the file gets an outcome naming the limit.
+ */
+export function createUploadReader(options: UploadReaderOptions = {}): UploadReader {
+  const limits: UploadLimits = { ...DEFAULT_UPLOAD_LIMITS, ...options.limits };
+  const pool = new Piscina<ReadTask, ReadOutcome>({
+    filename: workerFile.href,
+    // One thread waits ready, so its start-up never falls inside a request.
+    minThreads: 1,
+    maxThreads: options.threads ?? 2,
+    idleTimeout: 60_000,
+    maxQueue: options.queue ?? 16,
+    execArgv: threadArguments(),
+    resourceLimits: { maxOldGenerationSizeMb: limits.memoryMb, maxYoungGenerationSizeMb: 32 },
+  });
+  return {
+    limits,
+    async read(fileName, bytes, mapping) {
+      try {
+        return await pool.run(
+          { fileName, bytes, mapping, limits },
+          { signal: AbortSignal.timeout(limits.seconds * 1000) },
+        );
+      } catch (error) {
+        const { name, code, message } = error as { name?: string; code?: string; message?: string };
+        if (name === 'AbortError' || name === 'TimeoutError')
+          return { kind: 'limit', limit: 'seconds', message: limitMessage.seconds(limits) };
+        if (code === 'ERR_WORKER_OUT_OF_MEMORY')
+          return { kind: 'limit', limit: 'memoryMb', message: limitMessage.memoryMb(limits) };
+        if (message?.includes('queue is at limit'))
+          throw new AppError(
+            'uploads_busy',
+            'Halflight is reading many files just now; nothing was kept. Send the file again in a minute.',
+            503,
+          );
+        throw error;
+      }
+    },
+    close: () => pool.destroy(),
+  };
+}
