@@ -1,3 +1,4 @@
+import fs from 'node:fs';
 import { Piscina } from 'piscina';
 import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { AppError } from '../../../lib/app-error';
@@ -19,8 +20,19 @@ export interface UploadReaderOptions {
   queue?: number;
 }
 
-// From source (tsx, vitest) the thread loads the TypeScript file and needs tsx's loader; compiled, the .js beside this one.
-const workerFile = new URL(`./read-upload.worker${import.meta.url.endsWith('.ts') ? '.ts' : '.js'}`, import.meta.url);
+/**
+ * From source (tsx, vitest) the thread loads the TypeScript file and needs tsx's loader;
+ * compiled, the .js beside this module, or, when the server is bundled into one entry file,
+ * the worker's own entry under the same folder layout as the source.
+ */
+function findWorkerFile(): URL {
+  const here = import.meta.url;
+  const candidates = here.endsWith('.ts')
+    ? [new URL('./read-upload.worker.ts', here)]
+    : [new URL('./read-upload.worker.js', here), new URL('./services/studies/parse/read-upload.worker.js', here)];
+  return candidates.find((candidate) => fs.existsSync(candidate)) ?? candidates[0]!;
+}
+const workerFile = findWorkerFile();
 const threadArguments = () =>
   workerFile.pathname.endsWith('.ts') && !process.execArgv.some((argument) => argument.includes('tsx'))
     ? [...process.execArgv, '--import', 'tsx']
