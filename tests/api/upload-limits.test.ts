@@ -70,12 +70,13 @@ describe('POST /api/labs/:labId/studies/:studyId/uploads with hostile files', ()
       expect(response.body.error.code).toBe('upload_limit');
       expect(response.body.error.message).toMatch(limit);
       expect(watched.peakRssMb).toBeLessThan(1024);
-      // Loose bounds that tell a busy app from a frozen one (before, /api/health went unanswered for 20 s);
-      // the figures themselves are printed above, and depend on how busy the machine is.
+      // Loose bounds that tell a busy app from a frozen one (before, /api/health went unanswered for 20 s):
+      // on a quiet machine the answers take a few ms, on a shared 2-core machine under load up to a few
+      // hundred. The figures are printed above; timing targets belong in benchmarks, not in tests.
       expect(watched.seconds).toBeLessThan(20);
       expect(watched.healthAnswers).toBeGreaterThan(0);
-      expect(watched.healthMedianMs).toBeLessThan(100);
-      expect(watched.healthMaxMs).toBeLessThan(1000);
+      expect(watched.healthMedianMs).toBeLessThan(250);
+      expect(watched.healthMaxMs).toBeLessThan(1500);
       // The file is kept as failed (its bytes are evidence), and the study gained no points.
       const detail = (await client.get(base(study.id))).body;
       expect(detail.points).toEqual([]);
