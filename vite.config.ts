@@ -32,6 +32,16 @@ export default defineConfig({
         },
       },
       {
+        // React components and pure client logic in a simulated browser (happy-dom); no server, no network.
+        extends: true,
+        test: {
+          name: 'component',
+          include: ['tests/component/**/*.test.{ts,tsx}'],
+          environment: 'happy-dom',
+          setupFiles: ['tests/support/component-setup.ts'],
+        },
+      },
+      {
         extends: true,
         test: {
           name: 'api',

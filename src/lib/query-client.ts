@@ -1,5 +1,6 @@
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
 import { ApiError } from './api-client';
+import { paths } from './paths';
 
 /**
  * A session can end behind the screen's back (expired, signed out in another tab). When the server
@@ -8,9 +9,9 @@ import { ApiError } from './api-client';
 function leaveWhenSignedOut(error: unknown): void {
   if (!(error instanceof ApiError) || error.code !== 'not_signed_in') return;
   const here = window.location.pathname + window.location.search;
-  if (window.location.pathname === '/sign-in') return;
+  if (window.location.pathname === paths.signIn()) return;
   queryClient.clear();
-  window.location.assign(`/sign-in?next=${encodeURIComponent(here)}`);
+  window.location.assign(paths.signIn(here));
 }
 
 export const queryClient = new QueryClient({

@@ -10,6 +10,7 @@ import { ApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format-date';
 import { roleLabels } from '@/lib/role-labels';
 import { roleDescriptions } from '@shared/schemas/roles';
+import { paths } from '@/lib/paths';
 
 /** Answer an invitation from its e-mail link: see who invites you where, then join. */
 export function AcceptInvitationRoute() {
@@ -26,7 +27,7 @@ export function AcceptInvitationRoute() {
         <p className="text-body text-ink-700">
           It was used, withdrawn or has expired. Ask the lab admin who sent it for a new one.
         </p>
-        <TextLink to="/sign-in">Sign in</TextLink>
+        <TextLink to={paths.signIn()}>Sign in</TextLink>
       </div>
     ) : (
       <ErrorNotice error={invitation.error} what="the invitation" />
@@ -39,7 +40,7 @@ export function AcceptInvitationRoute() {
     // The newest membership with this lab's name is the one just created.
     const joined = session.user.labs.findLast((lab) => lab.labName === labName);
     if (joined) rememberLab(joined.labId);
-    void navigate(joined ? `/labs/${joined.labId}/members` : '/', { replace: true });
+    void navigate(joined ? paths.members(joined.labId) : paths.overview(), { replace: true });
   }
 
   return (

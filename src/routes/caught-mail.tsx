@@ -1,5 +1,4 @@
 import { useState } from 'react';
-import { useParams } from 'react-router-dom';
 import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorNotice } from '@/components/error-notice';
@@ -11,19 +10,18 @@ import { useCaughtMail } from '@/features/mail/api/get-caught-mail';
 import { MailList } from '@/features/mail/components/mail-list';
 import { MailReader } from '@/features/mail/components/mail-reader';
 import { can } from '@/lib/policy';
+import { useLab } from '@/routes/lab-context';
 
 const pageSize = 20;
 
 /** Mail the workspace sent while a local catcher stands in for a real mail relay; admins only. */
 export function CaughtMailRoute() {
-  const { labId = '' } = useParams();
+  const lab = useLab();
   const session = useSession();
-  const lab = session.user.labs.find((membership) => membership.labId === labId);
-  if (!lab) return <NotYourLab />;
   if (!session.mailCatcher)
     return <NotYourLab reason="This workspace sends real e-mail, so there is no caught mail to read." />;
   if (!can(lab.role, 'mail:read')) return <NotYourLab reason="Only the lab’s admins can read caught mail." />;
-  return <CaughtMailScreen labId={labId} />;
+  return <CaughtMailScreen labId={lab.labId} />;
 }
 
 function CaughtMailScreen({ labId }: { labId: string }) {

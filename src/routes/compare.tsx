@@ -1,4 +1,4 @@
-import { useParams, useSearchParams } from 'react-router-dom';
+import { useSearchParams } from 'react-router-dom';
 import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorNotice } from '@/components/error-notice';
@@ -11,6 +11,7 @@ import type { ComparisonQuery } from '@/features/comparisons/api/get-comparison'
 import { ComparisonTable } from '@/features/comparisons/components/comparison-table';
 import { TrendPlot } from '@/features/comparisons/components/trend-plot';
 import { useCompounds } from '@/features/library/api/get-compounds';
+import { useLab } from '@/routes/lab-context';
 
 const sorts = [
   { value: 'kq', label: 'kq, fastest first' },
@@ -21,7 +22,7 @@ const sorts = [
 
 /** Compare quenchers for one emitter (or emitters for one quencher), in a table and against driving force. */
 export function CompareRoute() {
-  const { labId = '' } = useParams();
+  const { labId } = useLab();
   const [params, setParams] = useSearchParams();
   const query: ComparisonQuery = {
     side: params.get('side') === 'quencher' ? 'quencher' : 'emitter',

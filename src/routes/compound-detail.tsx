@@ -5,7 +5,6 @@ import { FormAlert } from '@/components/form-alert';
 import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
 import { useSession } from '@/features/auth/api/get-session';
-import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { useCompound } from '@/features/library/api/get-compound';
 import { useDeleteMeasurement } from '@/features/library/api/delete-measurement';
 import { useLabSettings } from '@/features/library/api/get-lab-settings';
@@ -20,19 +19,21 @@ import { PotentialForm } from '@/features/library/components/potential-form';
 import { PotentialsTable } from '@/features/library/components/potentials-table';
 import { studiesKeys } from '@/features/studies/api/studies-keys';
 import { describeError } from '@/lib/form-errors';
+import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
+import { useLab } from '@/routes/lab-context';
 
 /** One compound: potentials in the lab's reference with the originals, excited-state potentials, lifetimes, E00, driving force. */
 export function CompoundDetailRoute() {
-  const { labId = '', compoundId = '' } = useParams();
+  const { compoundId = '' } = useParams();
+  const lab = useLab();
+  const labId = lab.labId;
   const { user } = useSession();
-  const lab = user.labs.find((membership) => membership.labId === labId);
   const compound = useCompound(labId, compoundId);
   const settings = useLabSettings(labId);
   const remove = useDeleteMeasurement(labId, compoundId);
   const navigate = useNavigate();
   const queryClient = useQueryClient();
-  if (!lab) return <NotYourLab />;
   if (compound.isPending) return <Signal tone="waiting">Loading the compound</Signal>;
   if (compound.isError) return <ErrorNotice error={compound.error} what="the compound" />;
   const data = compound.data;
@@ -50,7 +51,7 @@ export function CompoundDetailRoute() {
         compound={data}
         mayEdit={mayEdit(data)}
         canCurate={canCurate}
-        onDeleted={() => void navigate(`/labs/${labId}/library`)}
+        onDeleted={() => void navigate(paths.library(labId))}
       />
       {data.roleHint !== 'photocatalyst' && (
         <FormAlert tone="note">

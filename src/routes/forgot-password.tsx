@@ -7,6 +7,7 @@ import { TextField } from '@/components/text-field';
 import { TextLink } from '@/components/text-link';
 import { useRequestPasswordReset } from '@/features/auth/api/request-password-reset';
 import { showServerErrors } from '@/lib/form-errors';
+import { paths } from '@/lib/paths';
 
 /** Ask for a link to choose a new password. The answer never says whether the address has an account. */
 export function ForgotPasswordRoute() {
@@ -47,7 +48,7 @@ export function ForgotPasswordRoute() {
         </form>
       )}
       <p className="text-body text-ink-700">
-        Remembered it? <TextLink to="/sign-in">Back to sign in</TextLink>
+        Remembered it? <TextLink to={paths.signIn()}>Back to sign in</TextLink>
       </p>
     </div>
   );

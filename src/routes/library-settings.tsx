@@ -1,19 +1,15 @@
-import { useParams } from 'react-router-dom';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
-import { useSession } from '@/features/auth/api/get-session';
 import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { useLabSettings } from '@/features/library/api/get-lab-settings';
 import { LabSettingsForm } from '@/features/library/components/lab-settings-form';
 import { can } from '@/lib/policy';
+import { useLab } from '@/routes/lab-context';
 
 /** Lab settings for admins: the reference electrode in which potentials are read. */
 export function LibrarySettingsRoute() {
-  const { labId = '' } = useParams();
-  const { user } = useSession();
-  const lab = user.labs.find((membership) => membership.labId === labId);
-  if (!lab) return <NotYourLab />;
+  const lab = useLab();
   if (!can(lab.role, 'settings:manage')) return <NotYourLab reason="Only the lab's admins change its settings." />;
   return <SettingsScreen labId={lab.labId} labName={lab.labName} />;
 }

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useNavigate, useParams } from 'react-router-dom';
+import { useNavigate } from 'react-router-dom';
 import type { CompoundRoleHint } from '@shared/schemas/compound-role';
 import { Button } from '@/components/button';
 import { ErrorNotice } from '@/components/error-notice';
@@ -8,24 +8,21 @@ import { SelectField } from '@/components/select-field';
 import { Signal } from '@/components/signal';
 import { Tag } from '@/components/tag';
 import { TextField } from '@/components/text-field';
-import { useSession } from '@/features/auth/api/get-session';
-import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { useCreateCompound } from '@/features/library/api/create-compound';
 import { useCompounds } from '@/features/library/api/get-compounds';
 import { CompoundForm } from '@/features/library/components/compound-form';
 import { CompoundTable } from '@/features/library/components/compound-table';
 import { LibraryImportPanel } from '@/features/library/components/library-import-panel';
 import { roleHintLabels } from '@/features/library/components/library-format';
+import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
+import { useLab } from '@/routes/lab-context';
 
 const pageSize = 25;
 
 /** The lab's compound library: search, filter by role, add a compound, import and export CSV. */
 export function LibraryRoute() {
-  const { labId = '' } = useParams();
-  const { user } = useSession();
-  const lab = user.labs.find((membership) => membership.labId === labId);
-  if (!lab) return <NotYourLab />;
+  const lab = useLab();
   return (
     <LibraryScreen labId={lab.labId} labName={lab.labName} isDemo={lab.isDemo} canAdd={can(lab.role, 'library:add')} />
   );
@@ -119,7 +116,7 @@ function LibraryScreen({
             pending={create.isPending}
             onSave={async (values) => {
               const created = await create.mutateAsync(values);
-              await navigate(`/labs/${labId}/library/${created.id}`);
+              await navigate(paths.compound(labId, created.id));
             }}
           />
         </Panel>

@@ -1,24 +1,23 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { useNavigate, useParams } from 'react-router-dom';
+import { useNavigate } from 'react-router-dom';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
 import { Tag } from '@/components/tag';
 import { authKeys } from '@/features/auth/api/auth-keys';
 import { useSession } from '@/features/auth/api/get-session';
-import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { useMembers } from '@/features/members/api/get-members';
 import { InviteForm } from '@/features/members/components/invite-form';
 import { MembersTable } from '@/features/members/components/members-table';
 import { PendingInvitations } from '@/features/members/components/pending-invitations';
+import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
+import { useLab } from '@/routes/lab-context';
 
 /** Who works in the lab and with which role; admins invite, re-role and remove people here. */
 export function MembersRoute() {
-  const { labId = '' } = useParams();
+  const lab = useLab();
   const { user } = useSession();
-  const lab = user.labs.find((membership) => membership.labId === labId);
-  if (!lab) return <NotYourLab />;
   return (
     <MembersScreen
       labId={lab.labId}
@@ -45,7 +44,7 @@ function MembersScreen({ labId, labName, isDemo, canManage, selfUserId }: Member
 
   async function onSelfChanged(change: 'role' | 'removed') {
     await queryClient.invalidateQueries({ queryKey: authKeys.session() });
-    if (change === 'removed') await navigate('/', { replace: true });
+    if (change === 'removed') await navigate(paths.overview(), { replace: true });
   }
 
   return (

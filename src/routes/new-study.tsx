@@ -1,19 +1,18 @@
-import { useNavigate, useParams, useSearchParams } from 'react-router-dom';
+import { useNavigate, useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
-import { useSession } from '@/features/auth/api/get-session';
-import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { useCreateStudy } from '@/features/studies/api/create-study';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
 import { StudyForm } from '@/features/studies/components/study-form';
 import type { StudyFormValues } from '@/features/studies/components/study-form-values';
+import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
+import { useLab } from '@/routes/lab-context';
 
 /** Set up a new quenching study; points come next, on the study's screen. */
 export function NewStudyRoute() {
-  const { labId = '' } = useParams();
-  const { user } = useSession();
-  const lab = user.labs.find((membership) => membership.labId === labId);
+  const lab = useLab();
+  const labId = lab.labId;
   const options = useStudyFormOptions(labId);
   const create = useCreateStudy(labId);
   const navigate = useNavigate();
@@ -26,7 +25,6 @@ export function NewStudyRoute() {
   );
   if (params.get('dilutionCorrection') === 'true') preset.dilutionCorrection = true;
   if (params.get('stockContainsEmitter') === 'true') preset.stockContainsEmitter = true;
-  if (!lab) return <NotYourLab />;
   if (!can(lab.role, 'studies:write'))
     return (
       <ErrorNotice
@@ -55,7 +53,7 @@ export function NewStudyRoute() {
             submitLabel="Create study"
             onSubmit={async (body) => {
               const study = await create.mutateAsync(body);
-              await navigate(`/labs/${labId}/studies/${study.id}`);
+              await navigate(paths.study(labId, study.id));
             }}
           />
         )}

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import type { TitrationPlanInput, TitrationPlanResult } from '@shared/schemas/planner';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
@@ -10,29 +10,28 @@ import { useDownloadTitrationPlan } from '@/features/planner/api/download-titrat
 import { PlanTable } from '@/features/planner/components/plan-table';
 import { PlannerForm } from '@/features/planner/components/planner-form';
 import { toPlanInput } from '@/features/planner/components/planner-form-schema';
-import { useSession } from '@/features/auth/api/get-session';
 import { describeError } from '@/lib/form-errors';
+import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
+import { useLab } from '@/routes/lab-context';
 
 /** The new-study form, pre-filled with the plan's volumes and stock and the dilution correction switched on. */
 function studyFromPlan(labId: string, input: TitrationPlanInput): string {
-  const params = new URLSearchParams({
+  return paths.newStudy(labId, {
     initialVolumeMilli: String(input.initialVolume * 1e3),
     stockMilli: String(input.stockConcentration * 1e3),
     dilutionCorrection: 'true',
     stockContainsEmitter: String(Boolean(input.stockContainsEmitter)),
-    ...(input.quencherName ? { title: `Titration with ${input.quencherName}` } : {}),
+    title: input.quencherName ? `Titration with ${input.quencherName}` : undefined,
   });
-  return `/labs/${labId}/studies/new?${params.toString()}`;
 }
 
 /** Titration planner: the additions that reach each quencher concentration, before any stock is made. */
 export function PlannerRoute() {
-  const { labId = '' } = useParams();
+  const lab = useLab();
+  const labId = lab.labId;
   const createPlan = useCreateTitrationPlan(labId);
   const download = useDownloadTitrationPlan(labId);
-  const { user } = useSession();
-  const role = user.labs.find((membership) => membership.labId === labId)?.role;
   const [planned, setPlanned] = useState<{ input: TitrationPlanInput; plan: TitrationPlanResult } | null>(null);
 
   return (
@@ -77,7 +76,7 @@ export function PlannerRoute() {
               <Button variant="quiet" onClick={() => window.print()}>
                 Print
               </Button>
-              {can(role, 'studies:write') && (
+              {can(lab.role, 'studies:write') && (
                 <Link
                   className="rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300"
                   to={studyFromPlan(labId, planned.input)}

@@ -1,11 +1,12 @@
 import { Link, Outlet } from 'react-router-dom';
 import { HalflightMark } from '@/components/halflight-mark';
+import { paths } from '@/lib/paths';
 
 /** The frame of the screens used before signing in: the mark and one card. */
 export function PublicLayout() {
   return (
     <div className="flex min-h-screen flex-col items-center bg-paper-100 px-4 py-12">
-      <Link to="/" className="mb-8 flex items-center gap-2.5 text-glow-500" aria-label="Halflight home">
+      <Link to={paths.overview()} className="mb-8 flex items-center gap-2.5 text-glow-500" aria-label="Halflight home">
         <HalflightMark className="h-9 w-9" />
         <span className="text-display font-black tracking-tight text-ink-950">Halflight</span>
       </Link>

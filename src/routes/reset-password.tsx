@@ -11,6 +11,7 @@ import { ApiError } from '@/lib/api-client';
 import { showServerErrors } from '@/lib/form-errors';
 import { NewPasswordFields } from '@/features/auth/components/new-password-fields';
 import { sameTwice } from '@/features/auth/components/same-twice';
+import { paths } from '@/lib/paths';
 
 const newPasswordSchema = z
   .object({ password: passwordSchema, confirm: z.string() })
@@ -31,7 +32,7 @@ export function ResetPasswordRoute() {
         <h1 className="text-title font-black text-ink-950">This link is incomplete</h1>
         <p className="text-body text-ink-700">
           Open the link from the e-mail exactly as it arrived, or{' '}
-          <TextLink to="/forgot-password">ask for a new one</TextLink>.
+          <TextLink to={paths.forgotPassword()}>ask for a new one</TextLink>.
         </p>
       </div>
     );
@@ -42,7 +43,7 @@ export function ResetPasswordRoute() {
       { token, password },
       {
         onSuccess: () =>
-          navigate('/sign-in', { replace: true, state: { notice: 'Your new password is set. Sign in with it.' } }),
+          navigate(paths.signIn(), { replace: true, state: { notice: 'Your new password is set. Sign in with it.' } }),
         onError: (error) => showServerErrors(error, form.setError, ['password']),
       },
     ),
@@ -67,7 +68,7 @@ export function ResetPasswordRoute() {
             {linkSpent && (
               <>
                 {' '}
-                <TextLink to="/forgot-password">Ask for a new link</TextLink>.
+                <TextLink to={paths.forgotPassword()}>Ask for a new link</TextLink>.
               </>
             )}
           </FormAlert>

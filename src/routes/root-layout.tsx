@@ -7,6 +7,7 @@ import { useSignOut } from '@/features/auth/api/sign-out';
 import { LabSwitcher } from '@/features/labs/components/lab-switcher';
 import { useCurrentLab } from '@/features/labs/current-lab';
 import { can } from '@/lib/policy';
+import { paths } from '@/lib/paths';
 
 const linkClasses = ({ isActive }: { isActive: boolean }) =>
   `rounded-md px-3 py-2 text-body transition-colors ${
@@ -22,25 +23,25 @@ export function RootLayout() {
   const queryClient = useQueryClient();
 
   const navigation = [
-    { to: '/', label: 'Overview', end: true },
-    ...(lab && can(lab.role, 'studies:view') ? [{ to: `/labs/${lab.labId}/studies`, label: 'Studies' }] : []),
-    ...(lab && can(lab.role, 'library:view') ? [{ to: `/labs/${lab.labId}/library`, label: 'Library' }] : []),
-    ...(lab && can(lab.role, 'members:view') ? [{ to: `/labs/${lab.labId}/members`, label: 'Members' }] : []),
-    ...(lab ? [{ to: `/labs/${lab.labId}/compare`, label: 'Compare' }] : []),
-    ...(lab ? [{ to: `/labs/${lab.labId}/scenarios`, label: 'Who quenches?' }] : []),
-    ...(lab ? [{ to: `/labs/${lab.labId}/planner`, label: 'Planner' }] : []),
+    { to: paths.overview(), label: 'Overview', end: true },
+    ...(lab && can(lab.role, 'studies:view') ? [{ to: paths.studies(lab.labId), label: 'Studies' }] : []),
+    ...(lab && can(lab.role, 'library:view') ? [{ to: paths.library(lab.labId), label: 'Library' }] : []),
+    ...(lab && can(lab.role, 'members:view') ? [{ to: paths.members(lab.labId), label: 'Members' }] : []),
+    ...(lab ? [{ to: paths.compare(lab.labId), label: 'Compare' }] : []),
+    ...(lab ? [{ to: paths.scenarios(lab.labId), label: 'Who quenches?' }] : []),
+    ...(lab ? [{ to: paths.planner(lab.labId), label: 'Planner' }] : []),
     ...(lab && session.mailCatcher && can(lab.role, 'mail:read')
-      ? [{ to: `/labs/${lab.labId}/mail`, label: 'Caught mail' }]
+      ? [{ to: paths.caughtMail(lab.labId), label: 'Caught mail' }]
       : []),
-    ...(lab && can(lab.role, 'settings:manage') ? [{ to: `/labs/${lab.labId}/settings`, label: 'Lab settings' }] : []),
-    { to: '/account', label: 'Account' },
+    ...(lab && can(lab.role, 'settings:manage') ? [{ to: paths.labSettings(lab.labId), label: 'Lab settings' }] : []),
+    { to: paths.account(), label: 'Account' },
   ];
 
   function leave() {
     signOut.mutate(undefined, {
       // Leave the signed-in screens before forgetting the person, so none renders without them.
       onSuccess: async () => {
-        await navigate('/sign-in', { replace: true });
+        await navigate(paths.signIn(), { replace: true });
         queryClient.clear();
       },
     });
@@ -49,7 +50,11 @@ export function RootLayout() {
   return (
     <div className="flex min-h-screen">
       <aside className="flex w-60 shrink-0 flex-col bg-ink-950 px-4 py-6 text-ink-100 print:hidden">
-        <NavLink to="/" className="mb-6 flex items-center gap-2.5 text-glow-400" aria-label="Halflight home">
+        <NavLink
+          to={paths.overview()}
+          className="mb-6 flex items-center gap-2.5 text-glow-400"
+          aria-label="Halflight home"
+        >
           <HalflightMark />
           <span className="text-title font-black tracking-tight text-paper-50">Halflight</span>
         </NavLink>

@@ -1,4 +1,5 @@
 import { isRouteErrorResponse, Link, useRouteError } from 'react-router-dom';
+import { paths } from '@/lib/paths';
 
 /** Shown by the router when a screen fails to render or load; the rest of the app stays usable. */
 export function RouteErrorScreen() {
@@ -21,7 +22,7 @@ export function RouteErrorScreen() {
         >
           Reload
         </button>
-        <Link to="/" className="rounded-md border border-ink-300 px-4 py-2 font-bold text-ink-800">
+        <Link to={paths.overview()} className="rounded-md border border-ink-300 px-4 py-2 font-bold text-ink-800">
           Overview
         </Link>
       </div>

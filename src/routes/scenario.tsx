@@ -15,12 +15,15 @@ import { toScenarioInput } from '@/features/scenarios/components/scenario-form-s
 import { ShareChart } from '@/features/scenarios/components/share-chart';
 import { ShareTable } from '@/features/scenarios/components/share-table';
 import { describeError } from '@/lib/form-errors';
+import { paths } from '@/lib/paths';
+import { useLab } from '@/routes/lab-context';
 
 const solventOptions = Object.values(SOLVENTS).map((solvent) => ({ value: solvent.id, label: solvent.name }));
 
 /** One reaction scenario: edit its components, read who intercepts the excited emitter. */
 export function ScenarioRoute() {
-  const { labId = '', scenarioId } = useParams();
+  const { labId } = useLab();
+  const { scenarioId } = useParams();
   const isNew = scenarioId === undefined || scenarioId === 'new';
   const navigate = useNavigate();
   const scenario = useScenario(labId, isNew ? undefined : scenarioId);
@@ -41,7 +44,7 @@ export function ScenarioRoute() {
   return (
     <div className="max-w-6xl space-y-6">
       <header>
-        <Link to={`/labs/${labId}/scenarios`} className="text-caption text-ink-500 underline">
+        <Link to={paths.scenarios(labId)} className="text-caption text-ink-500 underline">
           All scenarios
         </Link>
         <h1 className="text-display font-black text-ink-950">{data?.name ?? 'New reaction scenario'}</h1>
@@ -70,7 +73,7 @@ export function ScenarioRoute() {
               {item.compoundId && (
                 <Link
                   className="font-bold underline"
-                  to={`/labs/${labId}/studies/new?emitterId=${data.emitter.id}&quencherId=${item.compoundId}`}
+                  to={paths.newStudy(labId, { emitterId: data.emitter.id, quencherId: item.compoundId })}
                 >
                   Start the study that would supply it
                 </Link>
@@ -91,7 +94,7 @@ export function ScenarioRoute() {
           serverError={save.isError ? describeError(save.error) : undefined}
           onSave={(values) =>
             save.mutate(toScenarioInput(values, data?.version), {
-              onSuccess: (saved) => isNew && navigate(`/labs/${labId}/scenarios/${saved.id}`, { replace: true }),
+              onSuccess: (saved) => isNew && navigate(paths.scenario(labId, saved.id), { replace: true }),
             })
           }
         />
@@ -103,7 +106,7 @@ export function ScenarioRoute() {
               <Button
                 variant="danger"
                 pending={remove.isPending}
-                onClick={() => remove.mutate(data.id, { onSuccess: () => navigate(`/labs/${labId}/scenarios`) })}
+                onClick={() => remove.mutate(data.id, { onSuccess: () => navigate(paths.scenarios(labId)) })}
               >
                 Yes, delete it
               </Button>

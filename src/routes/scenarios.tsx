@@ -1,14 +1,16 @@
 import { useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { useScenarios } from '@/features/scenarios/api/get-scenarios';
 import { formatDate } from '@/lib/format-date';
+import { paths } from '@/lib/paths';
+import { useLab } from '@/routes/lab-context';
 
 /** The lab's reaction scenarios: real reactions whose components compete for the excited catalyst. */
 export function ScenariosRoute() {
-  const { labId = '' } = useParams();
+  const { labId } = useLab();
   const [page, setPage] = useState(1);
   const scenarios = useScenarios(labId, page);
   const pages = Math.max(1, Math.ceil((scenarios.data?.total ?? 0) / 25));
@@ -23,7 +25,7 @@ export function ScenariosRoute() {
           </p>
         </div>
         <Link
-          to={`/labs/${labId}/scenarios/new`}
+          to={paths.newScenario(labId)}
           className="shrink-0 rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300"
         >
           New scenario
@@ -39,7 +41,7 @@ export function ScenariosRoute() {
             {scenarios.data.items.map((item) => (
               <li key={item.id} className="flex items-baseline justify-between gap-4 py-2">
                 <Link
-                  to={`/labs/${labId}/scenarios/${item.id}`}
+                  to={paths.scenario(labId, item.id)}
                   className="font-bold text-ink-900 underline decoration-glow-400"
                 >
                   {item.name}

@@ -2,13 +2,14 @@ import { redirect } from 'react-router-dom';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { getSessionQueryOptions } from '@/features/auth/api/get-session';
 import { queryClient } from '@/lib/query-client';
+import { paths } from '@/lib/paths';
 
 /** Guards the signed-in area: loads the current person once, else sends them to sign in and back. */
 export async function requireSessionLoader({ request }: LoaderFunctionArgs) {
   const session = await queryClient.ensureQueryData(getSessionQueryOptions());
   if (!session) {
     const url = new URL(request.url);
-    throw redirect(`/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`);
+    throw redirect(paths.signIn(url.pathname + url.search));
   }
   return null;
 }

@@ -9,6 +9,7 @@ import { TextLink } from '@/components/text-link';
 import { useSignIn } from '@/features/auth/api/sign-in';
 import { showServerErrors } from '@/lib/form-errors';
 import { safeReturnAddress } from './session-loaders';
+import { paths } from '@/lib/paths';
 
 /** A message another screen leaves for this one, e.g. after a new password was set. */
 function noticeFrom(state: unknown): string | null {
@@ -62,7 +63,7 @@ export function SignInRoute() {
         </Button>
       </form>
       <p className="text-body text-ink-700">
-        Forgot it? <TextLink to="/forgot-password">Get a link to choose a new password</TextLink>
+        Forgot it? <TextLink to={paths.forgotPassword()}>Get a link to choose a new password</TextLink>
       </p>
     </div>
   );

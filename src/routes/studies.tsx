@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useSearchParams } from 'react-router-dom';
 import type { ListStudiesQuery } from '@shared/schemas/studies';
 import { studyStatuses } from '@shared/schemas/studies';
 import { EmptyState } from '@/components/empty-state';
@@ -8,13 +8,13 @@ import { Panel } from '@/components/panel';
 import { SelectField } from '@/components/select-field';
 import { Tag } from '@/components/tag';
 import { TextField } from '@/components/text-field';
-import { useSession } from '@/features/auth/api/get-session';
-import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { useStudies } from '@/features/studies/api/get-studies';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
 import { formatNumber, statusLabels } from '@/features/studies/components/format';
 import { StatusSignal } from '@/features/studies/components/status-signal';
+import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
+import { useLab } from '@/routes/lab-context';
 
 const FILTERS = [
   'emitterId',
@@ -31,9 +31,8 @@ const FILTERS = [
 
 /** The lab's studies, filtered, sorted and paged on the server; the filters live in the address. */
 export function StudiesRoute() {
-  const { labId = '' } = useParams();
-  const { user } = useSession();
-  const lab = user.labs.find((membership) => membership.labId === labId);
+  const lab = useLab();
+  const labId = lab.labId;
   const [params, setParams] = useSearchParams();
   const [text, setText] = useState(params.get('q') ?? '');
   const filters = Object.fromEntries(
@@ -41,7 +40,6 @@ export function StudiesRoute() {
   ) as Partial<ListStudiesQuery>;
   const studies = useStudies(labId, filters);
   const options = useStudyFormOptions(labId);
-  if (!lab) return <NotYourLab />;
   const set = (key: (typeof FILTERS)[number], value: string) => {
     const next = new URLSearchParams(params);
     if (value) next.set(key, value);
@@ -76,7 +74,7 @@ export function StudiesRoute() {
         </div>
         {can(lab.role, 'studies:write') && (
           <Link
-            to={`/labs/${labId}/studies/new`}
+            to={paths.newStudy(labId)}
             className="rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300"
           >
             New study
@@ -157,7 +155,7 @@ export function StudiesRoute() {
               {studies.data.items.map((study) => (
                 <tr key={study.id} className="border-t border-paper-200">
                   <td className="py-2">
-                    <Link className="font-bold text-ink-900 underline" to={`/labs/${labId}/studies/${study.id}`}>
+                    <Link className="font-bold text-ink-900 underline" to={paths.study(labId, study.id)}>
                       {study.title}
                     </Link>
                     {study.revision > 1 && <span className="text-caption text-ink-500"> rev. {study.revision}</span>}

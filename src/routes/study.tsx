@@ -7,7 +7,6 @@ import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
 import { Tag } from '@/components/tag';
 import { useSession } from '@/features/auth/api/get-session';
-import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { DrivingForcePanel } from '@/features/library/components/driving-force-panel';
 import { useStudy } from '@/features/studies/api/get-study';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
@@ -26,15 +25,17 @@ import { SternVolmerPlot } from '@/features/studies/components/stern-volmer-plot
 import { StudyForm } from '@/features/studies/components/study-form';
 import { UploadPanel } from '@/features/studies/components/upload-panel';
 import { describeError } from '@/lib/form-errors';
+import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
+import { useLab } from '@/routes/lab-context';
 
 /** One study: the plot and results up top, then the points, files, set-up, review and history. */
 export function StudyRoute() {
-  const { labId = '', studyId = '' } = useParams();
+  const { studyId = '' } = useParams();
+  const lab = useLab();
+  const labId = lab.labId;
   const { user } = useSession();
-  const lab = user.labs.find((membership) => membership.labId === labId);
   const study = useStudy(labId, studyId);
-  if (!lab) return <NotYourLab />;
   if (study.isError) return <ErrorNotice error={study.error} what="the study" />;
   if (!study.data) return <Signal tone="waiting">Loading the study</Signal>;
   const isOwner = study.data.ownerId === user.id;
@@ -78,7 +79,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
     <div className="max-w-6xl space-y-6">
       <header className="space-y-1">
         <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
-          <Link to={`/labs/${labId}/studies`} className="underline">
+          <Link to={paths.studies(labId)} className="underline">
             {labName} · Studies
           </Link>{' '}
           {isDemo && <Tag tone="demo">Demo</Tag>}
@@ -99,7 +100,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
         </p>
         {study.previousRevisionId && (
           <p className="text-caption">
-            <Link className="underline" to={`/labs/${labId}/studies/${study.previousRevisionId}`}>
+            <Link className="underline" to={paths.study(labId, study.previousRevisionId)}>
               Earlier revision
             </Link>
           </p>
@@ -107,7 +108,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
         {study.nextRevisionId && (
           <FormAlert tone="note">
             A newer revision exists:{' '}
-            <Link className="underline" to={`/labs/${labId}/studies/${study.nextRevisionId}`}>
+            <Link className="underline" to={paths.study(labId, study.nextRevisionId)}>
               open it
             </Link>
             . This one stays as it was.

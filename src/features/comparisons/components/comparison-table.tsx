@@ -1,6 +1,7 @@
 import { Link } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
 import { Signal } from '@/components/signal';
+import { paths } from '@/lib/paths';
 
 const sci = (value: number) => value.toExponential(2);
 
@@ -40,7 +41,7 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
             className={`border-b border-paper-200 tabular-nums ${row.status === 'approved' ? '' : 'text-ink-600'}`}
           >
             <th scope="row" className="py-1.5 pr-3 font-bold">
-              <Link to={`/labs/${labId}/studies/${row.studyId}`} className="underline decoration-glow-400">
+              <Link to={paths.study(labId, row.studyId)} className="underline decoration-glow-400">
                 {row.partner.name}
               </Link>
             </th>

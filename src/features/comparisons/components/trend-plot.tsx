@@ -2,6 +2,7 @@ import { Chart as ChartJS, Legend, LinearScale, LineElement, PointElement, Toolt
 import { Scatter } from 'react-chartjs-2';
 import { useNavigate } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
+import { paths } from '@/lib/paths';
 
 ChartJS.register(LinearScale, PointElement, LineElement, Tooltip, Legend);
 
@@ -70,7 +71,7 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
             const element = elements[0];
             const point =
               element && (chart.data.datasets[element.datasetIndex]?.data[element.index] as { studyId?: string });
-            if (point?.studyId) void navigate(`/labs/${labId}/studies/${point.studyId}`);
+            if (point?.studyId) void navigate(paths.study(labId, point.studyId));
           },
         }}
       />

@@ -5,6 +5,7 @@ import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { formatDateTime } from '@/lib/format-date';
 import { useDashboard } from '../api/get-dashboard';
+import { paths } from '@/lib/paths';
 
 function StudyList({ labId, studies, empty }: { labId: string; studies: DashboardStudy[]; empty: string }) {
   if (studies.length === 0) return <EmptyState title={empty} />;
@@ -12,10 +13,7 @@ function StudyList({ labId, studies, empty }: { labId: string; studies: Dashboar
     <ul className="divide-y divide-paper-200">
       {studies.map((study) => (
         <li key={study.id} className="py-1.5">
-          <Link
-            to={`/labs/${labId}/studies/${study.id}`}
-            className="font-bold text-ink-900 underline decoration-glow-400"
-          >
+          <Link to={paths.study(labId, study.id)} className="font-bold text-ink-900 underline decoration-glow-400">
             {study.title}
           </Link>
           <p className="text-caption text-ink-500">
@@ -60,7 +58,7 @@ export function LabDashboard({ labId, labName, canReview }: { labId: string; lab
                   <>
                     {' '}
                     ·{' '}
-                    <Link className="underline" to={`/labs/${labId}/studies/${event.targetId}`}>
+                    <Link className="underline" to={paths.study(labId, event.targetId)}>
                       open
                     </Link>
                   </>

@@ -4,6 +4,7 @@ import type { LabMembership } from '@shared/schemas/auth';
 import { can } from '@/lib/policy';
 import { roleLabels } from '@/lib/role-labels';
 import { rememberLab } from '../current-lab';
+import { labScreenOf, paths, routePatterns } from '@/lib/paths';
 
 interface LabSwitcherProps {
   labs: LabMembership[];
@@ -12,10 +13,11 @@ interface LabSwitcherProps {
 
 /** Where a lab-scoped address should go when the lab changes: the same screen, if the role allows it. */
 function addressInLab(pathname: string, lab: LabMembership): string | null {
-  const match = /^\/labs\/[^/]+\/([^/]+)/.exec(pathname);
-  if (!match) return null;
-  const screen = match[1] === 'mail' && !can(lab.role, 'mail:read') ? 'members' : match[1];
-  return `/labs/${lab.labId}/${screen}`;
+  const screen = labScreenOf(pathname);
+  if (!screen) return null;
+  return screen === routePatterns.caughtMail && !can(lab.role, 'mail:read')
+    ? paths.members(lab.labId)
+    : paths.labScreen(lab.labId, screen);
 }
 
 /** The rail's lab chooser: which lab the screens show, and the person's role in it. */

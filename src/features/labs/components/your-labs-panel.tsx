@@ -5,6 +5,7 @@ import { Panel } from '@/components/panel';
 import { Tag } from '@/components/tag';
 import { roleLabels } from '@/lib/role-labels';
 import { rememberLab } from '../current-lab';
+import { paths } from '@/lib/paths';
 
 /** Every lab the person belongs to, with their role in each. */
 export function YourLabsPanel({ labs }: { labs: LabMembership[] }) {
@@ -25,7 +26,7 @@ export function YourLabsPanel({ labs }: { labs: LabMembership[] }) {
               <span className="flex items-center gap-4">
                 <Tag>{roleLabels[lab.role]}</Tag>
                 <Link
-                  to={`/labs/${lab.labId}/members`}
+                  to={paths.members(lab.labId)}
                   onClick={() => rememberLab(lab.labId)}
                   className="text-body font-bold text-ink-600 underline decoration-glow-400 underline-offset-4 hover:text-ink-900"
                   aria-label={`Members of ${lab.labName}`}

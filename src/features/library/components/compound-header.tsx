@@ -10,6 +10,7 @@ import { useDeleteCompound } from '../api/delete-compound';
 import { useUpdateCompound } from '../api/update-compound';
 import { CompoundForm } from './compound-form';
 import { roleHintLabels } from './library-format';
+import { paths } from '@/lib/paths';
 
 interface CompoundHeaderProps {
   labId: string;
@@ -46,7 +47,7 @@ export function CompoundHeader({
   return (
     <header className="space-y-2">
       <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
-        <TextLink to={`/labs/${labId}/library`}>Library</TextLink> {labName} {isDemo && <Tag tone="demo">Demo</Tag>}
+        <TextLink to={paths.library(labId)}>Library</TextLink> {labName} {isDemo && <Tag tone="demo">Demo</Tag>}
       </p>
       <div className="flex flex-wrap items-center gap-3">
         <h1 className="text-display font-black text-ink-950">{compound.name}</h1>

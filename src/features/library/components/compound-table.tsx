@@ -3,6 +3,7 @@ import { EmptyState } from '@/components/empty-state';
 import { Tag } from '@/components/tag';
 import { TextLink } from '@/components/text-link';
 import { roleHintLabels } from './library-format';
+import { paths } from '@/lib/paths';
 
 /** One page of the library; each name opens the compound. */
 export function CompoundTable({
@@ -54,7 +55,7 @@ export function CompoundTable({
           {compounds.map((compound) => (
             <tr key={compound.id} className="border-t border-paper-200">
               <td className={cell}>
-                <TextLink to={`/labs/${labId}/library/${compound.id}`}>{compound.name}</TextLink>
+                <TextLink to={paths.compound(labId, compound.id)}>{compound.name}</TextLink>
               </td>
               <td className={cell}>
                 <Tag>{roleHintLabels[compound.roleHint]}</Tag>

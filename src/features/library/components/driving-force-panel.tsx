@@ -5,6 +5,7 @@ import { Signal } from '@/components/signal';
 import { TextLink } from '@/components/text-link';
 import { useDrivingForce } from '../api/get-driving-force';
 import { formatElectronvolts, formatKilojoules, formatVolts, solventName } from './library-format';
+import { paths } from '@/lib/paths';
 
 export interface DrivingForcePanelProps {
   labId: string;
@@ -159,7 +160,11 @@ function MissingList({ labId, missing }: { labId: string; missing: MissingInput[
         <li key={`${item.compoundId}-${item.quantity}`}>
           Missing: {item.message}.{' '}
           <TextLink
-            to={`/labs/${labId}/library/${item.compoundId}#add-${item.quantity === 'tripletEnergy' ? 'compound' : item.quantity === 'e00' ? 'e00' : 'potential'}`}
+            to={paths.compound(
+              labId,
+              item.compoundId,
+              `add-${item.quantity === 'tripletEnergy' ? 'compound' : item.quantity === 'e00' ? 'e00' : 'potential'}`,
+            )}
           >
             Add it
           </TextLink>

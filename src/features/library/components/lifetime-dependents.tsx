@@ -7,6 +7,7 @@ import { describeError } from '@/lib/form-errors';
 import { useLifetimeDependents } from '../api/get-lifetime-dependents';
 import { useRefitStudy } from '../api/refit-study';
 import { formatLifetime } from './library-format';
+import { paths } from '@/lib/paths';
 
 interface LifetimeDependentsProps {
   labId: string;
@@ -68,7 +69,7 @@ function DependentStudy({ labId, record, study, userId, onRefitted }: DependentS
   const tau0 = study.tau0 === null ? 'none' : formatLifetime(study.tau0);
   return (
     <li className="flex flex-wrap items-center gap-x-3 gap-y-1 py-2" aria-label={study.title}>
-      <TextLink to={`/labs/${labId}/studies/${study.studyId}`}>{study.title}</TextLink>
+      <TextLink to={paths.study(labId, study.studyId)}>{study.title}</TextLink>
       <span className="text-caption text-ink-600">
         {study.status}, τ0 {tau0}
         {study.ownerName ? `, owner ${study.ownerName}` : ''}

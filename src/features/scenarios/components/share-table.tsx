@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { Scenario } from '@shared/schemas/scenarios';
+import { paths } from '@/lib/paths';
 
 const percent = (fraction: number) => `${(fraction * 100).toFixed(fraction < 0.001 ? 3 : 1)} %`;
 const scientific = (value: number) => value.toExponential(2).replace('e+', ' × 10^');
@@ -42,7 +43,7 @@ export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: str
             </td>
             <td className="pr-3 text-caption">
               {share.kqSource?.kind === 'study' && (
-                <Link className="underline decoration-glow-400" to={`/labs/${labId}/studies/${share.kqSource.studyId}`}>
+                <Link className="underline decoration-glow-400" to={paths.study(labId, share.kqSource.studyId)}>
                   {share.kqSource.title} ({share.kqSource.status})
                 </Link>
               )}

@@ -9,6 +9,7 @@ import { useApproveStudy } from '../api/approve-study';
 import { useReturnStudy } from '../api/return-study';
 import { useStartRevision } from '../api/start-revision';
 import { useSubmitStudy } from '../api/submit-study';
+import { paths } from '@/lib/paths';
 
 const verbs = { submit: 'submitted', approve: 'approved', return: 'returned', comment: 'commented' } as const;
 
@@ -93,9 +94,7 @@ export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Prop
           <Button
             variant="quiet"
             pending={revision.isPending}
-            onClick={() =>
-              revision.mutate(undefined, { onSuccess: (next) => navigate(`/labs/${labId}/studies/${next.id}`) })
-            }
+            onClick={() => revision.mutate(undefined, { onSuccess: (next) => navigate(paths.study(labId, next.id)) })}
           >
             Start a new revision
           </Button>
