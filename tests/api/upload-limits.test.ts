@@ -108,7 +108,7 @@ describe('POST /api/labs/:labId/studies/:studyId/uploads with hostile files', ()
     expect(applied.status, JSON.stringify(applied.body).slice(0, 400)).toBe(200);
     expect(applied.body.points).toHaveLength(200);
     expect(applied.body.latestFit.kSv).toBeCloseTo(350, 0); // tests/bench/ingest-data.ts builds the spectra on K_SV = 350 M^-1
-  });
+  }, 120_000); // 20 MB read, applied and fitted: a few seconds on a quiet machine, much longer on a loaded one
 });
 
 describe('POST /api/labs/:labId/studies/:studyId/uploads after a failure', () => {
