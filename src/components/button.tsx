@@ -2,6 +2,9 @@ import type { ComponentPropsWithRef } from 'react';
 
 type Variant = 'primary' | 'quiet' | 'danger';
 
+const baseClasses =
+  'inline-flex items-center justify-center gap-2 rounded-md px-4 py-2 text-body font-bold transition-colors ' +
+  'disabled:cursor-not-allowed disabled:opacity-60';
 const variantClasses: Record<Variant, string> = {
   primary: 'bg-glow-400 text-ink-950 hover:bg-glow-300',
   quiet: 'border border-paper-300 bg-paper-50 text-ink-800 hover:border-ink-300',
@@ -31,7 +34,7 @@ export function Button({
       type={type}
       disabled={disabled || pending}
       aria-busy={pending || undefined}
-      className={`inline-flex items-center justify-center gap-2 rounded-md px-4 py-2 text-body font-bold transition-colors disabled:cursor-not-allowed disabled:opacity-60 ${variantClasses[variant]} ${className}`}
+      className={`${baseClasses} ${variantClasses[variant]} ${className}`}
       {...button}
     >
       {pending && (

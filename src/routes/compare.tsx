@@ -1,4 +1,5 @@
 import { useSearchParams } from 'react-router-dom';
+import type { Trend } from '@shared/schemas/comparisons';
 import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorNotice } from '@/components/error-notice';
@@ -19,6 +20,13 @@ const sorts = [
   { value: 'drivingForce', label: 'driving force, most downhill first' },
   { value: 'partner', label: 'name' },
 ];
+
+/** The Rehm–Weller/Marcus fit of one solvent in words: λ with its standard error, and how well it fits. */
+function describeTrendFit(fit: NonNullable<Trend['fit']>): string {
+  const lambda = `${fit.reorganisationEnergy.toFixed(2)} ± ${fit.reorganisationEnergyStandardError.toFixed(2)} eV`;
+  const quality = `k_d/KZ ${fit.kdOverKZ}, residual SD ${fit.residualStandardDeviation.toFixed(2)} in log kq`;
+  return `reorganisation energy λ = ${lambda} from ${fit.n} studies (${quality})`;
+}
 
 /** Compare quenchers for one emitter (or emitters for one quencher), in a table and against driving force. */
 export function CompareRoute() {
@@ -121,10 +129,7 @@ export function CompareRoute() {
             <ul className="mt-3 space-y-1 text-body text-ink-700">
               {comparison.data.trends.map((trend) => (
                 <li key={trend.solvent}>
-                  <strong>{trend.solvent}:</strong>{' '}
-                  {trend.fit
-                    ? `reorganisation energy λ = ${trend.fit.reorganisationEnergy.toFixed(2)} ± ${trend.fit.reorganisationEnergyStandardError.toFixed(2)} eV from ${trend.fit.n} studies (k_d/KZ ${trend.fit.kdOverKZ}, residual SD ${trend.fit.residualStandardDeviation.toFixed(2)} in log kq)`
-                    : `no fit: ${trend.note}`}
+                  <strong>{trend.solvent}:</strong> {trend.fit ? describeTrendFit(trend.fit) : `no fit: ${trend.note}`}
                 </li>
               ))}
             </ul>

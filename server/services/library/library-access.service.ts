@@ -34,7 +34,8 @@ export function assertVersion(record: { version: number }, sent: number | undefi
   if (sent === undefined || sent === record.version) return;
   throw new AppError(
     'stale_version',
-    `This ${what} was changed by someone else since you opened it (you have version ${sent}, the library has ${record.version}). Reload and apply your change again.`,
+    `This ${what} was changed by someone else since you opened it ` +
+      `(you have version ${sent}, the library has ${record.version}). Reload and apply your change again.`,
     409,
     [{ path: 'body.version', message: `is ${sent}; the current version is ${record.version}` }],
   );

@@ -132,10 +132,12 @@ export async function importLibraryCsv(
   const ids = new Map(compounds.map((compound) => [compound.name.toLowerCase(), compound.id]));
   const { problems, planned } = planImport(csv, ids);
   const counts = countsOf(planned);
-  if (problems.length && !dryRun) {
+  const [first] = problems;
+  if (first && !dryRun) {
     throw new AppError(
       'import_invalid',
-      `Nothing was saved: the file has ${problems.length} problem${problems.length === 1 ? '' : 's'}. First: row ${problems[0]!.row}, column ${problems[0]!.column || '(file)'}: ${problems[0]!.reason}.`,
+      `Nothing was saved: the file has ${problems.length} problem${problems.length === 1 ? '' : 's'}. ` +
+        `First: row ${first.row}, column ${first.column || '(file)'}: ${first.reason}.`,
       400,
       problems.map((problem) => ({ path: `csv.row${problem.row}.${problem.column}`, message: problem.reason })),
     );

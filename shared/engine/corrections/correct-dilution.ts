@@ -27,7 +27,9 @@ export interface DilutionCorrectedPoint {
  * @param input.intensities - optional observed intensities, one per reading
  * @param input.stockContainsEmitter - default false
  * @throws EngineError NON_POSITIVE_VALUE, NEGATIVE_VALUE, NON_FINITE_VALUE, LENGTH_MISMATCH
- * @example correctDilution({ initialVolume: 2e-3, stockConcentration: 0.1, cumulativeAddedVolumes: [0, 2e-5], intensities: [100, 90] })[1] // { concentration: 0.000990..., dilutionFactor: 1.01, correctedIntensity: 90.9 }
+ * @example
+ * correctDilution({ initialVolume: 2e-3, stockConcentration: 0.1, cumulativeAddedVolumes: [0, 2e-5], intensities: [100, 90] })[1]
+ * // { concentration: 0.000990..., dilutionFactor: 1.01, correctedIntensity: 90.9 }
  */
 export function correctDilution(input: {
   initialVolume: number;

@@ -57,7 +57,8 @@ export function convertPotential(input: {
     warnings.push({
       code: 'JUNCTION_POTENTIAL',
       message:
-        'This conversion links an aqueous reference to one in an organic solvent; the constant includes a liquid-junction potential that is not known exactly, so expect errors of a few tens of millivolts.',
+        'This conversion links an aqueous reference to one in an organic solvent; the constant includes a ' +
+        'liquid-junction potential that is not known exactly, so expect errors of a few tens of millivolts.',
     });
   }
   if (nonAqueousSolvent && isAqueousReference(to)) {

@@ -42,7 +42,9 @@ export const DILUTION_WARNING = 0.1;
  * @param input.volumeStep - optional pipette resolution, L (> 0)
  * @param input.stockContainsEmitter - default false
  * @throws EngineError TARGET_UNREACHABLE (target >= stock), INVALID_ARGUMENT (no or decreasing targets), NON_POSITIVE_VALUE
- * @example planTitration({ initialVolume: 2e-3, emitterConcentration: 1e-5, stockConcentration: 0.1, targets: [1e-3] }).steps[0].additionMicrolitres // 20.2020...
+ * @example
+ * planTitration({ initialVolume: 2e-3, emitterConcentration: 1e-5, stockConcentration: 0.1, targets: [1e-3] })
+ *   .steps[0].additionMicrolitres // 20.2020...
  */
 export function planTitration(input: {
   initialVolume: number;
