@@ -89,7 +89,12 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   app.disable('x-powered-by');
   if (secure) app.set('trust proxy', 1);
 
-  const session = createSessionMiddleware({ databaseUrl: options.databaseUrl, secret: options.sessionSecret, secure });
+  const session = createSessionMiddleware({
+    databaseUrl: options.databaseUrl,
+    secret: options.sessionSecret,
+    secure,
+    logger: options.logger,
+  });
   const passport = createPassport();
   const csrf = csrfProtection(options.sessionSecret, secure);
   const limiters = createRateLimiters({ ...defaultRateLimits, ...options.rateLimits });

@@ -18,12 +18,15 @@ export interface EmbeddedPostgres {
   url: string;
   port: number;
   dataRoot: string;
+  /** The cluster's data folder and the server binaries that run it (for pg_ctl, pg_dump). */
+  pgdata: string;
+  binDir: string;
   stop(): Promise<void>;
 }
 
 const superuser = 'halflight';
 
-interface CommandResult {
+export interface CommandResult {
   code: number;
   output: string;
 }
@@ -33,7 +36,7 @@ interface CommandResult {
  * Detached into its own session so that a Ctrl-C in the terminal reaches only Node, which then
  * stops the database in order.
  */
-function runPg(binDir: string, tool: string, args: string[]): Promise<CommandResult> {
+export function runPg(binDir: string, tool: string, args: string[]): Promise<CommandResult> {
   const binary = path.join(binDir, tool);
   const [command, commandArgs] = isRoot() ? ['runuser', ['-u', 'postgres', '--', binary, ...args]] : [binary, args];
   return new Promise((resolve, reject) => {
@@ -100,6 +103,7 @@ async function initCluster(binDir: string, dataRoot: string, pgdata: string): Pr
 
 async function ensureDatabase(adminUrl: string, database: string): Promise<void> {
   const client = new pg.Client({ connectionString: adminUrl });
+  client.on('error', () => {}); // a lost connection also fails the query below, which reports it
   await client.connect();
   try {
     const found = await client.query('SELECT 1 FROM pg_database WHERE datname = $1', [database]);
@@ -160,6 +164,8 @@ export async function startEmbeddedPostgres(options: EmbeddedPostgresOptions): P
       url: `${base}/${database}`,
       port: options.port,
       dataRoot,
+      pgdata,
+      binDir,
       async stop() {
         if (stopped) return;
         stopped = true;

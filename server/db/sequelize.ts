@@ -9,7 +9,10 @@ export function createSequelize(databaseUrl: string): Sequelize {
     dialect: 'postgres',
     dialectModule: pg,
     logging: false,
-    pool: { max: 10, min: 0, idle: 10_000 },
+    // Connections cut by a restart are dropped by Sequelize's own 'error' listener and replaced on
+    // the next acquire; the timeouts keep requests from hanging while the server is unreachable.
+    pool: { max: 10, min: 0, idle: 10_000, acquire: 20_000 },
+    dialectOptions: { connectionTimeoutMillis: 10_000, keepAlive: true },
     define: { underscored: true },
   });
 }

@@ -3,6 +3,7 @@ import { BaseError, UniqueConstraintError, ValidationError as SequelizeValidatio
 import { ZodError } from 'zod';
 import { EngineError } from '@shared/engine';
 import type { ApiErrorBody } from '@shared/schemas/error';
+import { databaseRetryAfterSeconds, isDatabaseUnavailable } from '../db/unavailable';
 import { AppError } from '../lib/app-error';
 
 interface HttpishError {
@@ -69,6 +70,19 @@ function toAppError(error: unknown): AppError | null {
 /** The one error middleware: maps known errors to the API shape, logs the rest once, hides stacks. */
 export const errorHandler: ErrorRequestHandler = (error, req, res, next) => {
   if (res.headersSent) return next(error);
+  if (isDatabaseUnavailable(error)) {
+    // A restart or a cut connection: the pools reconnect by themselves, so the client may retry.
+    req.log?.warn({ err: error as Error }, 'database unavailable');
+    res.setHeader('Retry-After', String(databaseRetryAfterSeconds));
+    const body: ApiErrorBody = {
+      error: {
+        code: 'database_unavailable',
+        message: 'The database cannot be reached at the moment. Try again in a few seconds.',
+      },
+    };
+    res.status(503).json(body);
+    return;
+  }
   const known = toAppError(error);
   if (known) {
     const body: ApiErrorBody = { error: { code: known.code, message: known.message } };

@@ -16,7 +16,7 @@ export const systemRoutes = [
     },
     handler: async ({ req, res }) => {
       const { sequelize, embeddedDatabase } = req.app.locals.services;
-      const health = await checkHealth(sequelize, embeddedDatabase);
+      const health = await checkHealth(sequelize, embeddedDatabase, req.log);
       res.status(health.database.status === 'up' ? 200 : 503).json(health);
     },
   }),

@@ -58,6 +58,9 @@ export async function changePassword(
       { path: 'body.currentPassword', message: 'is not right' },
     ]);
   }
-  await user.update({ passwordHash: await hashPassword(input.newPassword) });
-  await recordAudit(actor, { action: 'password_changed', targetType: 'user', targetId: userId });
+  const passwordHash = await hashPassword(input.newPassword);
+  await User.sequelize!.transaction(async (transaction) => {
+    await user.update({ passwordHash }, { transaction });
+    await recordAudit(actor, { action: 'password_changed', targetType: 'user', targetId: userId }, transaction);
+  });
 }

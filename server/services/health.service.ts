@@ -1,12 +1,14 @@
 import { QueryTypes } from 'sequelize';
+import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
 import type { Health } from '@shared/schemas/health';
+import { isDatabaseUnavailable } from '../db/unavailable';
 import { appVersion } from '../lib/version';
 
 const startedAt = Date.now();
 
 /** A real round trip to PostgreSQL: its version and the count of applied migrations. */
-export async function checkHealth(sequelize: Sequelize, embedded: boolean): Promise<Health> {
+export async function checkHealth(sequelize: Sequelize, embedded: boolean, logger?: Logger): Promise<Health> {
   const base = {
     version: appVersion,
     uptimeSeconds: Math.round((Date.now() - startedAt) / 1000),
@@ -31,6 +33,7 @@ export async function checkHealth(sequelize: Sequelize, embedded: boolean): Prom
       },
     };
   } catch (error) {
+    if (!isDatabaseUnavailable(error)) logger?.error({ err: error }, 'health check query failed');
     return {
       ...base,
       status: 'degraded',
@@ -40,7 +43,10 @@ export async function checkHealth(sequelize: Sequelize, embedded: boolean): Prom
         serverVersion: null,
         embedded,
         migrationsApplied: null,
-        message: (error as Error).message,
+        // A public route: say what kind of failure, not the address or the driver's words.
+        message: isDatabaseUnavailable(error)
+          ? 'The database cannot be reached; Halflight reconnects by itself when it is back.'
+          : 'The database answered the check with an error; see the server log.',
       },
     };
   }

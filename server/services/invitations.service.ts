@@ -169,12 +169,18 @@ export async function revokeInvitation(lab: LabContext, invitationId: string, ac
     where: { id: invitationId, labId: lab.id, acceptedAt: null, revokedAt: null },
   });
   if (!invitation) throw new AppError('not_found', 'No open invitation with this id in this lab.', 404);
-  await invitation.update({ revokedAt: new Date() });
-  await recordAudit(actor, {
-    action: 'invitation_revoked',
-    labId: lab.id,
-    targetType: 'invitation',
-    targetId: invitation.id,
-    details: { email: invitation.email },
+  await Invitation.sequelize!.transaction(async (transaction) => {
+    await invitation.update({ revokedAt: new Date() }, { transaction });
+    await recordAudit(
+      actor,
+      {
+        action: 'invitation_revoked',
+        labId: lab.id,
+        targetType: 'invitation',
+        targetId: invitation.id,
+        details: { email: invitation.email },
+      },
+      transaction,
+    );
   });
 }

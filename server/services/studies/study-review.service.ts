@@ -76,13 +76,17 @@ export async function reviewStep(
 /** Any member who can write (researcher and up) may add to the comment thread. */
 export async function addComment(lab: LabContext, studyId: string, comment: string, actor: SignedInActor) {
   const study = await loadStudy(lab, studyId);
-  await StudyReview.create({ studyId: study.id, authorId: actor.userId, action: 'comment', comment });
-  await recordAudit(actor, {
-    action: 'study_commented',
-    labId: lab.id,
-    targetType: 'study',
-    targetId: study.id,
-    details: { comment },
+  // The comment and its audit row are kept together or not at all.
+  await StudyReview.sequelize!.transaction(async (transaction) => {
+    await StudyReview.create(
+      { studyId: study.id, authorId: actor.userId, action: 'comment', comment },
+      { transaction },
+    );
+    await recordAudit(
+      actor,
+      { action: 'study_commented', labId: lab.id, targetType: 'study', targetId: study.id, details: { comment } },
+      transaction,
+    );
   });
   return getStudyDetail(lab, studyId);
 }
