@@ -19,7 +19,8 @@ export default defineConfig({
     port: 5173,
     proxy: { '/api': `http://127.0.0.1:${apiPort}` },
   },
-  build: { outDir: 'dist', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
+  // The client goes to dist/client; the compiled server to dist/server (.config/build-server.mjs).
+  build: { outDir: 'dist/client', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
   test: {
     reporters: ['default', './tests/support/plain-summary-reporter.ts'],
     projects: [

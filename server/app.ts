@@ -61,7 +61,7 @@ export interface CreateAppOptions {
   /** Behind a TLS-terminating proxy: secure cookies, HSTS, trust X-Forwarded-*. */
   behindTls?: boolean;
   rateLimits?: Partial<Record<RateLimitName, RateLimitSettings>>;
-  /** Folder of the built client; defaults to dist/ in the project. */
+  /** Folder of the built client; defaults to dist/client/ in the project. */
   clientDir?: string;
   routes?: AnyRouteSpec[];
   /** Tighter (or looser) limits for reading uploaded files; the defaults suit real instrument files. */
@@ -137,7 +137,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   }
   app.use('/api', apiNotFound);
 
-  const clientDir = options.clientDir ?? path.join(projectRoot, 'dist');
+  const clientDir = options.clientDir ?? path.join(projectRoot, 'dist', 'client');
   const indexHtml = path.join(clientDir, 'index.html');
   app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
   // Client-side routes (anything not under /api) get the single-page app.

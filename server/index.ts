@@ -1,112 +1,53 @@
-import type { Server } from 'node:http';
 import { pino } from 'pino';
-import { createApp } from './app';
-import type { HalflightApp } from './app';
+import { startDatabase, prepareSchema } from './boot/database';
+import type { DatabaseHandle } from './boot/database';
+import { stopOnSignals } from './boot/signals';
+import { startWeb } from './boot/web';
 import { loadConfig } from './config/env';
-import { startEmbeddedPostgres } from './db/embedded-postgres';
-import type { EmbeddedPostgres } from './db/embedded-postgres';
-import { migrateToLatest } from './db/migrator';
 import { createSequelize } from './db/sequelize';
-import { resolveSessionSecret } from './lib/session-secret';
-import { startMailCatcher } from './mail/catcher';
-import type { MailCatcher } from './mail/catcher';
-import { createMailer } from './mail/mailer';
-import type { Mailer } from './mail/mailer';
 import { initModels } from './models';
-import { seedDemoData } from './seed/demo';
-import { ensureFirstAdmin } from './services/first-admin.service';
 
+/**
+ * Boot: the database (the built-in cluster unless DATABASE_URL is set), migrations and demo data
+ * under the migration lock, then the web server. Production runs this compiled
+ * (dist/server/index.js) under plain node; Ctrl-C or SIGTERM stops it in reverse order, once.
+ */
 const config = loadConfig();
 const logger = pino({
   level: config.LOG_LEVEL,
   transport: process.stdout.isTTY ? { target: 'pino-pretty', options: { ignore: 'pid,hostname' } } : undefined,
 });
 
-let database: EmbeddedPostgres | undefined;
+// Kept as promises so that a signal during start waits for a cluster still starting, then stops it.
+let databaseStarting: Promise<DatabaseHandle> | undefined;
+let webStarting: Promise<Awaited<ReturnType<typeof startWeb>>> | undefined;
 let sequelize: ReturnType<typeof createSequelize> | undefined;
-let catcher: MailCatcher | undefined;
-let mailer: Mailer | undefined;
-let app: HalflightApp | undefined;
-let server: Server | undefined;
-let stopping = false;
 
-/** Stops everything that started, in reverse order, then exits. */
-async function stop(exitCode: number): Promise<never> {
-  if (!stopping) {
-    stopping = true;
-    await new Promise<void>((resolve) => (server ? server.close(() => resolve()) : resolve()));
-    server?.closeAllConnections();
-    await app?.closeResources().catch(() => {});
-    mailer?.close();
-    await catcher?.stop();
-    await sequelize?.close().catch(() => {});
-    if (database) {
-      logger.info('Stopping the embedded PostgreSQL cluster ...');
-      await database.stop();
-    }
-    logger.info('Halflight stopped.');
-  }
-  process.exit(exitCode);
-}
+const stop = stopOnSignals(async () => {
+  const web = await webStarting?.catch(() => undefined);
+  await web?.stop().catch((error: unknown) => logger.error({ err: error }, 'web server did not close cleanly'));
+  await sequelize?.close().catch(() => {});
+  const database = await databaseStarting?.catch(() => undefined);
+  await database?.stop();
+  logger.info('Halflight stopped.');
+}, logger);
 
 async function main(): Promise<void> {
-  if (!config.DATABASE_URL) {
-    database = await startEmbeddedPostgres({
-      dataRoot: config.HALFLIGHT_DATA_DIR,
-      port: config.HALFLIGHT_PG_PORT,
-      log: (line) => logger.info(line),
-    });
-    logger.info(`Embedded PostgreSQL is up on 127.0.0.1:${database.port} (data in ${database.dataRoot}).`);
-  }
-  const databaseUrl = config.DATABASE_URL ?? database!.url;
-  sequelize = createSequelize(databaseUrl);
-  await sequelize.authenticate();
-  const applied = await migrateToLatest(sequelize);
-  if (applied.length) logger.info(`Applied migrations: ${applied.join(', ')}`);
+  databaseStarting = startDatabase(config, logger);
+  const database = await databaseStarting;
+  sequelize = createSequelize(database.url);
   initModels(sequelize);
-
-  if (config.demoData && (await seedDemoData(sequelize)).created) {
-    logger.info('Loaded the invented demo scenario (demo data only; sign-ins in README.md).');
-  }
-  const { HALFLIGHT_FIRST_ADMIN_EMAIL: email, HALFLIGHT_FIRST_ADMIN_PASSWORD: password } = config;
-  if (email && password) {
-    const labName = config.HALFLIGHT_FIRST_LAB_NAME ?? 'My lab';
-    if ((await ensureFirstAdmin(sequelize, { email, password, labName })).created) {
-      logger.info(`Created the first admin ${email} of "${labName}".`);
-    }
-  }
-
-  if (config.SMTP_URL) {
-    mailer = createMailer(config.SMTP_URL, config.MAIL_FROM);
-  } else {
-    catcher = await startMailCatcher();
-    mailer = createMailer(catcher.url, config.MAIL_FROM, { tagForCatcher: true });
-    logger.info(`No SMTP_URL: outgoing mail is caught on 127.0.0.1:${catcher.port}; admins read it in the app.`);
-  }
-
-  app = createApp({
+  await prepareSchema(sequelize, config, logger);
+  webStarting = startWeb({
+    config,
     sequelize,
-    embeddedDatabase: database !== undefined,
+    databaseUrl: database.url,
+    embeddedDatabase: database.embedded,
     logger,
-    databaseUrl,
-    sessionSecret: resolveSessionSecret(config.SESSION_SECRET, config.HALFLIGHT_DATA_DIR),
-    mailer,
-    mailCatcher: catcher !== undefined,
-    publicUrl: config.publicUrl,
-    behindTls: config.HALFLIGHT_BEHIND_TLS,
-    jobWorker: config.HALFLIGHT_JOB_WORKER,
   });
-  await app.startJobs();
-  server = app.listen(config.PORT, config.HOST);
-  await new Promise<void>((resolve, reject) => {
-    server!.once('listening', resolve);
-    server!.once('error', reject);
-  });
+  await webStarting;
   console.log(`\n  Halflight is ready: open ${config.publicUrl}\n  Press Ctrl-C to stop.\n`);
 }
-
-process.on('SIGINT', () => void stop(0));
-process.on('SIGTERM', () => void stop(0));
 
 main().catch(async (error: NodeJS.ErrnoException) => {
   if (error.code === 'EADDRINUSE') {

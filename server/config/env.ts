@@ -1,8 +1,17 @@
+import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
 
-export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+/** The folder holding package.json: found upwards, so it is the same from server/ and dist/server/. */
+function findProjectRoot(start: string): string {
+  for (let dir = start; ; dir = path.dirname(dir)) {
+    if (fs.existsSync(path.join(dir, 'package.json'))) return dir;
+    if (dir === path.dirname(dir)) throw new Error(`No package.json above ${start}.`);
+  }
+}
+
+export const projectRoot = findProjectRoot(path.dirname(fileURLToPath(import.meta.url)));
 
 const booleanFlag = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'])

@@ -7,7 +7,7 @@ import { freePort } from './free-port';
 
 /** The real server with the built client, listening on a free loopback port, for browser tests. */
 export async function startLiveServer() {
-  if (!fs.existsSync(path.join(projectRoot, 'dist', 'index.html'))) {
+  if (!fs.existsSync(path.join(projectRoot, 'dist', 'client', 'index.html'))) {
     throw new Error('The client is not built: run "npm run build" (npm test does this first).');
   }
   const port = await freePort();

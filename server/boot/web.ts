@@ -1,0 +1,75 @@
+import type { Server } from 'node:http';
+import { setTimeout as sleep } from 'node:timers/promises';
+import type { Logger } from 'pino';
+import type { Sequelize } from 'sequelize';
+import { createApp } from '../app';
+import type { AppConfig } from '../config/env';
+import { resolveSessionSecret } from '../lib/session-secret';
+import { startMailCatcher } from '../mail/catcher';
+import type { MailCatcher } from '../mail/catcher';
+import { createMailer } from '../mail/mailer';
+
+/** How long requests in progress may take to finish once stopping has begun. */
+const drainMs = 10_000;
+
+/**
+ * The web server of one process: mail, the job queue, the Express app and the listener. `stop`
+ * stops taking connections, lets requests in progress finish (at most 10 s) and closes what it
+ * opened (the job worker gets its own 10 s to finish a running job).
+ */
+export async function startWeb(options: {
+  config: AppConfig;
+  sequelize: Sequelize;
+  databaseUrl: string;
+  embeddedDatabase: boolean;
+  logger: Logger;
+}): Promise<{ stop(): Promise<void> }> {
+  const { config, logger } = options;
+  let catcher: MailCatcher | undefined;
+  if (!config.SMTP_URL) {
+    catcher = await startMailCatcher();
+    logger.info(`No SMTP_URL: outgoing mail is caught on 127.0.0.1:${catcher.port}; admins read it in the app.`);
+  }
+  const mailer = config.SMTP_URL
+    ? createMailer(config.SMTP_URL, config.MAIL_FROM)
+    : createMailer(catcher!.url, config.MAIL_FROM, { tagForCatcher: true });
+  const app = createApp({
+    sequelize: options.sequelize,
+    embeddedDatabase: options.embeddedDatabase,
+    logger,
+    databaseUrl: options.databaseUrl,
+    sessionSecret: resolveSessionSecret(config.SESSION_SECRET, config.HALFLIGHT_DATA_DIR),
+    mailer,
+    mailCatcher: catcher !== undefined,
+    publicUrl: config.publicUrl,
+    behindTls: config.HALFLIGHT_BEHIND_TLS,
+    jobWorker: config.HALFLIGHT_JOB_WORKER,
+  });
+  let server: Server | undefined;
+  const closeRest = async () => {
+    await app.closeResources().catch(() => {});
+    mailer.close();
+    await catcher?.stop();
+  };
+  try {
+    await app.startJobs();
+    server = app.listen(config.PORT, config.HOST);
+    await new Promise<void>((resolve, reject) => {
+      server!.once('listening', resolve);
+      server!.once('error', reject);
+    });
+  } catch (error) {
+    await closeRest();
+    throw error;
+  }
+  const listening = server;
+  return {
+    async stop() {
+      const closed = new Promise<void>((resolve) => listening.close(() => resolve()));
+      listening.closeIdleConnections();
+      await Promise.race([closed, sleep(drainMs)]);
+      listening.closeAllConnections();
+      await closeRest();
+    },
+  };
+}

@@ -1,0 +1,57 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { setTimeout as sleep } from 'node:timers/promises';
+import { afterAll, describe, expect, it } from 'vitest';
+import { freePort } from '../support/free-port';
+import { postgresProcessesOf, startServerProcess } from '../support/server-process';
+
+const folders: string[] = [];
+afterAll(() => folders.forEach((folder) => fs.rmSync(folder, { recursive: true, force: true })));
+
+/** A fresh data folder and free ports: the production server with its own built-in cluster. */
+async function startWithOwnCluster() {
+  const dataRoot = fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-start-'));
+  folders.push(dataRoot);
+  const server = await startServerProcess({
+    HALFLIGHT_DATA_DIR: dataRoot,
+    HALFLIGHT_PG_PORT: String(await freePort()),
+    HALFLIGHT_DEMO_DATA: 'false',
+  });
+  return { server, dataRoot, pgdata: path.join(dataRoot, 'pgdata') };
+}
+
+async function expectStoppedCleanly(started: Awaited<ReturnType<typeof startWithOwnCluster>>) {
+  const { server, dataRoot, pgdata } = started;
+  expect(await server.waitForExit()).toBe(0);
+  expect(server.output()).toContain('Halflight stopped.');
+  expect(postgresProcessesOf(pgdata)).toEqual([]);
+  expect(fs.existsSync(path.join(pgdata, 'postmaster.pid'))).toBe(false);
+  expect(fs.existsSync(path.join(dataRoot, 'halflight.lock'))).toBe(false);
+}
+
+describe('npm start (compiled server under plain node)', () => {
+  it('when Ctrl-C comes twice within a second, then it stops once, in order, and no PostgreSQL process is left', async () => {
+    const started = await startWithOwnCluster();
+    await started.server.waitForHealthy();
+    expect(postgresProcessesOf(started.pgdata)).toHaveLength(1);
+    // The serving process is node itself running JavaScript: no TypeScript loader in between.
+    const commandLine = fs.readFileSync(`/proc/${started.server.child.pid}/cmdline`, 'utf8').split('\0');
+    expect(commandLine.slice(0, 2)).toEqual([process.execPath, expect.stringMatching(/dist\/server\/index\.js$/)]);
+
+    started.server.kill('SIGINT');
+    await sleep(300);
+    started.server.kill('SIGINT');
+    await expectStoppedCleanly(started);
+    expect(started.server.output()).toContain('SIGINT again: already stopping');
+  });
+
+  it('when SIGTERM arrives twice while it is still starting, then the cluster it started is stopped too', async () => {
+    const started = await startWithOwnCluster();
+    await started.server.waitForOutput('Initialising a new PostgreSQL cluster');
+    started.server.kill('SIGTERM');
+    await sleep(200);
+    started.server.kill('SIGTERM');
+    await expectStoppedCleanly(started);
+  });
+});
