@@ -3,6 +3,7 @@ import { setTimeout as sleep } from 'node:timers/promises';
 import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '../app';
+import { withSchemaLock } from '../db/migrator';
 import type { AppConfig } from '../config/env';
 import { resolveSessionSecret } from '../lib/session-secret';
 import { startMailCatcher } from '../mail/catcher';
@@ -52,7 +53,8 @@ export async function startWeb(options: {
     await catcher?.stop();
   };
   try {
-    await app.startJobs();
+    // The job queue creates its own tables on first start; instances take turns, as for migrations.
+    await withSchemaLock(options.sequelize, () => app.startJobs());
     server = app.listen(config.PORT, config.HOST);
     await new Promise<void>((resolve, reject) => {
       server!.once('listening', resolve);

@@ -66,20 +66,16 @@ async function backendPid(connection: Sequelize): Promise<number> {
   return row!.pid;
 }
 
-export interface MigrateOptions {
-  /** Called when the lock is taken but another instance holds it: we wait for it. */
-  onWait?: () => void;
-  /** Runs after the migrations while the lock is still held (demo data, first admin). */
-  whileLocked?: () => Promise<void>;
-}
-
 /**
- * Applies every pending migration under a PostgreSQL advisory lock, each migration in its own
- * transaction with its schema_migrations row (DDL is transactional in PostgreSQL). A second
- * instance starting at the same moment waits for the lock and then finds nothing to do; a start
- * killed mid-migration leaves that migration rolled back, so the next start applies it cleanly.
+ * Runs `work` on a connection of its own while holding the schema lock (a session-level
+ * PostgreSQL advisory lock), so that instances starting together take turns at changing the
+ * schema. `onWait` is called when another instance holds it and we wait.
  */
-export async function migrateToLatest(sequelize: Sequelize, options: MigrateOptions = {}): Promise<string[]> {
+export async function withSchemaLock<T>(
+  sequelize: Sequelize,
+  work: (connection: Sequelize, lockedPid: number) => Promise<T>,
+  onWait?: () => void,
+): Promise<T> {
   const connection = singleConnection(sequelize);
   try {
     const lockedPid = await backendPid(connection);
@@ -88,29 +84,54 @@ export async function migrateToLatest(sequelize: Sequelize, options: MigrateOpti
       type: QueryTypes.SELECT,
     });
     if (!tried!.locked) {
-      options.onWait?.();
+      onWait?.();
       await connection.query('SELECT pg_advisory_lock(?)', { replacements: [migrationLockKey] });
     }
-    const migrator = createMigrator(connection);
-    migrator.on('migrating', async () => {
-      // The pool replaced a lost connection: the lock went with it, so stop rather than go on unlocked.
-      if ((await backendPid(connection)) !== lockedPid) throw new Error('Lost the migration lock connection.');
-      await connection.query('BEGIN');
-    });
-    migrator.on('migrated', async () => {
-      await connection.query('COMMIT');
-    });
-    let applied: string[];
-    try {
-      applied = (await migrator.up()).map((migration) => migration.name);
-    } catch (error) {
-      await connection.query('ROLLBACK').catch(() => {});
-      throw error;
-    }
-    await options.whileLocked?.();
+    const result = await work(connection, lockedPid);
     await connection.query('SELECT pg_advisory_unlock(?)', { replacements: [migrationLockKey] });
-    return applied;
+    return result;
   } finally {
+    // Closing the connection also releases the lock when `work` failed.
     await connection.close();
   }
+}
+
+export interface MigrateOptions {
+  /** Called when another instance holds the lock and we wait for it. */
+  onWait?: () => void;
+  /** Runs after the migrations while the lock is still held (demo data, first admin). */
+  whileLocked?: () => Promise<void>;
+}
+
+/**
+ * Applies every pending migration under the schema lock, each migration in its own transaction
+ * with its schema_migrations row (DDL is transactional in PostgreSQL). A second instance
+ * starting at the same moment waits for the lock and then finds nothing to do; a start killed
+ * mid-migration leaves that migration rolled back, so the next start applies it cleanly.
+ */
+export async function migrateToLatest(sequelize: Sequelize, options: MigrateOptions = {}): Promise<string[]> {
+  return withSchemaLock(
+    sequelize,
+    async (connection, lockedPid) => {
+      const migrator = createMigrator(connection);
+      migrator.on('migrating', async () => {
+        // The pool replaced a lost connection: the lock went with it, so stop rather than go on unlocked.
+        if ((await backendPid(connection)) !== lockedPid) throw new Error('Lost the migration lock connection.');
+        await connection.query('BEGIN');
+      });
+      migrator.on('migrated', async () => {
+        await connection.query('COMMIT');
+      });
+      let applied: string[];
+      try {
+        applied = (await migrator.up()).map((migration) => migration.name);
+      } catch (error) {
+        await connection.query('ROLLBACK').catch(() => {});
+        throw error;
+      }
+      await options.whileLocked?.();
+      return applied;
+    },
+    options.onWait,
+  );
 }

@@ -34,7 +34,7 @@ describe('acquireFolderLock', () => {
     await new Promise((resolve) => gone.on('exit', resolve));
     fs.writeFileSync(lockFile, String(gone.pid));
     const lock = acquireFolderLock(lockFile);
-    expect(fs.readFileSync(lockFile, 'utf8')).toBe(String(process.pid));
+    expect(JSON.parse(fs.readFileSync(lockFile, 'utf8'))).toMatchObject({ pid: process.pid });
     lock.release();
     expect(fs.existsSync(lockFile)).toBe(false);
   });
