@@ -2,7 +2,8 @@
 // Compiles the server to plain JavaScript in dist/server/ so production runs under `node` alone
 // (no TypeScript loader in the serving path). Each entry is bundled on its own with our code
 // inlined and every npm package left as an import; migrations stay one file each, because the
-// migrator finds them by listing the folder.
+// migrator finds them by listing the folder, and each worker-thread entry (*.worker.ts) is
+// compiled to its source path under dist/server, where its loader looks for it.
 import fs from 'node:fs';
 import path from 'node:path';
 import { build } from 'esbuild';
@@ -12,12 +13,16 @@ const migrations = fs
   .readdirSync(path.join(root, 'server/migrations'))
   .filter((file) => file.endsWith('.ts') && !file.endsWith('.d.ts'))
   .map((file) => `server/migrations/${file}`);
+const workers = fs
+  .readdirSync(path.join(root, 'server'), { recursive: true })
+  .filter((file) => file.endsWith('.worker.ts'))
+  .map((file) => `server/${file}`);
 const outdir = path.join(root, 'dist/server');
 
 fs.rmSync(outdir, { recursive: true, force: true });
 await build({
   absWorkingDir: root,
-  entryPoints: ['server/index.ts', ...migrations],
+  entryPoints: ['server/index.ts', ...migrations, ...workers],
   outbase: 'server',
   outdir,
   bundle: true,
@@ -29,4 +34,6 @@ await build({
   alias: { '@shared': './shared', '@server': './server' },
   logLevel: 'warning',
 });
-console.log(`Server compiled to ${path.relative(root, outdir)}/ (${migrations.length} migrations).`);
+console.log(
+  `Server compiled to ${path.relative(root, outdir)}/ (${migrations.length} migrations, ${workers.length} worker entries).`,
+);

@@ -3,20 +3,22 @@ import os from 'node:os';
 import path from 'node:path';
 import { setTimeout as sleep } from 'node:timers/promises';
 import { afterAll, describe, expect, it } from 'vitest';
+import { apiClient } from '../support/accounts';
 import { freePort } from '../support/free-port';
 import { postgresProcessesOf, startServerProcess } from '../support/server-process';
+import { createStudy } from '../support/studies';
 
 const folders: string[] = [];
 afterAll(() => folders.forEach((folder) => fs.rmSync(folder, { recursive: true, force: true })));
 
 /** A fresh data folder and free ports: the production server with its own built-in cluster. */
-async function startWithOwnCluster() {
+async function startWithOwnCluster(demoData = false) {
   const dataRoot = fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-start-'));
   folders.push(dataRoot);
   const server = await startServerProcess({
     HALFLIGHT_DATA_DIR: dataRoot,
     HALFLIGHT_PG_PORT: String(await freePort()),
-    HALFLIGHT_DEMO_DATA: 'false',
+    HALFLIGHT_DEMO_DATA: String(demoData),
   });
   return { server, dataRoot, pgdata: path.join(dataRoot, 'pgdata') };
 }
@@ -32,8 +34,25 @@ async function expectStoppedCleanly(started: Awaited<ReturnType<typeof startWith
 
 describe('npm start (compiled server under plain node)', () => {
   it('when Ctrl-C comes twice within a second, then it stops once, in order, and no PostgreSQL process is left', async () => {
-    const started = await startWithOwnCluster();
+    const started = await startWithOwnCluster(true);
     await started.server.waitForHealthy();
+    // The compiled build serves the real work too: a demo researcher uploads a file, read in a worker thread.
+    const client = await apiClient(started.server.baseUrl);
+    const signedIn = await client.signIn({
+      email: 'priya.halvorsen@demo.halflight.example',
+      password: 'halflight-demo',
+    });
+    const labId = signedIn.body.user.labs[0].labId as string;
+    const study = await createStudy(client, labId, 'compiled');
+    const upload = await client.agent
+      .post(`/api/labs/${labId}/studies/${study.id}/uploads`)
+      .set('x-csrf-token', signedIn.body.csrfToken)
+      .attach(
+        'file',
+        fs.readFileSync(path.join(import.meta.dirname, '../fixtures/uploads/series-comma-mM.csv')),
+        'series.csv',
+      );
+    expect(upload.status, JSON.stringify(upload.body)).toBe(201);
     expect(postgresProcessesOf(started.pgdata)).toHaveLength(1);
     // The serving process is node itself running JavaScript: no TypeScript loader in between.
     const commandLine = fs.readFileSync(`/proc/${started.server.child.pid}/cmdline`, 'utf8').split('\0');

@@ -51,7 +51,8 @@ export async function startServerProcess(env: Record<string, string>) {
           (response) => response.status,
           () => 0,
         );
-        if (status === 200) return;
+        // Only our process prints this: a 200 from another program that took the port does not count.
+        if (status === 200 && output.includes('Halflight is ready')) return;
         if (Date.now() - began > ms) throw new Error(`Not healthy within ${ms} ms:\n${output}`);
         await sleep(200);
       }
