@@ -174,7 +174,7 @@ async function expectWritesWork() {
   expect(created.status).toBe(201);
 }
 
-describe('the database goes away and comes back', () => {
+describe('the database goes away and comes back', { timeout: 120_000 }, () => {
   it('when the cluster restarts (pg_ctl restart -m fast) under load, then the same process recovers within 15 s and nothing is half-written', async () => {
     const { answers, acknowledged, recoveredAfterMs } = await underLoad(() => cluster.restart());
     console.warn(`recovered ${recoveredAfterMs} ms after the start of pg_ctl restart; ${summary(answers)}`);

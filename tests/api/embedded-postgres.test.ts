@@ -22,7 +22,7 @@ async function query<T>(url: string, sql: string): Promise<T[]> {
   }
 }
 
-describe('the embedded PostgreSQL cluster', () => {
+describe('the embedded PostgreSQL cluster', { timeout: 120_000 }, () => {
   it('when started, stopped and started again, then the data of the first run is still there', async () => {
     const port = await freePort();
     const first = await startEmbeddedPostgres({ dataRoot, port });
@@ -87,7 +87,7 @@ describe('the embedded PostgreSQL cluster', () => {
   });
 });
 
-describe.runIf(isRoot())('the embedded cluster when running as root', () => {
+describe.runIf(isRoot())('the embedded cluster when running as root', { timeout: 120_000 }, () => {
   it('when a parent folder is closed to the postgres user, then no permission is changed and the cluster lives in a folder it can reach', async () => {
     const closedParent = fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-closed-'));
     fs.chmodSync(closedParent, 0o700);

@@ -32,7 +32,8 @@ async function appliedMigrations(cluster: Awaited<ReturnType<typeof startThrowaw
   return rows.map((row) => row.name);
 }
 
-describe('migrations at start', () => {
+// Each test starts server processes and clusters: minutes, not seconds, on a busy machine.
+describe('migrations at start', { timeout: 240_000 }, () => {
   it('when two instances start at the same moment on an empty database, then both become healthy and each migration runs once', async () => {
     const cluster = await startThrowawayCluster({ migrate: false });
     cleanups.push(() => cluster.stop());

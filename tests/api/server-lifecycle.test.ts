@@ -32,7 +32,8 @@ async function expectStoppedCleanly(started: Awaited<ReturnType<typeof startWith
   expect(fs.existsSync(path.join(dataRoot, 'halflight.lock'))).toBe(false);
 }
 
-describe('npm start (compiled server under plain node)', () => {
+// Each test starts a server process with its own cluster: minutes, not seconds, on a busy machine.
+describe('npm start (compiled server under plain node)', { timeout: 240_000 }, () => {
   it('when Ctrl-C comes twice within a second, then it stops once, in order, and no PostgreSQL process is left', async () => {
     const started = await startWithOwnCluster(true);
     await started.server.waitForHealthy();
