@@ -19,6 +19,9 @@ export function restoreCell(value: string): string {
   return /^'[=+\-@\t\r]/.test(value) ? value.slice(1) : value;
 }
 
-/** Rows to CSV text, every cell neutralised. */
+/**
+ * Rows to CSV text, every cell neutralised. The text starts with a UTF-8 byte-order mark, so
+ * spreadsheet programs read the units (M⁻¹ s⁻¹, µL) as written rather than guessing a legacy code page.
+ */
 export const csvTable = (rows: readonly (readonly unknown[])[]): string =>
-  stringify(rows.map((row) => row.map(neutraliseCell)));
+  `\uFEFF${stringify(rows.map((row) => row.map(neutraliseCell)))}`;

@@ -7,7 +7,7 @@ import { useInvitation } from '@/features/auth/api/get-invitation';
 import { AcceptInvitationForm } from '@/features/auth/components/accept-invitation-form';
 import { rememberLab } from '@/features/labs/current-lab';
 import { ApiError } from '@/lib/api-client';
-import { formatDateTime } from '@/lib/format-date';
+import { formatDateTime } from '@shared/format';
 import { roleLabels } from '@/lib/role-labels';
 import { roleDescriptions } from '@shared/schemas/roles';
 import { paths } from '@/lib/paths';

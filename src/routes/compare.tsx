@@ -1,3 +1,4 @@
+import { formatEstimate, UNITS } from '@shared/format';
 import { useSearchParams } from 'react-router-dom';
 import type { Trend } from '@shared/schemas/comparisons';
 import { Button } from '@/components/button';
@@ -23,7 +24,7 @@ const sorts = [
 
 /** The Rehm–Weller/Marcus fit of one solvent in words: λ with its standard error, and how well it fits. */
 function describeTrendFit(fit: NonNullable<Trend['fit']>): string {
-  const lambda = `${fit.reorganisationEnergy.toFixed(2)} ± ${fit.reorganisationEnergyStandardError.toFixed(2)} eV`;
+  const lambda = formatEstimate(fit.reorganisationEnergy, fit.reorganisationEnergyStandardError, UNITS.electronvolt);
   const quality = `k_d/KZ ${fit.kdOverKZ}, residual SD ${fit.residualStandardDeviation.toFixed(2)} in log kq`;
   return `reorganisation energy λ = ${lambda} from ${fit.n} studies (${quality})`;
 }

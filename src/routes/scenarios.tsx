@@ -4,7 +4,7 @@ import { EmptyState } from '@/components/empty-state';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { useScenarios } from '@/features/scenarios/api/get-scenarios';
-import { formatDate } from '@/lib/format-date';
+import { formatDate } from '@shared/format';
 import { paths } from '@/lib/paths';
 import { useLab } from '@/routes/lab-context';
 

@@ -10,7 +10,8 @@ import { Tag } from '@/components/tag';
 import { TextField } from '@/components/text-field';
 import { useStudies } from '@/features/studies/api/get-studies';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
-import { formatNumber, statusLabels } from '@/features/studies/components/format';
+import { formatDate, formatNumber } from '@shared/format';
+import { statusLabels } from '@/features/studies/components/format';
 import { StatusSignal } from '@/features/studies/components/status-signal';
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
@@ -173,7 +174,7 @@ export function StudiesRoute() {
                     <StatusSignal status={study.status} />
                   </td>
                   <td>{study.ownerName}</td>
-                  <td className="text-caption">{new Date(study.updatedAt).toLocaleDateString()}</td>
+                  <td className="text-caption">{formatDate(study.updatedAt)}</td>
                 </tr>
               ))}
             </tbody>

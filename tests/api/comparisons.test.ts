@@ -124,7 +124,7 @@ describe('GET /api/labs/:labId/comparisons/:side/:compoundId', () => {
     const response = await viewer.get(`/api/labs/${labId}/comparisons/emitter/${emitterId}/export.csv`);
     expect(response.headers['content-type']).toMatch(/text\/csv/);
     const lines = response.text.trim().split('\n');
-    expect(lines[2]).toMatch(/^quencher,study,solvent,status,approved,kq_M-1_s-1/);
+    expect(lines[2]).toMatch(/^quencher,study,solvent,status,approved,kq \(M⁻¹ s⁻¹\),kq SE \(M⁻¹ s⁻¹\),K_SV \(M⁻¹\)/);
     expect(lines).toHaveLength(3 + 5);
   });
 });

@@ -2,7 +2,7 @@ import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Lab, Study } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
-import { sci } from '../../server/services/reports/pdf-document';
+import { formatEstimate } from '@shared/format';
 import { apiClient } from '../support/accounts';
 import { createTestApp } from '../support/test-app';
 
@@ -85,8 +85,11 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     expect(response.headers['content-type']).toBe('application/pdf');
     const text = (await pdfText(binary(response))).replace(/\s+/g, ' ');
     const kSv = detail.latestFit.result.parameters.kSv;
-    expect(text).toContain(`K_SV: ${sci(kSv.value, 4)} ± ${sci(kSv.standardError, 2)} M^-1`);
-    expect(text).toContain(`kq: ${sci(detail.latestFit.result.parameters.kq.value, 4)}`);
+    // The shared formatter's rounding to the SE (tests/unit/format) and Unicode units, as on screen.
+    expect(text).toContain(`K_SV: ${formatEstimate(kSv.value, kSv.standardError, 'M⁻¹')}`);
+    const kq = detail.latestFit.result.parameters.kq;
+    expect(text).toContain(`kq: ${formatEstimate(kq.value, kq.standardError, 'M⁻¹ s⁻¹')}`);
+    expect(text).not.toContain('^-1');
     expect(text).toContain(detail.title);
     expect(text).toContain(`engine ${detail.latestFit.engineVersion}`);
     expect(text).toMatch(/Approved: by .+ on \d{4}-\d{2}-\d{2}/);
@@ -112,7 +115,7 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
       });
     const text = (await pdfText(binary(response))).replace(/\s+/g, ' ');
     expect(text).toContain(
-      `K_SV from lifetimes: ${sci(withLifetimes!.kSv.value, 4)} ± ${sci(withLifetimes!.kSv.standardError, 2)} M^-1`,
+      `K_SV from lifetimes: ${formatEstimate(withLifetimes!.kSv.value, withLifetimes!.kSv.standardError, 'M⁻¹')}`,
     );
   });
 

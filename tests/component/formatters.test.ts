@@ -7,7 +7,7 @@ import {
   formatVolts,
   solventName,
 } from '@/features/library/components/library-format';
-import { formatDate } from '@/lib/format-date';
+import { formatDate } from '@shared/format';
 
 // Expected strings are the display conventions of the screens (common practice in papers: signed
 // potentials with two decimals, powers of ten as × 10ⁿ), written out by hand.
@@ -16,13 +16,13 @@ describe('formatNumber', () => {
     expect(formatNumber(1234.5678)).toBe('1230');
     expect(formatNumber(0.0123456)).toBe('0.0123');
     expect(formatNumber(0)).toBe('0');
-    expect(formatNumber(-42.25, 4)).toBe('-42.25');
+    expect(formatNumber(-42.25, 4)).toBe('−42.25');
   });
 
   it('when a value is very large or very small, then it gets a power of ten with a superscript exponent', () => {
     expect(formatNumber(5e8)).toBe('5.00 × 10⁸');
     expect(formatNumber(10000)).toBe('1.00 × 10⁴');
-    expect(formatNumber(-2.5e-5)).toBe('-2.50 × 10⁻⁵');
+    expect(formatNumber(-2.5e-5)).toBe('−2.50 × 10⁻⁵');
     expect(formatNumber(1.234e10, 2)).toBe('1.2 × 10¹⁰');
   });
 
@@ -42,7 +42,7 @@ describe('library formatters', () => {
     expect(formatVolts(-0.071)).toBe('−0.07 V');
     expect(formatElectronvolts(-0.336)).toBe('−0.34 eV');
     expect(formatElectronvolts(2.5, false)).toBe('2.50 eV');
-    expect(formatKilojoules(-6.86)).toBe('−6.9 kJ/mol');
+    expect(formatKilojoules(-6.86)).toBe('−6.9 kJ mol⁻¹');
   });
 
   it('when a lifetime is shown, then ns below 1 µs and µs above, and an uncertainty keeps its value’s unit', () => {

@@ -1,4 +1,5 @@
 import type { Comparison } from '@shared/schemas/comparisons';
+import { titled, UNITS } from '@shared/format';
 import { csvTable } from '../../lib/csv-cells';
 
 /** The comparison table as CSV, SI units in the headers; approved results are marked in their own column. */
@@ -10,13 +11,13 @@ export function comparisonCsv(comparison: Comparison): string {
     'solvent',
     'status',
     'approved',
-    'kq_M-1_s-1',
-    'kq_SE',
-    'K_SV_M-1',
-    'K_SV_SE',
-    'dG_ET_eV',
+    titled('kq', UNITS.perMolarPerSecond),
+    titled('kq SE', UNITS.perMolarPerSecond),
+    titled('K_SV', UNITS.perMolar),
+    titled('K_SV SE', UNITS.perMolar),
+    titled('ΔG_ET', UNITS.electronvolt),
     'pathway',
-    'dG_ET_with_Coulomb_eV',
+    titled('ΔG_ET with Coulomb term', UNITS.electronvolt),
     'flags',
   ];
   const rows = comparison.rows.map((row) => [

@@ -1,6 +1,7 @@
 import { planTitration } from '@shared/engine';
 import type { z } from 'zod';
 import type { titrationPlanInputSchema, TitrationPlanResult } from '@shared/schemas/planner';
+import { titled, UNITS } from '@shared/format';
 import { csvTable } from '../../lib/csv-cells';
 
 type PlanInput = z.infer<typeof titrationPlanInputSchema>;
@@ -15,12 +16,12 @@ const round = (value: number, digits: number) => Number(value.toPrecision(digits
 export function titrationPlanCsv(input: PlanInput, plan: TitrationPlanResult): string {
   const header = [
     'step',
-    'target [Q] (mM)',
-    'add stock (uL)',
-    'stock added so far (uL)',
-    'total volume (uL)',
-    '[Q] reached (mM)',
-    'emitter after dilution (uM)',
+    titled('target [Q]', UNITS.millimolar),
+    titled('add stock', UNITS.microlitre),
+    titled('stock added so far', UNITS.microlitre),
+    titled('total volume', UNITS.microlitre),
+    titled('[Q] reached', UNITS.millimolar),
+    titled('emitter after dilution', UNITS.micromolar),
   ];
   const rows = plan.steps.map((step, index) => [
     String(index + 1),
@@ -35,9 +36,9 @@ export function titrationPlanCsv(input: PlanInput, plan: TitrationPlanResult): s
   const preamble = [
     ['# Halflight titration plan'],
     ['# quencher', input.quencherName ?? 'not named'],
-    ['# starting volume (mL)', input.initialVolume * 1e3],
-    ['# emitter (uM)', input.emitterConcentration * 1e6],
-    ['# stock (mM)', input.stockConcentration * 1e3],
+    [`# ${titled('starting volume', UNITS.millilitre)}`, input.initialVolume * 1e3],
+    [`# ${titled('emitter', UNITS.micromolar)}`, input.emitterConcentration * 1e6],
+    [`# ${titled('stock', UNITS.millimolar)}`, input.stockConcentration * 1e3],
     ['# stock also holds the emitter', input.stockContainsEmitter ? 'yes' : 'no'],
     ['# total dilution (%)', round(plan.totalDilution * 100, 4)],
   ];

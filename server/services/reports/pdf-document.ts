@@ -1,10 +1,76 @@
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import PDFDocument from 'pdfkit';
 import { ENGINE_VERSION } from '@shared/engine';
+import { formatNumber, isoDateTime } from '@shared/format';
 import { projectRoot } from '../../config/env';
 import { appVersion } from '../../lib/version';
 
 const fontDir = path.join(projectRoot, 'node_modules', '@fontsource', 'lato', 'files');
+// DejaVu Sans (shipped by @fontsource/dejavu-sans) writes what Lato's Latin file lacks: superscript
+// digits and minus (M⁻¹ s⁻¹, × 10⁷), Greek (τ0, ΔG, η), arrows. Runs of such characters switch font.
+const fallbackDir = path.join(projectRoot, 'node_modules', '@fontsource', 'dejavu-sans', 'files');
+
+/** The code points Lato's Latin file covers, from the ranges @fontsource/lato publishes for it. */
+const latoRanges: Array<[number, number]> = (
+  JSON.parse(readFileSync(path.join(fontDir, '..', 'unicode.json'), 'utf8')) as Record<string, string>
+)
+  .latin!.split(',')
+  .map((range) =>
+    range
+      .replace('U+', '')
+      .split('-')
+      .map((hex) => parseInt(hex, 16)),
+  )
+  .map(([low, high]) => [low!, high ?? low!]);
+const latoHas = (codePoint: number) => latoRanges.some(([low, high]) => codePoint >= low && codePoint <= high);
+
+/** Splits text into runs that Lato can write and runs that need the fallback. */
+export function fontRuns(text: string): Array<{ text: string; fallback: boolean }> {
+  const runs: Array<{ text: string; fallback: boolean }> = [];
+  for (const char of text) {
+    const fallback = !latoHas(char.codePointAt(0)!);
+    const last = runs.at(-1);
+    if (last && last.fallback === fallback) last.text += char;
+    else runs.push({ text: char, fallback });
+  }
+  return runs;
+}
+
+type TextOptions = PDFKit.Mixins.TextOptions;
+
+/**
+ * Replaces doc.text with one that writes each run in the font that has its glyphs, so the PDF
+ * holds the same Unicode text as the screen (and a text search for "M⁻¹" finds it).
+ */
+function withFallbackFont(doc: Pdf): void {
+  const write = doc.text.bind(doc) as (...args: unknown[]) => Pdf;
+  const setFont = doc.font.bind(doc) as (...args: unknown[]) => Pdf;
+  let current = 'Lato';
+  doc.font = ((name: unknown, ...rest: unknown[]) => {
+    if (typeof name === 'string') current = name;
+    return setFont(name, ...rest);
+  }) as Pdf['font'];
+  doc.text = ((text: unknown, ...rest: unknown[]) => {
+    const runs = typeof text === 'string' ? fontRuns(text) : [];
+    if (runs.length < 2 && !runs.some((run) => run.fallback)) return write(text, ...rest);
+    const positioned = typeof rest[0] === 'number';
+    const position = positioned ? rest.slice(0, 2) : [];
+    const options = ((positioned ? rest[2] : rest[0]) ?? {}) as TextOptions;
+    const base = current;
+    const fallbackFont = /Bold|Black/.test(base) ? 'Symbols-Bold' : 'Symbols';
+    runs.forEach((run, index) => {
+      setFont(run.fallback ? fallbackFont : base);
+      const last = index === runs.length - 1;
+      const runOptions = { ...options, continued: last ? (options.continued ?? false) : true };
+      if (index === 0) write(run.text, ...position, runOptions);
+      else write(run.text, runOptions);
+    });
+    setFont(base);
+    return doc;
+  }) as Pdf['text'];
+}
+
 export const ink = '#1c1938';
 export const muted = '#625ba3';
 export const glow = '#d97d10';
@@ -25,6 +91,9 @@ export function createReport(title: string, subtitle: string): Pdf {
   doc.registerFont('Lato', path.join(fontDir, 'lato-latin-400-normal.woff'));
   doc.registerFont('Lato-Bold', path.join(fontDir, 'lato-latin-700-normal.woff'));
   doc.registerFont('Lato-Black', path.join(fontDir, 'lato-latin-900-normal.woff'));
+  doc.registerFont('Symbols', path.join(fallbackDir, 'dejavu-sans-latin-400-normal.woff'));
+  doc.registerFont('Symbols-Bold', path.join(fallbackDir, 'dejavu-sans-latin-700-normal.woff'));
+  withFallbackFont(doc);
   doc.font('Lato-Black').fontSize(20).fillColor(ink).text(title);
   doc.font('Lato').fontSize(10).fillColor(muted).text(subtitle).moveDown(0.8);
   return doc;
@@ -87,7 +156,7 @@ export function finish(doc: Pdf): Promise<Buffer> {
       .fontSize(8)
       .fillColor(muted)
       .text(
-        `Halflight ${appVersion} · engine ${ENGINE_VERSION} · generated ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC · page ${index + 1} of ${range.count}`,
+        `Halflight ${appVersion} · engine ${ENGINE_VERSION} · generated ${isoDateTime(new Date())} · page ${index + 1} of ${range.count}`,
         50,
         bottom,
         { width: doc.page.width - 100, align: 'center', lineBreak: false },
@@ -97,7 +166,7 @@ export function finish(doc: Pdf): Promise<Buffer> {
   return done;
 }
 
-export const sci = (value: number | null | undefined, digits = 3) =>
-  value === null || value === undefined ? '—' : value.toExponential(digits - 1);
+/** A number as everywhere in Halflight (shared/format): "1.07 × 10⁷", plain from 0.01 to below 10 000. */
+export const sci = (value: number | null | undefined, digits = 3) => formatNumber(value, digits);
 export const fixed = (value: number | null | undefined, digits = 3) =>
   value === null || value === undefined ? '—' : String(Number(value.toPrecision(digits)));

@@ -1,3 +1,4 @@
+import { formatEstimate, formatInterval, isoDateTime, UNITS } from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import type { LabContext } from '../../domain/lab-context';
 import { drivingForceOfStudy } from '../library/driving-force.service';
@@ -6,7 +7,7 @@ import { createReport, facts, finish, fixed, heading, sci, table } from './pdf-d
 import type { Pdf } from './pdf-document';
 import { drawLifetime, drawSternVolmer } from './plot-drawing';
 
-const date = (iso: string) => iso.slice(0, 16).replace('T', ' ');
+const date = isoDateTime;
 
 function conditions(doc: Pdf, study: StudyDetail) {
   heading(doc, 'Conditions');
@@ -21,9 +22,9 @@ function conditions(doc: Pdf, study: StudyDetail) {
     ],
     ['Atmosphere, degassing', `${study.atmosphere}, ${study.degassingMethod}`],
     [
-      'tau0',
+      'τ0',
       study.tau0
-        ? `${fixed(study.tau0 * 1e9, 4)} ns${study.tau0Uncertainty ? ` ± ${fixed(study.tau0Uncertainty * 1e9, 2)} ns` : ''}${study.tau0LifetimeId ? ' (from a lifetime record)' : ''}`
+        ? `${formatEstimate(study.tau0 * 1e9, study.tau0Uncertainty === null ? null : study.tau0Uncertainty * 1e9, UNITS.nanosecond)}${study.tau0LifetimeId ? ' (from a lifetime record)' : ''}`
         : 'not given',
     ],
     [
@@ -43,35 +44,35 @@ function results(doc: Pdf, study: StudyDetail) {
     return;
   }
   const p = fit.result.parameters;
-  const estimate = (name: string, unit: string, digits = 4) => {
+  const estimate = (name: string, unit: string) => {
     const value = p[name];
     return value
-      ? `${sci(value.value, digits)} ± ${sci(value.standardError, 2)} ${unit} (95 %: ${sci(value.interval95.lower, digits)} to ${sci(value.interval95.upper, digits)})`
+      ? `${formatEstimate(value.value, value.standardError, unit)} (95 % interval ${formatInterval(value.interval95.lower, value.interval95.upper, value.standardError, value.value)})`
       : '—';
   };
   facts(doc, [
     ['Model', fit.model],
-    ['K_SV', estimate('kSv', 'M^-1')],
+    ['K_SV', estimate('kSv', UNITS.perMolar)],
     ...(p.intercept
-      ? [['Intercept', `${fixed(p.intercept.value, 5)} ± ${fixed(p.intercept.standardError, 2)}`] as [string, string]]
+      ? [['Intercept', formatEstimate(p.intercept.value, p.intercept.standardError)] as [string, string]]
       : []),
-    ['kq', estimate('kq', 'M^-1 s^-1')],
-    ['R^2, n', `${fixed(fit.result.statistics.rSquared, 6)}, ${fit.result.statistics.n} points`],
+    ['kq', estimate('kq', UNITS.perMolarPerSecond)],
+    ['R², n', `${fixed(fit.result.statistics.rSquared, 6)}, ${fit.result.statistics.n} points`],
     [
       'Diffusion limit',
       fit.result.diffusionLimit
-        ? `${sci(fit.result.diffusionLimit.value)} M^-1 s^-1 (${fit.result.diffusionLimit.basis}); kq/k_diff = ${fixed(fit.result.diffusionLimit.ratio, 3)}`
+        ? `${sci(fit.result.diffusionLimit.value)} ${UNITS.perMolarPerSecond} (${fit.result.diffusionLimit.basis}); kq/k_diff = ${fixed(fit.result.diffusionLimit.ratio, 3)}`
         : '—',
     ],
     ['Curvature', fit.result.statistics.curvature ?? '—'],
-    ['Fitted', `${date(fit.createdAt)} UTC by ${fit.createdBy ?? 'Halflight'}, engine ${fit.engineVersion}`],
+    ['Fitted', `${date(fit.createdAt)} by ${fit.createdBy ?? 'Halflight'}, engine ${fit.engineVersion}`],
   ]);
   drawSternVolmer(doc, fit.result);
   if (fit.result.lifetime) {
     heading(doc, 'Lifetimes');
     const { kSv, rSquared, verdict } = fit.result.lifetime;
     doc.text(
-      `K_SV from lifetimes: ${sci(kSv.value, 4)} ± ${sci(kSv.standardError, 2)} M^-1, R^2 ${fixed(rSquared, 5)}${verdict ? `. ${verdict}` : ''}`,
+      `K_SV from lifetimes: ${formatEstimate(kSv.value, kSv.standardError, UNITS.perMolar)}, R² ${fixed(rSquared, 5)}${verdict ? `. ${verdict}` : ''}`,
     );
     drawLifetime(doc, fit.result.lifetime);
   }
@@ -93,9 +94,9 @@ function points(doc: Pdf, study: StudyDetail) {
     doc,
     [
       '#',
-      '[Q] (mM)',
+      `[Q] (${UNITS.millimolar})`,
       study.dataKind === 'ratio' ? 'I0/I' : 'Intensity',
-      'tau (ns)',
+      `τ (${UNITS.nanosecond})`,
       'A ex',
       'A em',
       'Used',
@@ -154,7 +155,7 @@ function review(doc: Pdf, study: StudyDetail) {
   const approval = [...study.reviews].reverse().find((entry) => entry.action === 'approve');
   facts(doc, [
     ['Status', `${study.status}, revision ${study.revision}`],
-    ['Approved', approval ? `by ${approval.author ?? 'unknown'} on ${date(approval.createdAt)} UTC` : 'not approved'],
+    ['Approved', approval ? `by ${approval.author ?? 'unknown'} on ${date(approval.createdAt)}` : 'not approved'],
   ]);
   study.reviews.forEach((entry) =>
     doc
@@ -177,7 +178,7 @@ export async function studyReport(lab: LabContext, studyId: string): Promise<{ p
   const study = await getStudyDetail(lab, studyId);
   const doc = createReport(
     study.title,
-    `${lab.name} · owner ${study.ownerName} · created ${date(study.createdAt)} UTC · last changed ${date(study.updatedAt)} UTC`,
+    `${lab.name} · owner ${study.ownerName} · created ${date(study.createdAt)} · last changed ${date(study.updatedAt)}`,
   );
   conditions(doc, study);
   results(doc, study);

@@ -1,7 +1,8 @@
+import { formatEstimate, formatFixed, formatNumber, isoDateTime, titled, UNITS } from '@shared/format';
 import type { LabContext } from '../../domain/lab-context';
 import { compare } from '../comparisons/comparison.service';
 import { getScenario } from '../scenarios/scenario.service';
-import { createReport, facts, finish, fixed, heading, sci, table } from './pdf-document';
+import { createReport, facts, finish, heading, table } from './pdf-document';
 
 const safeName = (text: string) => text.replace(/[^\w.-]+/g, '_').slice(0, 60);
 
@@ -10,24 +11,25 @@ export async function scenarioReport(lab: LabContext, scenarioId: string) {
   const scenario = await getScenario(lab, scenarioId);
   const doc = createReport(
     `Who quenches: ${scenario.name}`,
-    `${lab.name} · reaction scenario · last changed ${scenario.updatedAt.slice(0, 16).replace('T', ' ')} UTC`,
+    `${lab.name} · reaction scenario · last changed ${isoDateTime(scenario.updatedAt)}`,
   );
   facts(doc, [
     ['Emitter', scenario.emitter.name],
     ['Solvent', scenario.solvent],
-    ['tau0', `${fixed(scenario.tau0 * 1e9, 4)} ns${scenario.tau0Source ? ` (${scenario.tau0Source})` : ''}`],
+    [
+      'τ0',
+      `${formatNumber(scenario.tau0 * 1e9, 4)} ${UNITS.nanosecond}${scenario.tau0Source ? ` (${scenario.tau0Source})` : ''}`,
+    ],
   ]);
   heading(doc, 'Share of excited emitter intercepted');
   table(
     doc,
-    ['Component', 'In reaction (mM)', 'kq (M^-1 s^-1)', 'kq from', 'Share'],
+    ['Component', titled('In reaction', UNITS.millimolar), titled('kq', UNITS.perMolarPerSecond), 'kq from', 'Share'],
     [
       ...scenario.shares.map((share) => [
         share.label,
-        fixed(share.concentration * 1e3, 4),
-        share.kq === null
-          ? 'none'
-          : `${sci(share.kq)}${share.kqStandardError ? ` ± ${sci(share.kqStandardError, 2)}` : ''}`,
+        formatNumber(share.concentration * 1e3, 4),
+        share.kq === null ? 'none' : formatEstimate(share.kq, share.kqStandardError),
         share.kqSource?.kind === 'study'
           ? `${share.kqSource.title} (${share.kqSource.status}${share.kqSource.solvent !== scenario.solvent ? `, in ${share.kqSource.solvent}` : ''})`
           : share.kqSource?.kind === 'manual'
@@ -60,19 +62,21 @@ export async function comparisonReport(
     doc,
     [
       side === 'emitter' ? 'Quencher' : 'Emitter',
-      'kq (M^-1 s^-1)',
-      'K_SV (M^-1)',
+      titled('kq', UNITS.perMolarPerSecond),
+      titled('K_SV', UNITS.perMolar),
       'Solvent',
-      'dG_ET (eV)',
+      titled('ΔG_ET', UNITS.electronvolt),
       'Status',
       'Flags',
     ],
     comparison.rows.map((row) => [
       row.partner.name,
-      row.kq ? `${sci(row.kq.value)}${row.kq.standardError ? ` ± ${sci(row.kq.standardError, 2)}` : ''}` : '—',
-      row.kSv ? fixed(row.kSv.value, 4) : '—',
+      row.kq ? formatEstimate(row.kq.value, row.kq.standardError) : '—',
+      row.kSv ? formatEstimate(row.kSv.value, row.kSv.standardError) : '—',
       row.solvent,
-      row.drivingForce ? `${fixed(row.drivingForce.electronvolts, 3)} (${row.drivingForce.pathway})` : 'missing',
+      row.drivingForce
+        ? `${formatFixed(row.drivingForce.electronvolts, 2, { signed: true })} (${row.drivingForce.pathway})`
+        : 'missing',
       row.status,
       row.flags.map((flag) => flag.title).join('; '),
     ]),
@@ -82,7 +86,7 @@ export async function comparisonReport(
   for (const trend of comparison.trends) {
     doc.text(
       trend.fit
-        ? `${trend.solvent}: reorganisation energy ${fixed(trend.fit.reorganisationEnergy, 3)} ± ${fixed(trend.fit.reorganisationEnergyStandardError, 2)} eV from ${trend.fit.n} studies (k_d ${sci(trend.diffusionLimit)} M^-1 s^-1).`
+        ? `${trend.solvent}: reorganisation energy λ = ${formatEstimate(trend.fit.reorganisationEnergy, trend.fit.reorganisationEnergyStandardError, UNITS.electronvolt)} from ${trend.fit.n} studies (k_d ${formatNumber(trend.diffusionLimit)} ${UNITS.perMolarPerSecond}).`
         : `${trend.solvent}: no fit (${trend.note}).`,
     );
   }

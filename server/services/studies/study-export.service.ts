@@ -1,3 +1,4 @@
+import { isoDateTime, titled, UNITS } from '@shared/format';
 import { csvTable } from '../../lib/csv-cells';
 import type { LabContext } from '../../domain/lab-context';
 import { getStudyDetail } from './study.service';
@@ -12,18 +13,18 @@ export async function exportPointsCsv(lab: LabContext, studyId: string) {
   );
   const header = [
     'position',
-    'concentration_mol_per_L',
-    study.dataKind === 'ratio' ? 'I0_over_I' : 'intensity',
-    'lifetime_s',
-    'absorbance_excitation',
-    'absorbance_emission',
-    'volume_added_L',
+    titled('[Q]', UNITS.molar),
+    study.dataKind === 'ratio' ? 'I0/I' : 'intensity',
+    titled('lifetime', UNITS.second),
+    'absorbance at excitation',
+    'absorbance at emission',
+    titled('volume added', 'L'),
     'uncertainty',
     'excluded',
-    'exclusion_reason',
-    'corrected_concentration_mol_per_L',
-    'corrected_intensity',
-    'ratio_used',
+    'reason left out',
+    titled('corrected [Q]', UNITS.molar),
+    'corrected intensity',
+    'I0/I used',
     'residual',
   ];
   const rows = study.points.map((point) => [
@@ -51,15 +52,15 @@ export async function exportFitCsv(lab: LabContext, studyId: string) {
   const fit = study.latestFit;
   const rows: unknown[][] = [['quantity', 'value', 'standard_error', 'interval95_lower', 'interval95_upper', 'unit']];
   const units: Record<string, string> = {
-    kSv: 'M^-1',
-    kq: 'M^-1 s^-1',
-    kqFromLifetimes: 'M^-1 s^-1',
-    kD: 'M^-1',
-    kS: 'M^-1',
+    kSv: UNITS.perMolar,
+    kq: UNITS.perMolarPerSecond,
+    kqFromLifetimes: UNITS.perMolarPerSecond,
+    kD: UNITS.perMolar,
+    kS: UNITS.perMolar,
     intercept: '1',
     accessibleFraction: '1',
-    sum: 'M^-1',
-    product: 'M^-2',
+    sum: UNITS.perMolar,
+    product: UNITS.perMolarSquared,
   };
   rows.push(
     ['study', study.title, '', '', '', ''],
@@ -71,7 +72,7 @@ export async function exportFitCsv(lab: LabContext, studyId: string) {
     rows.push(
       ['model', fit.model, '', '', '', ''],
       ['engine_version', fit.engineVersion, '', '', '', ''],
-      ['fitted_at', fit.createdAt, '', '', '', ''],
+      ['fitted_at', isoDateTime(fit.createdAt), '', '', '', ''],
     );
     for (const [name, estimate] of Object.entries(fit.result.parameters)) {
       rows.push([
@@ -85,10 +86,11 @@ export async function exportFitCsv(lab: LabContext, studyId: string) {
     }
     const stats = fit.result.statistics;
     rows.push(['n', stats.n, '', '', '', ''], ['r_squared', stats.rSquared, '', '', '', '']);
-    if (fit.result.tau0) rows.push(['tau0', fit.result.tau0.value, fit.result.tau0.standardError, '', '', 's']);
+    if (fit.result.tau0)
+      rows.push(['tau0', fit.result.tau0.value, fit.result.tau0.standardError, '', '', UNITS.second]);
     if (fit.result.diffusionLimit)
       rows.push(
-        ['k_diff', fit.result.diffusionLimit.value, '', '', '', 'M^-1 s^-1'],
+        ['k_diff', fit.result.diffusionLimit.value, '', '', '', UNITS.perMolarPerSecond],
         ['kq_over_k_diff', fit.result.diffusionLimit.ratio, '', '', '', '1'],
       );
     for (const flag of fit.result.flags) rows.push(['flag', flag.title, flag.detail ?? '', '', '', '']);

@@ -1,5 +1,6 @@
 import { requireFinite, requireNonNegative, requirePositive } from '../core/validate';
 import { qualityFlag, type QualityFlag } from '../flags/quality-flag';
+import { formatNumber, UNITS } from '../../format';
 
 export interface QuenchingRateConstant {
   /** kq in M^-1 s^-1 */
@@ -51,7 +52,7 @@ export function quenchingRateConstant(input: {
       flags.push(
         qualityFlag(
           'KQ_ABOVE_DIFFUSION_LIMIT',
-          `kq ${value.toExponential(2)} vs k_diff ${limit.toExponential(2)} M^-1 s^-1`,
+          `kq ${formatNumber(value)} vs k_diff ${formatNumber(limit)} ${UNITS.perMolarPerSecond}`,
         ),
       );
     }

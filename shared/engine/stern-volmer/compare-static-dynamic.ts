@@ -1,4 +1,5 @@
 import { qualityFlag, type QualityFlag } from '../flags/quality-flag';
+import { formatNumber, UNITS } from '../../format';
 import { fitLineThroughOrigin } from '../stats/fit-line-through-origin';
 import { makeEstimate, type ParameterEstimate } from '../stats/parameter-estimate';
 import { studentTQuantile975 } from '../stats/student-t';
@@ -53,7 +54,7 @@ export function compareStaticDynamic(
       ? [
           qualityFlag(
             'LIFETIME_STEEPER_THAN_INTENSITY',
-            `K_SV ${a.value.toPrecision(3)} (intensity) vs ${b.value.toPrecision(3)} (lifetime) M^-1`,
+            `K_SV ${formatNumber(a.value)} (intensity) vs ${formatNumber(b.value)} (lifetime) ${UNITS.perMolar}`,
           ),
         ]
       : [];

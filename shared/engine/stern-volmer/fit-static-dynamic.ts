@@ -1,4 +1,5 @@
 import { EngineError } from '../core/engine-error';
+import { formatNumber, UNITS } from '../../format';
 import { countDistinct, requireNonNegativeArray, requirePositiveArray, requireSameLength } from '../core/validate';
 import { fitQuadratic } from '../stats/fit-quadratic';
 import { makeEstimate, type ParameterEstimate } from '../stats/parameter-estimate';
@@ -71,7 +72,7 @@ export function fitStaticDynamic(input: {
     throw new EngineError(
       'MODEL_NOT_APPLICABLE',
       'ratios',
-      `the quadratic coefficients (b1 = ${b1.toPrecision(3)} M^-1, b2 = ${b2.toPrecision(3)} M^-2) have no pair of positive real roots`,
+      `the quadratic coefficients (b1 = ${formatNumber(b1)} ${UNITS.perMolar}, b2 = ${formatNumber(b2)} ${UNITS.perMolarSquared}) have no pair of positive real roots`,
       b2 <= 0
         ? 'The plot bends downward; try the modified Stern–Volmer plot'
         : 'The curvature is too strong for this model; check inner filter and aggregation',

@@ -1,9 +1,8 @@
 import { Link } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
+import { formatEstimate, formatFixed, formatNumber, UNITS } from '@shared/format';
 import { Signal } from '@/components/signal';
 import { paths } from '@/lib/paths';
-
-const sci = (value: number) => value.toExponential(2);
 
 /** One row per study: the other compound, kq ± SE, K_SV, solvent, driving force, flags and review state. */
 export function ComparisonTable({ comparison, labId }: { comparison: Comparison; labId: string }) {
@@ -17,16 +16,16 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
             {partner}
           </th>
           <th scope="col" className="pr-3">
-            kq (M⁻¹ s⁻¹)
+            kq ({UNITS.perMolarPerSecond})
           </th>
           <th scope="col" className="pr-3">
-            K_SV (M⁻¹)
+            K_SV ({UNITS.perMolar})
           </th>
           <th scope="col" className="pr-3">
             Solvent
           </th>
           <th scope="col" className="pr-3">
-            ΔG_ET (eV)
+            ΔG_ET ({UNITS.electronvolt})
           </th>
           <th scope="col" className="pr-3">
             Flags
@@ -45,15 +44,12 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
                 {row.partner.name}
               </Link>
             </th>
-            <td className="pr-3">
-              {row.kq ? sci(row.kq.value) : '—'}
-              {row.kq?.standardError != null && <span className="text-ink-500"> ± {sci(row.kq.standardError)}</span>}
-            </td>
-            <td className="pr-3">{row.kSv ? Number(row.kSv.value.toPrecision(3)) : '—'}</td>
+            <td className="pr-3">{row.kq ? formatEstimate(row.kq.value, row.kq.standardError) : '—'}</td>
+            <td className="pr-3">{row.kSv ? formatNumber(row.kSv.value) : '—'}</td>
             <td className="pr-3">{row.solvent}</td>
             <td className="pr-3" title={row.drivingForceMissing ?? undefined}>
               {row.drivingForce
-                ? `${row.drivingForce.electronvolts.toFixed(2)} (${row.drivingForce.pathway === 'oxidative' ? 'ox.' : 'red.'})`
+                ? `${formatFixed(row.drivingForce.electronvolts, 2, { signed: true })} (${row.drivingForce.pathway === 'oxidative' ? 'ox.' : 'red.'})`
                 : 'missing'}
             </td>
             <td className="pr-3 text-caption">{row.flags.map((flag) => flag.title).join('; ') || '—'}</td>

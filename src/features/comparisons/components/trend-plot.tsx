@@ -1,3 +1,4 @@
+import { formatEstimate, UNITS } from '@shared/format';
 import { Chart as ChartJS, Legend, LinearScale, LineElement, PointElement, Tooltip } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import { useNavigate } from 'react-router-dom';
@@ -30,7 +31,7 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
     if (trend.fit) {
       sets.push({
         type: 'line',
-        label: `${trend.solvent}: fit, λ = ${trend.fit.reorganisationEnergy.toFixed(2)} ± ${trend.fit.reorganisationEnergyStandardError.toFixed(2)} eV`,
+        label: `${trend.solvent}: fit, λ = ${formatEstimate(trend.fit.reorganisationEnergy, trend.fit.reorganisationEnergyStandardError, UNITS.electronvolt)}`,
         data: trend.fit.curve.map((point) => ({ x: point.drivingForce, y: point.log10Kq })),
         borderColor: hue,
         pointRadius: 0,

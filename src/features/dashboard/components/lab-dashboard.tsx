@@ -3,7 +3,7 @@ import type { DashboardStudy } from '@shared/schemas/dashboard';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
-import { formatDateTime } from '@/lib/format-date';
+import { formatDateTime, formatQuantity, UNITS } from '@shared/format';
 import { useDashboard } from '../api/get-dashboard';
 import { paths } from '@/lib/paths';
 
@@ -19,7 +19,7 @@ function StudyList({ labId, studies, empty }: { labId: string; studies: Dashboar
           <p className="text-caption text-ink-500">
             {study.emitter} + {study.quencher}
             {study.owner ? ` · ${study.owner}` : ''}
-            {study.kq !== null ? ` · kq ${study.kq.toExponential(2)} M⁻¹ s⁻¹` : ''}
+            {study.kq !== null ? ` · kq ${formatQuantity(study.kq, UNITS.perMolarPerSecond)}` : ''}
           </p>
         </li>
       ))}

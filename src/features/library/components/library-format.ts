@@ -1,11 +1,13 @@
 import { REFERENCE_ELECTRODES, SOLVENTS } from '@shared/engine';
+import { formatFixed, formatNumber, UNITS } from '@shared/format';
 
 /** Potentials with sign and two decimals, as papers report them: "+1.21 V". */
-export const formatVolts = (value: number) => `${value >= 0 ? '+' : '−'}${Math.abs(value).toFixed(2)} V`;
+export const formatVolts = (value: number) => `${formatFixed(value, 2, { signed: true })} ${UNITS.volt}`;
 /** Energies with sign: "−0.07 eV". */
 export const formatElectronvolts = (value: number, signed = true) =>
-  `${signed ? (value >= 0 ? '+' : '−') : ''}${Math.abs(value).toFixed(2)} eV`;
-export const formatKilojoules = (value: number) => `${value >= 0 ? '+' : '−'}${Math.abs(value).toFixed(1)} kJ/mol`;
+  `${formatFixed(value, 2, { signed })} ${UNITS.electronvolt}`;
+export const formatKilojoules = (value: number) =>
+  `${formatFixed(value, 1, { signed: true })} ${UNITS.kilojoulePerMole}`;
 
 /**
  * Lifetimes stored in s, read in ns below 1 µs and in µs above. An uncertainty passes the value it
@@ -14,8 +16,8 @@ export const formatKilojoules = (value: number) => `${value >= 0 ? '+' : '−'}$
 export function formatLifetime(seconds: number, scaleOf?: number): string {
   // Three significant figures for a value, two for its uncertainty (common practice).
   const digits = scaleOf === undefined ? 3 : 2;
-  const [factor, unit] = (scaleOf ?? seconds) < 1e-6 ? [1e9, 'ns'] : [1e6, 'µs'];
-  return `${(seconds * factor).toPrecision(digits)} ${unit}`;
+  const [factor, unit] = (scaleOf ?? seconds) < 1e-6 ? [1e9, UNITS.nanosecond] : [1e6, UNITS.microsecond];
+  return `${formatNumber(seconds * factor, digits, { trailingZeros: true })} ${unit}`;
 }
 
 export const referenceOptions = REFERENCE_ELECTRODES.map((reference) => ({ value: reference, label: reference }));

@@ -1,6 +1,6 @@
 import type { CaughtMail } from '@shared/schemas/members';
 import { EmptyState } from '@/components/empty-state';
-import { formatDateTime } from '@/lib/format-date';
+import { formatDateTime } from '@shared/format';
 
 interface MailListProps {
   items: CaughtMail[];

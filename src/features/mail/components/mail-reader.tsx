@@ -1,5 +1,5 @@
 import type { CaughtMail } from '@shared/schemas/members';
-import { formatDateTime } from '@/lib/format-date';
+import { formatDateTime } from '@shared/format';
 import { LinkedText } from './linked-text';
 
 /** One caught message: who sent it to whom, and its plain-text body. */

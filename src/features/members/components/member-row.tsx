@@ -4,7 +4,7 @@ import type { Role } from '@shared/schemas/roles';
 import { Button } from '@/components/button';
 import { SelectField } from '@/components/select-field';
 import { Tag } from '@/components/tag';
-import { formatDate } from '@/lib/format-date';
+import { formatDate } from '@shared/format';
 import { roleLabels, roleOptions } from '@/lib/role-labels';
 
 interface MemberRowProps {

@@ -3,7 +3,7 @@ import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { FormAlert } from '@/components/form-alert';
 import { Tag } from '@/components/tag';
-import { formatDate } from '@/lib/format-date';
+import { formatDate } from '@shared/format';
 import { roleLabels } from '@/lib/role-labels';
 import { useRevokeInvitation } from '../api/revoke-invitation';
 import { describeMemberProblem } from './member-problem';

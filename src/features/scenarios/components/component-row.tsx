@@ -1,3 +1,4 @@
+import { formatQuantity, UNITS } from '@shared/format';
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
 import type { ScenarioShare } from '@shared/schemas/scenarios';
 import { Button } from '@/components/button';
@@ -23,7 +24,7 @@ export function ComponentRow({ index, kind, register, errors, quencherOptions, s
     { value: '', label: 'Best available (approved first)' },
     ...(share?.candidates ?? []).map((candidate) => ({
       value: candidate.studyId,
-      label: `${candidate.title} · ${candidate.status} · kq ${candidate.kq.toExponential(2)}`,
+      label: `${candidate.title} · ${candidate.status} · kq ${formatQuantity(candidate.kq, UNITS.perMolarPerSecond)}`,
     })),
   ];
   return (

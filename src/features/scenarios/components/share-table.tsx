@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
 import type { Scenario } from '@shared/schemas/scenarios';
+import { formatEstimate, formatNumber, UNITS } from '@shared/format';
 import { paths } from '@/lib/paths';
 
 const percent = (fraction: number) => `${(fraction * 100).toFixed(fraction < 0.001 ? 3 : 1)} %`;
-const scientific = (value: number) => value.toExponential(2).replace('e+', ' × 10^');
 
 /** Who intercepts the excited emitter: each component's kq, its source and its share. */
 export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: string }) {
@@ -17,10 +17,10 @@ export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: str
             Component
           </th>
           <th scope="col" className="pr-3">
-            In reaction (mM)
+            In reaction ({UNITS.millimolar})
           </th>
           <th scope="col" className="pr-3">
-            kq (M⁻¹ s⁻¹)
+            kq ({UNITS.perMolarPerSecond})
           </th>
           <th scope="col" className="pr-3">
             kq from
@@ -34,13 +34,8 @@ export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: str
             <th scope="row" className="py-1.5 pr-3 font-bold text-ink-900">
               {share.label}
             </th>
-            <td className="pr-3">{Number((share.concentration * 1e3).toPrecision(4))}</td>
-            <td className="pr-3">
-              {share.kq === null ? '—' : scientific(share.kq)}
-              {share.kqStandardError !== null && (
-                <span className="text-ink-500"> ± {scientific(share.kqStandardError)}</span>
-              )}
-            </td>
+            <td className="pr-3">{formatNumber(share.concentration * 1e3, 4)}</td>
+            <td className="pr-3">{share.kq === null ? '—' : formatEstimate(share.kq, share.kqStandardError)}</td>
             <td className="pr-3 text-caption">
               {share.kqSource?.kind === 'study' && (
                 <Link className="underline decoration-glow-400" to={paths.study(labId, share.kqSource.studyId)}>

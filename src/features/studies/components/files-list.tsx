@@ -1,3 +1,4 @@
+import { formatDateTime } from '@shared/format';
 import type { UploadSummary } from '@shared/schemas/study-detail';
 import { EmptyState } from '@/components/empty-state';
 
@@ -21,7 +22,7 @@ export function FilesList({ labId, studyId, uploads }: { labId: string; studyId:
           <span className="text-ink-500">
             {' '}
             · {(upload.size / 1024).toFixed(1)} kB · {statusWords[upload.parseStatus]} ·{' '}
-            {upload.uploadedBy ?? 'former member'}, {new Date(upload.createdAt).toLocaleString()}
+            {upload.uploadedBy ?? 'former member'}, {formatDateTime(upload.createdAt)}
           </span>
           {upload.problem && <span className="block text-caption text-brick-700">{upload.problem}</span>}
           <span className="block truncate text-caption text-ink-300" title="SHA-256">

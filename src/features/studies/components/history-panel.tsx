@@ -1,3 +1,4 @@
+import { formatDateTime, formatQuantity, UNITS } from '@shared/format';
 import { ErrorNotice } from '@/components/error-notice';
 import { useStudyHistory } from '../api/get-study-history';
 
@@ -27,11 +28,11 @@ export function HistoryPanel({ labId, studyId }: { labId: string; studyId: strin
           <details>
             <summary>
               <strong>{event.actor ?? 'system'}</strong> {words[event.action] ?? event.action} ·{' '}
-              {new Date(event.createdAt).toLocaleString()}
+              {formatDateTime(event.createdAt)}
               {event.action === 'study_fitted' && typeof event.details.kSv === 'number' && (
                 <>
                   {' '}
-                  (K_SV {Number(event.details.kSv).toPrecision(3)} M⁻¹, {String(event.details.model)})
+                  (K_SV {formatQuantity(Number(event.details.kSv), UNITS.perMolar)}, {String(event.details.model)})
                 </>
               )}
             </summary>

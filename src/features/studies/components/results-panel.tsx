@@ -1,6 +1,7 @@
 import type { StudyFit } from '@shared/schemas/study-fits';
 import type { Estimate } from '@shared/schemas/study-fits';
-import { formatNumber, modelLabels } from './format';
+import { formatDateTime, formatEstimate, formatInterval, formatQuantity, UNITS } from '@shared/format';
+import { modelLabels } from './format';
 
 function Row({ label, estimate, unit }: { label: string; estimate: Estimate | undefined; unit: string }) {
   if (!estimate) return null;
@@ -8,10 +9,18 @@ function Row({ label, estimate, unit }: { label: string; estimate: Estimate | un
     <div className="grid grid-cols-[9rem_1fr] gap-2 py-1">
       <dt className="font-bold text-ink-900">{label}</dt>
       <dd aria-label={label}>
-        <span className="text-lead font-black text-ink-950">{formatNumber(estimate.value)}</span> ±{' '}
-        {formatNumber(estimate.standardError, 2)} {unit}
+        <span className="text-lead font-black text-ink-950">
+          {formatEstimate(estimate.value, estimate.standardError, unit)}
+        </span>
         <span className="block text-caption text-ink-500">
-          95 % interval {formatNumber(estimate.interval95.lower)} to {formatNumber(estimate.interval95.upper)}
+          95 % interval{' '}
+          {formatInterval(
+            estimate.interval95.lower,
+            estimate.interval95.upper,
+            estimate.standardError,
+            estimate.value,
+            unit,
+          )}
         </span>
       </dd>
     </div>
@@ -24,16 +33,16 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
   return (
     <div className="space-y-3 text-body text-ink-800">
       <p className="text-caption text-ink-500">
-        {modelLabels[fit.model]} · engine {fit.engineVersion} · {new Date(fit.createdAt).toLocaleString()}
+        {modelLabels[fit.model]} · engine {fit.engineVersion} · {formatDateTime(fit.createdAt)}
       </p>
       <dl>
-        <Row label="K_SV" estimate={parameters.kSv} unit="M⁻¹" />
-        <Row label="K_D (dynamic)" estimate={parameters.kD} unit="M⁻¹" />
-        <Row label="K_S (static)" estimate={parameters.kS} unit="M⁻¹" />
+        <Row label="K_SV" estimate={parameters.kSv} unit={UNITS.perMolar} />
+        <Row label="K_D (dynamic)" estimate={parameters.kD} unit={UNITS.perMolar} />
+        <Row label="K_S (static)" estimate={parameters.kS} unit={UNITS.perMolar} />
         <Row label="Accessible fraction" estimate={parameters.accessibleFraction} unit="" />
         <Row label="Intercept" estimate={parameters.intercept} unit="" />
-        <Row label="kq" estimate={parameters.kq} unit="M⁻¹ s⁻¹" />
-        <Row label="kq from lifetimes" estimate={parameters.kqFromLifetimes} unit="M⁻¹ s⁻¹" />
+        <Row label="kq" estimate={parameters.kq} unit={UNITS.perMolarPerSecond} />
+        <Row label="kq from lifetimes" estimate={parameters.kqFromLifetimes} unit={UNITS.perMolarPerSecond} />
       </dl>
       <p>
         n = {statistics.n}
@@ -42,12 +51,12 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
       </p>
       {tau0 && (
         <p>
-          τ0 = {formatNumber(tau0.value)} s ± {formatNumber(tau0.standardError, 2)} ({tau0.source})
+          τ0 = {formatEstimate(tau0.value * 1e9, tau0.standardError * 1e9, UNITS.nanosecond)} ({tau0.source})
         </p>
       )}
       {diffusionLimit && (
         <p>
-          Diffusion limit k_diff = {formatNumber(diffusionLimit.value)} M⁻¹ s⁻¹
+          Diffusion limit k_diff = {formatQuantity(diffusionLimit.value, UNITS.perMolarPerSecond)}
           {diffusionLimit.ratio !== null && (
             <>
               {' '}

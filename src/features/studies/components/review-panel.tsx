@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
+import { formatDateTime } from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
@@ -40,8 +41,7 @@ export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Prop
         {study.reviews.length === 0 && <li className="text-body text-ink-500">No review steps or comments yet.</li>}
         {study.reviews.map((entry) => (
           <li key={entry.id} className="text-body">
-            <strong>{entry.author ?? 'former member'}</strong> {verbs[entry.action]} ·{' '}
-            {new Date(entry.createdAt).toLocaleString()}
+            <strong>{entry.author ?? 'former member'}</strong> {verbs[entry.action]} · {formatDateTime(entry.createdAt)}
             {entry.comment && <span className="block text-ink-700">“{entry.comment}”</span>}
           </li>
         ))}

@@ -1,6 +1,7 @@
 import { useRef } from 'react';
 import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
+import { formatNumber } from '@shared/format';
 import type { FitResult } from '@shared/schemas/study-fits';
 import { paperBackground, plotColours } from './chart-setup';
 import { figureFileName } from './figure-file-name';
@@ -16,8 +17,8 @@ interface Props {
   studyTitle: string;
 }
 
-// Tick labels with at most 3 significant figures, so tiny residuals read 2e-8, not 2.00000000E-8.
-const tick = (value: number | string) => (typeof value === 'number' ? Number(value.toPrecision(3)).toString() : value);
+// Tick labels with at most 3 significant figures, so tiny residuals read 2 × 10⁻⁸, not 2.00000000E-8.
+const tick = (value: number | string) => (typeof value === 'number' ? formatNumber(value) : value);
 const axis = (title: string) => ({
   type: 'linear' as const,
   title: { display: true, text: title },
