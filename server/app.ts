@@ -22,6 +22,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { createRateLimiters, csrfProtection, defaultRateLimits, securityHeaders } from './middleware/security';
 import type { RateLimitName, RateLimitSettings } from './middleware/security';
 import { apiRoutes } from './routes';
+import { createRawFileStore, type RawFileStore } from './services/studies/files/raw-file-store';
 import { createUploadReader, type UploadReader } from './services/studies/parse/upload-reader';
 import type { UploadLimits } from './services/studies/parse/upload-limits';
 
@@ -39,6 +40,8 @@ export interface AppServices {
   sessionCookieName: string;
   /** Threads that read uploaded files under the upload limits. */
   uploadReader: UploadReader;
+  /** Where raw upload files are kept (the database, or S3-compatible object storage). */
+  files: RawFileStore;
 }
 
 export interface CreateAppOptions {
@@ -66,6 +69,8 @@ export interface CreateAppOptions {
   routes?: AnyRouteSpec[];
   /** Tighter (or looser) limits for reading uploaded files; the defaults suit real instrument files. */
   uploadLimits?: Partial<UploadLimits>;
+  /** Where raw upload files go; the default keeps them in the database. */
+  files?: RawFileStore;
 }
 
 export interface HalflightApp extends express.Express {
@@ -118,6 +123,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     generateCsrfToken: csrf.generateCsrfToken,
     sessionCookieName: session.cookieName,
     uploadReader,
+    files: options.files ?? createRawFileStore({ writeTo: 'database', s3: null }),
   };
   app.locals.openApiDocument = buildOpenApiDocument(routes, appVersion);
   app.startJobs = () => jobs.start();

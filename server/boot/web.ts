@@ -9,6 +9,7 @@ import { resolveSessionSecret } from '../lib/session-secret';
 import { startMailCatcher } from '../mail/catcher';
 import type { MailCatcher } from '../mail/catcher';
 import { createMailer } from '../mail/mailer';
+import { fileStoreFromConfig } from '../services/studies/files/file-store-config';
 
 /** How long requests in progress may take to finish once stopping has begun. */
 const drainMs = 10_000;
@@ -45,6 +46,7 @@ export async function startWeb(options: {
     publicUrl: config.publicUrl,
     behindTls: config.HALFLIGHT_BEHIND_TLS,
     jobWorker: config.HALFLIGHT_JOB_WORKER,
+    files: fileStoreFromConfig(config).files,
   });
   let server: Server | undefined;
   const closeRest = async () => {

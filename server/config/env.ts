@@ -44,6 +44,14 @@ const envSchema = z.object({
   HALFLIGHT_FIRST_ADMIN_EMAIL: z.string().email('must be an e-mail address').optional(),
   HALFLIGHT_FIRST_ADMIN_PASSWORD: z.string().min(10, 'must be at least 10 characters').optional(),
   HALFLIGHT_FIRST_LAB_NAME: z.string().min(1).max(160).optional(),
+  HALFLIGHT_FILE_STORE: z.enum(['database', 's3']).default('database'),
+  HALFLIGHT_S3_BUCKET: z.string().min(3).max(63).optional(),
+  HALFLIGHT_S3_ENDPOINT: z.string().url('must be a URL such as https://s3.example.org').optional(),
+  HALFLIGHT_S3_REGION: z.string().min(1).default('us-east-1'),
+  HALFLIGHT_S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  HALFLIGHT_S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  HALFLIGHT_S3_FORCE_PATH_STYLE: booleanFlag.optional(),
+  HALFLIGHT_S3_PREFIX: z.string().default(''),
 });
 
 export type AppConfig = z.infer<typeof envSchema> & { demoData: boolean; publicUrl: string };
@@ -60,6 +68,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     throw new Error(`Halflight configuration is invalid:\n${lines.join('\n')}`);
   }
   const config = parsed.data;
+  if (config.HALFLIGHT_FILE_STORE === 's3' && !config.HALFLIGHT_S3_BUCKET)
+    throw new Error(
+      'Halflight configuration is invalid:\n  HALFLIGHT_S3_BUCKET: required when HALFLIGHT_FILE_STORE=s3',
+    );
   const shownHost = config.HOST === '0.0.0.0' ? '127.0.0.1' : config.HOST;
   return {
     ...config,

@@ -20,7 +20,10 @@ export class StudyUpload extends Model<InferAttributes<StudyUpload>, InferCreati
   declare mediaType: string;
   declare size: number;
   declare sha256: string;
-  declare content: Buffer;
+  /** where the bytes are: on this row (content) or in object storage (storageKey) */
+  declare storage: CreationOptional<'database' | 's3'>;
+  declare storageKey: string | null;
+  declare content: Buffer | null;
   declare uploadedById: ForeignKey<User['id']> | null;
   declare parseStatus: 'parsed' | 'failed' | 'applied';
   declare parseReport: Record<string, unknown>;
@@ -36,7 +39,9 @@ export class StudyUpload extends Model<InferAttributes<StudyUpload>, InferCreati
         mediaType: { type: DataTypes.STRING(120), allowNull: false },
         size: { type: DataTypes.INTEGER, allowNull: false },
         sha256: { type: DataTypes.STRING(64), allowNull: false },
-        content: { type: DataTypes.BLOB, allowNull: false },
+        storage: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'database' },
+        storageKey: { type: DataTypes.STRING(512), allowNull: true },
+        content: { type: DataTypes.BLOB, allowNull: true },
         parseStatus: { type: DataTypes.ENUM('parsed', 'failed', 'applied'), allowNull: false },
         parseReport: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
         createdAt: DataTypes.DATE,

@@ -134,9 +134,13 @@ export const studyUploadRoutes = [
     tags: ['studies'],
     access: { lab: 'viewer' },
     request: { params: uploadParamsSchema },
-    responses: { 200: { description: 'The bytes' }, 404: { description: 'No such upload' } },
+    responses: {
+      200: { description: 'The bytes' },
+      404: { description: 'No such upload' },
+      503: { description: 'The object store holding the file did not answer' },
+    },
     handler: async ({ req, res, params }) => {
-      const file = await downloadUpload(labOf(req), params.studyId, params.uploadId);
+      const file = await downloadUpload(req.app.locals.services.files, labOf(req), params.studyId, params.uploadId);
       res.setHeader('Content-Disposition', `attachment; filename="${file.fileName.replace(/["\\\r\n]/g, '_')}"`);
       res.setHeader('X-Content-Type-Options', 'nosniff');
       res.type('application/octet-stream').send(file.content);

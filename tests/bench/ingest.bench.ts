@@ -19,6 +19,7 @@ import { migrateToLatest } from '../../server/db/migrator';
 import { createSequelize } from '../../server/db/sequelize';
 import type { LabContext } from '../../server/domain/lab-context';
 import { initModels, Lab, Membership, User } from '../../server/models';
+import { createRawFileStore } from '../../server/services/studies/files/raw-file-store';
 import { createUploadReader } from '../../server/services/studies/parse/upload-reader';
 import { applyUpload, previewUpload, receiveUpload } from '../../server/services/studies/study-upload.service';
 import { createStudy, getStudyDetail } from '../../server/services/studies/study.service';
@@ -84,7 +85,11 @@ async function main() {
       csvParse: [] as number[],
     };
     let kSv: number | null | undefined;
-    const services = { sequelize, uploadReader: createUploadReader() };
+    const services = {
+      sequelize,
+      uploadReader: createUploadReader(),
+      files: createRawFileStore({ writeTo: 'database', s3: null }),
+    };
     for (let run = 0; run < RUNS; run++) {
       // A fresh study per run: the same bytes twice in one study are refused as a duplicate.
       const study =

@@ -10,6 +10,7 @@ import { StudyPoint, StudyUpload, User } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { computeStudyFit } from './fit/compute-study-fit';
+import type { RawFileStore, StoredLocation } from './files/raw-file-store';
 import type { Problem, ReadOutcome } from './parse/read-and-map';
 import type { UploadReader } from './parse/upload-reader';
 import { loadStudy, requireChangeable, requireEditable, requireOwner } from './study-access';
@@ -17,10 +18,11 @@ import { seriesOf } from './study-fitting.service';
 import { writeSeries } from './study-points.service';
 import { toUpload } from './study-serialize';
 
-/** What the upload flows need from the app: the database and the reading threads. */
+/** What the upload flows need from the app: the database, the reading threads and the file store. */
 export interface UploadServices {
   sequelize: Sequelize;
   uploadReader: UploadReader;
+  files: RawFileStore;
 }
 
 const PREVIEW_POINTS = 200;
@@ -46,20 +48,16 @@ const overLimit = (outcome: Extract<ReadOutcome, { kind: 'limit' }>, kept: strin
     [{ path: 'file', message: `over the ${outcome.limit} limit` }],
   );
 
-/** The upload without its bytes unless asked for (a 20 MB file takes a while to read back). */
-async function findUpload(lab: LabContext, studyId: string, uploadId: string, withContent = false) {
+/** The upload without its bytes (a 20 MB file takes a while to read back; the file store reads them). */
+async function findUpload(lab: LabContext, studyId: string, uploadId: string) {
   const upload = await StudyUpload.findOne({
     where: { id: uploadId, studyId, labId: lab.id },
     include: [{ model: User, as: 'uploadedBy', attributes: ['name'] }],
-    attributes: withContent ? undefined : { exclude: ['content'] },
+    attributes: { exclude: ['content'] },
   });
   if (!upload) throw new AppError('not_found', 'No upload with this id in this study.', 404);
   return upload;
 }
-
-/** The kept bytes of an upload found without them. */
-const contentOf = async (upload: StudyUpload) =>
-  (await StudyUpload.findByPk(upload.id, { attributes: ['content'], rejectOnEmpty: true })).content;
 
 /** The answer: the table's first rows and the first points, never every parsed value. */
 function preview(upload: StudyUpload, outcome: ReadOutcome): UploadPreview {
@@ -128,21 +126,27 @@ export async function receiveUpload(
     parseStatus: failed ? ('failed' as const) : ('parsed' as const),
     parseReport: report,
   };
+  // A new file's bytes go to the store first (an object store that is down answers 503, nothing kept);
+  // the row follows in one transaction, and if it does not commit the stored bytes are removed again.
+  const uploadId = crypto.randomUUID();
+  const location: StoredLocation | null = earlier
+    ? null
+    : await services.files.put({ uploadId, labId: lab.id, bytes: file.buffer });
   let upload: StudyUpload;
   try {
     upload = await services.sequelize.transaction(async (transaction) => {
-      const kept = earlier
-        ? await (
-            await StudyUpload.findByPk(earlier.id, {
+      const kept = location
+        ? await StudyUpload.create(
+            { ...fields, ...location, id: uploadId, labId: lab.id, studyId, size: file.buffer.length, sha256 },
+            { transaction },
+          )
+        : await (
+            await StudyUpload.findByPk(earlier!.id, {
               attributes: { exclude: ['content'] },
               transaction,
               rejectOnEmpty: true,
             })
-          ).update(fields, { transaction })
-        : await StudyUpload.create(
-            { ...fields, labId: lab.id, studyId, size: file.buffer.length, sha256, content: file.buffer },
-            { transaction },
-          );
+          ).update(fields, { transaction });
       await recordAudit(
         actor,
         {
@@ -164,6 +168,7 @@ export async function receiveUpload(
       return kept;
     });
   } catch (error) {
+    if (location) await services.files.discard(location);
     // The same bytes sent twice at once: the second insert meets the unique index.
     if (error instanceof UniqueConstraintError) {
       const winner = await StudyUpload.findOne({
@@ -188,7 +193,7 @@ export async function previewUpload(
   mapping: UploadMapping,
 ): Promise<UploadPreview> {
   const upload = await findUpload(lab, studyId, uploadId);
-  const outcome = await services.uploadReader.read(upload.fileName, await contentOf(upload), mapping);
+  const outcome = await services.uploadReader.read(upload.fileName, await services.files.read(upload), mapping);
   if (outcome.kind === 'limit') throw overLimit(outcome, null);
   return preview(upload, outcome);
 }
@@ -207,7 +212,7 @@ export async function applyUpload(
   actor: SignedInActor,
 ) {
   const found = await findUpload(lab, studyId, uploadId);
-  const outcome = await services.uploadReader.read(found.fileName, await contentOf(found), input.mapping);
+  const outcome = await services.uploadReader.read(found.fileName, await services.files.read(found), input.mapping);
   if (outcome.kind === 'limit') throw overLimit(outcome, null);
   if (outcome.problems.length > 0) throw unreadable(outcome.problems, uploadId);
   if (outcome.kind !== 'read' || outcome.points.length === 0) {
@@ -268,7 +273,8 @@ export async function applyUpload(
   });
 }
 
-export async function downloadUpload(lab: LabContext, studyId: string, uploadId: string) {
-  const upload = await findUpload(lab, studyId, uploadId, true);
-  return { fileName: upload.fileName, mediaType: upload.mediaType, content: upload.content };
+/** The bytes exactly as received, from wherever they are kept (checked against their SHA-256). */
+export async function downloadUpload(files: RawFileStore, lab: LabContext, studyId: string, uploadId: string) {
+  const upload = await findUpload(lab, studyId, uploadId);
+  return { fileName: upload.fileName, mediaType: upload.mediaType, content: await files.read(upload) };
 }

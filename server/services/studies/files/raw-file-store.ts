@@ -1,0 +1,87 @@
+import crypto from 'node:crypto';
+import { AppError } from '../../../lib/app-error';
+import { StudyUpload } from '../../../models';
+import type { S3Objects } from './s3-objects';
+
+/** Where a kept upload's bytes are: on its own row, or under a key in object storage. */
+export type StoredLocation =
+  { storage: 'database'; storageKey: null; content: Buffer } | { storage: 's3'; storageKey: string; content: null };
+
+/** The columns of an upload row that say where its bytes are. */
+export interface KeptFile {
+  id: string;
+  sha256: string;
+  storage: 'database' | 's3';
+  storageKey: string | null;
+}
+
+/**
+ * Raw upload files, kept byte for byte. New files go where the store's kind says; a file is
+ * read from wherever its row says it is, so a deployment that moved to object storage still
+ * reads the files kept in the database before. Every read is checked against the SHA-256
+ * recorded when the file arrived.
+ */
+export interface RawFileStore {
+  readonly kind: 'database' | 's3';
+  /** Keeps the bytes of a new upload; the returned columns go on its row in the row's transaction. */
+  put(file: { uploadId: string; labId: string; bytes: Buffer }): Promise<StoredLocation>;
+  /** Removes what put kept when the row was not written after all (nothing to do for the database). */
+  discard(location: StoredLocation): Promise<void>;
+  read(file: KeptFile): Promise<Buffer>;
+}
+
+/** The object store did not answer or refused: nothing was changed, and the request can be sent again. */
+export const storeUnavailable = (what: string) =>
+  new AppError(
+    'file_store_unavailable',
+    `The file store did not answer (${what}); nothing was changed. Try again in a minute.`,
+    503,
+  );
+
+const damaged = (file: KeptFile) =>
+  new AppError(
+    'file_damaged',
+    `The kept bytes of upload ${file.id} do not match the SHA-256 recorded when it arrived; the file store needs checking.`,
+    500,
+  );
+
+/** SHA-256 in hex; SubtleCrypto works on libuv's pool, so 20 MB does not hold the event loop. */
+export const sha256Of = async (bytes: Uint8Array) =>
+  Buffer.from(await crypto.subtle.digest('SHA-256', bytes)).toString('hex');
+
+/** The object key of an upload: one per upload id, so discarding one never touches another's bytes. */
+export const objectKey = (labId: string, uploadId: string) => `labs/${labId}/uploads/${uploadId}`;
+
+/**
+ * The store: files in PostgreSQL on the upload row (the default: written in the row's
+ * transaction, so kept exactly when the row is), or, with `s3`, in S3-compatible object
+ * storage under one key per upload (written before the row's transaction commits and removed
+ * again if it does not).
+ */
+export function createRawFileStore(options: { writeTo: 'database' | 's3'; s3: S3Objects | null }): RawFileStore {
+  const { s3 } = options;
+  if (options.writeTo === 's3' && !s3) throw new Error('Object storage was chosen for files but is not configured.');
+  return {
+    kind: options.writeTo,
+    async put({ uploadId, labId, bytes }) {
+      if (options.writeTo === 'database' || !s3) return { storage: 'database', storageKey: null, content: bytes };
+      const key = objectKey(labId, uploadId);
+      await s3.put(key, bytes);
+      return { storage: 's3', storageKey: key, content: null };
+    },
+    async discard(location) {
+      if (location.storage === 's3') await s3?.remove(location.storageKey).catch(() => {});
+    },
+    async read(file) {
+      let bytes: Buffer | null;
+      if (file.storage === 'database') {
+        bytes = (await StudyUpload.findByPk(file.id, { attributes: ['content'], rejectOnEmpty: true })).content;
+      } else {
+        if (!s3) throw storeUnavailable('this upload lives in object storage, and none is configured');
+        bytes = await s3.get(file.storageKey!);
+      }
+      if (!bytes || (await sha256Of(bytes)) !== file.sha256) throw damaged(file);
+      return bytes;
+    },
+  };
+}

@@ -1,0 +1,132 @@
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { StudyUpload } from '../../server/models';
+import { moveFilesToS3 } from '../../server/services/studies/files/move-files-to-s3';
+import { createRawFileStore } from '../../server/services/studies/files/raw-file-store';
+import { createS3Objects } from '../../server/services/studies/files/s3-objects';
+import { apiClient, createLabWithMembers } from '../support/accounts';
+import { startFakeS3 } from '../support/fake-s3';
+import { freePort } from '../support/free-port';
+import { createStudy } from '../support/studies';
+import { createTestApp } from '../support/test-app';
+
+// Raw files in S3-compatible object storage, against s3rver on loopback (tests/support/fake-s3.ts).
+const fakeS3 = await startFakeS3();
+const s3 = createS3Objects(fakeS3.settings);
+// Writes to the database, and reads from the bucket what was moved there.
+const inDatabase = await createTestApp({ files: createRawFileStore({ writeTo: 'database', s3 }) });
+const inS3 = await createTestApp({
+  sequelize: inDatabase.sequelize,
+  files: createRawFileStore({ writeTo: 's3', s3 }),
+});
+// An object store nobody listens on: every request is refused.
+const downS3 = createS3Objects({ ...fakeS3.settings, endpoint: `http://127.0.0.1:${await freePort()}` });
+const storeDown = await createTestApp({
+  sequelize: inDatabase.sequelize,
+  files: createRawFileStore({ writeTo: 's3', s3: downS3 }),
+});
+afterAll(async () => {
+  for (const app of [storeDown, inS3, inDatabase]) await app.close();
+  s3.close();
+  downS3.close();
+  await fakeS3.stop();
+});
+
+const fixture = (name: string) => fs.readFileSync(path.join(import.meta.dirname, '../fixtures/uploads', name));
+const sha256 = (bytes: Buffer) => crypto.createHash('sha256').update(bytes).digest('hex');
+let labId = '';
+let researcher: { email: string; password: string };
+beforeAll(async () => {
+  const { lab, users } = await createLabWithMembers(inDatabase.sequelize, { roles: ['researcher'] });
+  labId = lab.id;
+  researcher = users.researcher;
+});
+
+/** A signed-in client of one app with its CSRF token, and a new study. */
+async function signedIn(app: Awaited<ReturnType<typeof createTestApp>>) {
+  const client = await apiClient(app.app);
+  const csrf = (await client.signIn(researcher)).body.csrfToken as string;
+  const study = await createStudy(client, labId, crypto.randomBytes(3).toString('hex'));
+  const base = `/api/labs/${labId}/studies/${study.id}`;
+  const send = (name: string, bytes: Buffer) =>
+    client.agent.post(`${base}/uploads`).set('x-csrf-token', csrf).attach('file', bytes, name);
+  const download = (uploadId: string) =>
+    client.agent
+      .get(`${base}/uploads/${uploadId}/file`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+  return { client, study, base, send, download };
+}
+
+describe('POST /api/labs/:labId/studies/:studyId/uploads with object storage', () => {
+  it('when a file is uploaded, then its bytes live in the bucket (not the row), download byte for byte, and it can be applied', async () => {
+    const { client, study, base, send, download } = await signedIn(inS3);
+    const bytes = fixture('spectrum-matrix.csv');
+    const received = await send('spectrum-matrix.csv', bytes);
+    expect(received.status, JSON.stringify(received.body)).toBe(201);
+    expect(received.body.upload.sha256).toBe(sha256(bytes));
+    const row = await StudyUpload.findByPk(received.body.upload.id);
+    expect(row).toMatchObject({ storage: 's3', storageKey: `labs/${labId}/uploads/${row!.id}`, content: null });
+    expect(Buffer.compare(await s3.get(row!.storageKey!), bytes)).toBe(0);
+    const downloaded = await download(row!.id);
+    expect(downloaded.status).toBe(200);
+    expect(Buffer.compare(downloaded.body as Buffer, bytes)).toBe(0);
+    const applied = await client.post(`${base}/uploads/${row!.id}/apply`, {
+      version: study.version,
+      mapping: received.body.mapping,
+    });
+    expect(applied.status, JSON.stringify(applied.body)).toBe(200);
+    expect(applied.body.latestFit.kSv).toBeCloseTo(500, 1); // tests/fixtures/uploads/README.md: built on K_SV = 500 M^-1
+  });
+
+  it('when the same bytes are sent again, then 409 names the earlier file and nothing more is kept', async () => {
+    const { send, study } = await signedIn(inS3);
+    const bytes = fixture('series-comma-mM.csv');
+    const first = await send('series-comma-mM.csv', bytes);
+    expect(first.status).toBe(201);
+    const again = await send('copy.csv', bytes);
+    expect(again.status).toBe(409);
+    expect(again.body.error.message).toContain('"series-comma-mM.csv"');
+    expect(await StudyUpload.count({ where: { sha256: sha256(bytes), studyId: study.id } })).toBe(1);
+  });
+
+  it('when the object store does not answer, then 503, no upload row is kept, and a later send is accepted', async () => {
+    const down = await signedIn(storeDown);
+    const bytes = Buffer.from(`[Q] (mM),intensity\n0,1000\n1,${crypto.randomInt(500, 900)}\n2,600\n`);
+    const refused = await down.send('series.csv', bytes);
+    expect(refused.status, JSON.stringify(refused.body)).toBe(503);
+    expect(refused.body.error.code).toBe('file_store_unavailable');
+    expect(await StudyUpload.count({ where: { sha256: sha256(bytes) } })).toBe(0);
+    expect((await down.client.get(down.base)).body.uploads).toEqual([]);
+    // The same user sends the same bytes once the store is back (here: the app with a working bucket).
+    const retry = await (await signedIn(inS3)).send('series.csv', bytes);
+    expect(retry.status, JSON.stringify(retry.body)).toBe(201);
+  });
+});
+
+describe('npm run files:move-to-s3 (moveFilesToS3)', () => {
+  it('when files kept in the database are moved, then each lives in the bucket with the same SHA-256 and downloads unchanged', async () => {
+    const { send, download } = await signedIn(inDatabase);
+    const bytes = fixture('series-tab-ratio.tsv');
+    const received = await send('series-tab-ratio.tsv', bytes);
+    expect(received.status).toBe(201);
+    const lines: string[] = [];
+    const result = await moveFilesToS3(s3, (line) => lines.push(line), { labId });
+    expect(result.refused).toBe(0);
+    expect(result.moved).toBeGreaterThanOrEqual(1);
+    expect(await StudyUpload.count({ where: { storage: 'database', labId } })).toBe(0);
+    const row = await StudyUpload.findByPk(received.body.upload.id);
+    expect(row).toMatchObject({ storage: 's3', content: null });
+    expect(sha256(await s3.get(row!.storageKey!))).toBe(row!.sha256);
+    expect(lines.some((line) => line.includes(row!.id) && line.includes('SHA-256 checked'))).toBe(true);
+    // The app that writes to the database still reads the moved file from the bucket.
+    const again = await download(row!.id);
+    expect(Buffer.compare(again.body as Buffer, bytes)).toBe(0);
+  });
+});
