@@ -10,6 +10,7 @@ import {
 import { importReportSchema, libraryImportSchema } from '@shared/schemas/library-import';
 import { compoundDetailSchema } from '@shared/schemas/library-views';
 import { defineRoute } from '../http/define-route';
+import { sendDownload } from '../http/send-download';
 import { labOf, signedInActor } from '../http/request-context';
 import {
   createCompound,
@@ -64,9 +65,11 @@ export const compoundRoutes = [
     request: { params: labParamsSchema },
     responses: { 200: { description: 'text/csv, one row per compound, potential, lifetime or E00' } },
     handler: async ({ req, res }) => {
-      const csv = await exportLibraryCsv(labOf(req));
-      res.setHeader('Content-Disposition', 'attachment; filename="halflight-library.csv"');
-      res.type('text/csv; charset=utf-8').send(csv);
+      sendDownload(res, {
+        fileName: 'halflight-library.csv',
+        type: 'text/csv; charset=utf-8',
+        body: await exportLibraryCsv(labOf(req)),
+      });
     },
   }),
   defineRoute({

@@ -12,6 +12,7 @@ import { studyDetailSchema, studyHistorySchema } from '@shared/schemas/study-det
 import { fitListSchema, runFitSchema, studyFitSchema } from '@shared/schemas/study-fits';
 import { replacePointsSchema } from '@shared/schemas/study-points';
 import { defineRoute } from '../http/define-route';
+import { sendDownload } from '../http/send-download';
 import { labOf, signedInActor } from '../http/request-context';
 import { exportFitCsv, exportPointsCsv } from '../services/studies/study-export.service';
 import { runFit } from '../services/studies/study-run-fit.service';
@@ -177,8 +178,7 @@ export const studyRoutes = [
         query.part === 'fit'
           ? await exportFitCsv(labOf(req), params.studyId)
           : await exportPointsCsv(labOf(req), params.studyId);
-      res.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
-      res.type('text/csv').send(file.body);
+      sendDownload(res, { fileName: file.fileName, type: 'text/csv', body: file.body });
     },
   }),
 ];

@@ -9,6 +9,7 @@ import {
 } from '@shared/schemas/study-uploads';
 import { studyDetailSchema } from '@shared/schemas/study-detail';
 import { defineRoute } from '../http/define-route';
+import { sendDownload } from '../http/send-download';
 import { labOf, signedInActor } from '../http/request-context';
 import { AppError } from '../lib/app-error';
 import { ACCEPTED_EXTENSIONS, isAcceptedFile, MAX_UPLOAD_BYTES } from '../services/studies/parse/read-upload';
@@ -17,6 +18,8 @@ import { getStudyDetail } from '../services/studies/study.service';
 
 const single = multer({
   storage: multer.memoryStorage(),
+  // Browsers send UTF-8 names without saying so; multer's default (latin1) turned "μM" into "Î¼M".
+  defParamCharset: 'utf8',
   limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 },
 }).single('file');
 
@@ -141,9 +144,7 @@ export const studyUploadRoutes = [
     },
     handler: async ({ req, res, params }) => {
       const file = await downloadUpload(req.app.locals.services.files, labOf(req), params.studyId, params.uploadId);
-      res.setHeader('Content-Disposition', `attachment; filename="${file.fileName.replace(/["\\\r\n]/g, '_')}"`);
-      res.setHeader('X-Content-Type-Options', 'nosniff');
-      res.type('application/octet-stream').send(file.content);
+      sendDownload(res, { fileName: file.fileName, type: 'application/octet-stream', body: file.content });
     },
   }),
 ];
