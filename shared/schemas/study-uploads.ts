@@ -13,7 +13,10 @@ const column = z.number().int().min(0).describe('0-based column index in the par
 export const seriesMappingSchema = z.object({
   layout: z.literal('series'),
   concentration: column,
-  concentrationUnit: z.enum(concentrationUnits),
+  concentrationUnit: z
+    .enum(concentrationUnits)
+    .nullable()
+    .describe('null until chosen: a header without a unit is never read as mol/L silently'),
   intensity: column.nullable(),
   intensityIsRatio: z.boolean().describe('the column already holds I0/I'),
   lifetime: column.nullable(),
@@ -40,6 +43,13 @@ export const spectrumMappingSchema = z.object({
       .object({ kind: z.literal('wavelength'), at: z.number().finite() })
       .describe('intensity at one wavelength, nm (linear interpolation)'),
   ]),
+  baseline: z
+    .object({ start: z.number().finite(), end: z.number().finite() })
+    .nullable()
+    .default(null)
+    .describe(
+      'a region without emission, nm: its mean intensity (trapezoid integral / width) is subtracted from each spectrum before the reduction',
+    ),
 });
 
 export const uploadMappingSchema = z

@@ -64,9 +64,22 @@ describe('POST /api/labs/:labId/studies/:studyId/uploads', () => {
         sha256: crypto.createHash('sha256').update(fixture(name)).digest('hex'),
       });
       expect((await client.get(base(study.id))).body.points).toHaveLength(0); // nothing saved before confirming
+      let mapping = preview.body.mapping;
+      if (name === 'series-whitespace.txt') {
+        // No header, so no unit: the preview asks, and applying without one saves nothing.
+        expect(mapping.concentrationUnit).toBeNull();
+        expect(preview.body.warnings).toEqual([expect.stringContaining('names no unit')]);
+        const refused = await client.post(`${base(study.id)}/uploads/${preview.body.upload.id}/apply`, {
+          version: study.version,
+          mapping,
+        });
+        expect(refused.status).toBe(422);
+        expect(refused.body.error.code).toBe('unit_needed');
+        mapping = { ...mapping, concentrationUnit: 'M' };
+      }
       const applied = await client.post(`${base(study.id)}/uploads/${preview.body.upload.id}/apply`, {
         version: study.version,
-        mapping: preview.body.mapping,
+        mapping,
       });
       expect(applied.status, JSON.stringify(applied.body)).toBe(200);
       // rounding in the files (6 significant digits or more) moves K_SV by far less than 0.01 %

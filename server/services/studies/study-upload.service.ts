@@ -116,7 +116,11 @@ export async function receiveUpload(
     attributes: ['id', 'fileName', 'createdAt', 'parseStatus'],
   });
   if (earlier && earlier.parseStatus !== 'failed') throw duplicate(earlier);
-  const outcome = await services.uploadReader.read(file.originalname, file.buffer, null);
+  const outcome = await services.uploadReader.read(file.originalname, file.buffer, null, {
+    windowStart: study.windowStart,
+    windowEnd: study.windowEnd,
+    emissionWavelength: study.emissionWavelength,
+  });
   const report = parseReportOf(outcome);
   const failed = 'problem' in report;
   const fields = {
@@ -211,6 +215,13 @@ export async function applyUpload(
   input: { version: number; mapping: UploadMapping; mode: 'replace' | 'append' },
   actor: SignedInActor,
 ) {
+  if (input.mapping.layout === 'series' && input.mapping.concentrationUnit === null)
+    throw new AppError(
+      'unit_needed',
+      'Nothing was saved: choose the unit of the concentration column; Halflight does not guess one.',
+      422,
+      [{ path: 'body.mapping.concentrationUnit', message: 'choose M, mM, uM or nM' }],
+    );
   const found = await findUpload(lab, studyId, uploadId);
   const outcome = await services.uploadReader.read(found.fileName, await services.files.read(found), input.mapping);
   if (outcome.kind === 'limit') throw overLimit(outcome, null);

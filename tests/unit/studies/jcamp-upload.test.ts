@@ -49,6 +49,7 @@ describe('JCAMP-DX uploads (read with jcampconverter)', () => {
         { column: 3, concentration: 2e-3 },
       ],
       reduction: { kind: 'window', start: 450, end: 550 },
+      baseline: null,
     });
     expect(mappingNotes(table, mapping)).toEqual([
       expect.stringContaining('"HL-Ir-7 titration point 4" names no quencher concentration'),

@@ -10,9 +10,11 @@ import { integrateWindow, valueAt } from '../../../server/services/studies/parse
 
 // Fixtures are invented test data built from exact Stern–Volmer lines (tests/fixtures/uploads/README.md).
 const fixture = (name: string) => fs.readFileSync(path.join(import.meta.dirname, '../../fixtures/uploads', name));
-const read = async (name: string) => {
+/** Reads a fixture with the proposed mapping; `unit` answers the preview's question when a header names none. */
+const read = async (name: string, unit?: 'M') => {
   const table = await readUpload(name, fixture(name));
-  const mapping = proposeMapping(table);
+  const proposed = proposeMapping(table);
+  const mapping = unit && proposed.layout === 'series' ? { ...proposed, concentrationUnit: unit } : proposed;
   return { table, mapping, ...applyMapping(table, mapping) };
 };
 
@@ -57,7 +59,9 @@ describe('reading fixture files', () => {
     expect(points[5]!.intensity).toBeCloseTo(1 + 800 * 5e-3, 6);
   });
   it('when columns are separated by spaces without a header, then columns are taken by position', async () => {
-    const { points, problems, table } = await read('series-whitespace.txt');
+    const proposed = proposeMapping(await readUpload('series-whitespace.txt', fixture('series-whitespace.txt')));
+    expect(proposed).toMatchObject({ layout: 'series', concentrationUnit: null }); // no header, so no unit: the user chooses
+    const { points, problems, table } = await read('series-whitespace.txt', 'M');
     expect(problems).toEqual([]);
     expect(table.format).toMatch(/whitespace/);
     expect(points).toHaveLength(5);

@@ -34,6 +34,12 @@ function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParsePr
   for (const [name, index] of roles) requireColumn(table, index, name);
   if (mapping.intensity === null && mapping.lifetime === null)
     throw new ParseProblem('Map an intensity (or I0/I) column or a lifetime column.');
+  if (mapping.concentrationUnit === null)
+    throw new ParseProblem(
+      `Choose the unit of the concentration column ${columnName(table, mapping.concentration)}: its header names none, and Halflight does not guess one.`,
+      null,
+      columnName(table, mapping.concentration),
+    );
   const scale: Record<string, number> = {
     concentration: CONCENTRATION_FACTORS[mapping.concentrationUnit],
     lifetime: TIME_FACTORS[mapping.lifetimeUnit],
@@ -112,21 +118,30 @@ function spectrumPoints(table: RawTable, mapping: SpectrumMapping, problems: Par
     return { x, y };
   });
   if (problems.length > 0) return [];
-  return mapping.samples.map((sample, i) => ({
-    concentration: sample.concentration,
-    intensity:
-      mapping.reduction.kind === 'window'
-        ? integrateWindow(spectra[i]!.x, spectra[i]!.y, mapping.reduction.start, mapping.reduction.end)
-        : valueAt(spectra[i]!.x, spectra[i]!.y, mapping.reduction.at),
-    lifetime: null,
-    absorbanceExcitation: null,
-    absorbanceEmission: null,
-    volumeAdded: null,
-    uncertainty: null,
-    excluded: false,
-    exclusionReason: null,
-  }));
+  const { reduction, baseline } = mapping;
+  return mapping.samples.map((sample, i) => {
+    const { x, y } = spectra[i]!;
+    // The mean over the baseline region is the offset under the whole spectrum (stray light, dark counts).
+    const offset = baseline ? integrateWindow(x, y, baseline.start, baseline.end) / (baseline.end - baseline.start) : 0;
+    const intensity =
+      reduction.kind === 'window'
+        ? integrateWindow(x, y, reduction.start, reduction.end) - offset * (reduction.end - reduction.start)
+        : valueAt(x, y, reduction.at) - offset;
+    return spectrumPoint(sample.concentration, intensity);
+  });
 }
+
+const spectrumPoint = (concentration: number, intensity: number): StudyPointValues => ({
+  concentration,
+  intensity,
+  lifetime: null,
+  absorbanceExcitation: null,
+  absorbanceEmission: null,
+  volumeAdded: null,
+  uncertainty: null,
+  excluded: false,
+  exclusionReason: null,
+});
 
 /** Table + mapping -> series points in SI units; every bad cell is reported by row and column. */
 export function applyMapping(

@@ -43,12 +43,50 @@ export function mappingNotes(table: RawTable, mapping: UploadMapping): string[] 
   );
 }
 
+/** What the study says about reading its emission, used as the spectrum reduction's default. */
+export interface StudyReading {
+  windowStart: number | null;
+  windowEnd: number | null;
+  emissionWavelength: number | null;
+}
+export const NO_STUDY_READING: StudyReading = { windowStart: null, windowEnd: null, emissionWavelength: null };
+
+/**
+ * The study's emission window (or wavelength) when the spectra cover it, else the range all
+ * spectra share; a note says when the study's choice could not be used.
+ */
+function defaultReduction(range: { low: number; high: number }, study: StudyReading) {
+  const covered = (nm: number) => nm >= range.low && nm <= range.high;
+  const { windowStart: start, windowEnd: end, emissionWavelength: at } = study;
+  if (start !== null && end !== null && end > start) {
+    if (covered(start) && covered(end)) return { reduction: { kind: 'window' as const, start, end }, note: null };
+    return {
+      reduction: { kind: 'window' as const, start: range.low, end: range.high },
+      note: `The study's emission window ${start}–${end} nm reaches outside the spectra (${range.low}–${range.high} nm); the whole shared range is proposed instead.`,
+    };
+  }
+  if (at !== null) {
+    if (covered(at)) return { reduction: { kind: 'wavelength' as const, at }, note: null };
+    return {
+      reduction: { kind: 'window' as const, start: range.low, end: range.high },
+      note: `The study's emission wavelength ${at} nm lies outside the spectra (${range.low}–${range.high} nm); the whole shared range is proposed instead.`,
+    };
+  }
+  return { reduction: { kind: 'window' as const, start: range.low, end: range.high }, note: null };
+}
+
 /**
  * A first guess at the mapping from the headers: a spectrum matrix when the first column is a
- * wavelength and the others name concentrations; otherwise a series by column names (or by
- * position: concentration, intensity, lifetime, uncertainty).
+ * wavelength and the others name concentrations (reduced over the study's emission window or
+ * at its emission wavelength when it has one); otherwise a series by column names (or by
+ * position: concentration, intensity, lifetime, uncertainty). A concentration header without
+ * a unit leaves the unit open (null): the preview asks for it.
  */
-export function proposeMapping(table: RawTable): UploadMapping {
+export function proposeMapping(table: RawTable, study: StudyReading = NO_STUDY_READING): UploadMapping {
+  return proposeWithNotes(table, study).mapping;
+}
+
+export function proposeWithNotes(table: RawTable, study: StudyReading): { mapping: UploadMapping; notes: string[] } {
   const { headers } = table;
   const sampleColumns = headers
     .slice(1)
@@ -62,11 +100,15 @@ export function proposeMapping(table: RawTable): UploadMapping {
     const samples = sampleColumns.flatMap((sample) =>
       sample.concentration === null ? [] : [{ column: sample.column, concentration: sample.concentration }],
     );
-    const { low, high } = sharedRange(
+    const range = sharedRange(
       table,
       sampleColumns.map((sample) => sample.column),
     );
-    return { layout: 'spectrum', wavelength: 0, samples, reduction: { kind: 'window', start: low, end: high } };
+    const { reduction, note } = defaultReduction(range, study);
+    return {
+      mapping: { layout: 'spectrum', wavelength: 0, samples, reduction, baseline: null },
+      notes: note ? [note] : [],
+    };
   }
   const taken = new Set<number>();
   const concentration = find(headers, /conc|\[q\]|quench|^c\b|^q\b/i, taken) ?? (taken.add(0), 0);
@@ -80,10 +122,10 @@ export function proposeMapping(table: RawTable): UploadMapping {
   const free = headers.map((_, i) => i).filter((i) => !taken.has(i));
   const byPosition = intensity ?? free.shift() ?? null;
   const concentrationHeader = headers[concentration]!;
-  return {
+  const mapping: UploadMapping = {
     layout: 'series',
     concentration,
-    concentrationUnit: concentrationUnitOf(concentrationHeader) ?? 'M',
+    concentrationUnit: concentrationUnitOf(concentrationHeader),
     intensity: byPosition,
     intensityIsRatio: ratio !== null,
     lifetime:
@@ -95,4 +137,5 @@ export function proposeMapping(table: RawTable): UploadMapping {
     volumeUnit: volumeAdded !== null ? (volumeUnitOf(headers[volumeAdded]!) ?? 'L') : 'L',
     uncertainty,
   };
+  return { mapping, notes: [] };
 }

@@ -2,7 +2,8 @@ import type { StudyPointValues } from '@shared/schemas/study-points';
 import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { applyMapping } from './apply-mapping';
 import { ParseProblem } from './parse-problem';
-import { mappingNotes, proposeMapping } from './propose-mapping';
+import { mappingNotes, NO_STUDY_READING, proposeWithNotes, type StudyReading } from './propose-mapping';
+import { questionPoints } from './question-points';
 import { readUpload } from './read-upload';
 import { limitMessage, UploadLimitExceeded, type UploadLimits } from './upload-limits';
 
@@ -12,6 +13,8 @@ export interface ReadTask {
   bytes: Uint8Array;
   mapping: UploadMapping | null;
   limits: UploadLimits;
+  /** the study's emission window or wavelength, the default reduction of spectra */
+  study?: StudyReading;
 }
 
 export interface Problem {
@@ -63,8 +66,16 @@ export async function readAndMap(task: ReadTask): Promise<ReadOutcome> {
       Buffer.from(task.bytes.buffer, task.bytes.byteOffset, task.bytes.byteLength),
       task.limits,
     );
-    const mapping = task.mapping ?? proposeMapping(table);
-    const { points, problems } = applyMapping(table, mapping);
+    const proposal = task.mapping ? null : proposeWithNotes(table, task.study ?? NO_STUDY_READING);
+    const mapping = task.mapping ?? proposal!.mapping;
+    const unitOpen = mapping.layout === 'series' && mapping.concentrationUnit === null;
+    // Without a concentration unit there are no points yet: the preview asks for the unit first.
+    const { points, problems } = unitOpen ? { points: [], problems: [] } : applyMapping(table, mapping);
+    const questions = unitOpen
+      ? [
+          `The concentration column "${table.headers[mapping.concentration] ?? ''}" names no unit: choose M, mM, µM or nM (Halflight does not guess one).`,
+        ]
+      : questionPoints(points, mapping.layout === 'series' && mapping.intensityIsRatio);
     if (points.length > task.limits.seriesPoints)
       throw new UploadLimitExceeded('seriesPoints', limitMessage.seriesPoints(task.limits, points.length));
     const shownRows = Math.max(
@@ -84,7 +95,7 @@ export async function readAndMap(task: ReadTask): Promise<ReadOutcome> {
       mapping,
       points,
       problems: problems.map(toProblem),
-      warnings: mappingNotes(table, mapping),
+      warnings: [...(proposal?.notes ?? []), ...questions, ...mappingNotes(table, mapping)],
     };
   } catch (error) {
     if (error instanceof ParseProblem) return { kind: 'unreadable', problems: [toProblem(error)] };

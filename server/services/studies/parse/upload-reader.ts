@@ -2,13 +2,14 @@ import fs from 'node:fs';
 import { Piscina } from 'piscina';
 import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { AppError } from '../../../lib/app-error';
+import type { StudyReading } from './propose-mapping';
 import type { ReadOutcome, ReadTask } from './read-and-map';
 import { DEFAULT_UPLOAD_LIMITS, limitMessage, type UploadLimits } from './upload-limits';
 
 export interface UploadReader {
   readonly limits: UploadLimits;
   /** Reads the bytes and applies the mapping (or proposes one) off the main thread, within the limits. */
-  read(fileName: string, bytes: Uint8Array, mapping: UploadMapping | null): Promise<ReadOutcome>;
+  read(fileName: string, bytes: Uint8Array, mapping: UploadMapping | null, study?: StudyReading): Promise<ReadOutcome>;
   close(): Promise<void>;
 }
 
@@ -58,10 +59,10 @@ export function createUploadReader(options: UploadReaderOptions = {}): UploadRea
   });
   return {
     limits,
-    async read(fileName, bytes, mapping) {
+    async read(fileName, bytes, mapping, study) {
       try {
         return await pool.run(
-          { fileName, bytes, mapping, limits },
+          { fileName, bytes, mapping, limits, study },
           { signal: AbortSignal.timeout(limits.seconds * 1000) },
         );
       } catch (error) {

@@ -83,6 +83,7 @@ export function MappingEditor({
             }
           />
         )}
+        <BaselineFields mapping={mapping} onChange={onChange} />
       </div>
     );
   }
@@ -93,9 +94,13 @@ export function MappingEditor({
   ) => (
     <SelectField
       label={label}
-      value={mapping[key]}
-      options={units.map((unit) => ({ value: unit, label: unitLabel(unit) }))}
-      onChange={(event) => onChange({ ...mapping, [key]: event.target.value } as UploadMapping)}
+      value={mapping[key] ?? ''}
+      options={[
+        // A header without a unit leaves the concentration unit open until the user chooses one.
+        ...(mapping[key] === null ? [{ value: '', label: '— choose —' }] : []),
+        ...units.map((unit) => ({ value: unit, label: unitLabel(unit) })),
+      ]}
+      onChange={(event) => onChange({ ...mapping, [key]: event.target.value || null } as UploadMapping)}
     />
   );
   return (
@@ -125,6 +130,44 @@ export function MappingEditor({
         />
         Column holds I0/I ratios
       </label>
+    </div>
+  );
+}
+
+type Spectrum = Extract<UploadMapping, { layout: 'spectrum' }>;
+
+/** An optional region without emission whose mean intensity is taken off every spectrum. */
+function BaselineFields({ mapping, onChange }: { mapping: Spectrum; onChange: (next: UploadMapping) => void }) {
+  const { baseline } = mapping;
+  return (
+    <div className="flex w-full flex-wrap items-end gap-3">
+      <label className="flex items-center gap-2 pb-2 text-body font-bold text-ink-900">
+        <input
+          type="checkbox"
+          checked={baseline !== null}
+          onChange={(event) => onChange({ ...mapping, baseline: event.target.checked ? { start: 0, end: 0 } : null })}
+        />
+        Subtract a baseline
+      </label>
+      {baseline && (
+        <>
+          <TextField
+            label="Baseline from (nm)"
+            type="number"
+            value={baseline.start}
+            onChange={(event) => onChange({ ...mapping, baseline: { ...baseline, start: Number(event.target.value) } })}
+          />
+          <TextField
+            label="Baseline to (nm)"
+            type="number"
+            value={baseline.end}
+            onChange={(event) => onChange({ ...mapping, baseline: { ...baseline, end: Number(event.target.value) } })}
+          />
+          <p className="pb-2 text-caption text-ink-500">
+            Choose a region where the sample does not emit; its mean is taken off each spectrum.
+          </p>
+        </>
+      )}
     </div>
   );
 }
