@@ -85,6 +85,7 @@ describe('MappingEditor', () => {
         { column: 2, concentration: 0.002 },
       ],
       reduction: { kind: 'window', start: 560, end: 680 },
+      baseline: null,
     };
     const seen = vi.fn();
     render(<Editor headers={['nm', '0 mM', '2 mM', 'unknown']} start={spectrum} seen={seen} />);
@@ -95,5 +96,26 @@ describe('MappingEditor', () => {
     expect(screen.queryByLabelText('From (nm)')).toBeNull();
     await userEvent.type(screen.getByLabelText('At (nm)'), '615');
     expect(seen).toHaveBeenLastCalledWith({ ...spectrum, reduction: { kind: 'wavelength', at: 615 } });
+    await userEvent.click(screen.getByLabelText('Subtract a baseline'));
+    await userEvent.clear(screen.getByLabelText('Baseline from (nm)'));
+    await userEvent.type(screen.getByLabelText('Baseline from (nm)'), '750');
+    await userEvent.clear(screen.getByLabelText('Baseline to (nm)'));
+    await userEvent.type(screen.getByLabelText('Baseline to (nm)'), '800');
+    expect(seen).toHaveBeenLastCalledWith({
+      ...spectrum,
+      reduction: { kind: 'wavelength', at: 615 },
+      baseline: { start: 750, end: 800 },
+    });
+  });
+
+  it('when the file names no concentration unit, then the unit reads "choose" until one is picked', async () => {
+    const seen = vi.fn();
+    const open = { ...series, concentrationUnit: null };
+    render(<Editor headers={headers} start={open} seen={seen} />);
+    const unit = screen.getByLabelText<HTMLSelectElement>('Concentration unit');
+    expect(unit.value).toBe('');
+    expect(within(unit).getAllByRole('option')[0]!.textContent).toBe('— choose —');
+    await userEvent.selectOptions(unit, 'mM');
+    expect(seen).toHaveBeenLastCalledWith({ ...open, concentrationUnit: 'mM' });
   });
 });
