@@ -1,6 +1,7 @@
 import type { Request, RequestHandler, Response } from 'express';
 import type { z } from 'zod';
 import type { Role } from '@shared/schemas/roles';
+import { storableInput } from '@shared/schemas/storable-text';
 import { AppError } from '../lib/app-error';
 import type { RateLimitName } from '../middleware/security';
 
@@ -53,9 +54,11 @@ export function defineRoute<P = Record<string, never>, Q = Record<string, never>
 export type AnyRouteSpec = RouteSpec<any, any, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
 
 function parsePart<T>(schema: z.ZodType<T> | undefined, value: unknown, part: string): T {
-  if (!schema) return value as T;
-  const result = schema.safeParse(value);
-  if (result.success) return result.data;
+  // Text PostgreSQL cannot store (NUL, lone surrogates) is refused in every part of every route
+  // first, naming the field; then the route's own schema runs.
+  const checked = schema ? storableInput.pipe(schema) : storableInput;
+  const result = checked.safeParse(value);
+  if (result.success) return result.data as T;
   throw new AppError(
     'validation_failed',
     `The request ${part} has ${result.error.issues.length === 1 ? 'a problem' : 'problems'}: ` +
