@@ -74,3 +74,19 @@ export {
 export { energyTransferFeasibility, type EnergyTransferFeasibility } from './electrochem/energy-transfer-feasibility';
 
 export { planTitration, DILUTION_WARNING, type TitrationPlan, type TitrationStep } from './planner/plan-titration';
+
+export {
+  fitDecay,
+  MIN_CHANNELS_ABOVE_BACKGROUND,
+  CHI_SQUARED_BAND,
+  PILE_UP_SHARE,
+  PEAK_COUNTS_NEEDED,
+} from './decays/fit-decay';
+export { decayCurves, type DecayCurves } from './decays/decay-curves';
+export { decayFlag, type DecayFlag, type DecayFlagCode } from './decays/decay-flag';
+export { convolveExponential } from './decays/convolve-exponential';
+export { residualAutocorrelation } from './decays/residual-autocorrelation';
+export { meanLifetimes } from './decays/mean-lifetimes';
+export { prepareResponse, type PreparedResponse } from './decays/prepare-response';
+export { evaluateDecayModel, decayWorkspace, type DecayModelSetup } from './decays/decay-model';
+export type { DecayComponent, DecayEstimate, DecayFit, DecayFitOptions, DecayInput } from './decays/decay-types';
