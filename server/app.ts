@@ -7,10 +7,11 @@ import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import type { Sequelize } from 'sequelize';
 import { createPassport } from './auth/passport';
-import { createSessionMiddleware } from './auth/session';
+import { createSessionMiddleware, enforceSessionLifetime } from './auth/session';
 import { projectRoot } from './config/env';
 import { toHandler } from './http/define-route';
 import type { AnyRouteSpec, RouteAccess } from './http/define-route';
+import { logRedactPaths, redactUrl } from './http/log-redaction';
 import { buildOpenApiDocument } from './http/openapi';
 import { createJobQueue } from './jobs/job-queue';
 import type { JobQueue } from './jobs/job-queue';
@@ -19,8 +20,9 @@ import { registerMailJobs } from './mail/mail-jobs';
 import type { Mailer } from './mail/mailer';
 import { requireAuth, requireLabRole } from './middleware/access';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
-import { createRateLimiters, csrfProtection, defaultRateLimits, securityHeaders } from './middleware/security';
-import type { RateLimitName, RateLimitSettings } from './middleware/security';
+import { createRateLimits, defaultRateLimits } from './middleware/rate-limits';
+import type { RateLimitName, RateLimits, RateLimitSettings } from './middleware/rate-limits';
+import { csrfProtection, securityHeaders } from './middleware/security';
 import { apiRoutes } from './routes';
 import { createRawFileStore, type RawFileStore } from './services/studies/files/raw-file-store';
 import { createUploadReader, type UploadReader } from './services/studies/parse/upload-reader';
@@ -31,6 +33,8 @@ export interface AppServices {
   embeddedDatabase: boolean;
   /** Background jobs in PostgreSQL; every e-mail goes through it. */
   jobs: JobQueue;
+  /** Attempt counters in PostgreSQL (sign-in failures, resets, hash work). */
+  rateLimits: RateLimits;
   /** True when outgoing mail goes to the local catcher (people read their own in the app). */
   mailCatcher: boolean;
   /** Base address for links in e-mails, e.g. http://127.0.0.1:4310 */
@@ -61,9 +65,18 @@ export interface CreateAppOptions {
   jobWorker?: boolean;
   /** First retry delay of a failed job in seconds (default 5; tests use 1). */
   jobRetryDelaySeconds?: number;
-  /** Behind a TLS-terminating proxy: secure cookies, HSTS, trust X-Forwarded-*. */
+  /** Behind a TLS-terminating proxy: secure cookies, HSTS. */
   behindTls?: boolean;
+  /**
+   * Which proxies' X-Forwarded-For to believe for the client address: a hop count or the
+   * proxies' addresses/subnets (Express "trust proxy"). Default: none, the socket's address.
+   */
+  trustProxy?: number | string[] | false;
   rateLimits?: Partial<Record<RateLimitName, RateLimitSettings>>;
+  /** Absolute lifetime of a sign-in in ms (default 7 days), besides the 12-hour idle timeout. */
+  sessionAbsoluteMs?: number;
+  /** Prefix of the attempt counters; instances that should count together share it (default "halflight"). */
+  rateLimitNamespace?: string;
   /** Folder of the built client; defaults to dist/client/ in the project. */
   clientDir?: string;
   routes?: AnyRouteSpec[];
@@ -89,10 +102,11 @@ function accessGuards(access: RouteAccess): RequestHandler[] {
 /** Builds the Express application without listening (server/index.ts listens; tests import this). */
 export function createApp(options: CreateAppOptions): HalflightApp {
   const routes = options.routes ?? apiRoutes;
+  const logger = options.logger.child({}, { redact: { paths: logRedactPaths, censor: '[Redacted]' } });
   const secure = options.behindTls ?? false;
   const app = express() as HalflightApp;
   app.disable('x-powered-by');
-  if (secure) app.set('trust proxy', 1);
+  app.set('trust proxy', options.trustProxy ?? false);
 
   const session = createSessionMiddleware({
     databaseUrl: options.databaseUrl,
@@ -102,21 +116,26 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   });
   const passport = createPassport();
   const csrf = csrfProtection(options.sessionSecret, secure);
-  const limiters = createRateLimiters({ ...defaultRateLimits, ...options.rateLimits });
+  const rateLimits = createRateLimits(
+    options.sequelize,
+    { ...defaultRateLimits, ...options.rateLimits },
+    options.rateLimitNamespace,
+  );
   const publicUrl = options.publicUrl.replace(/\/$/, '');
   const jobs = createJobQueue({
     databaseUrl: options.databaseUrl,
     sequelize: options.sequelize,
-    logger: options.logger,
+    logger,
     runWorker: options.jobWorker ?? true,
     retryDelaySeconds: options.jobRetryDelaySeconds,
   });
-  registerMailJobs(jobs, { sequelize: options.sequelize, mailer: options.mailer, publicUrl, logger: options.logger });
+  registerMailJobs(jobs, { sequelize: options.sequelize, mailer: options.mailer, publicUrl, logger });
   const uploadReader = createUploadReader({ limits: options.uploadLimits });
   app.locals.services = {
     sequelize: options.sequelize,
     embeddedDatabase: options.embeddedDatabase,
     jobs,
+    rateLimits,
     mailCatcher: options.mailCatcher,
     publicUrl,
     passport,
@@ -132,13 +151,26 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     await Promise.all([session.close(), uploadReader.close()]);
   };
 
-  app.use(pinoHttp({ logger: options.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      serializers: { req: (req: { url: string }) => Object.assign(req, { url: redactUrl(req.url) }) },
+    }),
+  );
   app.use(securityHeaders(secure));
-  app.use('/api', express.json({ limit: '1mb' }), cookieParser(), session.middleware, passport.session());
+  app.use(
+    '/api',
+    express.json({ limit: '1mb' }),
+    cookieParser(),
+    session.middleware,
+    passport.session(),
+    enforceSessionLifetime(options.sessionAbsoluteMs),
+  );
   app.use('/api', csrf.doubleCsrfProtection);
 
   for (const route of routes) {
-    const limiter = route.rateLimit ? [limiters[route.rateLimit]] : [];
+    const limiter = route.rateLimit ? [rateLimits.guards[route.rateLimit]] : [];
     app[route.method](route.path, ...accessGuards(route.access), ...limiter, toHandler(route));
   }
   app.use('/api', apiNotFound);

@@ -3,6 +3,7 @@ import type { RouteObject } from 'react-router-dom';
 import { routePatterns as at } from '@/lib/paths';
 import { AcceptInvitationRoute } from '@/routes/accept-invitation';
 import { AccountRoute } from '@/routes/account';
+import { AccountSessionsRoute } from '@/routes/account-sessions';
 import { CaughtMailRoute } from '@/routes/caught-mail';
 import { CompareRoute } from '@/routes/compare';
 import { CompoundDetailRoute } from '@/routes/compound-detail';
@@ -55,6 +56,8 @@ export const appRoutes: RouteObject[] = [
     children: [
       { index: true, element: <OverviewRoute />, errorElement: <RouteErrorScreen /> },
       screen(at.account, <AccountRoute />),
+      screen(at.accountSessions, <AccountSessionsRoute />),
+      screen(at.caughtMail, <CaughtMailRoute />),
       {
         // Every lab screen: the membership is looked up once, here, and handed down (useLab).
         path: at.lab,
@@ -63,6 +66,7 @@ export const appRoutes: RouteObject[] = [
         children: [
           { index: true, element: <NotFoundRoute /> },
           screen(at.members, <MembersRoute />),
+          // The caught-mail address of earlier versions (bookmarks); the mail is now per person.
           screen(at.caughtMail, <CaughtMailRoute />),
           screen(at.studies, <StudiesRoute />),
           screen(at.newStudy, <NewStudyRoute />),

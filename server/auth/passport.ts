@@ -1,7 +1,7 @@
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { User } from '../models';
-import { verifyPassword } from './passwords';
+import { hashPassword, needsRehash, verifyPassword } from './passwords';
 
 /** One passport instance per app: e-mail + password, the session holding only the user id. */
 export function createPassport(): InstanceType<typeof Passport> {
@@ -11,6 +11,10 @@ export function createPassport(): InstanceType<typeof Passport> {
       try {
         const user = await User.findOne({ where: { email: email.trim().toLowerCase() } });
         const valid = await verifyPassword(password, user?.passwordHash);
+        if (valid && user && needsRehash(user.passwordHash)) {
+          // An older hash (bcrypt) is replaced by scrypt now that the password is known to be right.
+          await user.update({ passwordHash: await hashPassword(password) });
+        }
         done(null, valid && user ? { id: user.id } : false);
       } catch (error) {
         done(error);

@@ -1,3 +1,4 @@
+import type { RequestHandler } from 'express';
 import connectPgSimple from 'connect-pg-simple';
 import session from 'express-session';
 import pg from 'pg';
@@ -6,7 +7,32 @@ import type { Logger } from 'pino';
 declare module 'express-session' {
   interface SessionData {
     csrfIssued?: boolean;
+    /** When the person signed in (ms since the epoch): the absolute lifetime counts from here. */
+    signedInAt?: number;
+    userAgent?: string;
+    ip?: string;
   }
+}
+
+/** Idle timeout (the cookie rolls with each request) and the absolute lifetime of a sign-in. */
+export const sessionIdleMs = 12 * 60 * 60_000;
+export const sessionAbsoluteMs = 7 * 24 * 60 * 60_000;
+
+/**
+ * Ends a signed-in session older than the absolute lifetime, however active it was (and one that
+ * never recorded when it started). The request goes on signed out: guarded routes answer 401.
+ */
+export function enforceSessionLifetime(absoluteMs = sessionAbsoluteMs): RequestHandler {
+  return async (req, _res, next) => {
+    const signedInAt = req.session?.signedInAt;
+    if (req.user && (!signedInAt || Date.now() - signedInAt > absoluteMs)) {
+      await new Promise<void>((resolve, reject) =>
+        req.session.regenerate((error) => (error ? reject(error) : resolve())),
+      );
+      req.user = undefined;
+    }
+    next();
+  };
 }
 
 /**
@@ -39,7 +65,7 @@ export function createSessionMiddleware(options: {
     resave: false,
     saveUninitialized: false,
     rolling: true,
-    cookie: { httpOnly: true, sameSite: 'lax', secure: options.secure, maxAge: 12 * 60 * 60_000, path: '/' },
+    cookie: { httpOnly: true, sameSite: 'lax', secure: options.secure, maxAge: sessionIdleMs, path: '/' },
   });
   return {
     middleware,

@@ -1,4 +1,5 @@
 import type { Server } from 'node:http';
+import path from 'node:path';
 import { setTimeout as sleep } from 'node:timers/promises';
 import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
@@ -29,8 +30,15 @@ export async function startWeb(options: {
   const { config, logger } = options;
   let catcher: MailCatcher | undefined;
   if (!config.SMTP_URL) {
-    catcher = await startMailCatcher();
-    logger.info(`No SMTP_URL: outgoing mail is caught on 127.0.0.1:${catcher.port}; admins read it in the app.`);
+    const emlDir = path.join(config.HALFLIGHT_DATA_DIR, 'caught-mail');
+    catcher = await startMailCatcher({ emlDir, logger });
+    const where = `caught on 127.0.0.1:${catcher.port}, written under ${emlDir} and shown in the app to each addressee`;
+    if (config.demoData) logger.info(`No SMTP_URL: outgoing mail is ${where}.`);
+    else {
+      logger.warn(
+        `SMTP_URL is not set: no e-mail leaves this machine (it is ${where}). Set SMTP_URL on a real deployment.`,
+      );
+    }
   }
   const mailer = config.SMTP_URL
     ? createMailer(config.SMTP_URL, config.MAIL_FROM)
@@ -45,6 +53,7 @@ export async function startWeb(options: {
     mailCatcher: catcher !== undefined,
     publicUrl: config.publicUrl,
     behindTls: config.HALFLIGHT_BEHIND_TLS,
+    trustProxy: config.trustProxy,
     jobWorker: config.HALFLIGHT_JOB_WORKER,
     files: fileStoreFromConfig(config).files,
   });

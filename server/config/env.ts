@@ -36,13 +36,20 @@ const envSchema = z.object({
   HALFLIGHT_DEMO_DATA: booleanFlag.optional(),
   HALFLIGHT_BEHIND_TLS: booleanFlag.default(false),
   HALFLIGHT_JOB_WORKER: booleanFlag.default(true),
+  HALFLIGHT_TRUST_PROXY: z
+    .string()
+    .regex(
+      /^[0-9a-zA-Z:./,\s]+$/,
+      'must be a number of proxy hops (e.g. 1) or a comma-separated list of proxy addresses or subnets',
+    )
+    .optional(),
   HALFLIGHT_PUBLIC_URL: z
     .string()
     .regex(/^https?:\/\//, 'must start with http:// or https://')
     .optional(),
   MAIL_FROM: z.string().min(3).default('Halflight <no-reply@halflight.invalid>'),
   HALFLIGHT_FIRST_ADMIN_EMAIL: z.string().email('must be an e-mail address').optional(),
-  HALFLIGHT_FIRST_ADMIN_PASSWORD: z.string().min(10, 'must be at least 10 characters').optional(),
+  HALFLIGHT_FIRST_ADMIN_PASSWORD: z.string().min(12, 'must be at least 12 characters').optional(),
   HALFLIGHT_FIRST_LAB_NAME: z.string().min(1).max(160).optional(),
   HALFLIGHT_FILE_STORE: z.enum(['database', 's3']).default('database'),
   HALFLIGHT_S3_BUCKET: z.string().min(3).max(63).optional(),
@@ -54,7 +61,21 @@ const envSchema = z.object({
   HALFLIGHT_S3_PREFIX: z.string().default(''),
 });
 
-export type AppConfig = z.infer<typeof envSchema> & { demoData: boolean; publicUrl: string };
+export type AppConfig = z.infer<typeof envSchema> & {
+  demoData: boolean;
+  publicUrl: string;
+  trustProxy: number | string[] | false;
+};
+
+/** HALFLIGHT_TRUST_PROXY: a hop count, or the proxies' addresses and subnets; unset trusts none. */
+export function parseTrustProxy(value: string | undefined): number | string[] | false {
+  if (value === undefined || value.trim() === '') return false;
+  if (/^\d+$/.test(value.trim())) return Number(value.trim());
+  return value
+    .split(',')
+    .map((part) => part.trim())
+    .filter(Boolean);
+}
 
 /**
  * Reads configuration from environment variables and fails fast, naming each bad variable.
@@ -72,10 +93,18 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     throw new Error(
       'Halflight configuration is invalid:\n  HALFLIGHT_S3_BUCKET: required when HALFLIGHT_FILE_STORE=s3',
     );
+  const trustProxy = parseTrustProxy(config.HALFLIGHT_TRUST_PROXY);
+  if (config.HALFLIGHT_BEHIND_TLS && trustProxy === false) {
+    throw new Error(
+      'Halflight configuration is invalid:\n  HALFLIGHT_TRUST_PROXY: must be set with HALFLIGHT_BEHIND_TLS=true ' +
+        "(the proxy's address, e.g. 127.0.0.1, or its hop count, e.g. 1), so client addresses come from that proxy only",
+    );
+  }
   const shownHost = config.HOST === '0.0.0.0' ? '127.0.0.1' : config.HOST;
   return {
     ...config,
     demoData: config.HALFLIGHT_DEMO_DATA ?? config.DATABASE_URL === undefined,
+    trustProxy,
     publicUrl: (config.HALFLIGHT_PUBLIC_URL ?? `http://${shownHost}:${config.PORT}`).replace(/\/$/, ''),
   };
 }

@@ -3,7 +3,7 @@ import type { z } from 'zod';
 import type { Role } from '@shared/schemas/roles';
 import { storableInput } from '@shared/schemas/storable-text';
 import { AppError } from '../lib/app-error';
-import type { RateLimitName } from '../middleware/security';
+import type { RouteRateLimit } from '../middleware/rate-limits';
 
 /**
  * Who may call a route: anyone, any signed-in person, or a lab member with at least this role
@@ -40,8 +40,8 @@ export interface RouteSpec<P = unknown, Q = unknown, B = unknown> {
   request?: { params?: z.ZodType<P>; query?: z.ZodType<Q>; body?: z.ZodType<B> };
   responses: Record<number, RouteResponse>;
   access: RouteAccess;
-  /** A named rate limit applied before the handler (settings in middleware/security.ts). */
-  rateLimit?: RateLimitName;
+  /** A named attempt limit checked before the handler (middleware/rate-limits.ts). */
+  rateLimit?: RouteRateLimit;
   handler: (context: RouteContext<P, Q, B>) => Promise<void> | void;
 }
 
@@ -53,18 +53,40 @@ export function defineRoute<P = Record<string, never>, Q = Record<string, never>
 
 export type AnyRouteSpec = RouteSpec<any, any, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
 
+type Issue = z.core.$ZodIssue;
+
+/**
+ * A body that may take one of several shapes (z.union) fails with one vague issue; name the
+ * problems of the shape the request meant instead: one that has no field of another shape
+ * (no unrecognized key), and of those the one with the fewest problems.
+ */
+function plainIssues(issues: Issue[]): Issue[] {
+  return issues.flatMap((issue) => {
+    if (issue.code !== 'invalid_union' || !issue.errors.length) return [issue];
+    const meant = [...issue.errors]
+      .map((branch) => plainIssues(branch as Issue[]))
+      .sort(
+        (a, b) =>
+          Number(a.some((item) => item.code === 'unrecognized_keys')) -
+            Number(b.some((item) => item.code === 'unrecognized_keys')) || a.length - b.length,
+      )[0]!;
+    return meant.map((item) => ({ ...item, path: [...issue.path, ...item.path] }));
+  });
+}
+
 function parsePart<T>(schema: z.ZodType<T> | undefined, value: unknown, part: string): T {
   // Text PostgreSQL cannot store (NUL, lone surrogates) is refused in every part of every route
   // first, naming the field; then the route's own schema runs.
   const checked = schema ? storableInput.pipe(schema) : storableInput;
   const result = checked.safeParse(value);
   if (result.success) return result.data as T;
+  const issues = plainIssues(result.error.issues);
   throw new AppError(
     'validation_failed',
-    `The request ${part} has ${result.error.issues.length === 1 ? 'a problem' : 'problems'}: ` +
-      result.error.issues.map((issue) => `${[part, ...issue.path].join('.')}: ${issue.message}`).join('; '),
+    `The request ${part} has ${issues.length === 1 ? 'a problem' : 'problems'}: ` +
+      issues.map((issue) => `${[part, ...issue.path].join('.')}: ${issue.message}`).join('; '),
     400,
-    result.error.issues.map((issue) => ({ path: [part, ...issue.path].join('.'), message: issue.message })),
+    issues.map((issue) => ({ path: [part, ...issue.path].join('.'), message: issue.message })),
   );
 }
 

@@ -5,6 +5,7 @@ import { EngineError } from '@shared/engine';
 import type { ApiErrorBody } from '@shared/schemas/error';
 import { databaseRetryAfterSeconds, isDatabaseUnavailable } from '../db/unavailable';
 import { AppError } from '../lib/app-error';
+import { setRetryAfter } from './rate-limits';
 
 interface HttpishError {
   status?: number;
@@ -85,6 +86,7 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, next) => {
   }
   const known = toAppError(error);
   if (known) {
+    setRetryAfter(error, res);
     const body: ApiErrorBody = { error: { code: known.code, message: known.message } };
     if (known.details?.length) body.error.details = known.details;
     res.status(known.status).json(body);

@@ -5,6 +5,10 @@ import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequel
 export class CaughtMail extends Model<InferAttributes<CaughtMail>, InferCreationAttributes<CaughtMail>> {
   declare id: CreationOptional<string>;
   declare labId: string | null;
+  /** invitation, password-reset or review; null for messages caught before kinds were recorded. */
+  declare kind: string | null;
+  /** Who sent it (the inviter of an invitation). */
+  declare senderId: string | null;
   declare fromAddress: string;
   declare toAddresses: string[];
   declare subject: string;
@@ -18,6 +22,8 @@ export class CaughtMail extends Model<InferAttributes<CaughtMail>, InferCreation
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         labId: { type: DataTypes.UUID, allowNull: true },
+        kind: { type: DataTypes.STRING(40), allowNull: true },
+        senderId: { type: DataTypes.UUID, allowNull: true },
         fromAddress: { type: DataTypes.TEXT, allowNull: false },
         toAddresses: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
         subject: { type: DataTypes.TEXT, allowNull: false },

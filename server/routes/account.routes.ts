@@ -3,14 +3,18 @@ import {
   completePasswordResetSchema,
   messageSchema,
   requestPasswordResetSchema,
+  sessionSchema,
   sessionUserSchema,
   updateProfileSchema,
 } from '@shared/schemas/auth';
+import { endSessionsOf } from '../auth/session-records';
 import { defineRoute } from '../http/define-route';
+import { AppError } from '../lib/app-error';
 import { actorOf, signedInActor } from '../http/request-context';
 import { User } from '../models';
 import { changePassword, completePasswordReset, requestPasswordReset } from '../services/account.service';
 import { loadSessionUser } from '../services/session-user.service';
+import { logIn, sessionResponse } from './session.routes';
 
 export const accountRoutes = [
   defineRoute({
@@ -37,16 +41,28 @@ export const accountRoutes = [
     summary: 'Change the password, proving the current one',
     tags: ['account'],
     access: 'signed-in',
+    rateLimit: 'signIn',
     request: { body: changePasswordSchema },
     responses: {
-      204: { description: 'Changed' },
+      200: {
+        description: 'Changed; this session continues under a new id (new CSRF token), every other session ended',
+        schema: sessionSchema,
+      },
       400: { description: 'Current password wrong, or new password too weak' },
       401: { description: 'Not signed in' },
     },
     handler: async ({ req, res, body }) => {
       const actor = signedInActor(req);
-      await changePassword(actor.userId, body, actor);
-      res.status(204).end();
+      await changePassword(actor.userId, body, actor).catch(async (error) => {
+        if (error instanceof AppError && error.code === 'wrong_password') {
+          await req.app.locals.services.rateLimits.signInFailed(req, null);
+        }
+        throw error;
+      });
+      // This browser stays signed in under a new session id; every other session of the person ends.
+      await logIn(req, actor.userId);
+      await endSessionsOf(req.app.locals.services.sequelize, actor.userId, { keepSid: req.sessionID });
+      res.json(await sessionResponse(req, res, actor.userId, { newSession: true }));
     },
   }),
   defineRoute({
@@ -75,7 +91,7 @@ export const accountRoutes = [
     summary: 'Set a new password with the token from the e-mailed link',
     tags: ['account'],
     access: 'public',
-    rateLimit: 'passwordReset',
+    rateLimit: 'passwordResetCompletion',
     request: { body: completePasswordResetSchema },
     responses: {
       204: { description: 'Password set' },

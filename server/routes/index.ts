@@ -1,5 +1,7 @@
 import type { AnyRouteSpec } from '../http/define-route';
 import { accountRoutes } from './account.routes';
+import { accountSessionRoutes } from './account-sessions.routes';
+import { caughtMailRoutes } from './caught-mail.routes';
 import { compoundMeasurementRoutes } from './compound-measurements.routes';
 import { comparisonRoutes } from './comparisons.routes';
 import { compoundRoutes } from './compounds.routes';
@@ -21,6 +23,8 @@ export const apiRoutes: AnyRouteSpec[] = [
   ...systemRoutes,
   ...sessionRoutes,
   ...accountRoutes,
+  ...accountSessionRoutes,
+  ...caughtMailRoutes,
   ...invitationRoutes,
   ...memberRoutes,
   ...studyRoutes,

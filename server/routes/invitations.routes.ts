@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { acceptInvitationSchema, invitationPreviewSchema, sessionSchema } from '@shared/schemas/auth';
 import { defineRoute } from '../http/define-route';
+import { AppError } from '../lib/app-error';
 import { acceptInvitation, previewInvitation } from '../services/invitations.service';
 import { logIn, sessionResponse } from './session.routes';
 
@@ -37,7 +38,11 @@ export const invitationRoutes = [
       404: { description: 'Expired, revoked, used or unknown' },
     },
     handler: async ({ req, res, params, body }) => {
-      const userId = await acceptInvitation(req.app.locals.services.sequelize, params.token, body, req.ip ?? null);
+      const { sequelize, rateLimits } = req.app.locals.services;
+      const userId = await acceptInvitation(sequelize, params.token, body, req.ip ?? null).catch(async (error) => {
+        if (error instanceof AppError && error.code === 'invalid_credentials') await rateLimits.signInFailed(req, null);
+        throw error;
+      });
       await logIn(req, userId);
       res.json(await sessionResponse(req, res, userId, { newSession: true }));
     },

@@ -1,5 +1,4 @@
 import {
-  caughtMailListSchema,
   changeRoleSchema,
   invitationParamsSchema,
   inviteMemberSchema,
@@ -7,13 +6,10 @@ import {
   memberParamsSchema,
   memberSchema,
   membersListSchema,
-  paginationQuerySchema,
   pendingInvitationSchema,
 } from '@shared/schemas/members';
 import { defineRoute } from '../http/define-route';
 import { actorOf, labOf, signedInActor } from '../http/request-context';
-import { AppError } from '../lib/app-error';
-import { listCaughtMail } from '../services/caught-mail.service';
 import { inviteMember, revokeInvitation } from '../services/invitations.service';
 import { changeMemberRole, listMembers, removeMember } from '../services/members.service';
 
@@ -93,24 +89,6 @@ export const memberRoutes = [
     handler: async ({ req, res, params }) => {
       await removeMember(req.app.locals.services.sequelize, labOf(req), params.memberId, actorOf(req));
       res.status(204).end();
-    },
-  }),
-  defineRoute({
-    method: 'get',
-    path: '/api/labs/:labId/caught-mail',
-    summary: 'Mail taken by the local catcher for this lab (only when no SMTP relay is configured)',
-    tags: ['members'],
-    access: { lab: 'admin' },
-    request: { params: labParamsSchema, query: paginationQuerySchema },
-    responses: {
-      200: { description: 'Caught messages, newest first', schema: caughtMailListSchema },
-      404: { description: 'Not your lab, or no mail catcher in use' },
-    },
-    handler: async ({ req, res, query }) => {
-      if (!req.app.locals.services.mailCatcher) {
-        throw new AppError('not_found', 'Mail goes to a real relay here; there is no caught mail to read.', 404);
-      }
-      res.json(await listCaughtMail(labOf(req), query.page, query.pageSize));
     },
   }),
 ];

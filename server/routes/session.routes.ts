@@ -34,9 +34,17 @@ export async function sessionResponse(
   };
 }
 
-/** Signs the user in on this request; passport regenerates the session id (no fixation). */
-export function logIn(req: Request, userId: string): Promise<void> {
-  return new Promise((resolve, reject) => req.logIn({ id: userId }, (error) => (error ? reject(error) : resolve())));
+/**
+ * Signs the user in on this request; passport regenerates the session id (no fixation). The
+ * session notes when and from where, for the absolute lifetime and the list of my sessions.
+ */
+export async function logIn(req: Request, userId: string): Promise<void> {
+  await new Promise<void>((resolve, reject) =>
+    req.logIn({ id: userId }, (error) => (error ? reject(error) : resolve())),
+  );
+  req.session.signedInAt = Date.now();
+  req.session.userAgent = String(req.headers['user-agent'] ?? '').slice(0, 300);
+  req.session.ip = req.ip ?? '';
 }
 
 export const sessionRoutes = [
@@ -65,14 +73,22 @@ export const sessionRoutes = [
       200: { description: 'Signed in', schema: sessionSchema },
       400: { description: 'Missing or malformed fields' },
       401: { description: 'Wrong e-mail or password (one message for both)' },
-      429: { description: 'Too many attempts' },
+      429: {
+        description:
+          'Too many failed attempts from this address or for this account, or too much password work at once',
+      },
+      503: { description: 'Busy checking other passwords; try again in a few seconds' },
     },
     handler: async ({ req, res, body }) => {
+      const { rateLimits } = req.app.locals.services;
       const user = await authenticate(req, res);
       if (!user) {
+        // Only failures count: the address and the account each have a budget (rate-limits.ts).
+        await rateLimits.signInFailed(req, body.email);
         await recordAudit(actorOf(req), { action: 'sign_in_failed', details: { email: body.email } });
         throw new AppError('invalid_credentials', 'The e-mail address or the password is not right.', 401);
       }
+      await rateLimits.signInSucceeded(body.email);
       await logIn(req, user.id);
       await User.update({ lastSignInAt: new Date() }, { where: { id: user.id } });
       await recordAudit(signedInActor(req), { action: 'sign_in', targetType: 'user', targetId: user.id });

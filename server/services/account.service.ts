@@ -1,6 +1,8 @@
 import { Op } from 'sequelize';
 import type { Sequelize } from 'sequelize';
+import { assertStrongPassword } from '../auth/password-policy';
 import { hashPassword, verifyPassword } from '../auth/passwords';
+import { endSessionsOf } from '../auth/session-records';
 import { hashLinkToken } from '../auth/tokens';
 import { AppError } from '../lib/app-error';
 import type { JobQueue } from '../jobs/job-queue';
@@ -27,6 +29,7 @@ export async function completePasswordReset(
   input: { token: string; password: string },
   actor: Actor,
 ): Promise<void> {
+  assertStrongPassword(input.password, 'body.password');
   const passwordHash = await hashPassword(input.password);
   await sequelize.transaction(async (transaction) => {
     const reset = await PasswordReset.findOne({
@@ -37,8 +40,9 @@ export async function completePasswordReset(
     if (!reset) throw invalidToken();
     await reset.update({ usedAt: new Date() }, { transaction });
     await User.update({ passwordHash }, { where: { id: reset.userId }, transaction });
-    // Any other outstanding link for this person dies with this one.
+    // Any other outstanding link for this person dies with this one, and so does every session.
     await PasswordReset.update({ usedAt: new Date() }, { where: { userId: reset.userId, usedAt: null }, transaction });
+    await endSessionsOf(sequelize, reset.userId, { transaction });
     await recordAudit(
       { ...actor, userId: actor.userId ?? reset.userId },
       { action: 'password_reset_completed', targetType: 'user', targetId: reset.userId },
@@ -58,6 +62,7 @@ export async function changePassword(
       { path: 'body.currentPassword', message: 'is not right' },
     ]);
   }
+  assertStrongPassword(input.newPassword, 'body.newPassword', [user.email, user.name]);
   const passwordHash = await hashPassword(input.newPassword);
   await User.sequelize!.transaction(async (transaction) => {
     await user.update({ passwordHash }, { transaction });

@@ -1,20 +1,18 @@
 import { Op } from 'sequelize';
 import type { CaughtMailList } from '@shared/schemas/members';
-import type { LabContext } from '../domain/lab-context';
-import { CaughtMail, Membership, User } from '../models';
+import { CaughtMail, User } from '../models';
 
 /**
- * Mail the local catcher took that concerns this lab: messages tagged with the lab, and
- * messages to its members' addresses (password resets carry no lab).
+ * Caught mail one signed-in person may read: messages addressed to them, and the invitations
+ * they sent themselves. Nobody reads another person's reset link, whatever their role.
  */
-export async function listCaughtMail(lab: LabContext, page: number, pageSize: number): Promise<CaughtMailList> {
-  const members = await Membership.findAll({
-    where: { labId: lab.id },
-    include: [{ model: User, as: 'user', attributes: ['email'] }],
-  });
-  const emails = members.map((membership) => membership.user?.email).filter((email): email is string => !!email);
+export async function listCaughtMail(userId: string, page: number, pageSize: number): Promise<CaughtMailList> {
+  const user = await User.findByPk(userId, { attributes: ['email'] });
+  if (!user) return { total: 0, items: [] };
   const { rows, count } = await CaughtMail.findAndCountAll({
-    where: { [Op.or]: [{ labId: lab.id }, { toAddresses: { [Op.overlap]: emails } }] },
+    where: {
+      [Op.or]: [{ toAddresses: { [Op.contains]: [user.email] } }, { kind: 'invitation', senderId: userId }],
+    },
     order: [['receivedAt', 'DESC']],
     limit: pageSize,
     offset: (page - 1) * pageSize,

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { assertStrongPassword } from '../auth/password-policy';
 import { hashPassword } from '../auth/passwords';
 import { Lab, Membership, User } from '../models';
 import { recordAudit } from './audit.service';
@@ -23,6 +24,7 @@ export async function ensureFirstAdmin(
 ): Promise<{ created: boolean }> {
   const email = input.email.trim().toLowerCase();
   if (await User.count({ where: { email } })) return { created: false };
+  assertStrongPassword(input.password, 'HALFLIGHT_FIRST_ADMIN_PASSWORD', [email]);
   const passwordHash = await hashPassword(input.password);
   await sequelize.transaction(async (transaction) => {
     const lab = await Lab.create(

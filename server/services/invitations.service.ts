@@ -2,6 +2,7 @@ import { Op } from 'sequelize';
 import type { Sequelize } from 'sequelize';
 import type { AcceptInvitationInput, InvitationPreview } from '@shared/schemas/auth';
 import type { InviteMemberInput, PendingInvitation } from '@shared/schemas/members';
+import { assertStrongPassword } from '../auth/password-policy';
 import { hashPassword, verifyPassword } from '../auth/passwords';
 import { createLinkToken, hashLinkToken } from '../auth/tokens';
 import { AppError } from '../lib/app-error';
@@ -115,7 +116,9 @@ export async function acceptInvitation(
   input: AcceptInvitationInput,
   ip: string | null,
 ): Promise<string> {
-  const newPasswordHash = input.name ? await hashPassword(input.password) : null;
+  const newName = 'name' in input ? input.name : null;
+  if (newName) assertStrongPassword(input.password, 'body.password', [newName]);
+  const newPasswordHash = newName ? await hashPassword(input.password) : null;
   return sequelize.transaction(async (transaction) => {
     const invitation = await Invitation.findOne({
       where: { tokenHash: hashLinkToken(token), ...openInvitation() },
@@ -129,18 +132,13 @@ export async function acceptInvitation(
         throw new AppError('invalid_credentials', 'That password does not match the account for this address.', 401);
       }
     } else {
-      if (!input.name || !newPasswordHash) {
+      if (!newName || !newPasswordHash) {
         throw new AppError('validation_failed', 'A name is needed to create your account.', 400, [
           { path: 'body.name', message: 'is required' },
         ]);
       }
-      if (input.password.length < 10) {
-        throw new AppError('validation_failed', 'The password is too short.', 400, [
-          { path: 'body.password', message: 'must be at least 10 characters' },
-        ]);
-      }
       user = await User.create(
-        { email: invitation.email, name: input.name, passwordHash: newPasswordHash },
+        { email: invitation.email, name: newName, passwordHash: newPasswordHash },
         { transaction },
       );
     }

@@ -2,10 +2,15 @@ import { z } from 'zod';
 import { roleSchema } from './roles';
 
 const email = z.string().trim().toLowerCase().email('must be an e-mail address').max(254);
-/** Long passphrases welcome; 10 characters at least (common practice, in line with NIST SP 800-63B's minimum of 8). */
+/**
+ * A new password: at least 12 characters (above NIST SP 800-63B's minimum of 8; OWASP's ASVS asks
+ * for 12), at most 200, every character counted. The server also refuses common and easily
+ * guessed passwords (server/auth/password-policy.ts).
+ */
+export const passwordMinLength = 12;
 export const passwordSchema = z
   .string()
-  .min(10, 'must be at least 10 characters')
+  .min(passwordMinLength, `must be at least ${passwordMinLength} characters`)
   .max(200, 'must be at most 200 characters');
 const personName = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters');
 const token = z.string().regex(/^[A-Za-z0-9_-]{20,100}$/, 'is not a valid link token');
@@ -57,9 +62,16 @@ export const invitationPreviewSchema = z
   })
   .meta({ id: 'InvitationPreview' });
 
-/** A new person sends name and password; a person with an account sends only their password. */
+/** A new person sends a name and chooses a password under the rules above. */
+export const joinWithNewAccountSchema = z
+  .object({ name: personName, password: passwordSchema })
+  .meta({ id: 'InvitationAcceptanceNewAccount' });
+/** A person who has an account sends only its password (whatever length it was set with). */
+export const joinWithAccountSchema = z
+  .strictObject({ password: z.string().min(1, 'is required').max(200) })
+  .meta({ id: 'InvitationAcceptanceExistingAccount' });
 export const acceptInvitationSchema = z
-  .object({ name: personName.optional(), password: z.string().min(1, 'is required').max(200) })
+  .union([joinWithNewAccountSchema, joinWithAccountSchema])
   .meta({ id: 'InvitationAcceptance' });
 
 export const messageSchema = z.object({ message: z.string() }).meta({ id: 'Message' });
@@ -76,3 +88,22 @@ export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
 export type CsrfToken = z.infer<typeof csrfTokenSchema>;
 export type Message = z.infer<typeof messageSchema>;
 export type UpdateProfileInput = z.infer<typeof updateProfileSchema>;
+
+export const accountSessionSchema = z
+  .object({
+    id: z.string().describe('A public handle of the session (not its cookie)'),
+    current: z.boolean().describe('True for the session making this request'),
+    signedInAt: z.string().nullable().describe('ISO 8601 time of the sign-in'),
+    lastActiveAt: z.string().describe('ISO 8601 time of the latest request (within a minute or so)'),
+    endsAt: z.string().describe('ISO 8601 time the session ends at the latest (absolute lifetime)'),
+    userAgent: z.string().nullable(),
+    ip: z.string().nullable(),
+  })
+  .meta({ id: 'AccountSession' });
+export const accountSessionsSchema = z.object({ items: z.array(accountSessionSchema) }).meta({ id: 'AccountSessions' });
+export const accountSessionParamsSchema = z.object({
+  sessionId: z.string().regex(/^[0-9a-f]{32}$/, 'is not a session id'),
+});
+
+export type AccountSession = z.infer<typeof accountSessionSchema>;
+export type AccountSessions = z.infer<typeof accountSessionsSchema>;

@@ -9,6 +9,8 @@ export const routePatterns = {
   resetPassword: 'reset-password',
   invitation: 'invitations/:token',
   account: 'account',
+  accountSessions: 'account/sessions',
+  caughtMail: 'mail',
   lab: 'labs/:labId',
   // Inside labs/:labId:
   studies: 'studies',
@@ -18,7 +20,6 @@ export const routePatterns = {
   compound: 'library/:compoundId',
   labSettings: 'settings',
   members: 'members',
-  caughtMail: 'mail',
   planner: 'planner',
   compare: 'compare',
   scenarios: 'scenarios',
@@ -45,6 +46,9 @@ export const paths = {
   signIn: (next?: string) => withQuery('/sign-in', { next }),
   forgotPassword: () => '/forgot-password',
   account: () => '/account',
+  accountSessions: () => '/account/sessions',
+  /** Mail the local catcher took for me (and invitations I sent). */
+  caughtMail: () => '/mail',
   studies: (labId: string) => inLab(labId, 'studies'),
   /** `preset` pre-fills the form (emitterId, quencherId, title, volumes; see the new-study screen). */
   newStudy: (labId: string, preset?: Query) => withQuery(inLab(labId, 'studies/new'), preset),
@@ -55,7 +59,6 @@ export const paths = {
     inLab(labId, `library/${encodeURIComponent(compoundId)}`) + (section ? `#${section}` : ''),
   labSettings: (labId: string) => inLab(labId, 'settings'),
   members: (labId: string) => inLab(labId, 'members'),
-  caughtMail: (labId: string) => inLab(labId, 'mail'),
   planner: (labId: string) => inLab(labId, 'planner'),
   compare: (labId: string) => inLab(labId, 'compare'),
   scenarios: (labId: string) => inLab(labId, 'scenarios'),

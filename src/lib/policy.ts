@@ -9,7 +9,6 @@ export const policy = {
   'members:view': 'viewer',
   'members:manage': 'admin',
   'invitations:manage': 'admin',
-  'mail:read': 'admin',
   'studies:view': 'viewer',
   'studies:write': 'researcher',
   'studies:review': 'reviewer',

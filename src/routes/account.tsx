@@ -1,4 +1,5 @@
 import { Panel } from '@/components/panel';
+import { TextLink } from '@/components/text-link';
 import { useSession } from '@/features/auth/api/get-session';
 import { PasswordForm } from '@/features/auth/components/password-form';
 import { ProfileForm } from '@/features/auth/components/profile-form';
@@ -17,6 +18,12 @@ export function AccountRoute() {
       </Panel>
       <Panel title="Password">
         <PasswordForm />
+      </Panel>
+      <Panel title="Where you are signed in">
+        <p className="text-body text-ink-700">
+          See every browser signed in as you, and sign out the ones you do not recognise:{' '}
+          <TextLink to="/account/sessions">signed-in browsers</TextLink>.
+        </p>
       </Panel>
     </div>
   );

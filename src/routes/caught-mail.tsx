@@ -9,25 +9,24 @@ import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { useCaughtMail } from '@/features/mail/api/get-caught-mail';
 import { MailList } from '@/features/mail/components/mail-list';
 import { MailReader } from '@/features/mail/components/mail-reader';
-import { can } from '@/lib/policy';
-import { useLab } from '@/routes/lab-context';
 
 const pageSize = 20;
 
-/** Mail the workspace sent while a local catcher stands in for a real mail relay; admins only. */
+/**
+ * Mail the workspace sent to me (and invitations I sent) while a local catcher stands in for a
+ * real mail relay.
+ */
 export function CaughtMailRoute() {
-  const lab = useLab();
   const session = useSession();
   if (!session.mailCatcher)
     return <NotYourLab reason="This workspace sends real e-mail, so there is no caught mail to read." />;
-  if (!can(lab.role, 'mail:read')) return <NotYourLab reason="Only the lab’s admins can read caught mail." />;
-  return <CaughtMailScreen labId={lab.labId} />;
+  return <CaughtMailScreen />;
 }
 
-function CaughtMailScreen({ labId }: { labId: string }) {
+function CaughtMailScreen() {
   const [page, setPage] = useState(1);
   const [selectedId, setSelectedId] = useState<string | null>(null);
-  const mail = useCaughtMail(labId, { page, pageSize });
+  const mail = useCaughtMail({ page, pageSize });
   const selected = mail.data?.items.find((item) => item.id === selectedId) ?? null;
   const pages = mail.data ? Math.max(1, Math.ceil(mail.data.total / pageSize)) : 1;
 
@@ -36,8 +35,9 @@ function CaughtMailScreen({ labId }: { labId: string }) {
       <header>
         <h1 className="text-display font-black text-ink-950">Caught mail</h1>
         <p className="mt-1 max-w-2xl text-lead text-ink-700">
-          No mail leaves this workspace: a local catcher keeps every message it sends. Read them here to pass on
-          invitation and password links by hand.
+          No mail leaves this workspace: a local catcher keeps every message it sends. Here are the ones addressed to
+          you, and the invitations you sent, so you can pass their links on by hand. Whoever runs the machine finds
+          every message as a file in the data folder.
         </p>
       </header>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">

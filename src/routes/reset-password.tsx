@@ -54,7 +54,9 @@ export function ResetPasswordRoute() {
     <div className="space-y-5">
       <header>
         <h1 className="text-title font-black text-ink-950">Set a new password</h1>
-        <p className="text-body text-ink-700">At least 10 characters. A few unrelated words make a strong one.</p>
+        <p className="text-body text-ink-700">
+          At least 12 characters. A few unrelated words make a strong one; common passwords are refused.
+        </p>
       </header>
       <form onSubmit={onSubmit} noValidate className="space-y-4">
         <NewPasswordFields

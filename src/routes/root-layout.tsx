@@ -30,11 +30,9 @@ export function RootLayout() {
     ...(lab ? [{ to: paths.compare(lab.labId), label: 'Compare' }] : []),
     ...(lab ? [{ to: paths.scenarios(lab.labId), label: 'Who quenches?' }] : []),
     ...(lab ? [{ to: paths.planner(lab.labId), label: 'Planner' }] : []),
-    ...(lab && session.mailCatcher && can(lab.role, 'mail:read')
-      ? [{ to: paths.caughtMail(lab.labId), label: 'Caught mail' }]
-      : []),
     ...(lab && can(lab.role, 'settings:manage') ? [{ to: paths.labSettings(lab.labId), label: 'Lab settings' }] : []),
     { to: paths.account(), label: 'Account' },
+    ...(session.mailCatcher ? [{ to: paths.caughtMail(), label: 'Caught mail' }] : []),
   ];
 
   function leave() {

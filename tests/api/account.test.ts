@@ -1,5 +1,6 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import { PasswordReset } from '../../server/models';
+import bcrypt from 'bcryptjs';
+import { PasswordReset, User } from '../../server/models';
 import { apiClient, createLabWithMembers, latestMailTo } from '../support/accounts';
 import { createTestApp } from '../support/test-app';
 
@@ -76,12 +77,12 @@ describe('POST /api/account/password', () => {
       currentPassword: users.viewer.password,
       newPassword: 'short',
     });
-    expect(short.body.error.details).toEqual([{ path: 'body.newPassword', message: 'must be at least 10 characters' }]);
+    expect(short.body.error.details).toEqual([{ path: 'body.newPassword', message: 'must be at least 12 characters' }]);
     const ok = await client.post('/api/account/password', {
       currentPassword: users.viewer.password,
       newPassword: 'long-enough-passphrase',
     });
-    expect(ok.status).toBe(204);
+    expect(ok.status).toBe(200);
     const again = await apiClient(testApp.app);
     await again.signIn({ email: users.viewer.email, password: 'long-enough-passphrase' });
   });
@@ -94,5 +95,60 @@ describe('PATCH /api/account', () => {
     await client.signIn(users.viewer);
     expect((await client.patch('/api/account', { name: '  Dr. R. Example  ' })).body.name).toBe('Dr. R. Example');
     expect((await client.get('/api/session')).body.user.name).toBe('Dr. R. Example');
+  });
+});
+
+describe('password rules', () => {
+  it('when a new password is short or common, then 400 names the field and says why', async () => {
+    const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
+    const client = await apiClient(testApp.app);
+    await client.signIn(users.viewer);
+    const change = (newPassword: string) =>
+      client.post('/api/account/password', { currentPassword: users.viewer.password, newPassword });
+    const short = await change('password12');
+    expect(short.status).toBe(400);
+    expect(short.body.error.details).toEqual([{ path: 'body.newPassword', message: 'must be at least 12 characters' }]);
+    for (const common of ['password1234', '123456789012', 'qwertyuiop123']) {
+      const refused = await change(common);
+      expect(refused.status, common).toBe(400);
+      expect(refused.body.error.code).toBe('weak_password');
+      expect(refused.body.error.details[0].path).toBe('body.newPassword');
+      expect(refused.body.error.details[0].message).toMatch(/^is too easy to guess: /);
+    }
+  });
+
+  it('when the password has 100 characters, then exactly those 100 sign in, and no prefix or variant does', async () => {
+    const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
+    const client = await apiClient(testApp.app);
+    await client.signIn(users.viewer);
+    const long = 'amber-heron-quiet-lantern-'.repeat(4).slice(0, 99) + 'Z';
+    expect(long).toHaveLength(100);
+    expect(
+      (await client.post('/api/account/password', { currentPassword: users.viewer.password, newPassword: long }))
+        .status,
+    ).toBe(200);
+    const attempt = async (password: string) =>
+      (await (await apiClient(testApp.app)).post('/api/session', { email: users.viewer.email, password })).status;
+    expect(await attempt(long)).toBe(200);
+    expect(await attempt(long.slice(0, 99))).toBe(401);
+    expect(await attempt(long.slice(0, 99) + 'Y')).toBe(401);
+    // bcrypt read only the first 72 bytes: any 73rd character used to pass.
+    expect(await attempt(long.slice(0, 72))).toBe(401);
+    expect(await attempt(long.slice(0, 72) + 'x')).toBe(401);
+  });
+
+  it('when an account still has a bcrypt hash, then the right password signs in and the hash becomes scrypt', async () => {
+    const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
+    const legacy = await bcrypt.hash(users.viewer.password, 10);
+    await User.update({ passwordHash: legacy }, { where: { id: users.viewer.id } });
+    const wrong = await (
+      await apiClient(testApp.app)
+    ).post('/api/session', { ...users.viewer, password: 'not-it-at-all' });
+    expect(wrong.status).toBe(401);
+    expect((await User.findByPk(users.viewer.id))!.passwordHash).toBe(legacy);
+    await (await apiClient(testApp.app)).signIn(users.viewer);
+    const stored = (await User.findByPk(users.viewer.id))!.passwordHash;
+    expect(stored).toMatch(/^scrypt\$16\$8\$1\$/);
+    await (await apiClient(testApp.app)).signIn(users.viewer);
   });
 });

@@ -52,7 +52,7 @@ describe('POST /api/password-resets while the mail relay is down', () => {
     expect(await jobsWaiting()).toBeGreaterThan(0);
     expect(await CaughtMail.count({ where: {} })).toBe(before);
 
-    relay = await startMailCatcher(relayPort);
+    relay = await startMailCatcher({ port: relayPort });
     const { mail, link } = await latestMailTo(users.researcher.email);
     expect(mail?.subject).toBe('Set a new Halflight password');
     // The link in the late mail works.

@@ -39,6 +39,12 @@ const matrix: Record<string, Row> = {
   'GET /api/session': { path: () => '/api/session', expected: signedIn(200) },
   'PATCH /api/account': { path: () => '/api/account', body: {}, expected: signedIn(400) },
   'POST /api/account/password': { path: () => '/api/account/password', body: {}, expected: signedIn(400) },
+  'GET /api/account/sessions': { path: () => '/api/account/sessions', expected: signedIn(200) },
+  'DELETE /api/account/sessions/:sessionId': {
+    path: () => `/api/account/sessions/${'0'.repeat(32)}`,
+    expected: signedIn(404),
+  },
+  'GET /api/caught-mail': { path: () => '/api/caught-mail', expected: signedIn(200) },
   'POST /api/password-resets': { path: () => '/api/password-resets', body: {}, expected: same(400) },
   'POST /api/password-resets/complete': { path: () => '/api/password-resets/complete', body: {}, expected: same(400) },
   'GET /api/invitations/:token': { path: () => `/api/invitations/${unknownToken}`, expected: same(404) },
@@ -68,10 +74,6 @@ const matrix: Record<string, Row> = {
   'DELETE /api/labs/:labId/members/:memberId': {
     path: ({ labId }) => `/api/labs/${labId}/members/${unknownId}`,
     expected: labRoute('admin', 404),
-  },
-  'GET /api/labs/:labId/caught-mail': {
-    path: ({ labId }) => `/api/labs/${labId}/caught-mail`,
-    expected: labRoute('admin', 200),
   },
   'POST /api/labs/:labId/titration-plans': {
     path: ({ labId }) => `/api/labs/${labId}/titration-plans`,
@@ -293,6 +295,7 @@ const matrix: Record<string, Row> = {
     path: ({ labId }) => `/api/labs/${labId}/comparisons/emitter/${unknownId}/report.pdf`,
     expected: labRoute('viewer', 404),
   },
+  'DELETE /api/account/sessions': { path: () => '/api/account/sessions', expected: signedIn(204) },
   // Last, because it signs each person out.
   'DELETE /api/session': { path: () => '/api/session', expected: signedIn(204) },
 };

@@ -10,6 +10,7 @@ import { paths } from '@/lib/paths';
 import { queryClient } from '@/lib/query-client';
 import { AccountRoute } from '@/routes/account';
 import { CaughtMailRoute } from '@/routes/caught-mail';
+import { AccountSessionsRoute } from '@/routes/account-sessions';
 import { CompareRoute } from '@/routes/compare';
 import { CompoundDetailRoute } from '@/routes/compound-detail';
 import { LibraryRoute } from '@/routes/library';
@@ -41,6 +42,8 @@ describe('client addresses', () => {
       ['/', OverviewRoute],
       ['/sign-in', SignInRoute],
       ['/account', AccountRoute],
+      ['/account/sessions', AccountSessionsRoute],
+      ['/mail', CaughtMailRoute],
       [`/labs/${lab}/members`, MembersRoute],
       [`/labs/${lab}/mail`, CaughtMailRoute],
       [`/labs/${lab}/studies`, StudiesRoute],
@@ -69,7 +72,8 @@ describe('client addresses', () => {
     );
     expect(screenAt(paths.scenario(lab, id))).toBe(ScenarioRoute);
     expect(screenAt(paths.labSettings(lab))).toBe(LibrarySettingsRoute);
-    expect(screenAt(paths.caughtMail(lab))).toBe(CaughtMailRoute);
+    expect(screenAt(paths.caughtMail())).toBe(CaughtMailRoute);
+    expect(screenAt(paths.accountSessions())).toBe(AccountSessionsRoute);
   });
 
   it('when a query is given, then empty values are left out and the rest is encoded', () => {

@@ -1,4 +1,7 @@
 import crypto from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import { pino } from 'pino';
 import { inject } from 'vitest';
 import { createApp } from '../../server/app';
@@ -6,6 +9,7 @@ import type { CreateAppOptions } from '../../server/app';
 import { createSequelize } from '../../server/db/sequelize';
 import { startMailCatcher } from '../../server/mail/catcher';
 import { createMailer } from '../../server/mail/mailer';
+import { defaultRateLimits } from '../../server/middleware/rate-limits';
 import { initModels } from '../../server/models';
 
 /**
@@ -18,7 +22,8 @@ export async function createTestApp(overrides: Partial<CreateAppOptions> = {}) {
   const ownsDatabase = !overrides.sequelize;
   const sequelize = overrides.sequelize ?? createSequelize(databaseUrl);
   if (ownsDatabase) initModels(sequelize);
-  const catcher = await startMailCatcher();
+  const caughtMailDir = fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-caught-mail-'));
+  const catcher = await startMailCatcher({ emlDir: caughtMailDir });
   const mailer = createMailer(catcher.url, 'Halflight tests <tests@halflight.invalid>', { tagForCatcher: true });
   const app = createApp({
     sequelize,
@@ -30,21 +35,24 @@ export async function createTestApp(overrides: Partial<CreateAppOptions> = {}) {
     mailCatcher: true,
     publicUrl: 'http://127.0.0.1:4310',
     jobRetryDelaySeconds: 1,
-    rateLimits: {
-      signIn: { windowMs: 60_000, limit: 1000 },
-      passwordReset: { windowMs: 60_000, limit: 1000 },
-      invitation: { windowMs: 60_000, limit: 1000 },
-    },
+    // Generous attempt limits, so tests that sign in often are not refused; tests of the limits
+    // pass their own. Each app's counters live in the shared database, under their own prefix.
+    rateLimits: Object.fromEntries(
+      Object.entries(defaultRateLimits).map(([name, limit]) => [name, { ...limit, points: 100_000 }]),
+    ),
     ...overrides,
   });
   await app.startJobs();
   return {
     app,
     sequelize,
+    /** Where the catcher writes each message as an .eml file. */
+    caughtMailDir,
     async close() {
       await app.closeResources();
       mailer.close();
       await catcher.stop();
+      fs.rmSync(caughtMailDir, { recursive: true, force: true });
       if (ownsDatabase) await sequelize.close();
     },
   };

@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { acceptInvitationSchema, passwordSchema } from '@shared/schemas/auth';
+import { joinWithAccountSchema, joinWithNewAccountSchema } from '@shared/schemas/auth';
 import type { InvitationPreview, Session } from '@shared/schemas/auth';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
@@ -12,9 +12,8 @@ import { showServerErrors } from '@/lib/form-errors';
 import { useAcceptInvitation } from '../api/accept-invitation';
 
 // A new account chooses a password under the same rules as a reset; the two entries must agree.
-const newAccountSchema = acceptInvitationSchema
-  .required({ name: true })
-  .extend({ password: passwordSchema, confirm: z.string() })
+const newAccountSchema = joinWithNewAccountSchema
+  .extend({ confirm: z.string() })
   .refine(...sameTwice<{ password: string; confirm: string }>('password'));
 
 interface AcceptInvitationFormProps {
@@ -37,7 +36,7 @@ type FormProps = Omit<AcceptInvitationFormProps, 'invitation'>;
 function ExistingAccountForm({ token, onJoined }: FormProps) {
   const accept = useAcceptInvitation();
   const form = useForm({
-    resolver: zodResolver(acceptInvitationSchema.pick({ password: true })),
+    resolver: zodResolver(joinWithAccountSchema),
     defaultValues: { password: '' },
   });
   const { errors } = form.formState;
@@ -89,7 +88,7 @@ function NewAccountForm({ token, onJoined }: FormProps) {
       />
       <NewPasswordFields
         label="Password"
-        hint="At least 10 characters."
+        hint="At least 12 characters; a few unrelated words make a strong one."
         password={form.register('password')}
         confirm={form.register('confirm')}
         errors={{ password: errors.password?.message, confirm: errors.confirm?.message }}

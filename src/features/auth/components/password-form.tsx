@@ -46,7 +46,7 @@ export function PasswordForm() {
         {...form.register('currentPassword')}
       />
       <NewPasswordFields
-        hint="At least 10 characters."
+        hint="At least 12 characters; a few unrelated words make a strong one."
         password={form.register('newPassword')}
         confirm={form.register('confirm')}
         errors={{ password: errors.newPassword?.message, confirm: errors.confirm?.message }}

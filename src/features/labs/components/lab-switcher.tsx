@@ -15,7 +15,7 @@ interface LabSwitcherProps {
 function addressInLab(pathname: string, lab: LabMembership): string | null {
   const screen = labScreenOf(pathname);
   if (!screen) return null;
-  return screen === routePatterns.caughtMail && !can(lab.role, 'mail:read')
+  return screen === routePatterns.labSettings && !can(lab.role, 'settings:manage')
     ? paths.members(lab.labId)
     : paths.labScreen(lab.labId, screen);
 }

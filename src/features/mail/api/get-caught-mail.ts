@@ -4,17 +4,17 @@ import { apiClient } from '@/lib/api-client';
 import { mailKeys } from './mail-keys';
 import type { MailPage } from './mail-keys';
 
-/** GET /api/labs/:labId/caught-mail: what the local catcher received, newest first; admins only. */
-export const getCaughtMail = (labId: string, { page, pageSize }: MailPage, signal?: AbortSignal) =>
-  apiClient.get<CaughtMailList>(`/api/labs/${labId}/caught-mail?page=${page}&pageSize=${pageSize}`, { signal });
+/** GET /api/caught-mail: what the local catcher took for me (and invitations I sent), newest first. */
+export const getCaughtMail = ({ page, pageSize }: MailPage, signal?: AbortSignal) =>
+  apiClient.get<CaughtMailList>(`/api/caught-mail?page=${page}&pageSize=${pageSize}`, { signal });
 
-export const getCaughtMailQueryOptions = (labId: string, page: MailPage) =>
+export const getCaughtMailQueryOptions = (page: MailPage) =>
   queryOptions({
-    queryKey: mailKeys.list(labId, page),
-    queryFn: ({ signal }) => getCaughtMail(labId, page, signal),
+    queryKey: mailKeys.list(page),
+    queryFn: ({ signal }) => getCaughtMail(page, signal),
     placeholderData: keepPreviousData,
     // New mail arrives without anyone on this screen doing anything.
     refetchInterval: 10_000,
   });
 
-export const useCaughtMail = (labId: string, page: MailPage) => useQuery(getCaughtMailQueryOptions(labId, page));
+export const useCaughtMail = (page: MailPage) => useQuery(getCaughtMailQueryOptions(page));

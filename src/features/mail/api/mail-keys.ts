@@ -5,6 +5,5 @@ export interface MailPage {
 
 export const mailKeys = {
   all: ['caught-mail'] as const,
-  lists: (labId: string) => [...mailKeys.all, labId] as const,
-  list: (labId: string, page: MailPage) => [...mailKeys.lists(labId), page] as const,
+  list: (page: MailPage) => [...mailKeys.all, page] as const,
 };
