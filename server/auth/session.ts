@@ -11,6 +11,12 @@ declare module 'express-session' {
     signedInAt?: number;
     userAgent?: string;
     ip?: string;
+    /** A right password waiting for its second step (who, and since when). */
+    twoFactorPending?: { userId: string; since: number };
+    /** This sign-in passed the second step, or set it up. */
+    twoFactorVerified?: boolean;
+    /** A new authenticator secret waiting for its first code. */
+    totpSetupSecret?: string;
   }
 }
 

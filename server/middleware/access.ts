@@ -34,6 +34,19 @@ export function requireLabRole(needed: Role): RequestHandler {
         403,
       );
     }
+    // A lab may require a second sign-in step of the people who approve and administer.
+    if (
+      membership.lab.requireTwoFactor &&
+      roleAtLeast(membership.role, 'reviewer') &&
+      !req.session?.twoFactorVerified
+    ) {
+      throw new AppError(
+        'two_factor_required',
+        'This lab requires two-step sign-in of its admins and reviewers. Turn it on under Account (if it is on ' +
+          'already, sign out and sign in again with your code).',
+        403,
+      );
+    }
     req.lab = {
       id: membership.lab.id,
       name: membership.lab.name,

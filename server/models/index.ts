@@ -8,6 +8,7 @@ import { Invitation } from './invitation.model';
 import { Lab } from './lab.model';
 import { Membership } from './membership.model';
 import { PasswordReset } from './password-reset.model';
+import { RecoveryCode } from './recovery-code.model';
 import { RedoxPotential } from './redox-potential.model';
 import { initScenarioModels } from './scenario-models';
 import { initStudyModels } from './study-models';
@@ -15,7 +16,7 @@ import { User } from './user.model';
 
 /** Binds every model to one Sequelize instance and declares the associations; call once per instance. */
 export function initModels(sequelize: Sequelize): void {
-  const models = [Lab, User, Membership, Invitation, PasswordReset, CaughtMail, AuditEvent, Compound];
+  const models = [Lab, User, Membership, Invitation, PasswordReset, RecoveryCode, CaughtMail, AuditEvent, Compound];
   for (const model of [...models, RedoxPotential, ExcitedStateLifetime, ExcitedStateEnergy]) {
     model.initModel(sequelize);
   }
@@ -55,6 +56,7 @@ export {
   Lab,
   Membership,
   PasswordReset,
+  RecoveryCode,
   RedoxPotential,
   User,
 };

@@ -7,6 +7,11 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare name: string;
   declare passwordHash: string;
   declare lastSignInAt: CreationOptional<Date | null>;
+  /** Base32 TOTP secret; set only while two-step sign-in is on. */
+  declare totpSecret: CreationOptional<string | null>;
+  declare totpEnabledAt: CreationOptional<Date | null>;
+  /** The RFC 6238 time step of the last accepted code, so a code never works twice. */
+  declare totpLastStep: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -18,6 +23,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         name: { type: DataTypes.STRING(120), allowNull: false },
         passwordHash: { type: DataTypes.STRING(100), allowNull: false },
         lastSignInAt: { type: DataTypes.DATE, allowNull: true },
+        totpSecret: { type: DataTypes.STRING(64), allowNull: true },
+        totpEnabledAt: { type: DataTypes.DATE, allowNull: true },
+        totpLastStep: { type: DataTypes.BIGINT, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -17,6 +17,7 @@ import { studyRoutes } from './studies.routes';
 import { studyReviewRoutes } from './study-reviews.routes';
 import { studyUploadRoutes } from './study-uploads.routes';
 import { systemRoutes } from './system.routes';
+import { twoFactorRoutes } from './two-factor.routes';
 
 /** Every API route of the server; the OpenAPI document and the permission matrix test read this list. */
 export const apiRoutes: AnyRouteSpec[] = [
@@ -24,6 +25,7 @@ export const apiRoutes: AnyRouteSpec[] = [
   ...sessionRoutes,
   ...accountRoutes,
   ...accountSessionRoutes,
+  ...twoFactorRoutes,
   ...caughtMailRoutes,
   ...invitationRoutes,
   ...memberRoutes,

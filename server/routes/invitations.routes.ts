@@ -1,9 +1,10 @@
 import { z } from 'zod';
 import { acceptInvitationSchema, invitationPreviewSchema, sessionSchema } from '@shared/schemas/auth';
+import { secondStepNeededSchema } from '@shared/schemas/two-factor';
 import { defineRoute } from '../http/define-route';
 import { AppError } from '../lib/app-error';
 import { acceptInvitation, previewInvitation } from '../services/invitations.service';
-import { logIn, sessionResponse } from './session.routes';
+import { completeFirstStep } from './session.routes';
 
 const tokenParams = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,100}$/, 'is not a valid invitation token') });
 
@@ -33,6 +34,10 @@ export const invitationRoutes = [
     request: { params: tokenParams, body: acceptInvitationSchema },
     responses: {
       200: { description: 'Joined the lab and signed in', schema: sessionSchema },
+      202: {
+        description: 'Joined; the account has two-step sign-in, so the second step follows',
+        schema: secondStepNeededSchema,
+      },
       400: { description: 'Missing name or weak password' },
       401: { description: 'Wrong password for the existing account' },
       404: { description: 'Expired, revoked, used or unknown' },
@@ -43,8 +48,8 @@ export const invitationRoutes = [
         if (error instanceof AppError && error.code === 'invalid_credentials') await rateLimits.signInFailed(req, null);
         throw error;
       });
-      await logIn(req, userId);
-      res.json(await sessionResponse(req, res, userId, { newSession: true }));
+      // With two-step sign-in on, joining still needs the second step before the session is signed in.
+      await completeFirstStep(req, res, userId);
     },
   }),
 ];

@@ -20,6 +20,7 @@ export async function loadSessionUser(userId: string): Promise<SessionUser> {
       labName: membership.lab!.name,
       isDemo: membership.lab!.isDemo,
       role: membership.role,
+      requireTwoFactor: membership.lab!.requireTwoFactor,
     })),
   };
 }

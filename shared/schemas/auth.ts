@@ -20,7 +20,13 @@ export const signInSchema = z
   .meta({ id: 'SignIn' });
 
 export const labMembershipSchema = z
-  .object({ labId: z.string().uuid(), labName: z.string(), isDemo: z.boolean(), role: roleSchema })
+  .object({
+    labId: z.string().uuid(),
+    labName: z.string(),
+    isDemo: z.boolean(),
+    role: roleSchema,
+    requireTwoFactor: z.boolean().describe('The lab requires two-step sign-in of its admins and reviewers'),
+  })
   .meta({ id: 'LabMembership' });
 
 export const sessionUserSchema = z
@@ -36,7 +42,14 @@ export const sessionSchema = z
   .object({
     user: sessionUserSchema,
     csrfToken: z.string().describe('Send in the x-csrf-token header of every state-changing request'),
-    mailCatcher: z.boolean().describe('True when outgoing mail is caught locally and readable by admins'),
+    mailCatcher: z.boolean().describe('True when outgoing mail is caught locally (each person reads their own)'),
+    twoFactor: z
+      .object({
+        enabled: z.boolean().describe('Two-step sign-in is on for this person'),
+        verified: z.boolean().describe('This session passed the second step (or set it up)'),
+        recoveryCodesLeft: z.number().int(),
+      })
+      .describe('Two-step sign-in of the signed-in person'),
   })
   .meta({ id: 'Session' });
 

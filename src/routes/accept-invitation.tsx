@@ -1,10 +1,14 @@
+import { useState } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import type { Session } from '@shared/schemas/auth';
+import type { SecondStepNeeded } from '@shared/schemas/two-factor';
 import { ErrorNotice } from '@/components/error-notice';
 import { Signal } from '@/components/signal';
 import { TextLink } from '@/components/text-link';
 import { useInvitation } from '@/features/auth/api/get-invitation';
+import { needsSecondStep } from '@/features/auth/api/sign-in';
 import { AcceptInvitationForm } from '@/features/auth/components/accept-invitation-form';
+import { SecondStepForm } from '@/features/auth/components/second-step-form';
 import { rememberLab } from '@/features/labs/current-lab';
 import { ApiError } from '@/lib/api-client';
 import { formatDateTime } from '@shared/format';
@@ -17,6 +21,7 @@ export function AcceptInvitationRoute() {
   const { token = '' } = useParams();
   const navigate = useNavigate();
   const invitation = useInvitation(token);
+  const [secondStep, setSecondStep] = useState(false);
 
   if (invitation.isPending) return <Signal tone="waiting">Opening the invitation</Signal>;
   if (invitation.isError) {
@@ -35,8 +40,24 @@ export function AcceptInvitationRoute() {
   }
 
   const { labName, role, invitedBy, email, expiresAt } = invitation.data;
+  if (secondStep) {
+    return (
+      <div className="space-y-5">
+        <header>
+          <h1 className="text-title font-black text-ink-950">You joined {labName}</h1>
+          <p className="text-body text-ink-700">Your account asks for a code to finish signing in.</p>
+        </header>
+        <SecondStepForm onSignedIn={() => void navigate('/', { replace: true })} />
+      </div>
+    );
+  }
 
-  function onJoined(session: Session) {
+  function onJoined(answer: Session | SecondStepNeeded) {
+    if (needsSecondStep(answer)) {
+      setSecondStep(true);
+      return;
+    }
+    const session = answer;
     // The newest membership with this lab's name is the one just created.
     const joined = session.user.labs.findLast((lab) => lab.labName === labName);
     if (joined) rememberLab(joined.labId);

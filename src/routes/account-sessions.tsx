@@ -8,6 +8,7 @@ import { TextLink } from '@/components/text-link';
 import { useEndAccountSession } from '@/features/auth/api/end-account-sessions';
 import { useAccountSessions } from '@/features/auth/api/get-account-sessions';
 import { SessionList } from '@/features/auth/components/session-list';
+import { paths } from '@/lib/paths';
 
 /** Every browser signed in as me; I can sign out the ones I do not recognise. */
 export function AccountSessionsRoute() {
@@ -25,7 +26,7 @@ export function AccountSessionsRoute() {
     <div className="max-w-3xl space-y-6">
       <header>
         <p className="text-caption font-bold text-ink-500">
-          <TextLink to="/account">Account</TextLink> / Signed-in browsers
+          <TextLink to={paths.account()}>Account</TextLink> / Signed-in browsers
         </p>
         <h1 className="mt-1 text-display font-black text-ink-950">Signed-in browsers</h1>
         <p className="mt-1 text-lead text-ink-700">

@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useLocation, useNavigate, useSearchParams } from 'react-router-dom';
@@ -6,7 +7,8 @@ import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { TextField } from '@/components/text-field';
 import { TextLink } from '@/components/text-link';
-import { useSignIn } from '@/features/auth/api/sign-in';
+import { needsSecondStep, useSignIn } from '@/features/auth/api/sign-in';
+import { SecondStepForm } from '@/features/auth/components/second-step-form';
 import { showServerErrors } from '@/lib/form-errors';
 import { safeReturnAddress } from './session-loaders';
 import { paths } from '@/lib/paths';
@@ -27,13 +29,27 @@ export function SignInRoute() {
   const form = useForm({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
   const { errors } = form.formState;
   const notice = noticeFrom(state);
+  const [secondStep, setSecondStep] = useState(false);
+  const goOn = () => navigate(safeReturnAddress(params.get('next')), { replace: true });
 
   const onSubmit = form.handleSubmit((values) =>
     signIn.mutate(values, {
-      onSuccess: () => navigate(safeReturnAddress(params.get('next')), { replace: true }),
+      onSuccess: (answer) => (needsSecondStep(answer) ? setSecondStep(true) : goOn()),
       onError: (error) => showServerErrors(error, form.setError, ['email', 'password']),
     }),
   );
+
+  if (secondStep) {
+    return (
+      <div className="space-y-5">
+        <header>
+          <h1 className="text-title font-black text-ink-950">One more step</h1>
+          <p className="text-body text-ink-700">Your password was right. Your account also asks for a code.</p>
+        </header>
+        <SecondStepForm onSignedIn={goOn} />
+      </div>
+    );
+  }
 
   return (
     <div className="space-y-5">

@@ -39,7 +39,9 @@ describe('POST /api/labs/:labId/invitations', () => {
       password: 'newcomer-passphrase',
     });
     expect(accepted.status).toBe(200);
-    expect(accepted.body.user.labs).toEqual([{ labId: lab.id, labName: lab.name, isDemo: false, role: 'reviewer' }]);
+    expect(accepted.body.user.labs).toEqual([
+      { labId: lab.id, labName: lab.name, isDemo: false, role: 'reviewer', requireTwoFactor: false },
+    ]);
     expect((await guest.get('/api/session')).body.user.email).toBe(email);
 
     const reused = await apiClient(testApp.app);

@@ -50,7 +50,9 @@ describe('POST /api/session', () => {
     expect(after!.split(';')[0]).not.toBe(before.split(';')[0]);
     expect(after).toMatch(/HttpOnly/i);
     expect(after).toMatch(/SameSite=Lax/i);
-    expect(signedIn.body.user.labs).toEqual([{ labId: lab.id, labName: lab.name, isDemo: false, role: 'reviewer' }]);
+    expect(signedIn.body.user.labs).toEqual([
+      { labId: lab.id, labName: lab.name, isDemo: false, role: 'reviewer', requireTwoFactor: false },
+    ]);
     expect(signedIn.body.mailCatcher).toBe(true);
 
     const replay = await request(testApp.app).get('/api/session').set('cookie', before.split(';')[0]!);

@@ -88,7 +88,12 @@ describe('client addresses', () => {
 function signedIn(session: Pick<Session, 'user'> & Partial<Session>) {
   // The guard's loader reads the session from this cache (staleTime Infinity), so nothing is fetched.
   queryClient.clear();
-  queryClient.setQueryData(authKeys.session(), { csrfToken: 'test', mailCatcher: true, ...session });
+  queryClient.setQueryData(authKeys.session(), {
+    csrfToken: 'test',
+    mailCatcher: true,
+    twoFactor: { enabled: false, verified: false, recoveryCodesLeft: 0 },
+    ...session,
+  });
 }
 
 function openApp(address: string) {
@@ -105,7 +110,15 @@ describe('labs/:labId layout', () => {
     id,
     email: 'ada@example.invalid',
     name: 'Ada Example',
-    labs: [{ labId: lab, labName: 'Invented Photoredox Group', isDemo: false, role: 'researcher' as const }],
+    labs: [
+      {
+        labId: lab,
+        labName: 'Invented Photoredox Group',
+        isDemo: false,
+        role: 'researcher' as const,
+        requireTwoFactor: false,
+      },
+    ],
   };
 
   it('when a member opens a lab screen, then the screen gets the membership from the layout', async () => {

@@ -3,6 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { joinWithAccountSchema, joinWithNewAccountSchema } from '@shared/schemas/auth';
 import type { InvitationPreview, Session } from '@shared/schemas/auth';
+import type { SecondStepNeeded } from '@shared/schemas/two-factor';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { TextField } from '@/components/text-field';
@@ -19,7 +20,7 @@ const newAccountSchema = joinWithNewAccountSchema
 interface AcceptInvitationFormProps {
   token: string;
   invitation: InvitationPreview;
-  onJoined: (session: Session) => void;
+  onJoined: (answer: Session | SecondStepNeeded) => void;
 }
 
 /** Joining with an existing account needs only its password; a newcomer picks a name and a password. */
