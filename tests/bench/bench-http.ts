@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { pino } from 'pino';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '../../server/app';
+import type { CreateAppOptions } from '../../server/app';
 import { hashPassword } from '../../server/auth/passwords';
 import { startMailCatcher } from '../../server/mail/catcher';
 import { createMailer } from '../../server/mail/mailer';
@@ -13,7 +14,11 @@ import { Membership, User } from '../../server/models';
  * client that keeps cookies and the CSRF token the way the browser app does
  * (tests/support/accounts.ts does the same through supertest).
  */
-export async function startBenchServer(sequelize: Sequelize, databaseUrl: string) {
+export async function startBenchServer(
+  sequelize: Sequelize,
+  databaseUrl: string,
+  overrides: Partial<CreateAppOptions> = {},
+) {
   const catcher = await startMailCatcher();
   const mailer = createMailer(catcher.url, 'Halflight bench <bench@halflight.invalid>');
   const app = createApp({
@@ -25,7 +30,9 @@ export async function startBenchServer(sequelize: Sequelize, databaseUrl: string
     mailer,
     mailCatcher: true,
     publicUrl: 'http://127.0.0.1:4310',
+    ...overrides,
   });
+  await app.startJobs();
   const server = app.listen(0, '127.0.0.1');
   await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
   const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -52,8 +59,11 @@ export async function createBenchMember(labId: string, role: 'viewer' | 'researc
   return { email: user.email, password };
 }
 
-/** fetch with a cookie jar and the CSRF token; signs in through POST /api/session. */
-export async function signedInClient(baseUrl: string, account: { email: string; password: string }) {
+/**
+ * fetch with a cookie jar and the CSRF token; signs in through POST /api/session (or stays
+ * signed out when `account` is null).
+ */
+export async function signedInClient(baseUrl: string, account: { email: string; password: string } | null) {
   const cookies = new Map<string, string>();
   let csrfToken = '';
   const call = async (method: string, url: string, body?: object) => {
@@ -73,8 +83,17 @@ export async function signedInClient(baseUrl: string, account: { email: string; 
     return response;
   };
   csrfToken = ((await (await call('GET', '/api/csrf-token')).json()) as { csrfToken: string }).csrfToken;
-  const session = await call('POST', '/api/session', account);
-  if (session.status !== 200) throw new Error(`bench sign-in failed: ${session.status} ${await session.text()}`);
-  csrfToken = ((await session.json()) as { csrfToken: string }).csrfToken;
-  return { get: (url: string) => call('GET', url) };
+  if (account) {
+    const session = await call('POST', '/api/session', account);
+    if (session.status !== 200) throw new Error(`bench sign-in failed: ${session.status} ${await session.text()}`);
+    csrfToken = ((await session.json()) as { csrfToken: string }).csrfToken;
+  }
+  return {
+    get: (url: string) => call('GET', url),
+    post: async (url: string, body: object) => {
+      const response = await call('POST', url, body);
+      await response.arrayBuffer();
+      return response;
+    },
+  };
 }
