@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { Request, RequestHandler, Response } from 'express';
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 import type { Sequelize } from 'sequelize';
@@ -50,10 +51,17 @@ function tooMany(msBeforeNext: number): AppError {
   return Object.assign(error, { retryAfterSeconds: Math.ceil(msBeforeNext / 1000) });
 }
 
-const emailOf = (req: Request) =>
-  String((req.body as Record<string, unknown> | undefined)?.email ?? '')
-    .trim()
-    .toLowerCase();
+/**
+ * The counter key of an address: a SHA-256 digest of the address as typed (trimmed, lower case).
+ * The rate_limits table then holds no addresses, and text PostgreSQL cannot store (NUL, a lone
+ * surrogate) never reaches it before the route's own validation answers 400.
+ */
+const accountKey = (address: string) => createHash('sha256').update(address.trim().toLowerCase()).digest('base64url');
+
+const emailOf = (req: Request) => {
+  const email = (req.body as Record<string, unknown> | undefined)?.email;
+  return typeof email === 'string' && email.trim() ? accountKey(email) : '';
+};
 
 export function createRateLimits(
   sequelize: Sequelize,
@@ -136,11 +144,11 @@ export function createRateLimits(
     /** A wrong password (or an unknown address) from this client, for this account. */
     async signInFailed(req: Request, account: string | null): Promise<void> {
       await spend('signInFailuresPerIp', ipOf(req));
-      if (account) await spend('signInFailuresPerAccount', account);
+      if (account) await spend('signInFailuresPerAccount', accountKey(account));
     },
     /** The right password: the account's failure count starts again (the address's does not). */
     async signInSucceeded(account: string): Promise<void> {
-      await limiters.signInFailuresPerAccount.delete(account);
+      await limiters.signInFailuresPerAccount.delete(accountKey(account));
     },
     spend,
     ipOf,

@@ -42,7 +42,8 @@ describe('the app shell in Chromium', () => {
     await expect(page.getByRole('heading', { name: 'Overview', level: 1 }).isVisible()).resolves.toBe(true);
     await page.getByText('Database answering').waitFor();
     const navigation = page.getByRole('navigation', { name: 'Main' });
-    // A viewer sees only the screens open to viewers: no caught mail or lab settings, which are for admins.
+    // A viewer sees only the screens open to viewers: no lab settings, which are for admins. With
+    // mail caught (no SMTP_URL) everyone reads the messages addressed to them, and only those.
     expect(await navigation.getByRole('link').allTextContents()).toEqual([
       'Overview',
       'Studies',
@@ -52,6 +53,7 @@ describe('the app shell in Chromium', () => {
       'Who quenches?',
       'Planner',
       'Account',
+      'Caught mail',
     ]);
     const font = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
     expect(font).toContain('Lato');
