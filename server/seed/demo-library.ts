@@ -17,6 +17,8 @@ type Potential = [
 ];
 interface DemoCompound {
   name: string;
+  /** the plain words a title may use for it ("iridium emitter", "amine"); checked against demo titles */
+  family: string;
   roleHint: 'photocatalyst' | 'quencher' | 'both';
   emissiveState?: string;
   tripletEnergy?: number;
@@ -32,6 +34,7 @@ interface DemoCompound {
 const demoCompounds: DemoCompound[] = [
   {
     name: 'HL-Ir-7',
+    family: 'iridium',
     roleHint: 'photocatalyst',
     emissiveState: 'MLCT',
     tripletEnergy: 2.6,
@@ -45,6 +48,7 @@ const demoCompounds: DemoCompound[] = [
   },
   {
     name: 'HL-Cz-2',
+    family: 'carbazole',
     roleHint: 'photocatalyst',
     emissiveState: 'charge transfer',
     tripletEnergy: 2.48,
@@ -58,6 +62,7 @@ const demoCompounds: DemoCompound[] = [
   },
   {
     name: 'HL-Ru-4',
+    family: 'ruthenium',
     roleHint: 'photocatalyst',
     emissiveState: 'MLCT',
     tripletEnergy: 2.05,
@@ -71,19 +76,28 @@ const demoCompounds: DemoCompound[] = [
   },
   {
     name: 'Q-amine-3',
+    family: 'amine',
     roleHint: 'quencher',
     tripletEnergy: 3.1,
     potentials: [['oxidation', 0.71, 'SCE', 'half-peak']],
   },
   {
     name: 'Q-aryl-Br-1',
+    family: 'aryl bromide',
     roleHint: 'quencher',
     tripletEnergy: 2.9,
     potentials: [['reduction', -2.05, 'Fc+/Fc', 'peak']],
   },
-  { name: 'Q-viol-5', roleHint: 'quencher', charge: 2, potentials: [['reduction', -0.83, 'Fc+/Fc', 'half-wave']] },
+  {
+    name: 'Q-viol-5',
+    family: 'bipyridinium salt',
+    roleHint: 'quencher',
+    charge: 2,
+    potentials: [['reduction', -0.83, 'Fc+/Fc', 'half-wave']],
+  },
   {
     name: 'Q-ene-6',
+    family: 'alkene',
     roleHint: 'both',
     tripletEnergy: 2.31,
     potentials: [
@@ -91,20 +105,42 @@ const demoCompounds: DemoCompound[] = [
       ['reduction', -2.4, 'SCE', 'peak'],
     ],
   },
+  {
+    name: 'Q-thiol-8',
+    family: 'thiol',
+    roleHint: 'quencher',
+    potentials: [['oxidation', 0.95, 'SCE', 'peak']],
+  },
+  {
+    name: 'Q-borate-9',
+    family: 'borate salt',
+    roleHint: 'quencher',
+    charge: -1,
+    potentials: [['oxidation', 0.62, 'Fc+/Fc', 'half-peak']],
+  },
 ];
+
+/** Each demo compound's name and the plain words titles use for it (tests check titles with these). */
+export const demoCompoundFamilies: ReadonlyArray<{ name: string; family: string }> = demoCompounds.map(
+  ({ name, family }) => ({ name, family }),
+);
 
 /** Names the studies' demo data can look up (emitters first). */
 export const demoEmitterNames = demoCompounds.filter((c) => c.roleHint === 'photocatalyst').map((c) => c.name);
 export const demoQuencherNames = demoCompounds.filter((c) => c.roleHint !== 'photocatalyst').map((c) => c.name);
 
-/** Seeds the Marram demo lab's library inside the demo transaction; returns compound ids by name. */
-export async function seedDemoLibrary(
-  transaction: Transaction,
-  labs: Record<string, Lab>,
-): Promise<Record<string, string>> {
+/** What the demo studies find by name: compound ids, and the lifetime record of each emitter. */
+export interface DemoLibrary {
+  compounds: Record<string, string>;
+  lifetimes: Record<string, { id: string; value: number; uncertainty: number }>;
+}
+
+/** Seeds the Marram demo lab's library inside the demo transaction; returns its records by compound name. */
+export async function seedDemoLibrary(transaction: Transaction, labs: Record<string, Lab>): Promise<DemoLibrary> {
   const lab = labs.marram;
-  if (!lab) return {};
   const ids: Record<string, string> = {};
+  const lifetimes: DemoLibrary['lifetimes'] = {};
+  if (!lab) return { compounds: ids, lifetimes };
   const demo = {
     labId: lab.id,
     createdById: null,
@@ -136,7 +172,7 @@ export async function seedDemoLibrary(
       );
     }
     if (item.lifetime) {
-      await ExcitedStateLifetime.create(
+      const record = await ExcitedStateLifetime.create(
         {
           ...demo,
           compoundId,
@@ -149,6 +185,7 @@ export async function seedDemoLibrary(
         },
         { transaction },
       );
+      lifetimes[item.name] = { id: record.id, value: record.value, uncertainty: record.uncertainty ?? 0 };
     }
     if (item.e00 !== undefined) {
       const fromWavelength = typeof item.e00 === 'object';
@@ -164,5 +201,5 @@ export async function seedDemoLibrary(
       );
     }
   }
-  return ids;
+  return { compounds: ids, lifetimes };
 }

@@ -1,162 +1,343 @@
 import type { Transaction } from 'sequelize';
-import { Op } from 'sequelize';
 import type { FitModel } from '@shared/schemas/studies';
-import { Compound, Study, StudyPoint, StudyReview, type Lab, type User } from '../models';
+import { Study, StudyPoint, StudyReview, type Lab, type User } from '../models';
 import { refitStudy } from '../services/studies/study-fitting.service';
+import type { DemoClock } from './demo-clock';
+import type { DemoLibrary } from './demo-library';
 
 /*
- * Demo quenching studies for the Marram demo lab. Every title, code and number is INVENTED:
- * the series follow I0/I = (1 + K_D[Q])(1 + K_S[Q]) with made-up constants and a small fixed
- * wobble so they look measured. Nothing here comes from a paper or an instrument.
+ * The demo lab's quenching studies. Every title, code and number is INVENTED: each series is
+ * computed from the model its title describes (I0/I = (1 + K_D[Q])(1 + K_S[Q]), the accessible-
+ * fraction form, or a straight line) with a small fixed wobble so it looks measured. Compounds
+ * are named, never picked by position, and each title names the two compounds it uses (a test
+ * checks that). Together the studies show each fit model and each flag the engine raises.
  */
-const WOBBLE = [0, 0.012, -0.009, 0.007, -0.011, 0.006, -0.004, 0.01];
-const EXTRA_QUENCHERS = ['Q-thiol-8 (demo)', 'Q-borate-9 (demo)'];
 
-interface DemoStudy {
+type Person = 'priya' | 'tomasz' | 'ines';
+type Status = 'draft' | 'submitted' | 'approved' | 'returned';
+
+interface Series {
+  /** mol/L */
+  concentrations: number[];
+  /** the true I0/I at [Q] */
+  ratio: (q: number) => number;
+  /** the true tau0/tau at [Q], when lifetimes were measured */
+  lifetimeRatio?: (q: number) => number;
+  /** relative deviation of each reading (default WOBBLE) */
+  wobble?: readonly number[];
+  /** absorbance of the quencher at the excitation and emission wavelengths, per mol/L */
+  absorbancePerMolar?: { excitation: number; emission: number };
+  /** the stock added (L) and the starting volume (L), when the quencher was added without emitter */
+  dilution?: { initialVolume: number; stock: number };
+  /** readings replaced by hand-made faults: position -> intensity */
+  faults?: Record<number, number>;
+}
+
+export interface DemoStudy {
+  key: string;
   title: string;
   emitter: string;
   quencher: string;
   solventId: string;
-  tau0: number;
-  kD: number;
-  kS?: number;
-  model?: FitModel;
-  maxConcentration: number;
-  lifetimes?: boolean;
-  status: 'draft' | 'submitted' | 'approved' | 'returned';
-  comment?: string;
+  owner: Person;
+  /** the lifetime record of the emitter, or a tau0 typed in s (e.g. measured in another solvent) */
+  tau0: 'record' | { value: number; uncertainty: number };
+  /** I0 typed with the study (no blank in the series) */
+  i0?: number;
+  model: FitModel;
+  series: Series;
+  innerFilterCorrection?: boolean;
   notes: string;
+  /** what happened, in days before the demo was loaded */
+  story: { started: number; submitted?: number; decided?: { days: number; status: 'approved' | 'returned' } };
+  comment?: string;
+  /** who decides; never the owner */
+  reviewer?: Person;
 }
 
-const demoStudies = (emitters: string[], quenchers: string[]): DemoStudy[] => [
+const I0 = 12000;
+const WOBBLE = [0, 0.012, -0.009, 0.007, -0.011, 0.006, -0.004, 0.01, -0.006, 0.008, -0.01, 0.005];
+const evenly = (max: number, steps: number) => Array.from({ length: steps + 1 }, (_, i) => (max * i) / steps);
+const line = (k: number) => (q: number) => 1 + k * q;
+const combined = (kD: number, kS: number) => (q: number) => (1 + kD * q) * (1 + kS * q);
+// Lehrer's accessible-fraction form: I/I0 = f_a/(1 + K[Q]) + (1 - f_a).
+const partlyAccessible = (fa: number, k: number) => (q: number) => 1 / (fa / (1 + k * q) + 1 - fa);
+
+export const demoStudies: DemoStudy[] = [
   {
-    title: 'Demo: amine quenching of the iridium emitter',
-    emitter: emitters[0]!,
-    quencher: quenchers[0]!,
+    key: 'ir-amine',
+    title: 'Demo: HL-Ir-7 (iridium) with the amine Q-amine-3 in MeCN',
+    emitter: 'HL-Ir-7',
+    quencher: 'Q-amine-3',
     solventId: 'acetonitrile',
-    tau0: 1.1e-6,
-    kD: 1100,
-    maxConcentration: 4e-3,
-    lifetimes: true,
-    status: 'approved',
-    comment: 'Intensity and lifetime slopes agree; approved.',
-    notes: 'Demo data. Lifetimes by invented TCSPC runs.',
+    owner: 'priya',
+    tau0: 'record',
+    model: 'linear-free',
+    series: { concentrations: evenly(4e-3, 7), ratio: line(1600), lifetimeRatio: line(1600) },
+    notes: 'Demo data. Intensities integrated 470–640 nm; lifetimes from invented TCSPC runs at each addition.',
+    story: { started: 19, submitted: 16, decided: { days: 15, status: 'approved' } },
+    comment: 'Intensity and lifetime slopes agree within error: dynamic quenching. Approved.',
+    reviewer: 'tomasz',
   },
   {
-    title: 'Demo: bipyridinium salt, faster than diffusion',
-    emitter: emitters[0]!,
-    quencher: quenchers[2] ?? quenchers[0]!,
+    key: 'ir-viologen',
+    title: 'Demo: HL-Ir-7 (iridium) with the bipyridinium salt Q-viol-5, faster than diffusion',
+    emitter: 'HL-Ir-7',
+    quencher: 'Q-viol-5',
     solventId: 'acetonitrile',
-    tau0: 1.1e-6,
-    kD: 26000,
-    maxConcentration: 2e-4,
-    status: 'submitted',
-    notes: 'Demo data. kq above k_diff: check for ion pairing.',
+    owner: 'priya',
+    tau0: 'record',
+    model: 'linear-free',
+    // A static share (an ion pair) on top of collisions: the line is too steep and bends upward.
+    series: { concentrations: evenly(6e-5, 7), ratio: combined(40000, 30000) },
+    notes:
+      'Demo data. kq comes out above the diffusion limit in MeCN: an ion pair of the cationic emitter and the dication?',
+    story: { started: 4, submitted: 1 },
   },
   {
-    title: 'Demo: aryl bromide with the carbazole emitter',
-    emitter: emitters[1] ?? emitters[0]!,
-    quencher: quenchers[1] ?? quenchers[0]!,
+    key: 'cz-aryl-bromide',
+    title: 'Demo: HL-Cz-2 (carbazole) with the aryl bromide Q-aryl-Br-1 in DMF',
+    emitter: 'HL-Cz-2',
+    quencher: 'Q-aryl-Br-1',
     solventId: 'dmf',
-    tau0: 4.2e-6,
-    kD: 45,
-    maxConcentration: 0.05,
-    status: 'returned',
-    comment: 'Please add a second blank and one point above 50 mM.',
-    notes: 'Demo data.',
+    owner: 'priya',
+    // The library's lifetime is in MeCN; this one was measured in DMF for the study.
+    tau0: { value: 4.2e-6, uncertainty: 0.15e-6 },
+    model: 'linear-free',
+    series: { concentrations: [0, 0.01, 0.02, 0.03], ratio: line(45) },
+    notes: 'Demo data. τ0 measured in DMF under argon (invented).',
+    story: { started: 9, submitted: 7, decided: { days: 6, status: 'returned' } },
+    comment: 'Only four concentrations: add a second blank and two points above 30 mM, then submit again.',
+    reviewer: 'tomasz',
   },
   {
-    title: 'Demo: alkene, plot bends upward',
-    emitter: emitters[1] ?? emitters[0]!,
-    quencher: quenchers[3] ?? quenchers[0]!,
+    key: 'cz-alkene',
+    title: 'Demo: HL-Cz-2 (carbazole) with the alkene Q-ene-6, static and dynamic',
+    emitter: 'HL-Cz-2',
+    quencher: 'Q-ene-6',
     solventId: 'acetonitrile',
-    tau0: 4.2e-6,
-    kD: 300,
-    kS: 150,
-    maxConcentration: 8e-3,
-    status: 'draft',
-    notes: 'Demo data. Try the static + dynamic model.',
+    owner: 'priya',
+    tau0: 'record',
+    model: 'static-dynamic',
+    // Lifetimes see only the dynamic part, so the fit can tell K_D from K_S.
+    series: { concentrations: evenly(8e-3, 7), ratio: combined(300, 150), lifetimeRatio: line(300) },
+    notes: 'Demo data. The plot bends upward and the lifetimes follow the smaller constant.',
+    story: { started: 3 },
   },
   {
-    title: 'Demo: thiol screen in DMF',
-    emitter: emitters[0]!,
-    quencher: quenchers[4] ?? quenchers[0]!,
-    solventId: 'dmf',
-    tau0: 9.5e-7,
-    kD: 2500,
-    maxConcentration: 2e-3,
-    status: 'draft',
-    notes: 'Demo data.',
-  },
-  {
-    title: 'Demo: borate salt, reductive pathway expected',
-    emitter: emitters[1] ?? emitters[0]!,
-    quencher: quenchers[5] ?? quenchers[0]!,
+    key: 'ru-thiol',
+    title: 'Demo: HL-Ru-4 (ruthenium) with the thiol Q-thiol-8, part of the emission out of reach',
+    emitter: 'HL-Ru-4',
+    quencher: 'Q-thiol-8',
     solventId: 'acetonitrile',
-    tau0: 4.2e-6,
-    kD: 800,
-    maxConcentration: 5e-3,
-    status: 'approved',
-    comment: 'Fine.',
-    notes: 'Demo data.',
+    owner: 'ines',
+    tau0: 'record',
+    model: 'modified',
+    series: { concentrations: evenly(5e-3, 8), ratio: partlyAccessible(0.65, 900) },
+    notes: 'Demo data. The plot levels off: about a third of the emission is not reached by the thiol.',
+    story: { started: 6, submitted: 2 },
+  },
+  {
+    key: 'ir-thiol-levels-off',
+    title: 'Demo: HL-Ir-7 (iridium) with the thiol Q-thiol-8, plot levels off',
+    emitter: 'HL-Ir-7',
+    quencher: 'Q-thiol-8',
+    solventId: 'acetonitrile',
+    owner: 'priya',
+    tau0: 'record',
+    model: 'linear-free',
+    series: { concentrations: evenly(4e-3, 7), ratio: partlyAccessible(0.7, 1500) },
+    notes: 'Demo data. Still fitted with a straight line; the flag suggests the accessible-fraction model.',
+    story: { started: 1 },
+  },
+  {
+    key: 'ru-borate',
+    title: 'Demo: HL-Ru-4 (ruthenium) with the borate salt Q-borate-9, line through 1',
+    emitter: 'HL-Ru-4',
+    quencher: 'Q-borate-9',
+    solventId: 'acetonitrile',
+    owner: 'tomasz',
+    tau0: 'record',
+    model: 'linear-fixed',
+    series: { concentrations: evenly(5e-3, 7), ratio: line(700) },
+    notes: 'Demo data. Reductive quenching expected from the borate’s oxidation potential.',
+    story: { started: 24, submitted: 22, decided: { days: 21, status: 'approved' } },
+    comment: 'Clean line; the fixed intercept is justified by the blanks. Approved.',
+    reviewer: 'ines',
+  },
+  {
+    key: 'ir-aryl-bromide-filter',
+    title: 'Demo: HL-Ir-7 (iridium) with the aryl bromide Q-aryl-Br-1, quencher absorbs',
+    emitter: 'HL-Ir-7',
+    quencher: 'Q-aryl-Br-1',
+    solventId: 'acetonitrile',
+    owner: 'tomasz',
+    tau0: 'record',
+    model: 'linear-free',
+    series: {
+      concentrations: evenly(0.04, 7),
+      ratio: line(12),
+      absorbancePerMolar: { excitation: 2.4, emission: 0.6 },
+    },
+    notes: 'Demo data. Absorbances of each sample at 420 nm and at the emission maximum recorded.',
+    story: { started: 8, submitted: 5, decided: { days: 4, status: 'returned' } },
+    comment: 'The aryl bromide absorbs at 420 nm (A up to 0.1): switch on the inner-filter correction and refit.',
+    reviewer: 'ines',
+  },
+  {
+    key: 'ir-amine-dilution',
+    title: 'Demo: HL-Ir-7 (iridium) with the amine Q-amine-3, stock without emitter',
+    emitter: 'HL-Ir-7',
+    quencher: 'Q-amine-3',
+    solventId: 'acetonitrile',
+    owner: 'priya',
+    tau0: 'record',
+    model: 'linear-free',
+    series: {
+      concentrations: evenly(4e-3, 7),
+      ratio: line(1600),
+      dilution: { initialVolume: 2e-3, stock: 0.025 },
+    },
+    notes: 'Demo data. The amine stock held no emitter, so the sample was diluted by about 19 % by the end.',
+    story: { started: 2 },
+  },
+  {
+    key: 'ru-amine-offset',
+    title: 'Demo: HL-Ru-4 (ruthenium) with the amine Q-amine-3, I0 typed from another day',
+    emitter: 'HL-Ru-4',
+    quencher: 'Q-amine-3',
+    solventId: 'acetonitrile',
+    owner: 'priya',
+    tau0: 'record',
+    // I0 typed from another day's blank, 12 % above this series' own: the intercept moves off 1.
+    i0: I0 * 1.12,
+    model: 'linear-free',
+    series: { concentrations: evenly(5e-3, 7).slice(1), ratio: line(400) },
+    notes: 'Demo data. No blank in this series; I0 was copied from the previous day.',
+    story: { started: 5 },
+  },
+  {
+    key: 'cz-amine-lifetimes',
+    title: 'Demo: HL-Cz-2 (carbazole) with the amine Q-amine-3, lifetimes fall faster',
+    emitter: 'HL-Cz-2',
+    quencher: 'Q-amine-3',
+    solventId: 'acetonitrile',
+    owner: 'ines',
+    tau0: 'record',
+    model: 'linear-free',
+    series: { concentrations: evenly(2e-3, 7), ratio: line(900), lifetimeRatio: line(1500) },
+    notes: 'Demo data. Lifetimes drop faster than intensities.',
+    story: { started: 7, submitted: 5, decided: { days: 3, status: 'returned' } },
+    comment:
+      'Lifetimes fall faster than intensities: was the TCSPC sample the steady-state one? Please check and refit.',
+    reviewer: 'tomasz',
+  },
+  {
+    key: 'ru-alkene-blocks',
+    title: 'Demo: HL-Ru-4 (ruthenium) with the alkene Q-ene-6, residuals in blocks',
+    emitter: 'HL-Ru-4',
+    quencher: 'Q-ene-6',
+    solventId: 'acetonitrile',
+    owner: 'priya',
+    tau0: 'record',
+    model: 'linear-free',
+    series: {
+      concentrations: evenly(0.011, 15),
+      ratio: line(60),
+      // Four readings high, four low, and again: a drifting lamp, not noise.
+      wobble: [
+        0.006, 0.008, 0.008, 0.006, -0.006, -0.008, -0.008, -0.006, 0.006, 0.008, 0.008, 0.006, -0.006, -0.008, -0.008,
+        -0.006,
+      ],
+    },
+    notes: 'Demo data. The lamp warmed up during the run; residuals come in blocks.',
+    story: { started: 11 },
+  },
+  {
+    key: 'ir-borate-dropout',
+    title: 'Demo: HL-Ir-7 (iridium) with the borate salt Q-borate-9, one reading of zero',
+    emitter: 'HL-Ir-7',
+    quencher: 'Q-borate-9',
+    solventId: 'acetonitrile',
+    owner: 'priya',
+    tau0: 'record',
+    model: 'linear-free',
+    series: { concentrations: evenly(3e-3, 7), ratio: line(500), faults: { 4: 0 } },
+    notes: 'Demo data. The detector shutter stayed closed for one reading: leave that point out or measure it again.',
+    story: { started: 1 },
+  },
+  {
+    key: 'cz-thiol-no-blank',
+    title: 'Demo: HL-Cz-2 (carbazole) with the thiol Q-thiol-8, no blank yet',
+    emitter: 'HL-Cz-2',
+    quencher: 'Q-thiol-8',
+    solventId: 'acetonitrile',
+    owner: 'priya',
+    tau0: 'record',
+    model: 'linear-free',
+    series: { concentrations: evenly(6e-3, 6).slice(1), ratio: line(350) },
+    notes: 'Demo data. The blank of this series still has to be measured.',
+    story: { started: 0 },
   },
 ];
 
-async function compoundsByRole(labId: string, transaction: Transaction) {
-  const found = await Compound.findAll({ where: { labId }, order: [['name', 'ASC']], transaction });
-  let emitters = found.filter((c) => c.roleHint === 'photocatalyst').map((c) => c.id);
-  let quenchers = found.filter((c) => c.roleHint !== 'photocatalyst').map((c) => c.id);
-  if (emitters.length === 0) {
-    emitters = [
-      (
-        await Compound.create(
-          {
-            labId,
-            name: 'HL-Ir-7',
-            roleHint: 'photocatalyst',
-            notes: 'Demo compound: invented code.',
-            createdById: null,
-          },
-          { transaction },
-        )
-      ).id,
-    ];
-  }
-  const wanted = [...EXTRA_QUENCHERS, 'Q-amine-3', 'Q-aryl-Br-1', 'Q-viol-5', 'Q-ene-6'];
-  for (const name of wanted) {
-    if (quenchers.length >= 6) break;
-    const exists = await Compound.findOne({ where: { labId, name: { [Op.iLike]: name } }, transaction });
-    if (!exists)
-      quenchers.push(
-        (
-          await Compound.create(
-            { labId, name, roleHint: 'quencher', notes: 'Demo compound: invented code.', createdById: null },
-            { transaction },
-          )
-        ).id,
-      );
-  }
-  quenchers = [...new Set(quenchers)];
-  return { emitters, quenchers };
+function points(studyId: string, series: Series) {
+  const wobble = series.wobble ?? WOBBLE;
+  let added = 0;
+  return series.concentrations.map((q, position) => {
+    const deviation = wobble[position % wobble.length]!;
+    // With dilution, the stock volume that gives this [Q]: q = c V / (V0 + V), so V = q V0 / (c - q).
+    const volume = series.dilution ? (q * series.dilution.initialVolume) / (series.dilution.stock - q) : null;
+    const dilutionFactor = series.dilution
+      ? series.dilution.initialVolume / (series.dilution.initialVolume + volume!)
+      : 1;
+    const absorbance = series.absorbancePerMolar;
+    const innerFilter = absorbance ? 10 ** (-((absorbance.excitation + absorbance.emission) * q) / 2) : 1;
+    added = volume ?? added;
+    return {
+      studyId,
+      position,
+      concentration: q,
+      intensity: series.faults?.[position] ?? ((I0 * dilutionFactor * innerFilter) / series.ratio(q)) * (1 + deviation),
+      lifetime: series.lifetimeRatio ? (1 / series.lifetimeRatio(q)) * (1 - deviation / 2) : null,
+      absorbanceExcitation: absorbance ? Number((absorbance.excitation * q).toFixed(4)) : null,
+      absorbanceEmission: absorbance ? Number((absorbance.emission * q).toFixed(4)) : null,
+      volumeAdded: series.dilution ? Number(added.toPrecision(4)) : null,
+      uncertainty: null,
+      excluded: false,
+      exclusionReason: null,
+      uploadId: null,
+    };
+  });
 }
 
-/** Adds the demo studies after the demo library, inside the seeding transaction. */
+/** Adds the demo studies after the demo library, inside the seeding transaction, each at its own time. */
 export async function seedDemoStudies(
   transaction: Transaction,
   labs: Record<string, Lab>,
-  users: Record<string, User>,
+  people: Record<Person, User>,
+  library: DemoLibrary,
+  clock: DemoClock,
 ): Promise<void> {
   const lab = labs.marram;
-  const owner = Object.values(users).find((user) => user.email.startsWith('priya'));
-  const reviewer = Object.values(users).find((user) => user.email.startsWith('tomasz'));
-  if (!lab || !owner || !reviewer) return;
-  const { emitters, quenchers } = await compoundsByRole(lab.id, transaction);
-  for (const demo of demoStudies(emitters, quenchers)) {
+  if (!lab) return;
+  const id = (name: string) => {
+    const found = library.compounds[name];
+    if (!found) throw new Error(`The demo library has no compound named ${name}.`);
+    return found;
+  };
+  for (const demo of demoStudies) {
+    const owner = people[demo.owner];
+    const actor = { userId: owner.id, ip: null };
+    const record = demo.tau0 === 'record' ? library.lifetimes[demo.emitter] : null;
+    if (demo.tau0 === 'record' && !record) throw new Error(`The demo library has no lifetime of ${demo.emitter}.`);
+    const tau0 = record ?? (demo.tau0 as { value: number; uncertainty: number });
+    clock.set(demo.story.started, 10);
     const study = await Study.create(
       {
         labId: lab.id,
-        emitterId: demo.emitter,
-        quencherId: demo.quencher,
+        emitterId: id(demo.emitter),
+        quencherId: id(demo.quencher),
         title: demo.title,
         solventId: demo.solventId,
         customSolventName: null,
@@ -168,17 +349,17 @@ export async function seedDemoStudies(
         windowEnd: 640,
         atmosphere: 'argon',
         degassingMethod: 'sparging',
-        tau0: demo.tau0,
-        tau0Uncertainty: demo.tau0 * 0.03,
-        tau0LifetimeId: null,
-        i0: null,
+        tau0: tau0.value,
+        tau0Uncertainty: tau0.uncertainty,
+        tau0LifetimeId: record?.id ?? null,
+        i0: demo.i0 ?? null,
         dataKind: 'intensity',
-        fitModel: demo.kS ? 'static-dynamic' : 'linear-free',
-        dilutionCorrection: false,
-        initialVolume: null,
-        stockConcentration: null,
+        fitModel: demo.model,
+        dilutionCorrection: demo.series.dilution !== undefined,
+        initialVolume: demo.series.dilution?.initialVolume ?? null,
+        stockConcentration: demo.series.dilution?.stock ?? null,
         stockContainsEmitter: false,
-        innerFilterCorrection: false,
+        innerFilterCorrection: demo.innerFilterCorrection ?? false,
         pinnedMechanism: null,
         notes: demo.notes,
         ownerId: owner.id,
@@ -186,45 +367,48 @@ export async function seedDemoStudies(
       },
       { transaction },
     );
-    const steps = 7;
-    await StudyPoint.bulkCreate(
-      Array.from({ length: steps + 1 }, (_, i) => {
-        const q = (demo.maxConcentration * i) / steps;
-        const ratio = (1 + demo.kD * q) * (1 + (demo.kS ?? 0) * q);
-        return {
-          studyId: study.id,
-          position: i,
-          concentration: q,
-          intensity: (12000 / ratio) * (1 + WOBBLE[i]!),
-          lifetime: demo.lifetimes ? (demo.tau0 / (1 + demo.kD * q)) * (1 - WOBBLE[i]! / 2) : null,
-          absorbanceExcitation: null,
-          absorbanceEmission: null,
-          volumeAdded: null,
-          uncertainty: null,
-          excluded: false,
-          exclusionReason: null,
-          uploadId: null,
-        };
-      }),
-      { transaction },
-    );
-    await refitStudy(study, { trigger: 'auto', actor: { userId: owner.id, ip: null }, transaction });
-    if (demo.status !== 'draft') {
+    clock.record(actor, 'study_created', lab.id, study.id, { title: demo.title });
+    clock.set(demo.story.started, 15);
+    const series = points(study.id, demo.series);
+    // The lifetimes above are tau/tau0; store them in s.
+    for (const point of series) if (point.lifetime !== null) point.lifetime *= tau0.value;
+    await StudyPoint.bulkCreate(series, { transaction });
+    clock.record(actor, 'study_points_replaced', lab.id, study.id, { count: series.length });
+    await refitStudy(study, { trigger: 'auto', actor, transaction });
+    if (demo.model !== 'linear-free')
+      clock.record(actor, 'study_fitted', lab.id, study.id, { model: demo.model, trigger: 'manual' });
+    if (demo.story.submitted !== undefined) {
+      clock.set(demo.story.submitted, 11);
       await StudyReview.create(
         { studyId: study.id, authorId: owner.id, action: 'submit', comment: '' },
         { transaction },
       );
-      if (demo.status !== 'submitted')
-        await StudyReview.create(
-          {
-            studyId: study.id,
-            authorId: reviewer.id,
-            action: demo.status === 'approved' ? 'approve' : 'return',
-            comment: demo.comment ?? '',
-          },
-          { transaction },
-        );
-      await study.update({ status: demo.status }, { transaction });
+      clock.record(actor, 'study_submitted', lab.id, study.id, {});
     }
+    const decided = demo.story.decided;
+    if (decided) {
+      const reviewer = people[demo.reviewer ?? 'tomasz'];
+      clock.set(decided.days, 16);
+      await StudyReview.create(
+        {
+          studyId: study.id,
+          authorId: reviewer.id,
+          action: decided.status === 'approved' ? 'approve' : 'return',
+          comment: demo.comment ?? '',
+        },
+        { transaction },
+      );
+      clock.record(
+        { userId: reviewer.id, ip: null },
+        decided.status === 'approved' ? 'study_approved' : 'study_returned',
+        lab.id,
+        study.id,
+        { comment: demo.comment ?? '' },
+      );
+    }
+    const status: Status = decided?.status ?? (demo.story.submitted !== undefined ? 'submitted' : 'draft');
+    const lastChange = new Date(clock.now().getTime());
+    await study.update({ status }, { transaction });
+    await Study.update({ updatedAt: lastChange }, { where: { id: study.id }, silent: true, transaction });
   }
 }

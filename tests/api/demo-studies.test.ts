@@ -1,26 +1,86 @@
-import { afterAll, describe, expect, it } from 'vitest';
-import { Lab, Study } from '../../server/models';
-import { demoLabs, seedDemoData } from '../../server/seed/demo';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Compound, Lab, Study, StudyFit } from '../../server/models';
+import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
+import { demoCompoundFamilies } from '../../server/seed/demo-library';
+import { apiClient } from '../support/accounts';
 import { createTestApp } from '../support/test-app';
 
 const testApp = await createTestApp();
 afterAll(testApp.close);
 
+let studies: Study[] = [];
+let names = new Map<string, string>();
+beforeAll(async () => {
+  await seedDemoData(testApp.sequelize);
+  const lab = await Lab.findOne({ where: { slug: demoLabs[0].slug } });
+  studies = await Study.findAll({ where: { labId: lab!.id } });
+  names = new Map((await Compound.findAll({ where: { labId: lab!.id } })).map((c) => [c.id, c.name]));
+});
+
+// Compound codes as the demo writes them: HL-Ir-7, Q-aryl-Br-1, Q-viol-5 ...
+const CODE = /\b(?:HL|Q)-[A-Za-z]+(?:-[A-Za-z]+)?-\d+\b/g;
+
 describe('seedDemoStudies', () => {
-  it('when the demo is loaded, then the demo lab has studies in every status, one above the diffusion limit, one curved, one with lifetimes', async () => {
-    await seedDemoData(testApp.sequelize);
-    const lab = await Lab.findOne({ where: { slug: demoLabs[0].slug } });
-    const studies = await Study.findAll({ where: { labId: lab!.id } });
+  it('when the demo is loaded, then every study title names exactly its own emitter and quencher, and its words fit them', () => {
+    expect(studies.length).toBeGreaterThanOrEqual(10);
+    for (const study of studies) {
+      const emitter = names.get(study.emitterId)!;
+      const quencher = names.get(study.quencherId)!;
+      expect(new Set(study.title.match(CODE)), study.title).toEqual(new Set([emitter, quencher]));
+      // A family word in the title ("iridium", "bipyridinium salt", "alkene") must describe one of the two.
+      for (const { name, family } of demoCompoundFamilies) {
+        if (new RegExp(`\\b${family}\\b`, 'i').test(study.title))
+          expect([emitter, quencher], `${study.title} says ${family}`).toContain(name);
+      }
+    }
+  });
+
+  it('when the demo is loaded, then it shows every status, every fit model and every flag the engine raises', async () => {
     expect(new Set(studies.map((study) => study.status))).toEqual(
       new Set(['draft', 'submitted', 'approved', 'returned']),
     );
-    expect(new Set(studies.map((study) => study.quencherId)).size).toBeGreaterThanOrEqual(5);
-    expect(studies.every((study) => study.title.startsWith('Demo') && study.latestFitId !== null)).toBe(true);
-    const { StudyFit } = await import('../../server/models');
-    const fits = await StudyFit.findAll({ where: { studyId: studies.map((study) => study.id) } });
-    const codes = fits.flatMap((fit) => fit.result.flags.map((flag) => flag.code));
-    expect(codes).toContain('KQ_ABOVE_DIFFUSION_LIMIT');
-    expect(fits.some((fit) => fit.model === 'static-dynamic')).toBe(true);
+    const fits = await StudyFit.findAll({
+      where: { id: studies.map((s) => s.latestFitId).filter((id) => id !== null) },
+    });
+    expect(new Set(fits.map((fit) => fit.model))).toEqual(
+      new Set(['linear-free', 'linear-fixed', 'static-dynamic', 'modified']),
+    );
+    const codes = new Set(fits.flatMap((fit) => fit.result.flags.map((flag) => flag.code)));
+    for (const code of [
+      'KQ_ABOVE_DIFFUSION_LIMIT',
+      'INTERCEPT_FAR_FROM_ONE',
+      'FEW_CONCENTRATIONS',
+      'UPWARD_CURVATURE',
+      'DOWNWARD_CURVATURE',
+      'RESIDUAL_PATTERN',
+      'INNER_FILTER_LARGE',
+      'LARGE_DILUTION',
+      'LIFETIME_STEEPER_THAN_INTENSITY',
+    ])
+      expect(codes, code).toContain(code);
+    // The two problems that stop a fit (a reading of zero, no blank and no I0) show as the study's fit problem.
+    const unfitted = studies.filter((study) => study.latestFitId === null);
+    expect(unfitted.map((study) => study.fitProblem)).toEqual([expect.any(String), expect.any(String)]);
     expect(fits.some((fit) => fit.result.lifetime !== null)).toBe(true);
+  });
+
+  it('when each demo person opens the overview, then every card they see has content and the activity runs newest first', async () => {
+    const lab = await Lab.findOne({ where: { slug: demoLabs[0].slug } });
+    for (const person of demoPeople.filter((p) => p.roles.marram && p.roles.marram !== 'viewer')) {
+      const client = await apiClient(testApp.app);
+      await client.signIn({ email: person.email, password: demoPassword });
+      const dashboard = (await client.get(`/api/labs/${lab!.id}/dashboard`).expect(200)).body;
+      if (person.roles.marram !== 'researcher')
+        expect(dashboard.waitingForMyReview.length, person.key).toBeGreaterThan(0);
+      expect(dashboard.myReturned.length, person.key).toBeGreaterThan(0);
+      expect(dashboard.recentlyFlagged.length, person.key).toBeGreaterThan(0);
+      const activity: Array<{ at: string; action: string }> = dashboard.recentActivity;
+      expect(activity.length).toBeGreaterThanOrEqual(10);
+      const times = activity.map((event) => Date.parse(event.at));
+      expect(times).toEqual([...times].sort((a, b) => b - a));
+      // The story took place over days, not in the second the demo was loaded.
+      expect(times[0]! - times.at(-1)!).toBeGreaterThan(24 * 3600 * 1000);
+      expect(new Set(activity.map((event) => event.action)).size).toBeGreaterThanOrEqual(3);
+    }
   });
 });

@@ -9,7 +9,9 @@ afterAll(testApp.close);
 describe('seedDemoLibrary', () => {
   it('when the demo library is loaded, then every emitter–quencher pair shows a driving force', async () => {
     const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
-    const ids = await testApp.sequelize.transaction((transaction) => seedDemoLibrary(transaction, { marram: lab }));
+    const { compounds: ids } = await testApp.sequelize.transaction((transaction) =>
+      seedDemoLibrary(transaction, { marram: lab }),
+    );
     const viewer = await apiClient(testApp.app);
     await viewer.signIn(users.viewer);
     const references = new Set<string>();
