@@ -26,6 +26,7 @@ export const dashboardSchema = z
   .object({
     waitingForMyReview: z.array(dashboardStudySchema).describe('submitted studies, for reviewers and admins'),
     myReturned: z.array(dashboardStudySchema).describe('my studies returned with comments'),
+    myDrafts: z.array(dashboardStudySchema).describe('my studies not yet submitted, newest change first'),
     recentlyFlagged: z.array(dashboardStudySchema),
     recentActivity: z.array(activitySchema),
   })

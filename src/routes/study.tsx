@@ -25,6 +25,7 @@ import { SternVolmerPlot } from '@/features/studies/components/stern-volmer-plot
 import { StudyForm } from '@/features/studies/components/study-form';
 import { UploadPanel } from '@/features/studies/components/upload-panel';
 import { describeError } from '@/lib/form-errors';
+import { notify } from '@/lib/notify';
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
@@ -203,7 +204,10 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
             options={options.data}
             study={study}
             submitLabel="Save set-up"
-            onSubmit={(body) => update.mutateAsync({ ...body, version: study.version })}
+            onSubmit={async (body) => {
+              await update.mutateAsync({ ...body, version: study.version });
+              notify.done('Set-up saved');
+            }}
           />
         ) : (
           <SetupSummary study={study} />

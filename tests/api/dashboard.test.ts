@@ -48,6 +48,7 @@ describe('GET /api/labs/:labId/dashboard', () => {
     expect(response.status).toBe(200);
     expect(response.body.waitingForMyReview.map((study: { id: string }) => study.id)).toEqual([studyIds.submitted]);
     expect(response.body.myReturned).toEqual([]);
+    expect(response.body.myDrafts).toEqual([]);
     expect(response.body.recentlyFlagged.map((study: { id: string }) => study.id)).toEqual([studyIds.flagged]);
     expect(response.body.recentActivity[0]).toMatchObject({
       description: 'returned a study with comments “came back”',
@@ -62,6 +63,8 @@ describe('GET /api/labs/:labId/dashboard', () => {
     const response = await client.get(`/api/labs/${labId}/dashboard`);
     expect(response.body.myReturned.map((study: { title: string }) => study.title)).toEqual(['came back']);
     expect(response.body.waitingForMyReview).toEqual([]);
+    // createStudyRecord makes drafts unless told otherwise: 'too fast' is the owner's only draft.
+    expect(response.body.myDrafts.map((study: { title: string }) => study.title)).toEqual(['too fast']);
   });
 
   it('when a viewer opens it, then sign-ins and automatic refits are left out of the activity', async () => {

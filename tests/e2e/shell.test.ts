@@ -32,7 +32,7 @@ afterAll(async () => {
 });
 
 describe('the app shell in Chromium', () => {
-  it('when the overview opens after sign-in, then the navigation and a live database status render', async () => {
+  it('when the overview opens after sign-in, then the navigation and the lab news render, without server internals for a viewer', async () => {
     await page.goto(server.baseUrl);
     await page.waitForURL(/\/sign-in/);
     await page.getByLabel('E-mail').fill(viewer.email);
@@ -40,7 +40,10 @@ describe('the app shell in Chromium', () => {
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
     await expect(page.getByRole('heading', { name: 'Overview', level: 1 }).isVisible()).resolves.toBe(true);
-    await page.getByText('Database answering').waitFor();
+    await page.getByRole('heading', { name: 'Recent activity' }).waitFor();
+    // Server facts are for the lab's admins (under "About this workspace"); a viewer starts no study.
+    expect(await page.getByText('About this workspace').count()).toBe(0);
+    expect(await page.getByRole('link', { name: 'New study' }).count()).toBe(0);
     const navigation = page.getByRole('navigation', { name: 'Main' });
     // A viewer sees only the screens open to viewers: no lab settings, which are for admins. With
     // mail caught (no SMTP_URL) everyone reads the messages addressed to them, and only those.

@@ -68,6 +68,7 @@ export async function getDashboard(lab: LabContext, userId: string): Promise<Das
   return {
     waitingForMyReview: roleAtLeast(lab.role, 'reviewer') ? await studies({ labId: lab.id, status: 'submitted' }) : [],
     myReturned: await studies({ labId: lab.id, status: 'returned', ownerId: userId }),
+    myDrafts: await studies({ labId: lab.id, status: 'draft', ownerId: userId }, 6),
     recentlyFlagged: await studies({ labId: lab.id, flagged: true }, 8),
     recentActivity: events.map((event) => ({
       id: Number(event.id),

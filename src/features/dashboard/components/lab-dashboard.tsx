@@ -28,21 +28,38 @@ function StudyList({ labId, studies, empty }: { labId: string; studies: Dashboar
 }
 
 /** The lab at a glance: what waits for the person, what came back to them, what looks wrong, what happened. */
-export function LabDashboard({ labId, labName, canReview }: { labId: string; labName: string; canReview: boolean }) {
+export function LabDashboard({
+  labId,
+  labName,
+  canReview,
+  canWrite,
+}: {
+  labId: string;
+  labName: string;
+  canReview: boolean;
+  canWrite: boolean;
+}) {
   const dashboard = useDashboard(labId);
   if (dashboard.isError) return <ErrorNotice error={dashboard.error} what={`what is new in ${labName}`} />;
   if (!dashboard.data) return <p className="text-body text-ink-500">Loading {labName}…</p>;
   const data = dashboard.data;
   return (
     <div className="grid gap-6 lg:grid-cols-2">
+      {canWrite && (
+        <Panel title="Your drafts">
+          <StudyList labId={labId} studies={data.myDrafts} empty="No drafts: start one with New study." />
+        </Panel>
+      )}
       {canReview && (
         <Panel title="Waiting for your review">
           <StudyList labId={labId} studies={data.waitingForMyReview} empty="Nothing waits for your review." />
         </Panel>
       )}
-      <Panel title="Returned to you">
-        <StudyList labId={labId} studies={data.myReturned} empty="None of your studies came back." />
-      </Panel>
+      {canWrite && (
+        <Panel title="Returned to you">
+          <StudyList labId={labId} studies={data.myReturned} empty="None of your studies came back." />
+        </Panel>
+      )}
       <Panel title="Recently flagged">
         <StudyList labId={labId} studies={data.recentlyFlagged} empty="No recent result carries a warning." />
       </Panel>

@@ -4,6 +4,7 @@ import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
+import { notify } from '@/lib/notify';
 import { useReplacePoints } from '../api/replace-points';
 import { CONCENTRATION_UNITS, unitLabel } from '@shared/units/units';
 import { formatNumber, gridConcentrationUnits, type GridConcentrationUnit } from './format';
@@ -58,7 +59,13 @@ export function PointsGrid({ labId, study, editable }: Props) {
     if (found.length === 0)
       save.mutate(
         { version: study.version, points },
-        { onSuccess: (saved) => setRows([...rowsFromPoints(saved.points, unit), emptyRow()]) },
+        {
+          onSuccess: (saved) => {
+            setRows([...rowsFromPoints(saved.points, unit), emptyRow()]);
+            notify.done(saved.latestFit ? 'Points saved and fitted' : 'Points saved');
+          },
+          onError: (error) => notify.failed('The points were not saved', error),
+        },
       );
   }
   const set = (index: number, patch: Partial<GridRow>) =>

@@ -10,6 +10,7 @@ import { useApproveStudy } from '../api/approve-study';
 import { useReturnStudy } from '../api/return-study';
 import { useStartRevision } from '../api/start-revision';
 import { useSubmitStudy } from '../api/submit-study';
+import { notify } from '@/lib/notify';
 import { paths } from '@/lib/paths';
 
 const verbs = { submit: 'submitted', approve: 'approved', return: 'returned', comment: 'commented' } as const;
@@ -32,7 +33,13 @@ export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Prop
   const addComment = useAddComment(labId, study.id);
   const revision = useStartRevision(labId, study.id);
   const failed = [submit, approve, giveBack, addComment, revision].find((mutation) => mutation.isError);
-  const done = { onSuccess: () => setComment('') };
+  const done = (message: string) => ({
+    onSuccess: () => {
+      setComment('');
+      notify.done(message);
+    },
+    onError: (error: unknown) => notify.failed('That did not go through', error),
+  });
   const current = study.nextRevisionId === null;
 
   return (
@@ -60,18 +67,25 @@ export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Prop
       {failed && <FormAlert>{describeError(failed.error)}</FormAlert>}
       <div className="flex flex-wrap gap-2">
         {isOwner && current && (study.status === 'draft' || study.status === 'returned') && (
-          <Button onClick={() => submit.mutate(comment, done)} pending={submit.isPending} disabled={!study.latestFit}>
+          <Button
+            onClick={() => submit.mutate(comment, done('Submitted for review: the lab’s reviewers are told'))}
+            pending={submit.isPending}
+            disabled={!study.latestFit}
+          >
             Submit for review
           </Button>
         )}
         {canReview && current && study.status === 'submitted' && (
           <>
-            <Button onClick={() => approve.mutate(comment, done)} pending={approve.isPending}>
+            <Button
+              onClick={() => approve.mutate(comment, done('Approved: the study is locked'))}
+              pending={approve.isPending}
+            >
               Approve
             </Button>
             <Button
               variant="danger"
-              onClick={() => giveBack.mutate(comment, done)}
+              onClick={() => giveBack.mutate(comment, done(`Returned to ${study.ownerName} with your comment`))}
               pending={giveBack.isPending}
               disabled={comment.trim() === ''}
               title="Say what should change"
@@ -83,7 +97,7 @@ export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Prop
         {canWrite && current && (
           <Button
             variant="quiet"
-            onClick={() => addComment.mutate(comment, done)}
+            onClick={() => addComment.mutate(comment, done('Comment added'))}
             pending={addComment.isPending}
             disabled={comment.trim() === ''}
           >
