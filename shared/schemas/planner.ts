@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { qualityFlagSchema } from './quality-flag';
 
 const positive = (what: string) =>
   z.number({ error: `${what} must be a number` }).positive(`${what} must be above zero`);
@@ -35,20 +36,11 @@ export const titrationStepSchema = z.object({
   emitterConcentration: z.number().describe('emitter concentration after dilution, mol/L'),
 });
 
-export const planFlagSchema = z.object({
-  code: z.string(),
-  severity: z.enum(['warning', 'error']),
-  title: z.string(),
-  explanation: z.string(),
-  whatToCheck: z.array(z.string()),
-  detail: z.string().optional(),
-});
-
 export const titrationPlanSchema = z
   .object({
     steps: z.array(titrationStepSchema),
     totalDilution: z.number().describe('fraction of the starting volume added, 0-1'),
-    flags: z.array(planFlagSchema),
+    flags: z.array(qualityFlagSchema),
   })
   .meta({ id: 'TitrationPlan' });
 

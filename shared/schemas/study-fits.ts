@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { qualityFlagSchema } from './quality-flag';
 import { fitModelSchema } from './studies';
 
 export const estimateSchema = z
@@ -9,17 +10,6 @@ export const estimateSchema = z
   })
   .meta({ id: 'Estimate' });
 export type Estimate = z.infer<typeof estimateSchema>;
-
-export const fitFlagSchema = z
-  .object({
-    code: z.string(),
-    severity: z.enum(['warning', 'error']),
-    title: z.string(),
-    explanation: z.string(),
-    whatToCheck: z.array(z.string()),
-    detail: z.string().optional(),
-  })
-  .meta({ id: 'FitFlag' });
 
 const plotPointSchema = z.object({ x: z.number(), y: z.number() });
 
@@ -56,7 +46,7 @@ export const fitResultSchema = z
         points: z.array(plotPointSchema),
       })
       .nullable(),
-    flags: z.array(fitFlagSchema),
+    flags: z.array(qualityFlagSchema),
     notes: z.array(z.string()),
     plot: z.object({
       points: z.array(plotPointSchema.extend({ residual: z.number() })),
