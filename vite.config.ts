@@ -33,12 +33,12 @@ export default defineConfig({
         },
       },
       {
-        // React components and pure client logic in a simulated browser (happy-dom); no server, no network.
+        // React components and pure client logic in a simulated browser (jsdom); no server, no network.
         extends: true,
         test: {
           name: 'component',
           include: ['tests/component/**/*.test.{ts,tsx}'],
-          environment: 'happy-dom',
+          environment: 'jsdom',
           setupFiles: ['tests/support/component-setup.ts'],
         },
       },

@@ -15,7 +15,7 @@ export function renderWithClient(element: ReactElement) {
   return { queryClient, ...result };
 }
 
-/** Answers the next fetch calls with JSON, in order, and records what was asked. */
+/** Answers the next fetch calls in order (a body as JSON with 200, or a Response as it is) and records what was asked. */
 export function answerFetch(...bodies: unknown[]) {
   const calls: { url: string; method: string; body: unknown }[] = [];
   const queue = [...bodies];
@@ -25,8 +25,21 @@ export function answerFetch(...bodies: unknown[]) {
       calls.push({ url, method: init.method ?? 'GET', body: init.body ? JSON.parse(String(init.body)) : undefined });
       const next = queue.shift();
       if (next === undefined) throw new Error(`no answer prepared for ${url}`);
+      if (next instanceof Response) return next;
       return new Response(JSON.stringify(next), { status: 200, headers: { 'content-type': 'application/json' } });
     }),
   );
   return calls;
 }
+
+/** The server's error answer: `{ error: { code, message, details } }` with the status. */
+export const errorAnswer = (
+  status: number,
+  code: string,
+  message: string,
+  details: { path: string; message: string }[],
+) =>
+  new Response(JSON.stringify({ error: { code, message, details } }), {
+    status,
+    headers: { 'content-type': 'application/json' },
+  });

@@ -1,17 +1,10 @@
-import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
+import type { Resolver } from 'react-hook-form';
 import { z } from 'zod';
 import { e00FromWavelength, EngineError, MAX_WAVELENGTH_NM, MIN_WAVELENGTH_NM } from '@shared/engine';
-import type { EnergyRecord } from '@shared/schemas/library-measurements';
-import { Button } from '@/components/button';
-import { FormAlert } from '@/components/form-alert';
-import { SelectField } from '@/components/select-field';
-import { TextField } from '@/components/text-field';
-import { ApiError } from '@/lib/api-client';
-import { showServerErrors } from '@/lib/form-errors';
-import { useAddEnergy } from '../api/add-energy';
-import { useUpdateEnergy } from '../api/update-energy';
-import { toNumber } from './form-number';
+import type { EnergyInput, EnergyRecord } from '@shared/schemas/library-measurements';
+import { useSaveMeasurement } from '../api/save-measurement';
+import { MeasurementForm, type MeasurementFormSpec } from './measurement-form';
 
 // One number and its unit; the server stores eV and keeps the wavelength (hc/e = 1239.84198 eV nm, CODATA).
 const formSchema = z
@@ -25,8 +18,9 @@ const formSchema = z
     message: `must lie between ${MIN_WAVELENGTH_NM} and ${MAX_WAVELENGTH_NM} nm`,
     path: ['amount'],
   });
+type EnergyFormValues = z.output<typeof formSchema>;
 
-function preview(amount: unknown, unit: string): string | undefined {
+function preview({ amount, unit }: Partial<EnergyFormValues>): string | undefined {
   if (unit !== 'nm' || typeof amount !== 'number') return undefined;
   try {
     return `= ${e00FromWavelength(amount).toFixed(3)} eV`;
@@ -34,6 +28,35 @@ function preview(amount: unknown, unit: string): string | undefined {
     return error instanceof EngineError ? undefined : String(error);
   }
 }
+
+const energyForm: MeasurementFormSpec<EnergyFormValues, EnergyInput> = {
+  names: { add: 'Add E00', edit: 'Edit E00' },
+  submitLabel: 'Save E00',
+  columns: 4,
+  resolver: zodResolver(formSchema) as Resolver<EnergyFormValues>,
+  fields: [
+    { name: 'amount', label: 'E00', input: 'number', hint: preview },
+    {
+      name: 'unit',
+      label: 'Entered as',
+      input: 'select',
+      options: [
+        { value: 'eV', label: 'energy (eV)' },
+        { value: 'nm', label: 'wavelength (nm)' },
+      ],
+    },
+    { name: 'method', label: 'How it was obtained', input: 'text', placeholder: 'emission onset at 77 K' },
+    { name: 'source', label: 'Source', input: 'text' },
+  ],
+  // Sent in eV, the server forgets the old wavelength; sent in nm, it converts and keeps it.
+  toBody: ({ amount, unit, method, source }) => ({
+    ...(unit === 'eV' ? { value: amount } : { wavelength: amount }),
+    method,
+    source: source || null,
+  }),
+  serverPaths: { value: 'amount', wavelength: 'amount' },
+  clearAfterAdd: ['amount'],
+};
 
 const valuesOf = (record: EnergyRecord) => ({
   amount: record.wavelength ?? record.value,
@@ -54,79 +77,18 @@ export function EnergyForm({
   existing?: EnergyRecord;
   onDone?: () => void;
 }) {
-  const add = useAddEnergy(labId, compoundId);
-  const update = useUpdateEnergy(labId, compoundId);
-  const form = useForm({
-    resolver: zodResolver(formSchema),
-    defaultValues: existing ? valuesOf(existing) : { unit: 'eV' as const, method: '', source: '' },
-  });
-  const { errors } = form.formState;
-  const [amount, unit] = useWatch({ control: form.control, name: ['amount', 'unit'] });
-  const onError = (error: Error) => {
-    const renamed =
-      error instanceof ApiError
-        ? new ApiError(
-            error.status,
-            error.code,
-            error.message,
-            error.details.map((d) => ({ ...d, path: d.path.replace(/body\.(value|wavelength)/, 'body.amount') })),
-          )
-        : error;
-    showServerErrors(renamed, form.setError, ['amount', 'method', 'source']);
-  };
-  const onSubmit = form.handleSubmit(({ amount, unit, method, source }) => {
-    // Sent in eV, the server forgets the old wavelength; sent in nm, it converts and keeps it.
-    const values = { ...(unit === 'eV' ? { value: amount } : { wavelength: amount }), method, source: source || null };
-    if (existing)
-      update.mutate({ ...values, energyId: existing.id, version: existing.version }, { onSuccess: onDone, onError });
-    else
-      add.mutate(values, {
-        onSuccess: () => form.reset({ ...form.getValues(), amount: '' as unknown as number }),
-        onError,
-      });
-  });
+  const save = useSaveMeasurement(labId, compoundId, 'energies');
   return (
-    <form
-      onSubmit={onSubmit}
-      noValidate
-      aria-label={existing ? 'Edit E00' : 'Add E00'}
-      className="grid gap-3 sm:grid-cols-4"
-    >
-      <TextField
-        label="E00"
-        inputMode="decimal"
-        hint={preview(amount, unit)}
-        error={errors.amount?.message}
-        {...form.register('amount', { setValueAs: toNumber })}
-      />
-      <SelectField
-        label="Entered as"
-        options={[
-          { value: 'eV', label: 'energy (eV)' },
-          { value: 'nm', label: 'wavelength (nm)' },
-        ]}
-        {...form.register('unit')}
-      />
-      <TextField
-        label="How it was obtained"
-        placeholder="emission onset at 77 K"
-        error={errors.method?.message}
-        {...form.register('method')}
-      />
-      <TextField label="Source" error={errors.source?.message} {...form.register('source')} />
-      <div className="space-y-2 sm:col-span-4">
-        {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-        <div className="flex gap-2">
-          <Button type="submit" pending={add.isPending || update.isPending} pendingLabel="Saving…">
-            {existing ? 'Save changes' : 'Save E00'}
-          </Button>
-          {existing && (
-            <Button type="button" variant="quiet" onClick={onDone}>
-              Cancel
-            </Button>
-          )}
-        </div>
-      </div>
-    </form>
+    <MeasurementForm
+      spec={energyForm}
+      editing={existing !== undefined}
+      pending={save.isPending}
+      defaultValues={existing ? valuesOf(existing) : { unit: 'eV', method: '', source: '' }}
+      save={(body) =>
+        save.mutateAsync(existing ? { id: existing.id, body: { ...body, version: existing.version } } : { body })
+      }
+      onSaved={onDone}
+      onCancel={onDone}
+    />
   );
 }
