@@ -15,6 +15,7 @@ import { formatDateTime } from '@shared/format';
 import { roleLabels } from '@/lib/role-labels';
 import { roleDescriptions } from '@shared/schemas/roles';
 import { paths } from '@/lib/paths';
+import { PublicScreen } from './public-screen';
 
 /** Answer an invitation from its e-mail link: see who invites you where, then join. */
 export function AcceptInvitationRoute() {
@@ -27,13 +28,11 @@ export function AcceptInvitationRoute() {
   if (invitation.isError) {
     const spent = invitation.error instanceof ApiError && invitation.error.code === 'invitation_invalid';
     return spent ? (
-      <div className="space-y-3">
-        <h1 className="text-title font-black text-ink-950">This invitation no longer works</h1>
-        <p className="text-body text-ink-700">
-          It was used, withdrawn or has expired. Ask the lab admin who sent it for a new one.
-        </p>
-        <TextLink to={paths.signIn()}>Sign in</TextLink>
-      </div>
+      <PublicScreen
+        title="This invitation no longer works"
+        lead="It was used, withdrawn or has expired. Ask the lab admin who sent it for a new one."
+        footer={<TextLink to={paths.signIn()}>Sign in</TextLink>}
+      />
     ) : (
       <ErrorNotice error={invitation.error} what="the invitation" />
     );
@@ -42,13 +41,9 @@ export function AcceptInvitationRoute() {
   const { labName, role, invitedBy, email, expiresAt } = invitation.data;
   if (secondStep) {
     return (
-      <div className="space-y-5">
-        <header>
-          <h1 className="text-title font-black text-ink-950">You joined {labName}</h1>
-          <p className="text-body text-ink-700">Your account asks for a code to finish signing in.</p>
-        </header>
+      <PublicScreen title={`You joined ${labName}`} lead="Your account asks for a code to finish signing in.">
         <SecondStepForm onSignedIn={() => void navigate('/', { replace: true })} />
-      </div>
+      </PublicScreen>
     );
   }
 
@@ -65,15 +60,16 @@ export function AcceptInvitationRoute() {
   }
 
   return (
-    <div className="space-y-5">
-      <header className="space-y-1">
-        <p className="text-caption uppercase text-ink-500">Invitation</p>
-        <h1 className="text-title font-black text-ink-950">Join {labName}</h1>
-        <p className="text-body text-ink-700">
+    <PublicScreen
+      kicker="Invitation"
+      title={`Join ${labName}`}
+      lead={
+        <>
           <strong>{invitedBy}</strong> invites <strong>{email}</strong> to work in this lab as{' '}
           <strong>{roleLabels[role]}</strong>.
-        </p>
-      </header>
+        </>
+      }
+    >
       <dl className="space-y-2 rounded-md bg-paper-100 p-3 text-body">
         <div>
           <dt className="text-caption uppercase text-ink-500">What a {roleLabels[role].toLowerCase()} can do</dt>
@@ -85,6 +81,6 @@ export function AcceptInvitationRoute() {
         </div>
       </dl>
       <AcceptInvitationForm token={token} invitation={invitation.data} onJoined={onJoined} />
-    </div>
+    </PublicScreen>
   );
 }

@@ -1,13 +1,14 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { requestPasswordResetSchema } from '@shared/schemas/auth';
-import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
+import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { TextLink } from '@/components/text-link';
 import { useRequestPasswordReset } from '@/features/auth/api/request-password-reset';
 import { showServerErrors } from '@/lib/form-errors';
 import { paths } from '@/lib/paths';
+import { PublicScreen } from './public-screen';
 
 /** Ask for a link to choose a new password. The answer never says whether the address has an account. */
 export function ForgotPasswordRoute() {
@@ -20,20 +21,29 @@ export function ForgotPasswordRoute() {
   );
 
   return (
-    <div className="space-y-5">
-      <header>
-        <h1 className="text-title font-black text-ink-950">Choose a new password</h1>
-        <p className="text-body text-ink-700">
-          Tell us the address you sign in with and we will e-mail you a link to set a new password.
-        </p>
-      </header>
+    <PublicScreen
+      title="Choose a new password"
+      lead="Tell us the address you sign in with and we will e-mail you a link to set a new password."
+      footer={
+        <>
+          Remembered it? <TextLink to={paths.signIn()}>Back to sign in</TextLink>
+        </>
+      }
+    >
       {requestReset.isSuccess ? (
         <FormAlert tone="good">
           If that address belongs to a Halflight account, a link is on its way. It works once, for a limited time; check
           the spam folder if nothing arrives within a few minutes.
         </FormAlert>
       ) : (
-        <form onSubmit={onSubmit} noValidate className="space-y-4">
+        <FormShell
+          onSubmit={onSubmit}
+          problem={errors.root?.server?.message}
+          submitLabel="Send me a link"
+          pendingLabel="Sending…"
+          pending={requestReset.isPending}
+          wide
+        >
           <TextField
             label="E-mail"
             type="email"
@@ -41,15 +51,8 @@ export function ForgotPasswordRoute() {
             error={errors.email?.message}
             {...form.register('email')}
           />
-          {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-          <Button type="submit" className="w-full" pending={requestReset.isPending} pendingLabel="Sending…">
-            Send me a link
-          </Button>
-        </form>
+        </FormShell>
       )}
-      <p className="text-body text-ink-700">
-        Remembered it? <TextLink to={paths.signIn()}>Back to sign in</TextLink>
-      </p>
-    </div>
+    </PublicScreen>
   );
 }

@@ -3,8 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useNavigate, useSearchParams } from 'react-router-dom';
 import { z } from 'zod';
 import { passwordSchema } from '@shared/schemas/auth';
-import { Button } from '@/components/button';
-import { FormAlert } from '@/components/form-alert';
+import { FormShell } from '@/components/form-shell';
 import { TextLink } from '@/components/text-link';
 import { useCompletePasswordReset } from '@/features/auth/api/complete-password-reset';
 import { ApiError } from '@/lib/api-client';
@@ -12,6 +11,7 @@ import { showServerErrors } from '@/lib/form-errors';
 import { NewPasswordFields } from '@/features/auth/components/new-password-fields';
 import { sameTwice } from '@/features/auth/components/same-twice';
 import { paths } from '@/lib/paths';
+import { PublicScreen } from './public-screen';
 
 const newPasswordSchema = z
   .object({ password: passwordSchema, confirm: z.string() })
@@ -28,13 +28,15 @@ export function ResetPasswordRoute() {
 
   if (!token) {
     return (
-      <div className="space-y-4">
-        <h1 className="text-title font-black text-ink-950">This link is incomplete</h1>
-        <p className="text-body text-ink-700">
-          Open the link from the e-mail exactly as it arrived, or{' '}
-          <TextLink to={paths.forgotPassword()}>ask for a new one</TextLink>.
-        </p>
-      </div>
+      <PublicScreen
+        title="This link is incomplete"
+        lead={
+          <>
+            Open the link from the e-mail exactly as it arrived, or{' '}
+            <TextLink to={paths.forgotPassword()}>ask for a new one</TextLink>.
+          </>
+        }
+      />
     );
   }
 
@@ -51,34 +53,36 @@ export function ResetPasswordRoute() {
   const linkSpent = completeReset.error instanceof ApiError && completeReset.error.code === 'token_invalid';
 
   return (
-    <div className="space-y-5">
-      <header>
-        <h1 className="text-title font-black text-ink-950">Set a new password</h1>
-        <p className="text-body text-ink-700">
-          At least 12 characters. A few unrelated words make a strong one; common passwords are refused.
-        </p>
-      </header>
-      <form onSubmit={onSubmit} noValidate className="space-y-4">
+    <PublicScreen
+      title="Set a new password"
+      lead="At least 12 characters. A few unrelated words make a strong one; common passwords are refused."
+    >
+      <FormShell
+        onSubmit={onSubmit}
+        problem={
+          errors.root?.server && (
+            <>
+              {errors.root.server.message}
+              {linkSpent && (
+                <>
+                  {' '}
+                  <TextLink to={paths.forgotPassword()}>Ask for a new link</TextLink>.
+                </>
+              )}
+            </>
+          )
+        }
+        submitLabel="Save the new password"
+        pendingLabel="Saving…"
+        pending={completeReset.isPending}
+        wide
+      >
         <NewPasswordFields
           password={form.register('password')}
           confirm={form.register('confirm')}
           errors={{ password: errors.password?.message, confirm: errors.confirm?.message }}
         />
-        {errors.root?.server && (
-          <FormAlert>
-            {errors.root.server.message}
-            {linkSpent && (
-              <>
-                {' '}
-                <TextLink to={paths.forgotPassword()}>Ask for a new link</TextLink>.
-              </>
-            )}
-          </FormAlert>
-        )}
-        <Button type="submit" className="w-full" pending={completeReset.isPending} pendingLabel="Saving…">
-          Save the new password
-        </Button>
-      </form>
-    </div>
+      </FormShell>
+    </PublicScreen>
   );
 }

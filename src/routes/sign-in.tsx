@@ -3,8 +3,8 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { signInSchema } from '@shared/schemas/auth';
-import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
+import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { TextLink } from '@/components/text-link';
 import { needsSecondStep, useSignIn } from '@/features/auth/api/sign-in';
@@ -12,6 +12,7 @@ import { SecondStepForm } from '@/features/auth/components/second-step-form';
 import { showServerErrors } from '@/lib/form-errors';
 import { safeReturnAddress } from './session-loaders';
 import { paths } from '@/lib/paths';
+import { PublicScreen } from './public-screen';
 
 /** A message another screen leaves for this one, e.g. after a new password was set. */
 function noticeFrom(state: unknown): string | null {
@@ -41,24 +42,31 @@ export function SignInRoute() {
 
   if (secondStep) {
     return (
-      <div className="space-y-5">
-        <header>
-          <h1 className="text-title font-black text-ink-950">One more step</h1>
-          <p className="text-body text-ink-700">Your password was right. Your account also asks for a code.</p>
-        </header>
+      <PublicScreen title="One more step" lead="Your password was right. Your account also asks for a code.">
         <SecondStepForm onSignedIn={goOn} />
-      </div>
+      </PublicScreen>
     );
   }
 
   return (
-    <div className="space-y-5">
-      <header>
-        <h1 className="text-title font-black text-ink-950">Sign in</h1>
-        <p className="text-body text-ink-700">Your lab&apos;s titrations and fits are waiting.</p>
-      </header>
+    <PublicScreen
+      title="Sign in"
+      lead="Your lab's titrations and fits are waiting."
+      footer={
+        <>
+          Forgot it? <TextLink to={paths.forgotPassword()}>Get a link to choose a new password</TextLink>
+        </>
+      }
+    >
       {notice && <FormAlert tone="good">{notice}</FormAlert>}
-      <form onSubmit={onSubmit} noValidate className="space-y-4">
+      <FormShell
+        onSubmit={onSubmit}
+        problem={errors.root?.server?.message}
+        submitLabel="Sign in"
+        pendingLabel="Signing in…"
+        pending={signIn.isPending}
+        wide
+      >
         <TextField
           label="E-mail"
           type="email"
@@ -73,14 +81,7 @@ export function SignInRoute() {
           error={errors.password?.message}
           {...form.register('password')}
         />
-        {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-        <Button type="submit" className="w-full" pending={signIn.isPending} pendingLabel="Signing in…">
-          Sign in
-        </Button>
-      </form>
-      <p className="text-body text-ink-700">
-        Forgot it? <TextLink to={paths.forgotPassword()}>Get a link to choose a new password</TextLink>
-      </p>
-    </div>
+      </FormShell>
+    </PublicScreen>
   );
 }

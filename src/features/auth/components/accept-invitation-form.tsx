@@ -4,8 +4,7 @@ import { z } from 'zod';
 import { joinWithAccountSchema, joinWithNewAccountSchema } from '@shared/schemas/auth';
 import type { InvitationPreview, Session } from '@shared/schemas/auth';
 import type { SecondStepNeeded } from '@shared/schemas/two-factor';
-import { Button } from '@/components/button';
-import { FormAlert } from '@/components/form-alert';
+import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { NewPasswordFields } from './new-password-fields';
 import { sameTwice } from './same-twice';
@@ -48,7 +47,14 @@ function ExistingAccountForm({ token, onJoined }: FormProps) {
     ),
   );
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4">
+    <FormShell
+      onSubmit={onSubmit}
+      problem={errors.root?.server?.message}
+      submitLabel="Join with my account"
+      pendingLabel="Joining…"
+      pending={accept.isPending}
+      wide
+    >
       <p className="text-body text-ink-700">This address already has a Halflight account. Join with its password.</p>
       <TextField
         label="Password"
@@ -57,11 +63,7 @@ function ExistingAccountForm({ token, onJoined }: FormProps) {
         error={errors.password?.message}
         {...form.register('password')}
       />
-      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-      <Button type="submit" className="w-full" pending={accept.isPending} pendingLabel="Joining…">
-        Join with my account
-      </Button>
-    </form>
+    </FormShell>
   );
 }
 
@@ -79,7 +81,14 @@ function NewAccountForm({ token, onJoined }: FormProps) {
     ),
   );
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4">
+    <FormShell
+      onSubmit={onSubmit}
+      problem={errors.root?.server?.message}
+      submitLabel="Create my account and join"
+      pendingLabel="Joining…"
+      pending={accept.isPending}
+      wide
+    >
       <TextField
         label="Your name"
         autoComplete="name"
@@ -94,10 +103,6 @@ function NewAccountForm({ token, onJoined }: FormProps) {
         confirm={form.register('confirm')}
         errors={{ password: errors.password?.message, confirm: errors.confirm?.message }}
       />
-      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-      <Button type="submit" className="w-full" pending={accept.isPending} pendingLabel="Joining…">
-        Create my account and join
-      </Button>
-    </form>
+    </FormShell>
   );
 }

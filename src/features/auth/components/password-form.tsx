@@ -2,8 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { changePasswordSchema } from '@shared/schemas/auth';
-import { Button } from '@/components/button';
-import { FormAlert } from '@/components/form-alert';
+import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { NewPasswordFields } from './new-password-fields';
 import { sameTwice } from './same-twice';
@@ -37,7 +36,14 @@ export function PasswordForm() {
   );
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4">
+    <FormShell
+      onSubmit={onSubmit}
+      problem={errors.root?.server?.message}
+      done={change.isSuccess && 'Password changed. Use the new one next time you sign in.'}
+      submitLabel="Change password"
+      pendingLabel="Changing…"
+      pending={change.isPending}
+    >
       <TextField
         label="Current password"
         type="password"
@@ -51,11 +57,6 @@ export function PasswordForm() {
         confirm={form.register('confirm')}
         errors={{ password: errors.newPassword?.message, confirm: errors.confirm?.message }}
       />
-      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-      {change.isSuccess && <FormAlert tone="good">Password changed. Use the new one next time you sign in.</FormAlert>}
-      <Button type="submit" pending={change.isPending} pendingLabel="Changing…">
-        Change password
-      </Button>
-    </form>
+    </FormShell>
   );
 }

@@ -1,8 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { updateProfileSchema } from '@shared/schemas/auth';
-import { Button } from '@/components/button';
-import { FormAlert } from '@/components/form-alert';
+import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { showServerErrors } from '@/lib/form-errors';
 import { useUpdateAccount } from '../api/update-account';
@@ -21,16 +20,19 @@ export function ProfileForm({ name, email }: { name: string; email: string }) {
   );
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4">
+    <FormShell
+      onSubmit={onSubmit}
+      problem={errors.root?.server?.message}
+      done={update.isSuccess && !isDirty && 'Name saved.'}
+      submitLabel="Save name"
+      pendingLabel="Saving…"
+      pending={update.isPending}
+      disabled={!isDirty}
+    >
       <p className="text-body text-ink-700">
         You sign in as <strong>{email}</strong>.
       </p>
       <TextField label="Name" autoComplete="name" error={errors.name?.message} {...form.register('name')} />
-      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-      {update.isSuccess && !isDirty && <FormAlert tone="good">Name saved.</FormAlert>}
-      <Button type="submit" pending={update.isPending} pendingLabel="Saving…" disabled={!isDirty}>
-        Save name
-      </Button>
-    </form>
+    </FormShell>
   );
 }

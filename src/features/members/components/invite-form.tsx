@@ -2,8 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { inviteMemberSchema } from '@shared/schemas/members';
 import { roleDescriptions } from '@shared/schemas/roles';
-import { Button } from '@/components/button';
-import { FormAlert } from '@/components/form-alert';
+import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { ApiError } from '@/lib/api-client';
 import { showServerErrors } from '@/lib/form-errors';
@@ -31,7 +30,18 @@ export function InviteForm({ labId }: { labId: string }) {
   );
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4">
+    <FormShell
+      onSubmit={onSubmit}
+      problem={errors.root?.server?.message}
+      done={
+        invite.isSuccess &&
+        !errors.root &&
+        `Invitation sent to ${invite.data.email}. It appears below until it is answered.`
+      }
+      submitLabel="Send invitation"
+      pendingLabel="Sending…"
+      pending={invite.isPending}
+    >
       <TextField
         label="E-mail of the person to invite"
         type="email"
@@ -57,15 +67,6 @@ export function InviteForm({ labId }: { labId: string }) {
         </div>
         {errors.role?.message && <p className="text-caption font-bold text-brick-700">{errors.role.message}</p>}
       </fieldset>
-      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-      {invite.isSuccess && !errors.root && (
-        <FormAlert tone="good">
-          Invitation sent to {invite.data.email}. It appears below until it is answered.
-        </FormAlert>
-      )}
-      <Button type="submit" pending={invite.isPending} pendingLabel="Sending…">
-        Send invitation
-      </Button>
-    </form>
+    </FormShell>
   );
 }
