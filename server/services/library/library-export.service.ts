@@ -1,10 +1,9 @@
-import { stringify } from 'csv-stringify/sync';
 import { libraryCsvColumns } from '@shared/schemas/library-import';
 import type { LibraryCsvColumn } from '@shared/schemas/library-import';
 import type { LabContext } from '../../domain/lab-context';
 import { Compound } from '../../models';
 import type { ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential } from '../../models';
-import { neutraliseCell } from '../../lib/csv-cells';
+import { csvTable } from '../../lib/csv-cells';
 import { fieldColumns } from './library-csv';
 import { measurementsOf } from './measurement-store.service';
 
@@ -49,6 +48,5 @@ export async function exportLibraryCsv(lab: LabContext): Promise<string> {
       rows.push(rowFrom('e00', compound.name, fieldColumns.e00, values));
     }
   }
-  const cells = rows.map((row) => libraryCsvColumns.map((column) => neutraliseCell(String(row[column] ?? ''))));
-  return stringify([[...libraryCsvColumns], ...cells]);
+  return csvTable([libraryCsvColumns, ...rows.map((row) => libraryCsvColumns.map((column) => row[column] ?? ''))]);
 }
