@@ -9,12 +9,14 @@ import { useRequestPasswordReset } from '@/features/auth/api/request-password-re
 import { showServerErrors } from '@/lib/form-errors';
 import { paths } from '@/lib/paths';
 import { PublicScreen } from './public-screen';
+import { fieldsOf } from '@/lib/form-field';
 
 /** Ask for a link to choose a new password. The answer never says whether the address has an account. */
 export function ForgotPasswordRoute() {
   const requestReset = useRequestPasswordReset();
   const form = useForm({ resolver: zodResolver(requestPasswordResetSchema), defaultValues: { email: '' } });
   const { errors } = form.formState;
+  const field = fieldsOf(form);
 
   const onSubmit = form.handleSubmit((values) =>
     requestReset.mutate(values, { onError: (error) => showServerErrors(error, form.setError, ['email']) }),
@@ -44,13 +46,7 @@ export function ForgotPasswordRoute() {
           pending={requestReset.isPending}
           wide
         >
-          <TextField
-            label="E-mail"
-            type="email"
-            autoComplete="email"
-            error={errors.email?.message}
-            {...form.register('email')}
-          />
+          <TextField label="E-mail" type="email" autoComplete="email" {...field('email')} />
         </FormShell>
       )}
     </PublicScreen>

@@ -13,6 +13,7 @@ import { showServerErrors } from '@/lib/form-errors';
 import { safeReturnAddress } from './session-loaders';
 import { paths } from '@/lib/paths';
 import { PublicScreen } from './public-screen';
+import { fieldsOf } from '@/lib/form-field';
 
 /** A message another screen leaves for this one, e.g. after a new password was set. */
 function noticeFrom(state: unknown): string | null {
@@ -29,6 +30,7 @@ export function SignInRoute() {
   const signIn = useSignIn();
   const form = useForm({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
   const { errors } = form.formState;
+  const field = fieldsOf(form);
   const notice = noticeFrom(state);
   const [secondStep, setSecondStep] = useState(false);
   const goOn = () => navigate(safeReturnAddress(params.get('next')), { replace: true });
@@ -67,20 +69,8 @@ export function SignInRoute() {
         pending={signIn.isPending}
         wide
       >
-        <TextField
-          label="E-mail"
-          type="email"
-          autoComplete="username"
-          error={errors.email?.message}
-          {...form.register('email')}
-        />
-        <TextField
-          label="Password"
-          type="password"
-          autoComplete="current-password"
-          error={errors.password?.message}
-          {...form.register('password')}
-        />
+        <TextField label="E-mail" type="email" autoComplete="username" {...field('email')} />
+        <TextField label="Password" type="password" autoComplete="current-password" {...field('password')} />
       </FormShell>
     </PublicScreen>
   );

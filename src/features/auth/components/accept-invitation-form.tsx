@@ -10,6 +10,7 @@ import { NewPasswordFields } from './new-password-fields';
 import { sameTwice } from './same-twice';
 import { showServerErrors } from '@/lib/form-errors';
 import { useAcceptInvitation } from '../api/accept-invitation';
+import { fieldsOf } from '@/lib/form-field';
 
 // A new account chooses a password under the same rules as a reset; the two entries must agree.
 const newAccountSchema = joinWithNewAccountSchema
@@ -40,6 +41,7 @@ function ExistingAccountForm({ token, onJoined }: FormProps) {
     defaultValues: { password: '' },
   });
   const { errors } = form.formState;
+  const field = fieldsOf(form);
   const onSubmit = form.handleSubmit(({ password }) =>
     accept.mutate(
       { token, password },
@@ -56,13 +58,7 @@ function ExistingAccountForm({ token, onJoined }: FormProps) {
       wide
     >
       <p className="text-body text-ink-700">This address already has a Halflight account. Join with its password.</p>
-      <TextField
-        label="Password"
-        type="password"
-        autoComplete="current-password"
-        error={errors.password?.message}
-        {...form.register('password')}
-      />
+      <TextField label="Password" type="password" autoComplete="current-password" {...field('password')} />
     </FormShell>
   );
 }
@@ -74,6 +70,7 @@ function NewAccountForm({ token, onJoined }: FormProps) {
     defaultValues: { name: '', password: '', confirm: '' },
   });
   const { errors } = form.formState;
+  const field = fieldsOf(form);
   const onSubmit = form.handleSubmit(({ name, password }) =>
     accept.mutate(
       { token, name, password },
@@ -89,13 +86,7 @@ function NewAccountForm({ token, onJoined }: FormProps) {
       pending={accept.isPending}
       wide
     >
-      <TextField
-        label="Your name"
-        autoComplete="name"
-        hint="As your lab mates will see it."
-        error={errors.name?.message}
-        {...form.register('name')}
-      />
+      <TextField label="Your name" autoComplete="name" hint="As your lab mates will see it." {...field('name')} />
       <NewPasswordFields
         label="Password"
         hint="At least 12 characters; a few unrelated words make a strong one."

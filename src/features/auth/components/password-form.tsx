@@ -9,6 +9,7 @@ import { sameTwice } from './same-twice';
 import { ApiError } from '@/lib/api-client';
 import { showServerErrors } from '@/lib/form-errors';
 import { useChangePassword } from '../api/change-password';
+import { fieldsOf } from '@/lib/form-field';
 
 const passwordChangeFormSchema = changePasswordSchema
   .extend({ confirm: z.string() })
@@ -21,6 +22,7 @@ export function PasswordForm() {
   const change = useChangePassword();
   const form = useForm({ resolver: zodResolver(passwordChangeFormSchema), defaultValues: emptyForm });
   const { errors } = form.formState;
+  const field = fieldsOf(form);
 
   const onSubmit = form.handleSubmit(({ currentPassword, newPassword }) =>
     change.mutate(
@@ -48,8 +50,7 @@ export function PasswordForm() {
         label="Current password"
         type="password"
         autoComplete="current-password"
-        error={errors.currentPassword?.message}
-        {...form.register('currentPassword')}
+        {...field('currentPassword')}
       />
       <NewPasswordFields
         hint="At least 12 characters; a few unrelated words make a strong one."

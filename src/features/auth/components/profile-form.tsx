@@ -5,12 +5,14 @@ import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { showServerErrors } from '@/lib/form-errors';
 import { useUpdateAccount } from '../api/update-account';
+import { fieldsOf } from '@/lib/form-field';
 
 /** The name lab mates see beside one's studies and reviews. */
 export function ProfileForm({ name, email }: { name: string; email: string }) {
   const update = useUpdateAccount();
   const form = useForm({ resolver: zodResolver(updateProfileSchema), defaultValues: { name } });
   const { errors, isDirty } = form.formState;
+  const field = fieldsOf(form);
 
   const onSubmit = form.handleSubmit((values) =>
     update.mutate(values, {
@@ -32,7 +34,7 @@ export function ProfileForm({ name, email }: { name: string; email: string }) {
       <p className="text-body text-ink-700">
         You sign in as <strong>{email}</strong>.
       </p>
-      <TextField label="Name" autoComplete="name" error={errors.name?.message} {...form.register('name')} />
+      <TextField label="Name" autoComplete="name" {...field('name')} />
     </FormShell>
   );
 }

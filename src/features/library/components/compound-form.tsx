@@ -10,6 +10,7 @@ import { TextField } from '@/components/text-field';
 import { showServerErrors } from '@/lib/form-errors';
 import { roleHintLabels } from './library-format';
 import { toNumber } from './form-number';
+import { fieldsOf } from '@/lib/form-field';
 
 const fields = [
   'name',
@@ -47,6 +48,7 @@ export function CompoundForm({ initial, submitLabel, pending, onSave }: Compound
     },
   });
   const { errors } = form.formState;
+  const field = fieldsOf(form);
   const onSubmit = form.handleSubmit(async (values) => {
     try {
       await onSave(values);
@@ -61,42 +63,34 @@ export function CompoundForm({ initial, submitLabel, pending, onSave }: Compound
   ];
   return (
     <form onSubmit={onSubmit} noValidate aria-label={submitLabel} className="grid gap-3 sm:grid-cols-3">
-      <TextField label="Name or code" error={errors.name?.message} {...form.register('name')} />
+      <TextField label="Name or code" {...field('name')} />
       <SelectField
         label="Used as"
         options={compoundRoleHints.map((value) => ({ value, label: roleHintLabels[value] }))}
-        error={errors.roleHint?.message}
-        {...form.register('roleHint')}
+        {...field('roleHint')}
       />
-      <TextField label="Formula" error={errors.formula?.message} {...form.register('formula')} />
-      <TextField label="SMILES" className="sm:col-span-2" error={errors.smiles?.message} {...form.register('smiles')} />
+      <TextField label="Formula" {...field('formula')} />
+      <TextField label="SMILES" className="sm:col-span-2" {...field('smiles')} />
       <TextField
         label="Charge"
         hint="Before electron transfer; sets the Coulomb term"
         inputMode="numeric"
-        error={errors.charge?.message}
-        {...form.register('charge', { setValueAs: toNumber })}
+        {...field('charge', { setValueAs: toNumber })}
       />
       <SelectField
         label="Emissive state"
         options={stateOptions}
-        error={errors.emissiveState?.message}
-        {...form.register('emissiveState', { setValueAs: (value) => value || null })}
+        {...field('emissiveState', { setValueAs: (value) => value || null })}
       />
       <TextField
         label="Triplet energy (eV)"
         inputMode="decimal"
-        error={errors.tripletEnergy?.message}
-        {...form.register('tripletEnergy', {
+        {...field('tripletEnergy', {
           setValueAs: (value) => (value === '' || value === null ? null : toNumber(value)),
         })}
       />
-      <TextField
-        label="Triplet energy source"
-        error={errors.tripletEnergySource?.message}
-        {...form.register('tripletEnergySource')}
-      />
-      <TextField label="Notes" className="sm:col-span-3" error={errors.notes?.message} {...form.register('notes')} />
+      <TextField label="Triplet energy source" {...field('tripletEnergySource')} />
+      <TextField label="Notes" className="sm:col-span-3" {...field('notes')} />
       <div className="space-y-2 sm:col-span-3">
         {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
         <Button type="submit" pending={pending} pendingLabel="Saving…">

@@ -8,12 +8,14 @@ import { SelectField } from '@/components/select-field';
 import { showServerErrors } from '@/lib/form-errors';
 import { useUpdateLabSettings } from '../api/update-lab-settings';
 import { referenceOptions, solventOptions } from './library-format';
+import { fieldsOf } from '@/lib/form-field';
 
 /** Admins choose the reference in which every potential of the lab is read; stored values never change. */
 export function LabSettingsForm({ labId, settings }: { labId: string; settings: LabSettings }) {
   const update = useUpdateLabSettings(labId);
   const form = useForm({ resolver: zodResolver(labSettingsUpdateSchema), defaultValues: settings });
   const { errors } = form.formState;
+  const field = fieldsOf(form);
   const onSubmit = form.handleSubmit((values) =>
     update.mutate(values, {
       onError: (error) => showServerErrors(error, form.setError, ['displayReference', 'displaySolvent']),
@@ -21,18 +23,8 @@ export function LabSettingsForm({ labId, settings }: { labId: string; settings: 
   );
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Display reference" className="grid max-w-xl gap-3 sm:grid-cols-2">
-      <SelectField
-        label="Display reference electrode"
-        options={referenceOptions}
-        error={errors.displayReference?.message}
-        {...form.register('displayReference')}
-      />
-      <SelectField
-        label="Usual solvent"
-        options={solventOptions}
-        error={errors.displaySolvent?.message}
-        {...form.register('displaySolvent')}
-      />
+      <SelectField label="Display reference electrode" options={referenceOptions} {...field('displayReference')} />
+      <SelectField label="Usual solvent" options={solventOptions} {...field('displaySolvent')} />
       <div className="space-y-2 sm:col-span-2">
         {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
         {update.isSuccess && (

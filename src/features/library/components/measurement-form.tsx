@@ -1,12 +1,13 @@
 import { useState } from 'react';
 import type { ReactNode } from 'react';
-import { get, useForm, useWatch } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import type { DefaultValues, FieldValues, Path, Resolver } from 'react-hook-form';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
 import { TextField } from '@/components/text-field';
 import { ApiError } from '@/lib/api-client';
+import { fieldsOf } from '@/lib/form-field';
 import { showServerErrors } from '@/lib/form-errors';
 import { toNumber } from './form-number';
 
@@ -63,6 +64,7 @@ export function MeasurementForm<V extends FieldValues, Body>({
 }: MeasurementFormProps<V, Body>) {
   const form = useForm<V>({ resolver: spec.resolver, defaultValues });
   const { errors } = form.formState;
+  const bind = fieldsOf(form);
   const typed = useWatch({ control: form.control }) as Partial<V>;
   const [savedNote, setSavedNote] = useState<ReactNode>(null);
 
@@ -110,10 +112,9 @@ export function MeasurementForm<V extends FieldValues, Body>({
       className={`grid gap-3 ${spec.columns === 3 ? 'sm:grid-cols-3' : 'sm:grid-cols-4'}`}
     >
       {spec.fields.map((field) => {
-        const error = (get(errors, field.name) as { message?: string } | undefined)?.message;
-        const common = { label: field.label, className: field.className, error };
+        const common = { label: field.label, className: field.className };
         return field.input === 'select' ? (
-          <SelectField key={field.name} {...common} options={field.options} {...form.register(field.name)} />
+          <SelectField key={field.name} {...common} options={field.options} {...bind(field.name)} />
         ) : (
           <TextField
             key={field.name}
@@ -121,7 +122,7 @@ export function MeasurementForm<V extends FieldValues, Body>({
             placeholder={field.placeholder}
             inputMode={field.input === 'number' ? 'decimal' : undefined}
             hint={field.hint?.(typed)}
-            {...form.register(field.name, field.input === 'number' ? { setValueAs: toNumber } : undefined)}
+            {...bind(field.name, field.input === 'number' ? { setValueAs: toNumber } : undefined)}
           />
         );
       })}

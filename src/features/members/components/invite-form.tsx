@@ -9,6 +9,7 @@ import { showServerErrors } from '@/lib/form-errors';
 import { roleOptions } from '@/lib/role-labels';
 import { useInviteMember } from '../api/invite-member';
 import { describeMemberProblem } from './member-problem';
+import { fieldsOf } from '@/lib/form-field';
 
 /** Send someone an e-mail link that brings them into this lab with the chosen role. */
 export function InviteForm({ labId }: { labId: string }) {
@@ -18,6 +19,7 @@ export function InviteForm({ labId }: { labId: string }) {
     defaultValues: { email: '', role: 'researcher' as const },
   });
   const { errors } = form.formState;
+  const field = fieldsOf(form);
 
   const onSubmit = form.handleSubmit((values) =>
     invite.mutate(values, {
@@ -42,13 +44,7 @@ export function InviteForm({ labId }: { labId: string }) {
       pendingLabel="Sending…"
       pending={invite.isPending}
     >
-      <TextField
-        label="E-mail of the person to invite"
-        type="email"
-        autoComplete="off"
-        error={errors.email?.message}
-        {...form.register('email')}
-      />
+      <TextField label="E-mail of the person to invite" type="email" autoComplete="off" {...field('email')} />
       <fieldset className="space-y-2">
         <legend className="text-body font-bold text-ink-900">Role in this lab</legend>
         <div className="grid gap-2 sm:grid-cols-2">

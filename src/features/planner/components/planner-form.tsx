@@ -6,6 +6,7 @@ import { TextField } from '@/components/text-field';
 import { plannerFormSchema } from './planner-form-schema';
 import { plannerDefaults } from './planner-form-schema';
 import type { PlannerFormInput, PlannerFormValues } from './planner-form-schema';
+import { fieldsOf } from '@/lib/form-field';
 
 interface PlannerFormProps {
   onPlan: (values: PlannerFormValues) => void;
@@ -19,29 +20,14 @@ export function PlannerForm({ onPlan, pending, serverError }: PlannerFormProps) 
     resolver: zodResolver(plannerFormSchema),
     defaultValues: plannerDefaults,
   });
-  const errors = formState.errors;
+  const field = fieldsOf({ register, formState });
   const mode = useWatch({ control, name: 'mode' });
   return (
     <form onSubmit={handleSubmit(onPlan)} noValidate className="space-y-4" aria-label="Titration to plan">
       <div className="grid grid-cols-3 gap-3">
-        <TextField
-          label="Starting volume (mL)"
-          inputMode="decimal"
-          error={errors.initialVolumeMl?.message}
-          {...register('initialVolumeMl')}
-        />
-        <TextField
-          label="Emitter (µM)"
-          inputMode="decimal"
-          error={errors.emitterMicromolar?.message}
-          {...register('emitterMicromolar')}
-        />
-        <TextField
-          label="Quencher stock (mM)"
-          inputMode="decimal"
-          error={errors.stockMillimolar?.message}
-          {...register('stockMillimolar')}
-        />
+        <TextField label="Starting volume (mL)" inputMode="decimal" {...field('initialVolumeMl')} />
+        <TextField label="Emitter (µM)" inputMode="decimal" {...field('emitterMicromolar')} />
+        <TextField label="Quencher stock (mM)" inputMode="decimal" {...field('stockMillimolar')} />
       </div>
       <fieldset className="space-y-2">
         <legend className="text-body font-bold text-ink-900">Concentrations to reach</legend>
@@ -53,25 +39,14 @@ export function PlannerForm({ onPlan, pending, serverError }: PlannerFormProps) 
         </label>
         {mode === 'even' ? (
           <div className="grid grid-cols-2 gap-3">
-            <TextField
-              label="Highest [Q] (mM)"
-              inputMode="decimal"
-              error={errors.maximumMillimolar?.message}
-              {...register('maximumMillimolar')}
-            />
-            <TextField
-              label="Number of additions"
-              inputMode="numeric"
-              error={errors.count?.message}
-              {...register('count')}
-            />
+            <TextField label="Highest [Q] (mM)" inputMode="decimal" {...field('maximumMillimolar')} />
+            <TextField label="Number of additions" inputMode="numeric" {...field('count')} />
           </div>
         ) : (
           <TextField
             label="Target [Q] values (mM)"
             hint="Separate with spaces, semicolons or new lines, lowest first."
-            error={errors.targetsMillimolar?.message}
-            {...register('targetsMillimolar')}
+            {...field('targetsMillimolar')}
           />
         )}
       </fieldset>
@@ -80,14 +55,9 @@ export function PlannerForm({ onPlan, pending, serverError }: PlannerFormProps) 
           label="Pipette step (µL, optional)"
           inputMode="decimal"
           hint="Round each volume to what you can pipette."
-          error={errors.pipetteStepMicrolitres?.message}
-          {...register('pipetteStepMicrolitres')}
+          {...field('pipetteStepMicrolitres')}
         />
-        <TextField
-          label="Quencher name (optional)"
-          error={errors.quencherName?.message}
-          {...register('quencherName')}
-        />
+        <TextField label="Quencher name (optional)" {...field('quencherName')} />
       </div>
       <label className="flex items-center gap-2 text-body text-ink-900">
         <input type="checkbox" {...register('stockContainsEmitter')} /> The stock also holds the emitter at the starting

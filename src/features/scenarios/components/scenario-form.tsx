@@ -8,6 +8,7 @@ import { TextField } from '@/components/text-field';
 import { ComponentRow } from './component-row';
 import { emptyComponent, scenarioFormSchema, toScenarioForm } from './scenario-form-schema';
 import type { ScenarioFormValues } from './scenario-form-schema';
+import { fieldsOf } from '@/lib/form-field';
 
 interface ScenarioFormProps {
   scenario?: Scenario;
@@ -37,30 +38,20 @@ export function ScenarioForm(props: ScenarioFormProps) {
   });
   const { fields, append, remove } = useFieldArray({ control, name: 'components' });
   const errors = formState.errors;
+  const field = fieldsOf({ register, formState });
   const kinds = useWatch({ control, name: 'components' }).map((row) => row.kind);
   return (
     <form onSubmit={handleSubmit(props.onSave)} noValidate className="space-y-4" aria-label="Reaction scenario">
       <div className="grid grid-cols-2 gap-3">
-        <TextField label="Name" error={errors.name?.message} {...register('name')} />
+        <TextField label="Name" {...field('name')} />
         <SelectField
           label="Emitter (catalyst)"
           options={[{ value: '', label: 'Choose…' }, ...props.emitterOptions]}
-          error={errors.emitterId?.message}
-          {...register('emitterId')}
+          {...field('emitterId')}
         />
-        <SelectField
-          label="Solvent"
-          options={props.solventOptions}
-          error={errors.solvent?.message}
-          {...register('solvent')}
-        />
+        <SelectField label="Solvent" options={props.solventOptions} {...field('solvent')} />
         <div className="grid grid-cols-2 gap-3">
-          <TextField
-            label="τ0 (ns)"
-            inputMode="decimal"
-            error={errors.tau0Nanoseconds?.message}
-            {...register('tau0Nanoseconds')}
-          />
+          <TextField label="τ0 (ns)" inputMode="decimal" {...field('tau0Nanoseconds')} />
           <TextField label="τ0 from" hint="Lifetime record, paper or notebook page" {...register('tau0Source')} />
         </div>
       </div>
