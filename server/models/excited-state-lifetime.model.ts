@@ -1,21 +1,12 @@
-import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
-import type { Compound } from './compound.model';
-import { measurementTrailAttributes } from './measurement-trail';
-import type { Lab } from './lab.model';
-import type { User } from './user.model';
+import { DataTypes } from 'sequelize';
+import type { CreationOptional, Sequelize } from 'sequelize';
+import { MeasurementModel, measurementTrailAttributes } from './measurement-trail';
 
 export const atmospheres = ['argon', 'nitrogen', 'air', 'oxygen', 'vacuum', 'other'] as const;
 export type Atmosphere = (typeof atmospheres)[number];
 
 /** An unquenched excited-state lifetime of an emitter (seconds), with its conditions. */
-export class ExcitedStateLifetime extends Model<
-  InferAttributes<ExcitedStateLifetime>,
-  InferCreationAttributes<ExcitedStateLifetime>
-> {
-  declare id: CreationOptional<string>;
-  declare labId: ForeignKey<Lab['id']>;
-  declare compoundId: ForeignKey<Compound['id']>;
+export class ExcitedStateLifetime extends MeasurementModel<ExcitedStateLifetime> {
   /** s */
   declare value: number;
   /** s (one standard uncertainty) */
@@ -25,17 +16,10 @@ export class ExcitedStateLifetime extends Model<
   /** K */
   declare temperature: CreationOptional<number>;
   declare method: string;
-  declare source: CreationOptional<string | null>;
-  declare notes: CreationOptional<string>;
-  declare createdById: ForeignKey<User['id']> | null;
-  declare version: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): void {
     ExcitedStateLifetime.init(
       {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         value: { type: DataTypes.DOUBLE, allowNull: false },
         uncertainty: { type: DataTypes.DOUBLE, allowNull: true },
         solvent: { type: DataTypes.STRING(80), allowNull: false },

@@ -1,10 +1,29 @@
-import { DataTypes } from 'sequelize';
+import { DataTypes, Model } from 'sequelize';
+import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes } from 'sequelize';
+import type { Compound } from './compound.model';
+import type { Lab } from './lab.model';
+import type { User } from './user.model';
 
 /**
- * Columns every per-compound measurement carries (potentials, lifetimes, E00): where it came
- * from, free notes, the optimistic-lock version and the timestamps. Matches migration 0004.
+ * What every per-compound measurement (potential, lifetime, E00) is besides its value: whose lab
+ * and compound it belongs to, where it came from, free notes, who entered it, the optimistic-lock
+ * version and the timestamps. Each measurement model extends this and declares only its own fields.
  */
+export abstract class MeasurementModel<M extends Model> extends Model<InferAttributes<M>, InferCreationAttributes<M>> {
+  declare id: CreationOptional<string>;
+  declare labId: ForeignKey<Lab['id']>;
+  declare compoundId: ForeignKey<Compound['id']>;
+  declare source: CreationOptional<string | null>;
+  declare notes: CreationOptional<string>;
+  declare createdById: ForeignKey<User['id']> | null;
+  declare version: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+/** The columns of MeasurementModel that are not foreign keys. Matches migration 0004. */
 export const measurementTrailAttributes = {
+  id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
   source: { type: DataTypes.TEXT, allowNull: true },
   notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
   version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },

@@ -18,7 +18,7 @@ export async function findCompound(lab: LabContext, compoundId: string, transact
 
 /**
  * Researchers change what they entered themselves; reviewers and admins curate everything
- * (DESIGN.md section 2).
+ * (docs/product.md, section 2).
  */
 export function assertMayEdit(lab: LabContext, actor: Actor, record: { createdById: string | null }, what: string) {
   if (roleAtLeast(lab.role, 'reviewer') || (record.createdById !== null && record.createdById === actor.userId)) return;

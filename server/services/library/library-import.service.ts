@@ -9,10 +9,11 @@ import type { ImportProblem, ImportReport, LibraryCsvColumn } from '@shared/sche
 import { energyInputSchema, lifetimeInputSchema, potentialInputSchema } from '@shared/schemas/library-measurements';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import { Compound, ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential } from '../../models';
+import { Compound } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 import { cellValue, csvDelimiter, fieldColumns } from './library-csv';
+import { insertMeasurement } from './measurement-store.service';
 
 type Kind = (typeof libraryRecordKinds)[number];
 const schemas = {
@@ -130,6 +131,7 @@ export async function importLibraryCsv(
 ): Promise<ImportReport> {
   const compounds = await Compound.findAll({ where: { labId: lab.id }, attributes: ['id', 'name'] });
   const ids = new Map(compounds.map((compound) => [compound.name.toLowerCase(), compound.id]));
+  const names = new Map(compounds.map((compound) => [compound.name.toLowerCase(), compound.name]));
   const { problems, planned } = planImport(csv, ids);
   const counts = countsOf(planned);
   const [first] = problems;
@@ -144,36 +146,35 @@ export async function importLibraryCsv(
   }
   if (dryRun || problems.length) return { saved: false, counts, problems };
   await sequelize.transaction(async (transaction) => {
-    const owner = { labId: lab.id, createdById: actor.userId };
     for (const item of planned) {
-      const compoundId = ids.get(item.compound)!;
-      let created: { id: string };
       if (item.kind === 'compound') {
-        created = await Compound.create({ ...(item.values as CompoundValues), ...owner }, { transaction });
+        const created = await Compound.create(
+          { ...(item.values as CompoundValues), labId: lab.id, createdById: actor.userId },
+          { transaction },
+        );
         ids.set(item.compound, created.id);
-      } else if (item.kind === 'potential') {
-        created = await RedoxPotential.create({ ...item.values, ...owner, compoundId } as never, { transaction });
-      } else if (item.kind === 'lifetime') {
-        created = await ExcitedStateLifetime.create({ ...item.values, ...owner, compoundId } as never, { transaction });
-      } else {
-        const wavelength = item.values.wavelength as number | undefined;
-        const value = wavelength === undefined ? item.values.value : e00FromWavelength(wavelength);
-        created = await ExcitedStateEnergy.create({ ...item.values, value, ...owner, compoundId } as never, {
+        names.set(item.compound, created.name);
+        await recordAudit(
+          actor,
+          {
+            action: 'compound_added',
+            labId: lab.id,
+            targetType: 'compound',
+            targetId: created.id,
+            details: { import: true, ...item.values },
+          },
           transaction,
-        });
+        );
+        continue;
       }
+      const compound = { id: ids.get(item.compound)!, name: names.get(item.compound) ?? item.compound };
+      const wavelength = item.values.wavelength as number | undefined;
+      const values =
+        item.kind === 'e00' && wavelength !== undefined
+          ? { ...item.values, value: e00FromWavelength(wavelength) }
+          : item.values;
       const kind = item.kind === 'e00' ? 'energy' : item.kind;
-      await recordAudit(
-        actor,
-        {
-          action: `${kind}_added`,
-          labId: lab.id,
-          targetType: kind,
-          targetId: created.id,
-          details: { import: true, ...item.values },
-        },
-        transaction,
-      );
+      await insertMeasurement(lab, actor, kind, compound, values, transaction, { import: true });
     }
     await recordAudit(
       actor,

@@ -1,4 +1,4 @@
-import type { Model, ModelStatic, Sequelize } from 'sequelize';
+import type { Model, ModelStatic, Sequelize, Transaction } from 'sequelize';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential, User } from '../../models';
@@ -30,6 +30,37 @@ const words: Record<MeasurementKind, string> = {
 };
 const withAuthor = [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }];
 
+/**
+ * Saves one measurement of a compound and its audit event, inside the caller's transaction: the
+ * one way a potential, lifetime or E00 enters the library (the forms and the CSV import).
+ */
+export async function insertMeasurement(
+  lab: LabContext,
+  actor: Actor,
+  kind: MeasurementKind,
+  compound: { id: string; name: string },
+  values: Record<string, unknown>,
+  transaction: Transaction,
+  details: Record<string, unknown> = {},
+): Promise<MeasurementRow> {
+  const row = await stores[kind].create(
+    { ...values, labId: lab.id, compoundId: compound.id, createdById: actor.userId },
+    { transaction },
+  );
+  await recordAudit(
+    actor,
+    {
+      action: `${kind}_added`,
+      labId: lab.id,
+      targetType: kind,
+      targetId: row.id,
+      details: { compound: compound.name, ...values, ...details },
+    },
+    transaction,
+  );
+  return row;
+}
+
 export async function addMeasurement<T extends MeasurementRow>(
   sequelize: Sequelize,
   lab: LabContext,
@@ -40,21 +71,7 @@ export async function addMeasurement<T extends MeasurementRow>(
 ): Promise<T> {
   const id = await sequelize.transaction(async (transaction) => {
     const compound = await findCompound(lab, compoundId, transaction);
-    const row = await stores[kind].create(
-      { ...values, labId: lab.id, compoundId: compound.id, createdById: actor.userId },
-      { transaction },
-    );
-    await recordAudit(
-      actor,
-      {
-        action: `${kind}_added`,
-        labId: lab.id,
-        targetType: kind,
-        targetId: row.id,
-        details: { compound: compound.name, ...values },
-      },
-      transaction,
-    );
+    const row = await insertMeasurement(lab, actor, kind, compound, values, transaction);
     return row.id;
   });
   return (await stores[kind].findByPk(id, { include: withAuthor })) as T;
