@@ -3,7 +3,7 @@ import type { MigrationModule } from '../db/migrator';
 
 /**
  * Reaction scenarios: a real reaction's emitter, solvent, tau0 and components at their
- * concentrations, for the estimate of who intercepts the excited catalyst (DESIGN.md 4.7).
+ * concentrations, for the estimate of who intercepts the excited catalyst (shared/engine/README.md, section 8).
  */
 export const up: MigrationModule['up'] = async ({ context: queryInterface }) => {
   await queryInterface.createTable('reaction_scenarios', {

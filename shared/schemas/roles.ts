@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-/** Roles within one lab, from least to most rights (DESIGN.md section 2). Admin implies reviewer. */
+/** Roles within one lab, from least to most rights (docs/product.md, section 2). Admin implies reviewer. */
 export const roles = ['viewer', 'researcher', 'reviewer', 'admin'] as const;
 export const roleSchema = z.enum(roles).meta({ id: 'Role', description: "A person's role in one lab" });
 export type Role = z.infer<typeof roleSchema>;

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { SOLVENTS } from '../engine/kinetics/solvents';
 import { labParamsSchema } from './members';
 
-/** Study records (DESIGN.md section 3). Units: mol/L, s, L, Pa s, K; wavelengths in nm. */
+/** Study records (docs/product.md, section 3.2). Units: mol/L, s, L, Pa s, K; wavelengths in nm. */
 export const studyStatuses = ['draft', 'submitted', 'approved', 'returned'] as const;
 export const studyStatusSchema = z.enum(studyStatuses).meta({ id: 'StudyStatus' });
 export type StudyStatus = z.infer<typeof studyStatusSchema>;

@@ -2,7 +2,7 @@ import { KJ_PER_MOL_PER_EV } from '../engine/core/constants';
 
 /*
  * The one place where Halflight's unit factors live. Stored and computed values are
- * SI-coherent (mol/L, s, L, Pa s, K, V, eV, M^-1 s^-1; DESIGN.md section 4); upload
+ * SI-coherent (mol/L, s, L, Pa s, K, V, eV, M^-1 s^-1; shared/engine/README.md); upload
  * parsing, the points grid, the engine's edges, plots and exports convert with the
  * tables and helpers below. Unit keys are ASCII ('uM', 'us', 'uL'); `unitLabel` gives
  * the printed form with the micro sign.

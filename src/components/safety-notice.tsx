@@ -1,4 +1,4 @@
-/** The hazards Halflight reminds people of where the work involves them (DESIGN.md section 4.9). */
+/** The hazards Halflight reminds people of where the work involves them (docs/product.md, section 4). */
 export type Hazard = 'light' | 'toxic-quencher' | 'flammable-solvent' | 'pressurised-gas';
 
 const cautions: Record<Hazard, string> = {

@@ -49,7 +49,7 @@ beforeAll(async () => {
     const quencher = await createCompound(labId, `acceptor-${index}`, 'quencher');
     quencherIds.push(quencher.id);
     await potential(quencher.id, 'reduction', reduction);
-    // Synthetic kq from the Rehm–Weller form with a known lambda = 0.80 eV (DESIGN.md 4.6).
+    // Synthetic kq from the Rehm–Weller form with a known lambda = 0.80 eV (shared/engine/README.md, section 7).
     const drivingForce = 0.57 - reduction - 2.64;
     const kq = rehmWellerRateConstant({ drivingForce, reorganisationEnergy: 0.8, diffusionLimit });
     await createStudyRecord({
@@ -79,7 +79,7 @@ describe('GET /api/labs/:labId/comparisons/:side/:compoundId', () => {
     const response = await viewer.get(`/api/labs/${labId}/comparisons/emitter/${emitterId}?sort=drivingForce`);
     expect(response.status).toBe(200);
     const acetonitrileRows = response.body.rows.filter((row: { solvent: string }) => row.solvent === 'acetonitrile');
-    // dG_ET = e[E(D+/D) - E(A/A-)] - E00 (Rehm & Weller 1970; DESIGN.md 4.5): 0.57 + 1.30 - 2.64 = -0.77 eV.
+    // dG_ET = e[E(D+/D) - E(A/A-)] - E00 (Rehm & Weller 1970; shared/engine/README.md, section 6): 0.57 + 1.30 - 2.64 = -0.77 eV.
     expect(acetonitrileRows[0].drivingForce.pathway).toBe('oxidative');
     expect(acetonitrileRows[0].drivingForce.electronvolts).toBeCloseTo(-0.77, 10);
     expect(acetonitrileRows.map((row: { partner: { name: string } }) => row.partner.name)).toEqual([

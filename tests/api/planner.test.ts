@@ -23,7 +23,7 @@ describe('POST /api/labs/:labId/titration-plans', () => {
       targets: [1e-3, 2e-3],
     });
     expect(response.status).toBe(200);
-    // Mass balance (DESIGN.md 4.3): c_stock V / (V0 + V) = target, so V = target V0 / (c_stock - target):
+    // Mass balance (shared/engine/README.md, section 9): c_stock V / (V0 + V) = target, so V = target V0 / (c_stock - target):
     // 1 mM from 0.1 M into 2 mL: 1e-3 * 2e-3 / 0.099 = 2.0202e-5 L = 20.202 µL; 2 mM: 40.816 µL in all.
     const [first, second] = response.body.steps;
     expect(first.additionMicrolitres).toBeCloseTo(20.20202, 4);

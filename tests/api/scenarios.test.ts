@@ -74,7 +74,7 @@ describe('POST /api/labs/:labId/scenarios', () => {
     expect(amine.candidates.map((c: { studyId: string }) => c.studyId)).toEqual([ids.amineApproved, ids.amineDraft]);
     expect(bromide.kq).toBe(1e8);
     expect(oxygen.kqSource).toEqual({ kind: 'manual', note: 'air-saturated MeCN (literature)' });
-    // Hand check of DESIGN.md 4.7: rates kq c = 2e8, 5e6, 4.56e6 s^-1; 1/tau0 = 1e6 s^-1; total 2.1056e8 s^-1.
+    // Hand check of shared/engine/README.md, section 8: rates kq c = 2e8, 5e6, 4.56e6 s^-1; 1/tau0 = 1e6 s^-1; total 2.1056e8 s^-1.
     expect(amine.fraction).toBeCloseTo(2e8 / 2.1056e8, 10);
     expect(response.body.unquenched).toBeCloseTo(1e6 / 2.1056e8, 12);
     // Cross-check against the engine on the same inputs.

@@ -73,7 +73,7 @@ describe('compound library in Chromium', () => {
     await pair.getByLabel('Emitter').selectOption({ label: 'HL-Ir-7' });
     const oxidative = pair.getByRole('region', { name: 'Oxidative quenching' });
     // HL-Ir-7 (demo): E(PC+/PC) +1.21 V vs SCE, E00 = 1239.84198/475 nm = 2.610 eV (CODATA hc/e);
-    // dG = 1.21 − (−1.62) − 2.610 = +0.22 eV, by hand from the Rehm–Weller form of DESIGN.md §4.5.
+    // dG = 1.21 − (−1.62) − 2.610 = +0.22 eV, by hand from the Rehm–Weller form of shared/engine/README.md, section 6.
     await oxidative.getByText('+0.22 eV', { exact: false }).first().waitFor();
     await pair.getByText('More favourable').waitFor();
     const reductive = pair.getByRole('region', { name: 'Reductive quenching' });

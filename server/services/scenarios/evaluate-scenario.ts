@@ -4,7 +4,7 @@ import type { ReactionScenario } from '../../models';
 import { kqCandidates, kqStandardError } from './kq-sources';
 
 /**
- * Who intercepts the excited emitter at the reaction's concentrations (DESIGN.md 4.7): each
+ * Who intercepts the excited emitter at the reaction's concentrations (shared/engine/README.md, section 8): each
  * component's kq from the chosen study (or the best available one, approved first), then the
  * engine's competition fractions. A component without kq is named, and left out of the sums.
  */

@@ -21,7 +21,7 @@ describe('CODATA 2018 constants (check-values §4)', () => {
     expectClose(PHOTON_ENERGY_EV_NM, 1239.841984, 1e-9); // computed from exact h, c, e (printed to 10 digits)
     expectClose(KJ_PER_MOL_PER_EV, 96.48533212, 1e-10); // computed e N_A / 1000
     expectClose(ELEMENTARY_CHARGE / (4 * Math.PI * VACUUM_PERMITTIVITY) / 1e-10, 14.399645, 1e-7); // eV Å
-    expectClose(electronvoltsToKilojoulesPerMole(1), 96.485, 1e-5); // DESIGN 4.5 rounding
+    expectClose(electronvoltsToKilojoulesPerMole(1), 96.485, 1e-5); // the kJ/mol factor rounded to 5 digits, as shared/engine/README.md section 6 prints it
   });
 
   it('unit helpers convert to SI-coherent values', () => {

@@ -38,7 +38,7 @@ describe('inner-filter correction F_corr = F_obs 10^((A_ex + A_em)/2) (Lakowicz,
   });
 });
 
-describe('dilution correction (mass balance, DESIGN 4.3)', () => {
+describe('dilution correction (mass balance, shared/engine/README.md section 4)', () => {
   it('[Q] = c V_add/(V0 + V_add) and I_corr = I (V0 + V_add)/V0', () => {
     const [blank, point] = correctDilution({
       initialVolume: 2e-3,

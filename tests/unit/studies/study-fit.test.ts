@@ -131,7 +131,7 @@ describe('corrections', () => {
 });
 
 describe('lifetimes with the dilution correction on', () => {
-  // DESIGN.md 4.3: [Q] = c_stock V_added / (V0 + V_added), I_corr = I_obs (V0 + V_added) / V0. V0 = 2.000 mL,
+  // shared/engine/README.md, section 4: [Q] = c_stock V_added / (V0 + V_added), I_corr = I_obs (V0 + V_added) / V0. V0 = 2.000 mL,
   // 0.100 M stock, cumulative additions 0, 20, 40, 60, 80 µL. Hand-computed (7 significant digits):
   //   [Q] = 0, 9.900990e-4, 1.960784e-3, 2.912621e-3, 3.846154e-3 M
   //   tau = 1 µs / (1 + 500 [Q]) = 1000, 668.8742, 504.9505, 407.1146, 342.1053 ns

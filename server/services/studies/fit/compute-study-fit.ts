@@ -36,7 +36,7 @@ export interface ComputedFit {
   pointsUsed: Array<{ position: number; concentration: number; ratio: number }>;
 }
 
-/** A correction above 10 % dilution is worth a flag (common practice; DESIGN.md 4.8). */
+/** A correction above 10 % dilution is worth a flag (common practice; shared/engine/README.md, section 9). */
 const DILUTION_FLAG_FACTOR = 1.1;
 
 /**
@@ -101,7 +101,7 @@ export function computeStudyFit(settings: FitSettings, points: readonly SeriesPo
   const ratios = isRatio ? values : values.map((value) => i0.value / value);
   const sigmaRatios = sigmas && (isRatio ? sigmas : sigmas.map((sigma, i) => (ratios[i]! * sigma) / values[i]!));
 
-  // Lifetimes need no intensity correction, but their [Q] is diluted like the intensities' (DESIGN.md 4.3).
+  // Lifetimes need no intensity correction, but their [Q] is diluted like the intensities' (shared/engine/README.md, section 4).
   const lifetimeSeries = included.map((point) => ({
     concentration: correctPoint(settings, point, isRatio)?.concentration ?? point.concentration,
     lifetime: point.lifetime,
