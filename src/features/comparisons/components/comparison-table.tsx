@@ -3,6 +3,7 @@ import type { Comparison } from '@shared/schemas/comparisons';
 import { formatEstimate, formatFixed, formatNumber, UNITS } from '@shared/format';
 import { Signal } from '@/components/signal';
 import { paths } from '@/lib/paths';
+import { TableHead } from '@/components/table-head';
 
 /** One row per study: the other compound, kq ± SE, K_SV, solvent, driving force, flags and review state. */
 export function ComparisonTable({ comparison, labId }: { comparison: Comparison; labId: string }) {
@@ -10,29 +11,18 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
   return (
     <table className="w-full text-left text-body">
       <caption className="sr-only">Studies of {comparison.compound.name}</caption>
-      <thead className="border-b border-paper-300 text-caption uppercase text-ink-500">
-        <tr>
-          <th scope="col" className="py-2 pr-3">
-            {partner}
-          </th>
-          <th scope="col" className="pr-3">
-            kq ({UNITS.perMolarPerSecond})
-          </th>
-          <th scope="col" className="pr-3">
-            K_SV ({UNITS.perMolar})
-          </th>
-          <th scope="col" className="pr-3">
-            Solvent
-          </th>
-          <th scope="col" className="pr-3">
-            ΔG_ET ({UNITS.electronvolt})
-          </th>
-          <th scope="col" className="pr-3">
-            Flags
-          </th>
-          <th scope="col">Review</th>
-        </tr>
-      </thead>
+      <TableHead
+        look="ruled"
+        columns={[
+          partner,
+          `kq (${UNITS.perMolarPerSecond})`,
+          `K_SV (${UNITS.perMolar})`,
+          'Solvent',
+          `ΔG_ET (${UNITS.electronvolt})`,
+          'Flags',
+          'Review',
+        ]}
+      />
       <tbody>
         {comparison.rows.map((row) => (
           <tr

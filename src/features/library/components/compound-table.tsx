@@ -4,6 +4,7 @@ import { Tag } from '@/components/tag';
 import { TextLink } from '@/components/text-link';
 import { roleHintLabels } from './library-format';
 import { paths } from '@/lib/paths';
+import { TableHead } from '@/components/table-head';
 
 /** One page of the library; each name opens the compound. */
 export function CompoundTable({
@@ -24,33 +25,14 @@ export function CompoundTable({
       </EmptyState>
     );
   }
-  const heading = 'px-3 py-2 text-left text-caption font-bold uppercase text-ink-500';
   const cell = 'px-3 py-2.5';
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-body">
-        <thead>
-          <tr>
-            <th scope="col" className={heading}>
-              Compound
-            </th>
-            <th scope="col" className={heading}>
-              Used as
-            </th>
-            <th scope="col" className={heading}>
-              Emissive state
-            </th>
-            <th scope="col" className={heading}>
-              Potentials
-            </th>
-            <th scope="col" className={heading}>
-              Lifetimes
-            </th>
-            <th scope="col" className={heading}>
-              E00
-            </th>
-          </tr>
-        </thead>
+        <TableHead
+          look="spaced"
+          columns={['Compound', 'Used as', 'Emissive state', 'Potentials', 'Lifetimes', 'E00']}
+        />
         <tbody>
           {compounds.map((compound) => (
             <tr key={compound.id} className="border-t border-paper-200">

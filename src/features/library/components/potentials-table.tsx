@@ -4,6 +4,7 @@ import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
 import { coupleLabels, formatVolts, kindLabels, solventName } from './library-format';
 import { PotentialForm } from './potential-form';
+import { TableHead } from '@/components/table-head';
 
 interface PotentialsTableProps {
   labId: string;
@@ -31,7 +32,6 @@ export function PotentialsTable({
   if (potentials.length === 0)
     return <EmptyState title="No redox potentials yet.">Add one below, against any reference electrode.</EmptyState>;
   const hasActions = canCurate || potentials.some(mayEdit);
-  const heading = 'px-3 py-2 text-left text-caption font-bold uppercase text-ink-500';
   const cell = 'px-3 py-2 align-top';
   // Said once for the table rather than on every row: it concerns the choice of display reference.
   const advice = potentials
@@ -40,30 +40,17 @@ export function PotentialsTable({
   return (
     <div className="space-y-2 overflow-x-auto">
       <table className="w-full text-body">
-        <thead>
-          <tr>
-            <th scope="col" className={heading}>
-              Couple
-            </th>
-            <th scope="col" className={heading}>
-              vs {displayReference}
-            </th>
-            <th scope="col" className={heading}>
-              As entered
-            </th>
-            <th scope="col" className={heading}>
-              Conditions
-            </th>
-            <th scope="col" className={heading}>
-              Source
-            </th>
-            {hasActions && (
-              <th scope="col" className={heading}>
-                <span className="sr-only">Actions</span>
-              </th>
-            )}
-          </tr>
-        </thead>
+        <TableHead
+          look="spaced"
+          columns={[
+            'Couple',
+            `vs ${displayReference}`,
+            'As entered',
+            'Conditions',
+            'Source',
+            hasActions && <span className="sr-only">Actions</span>,
+          ]}
+        />
         <tbody>
           {potentials.map((potential) => (
             <Fragment key={potential.id}>

@@ -7,6 +7,7 @@ import { useChangeMemberRole } from '../api/change-member-role';
 import { useRemoveMember } from '../api/remove-member';
 import { describeMemberProblem } from './member-problem';
 import { MemberRow } from './member-row';
+import { TableHead } from '@/components/table-head';
 
 interface MembersTableProps {
   labId: string;
@@ -44,33 +45,21 @@ export function MembersTable({ labId, members, canManage, selfUserId, onSelfChan
   }
 
   if (members.length === 0) return <EmptyState title="Nobody is in this lab yet." />;
-  const heading = 'px-3 py-2 text-left text-caption font-bold uppercase text-ink-500';
   return (
     <div className="space-y-3">
       {problem && <FormAlert>{problem}</FormAlert>}
       <div className="overflow-x-auto">
         <table className="w-full text-body">
-          <thead>
-            <tr>
-              <th scope="col" className={heading}>
-                Name
-              </th>
-              <th scope="col" className={heading}>
-                E-mail
-              </th>
-              <th scope="col" className={heading}>
-                Role
-              </th>
-              <th scope="col" className={`${heading} whitespace-nowrap`}>
-                Member since
-              </th>
-              {canManage && (
-                <th scope="col" className={heading}>
-                  <span className="sr-only">Actions</span>
-                </th>
-              )}
-            </tr>
-          </thead>
+          <TableHead
+            look="spaced"
+            columns={[
+              'Name',
+              'E-mail',
+              'Role',
+              { label: 'Member since', className: 'whitespace-nowrap' },
+              canManage && <span className="sr-only">Actions</span>,
+            ]}
+          />
           <tbody>
             {members.map((member) => (
               <MemberRow

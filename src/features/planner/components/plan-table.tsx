@@ -1,4 +1,5 @@
 import type { TitrationPlanResult } from '@shared/schemas/planner';
+import { TableHead } from '@/components/table-head';
 
 const format = (value: number, digits = 4) =>
   Number(value.toPrecision(digits)).toLocaleString('en', { maximumFractionDigits: 6 });
@@ -8,29 +9,18 @@ export function PlanTable({ plan }: { plan: TitrationPlanResult }) {
   return (
     <table className="w-full text-left text-body">
       <caption className="sr-only">Additions of quencher stock</caption>
-      <thead className="border-b border-paper-300 text-caption uppercase text-ink-500">
-        <tr>
-          <th scope="col" className="py-2 pr-3">
-            Step
-          </th>
-          <th scope="col" className="pr-3">
-            Target [Q] (mM)
-          </th>
-          <th scope="col" className="pr-3">
-            Add stock (µL)
-          </th>
-          <th scope="col" className="pr-3">
-            Added so far (µL)
-          </th>
-          <th scope="col" className="pr-3">
-            Volume (mL)
-          </th>
-          <th scope="col" className="pr-3">
-            [Q] reached (mM)
-          </th>
-          <th scope="col">Emitter (µM)</th>
-        </tr>
-      </thead>
+      <TableHead
+        look="ruled"
+        columns={[
+          'Step',
+          'Target [Q] (mM)',
+          'Add stock (µL)',
+          'Added so far (µL)',
+          'Volume (mL)',
+          '[Q] reached (mM)',
+          'Emitter (µM)',
+        ]}
+      />
       <tbody>
         {plan.steps.map((step, index) => (
           <tr key={index} className="border-b border-paper-200 tabular-nums">

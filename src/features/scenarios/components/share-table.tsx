@@ -2,6 +2,7 @@ import { Link } from 'react-router-dom';
 import type { Scenario } from '@shared/schemas/scenarios';
 import { formatEstimate, formatNumber, UNITS } from '@shared/format';
 import { paths } from '@/lib/paths';
+import { TableHead } from '@/components/table-head';
 
 const percent = (fraction: number) => `${(fraction * 100).toFixed(fraction < 0.001 ? 3 : 1)} %`;
 
@@ -11,23 +12,16 @@ export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: str
   return (
     <table className="w-full text-left text-body">
       <caption className="sr-only">Share of excited emitter intercepted by each component</caption>
-      <thead className="border-b border-paper-300 text-caption uppercase text-ink-500">
-        <tr>
-          <th scope="col" className="py-2 pr-3">
-            Component
-          </th>
-          <th scope="col" className="pr-3">
-            In reaction ({UNITS.millimolar})
-          </th>
-          <th scope="col" className="pr-3">
-            kq ({UNITS.perMolarPerSecond})
-          </th>
-          <th scope="col" className="pr-3">
-            kq from
-          </th>
-          <th scope="col">Share</th>
-        </tr>
-      </thead>
+      <TableHead
+        look="ruled"
+        columns={[
+          'Component',
+          `In reaction (${UNITS.millimolar})`,
+          `kq (${UNITS.perMolarPerSecond})`,
+          'kq from',
+          'Share',
+        ]}
+      />
       <tbody>
         {scenario.shares.map((share) => (
           <tr key={share.componentId} className="border-b border-paper-200 tabular-nums">
