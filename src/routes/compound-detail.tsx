@@ -1,4 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
+import type { ReactNode } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import { ErrorNotice } from '@/components/error-notice';
 import { FormAlert } from '@/components/form-alert';
@@ -73,10 +74,9 @@ export function CompoundDetailRoute() {
           onDelete={(record) => remove.mutate({ segment: 'potentials', id: record.id, version: record.version })}
         />
         {canAdd && (
-          <div id="add-potential" className="mt-4 border-t border-paper-200 pt-4">
-            <h3 className="mb-2 text-body font-bold text-ink-900">Add a potential</h3>
+          <AddSection id="add-potential" title="Add a potential">
             <PotentialForm labId={labId} compoundId={data.id} defaultSolvent={solvent} />
-          </div>
+          </AddSection>
         )}
       </Panel>
       {isEmitter && <ExcitedStatePanel state={data.excitedState} />}
@@ -91,10 +91,9 @@ export function CompoundDetailRoute() {
             onDelete={(record) => remove.mutate({ segment: 'energies', id: record.id, version: record.version })}
           />
           {canAdd && (
-            <div id="add-e00" className="mt-4 border-t border-paper-200 pt-4">
-              <h3 className="mb-2 text-body font-bold text-ink-900">Add an E00 value</h3>
+            <AddSection id="add-e00" title="Add an E00 value">
               <EnergyForm labId={labId} compoundId={data.id} />
-            </div>
+            </AddSection>
           )}
         </Panel>
       )}
@@ -113,16 +112,25 @@ export function CompoundDetailRoute() {
             onStudyRefitted={() => void queryClient.invalidateQueries({ queryKey: studiesKeys.all })}
           />
           {canAdd && (
-            <div className="mt-4 border-t border-paper-200 pt-4">
-              <h3 className="mb-2 text-body font-bold text-ink-900">Add a lifetime</h3>
+            <AddSection title="Add a lifetime">
               <LifetimeForm labId={labId} compoundId={data.id} defaultSolvent={solvent} />
-            </div>
+            </AddSection>
           )}
         </Panel>
       )}
       <Panel title="Driving force with a partner">
         <PairDrivingForce labId={labId} compound={data} defaultSolvent={solvent} />
       </Panel>
+    </div>
+  );
+}
+
+/** Below a measurement table: the form that adds one more, under its own heading. */
+function AddSection({ id, title, children }: { id?: string; title: string; children: ReactNode }) {
+  return (
+    <div id={id} className="mt-4 border-t border-paper-200 pt-4">
+      <h3 className="mb-2 text-body font-bold text-ink-900">{title}</h3>
+      {children}
     </div>
   );
 }
