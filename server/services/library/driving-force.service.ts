@@ -23,67 +23,46 @@ interface Query {
 
 const label = { oxidation: 'ground-state oxidation potential', reduction: 'ground-state reduction potential' } as const;
 
-/** Names each number a pathway lacks, for which compound, and which pathways it blocks. */
+/**
+ * Names each number a pathway lacks, for which compound, and which pathways it blocks. Each row:
+ * whether it is there, whose it is, which quantity, the pathways that need it and what to say.
+ */
 function missingInputs(
   emitter: Compound,
   quencher: Compound,
   has: Record<string, boolean>,
   reference: string,
 ): MissingInput[] {
-  const missing: MissingInput[] = [];
-  const add = (
-    compound: Compound,
-    quantity: MissingInput['quantity'],
-    neededFor: MissingInput['neededFor'],
-    what: string,
-  ) =>
-    missing.push({
+  type Need = [present: boolean | undefined, Compound, MissingInput['quantity'], MissingInput['neededFor'], string];
+  const potential = (
+    kind: 'oxidation' | 'reduction',
+    couple: string,
+    pathway: 'oxidative' | 'reductive',
+  ): [MissingInput['quantity'], MissingInput['neededFor'], string] => [
+    kind,
+    [pathway],
+    `${label[kind]} ${couple} usable against ${reference}; ${pathway} quenching needs it`,
+  ];
+  const e00 = 'E00 (excited-state energy); both electron-transfer pathways need it';
+  const triplet = 'triplet energy; the energy-transfer check needs it';
+  const needs: Need[] = [
+    [has.emitterOxidation, emitter, ...potential('oxidation', 'E(PC+/PC)', 'oxidative')],
+    [has.emitterReduction, emitter, ...potential('reduction', 'E(PC/PC-)', 'reductive')],
+    [has.e00, emitter, 'e00', ['oxidative', 'reductive'], e00],
+    [has.quencherReduction, quencher, ...potential('reduction', 'E(Q/Q-)', 'oxidative')],
+    [has.quencherOxidation, quencher, ...potential('oxidation', 'E(Q+/Q)', 'reductive')],
+    [has.emitterTriplet, emitter, 'tripletEnergy', ['energy-transfer'], triplet],
+    [has.quencherTriplet, quencher, 'tripletEnergy', ['energy-transfer'], triplet],
+  ];
+  return needs
+    .filter(([present]) => !present)
+    .map(([, compound, quantity, neededFor, what]) => ({
       compoundId: compound.id,
       compoundName: compound.name,
       quantity,
       neededFor,
       message: `${compound.name} has no ${what}`,
-    });
-  if (!has.emitterOxidation)
-    add(
-      emitter,
-      'oxidation',
-      ['oxidative'],
-      `${label.oxidation} E(PC+/PC) usable against ${reference}; oxidative quenching needs it`,
-    );
-  if (!has.emitterReduction)
-    add(
-      emitter,
-      'reduction',
-      ['reductive'],
-      `${label.reduction} E(PC/PC-) usable against ${reference}; reductive quenching needs it`,
-    );
-  if (!has.e00)
-    add(
-      emitter,
-      'e00',
-      ['oxidative', 'reductive'],
-      'E00 (excited-state energy); both electron-transfer pathways need it',
-    );
-  if (!has.quencherReduction)
-    add(
-      quencher,
-      'reduction',
-      ['oxidative'],
-      `${label.reduction} E(Q/Q-) usable against ${reference}; oxidative quenching needs it`,
-    );
-  if (!has.quencherOxidation)
-    add(
-      quencher,
-      'oxidation',
-      ['reductive'],
-      `${label.oxidation} E(Q+/Q) usable against ${reference}; reductive quenching needs it`,
-    );
-  if (!has.emitterTriplet)
-    add(emitter, 'tripletEnergy', ['energy-transfer'], 'triplet energy; the energy-transfer check needs it');
-  if (!has.quencherTriplet)
-    add(quencher, 'tripletEnergy', ['energy-transfer'], 'triplet energy; the energy-transfer check needs it');
-  return missing;
+    }));
 }
 
 /**
