@@ -27,19 +27,22 @@ export function requireNonNegative(value: number, field: string, advice?: string
 }
 
 /** Checks every entry; names the first bad one by its index (names are built only on failure). */
+// In the loops below i < values.length, so values[i]! is an element, never a hole.
 export function requireFiniteArray(values: ArrayLike<number>, field: string): void {
-  for (let i = 0; i < values.length; i++) if (!Number.isFinite(values[i])) requireFinite(values[i], `${field}[${i}]`);
+  for (let i = 0; i < values.length; i++) if (!Number.isFinite(values[i])) requireFinite(values[i]!, `${field}[${i}]`);
 }
 
 export function requirePositiveArray(values: ArrayLike<number>, field: string, advice?: string): void {
   for (let i = 0; i < values.length; i++) {
-    if (!(values[i] > 0) || values[i] === Infinity) requirePositive(values[i], `${field}[${i}]`, advice);
+    const value = values[i]!;
+    if (!(value > 0) || value === Infinity) requirePositive(value, `${field}[${i}]`, advice);
   }
 }
 
 export function requireNonNegativeArray(values: ArrayLike<number>, field: string, advice?: string): void {
   for (let i = 0; i < values.length; i++) {
-    if (!(values[i] >= 0) || values[i] === Infinity) requireNonNegative(values[i], `${field}[${i}]`, advice);
+    const value = values[i]!;
+    if (!(value >= 0) || value === Infinity) requireNonNegative(value, `${field}[${i}]`, advice);
   }
 }
 
@@ -60,12 +63,13 @@ export function requireSameLength(a: ArrayLike<number>, b: ArrayLike<number>, fi
  */
 export function countDistinct(values: ArrayLike<number>): number {
   let ordered = true;
-  for (let i = 1; i < values.length && ordered; i++) ordered = values[i] >= values[i - 1];
+  // 1 <= i < length in both loops, so i and i - 1 are indices of elements.
+  for (let i = 1; i < values.length && ordered; i++) ordered = values[i]! >= values[i - 1]!;
   const sorted = ordered ? values : Array.from(values).sort((a, b) => a - b);
   let distinct = sorted.length > 0 ? 1 : 0;
   for (let i = 1; i < sorted.length; i++) {
-    const previous = sorted[i - 1];
-    const current = sorted[i];
+    const previous = sorted[i - 1]!;
+    const current = sorted[i]!;
     if (current - previous > 1e-9 * Math.max(Math.abs(current), Math.abs(previous))) distinct++;
   }
   return distinct;

@@ -50,7 +50,8 @@ export function correctDilution(input: {
     requireNonNegative(added, `cumulativeAddedVolumes[${i}]`);
     const total = v0 + added;
     const dilutionFactor = total / v0;
-    const observed = intensities ? intensities[i] : null;
+    // requireSameLength above: intensities has one value per addition, so index i exists.
+    const observed = intensities ? intensities[i]! : null;
     return {
       concentration: (stock * added) / total,
       dilutionFactor,

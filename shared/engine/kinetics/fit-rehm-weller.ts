@@ -66,11 +66,13 @@ export function fitRehmWeller(input: {
     );
   const logKd = Math.log10(kd);
   const y = rateConstants.map((k) => Math.log10(k));
-  const ratioOf = (params: number[]) => (fitKdOverKZ ? 10 ** params[1] : ratio0);
+  // params holds p = 1 or 2 values: [lambda] or [lambda, log10 k_d/(K Z)]; params[1] is read only when
+  // fitKdOverKZ (p = 2). y has one entry per driving force (checked above).
+  const ratioOf = (params: number[]) => (fitKdOverKZ ? 10 ** params[1]! : ratio0);
   const model = (params: number[]) => (dG: number) =>
-    logKd - rehmWellerDenominator(dG, params[0], ratioOf(params), kT).logDenominator / LN10;
+    logKd - rehmWellerDenominator(dG, params[0]!, ratioOf(params), kT).logDenominator / LN10;
   const jacobian = (params: number[]) => (dG: number) => {
-    const lambda = params[0];
+    const lambda = params[0]!;
     const { logDenominator, activationExponent } = rehmWellerDenominator(dG, lambda, ratioOf(params), kT);
     const dActivation = lambda / 16 / Math.sqrt((dG / 2) ** 2 + (lambda / 4) ** 2);
     const dLambda = (-Math.exp(activationExponent - logDenominator) * dActivation) / kT / LN10;
@@ -78,7 +80,7 @@ export function fitRehmWeller(input: {
   };
   const sumOfSquares = (params: number[]) => {
     const f = model(params);
-    return drivingForces.reduce((sum, dG, i) => sum + (y[i] - f(dG)) ** 2, 0);
+    return drivingForces.reduce((sum, dG, i) => sum + (y[i]! - f(dG)) ** 2, 0);
   };
   // Coarse grid for the start: the fit surface in lambda is smooth but flat far out.
   let start = 1;
@@ -106,7 +108,7 @@ export function fitRehmWeller(input: {
     );
   }
   const f = model(params);
-  const residuals = drivingForces.map((dG, i) => y[i] - f(dG));
+  const residuals = drivingForces.map((dG, i) => y[i]! - f(dG));
   const ss = residuals.reduce((sum, r) => sum + r * r, 0);
   const df = n - p;
   const variance = ss / df;
@@ -114,11 +116,12 @@ export function fitRehmWeller(input: {
     drivingForces.map((dG) => jacobian(params)(dG)),
     p,
   ).map((row) => row.map((v) => v * variance));
-  const reorganisationEnergy = makeEstimate(params[0], Math.sqrt(covariance[0][0]), df);
+  // covariance is p x p (inverseNormalMatrix), params has p entries.
+  const reorganisationEnergy = makeEstimate(params[0]!, Math.sqrt(covariance[0]![0]!), df);
   let kdOverKZ: RehmWellerFit['kdOverKZ'] = { value: ratio0, fixed: true };
   if (fitKdOverKZ) {
-    const logValue = params[1];
-    const logError = Math.sqrt(covariance[1][1]);
+    const logValue = params[1]!;
+    const logError = Math.sqrt(covariance[1]![1]!);
     const halfWidth = studentTQuantile975(df) * logError;
     const value = 10 ** logValue;
     kdOverKZ = {
@@ -141,12 +144,13 @@ export function fitRehmWeller(input: {
 
 /** (J^T J)^-1 for one or two parameters. */
 function inverseNormalMatrix(rows: number[][], p: number): number[][] {
-  const a = [0, 0, 0];
+  const a: [number, number, number] = [0, 0, 0];
+  // Each Jacobian row has p entries; row[1] is read only when p = 2.
   for (const row of rows) {
-    a[0] += row[0] * row[0];
+    a[0] += row[0]! * row[0]!;
     if (p === 2) {
-      a[1] += row[0] * row[1];
-      a[2] += row[1] * row[1];
+      a[1] += row[0]! * row[1]!;
+      a[2] += row[1]! * row[1]!;
     }
   }
   if (p === 1) {

@@ -33,28 +33,29 @@ export function addedQuadraticTerm(
   const { weights, throughOrigin = false } = options;
   const n = x.length;
   const r = line.residuals;
+  // Every index below is < n = x.length; the residuals and weights have one entry per x.
   let sumW = 0;
   let centre = 0;
   for (let i = 0; i < n; i++) {
-    const w = weights ? weights[i] : 1;
+    const w = weights ? weights[i]! : 1;
     sumW += w;
-    centre += w * x[i];
+    centre += w * x[i]!;
   }
   centre = throughOrigin ? 0 : centre / sumW;
   let s2 = 0;
   let s3 = 0;
   let s4 = 0;
   for (let i = 0; i < n; i++) {
-    const w = weights ? weights[i] : 1;
-    const d = x[i] - centre;
+    const w = weights ? weights[i]! : 1;
+    const d = x[i]! - centre;
     s2 += w * d * d;
   }
   const scale = Math.sqrt(s2 / sumW);
   if (!(scale > 0) || line.degreesOfFreedom < 2) return null;
   s2 = 0;
   for (let i = 0; i < n; i++) {
-    const w = weights ? weights[i] : 1;
-    const u = (x[i] - centre) / scale;
+    const w = weights ? weights[i]! : 1;
+    const u = (x[i]! - centre) / scale;
     const u2 = u * u;
     s2 += w * u2;
     s3 += w * u2 * u;
@@ -66,11 +67,11 @@ export function addedQuadraticTerm(
   let zz = 0;
   let zr = 0;
   for (let i = 0; i < n; i++) {
-    const w = weights ? weights[i] : 1;
-    const u = (x[i] - centre) / scale;
+    const w = weights ? weights[i]! : 1;
+    const u = (x[i]! - centre) / scale;
     const z = u * u - c0 - c1 * u;
     zz += w * z * z;
-    zr += w * z * r[i];
+    zr += w * z * r[i]!;
   }
   if (!(zz > 1e-12 * s4)) return null;
   const extraSumOfSquares = Math.min(line.residualSumOfSquares, (zr * zr) / zz);

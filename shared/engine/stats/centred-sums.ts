@@ -40,10 +40,11 @@ export function centredSums(
   let s1 = 0;
   let s3 = 0;
   let s4 = 0;
+  // i < n = x.length; y and weights have n entries (the callers check the lengths).
   if (weights === undefined) {
     for (let i = 0; i < n; i++) {
-      const d = x[i] - cx;
-      const dy = y[i] - cy;
+      const d = x[i]! - cx;
+      const dy = y[i]! - cy;
       sxx += d * d;
       sxy += d * dy;
       syy += dy * dy;
@@ -55,9 +56,9 @@ export function centredSums(
     }
   } else {
     for (let i = 0; i < n; i++) {
-      const w = weights[i];
-      const d = x[i] - cx;
-      const dy = y[i] - cy;
+      const w = weights[i]!;
+      const d = x[i]! - cx;
+      const dy = y[i]! - cy;
       sxx += w * d * d;
       sxy += w * d * dy;
       syy += w * dy * dy;

@@ -41,14 +41,15 @@ export function fitLineThroughOrigin(
     requireSameLength(x, weights, 'x', 'weights');
     requirePositiveArray(weights, 'weights');
   }
+  // Every index i below is < n = x.length; y and weights have n entries (checked just above).
   let sxx = 0;
   let sxy = 0;
   let syy = 0;
   for (let i = 0; i < n; i++) {
-    const w = weights ? weights[i] : 1;
-    sxx += w * x[i] * x[i];
-    sxy += w * x[i] * y[i];
-    syy += w * y[i] * y[i];
+    const w = weights ? weights[i]! : 1;
+    sxx += w * x[i]! * x[i]!;
+    sxy += w * x[i]! * y[i]!;
+    syy += w * y[i]! * y[i]!;
   }
   if (!(sxx > 0)) throw new EngineError('DEGENERATE_DATA', 'x', 'all x values are zero, so no slope can be fitted');
   const slope = sxy / sxx;
@@ -56,9 +57,9 @@ export function fitLineThroughOrigin(
   const residuals: number[] = new Array<number>(n).fill(0);
   let residualSumOfSquares = 0;
   for (let i = 0; i < n; i++) {
-    const r = y[i] - slope * x[i];
+    const r = y[i]! - slope * x[i]!;
     residuals[i] = r;
-    residualSumOfSquares += (weights ? weights[i] : 1) * r * r;
+    residualSumOfSquares += (weights ? weights[i]! : 1) * r * r;
   }
   const degreesOfFreedom = n - 1;
   const variance = residualSumOfSquares / degreesOfFreedom;

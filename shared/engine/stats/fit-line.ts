@@ -53,14 +53,15 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, weights?: Ar
     requireSameLength(x, weights, 'x', 'weights');
     requirePositiveArray(weights, 'weights');
   }
+  // Every index i below is < n = x.length; y and weights have n entries (checked just above).
   let sumW = 0;
   let sumWx = 0;
   let sumWy = 0;
   for (let i = 0; i < n; i++) {
-    const w = weights ? weights[i] : 1;
+    const w = weights ? weights[i]! : 1;
     sumW += w;
-    sumWx += w * x[i];
-    sumWy += w * y[i];
+    sumWx += w * x[i]!;
+    sumWy += w * y[i]!;
   }
   const meanX = sumWx / sumW;
   const meanY = sumWy / sumW;
@@ -68,9 +69,9 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, weights?: Ar
   let sxy = 0;
   let syy = 0;
   for (let i = 0; i < n; i++) {
-    const w = weights ? weights[i] : 1;
-    const dx = x[i] - meanX;
-    const dy = y[i] - meanY;
+    const w = weights ? weights[i]! : 1;
+    const dx = x[i]! - meanX;
+    const dy = y[i]! - meanY;
     sxx += w * dx * dx;
     sxy += w * dx * dy;
     syy += w * dy * dy;
@@ -87,9 +88,9 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, weights?: Ar
   const residuals: number[] = new Array<number>(n).fill(0);
   let residualSumOfSquares = 0;
   for (let i = 0; i < n; i++) {
-    const r = y[i] - (intercept + slope * x[i]);
+    const r = y[i]! - (intercept + slope * x[i]!);
     residuals[i] = r;
-    residualSumOfSquares += (weights ? weights[i] : 1) * r * r;
+    residualSumOfSquares += (weights ? weights[i]! : 1) * r * r;
   }
   const degreesOfFreedom = n - 2;
   const variance = residualSumOfSquares / degreesOfFreedom;

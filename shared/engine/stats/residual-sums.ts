@@ -47,9 +47,10 @@ export function residualSums(
   let signed = 0;
   // -1 before the first signed residual: (p ^ -1) is negative, so the first one opens a run.
   let lastPositive = -1;
+  // i < n = x.length; y and weights have n entries (the callers check the lengths), residuals too.
   for (let i = 0; i < n; i++) {
-    const d = x[i] - cx;
-    const r = y[i] - cy - slope * d;
+    const d = x[i]! - cx;
+    const r = y[i]! - cy - slope * d;
     residuals[i] = r;
     rss += r * r;
     const u = d * toU;
@@ -72,9 +73,9 @@ export function residualSums(
     sur = 0;
     su2r = 0;
     for (let i = 0; i < n; i++) {
-      const wr = weights[i] * residuals[i];
-      const u = (x[i] - cx) * toU;
-      rss += wr * residuals[i];
+      const wr = weights[i]! * residuals[i]!;
+      const u = (x[i]! - cx) * toU;
+      rss += wr * residuals[i]!;
       sr += wr;
       sur += wr * u;
       su2r += wr * u * u;

@@ -19,7 +19,8 @@ export function residualRunsTest(residuals: ArrayLike<number>): RunsTestResult {
   let runs = 0;
   let lastSign = 0;
   for (let i = 0; i < residuals.length; i++) {
-    const sign = residuals[i] > 0 ? 1 : residuals[i] < 0 ? -1 : 0;
+    // i < residuals.length: an element.
+    const sign = residuals[i]! > 0 ? 1 : residuals[i]! < 0 ? -1 : 0;
     if (sign === 0) continue;
     if (sign > 0) positives++;
     else negatives++;

@@ -31,6 +31,7 @@ export interface PointScan {
  */
 export function scanPoints(x: ArrayLike<number>, y: ArrayLike<number>, weights?: ArrayLike<number>): PointScan {
   const n = x.length;
+  // Every index below is < n = x.length; y and weights have n entries (the callers check the lengths).
   let sumX = 0;
   let sumY = 0;
   let minX = Infinity;
@@ -40,8 +41,8 @@ export function scanPoints(x: ArrayLike<number>, y: ArrayLike<number>, weights?:
   let increasing = true;
   let distinct = n > 0 ? 1 : 0;
   for (let i = 0; i < n; i++) {
-    const xi = x[i];
-    const yi = y[i];
+    const xi = x[i]!;
+    const yi = y[i]!;
     sumX += xi;
     sumY += yi;
     minX = Math.min(minX, xi);
@@ -49,8 +50,8 @@ export function scanPoints(x: ArrayLike<number>, y: ArrayLike<number>, weights?:
     minY = Math.min(minY, yi);
   }
   for (let i = 1; i < n; i++) {
-    const current = x[i];
-    const previous = x[i - 1];
+    const current = x[i]!;
+    const previous = x[i - 1]!;
     const step = current - previous;
     if (!(step > 0)) {
       increasing = false;
@@ -67,10 +68,10 @@ export function scanPoints(x: ArrayLike<number>, y: ArrayLike<number>, weights?:
     sumWx = 0;
     sumWy = 0;
     for (let i = 0; i < n; i++) {
-      const w = weights[i];
+      const w = weights[i]!;
       sumW += w;
-      sumWx += w * x[i];
-      sumWy += w * y[i];
+      sumWx += w * x[i]!;
+      sumWy += w * y[i]!;
     }
   }
   // A NaN or infinity anywhere makes a sum NaN or infinite.

@@ -94,7 +94,7 @@ function meanByConcentration(points: SternVolmerFit['points']): Map<number, numb
   const sums = new Map<number, { sum: number; count: number }>();
   points.concentrations.forEach((concentration, i) => {
     const entry = sums.get(concentration) ?? { sum: 0, count: 0 };
-    entry.sum += points.ratios[i];
+    entry.sum += points.ratios[i]!; // ratios has one entry per concentration
     entry.count++;
     sums.set(concentration, entry);
   });

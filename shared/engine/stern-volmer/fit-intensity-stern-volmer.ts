@@ -42,7 +42,8 @@ export function fitIntensitySternVolmer(input: {
   let ratioUncertainties: number[] | undefined;
   if (intensityUncertainties) {
     requireSameLength(intensities, intensityUncertainties, 'intensities', 'intensityUncertainties');
-    ratioUncertainties = intensityUncertainties.map((sigma, i) => (ratios[i] * sigma) / intensities[i]);
+    // Same length as intensities (checked just above), and ratios is intensities mapped: index i exists.
+    ratioUncertainties = intensityUncertainties.map((sigma, i) => (ratios[i]! * sigma) / intensities[i]!);
   }
   const fit = fitSternVolmer({
     concentrations,

@@ -37,7 +37,8 @@ export function fitLifetimeSternVolmer(input: {
   let ratioUncertainties: number[] | undefined;
   if (lifetimeUncertainties) {
     requireSameLength(lifetimes, lifetimeUncertainties, 'lifetimes', 'lifetimeUncertainties');
-    ratioUncertainties = lifetimeUncertainties.map((sigma, i) => (ratios[i] * sigma) / lifetimes[i]);
+    // Same length as lifetimes (checked just above), and ratios is lifetimes mapped: index i exists.
+    ratioUncertainties = lifetimeUncertainties.map((sigma, i) => (ratios[i]! * sigma) / lifetimes[i]!);
   }
   const fit = fitSternVolmer({
     concentrations,

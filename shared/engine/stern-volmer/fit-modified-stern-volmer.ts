@@ -44,7 +44,7 @@ export function fitModifiedSternVolmer(input: {
   const y: number[] = [];
   concentrations.forEach((concentration, i) => {
     if (concentration === 0) return;
-    const quenched = i0.value - intensities[i];
+    const quenched = i0.value - intensities[i]!; // same length as concentrations (checked above)
     if (!(quenched > 0)) {
       throw new EngineError(
         'MODEL_NOT_APPLICABLE',

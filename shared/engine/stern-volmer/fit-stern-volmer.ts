@@ -79,7 +79,8 @@ export function fitSternVolmer(input: SternVolmerInput): SternVolmerFit {
       'Every point needs a positive uncertainty to be weighted',
     );
     weights = new Float64Array(ratioUncertainties.length);
-    for (let i = 0; i < weights.length; i++) weights[i] = 1 / (ratioUncertainties[i] * ratioUncertainties[i]);
+    // weights was made with ratioUncertainties.length entries, so index i exists in both.
+    for (let i = 0; i < weights.length; i++) weights[i] = 1 / (ratioUncertainties[i]! * ratioUncertainties[i]!);
   }
   // One pass reads the points; the validators that name a bad entry run only if it saw one.
   const scan = scanPoints(concentrations, ratios, weights);

@@ -34,9 +34,10 @@ export function referenceFromBlanks(
   }
   let sum = 0;
   let replicates = 0;
+  // The callers check that values has one entry per concentration, so values[i] exists.
   for (let i = 0; i < concentrations.length; i++) {
     if (concentrations[i] === 0) {
-      sum += values[i];
+      sum += values[i]!;
       replicates++;
     }
   }
@@ -52,7 +53,7 @@ export function referenceFromBlanks(
   let relativeStandardError: number | null = null;
   if (replicates >= 2) {
     let squares = 0;
-    for (let i = 0; i < concentrations.length; i++) if (concentrations[i] === 0) squares += (values[i] - mean) ** 2;
+    for (let i = 0; i < concentrations.length; i++) if (concentrations[i] === 0) squares += (values[i]! - mean) ** 2;
     relativeStandardError = Math.sqrt(squares / (replicates - 1) / replicates) / mean;
   }
   return { value: mean, source: 'mean-of-zero-concentration-points', replicates, relativeStandardError };

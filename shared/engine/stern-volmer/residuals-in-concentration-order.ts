@@ -9,9 +9,10 @@
  */
 export function residualsInConcentrationOrder(x: ArrayLike<number>, residuals: ArrayLike<number>): ArrayLike<number> {
   let sorted = true;
-  for (let i = 1; i < x.length && sorted; i++) sorted = x[i] > x[i - 1];
+  // Every index below is 0 <= i < x.length, and residuals has the same length as x.
+  for (let i = 1; i < x.length && sorted; i++) sorted = x[i]! > x[i - 1]!;
   if (sorted) return residuals;
   const order = Array.from({ length: x.length }, (_, i) => i);
-  order.sort((a, b) => x[a] - x[b] || residuals[a] - residuals[b]);
-  return order.map((i) => residuals[i]);
+  order.sort((a, b) => x[a]! - x[b]! || residuals[a]! - residuals[b]!);
+  return order.map((i) => residuals[i]!);
 }

@@ -148,6 +148,14 @@ describe('TypeScript projects (npm run typecheck runs tsc -b over all of them)',
     expect(typeErrorCodes('shared', 'shared/engine/probe.ts', 'export const x = Math.hypot(3, 4);\n')).toEqual([]);
   });
 
+  it('when shared/ reads an array element as if it were always there, then it does not compile', () => {
+    // noUncheckedIndexedAccess: values[i] is number | undefined until the index is known to be in range.
+    const unchecked = 'export const first = (values: number[]): number => values[0];\n';
+    const checked = 'export const first = (values: number[]): number => values[0] ?? Number.NaN;\n';
+    expect(typeErrorCodes('shared', 'shared/engine/probe.ts', unchecked)).toEqual([2322]);
+    expect(typeErrorCodes('shared', 'shared/engine/probe.ts', checked)).toEqual([]);
+  });
+
   it('when the client imports a server file or names @server, then it does not compile', () => {
     // 6307: the file is outside the client project and no referenced project holds it.
     expect(
