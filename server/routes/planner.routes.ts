@@ -1,6 +1,7 @@
 import { labParamsSchema } from '@shared/schemas/members';
 import { titrationPlanInputSchema, titrationPlanSchema } from '@shared/schemas/planner';
 import { defineRoute } from '../http/define-route';
+import { sendDownload } from '../http/send-download';
 import { computeTitrationPlan, titrationPlanCsv } from '../services/planner/titration-plan.service';
 
 export const plannerRoutes = [
@@ -35,7 +36,7 @@ export const plannerRoutes = [
     },
     handler: ({ res, body }) => {
       const csv = titrationPlanCsv(body, computeTitrationPlan(body));
-      res.attachment('titration-plan.csv').type('text/csv').send(csv);
+      sendDownload(res, { fileName: 'titration-plan.csv', type: 'text/csv', body: csv });
     },
   }),
 ];

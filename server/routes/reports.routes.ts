@@ -3,6 +3,7 @@ import type { Response } from 'express';
 import { comparisonParamsSchema, comparisonQuerySchema } from '@shared/schemas/comparisons';
 import { scenarioParamsSchema } from '@shared/schemas/scenarios';
 import { defineRoute } from '../http/define-route';
+import { sendDownload } from '../http/send-download';
 import { labOf } from '../http/request-context';
 import { studyReport } from '../services/reports/study-report';
 import { comparisonReport, scenarioReport } from '../services/reports/summary-reports';
@@ -12,7 +13,7 @@ const studyParams = z.object({
   studyId: z.string().uuid('must be a study id'),
 });
 const sendPdf = (res: Response, { pdf, filename }: { pdf: Buffer; filename: string }) =>
-  res.attachment(filename).type('application/pdf').send(pdf);
+  sendDownload(res, { fileName: filename, type: 'application/pdf', body: pdf });
 
 export const reportRoutes = [
   defineRoute({
