@@ -5,7 +5,7 @@ export interface FolderLock {
   release(): void;
 }
 
-interface LockOwner {
+export interface LockOwner {
   pid: number;
   /** When the owner process started (ms since 1970); absent in lock files of older versions. */
   startedAt?: number;
@@ -69,6 +69,13 @@ function ownerRuns(owner: LockOwner, lockFile: string): boolean {
   if (started === null) return true;
   if (owner.startedAt !== undefined) return Math.abs(started - owner.startedAt) < sameProcessToleranceMs;
   return started <= fs.statSync(lockFile).mtimeMs + sameProcessToleranceMs;
+}
+
+/** The process holding the lock file that still runs, or null (no lock file, or a stale one). */
+export function folderLockOwner(lockFile: string): LockOwner | null {
+  if (!fs.existsSync(lockFile)) return null;
+  const owner = readOwner(lockFile);
+  return owner && ownerRuns(owner, lockFile) ? owner : null;
 }
 
 /**
