@@ -38,15 +38,19 @@ export interface JobQueue {
 const retryLimit = 16;
 
 export function createJobQueue(options: JobQueueOptions): JobQueue {
-  const boss = new PgBoss({
-    connectionString: options.databaseUrl,
-    max: 3,
-    application_name: 'halflight-jobs',
-    // Only the worker instance runs pg-boss's maintenance (expiring stuck jobs, deleting old ones).
-    supervise: options.runWorker,
-    schedule: false,
-  });
-  boss.on('error', (error) => options.logger.warn({ err: error }, 'job queue: database error (will retry)'));
+  const newBoss = () => {
+    const created = new PgBoss({
+      connectionString: options.databaseUrl,
+      max: 3,
+      application_name: 'halflight-jobs',
+      // Only the worker instance runs pg-boss's maintenance (expiring stuck jobs, deleting old ones).
+      supervise: options.runWorker,
+      schedule: false,
+    });
+    created.on('error', (error) => options.logger.warn({ err: error }, 'job queue: database error (will retry)'));
+    return created;
+  };
+  let boss = newBoss();
   const handlers = new Map<string, JobHandler<object>>();
   const retryDelay = options.retryDelaySeconds ?? 5;
   let started: Promise<void> | undefined;
@@ -105,8 +109,13 @@ export function createJobQueue(options: JobQueueOptions): JobQueue {
     },
     start() {
       if (stopped) return Promise.reject(new Error('job queue: already stopped'));
-      started ??= startOnce().catch((error: unknown) => {
-        started = undefined; // the next send tries again (the database may be back)
+      started ??= startOnce().catch(async (error: unknown) => {
+        // pg-boss cannot start twice (a failed start leaves it "starting" for good), so the next
+        // send starts a fresh one once the database is back; this one's pool is closed.
+        const failed = boss;
+        boss = newBoss();
+        started = undefined;
+        await (failed.getDb() as PgBoss.Db & { close?: () => Promise<void> }).close?.().catch(() => {});
         throw error;
       });
       return started;

@@ -89,6 +89,9 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, next) => {
     setRetryAfter(error, res);
     const body: ApiErrorBody = { error: { code: known.code, message: known.message } };
     if (known.details?.length) body.error.details = known.details;
+    // Every 503 says when to try again, whatever was unavailable (database, job queue, file store).
+    if (known.status === 503)
+      res.setHeader('Retry-After', String(known.retryAfterSeconds ?? databaseRetryAfterSeconds));
     res.status(known.status).json(body);
     return;
   }

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { healthSchema } from '@shared/schemas/health';
+import { databaseRetryAfterSeconds } from '../db/unavailable';
 import { defineRoute } from '../http/define-route';
 import { checkHealth } from '../services/health.service';
 
@@ -17,7 +18,9 @@ export const systemRoutes = [
     handler: async ({ req, res }) => {
       const { sequelize, embeddedDatabase } = req.app.locals.services;
       const health = await checkHealth(sequelize, embeddedDatabase, req.log);
-      res.status(health.database.status === 'up' ? 200 : 503).json(health);
+      const up = health.database.status === 'up';
+      if (!up) res.setHeader('Retry-After', String(databaseRetryAfterSeconds));
+      res.status(up ? 200 : 503).json(health);
     },
   }),
   defineRoute({

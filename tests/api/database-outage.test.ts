@@ -216,6 +216,7 @@ describe('the database goes away and comes back', { timeout: 120_000 }, () => {
     try {
       const health = await fetch(`${baseUrl}/api/health`);
       expect(health.status).toBe(503);
+      expect(health.headers.get('retry-after')).toMatch(/^[1-9]\d*$/);
       expect(await health.json()).toMatchObject({ status: 'degraded', database: { status: 'down' } });
       const answers: Answer[] = [];
       for (const [route, pending] of [

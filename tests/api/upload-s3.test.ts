@@ -96,17 +96,25 @@ describe('POST /api/labs/:labId/studies/:studyId/uploads with object storage', (
     expect(await StudyUpload.count({ where: { sha256: sha256(bytes), studyId: study.id } })).toBe(1);
   });
 
-  it('when the object store does not answer, then 503, no upload row is kept, and a later send is accepted', async () => {
+  it('when the object store does not answer, then 503 with Retry-After, no upload row is kept, and a later send is accepted', async () => {
     const down = await signedIn(storeDown);
     const bytes = Buffer.from(`[Q] (mM),intensity\n0,1000\n1,${crypto.randomInt(500, 900)}\n2,600\n`);
     const refused = await down.send('series.csv', bytes);
     expect(refused.status, JSON.stringify(refused.body)).toBe(503);
-    expect(refused.body.error.code).toBe('file_store_unavailable');
+    // Like a database outage: the one error shape, and when to try again.
+    expect(refused.body).toEqual({ error: { code: 'file_store_unavailable', message: expect.any(String) } });
+    expect(refused.headers['retry-after']).toMatch(/^[1-9]\d*$/);
     expect(await StudyUpload.count({ where: { sha256: sha256(bytes) } })).toBe(0);
     expect((await down.client.get(down.base)).body.uploads).toEqual([]);
     // The same user sends the same bytes once the store is back (here: the app with a working bucket).
-    const retry = await (await signedIn(inS3)).send('series.csv', bytes);
+    const inBucket = await signedIn(inS3);
+    const retry = await inBucket.send('series.csv', bytes);
     expect(retry.status, JSON.stringify(retry.body)).toBe(201);
+    // Reading a kept file while the store is down: the same 503.
+    const unread = await down.client.agent.get(`${inBucket.base}/uploads/${retry.body.upload.id}/file`);
+    expect(unread.status).toBe(503);
+    expect(unread.body.error.code).toBe('file_store_unavailable');
+    expect(unread.headers['retry-after']).toMatch(/^[1-9]\d*$/);
   });
 });
 

@@ -1,5 +1,5 @@
 import crypto from 'node:crypto';
-import { AppError } from '../../../lib/app-error';
+import { AppError, unavailable } from '../../../lib/app-error';
 import { StudyUpload } from '../../../models';
 import type { S3Objects } from './s3-objects';
 
@@ -30,12 +30,15 @@ export interface RawFileStore {
   read(file: KeptFile): Promise<Buffer>;
 }
 
+/** An object store that is down is usually down for longer than a database restart. */
+const fileStoreRetryAfterSeconds = 30;
+
 /** The object store did not answer or refused: nothing was changed, and the request can be sent again. */
 export const storeUnavailable = (what: string) =>
-  new AppError(
+  unavailable(
     'file_store_unavailable',
-    `The file store did not answer (${what}); nothing was changed. Try again in a minute.`,
-    503,
+    `The file store did not answer (${what}); nothing was changed. Try again in half a minute.`,
+    fileStoreRetryAfterSeconds,
   );
 
 const damaged = (file: KeptFile) =>

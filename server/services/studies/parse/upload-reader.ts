@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import { Piscina } from 'piscina';
 import type { UploadMapping } from '@shared/schemas/study-uploads';
-import { AppError } from '../../../lib/app-error';
+import { unavailable } from '../../../lib/app-error';
 import type { StudyReading } from './propose-mapping';
 import type { ReadOutcome, ReadTask } from './read-and-map';
 import { DEFAULT_UPLOAD_LIMITS, limitMessage, type UploadLimits } from './upload-limits';
@@ -34,6 +34,8 @@ function findWorkerFile(): URL {
   return candidates.find((candidate) => fs.existsSync(candidate)) ?? candidates[0]!;
 }
 const workerFile = findWorkerFile();
+/** A full reading queue empties within seconds (each file has at most `seconds` to be read). */
+const uploadsBusyRetryAfterSeconds = 10;
 const threadArguments = () =>
   workerFile.pathname.endsWith('.ts') && !process.execArgv.some((argument) => argument.includes('tsx'))
     ? [...process.execArgv, '--import', 'tsx']
@@ -72,10 +74,10 @@ export function createUploadReader(options: UploadReaderOptions = {}): UploadRea
         if (code === 'ERR_WORKER_OUT_OF_MEMORY')
           return { kind: 'limit', limit: 'memoryMb', message: limitMessage.memoryMb(limits) };
         if (message?.includes('queue is at limit'))
-          throw new AppError(
+          throw unavailable(
             'uploads_busy',
-            'Halflight is reading many files just now; nothing was kept. Send the file again in a minute.',
-            503,
+            'Halflight is reading many files just now; nothing was kept. Send the file again in a few seconds.',
+            uploadsBusyRetryAfterSeconds,
           );
         throw error;
       }
