@@ -5,8 +5,8 @@
  * cluster with `pg_ctl restart -m fast` and (b) ends every connection of the app with
  * `pg_terminate_backend`, while /api/health is polled every 50 ms. Prints, for each, the time
  * until the same process answers /api/health 200 again, counted from the start of the disruption
- * and from the moment PostgreSQL took connections again, the answers that were not 200, the
- * load average beside each run, and the median. Figures only, no asserts.
+ * and from its end (PostgreSQL taking connections again; the connections ended), the answers
+ * that were not 200, the load average beside each run, and the median. Figures only, no asserts.
  */
 import crypto from 'node:crypto';
 import fs from 'node:fs';
@@ -32,7 +32,7 @@ async function health(baseUrl: string): Promise<number> {
 interface Recovery {
   /** ms from the start of the disruption to the first 200 after it */
   fromStart: number;
-  /** ms from PostgreSQL taking connections again to the first 200 */
+  /** ms from the end of the disruption (pg_ctl restart returned; connections ended) to the first 200 */
   fromBack: number;
   notOk: number;
   load: string;
@@ -57,15 +57,15 @@ async function timeRecovery(baseUrl: string, disrupt: () => Promise<unknown>): P
   }
 }
 
-function report(label: string, runs: Recovery[]) {
+function report(label: string, after: string, runs: Recovery[]) {
   const rows = runs.map(
     (run, i) =>
-      `    run ${i + 1}: ${run.fromStart.toFixed(0)} ms from the start, ${run.fromBack.toFixed(0)} ms after ` +
-      `PostgreSQL was back, ${run.notOk} answers not 200 (load ${run.load})`,
+      `    run ${i + 1}: ${run.fromStart.toFixed(0)} ms from the start, ${run.fromBack.toFixed(0)} ms ${after}, ` +
+      `non-200 answers: ${run.notOk} (load ${run.load})`,
   );
   console.log(
     `${label}: median ${median(runs.map((run) => run.fromStart)).toFixed(0)} ms from the start, ` +
-      `${median(runs.map((run) => run.fromBack)).toFixed(0)} ms after PostgreSQL was back\n${rows.join('\n')}`,
+      `${median(runs.map((run) => run.fromBack)).toFixed(0)} ms ${after}\n${rows.join('\n')}`,
   );
 }
 
@@ -90,8 +90,8 @@ async function main() {
       await sleep(1_000);
       terminations.push(await timeRecovery(server.baseUrl, () => cluster.terminateOthers()));
     }
-    report('pg_ctl restart -m fast', restarts);
-    report('pg_terminate_backend of every app connection', terminations);
+    report('pg_ctl restart -m fast', 'after PostgreSQL took connections again', restarts);
+    report('pg_terminate_backend of every app connection', 'after the connections were ended', terminations);
     if (server.child.exitCode !== null) console.log(`The server exited (${server.child.exitCode}).`);
   } finally {
     server.kill('SIGTERM');
