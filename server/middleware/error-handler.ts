@@ -90,8 +90,8 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, next) => {
     const body: ApiErrorBody = { error: { code: known.code, message: known.message } };
     if (known.details?.length) body.error.details = known.details;
     // Every 503 says when to try again, whatever was unavailable (database, job queue, file store).
-    if (known.status === 503)
-      res.setHeader('Retry-After', String(known.retryAfterSeconds ?? databaseRetryAfterSeconds));
+    if (known.status === 503 && !res.hasHeader('Retry-After'))
+      res.setHeader('Retry-After', String(databaseRetryAfterSeconds));
     res.status(known.status).json(body);
     return;
   }
