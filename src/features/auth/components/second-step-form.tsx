@@ -4,6 +4,8 @@ import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { TextField } from '@/components/text-field';
 import { showServerErrors } from '@/lib/form-errors';
+import { fieldsOf } from '@/lib/form-field';
+import { AppCodeField } from './app-code-field';
 import { useFinishSignIn } from '../api/sign-in';
 
 /** The second step of a sign-in: the 6-digit code from the app, or, without the phone, a recovery code. */
@@ -12,6 +14,7 @@ export function SecondStepForm({ onSignedIn }: { onSignedIn: () => void }) {
   const finish = useFinishSignIn();
   const form = useForm({ defaultValues: { code: '', recoveryCode: '' } });
   const { errors } = form.formState;
+  const field = fieldsOf(form);
 
   const onSubmit = form.handleSubmit((values) =>
     finish.mutate(useRecovery ? { recoveryCode: values.recoveryCode.trim() } : { code: values.code.trim() }, {
@@ -28,23 +31,9 @@ export function SecondStepForm({ onSignedIn }: { onSignedIn: () => void }) {
           : 'Open the authenticator app on your phone and type the 6-digit code it shows for Halflight.'}
       </p>
       {useRecovery ? (
-        <TextField
-          key="recovery"
-          label="Recovery code"
-          autoComplete="off"
-          error={errors.recoveryCode?.message}
-          {...form.register('recoveryCode')}
-        />
+        <TextField key="recovery" label="Recovery code" autoComplete="off" {...field('recoveryCode')} />
       ) : (
-        <TextField
-          key="code"
-          label="Code from your app"
-          inputMode="numeric"
-          autoComplete="one-time-code"
-          maxLength={6}
-          error={errors.code?.message}
-          {...form.register('code')}
-        />
+        <AppCodeField key="code" {...field('code')} />
       )}
       {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
       <Button type="submit" className="w-full" pending={finish.isPending} pendingLabel="Checking…">

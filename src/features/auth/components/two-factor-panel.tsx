@@ -4,9 +4,12 @@ import type { Session } from '@shared/schemas/auth';
 import type { TwoFactorSetup } from '@shared/schemas/two-factor';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
+import { FormShell } from '@/components/form-shell';
 import { Signal } from '@/components/signal';
 import { TextField } from '@/components/text-field';
 import { showServerErrors } from '@/lib/form-errors';
+import { fieldsOf } from '@/lib/form-field';
+import { AppCodeField } from './app-code-field';
 import { useConfirmTwoFactor, useDisableTwoFactor, useRenewRecoveryCodes, useStartTwoFactor } from '../api/two-factor';
 
 /** Two-step sign-in on the account screen: turn it on with an authenticator app, renew codes, turn it off. */
@@ -87,7 +90,13 @@ function TurnOnTwoFactor({ onCodes }: { onCodes: (codes: string[]) => void }) {
     }),
   );
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4">
+    <FormShell
+      onSubmit={onSubmit}
+      problem={errors.root?.server?.message}
+      submitLabel="Confirm and turn on"
+      pendingLabel="Checking…"
+      pending={confirm.isPending}
+    >
       <p className="text-body text-ink-700">
         Scan this with an authenticator app on your phone (any app for time-based codes), or type the key by hand. Then
         enter the 6-digit code it shows.
@@ -98,19 +107,8 @@ function TurnOnTwoFactor({ onCodes }: { onCodes: (codes: string[]) => void }) {
           Key: <span className="break-all font-mono text-body text-ink-950">{setup.secret}</span>
         </p>
       </div>
-      <TextField
-        label="Code from your app"
-        inputMode="numeric"
-        autoComplete="one-time-code"
-        maxLength={6}
-        error={errors.code?.message}
-        {...form.register('code')}
-      />
-      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
-      <Button type="submit" pending={confirm.isPending} pendingLabel="Checking…">
-        Confirm and turn on
-      </Button>
-    </form>
+      <AppCodeField {...fieldsOf(form)('code')} />
+    </FormShell>
   );
 }
 
@@ -131,8 +129,7 @@ function ManageTwoFactor({ onCodes }: { onCodes: (codes: string[]) => void }) {
         label="Your password, to confirm"
         type="password"
         autoComplete="current-password"
-        error={errors.password?.message}
-        {...form.register('password')}
+        {...fieldsOf(form)('password')}
       />
       {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
       <div className="flex flex-wrap gap-3">
