@@ -31,7 +31,7 @@ async function potential(compoundId: string, couple: 'oxidation' | 'reduction', 
 beforeAll(async () => {
   const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
   labId = lab.id;
-  // The catalyst row "Ptppy" of Chem. Sci. 2015, 6, 1454 (PMC5811153) Table 1, via check-values.md §5b:
+  // The catalyst row "Ptppy" of Chem. Sci. 2015, 6, 1454 (PMC5811153) Table 1:
   // E(M+/M) = +0.57 V, E(M/M-) = -2.38 V vs SCE in MeCN, E_T = 2.64 eV.
   const emitter = await createCompound(labId, 'Pt-row', 'photocatalyst');
   emitterId = emitter.id;

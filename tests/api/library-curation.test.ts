@@ -111,7 +111,7 @@ describe('GET and PATCH /api/labs/:labId/settings', () => {
       solvent: 'acetonitrile',
       kind: 'half-wave',
     });
-    // 1.29 V vs SCE − 0.380 V (Pavlishchuk & Addison, check-values §3) = 0.91 V vs Fc+/Fc, the engine's own example.
+    // 1.29 V vs SCE − 0.380 V (Pavlishchuk & Addison, Inorg. Chim. Acta 2000, 298, 97) = 0.91 V vs Fc+/Fc, the engine's own example.
     expect(potential.body.display).toMatchObject({ reference: 'Fc+/Fc' });
     expect(potential.body.display.value).toBeCloseTo(0.91, 6);
     expect(potential.body.value).toBe(1.29);
@@ -126,7 +126,7 @@ describe('GET /api/labs/:labId/driving-force', () => {
     const emitter = (await post('/compounds', { name: 'Test-Ru', roleHint: 'photocatalyst', tripletEnergy: 2.1 })).body;
     const quencher = (await post('/compounds', { name: 'Test-Rh', roleHint: 'quencher', tripletEnergy: 2.3 })).body;
     const base = { reference: 'SCE', solvent: 'acetonitrile', kind: 'half-wave' };
-    // Inorg. Chem. 2023, 62, 7636 (PMC10207326) Table 2 via check-values §7: E*ox(Ru(bpy)3) = −0.81 V,
+    // Inorg. Chem. 2023, 62, 7636 (PMC10207326) Table 2: E*ox(Ru(bpy)3) = −0.81 V,
     // E_red(acceptor) = −0.74 V vs SCE, dG = −0.07 eV. Entered as E(PC+/PC) +1.29 V and E00 2.10 eV (Prier 2013, §5).
     await post(`/compounds/${emitter.id}/potentials`, { ...base, couple: 'oxidation', value: 1.29 });
     await post(`/compounds/${emitter.id}/energies`, { value: 2.1, method: 'review value' });
@@ -139,7 +139,7 @@ describe('GET /api/labs/:labId/driving-force', () => {
     expect(result.oxidative.electronvolts).toBeCloseTo(-0.07, 6);
     // 1 eV = 96.485 kJ/mol (CODATA 2018 e·N_A).
     expect(result.oxidative.kilojoulesPerMole).toBeCloseTo(-0.07 * 96.485, 2);
-    // Neutral pair in MeCN (eps 35.69) at 7 Å: w = −14.3996/(35.69·7) = −0.058 eV (check-values §7, computed).
+    // Neutral pair in MeCN (eps 35.69) at 7 Å: w = −14.3996/(35.69·7) = −0.058 eV (computed with e^2/(4 pi eps0) = 14.3996 eV Å, CODATA 2018).
     expect(result.oxidative.workTerm).toBeCloseTo(-0.058, 3);
     expect(result.oxidative.withWorkTerm).toBeCloseTo(-0.128, 3);
     expect(result.reductive).toBeNull();

@@ -36,8 +36,8 @@ describe('POST /api/labs/:labId/compounds/:compoundId/potentials', () => {
       source: 'doi:10.0000/test',
     });
     expect(added.status, JSON.stringify(added.body)).toBe(201);
-    // Fc+/Fc vs SCE in MeCN = +0.380 V: Pavlishchuk & Addison, Inorg. Chim. Acta 2000, 298, 97 (check-values §3).
-    // Cross-check in check-values §3: Ru(bpy)3 3+/2+ +0.92 V vs Fc (JACS 2023) ↔ +1.29 V vs SCE (Prier 2013), ±0.01 V.
+    // Fc+/Fc vs SCE in MeCN = +0.380 V: Pavlishchuk & Addison, Inorg. Chim. Acta 2000, 298, 97.
+    // Cross-check: Ru(bpy)3 3+/2+ +0.92 V vs Fc (JACS 2023) ↔ +1.29 V vs SCE (Prier 2013), ±0.01 V.
     expect(added.body.display.value).toBeCloseTo(1.3, 6);
     expect(Math.abs(added.body.display.value - 1.29)).toBeLessThanOrEqual(0.011);
     expect(added.body).toMatchObject({
@@ -66,7 +66,7 @@ describe('POST /api/labs/:labId/compounds/:compoundId/potentials', () => {
       solvent: 'water',
       kind: 'half-wave',
     });
-    // SCE − Ag/AgCl(sat) = 0.2412 − 0.197 = 0.044 V (Bard & Faulkner via consultrsr; check-values §3).
+    // SCE − Ag/AgCl(sat) = 0.2412 − 0.197 = 0.044 V (Bard & Faulkner, Electrochemical Methods, 2nd ed., table of reference electrodes; computed).
     expect(added.body.display.value).toBeCloseTo(-1.044, 3);
     expect(added.body.display.warnings).toEqual([]);
   });
@@ -92,7 +92,7 @@ describe('GET /api/labs/:labId/compounds/:compoundId (excited-state potentials)'
     const compound = await addCompound(researcher, labId, { name: 'Test-4CzIPN-lit', roleHint: 'photocatalyst' });
     const url = `/api/labs/${labId}/compounds/${compound.id}`;
     // PMC6050529 Table 1 row "4a(lit)", MeCN, V vs SCE: E(PC+/PC) +1.52, E(PC/PC-) −1.21, E00 2.56 eV,
-    // E*(PC+/PC*) −1.04, E*(PC*/PC-) +1.35 (check-values §5, confirmed primary).
+    // E*(PC+/PC*) −1.04, E*(PC*/PC-) +1.35 (PMC6050529, 4CzIPN literature row, as in tests/unit/engine/electrochem.test.ts).
     const base = { reference: 'SCE', solvent: 'acetonitrile', kind: 'half-wave', source: 'PMC6050529 Table 1' };
     await researcher.post(`${url}/potentials`, { ...base, couple: 'oxidation', value: 1.52 });
     await researcher.post(`${url}/potentials`, { ...base, couple: 'reduction', value: -1.21 });

@@ -63,7 +63,7 @@ describe('compound library in Chromium', () => {
     await potential.getByRole('button', { name: 'Save potential' }).click();
 
     const potentials = page.getByRole('region', { name: 'Redox potentials' });
-    // −2.00 V vs Fc+/Fc + 0.380 V (Pavlishchuk & Addison 2000, check-values §3) = −1.62 V vs SCE.
+    // −2.00 V vs Fc+/Fc + 0.380 V (Pavlishchuk & Addison, Inorg. Chim. Acta 2000) = −1.62 V vs SCE.
     await potentials.getByRole('cell', { name: '−1.62 V' }).waitFor();
     await potentials.getByRole('cell', { name: '−2.00 V vs Fc+/Fc' }).waitFor();
     await potentials.getByText('Notebook E2E p. 12').waitFor();
@@ -105,7 +105,7 @@ describe('compound library in Chromium', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Library' }).click();
     await page.getByRole('link', { name: 'HL-Ir-7' }).click();
     const potentials = page.getByRole('region', { name: 'Redox potentials' });
-    // Demo HL-Ir-7: +1.21 V vs SCE − 0.380 V (Pavlishchuk & Addison 2000, check-values §3) = +0.83 V vs Fc+/Fc.
+    // Demo HL-Ir-7: +1.21 V vs SCE − 0.380 V (Pavlishchuk & Addison, Inorg. Chim. Acta 2000) = +0.83 V vs Fc+/Fc.
     await potentials.getByRole('cell', { name: '+0.83 V' }).waitFor();
     await potentials.getByRole('cell', { name: '+1.21 V vs SCE' }).waitFor();
 

@@ -14,7 +14,7 @@ import {
 } from '@shared/engine';
 import { expectClose } from './support/expect-close';
 
-describe('CODATA 2018 constants (check-values §4)', () => {
+describe('CODATA 2018 constants (NIST CODATA recommended values, 2018)', () => {
   it('R, F, hc/e, eV in kJ/mol, e^2/(4 pi eps0)', () => {
     expectClose(GAS_CONSTANT, 8.314462618, 1e-10); // CODATA 2018, exact
     expectClose(FARADAY_CONSTANT, 96485.33212, 1e-10); // CODATA 2018, exact

@@ -4,7 +4,7 @@ import { correctDilution, correctInnerFilter, planTitration, screenSeries } from
 import { expectClose } from './support/expect-close';
 
 describe('inner-filter correction F_corr = F_obs 10^((A_ex + A_em)/2) (Lakowicz, 3rd ed., ch. 2)', () => {
-  it('reproduces the worked factors of check-values §6: 1.1885 and 1.585', () => {
+  it('gives 1.1885 for A_ex 0.10, A_em 0.05 and 1.585 for 0.20 and 0.20 (10^0.075, 10^0.2, by hand)', () => {
     expectClose(
       correctInnerFilter({ intensity: 1, absorbanceExcitation: 0.1, absorbanceEmission: 0.05 }).factor,
       1.1885,

@@ -11,16 +11,16 @@ import {
 } from '@shared/engine';
 import { expectClose } from './support/expect-close';
 
-// check-values.md suggests ±0.01 V when recomputing a source from its own inputs
-// (sources round to 0.01 V) and ±0.05 V across different sources.
+// ±0.01 V when recomputing a source from its own inputs (sources round to 0.01 V) and ±0.05 V
+// across different sources (common practice).
 const WITHIN_ROUNDING = 0.01;
 
-describe('reference-electrode conversions (check-values §3)', () => {
+describe('reference-electrode conversions (Bard & Faulkner 2nd ed.; Pavlishchuk & Addison 2000)', () => {
   it('SCE = +0.2412 V, Ag/AgCl sat. = +0.197 V, Ag/AgCl 3 M = +0.210 V vs SHE', () => {
     expectClose(convertPotential({ value: 0, from: 'SCE', to: 'SHE' }).value, 0.2412, 1e-12); // Bard & Faulkner
     expectClose(convertPotential({ value: 0, from: 'Ag/AgCl (sat. KCl)', to: 'SHE' }).value, 0.197, 1e-12); // Bard & Faulkner
     expectClose(convertPotential({ value: 0, from: 'Ag/AgCl (3 M KCl)', to: 'SHE' }).value, 0.21, 1e-12); // Inzelt et al.
-    // SCE - Ag/AgCl(sat) = 0.044 V (check-values §3, computed)
+    // SCE - Ag/AgCl(sat) = 0.2412 - 0.197 = 0.044 V (Bard & Faulkner values, computed)
     expectClose(convertPotential({ value: 0, from: 'SCE', to: 'Ag/AgCl (sat. KCl)' }).value, 0.0442, 1e-9);
   });
 
@@ -32,7 +32,7 @@ describe('reference-electrode conversions (check-values §3)', () => {
       1e-12,
     ); // P&A 2000
     const fcVsAg = convertPotential({ value: 0, from: 'Fc+/Fc', to: 'Ag/Ag+ (0.01 M AgNO3)', solvent: 'acetonitrile' });
-    expectClose(fcVsAg.value, 0.082, 1e-9); // check-values §3 computed 0.380 - 0.298
+    expectClose(fcVsAg.value, 0.082, 1e-9); // 0.380 - 0.298 (both Pavlishchuk & Addison 2000, computed)
     expect(fcVsAg.warnings).toEqual([]); // both references sit in the same organic solution
   });
 
@@ -71,10 +71,10 @@ describe('reference-electrode conversions (check-values §3)', () => {
 });
 
 describe('E00 from a wavelength', () => {
-  it('E = 1239.841984 / lambda (CODATA 2018 h, c, e exact; check-values §4)', () => {
+  it('E = 1239.841984 / lambda (CODATA 2018 h, c, e exact)', () => {
     expectClose(e00FromWavelength(1239.841984), 1, 1e-9);
-    expectClose(e00FromWavelength(494), 2.51, 0.002); // check-values §5b fac-Ir(ppy)3 1239.84/494 = 2.51 (computed)
-    expectClose(e00FromWavelength(625), 1.98, 0.002); // check-values §5b 1239.84/625 = 1.98 (computed)
+    expectClose(e00FromWavelength(494), 2.51, 0.002); // fac-Ir(ppy)3 at 494 nm: 1239.84/494 = 2.51 (by hand)
+    expectClose(e00FromWavelength(625), 1.98, 0.002); // 1239.84/625 = 1.98 (by hand)
   });
 
   it('rejects wavelengths outside 200–1500 nm with a typed error', () => {
@@ -86,7 +86,7 @@ describe('E00 from a wavelength', () => {
   });
 });
 
-describe('excited-state potentials E* = E -+ E00 (published, fully confirmed rows of check-values §5b)', () => {
+describe('excited-state potentials E* = E -+ E00 (published rows: PMC6050529, PMC5811153, Sci. Rep. 4045)', () => {
   // [source, E(PC+/PC), E(PC/PC-), E00, E*(PC+/PC*), E*(PC*/PC-)], V vs SCE (Sci. Rep. rows vs NHE)
   const rows: [string, number, number, number, number, number][] = [
     ['PMC6050529 4CzIPN lit', 1.52, -1.21, 2.56, -1.04, 1.35],
@@ -123,11 +123,11 @@ describe('excited-state potentials E* = E -+ E00 (published, fully confirmed row
 
 describe('Coulomb work term (IUPAC Gold Book GT07388)', () => {
   it('neutral pair in acetonitrile at 7 Å: -0.058 eV (eps 35.69)', () => {
-    expect(Math.abs(coulombWorkTerm({ permittivity: 35.69 }) - -0.058)).toBeLessThan(0.0005); // check-values §7 (computed)
+    expect(Math.abs(coulombWorkTerm({ permittivity: 35.69 }) - -0.058)).toBeLessThan(0.0005); // -14.3996/(35.69 x 7) eV (computed)
     expectClose(coulombWorkTerm({ permittivity: 1, distance: 1e-10 }), -14.399645, 1e-7); // e^2/(4 pi eps0) = 14.399645 eV Å (§4)
   });
 
-  it('other rows of check-values §7: MeCN 5 and 10 Å, CH2Cl2, DMF, DMSO, water', () => {
+  it('other solvents and distances by the same formula: MeCN 5 and 10 Å, CH2Cl2, DMF, DMSO, water', () => {
     const cases: [number, number, number][] = [
       [35.69, 5e-10, -0.081],
       [35.69, 10e-10, -0.04],
@@ -187,7 +187,7 @@ describe('driving force dG_ET = e[E(D+/D) - E(A/A-)] - E00 + w', () => {
 
 describe('energy transfer feasibility', () => {
   it('possible only when the quencher triplet lies below the catalyst triplet', () => {
-    // Eosin Y E_T 1.89 eV = 43.6 kcal/mol (check-values §5a, confirmed secondary)
+    // Eosin Y E_T 1.89 eV = 43.6 kcal/mol (a vendor page quoting 43.6 kcal/mol; 43.6/23.0605 = 1.891 eV, computed)
     expect(energyTransferFeasibility({ catalystTripletEnergy: 1.89, quencherTripletEnergy: 1.6 }).possible).toBe(true);
     const uphill = energyTransferFeasibility({ catalystTripletEnergy: 1.89, quencherTripletEnergy: 2.2 });
     expect(uphill.possible).toBe(false);
