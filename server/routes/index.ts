@@ -6,6 +6,7 @@ import { compoundMeasurementRoutes } from './compound-measurements.routes';
 import { comparisonRoutes } from './comparisons.routes';
 import { compoundRoutes } from './compounds.routes';
 import { dashboardRoutes } from './dashboard.routes';
+import { fileReadingRoutes } from './file-reading.routes';
 import { invitationRoutes } from './invitations.routes';
 import { librarySettingsRoutes } from './library-settings.routes';
 import { memberRoutes } from './members.routes';
@@ -31,6 +32,7 @@ export const apiRoutes: AnyRouteSpec[] = [
   ...memberRoutes,
   ...studyRoutes,
   ...studyUploadRoutes,
+  ...fileReadingRoutes,
   ...studyReviewRoutes,
   ...plannerRoutes,
   ...scenarioRoutes,

@@ -24,7 +24,7 @@ const single = multer({
 }).single('file');
 
 /** Runs multer inside the handler (memory storage, 20 MB), so the route stays one defineRoute spec. */
-function receiveFile(req: Request, res: Response): Promise<Express.Multer.File> {
+export function receiveFile(req: Request, res: Response): Promise<Express.Multer.File> {
   if (!req.is('multipart/form-data')) {
     return Promise.reject(
       new AppError('no_file', 'Send the file as multipart/form-data in a field named "file".', 400, [

@@ -113,7 +113,43 @@ export function saveFile({ blob, filename }: { blob: Blob; filename: string }): 
   setTimeout(() => URL.revokeObjectURL(url), 1000);
 }
 
+/**
+ * A multipart upload that reports how much has been sent (fetch cannot): XMLHttpRequest with the
+ * same credentials, CSRF header, JSON answer and ApiError as every other call.
+ */
+function upload<T>(url: string, form: FormData, onProgress?: (fraction: number) => void, retried = false): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', url);
+    xhr.withCredentials = true;
+    xhr.setRequestHeader('accept', 'application/json');
+    for (const [name, value] of Object.entries(csrfHeaders)) xhr.setRequestHeader(name, value);
+    if (onProgress) xhr.upload.onprogress = (event) => event.lengthComputable && onProgress(event.loaded / event.total);
+    xhr.onerror = () => reject(new ApiError(0, 'network', 'The server could not be reached; try again.'));
+    xhr.onload = () => {
+      const payload: unknown = xhr.responseText ? JSON.parse(xhr.responseText) : null;
+      if (xhr.status >= 200 && xhr.status < 300) return resolve(payload as T);
+      const error = (payload as ApiErrorBody | null)?.error;
+      if (xhr.status === 403 && error?.code === 'csrf_invalid' && !retried) {
+        refreshCsrfToken().then(() => upload<T>(url, form, onProgress, true).then(resolve, reject), reject);
+        return;
+      }
+      reject(
+        new ApiError(
+          xhr.status,
+          error?.code ?? 'http_error',
+          error?.message ?? `The server answered ${xhr.status}.`,
+          error?.details ?? [],
+          payload,
+        ),
+      );
+    };
+    xhr.send(form);
+  });
+}
+
 export const apiClient = {
+  upload,
   file: (method: Method, url: string, body?: unknown) => requestFile(method, url, { body }),
   get: <T>(url: string, options?: RequestOptions) => request<T>('GET', url, options),
   post: <T>(url: string, body?: unknown, options?: RequestOptions) => request<T>('POST', url, { ...options, body }),

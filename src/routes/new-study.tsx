@@ -1,20 +1,32 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { useNavigate, useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
-import { useCreateStudy } from '@/features/studies/api/create-study';
+import { useSession } from '@/features/auth/api/get-session';
+import { applyUpload } from '@/features/studies/api/apply-upload';
+import { createStudy } from '@/features/studies/api/create-study';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
-import { StudyForm } from '@/features/studies/components/study-form';
+import { studiesKeys } from '@/features/studies/api/studies-keys';
+import { uploadFile } from '@/features/studies/api/upload-file';
+import { NewStudyForm } from '@/features/studies/components/new-study-form';
 import type { StudyFormValues } from '@/features/studies/components/study-form-values';
+import { notify } from '@/lib/notify';
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
 
-/** Set up a new quenching study; points come next, on the study's screen. */
+/** What the study screen is told on arrival: bring the fit into view and say so. */
+export interface StudyArrival {
+  arrived: 'fitted' | 'created';
+}
+
+/** A new quenching study: the pair and solvent, the export dropped right here, one confirmation to a fit. */
 export function NewStudyRoute() {
   const lab = useLab();
   const labId = lab.labId;
+  const { user } = useSession();
   const options = useStudyFormOptions(labId);
-  const create = useCreateStudy(labId);
+  const queryClient = useQueryClient();
   const navigate = useNavigate();
   const [params] = useSearchParams();
   // Links from a scenario (the pair that lacks a kq) and from the planner (volumes and stock) pre-fill the form.
@@ -35,25 +47,42 @@ export function NewStudyRoute() {
   return (
     <div className="max-w-5xl space-y-6">
       <header>
-        <p className="text-caption uppercase text-ink-500">{lab.labName}</p>
+        <p className="text-caption text-ink-500">{lab.labName}</p>
         <h1 className="text-display font-black text-ink-950">New quenching study</h1>
         <p className="mt-1 text-lead text-ink-700">
-          One emitter against one quencher, in one solvent at one temperature.
+          One emitter against one quencher in one solvent: pick them, drop the instrument export, check the preview, and
+          confirm.
         </p>
       </header>
       {options.isError && <ErrorNotice error={options.error} what="the lab's compounds" />}
-      <Panel title="Set-up">
+      <Panel title="Set-up and data">
         {!options.data && !options.isError && (
           <p className="text-body text-ink-500">Loading the lab&apos;s compounds…</p>
         )}
         {options.data && (
-          <StudyForm
+          <NewStudyForm
             options={options.data}
+            memory={{ userId: user.id, labId }}
             preset={preset}
-            submitLabel="Create study"
-            onSubmit={async (body) => {
-              const study = await create.mutateAsync(body);
-              await navigate(paths.study(labId, study.id));
+            onSubmit={async ({ body, file, mapping }, onProgress) => {
+              const study = await createStudy(labId, body);
+              await queryClient.invalidateQueries({ queryKey: studiesKeys.all });
+              let arrival: StudyArrival = { arrived: 'created' };
+              if (file && mapping) {
+                try {
+                  const upload = await uploadFile(labId, study.id, file, onProgress);
+                  await applyUpload(labId, study.id, upload.upload.id, {
+                    version: study.version,
+                    mapping,
+                    mode: 'replace',
+                  });
+                  arrival = { arrived: 'fitted' };
+                } catch (error) {
+                  // The study exists: open it and say what to do with the file there.
+                  notify.failed('The study was created, but its file was not taken', error);
+                }
+              } else notify.done('Study created: add its points');
+              await navigate(paths.study(labId, study.id), { state: arrival });
             }}
           />
         )}

@@ -1,5 +1,6 @@
-import { useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { useEffect, useRef, useState } from 'react';
+import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
+import { formatEstimate, UNITS } from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { ErrorNotice } from '@/components/error-notice';
 import { FormAlert } from '@/components/form-alert';
@@ -14,10 +15,13 @@ import { useUpdateStudy } from '@/features/studies/api/update-study';
 import '@/features/studies/components/chart-setup';
 import { FilesList } from '@/features/studies/components/files-list';
 import { FitControls } from '@/features/studies/components/fit-controls';
+import { CautionsOnce } from '@/features/studies/components/cautions-once';
 import { HistoryPanel } from '@/features/studies/components/history-panel';
 import { LifetimePlot } from '@/features/studies/components/lifetime-plot';
 import { PointsGrid } from '@/features/studies/components/points-grid';
 import { ResultsPanel } from '@/features/studies/components/results-panel';
+import { ResultSummary } from '@/features/studies/components/result-summary';
+import { ReviewBar } from '@/features/studies/components/review-bar';
 import { ReviewPanel } from '@/features/studies/components/review-panel';
 import { SafetyNotes } from '@/features/studies/components/safety-notes';
 import { StatusSignal } from '@/features/studies/components/status-signal';
@@ -29,6 +33,7 @@ import { notify } from '@/lib/notify';
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
+import type { StudyArrival } from '@/routes/new-study';
 
 /** One study: the plot and results up top, then the points, files, set-up, review and history. */
 export function StudyRoute() {
@@ -48,6 +53,7 @@ export function StudyRoute() {
       isDemo={lab.isDemo}
       study={study.data}
       isOwner={isOwner}
+      userId={user.id}
       canWrite={can(lab.role, 'studies:write')}
       canReview={can(lab.role, 'studies:review')}
     />
@@ -60,11 +66,36 @@ interface ScreenProps {
   isDemo: boolean;
   study: StudyDetail;
   isOwner: boolean;
+  userId: string;
   canWrite: boolean;
   canReview: boolean;
 }
 
-function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canReview }: ScreenProps) {
+/** After a fit arrives (from the new-study form or an upload): bring the result into view, focus it and say it. */
+function useArrival(study: StudyDetail) {
+  const summary = useRef<HTMLElement>(null);
+  const location = useLocation();
+  const navigate = useNavigate();
+  const arrival = (location.state as StudyArrival | null)?.arrived;
+  useEffect(() => {
+    if (!arrival) return;
+    summary.current?.scrollIntoView({ block: 'start' });
+    summary.current?.focus({ preventScroll: true });
+    const kSv = study.latestFit?.result.parameters.kSv;
+    const kq = study.latestFit?.result.parameters.kq;
+    if (arrival === 'fitted' && kSv)
+      notify.done(
+        `Fitted: K_SV = ${formatEstimate(kSv.value, kSv.standardError, UNITS.perMolar)}${kq ? `, kq = ${formatEstimate(kq.value, kq.standardError, UNITS.perMolarPerSecond)}` : ''}`,
+      );
+    else if (arrival === 'fitted') notify.note(study.fitProblem ?? 'The points were taken; no fit yet.');
+    void navigate('.', { replace: true, state: null });
+  }, [arrival, study, navigate]);
+  return summary;
+}
+
+function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite, canReview }: ScreenProps) {
+  const summary = useArrival(study);
+  const navigate = useNavigate();
   const [editing, setEditing] = useState(false);
   const options = useStudyFormOptions(labId);
   const update = useUpdateStudy(labId, study.id);
@@ -119,7 +150,10 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
           <FormAlert tone="good">Approved and locked. A change starts a new revision; this one is kept.</FormAlert>
         )}
       </header>
-      <SafetyNotes study={study} />
+      <ResultSummary ref={summary} study={study} />
+      <CautionsOnce userId={userId} labId={labId}>
+        <SafetyNotes study={study} />
+      </CautionsOnce>
       {/* minmax(0, …): a chart or wide table shrinks to its column instead of widening the column past the window */}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <Panel
@@ -177,7 +211,11 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
       </Panel>
       {editable && (
         <Panel title="Upload an instrument file">
-          <UploadPanel labId={labId} study={study} />
+          <UploadPanel
+            labId={labId}
+            study={study}
+            onFitted={() => void navigate('.', { replace: true, state: { arrived: 'fitted' } satisfies StudyArrival })}
+          />
         </Panel>
       )}
       <DrivingForcePanel
@@ -218,12 +256,15 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, canWrite, canRevi
           <ReviewPanel labId={labId} study={study} isOwner={isOwner} canReview={canReview} canWrite={canWrite} />
         </Panel>
         <Panel title="Files">
-          <FilesList labId={labId} studyId={study.id} uploads={study.uploads} />
+          <FilesList labId={labId} studyId={study.id} uploads={study.uploads} editable={editable} />
         </Panel>
       </div>
       <Panel title="History">
         <HistoryPanel labId={labId} studyId={study.id} />
       </Panel>
+      {canReview && !isOwner && study.status === 'submitted' && study.nextRevisionId === null && (
+        <ReviewBar labId={labId} study={study} />
+      )}
     </div>
   );
 }

@@ -251,6 +251,11 @@ const matrix: Record<string, Row> = {
     body: {},
     expected: labRoute('researcher', 400),
   },
+  'POST /api/labs/:labId/file-readings': {
+    path: ({ labId }) => `/api/labs/${labId}/file-readings`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
   'POST /api/labs/:labId/studies/:studyId/uploads/:uploadId/preview': {
     path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads/${unknownId}/preview`,
     body: {},

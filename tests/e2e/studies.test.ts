@@ -34,11 +34,13 @@ const signIn = (page: Page, person: { email: string; password: string }) =>
 
 async function fillStudyForm(page: Page, title: string, tag: string) {
   await page.getByRole('link', { name: 'New study' }).click();
-  await page.getByLabel('Title').fill(title);
-  await page.getByLabel('Emitter', { exact: true }).selectOption({ label: '+ a new compound…' });
+  await page.getByLabel('Emitter (required)').selectOption({ label: '+ a new compound…' });
   await page.getByLabel('New emitter name').fill(`E2E-Ir-${tag}`);
-  await page.getByLabel('Quencher', { exact: true }).selectOption({ label: '+ a new compound…' });
+  await page.getByLabel('Quencher (required)').selectOption({ label: '+ a new compound…' });
   await page.getByLabel('New quencher name').fill(`E2E-amine-${tag}`);
+  await page.getByLabel('Title').fill(title);
+  // The rest sits folded under "Conditions".
+  await page.getByText(/^Conditions:/).click();
   await page.getByLabel('τ0 (ns)').fill('1000');
 }
 
@@ -91,8 +93,9 @@ describe('studies in Chromium', () => {
     await signIn(reviewerPage, people.reviewer);
     await reviewerPage.goto(`${server.baseUrl}/labs/${labId}/studies?status=submitted`);
     await reviewerPage.getByRole('link', { name: 'E2E amine titration' }).click();
-    await reviewerPage.getByLabel('Comment').fill('Clean line, approved.');
-    await reviewerPage.getByRole('button', { name: 'Approve' }).click();
+    await reviewerPage.getByLabel('Review comment').fill('Clean line, approved.');
+    await reviewerPage.getByRole('button', { name: 'Approve…' }).click();
+    await reviewerPage.getByRole('alertdialog', { name: 'Confirm approval' }).getByRole('button').first().click();
     await reviewerPage.getByText('Approved and locked.').waitFor();
     await shot(reviewerPage, 'study-approved.png');
     await reviewerPage.goto(`${server.baseUrl}/labs/${labId}/studies`);

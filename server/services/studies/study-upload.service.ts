@@ -32,10 +32,10 @@ const problemDetails = (problems: Problem[]) =>
       problem.row === null ? 'file' : `file.row ${problem.row}${problem.column ? `, column ${problem.column}` : ''}`,
     message: problem.message,
   }));
-const unreadable = (problems: Problem[], uploadId: string) =>
+const unreadable = (problems: Problem[]) =>
   new AppError(
     'upload_unreadable',
-    `${problems[0]!.message}${problems.length > 1 ? ` (and ${problems.length - 1} more problem${problems.length > 2 ? 's' : ''})` : ''} The file is kept (upload ${uploadId}); fix it or choose another mapping.`,
+    `${problems[0]!.message}${problems.length > 1 ? ` (and ${problems.length - 1} more problem${problems.length > 2 ? 's' : ''})` : ''} The file is kept with the study's files; fix it or choose another mapping.`,
     422,
     problemDetails(problems),
   );
@@ -43,7 +43,7 @@ const unreadable = (problems: Problem[], uploadId: string) =>
 const overLimit = (outcome: Extract<ReadOutcome, { kind: 'limit' }>, kept: string | null) =>
   new AppError(
     'upload_limit',
-    kept ? `${outcome.message} The file is kept (upload ${kept}).` : outcome.message,
+    kept ? `${outcome.message} The file is kept with the study's files.` : outcome.message,
     outcome.limit === 'seconds' ? 422 : 413,
     [{ path: 'file', message: `over the ${outcome.limit} limit` }],
   );
@@ -184,7 +184,7 @@ export async function receiveUpload(
     throw error;
   }
   if (outcome.kind === 'limit') throw overLimit(outcome, upload.id);
-  if (outcome.problems.length > 0) throw unreadable(outcome.problems, upload.id);
+  if (outcome.problems.length > 0) throw unreadable(outcome.problems);
   return preview(upload, outcome);
 }
 
@@ -225,7 +225,7 @@ export async function applyUpload(
   const found = await findUpload(lab, studyId, uploadId);
   const outcome = await services.uploadReader.read(found.fileName, await services.files.read(found), input.mapping);
   if (outcome.kind === 'limit') throw overLimit(outcome, null);
-  if (outcome.problems.length > 0) throw unreadable(outcome.problems, uploadId);
+  if (outcome.problems.length > 0) throw unreadable(outcome.problems);
   if (outcome.kind !== 'read' || outcome.points.length === 0) {
     throw new AppError(
       'no_points',

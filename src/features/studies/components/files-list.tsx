@@ -5,9 +5,24 @@ import { EmptyState } from '@/components/empty-state';
 const statusWords = { parsed: 'read, not used yet', failed: 'could not be read', applied: 'points taken' } as const;
 
 /** Raw files as received, each downloadable again. */
-export function FilesList({ labId, studyId, uploads }: { labId: string; studyId: string; uploads: UploadSummary[] }) {
+export function FilesList({
+  labId,
+  studyId,
+  uploads,
+  editable,
+}: {
+  labId: string;
+  studyId: string;
+  uploads: UploadSummary[];
+  /** false for a locked study or another person's: nothing to invite, only what is kept */
+  editable: boolean;
+}) {
   if (uploads.length === 0)
-    return <EmptyState title="No files yet">Upload an instrument export to keep it with the study.</EmptyState>;
+    return editable ? (
+      <EmptyState title="No files yet">Upload an instrument export to keep it with the study.</EmptyState>
+    ) : (
+      <p className="text-body text-ink-500">No instrument files were kept with this study.</p>
+    );
   return (
     <ul className="space-y-2 text-body">
       {uploads.map((upload) => (

@@ -6,7 +6,7 @@ import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
 import { notify } from '@/lib/notify';
 import { useReplacePoints } from '../api/replace-points';
-import { CONCENTRATION_UNITS, unitLabel } from '@shared/units/units';
+import { CONCENTRATION_UNITS, fromSi, unitLabel } from '@shared/units/units';
 import { formatNumber, gridConcentrationUnits, type GridConcentrationUnit } from './format';
 import {
   emptyRow,
@@ -26,6 +26,47 @@ interface Props {
 
 /** The series as an editable table; paste a block from a spreadsheet into any cell. Corrected values sit beside the raw ones. */
 export function PointsGrid({ labId, study, editable }: Props) {
+  if (!editable) return <PointsTable study={study} />;
+  return <EditablePointsGrid labId={labId} study={study} />;
+}
+
+/** A study that cannot change (locked, or not the reader's): the points as a plain table, nothing to type in. */
+function PointsTable({ study }: { study: StudyDetail }) {
+  if (study.points.length === 0) return <p className="text-body text-ink-500">No points.</p>;
+  return (
+    <div className="overflow-x-auto [contain:inline-size]">
+      <table aria-label="Points" className="w-full text-left text-body tabular-nums">
+        <thead className="text-caption text-ink-500">
+          <tr>
+            <th scope="col">#</th>
+            <th scope="col">[Q] ({unitLabel('mM')})</th>
+            <th scope="col">{study.dataKind === 'ratio' ? 'I0/I' : 'Intensity'}</th>
+            <th scope="col">Lifetime (ns)</th>
+            <th scope="col">A at λex</th>
+            <th scope="col">A at λem</th>
+            <th scope="col">Used</th>
+          </tr>
+        </thead>
+        <tbody>
+          {study.points.map((point) => (
+            <tr key={point.id} className={point.excluded ? 'text-ink-500' : ''}>
+              <td>{point.position + 1}</td>
+              <td>{formatNumber(fromSi(point.concentration, 'mM'), 4)}</td>
+              <td>{formatNumber(point.intensity, 5)}</td>
+              <td>{point.lifetime === null ? '—' : formatNumber(fromSi(point.lifetime, 'ns'), 4)}</td>
+              <td>{formatNumber(point.absorbanceExcitation)}</td>
+              <td>{formatNumber(point.absorbanceEmission)}</td>
+              <td>{point.excluded ? `left out${point.exclusionReason ? `: ${point.exclusionReason}` : ''}` : 'yes'}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function EditablePointsGrid({ labId, study }: Omit<Props, 'editable'>) {
+  const editable = true;
   const [unit, setUnit] = useState<GridConcentrationUnit>('mM');
   const [rows, setRows] = useState<GridRow[]>(() => [...rowsFromPoints(study.points, 'mM'), emptyRow()]);
   const [problems, setProblems] = useState<string[]>([]);

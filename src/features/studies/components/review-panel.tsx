@@ -6,8 +6,6 @@ import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { describeError } from '@/lib/form-errors';
 import { useAddComment } from '../api/add-comment';
-import { useApproveStudy } from '../api/approve-study';
-import { useReturnStudy } from '../api/return-study';
 import { useStartRevision } from '../api/start-revision';
 import { useSubmitStudy } from '../api/submit-study';
 import { notify } from '@/lib/notify';
@@ -28,11 +26,9 @@ export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Prop
   const [comment, setComment] = useState('');
   const navigate = useNavigate();
   const submit = useSubmitStudy(labId, study.id);
-  const approve = useApproveStudy(labId, study.id);
-  const giveBack = useReturnStudy(labId, study.id);
   const addComment = useAddComment(labId, study.id);
   const revision = useStartRevision(labId, study.id);
-  const failed = [submit, approve, giveBack, addComment, revision].find((mutation) => mutation.isError);
+  const failed = [submit, addComment, revision].find((mutation) => mutation.isError);
   const done = (message: string) => ({
     onSuccess: () => {
       setComment('');
@@ -53,7 +49,7 @@ export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Prop
           </li>
         ))}
       </ol>
-      {canWrite && current && (
+      {canWrite && current && study.status !== 'approved' && (
         <label className="flex flex-col gap-1 text-body font-bold text-ink-900">
           Comment
           <textarea
@@ -75,26 +71,12 @@ export function ReviewPanel({ labId, study, isOwner, canReview, canWrite }: Prop
             Submit for review
           </Button>
         )}
-        {canReview && current && study.status === 'submitted' && (
-          <>
-            <Button
-              onClick={() => approve.mutate(comment, done('Approved: the study is locked'))}
-              pending={approve.isPending}
-            >
-              Approve
-            </Button>
-            <Button
-              variant="danger"
-              onClick={() => giveBack.mutate(comment, done(`Returned to ${study.ownerName} with your comment`))}
-              pending={giveBack.isPending}
-              disabled={comment.trim() === ''}
-              title="Say what should change"
-            >
-              Return with comment
-            </Button>
-          </>
+        {canReview && current && study.status === 'submitted' && !isOwner && (
+          <p className="w-full text-caption text-ink-600">
+            Approve or return it in the review bar at the bottom of the window.
+          </p>
         )}
-        {canWrite && current && (
+        {canWrite && current && study.status !== 'approved' && (
           <Button
             variant="quiet"
             onClick={() => addComment.mutate(comment, done('Comment added'))}

@@ -1,0 +1,54 @@
+import { fileReadingSchema, fileReadingMappingSchema } from '@shared/schemas/file-reading';
+import { labParamsSchema } from '@shared/schemas/members';
+import { defineRoute } from '../http/define-route';
+import { AppError } from '../lib/app-error';
+import { ACCEPTED_EXTENSIONS, isAcceptedFile } from '../services/studies/parse/read-upload';
+import { readFileForPreview } from '../services/studies/read-file.service';
+import { receiveFile } from './study-uploads.routes';
+
+export const fileReadingRoutes = [
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/file-readings',
+    summary:
+      'Read an instrument export without keeping it (multipart field "file", optional field "mapping" as JSON): the preview of a new study. Nothing is stored',
+    tags: ['studies'],
+    access: { lab: 'researcher' },
+    request: { params: labParamsSchema },
+    responses: {
+      200: { description: 'The table, a proposed (or the given) mapping and the points', schema: fileReadingSchema },
+      400: { description: 'No file, or a mapping that is not one' },
+      413: { description: 'Larger than 20 MB or over a reading limit' },
+      415: { description: 'Not an accepted file type' },
+      422: { description: 'Unreadable (details name row and column) or over the reading time' },
+    },
+    handler: async ({ req, res }) => {
+      const file = await receiveFile(req, res);
+      if (!isAcceptedFile(file.originalname))
+        throw new AppError(
+          'unsupported_type',
+          `"${file.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
+          415,
+        );
+      const raw = (req.body as { mapping?: unknown } | undefined)?.mapping;
+      let mapping = null;
+      if (typeof raw === 'string' && raw !== '') {
+        let json: unknown;
+        try {
+          json = JSON.parse(raw);
+        } catch {
+          throw new AppError('invalid_mapping', 'The mapping field is not JSON.', 400, [
+            { path: 'body.mapping', message: 'not JSON' },
+          ]);
+        }
+        const parsed = fileReadingMappingSchema.safeParse(json);
+        if (!parsed.success)
+          throw new AppError('invalid_mapping', 'The mapping is not one Halflight understands.', 400, [
+            { path: 'body.mapping', message: parsed.error.issues[0]?.message ?? 'invalid' },
+          ]);
+        mapping = parsed.data;
+      }
+      res.json(await readFileForPreview(req.app.locals.services, file, mapping));
+    },
+  }),
+];

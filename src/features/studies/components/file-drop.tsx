@@ -1,0 +1,76 @@
+import { useId, useState } from 'react';
+
+export const ACCEPTED_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
+
+interface Props {
+  label: string;
+  /** the chosen file's name, shown in place of the browser's "No file chosen" */
+  fileName: string | null;
+  /** 0..1 while the file is being sent, else null */
+  progress: number | null;
+  disabled?: boolean;
+  onFile: (file: File) => void;
+}
+
+/** Drop an instrument export here or pick one; shows the chosen name and how much has been sent. */
+export function FileDrop({ label, fileName, progress, disabled = false, onFile }: Props) {
+  const id = useId();
+  const [over, setOver] = useState(false);
+  return (
+    <div
+      onDragOver={(event) => {
+        event.preventDefault();
+        if (!disabled) setOver(true);
+      }}
+      onDragLeave={() => setOver(false)}
+      onDrop={(event) => {
+        event.preventDefault();
+        setOver(false);
+        const file = event.dataTransfer.files[0];
+        if (file && !disabled) onFile(file);
+      }}
+      className={`rounded-card border-2 border-dashed p-4 text-body ${over ? 'border-glow-500 bg-glow-50' : 'border-paper-300 bg-white'}`}
+    >
+      <p className="font-bold text-ink-900">{label}</p>
+      <p className="text-caption text-ink-600">
+        Drop the file here, or pick it: .csv, .tsv, .txt, .dat, .asc, .xlsx or JCAMP-DX, up to 20 MB. Nothing is kept
+        until you confirm.
+      </p>
+      <div className="mt-2 flex flex-wrap items-center gap-3">
+        <input
+          id={id}
+          type="file"
+          accept={ACCEPTED_FILES}
+          disabled={disabled}
+          aria-label={label}
+          className="peer sr-only"
+          onChange={(event) => {
+            const file = event.target.files?.[0];
+            if (file) onFile(file);
+            event.target.value = '';
+          }}
+        />
+        <label
+          htmlFor={id}
+          className="cursor-pointer rounded-md border border-ink-300 bg-paper-50 px-3 py-1.5 font-bold text-ink-800 hover:border-ink-500 peer-focus-visible:outline-2 peer-focus-visible:outline-glow-400"
+        >
+          Pick a file
+        </label>
+        <span className="text-ink-800" aria-live="polite">
+          {fileName ? (
+            <>
+              Chosen: <strong>{fileName}</strong>
+            </>
+          ) : (
+            'No file yet'
+          )}
+        </span>
+      </div>
+      {progress !== null && (
+        <progress className="mt-2 w-full" max={1} value={progress} aria-label={`Sending ${fileName ?? 'the file'}`}>
+          {Math.round(progress * 100)} %
+        </progress>
+      )}
+    </div>
+  );
+}

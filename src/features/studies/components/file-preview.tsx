@@ -1,0 +1,93 @@
+import type { FileReading } from '@shared/schemas/file-reading';
+import type { UploadMapping } from '@shared/schemas/study-uploads';
+import { formatNumber } from '@shared/format';
+import { concentrationDisplayUnit, fromSi, unitLabel, type ConcentrationUnit } from '@shared/units/units';
+import { FormAlert } from '@/components/form-alert';
+import { MappingEditor } from './mapping-editor';
+
+type Reading = Omit<FileReading, 'fileName' | 'size'>;
+
+/** The unit the file itself uses for [Q]: the mapping's for a series, else the one that reads best. */
+function fileUnit(reading: Reading, mapping: UploadMapping): ConcentrationUnit {
+  if (mapping.layout === 'series') return mapping.concentrationUnit as ConcentrationUnit;
+  return concentrationDisplayUnit(Math.max(0, ...reading.points.map((point) => point.concentration)));
+}
+
+/** What a file gave: the first rows, the mapping to confirm or change, the points in the file's own units. */
+export function FilePreview({
+  fileName,
+  reading,
+  mapping,
+  onMapping,
+}: {
+  fileName: string;
+  reading: Reading;
+  mapping: UploadMapping;
+  onMapping: (next: UploadMapping) => void;
+}) {
+  const unit = fileUnit(reading, mapping);
+  return (
+    <div className="space-y-3 rounded-md border border-paper-300 p-3">
+      <p className="text-body">
+        <strong>{fileName}</strong>: {reading.format}, {reading.rowCount} rows.
+      </p>
+      {/* contain:inline-size: a many-column spectrum matrix scrolls here instead of widening the page */}
+      <div className="max-h-48 overflow-auto [contain:inline-size]">
+        <table aria-label="Parsed table" className="text-caption">
+          <thead>
+            <tr>
+              {reading.headers.map((header, i) => (
+                <th key={i} className="px-2 text-left">
+                  {header}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {reading.rows.slice(0, 12).map((row, i) => (
+              <tr key={i}>
+                {row.map((cell, j) => (
+                  <td key={j} className="px-2">
+                    {cell}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <details>
+        <summary className="cursor-pointer text-body font-bold text-ink-800">Columns and units</summary>
+        <div className="mt-2">
+          <MappingEditor headers={reading.headers} mapping={mapping} onChange={onMapping} />
+        </div>
+      </details>
+      {reading.warnings.length > 0 && (
+        <FormAlert tone="note">
+          {reading.warnings.map((warning) => (
+            <p key={warning}>{warning}</p>
+          ))}
+        </FormAlert>
+      )}
+      {reading.problems.length > 0 && (
+        <FormAlert>
+          {reading.problems.map((problem) => (
+            <p key={problem.message}>{problem.message}</p>
+          ))}
+        </FormAlert>
+      )}
+      {reading.points.length > 0 && (
+        <p aria-label="Points from the file" className="text-body">
+          {reading.pointCount} points, [Q] in {unitLabel(unit)}:{' '}
+          {reading.points
+            .slice(0, 8)
+            .map(
+              (point) => `${formatNumber(fromSi(point.concentration, unit), 4)} → ${formatNumber(point.intensity, 4)}`,
+            )
+            .join(' · ')}
+          {reading.pointCount > 8 ? ' …' : ''}
+        </p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,330 @@
+import { useEffect, useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { createStudySchema, degassingMethods, studyAtmospheres, type StudyFormOptions } from '@shared/schemas/studies';
+import type { FileReading } from '@shared/schemas/file-reading';
+import type { UploadMapping } from '@shared/schemas/study-uploads';
+import { Button } from '@/components/button';
+import { FormAlert } from '@/components/form-alert';
+import { SelectField } from '@/components/select-field';
+import { TextField } from '@/components/text-field';
+import { ApiError } from '@/lib/api-client';
+import { describeError } from '@/lib/form-errors';
+import { readFile } from '../api/read-file';
+import { FileDrop } from './file-drop';
+import { FilePreview } from './file-preview';
+import { CUSTOM, fieldOfPath, initialValues, NEW, toBody, type StudyFormValues } from './study-form-values';
+import { fittingLifetime, rememberConditions, rememberedConditions } from './study-conditions';
+
+export interface NewStudySubmission {
+  body: ReturnType<typeof toBody>;
+  file: File | null;
+  mapping: UploadMapping | null;
+}
+
+interface Props {
+  options: StudyFormOptions;
+  /** who fills it in and where: conditions are remembered per person and lab */
+  memory: { userId: string; labId: string };
+  preset?: Partial<StudyFormValues>;
+  onSubmit: (submission: NewStudySubmission, onProgress: (fraction: number) => void) => Promise<unknown>;
+}
+
+const nameOf = (options: StudyFormOptions, id: string) => options.compounds.find((c) => c.id === id)?.name ?? '';
+
+/**
+ * A new study in one screen: emitter, quencher and solvent first; the export dropped or picked
+ * right here and previewed (nothing is kept before the confirmation); every other condition
+ * folded under "Conditions" with the person's last values. One button creates, keeps the file,
+ * takes its points and fits.
+ */
+export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
+  const {
+    register,
+    handleSubmit,
+    control,
+    setError,
+    setValue,
+    getFieldState,
+    formState: { errors, isSubmitting },
+  } = useForm<StudyFormValues>({
+    defaultValues: { ...initialValues(), ...rememberedConditions(memory.userId, memory.labId), ...preset },
+  });
+  const values = useWatch({ control }) as StudyFormValues;
+  const [file, setFile] = useState<File | null>(null);
+  const [reading, setReading] = useState<FileReading | null>(null);
+  const [mapping, setMapping] = useState<UploadMapping | null>(null);
+  const [readError, setReadError] = useState<unknown>(null);
+  const [progress, setProgress] = useState<number | null>(null);
+  const [titleTouched, setTitleTouched] = useState(Boolean(preset?.title));
+
+  // A title from the pair and the solvent until the person writes their own.
+  const solventName =
+    values.solventId === CUSTOM
+      ? values.customSolventName
+      : (options.solvents.find((s) => s.id === values.solventId)?.name ?? '');
+  const emitterName = values.emitterId === NEW ? values.newEmitterName : nameOf(options, values.emitterId);
+  const quencherName = values.quencherId === NEW ? values.newQuencherName : nameOf(options, values.quencherId);
+  const suggestedTitle =
+    emitterName && quencherName ? `${emitterName} with ${quencherName}${solventName ? ` in ${solventName}` : ''}` : '';
+  useEffect(() => {
+    if (!titleTouched && suggestedTitle) setValue('title', suggestedTitle);
+  }, [suggestedTitle, titleTouched, setValue]);
+
+  // τ0 from the emitter's lifetime record when exactly one fits the solvent (the person can still change it).
+  const lifetimes = options.lifetimes.filter((l) => l.compoundId === values.emitterId);
+  const fitting = fittingLifetime(options, values.emitterId, values.solventId);
+  useEffect(() => {
+    if (!getFieldState('tau0LifetimeId').isDirty) setValue('tau0LifetimeId', fitting?.id ?? '');
+  }, [fitting?.id, setValue, getFieldState]);
+
+  const read = async (next: File, nextMapping: UploadMapping | null) => {
+    setReadError(null);
+    setProgress(0);
+    try {
+      const result = await readFile(memory.labId, next, nextMapping, setProgress);
+      setReading(result);
+      setMapping(result.mapping);
+    } catch (error) {
+      setReading(null);
+      setReadError(error);
+    } finally {
+      setProgress(null);
+    }
+  };
+
+  const place = (issues: Array<{ path: string; message: string }>) => {
+    let placed = false;
+    for (const issue of issues) {
+      const field = fieldOfPath[issue.path.replace(/^body\./, '')];
+      if (field) {
+        setError(field, { message: issue.message });
+        placed = true;
+      }
+    }
+    if (!placed)
+      setError('root.server', { message: issues.map((issue) => `${issue.path}: ${issue.message}`).join('; ') });
+  };
+  const submit = handleSubmit(async (form) => {
+    const body = toBody(form, options);
+    const checked = createStudySchema.safeParse(body);
+    if (!checked.success)
+      return place(checked.error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message })));
+    try {
+      await onSubmit({ body, file: reading ? file : null, mapping }, setProgress);
+      rememberConditions(memory.userId, memory.labId, form);
+    } catch (error) {
+      if (error instanceof ApiError && error.details.length) place(error.details);
+      else setError('root.server', { message: describeError(error) });
+    } finally {
+      setProgress(null);
+    }
+  });
+  const e = (key: keyof StudyFormValues) => errors[key]?.message;
+  const pick = (role: 'photocatalyst' | 'quencher') => [
+    { value: '', label: '— pick —' },
+    ...options.compounds
+      .filter((c) => c.roleHint === role || c.roleHint === 'both')
+      .map((c) => ({ value: c.id, label: c.name })),
+    ...options.compounds
+      .filter((c) => c.roleHint !== role && c.roleHint !== 'both')
+      .map((c) => ({ value: c.id, label: `${c.name} (listed as ${c.roleHint})` })),
+    { value: NEW, label: '+ a new compound…' },
+  ];
+  const ready = reading !== null && reading.points.length > 0 && reading.problems.length === 0;
+
+  return (
+    <form onSubmit={submit} noValidate className="space-y-5">
+      <fieldset className="grid grid-cols-1 gap-4 md:grid-cols-3">
+        <legend className="mb-2 text-lead font-bold text-ink-900">What was measured</legend>
+        <SelectField
+          label="Emitter (required)"
+          options={pick('photocatalyst')}
+          error={e('emitterId')}
+          {...register('emitterId')}
+        />
+        <SelectField
+          label="Quencher (required)"
+          options={pick('quencher')}
+          error={e('quencherId')}
+          {...register('quencherId')}
+        />
+        <SelectField
+          label="Solvent (required)"
+          error={e('solventId')}
+          options={[
+            ...options.solvents.map((s) => ({ value: s.id, label: s.name })),
+            { value: CUSTOM, label: 'another solvent…' },
+          ]}
+          {...register('solventId')}
+        />
+        {values.emitterId === NEW && (
+          <TextField
+            label="New emitter name"
+            hint="Added to the lab's compound library"
+            error={e('newEmitterName')}
+            {...register('newEmitterName')}
+          />
+        )}
+        {values.quencherId === NEW && (
+          <TextField
+            label="New quencher name"
+            hint="Added to the lab's compound library"
+            error={e('newQuencherName')}
+            {...register('newQuencherName')}
+          />
+        )}
+        {values.solventId === CUSTOM && (
+          <>
+            <TextField label="Solvent name" error={e('customSolventName')} {...register('customSolventName')} />
+            <TextField
+              label="Viscosity (mPa s)"
+              hint="At the study temperature; sets the diffusion limit"
+              error={e('customViscosityMilli')}
+              {...register('customViscosityMilli')}
+            />
+          </>
+        )}
+        <TextField
+          label="Title"
+          className="md:col-span-3"
+          hint="Made from the emitter, quencher and solvent until you write your own"
+          error={e('title')}
+          {...register('title', { onChange: () => setTitleTouched(true) })}
+        />
+      </fieldset>
+
+      <FileDrop
+        label="Instrument export"
+        fileName={file?.name ?? null}
+        progress={progress}
+        disabled={isSubmitting}
+        onFile={(next) => {
+          setFile(next);
+          void read(next, null);
+        }}
+      />
+      {readError !== null && <FormAlert>{describeError(readError)}</FormAlert>}
+      {file && reading && mapping && (
+        <FilePreview
+          fileName={file.name}
+          reading={reading}
+          mapping={mapping}
+          onMapping={(next) => {
+            setMapping(next);
+            void read(file, next);
+          }}
+        />
+      )}
+
+      <details className="rounded-md border border-paper-300 bg-white p-3">
+        <summary className="cursor-pointer text-body font-bold text-ink-900">
+          Conditions: τ0{' '}
+          {values.tau0LifetimeId
+            ? 'from the lifetime record'
+            : values.tau0Nano
+              ? `${values.tau0Nano} ns typed`
+              : 'not given (kq needs it)'}
+          , {values.temperature} K, {values.atmosphere}, {values.degassingMethod}
+        </summary>
+        <div className="mt-3 grid grid-cols-1 gap-4 md:grid-cols-3">
+          <SelectField
+            label="τ0 from a lifetime record"
+            options={[
+              { value: '', label: 'enter τ0 by hand' },
+              ...lifetimes.map((l) => ({
+                value: l.id,
+                label: `${(l.value * 1e9).toPrecision(4)} ns, ${l.solvent}, ${l.atmosphere}, ${l.temperature} K`,
+              })),
+            ]}
+            error={e('tau0LifetimeId')}
+            {...register('tau0LifetimeId')}
+          />
+          {!values.tau0LifetimeId && (
+            <>
+              <TextField label="τ0 (ns)" error={e('tau0Nano')} {...register('tau0Nano')} />
+              <TextField
+                label="τ0 uncertainty (ns)"
+                error={e('tau0UncertaintyNano')}
+                {...register('tau0UncertaintyNano')}
+              />
+            </>
+          )}
+          <TextField label="Temperature (K)" error={e('temperature')} {...register('temperature')} />
+          <TextField
+            label="Excitation λ (nm)"
+            error={e('excitationWavelength')}
+            {...register('excitationWavelength')}
+          />
+          <TextField
+            label="Emission λ (nm)"
+            hint="Or an integration window"
+            error={e('emissionWavelength')}
+            {...register('emissionWavelength')}
+          />
+          <TextField label="Window from (nm)" error={e('windowStart')} {...register('windowStart')} />
+          <TextField label="Window to (nm)" error={e('windowEnd')} {...register('windowEnd')} />
+          <SelectField
+            label="Atmosphere"
+            options={studyAtmospheres.map((value) => ({ value, label: value }))}
+            {...register('atmosphere')}
+          />
+          <SelectField
+            label="Degassing"
+            options={degassingMethods.map((value) => ({ value, label: value }))}
+            {...register('degassingMethod')}
+          />
+          <SelectField
+            label="The series holds"
+            options={[
+              { value: 'intensity', label: 'intensities' },
+              { value: 'ratio', label: 'I0/I ratios' },
+            ]}
+            {...register('dataKind')}
+          />
+          <TextField
+            label="I0 (without a blank)"
+            hint="Only when the series has no point at zero quencher"
+            error={e('i0')}
+            {...register('i0')}
+          />
+          <label className="flex items-center gap-2 text-body">
+            <input type="checkbox" {...register('dilutionCorrection')} /> Dilution correction (needs volumes added)
+          </label>
+          <TextField
+            label="Starting volume V0 (mL)"
+            error={e('initialVolumeMilli')}
+            {...register('initialVolumeMilli')}
+          />
+          <TextField label="Stock concentration (mM)" error={e('stockMilli')} {...register('stockMilli')} />
+          <label className="flex items-center gap-2 text-body">
+            <input type="checkbox" {...register('stockContainsEmitter')} /> Stock also holds the emitter
+          </label>
+          <label className="flex items-center gap-2 text-body md:col-span-2">
+            <input type="checkbox" {...register('innerFilterCorrection')} /> Inner-filter correction (needs absorbances
+            at λex and λem)
+          </label>
+          <label className="flex flex-col gap-1 text-body font-bold text-ink-900 md:col-span-3">
+            Notes
+            <textarea
+              rows={2}
+              className="rounded-md border border-paper-300 px-3 py-2 font-normal"
+              {...register('notes')}
+            />
+          </label>
+        </div>
+      </details>
+
+      {errors.root?.server && <FormAlert>{errors.root.server.message}</FormAlert>}
+      <div className="flex flex-wrap items-center gap-3">
+        <Button type="submit" pending={isSubmitting} pendingLabel={ready ? 'Creating and fitting…' : 'Creating…'}>
+          {ready ? `Create and fit ${reading.pointCount} points` : 'Create study'}
+        </Button>
+        <span className="text-caption text-ink-600">
+          {ready
+            ? 'Creates the study, keeps the file as received and fits its points.'
+            : 'Without a file, add points on the study’s screen (type, paste or upload).'}
+        </span>
+      </div>
+    </form>
+  );
+}
