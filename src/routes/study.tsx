@@ -47,7 +47,9 @@ export function StudyRoute() {
   const isOwner = study.data.ownerId === user.id;
   return (
     <StudyScreen
-      key={study.data.version}
+      // Keyed by the study, not its version: a save re-renders in place, so the callbacks of what
+      // was just done (notices, undo) still run; parts that hold a copy are keyed themselves.
+      key={study.data.id}
       labId={labId}
       labName={lab.labName}
       isDemo={lab.isDemo}
@@ -201,13 +203,19 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
           {fit ? <ResultsPanel fit={fit} /> : <p className="text-body text-ink-500">No fit yet.</p>}
           {editable && fit && (
             <div className="mt-3">
-              <FitControls labId={labId} studyId={study.id} model={study.fitModel} />
+              <FitControls key={study.fitModel} labId={labId} studyId={study.id} model={study.fitModel} />
             </div>
           )}
         </Panel>
       </div>
       <Panel title="Points">
-        <PointsGrid labId={labId} study={study} editable={editable} />
+        {/* keyed by the saved points: a file taken or an undo shows in the grid instead of stale rows */}
+        <PointsGrid
+          key={study.points.map((point) => point.id).join()}
+          labId={labId}
+          study={study}
+          editable={editable}
+        />
       </Panel>
       {editable && (
         <Panel title="Upload an instrument file">
@@ -244,6 +252,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
             submitLabel="Save set-up"
             onSubmit={async (body) => {
               await update.mutateAsync({ ...body, version: study.version });
+              setEditing(false);
               notify.done('Set-up saved');
             }}
           />

@@ -123,4 +123,31 @@ describe('the main job in Chromium', () => {
     await page.screenshot({ path: path.join(screenshotDir, 'flow-locked-study.png'), fullPage: true });
     await page.close();
   });
+
+  it('when a file would replace points typed by hand, then it asks first, and the typed points come back with one click', async () => {
+    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+    await signInThroughPage(page, server.baseUrl, person('priya'));
+    await page
+      .getByRole('region', { name: 'Your drafts' })
+      .getByRole('link', { name: /thiol Q-thiol-8, no blank yet/ })
+      .click();
+    await page.getByLabel('Instrument file', { exact: true }).setInputFiles(fixture);
+    await page.getByText('Chosen: series-comma-mM.csv').waitFor();
+    await page.getByRole('button', { name: 'Use these points' }).click();
+    const ask = page.getByRole('alertdialog', { name: 'Replace typed points' });
+    await ask.getByText(/replaces the 6 points typed by hand with the file’s 6/).waitFor();
+    await shot(page, 'flow-replace-confirmation.png');
+    await ask.getByRole('button', { name: 'Replace them' }).click();
+    // Notices go through one polite live region, so screen readers hear them too.
+    const notices = page.locator('section[aria-live="polite"]');
+    await notices.getByText('The file’s points replaced 6 typed by hand').waitFor();
+    // The draft has no blank yet; the file starts with one.
+    const firstConcentration = () => page.getByLabel('Row 1 Concentration', { exact: true }).inputValue();
+    await expect.poll(firstConcentration).toBe('0');
+    await notices.getByRole('button', { name: 'Bring them back' }).click();
+    await notices.getByText('Your typed points are back').waitFor();
+    await expect.poll(firstConcentration).not.toBe('0');
+    expect(await page.getByLabel(/^Row \d+ Concentration$/).count()).toBe(7); // the 6 typed points and the empty row
+    await page.close();
+  });
 });

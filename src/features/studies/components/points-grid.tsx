@@ -98,15 +98,14 @@ function EditablePointsGrid({ labId, study }: Omit<Props, 'editable'>) {
     const { points, problems: found } = pointsFromRows(rows, unit);
     setProblems(found);
     if (found.length === 0)
-      save.mutate(
-        { version: study.version, points },
-        {
-          onSuccess: (saved) => {
-            setRows([...rowsFromPoints(saved.points, unit), emptyRow()]);
-            notify.done(saved.latestFit ? 'Points saved and fitted' : 'Points saved');
-          },
-          onError: (error) => notify.failed('The points were not saved', error),
+      // mutateAsync: the grid is keyed by the saved points and starts afresh once they change,
+      // and a replaced component's mutate callbacks never run; the promise still settles.
+      void save.mutateAsync({ version: study.version, points }).then(
+        (saved) => {
+          setRows([...rowsFromPoints(saved.points, unit), emptyRow()]);
+          notify.done(saved.latestFit ? 'Points saved and fitted' : 'Points saved');
         },
+        (error: unknown) => notify.failed('The points were not saved', error),
       );
   }
   const set = (index: number, patch: Partial<GridRow>) =>

@@ -8,7 +8,7 @@ import { describeError } from '@/lib/form-errors';
 import { notify } from '@/lib/notify';
 import { useApplyUpload } from '../api/apply-upload';
 import { usePreviewUpload } from '../api/preview-upload';
-import { replacePoints } from '../api/replace-points';
+import { useReplacePoints } from '../api/replace-points';
 import { useUploadFile } from '../api/upload-file';
 import { FileDrop } from './file-drop';
 import { FilePreview } from './file-preview';
@@ -47,6 +47,7 @@ export function UploadPanel({
   const upload = useUploadFile(labId, study.id, setProgress);
   const reread = usePreviewUpload(labId, study.id);
   const apply = useApplyUpload(labId, study.id);
+  const restore = useReplacePoints(labId, study.id);
   const typed = study.points.filter((point) => point.uploadId === null);
   const show = (next: UploadPreview) => {
     setPreview(next);
@@ -67,7 +68,7 @@ export function UploadPanel({
             notify.done(`The file’s points replaced ${typed.length} typed by hand`, {
               undoLabel: 'Bring them back',
               undo: () =>
-                void replacePoints(labId, study.id, { version: after.version, points: before }).then(
+                void restore.mutateAsync({ version: after.version, points: before }).then(
                   () => notify.done('Your typed points are back'),
                   (error: unknown) => notify.failed('They could not be brought back', error),
                 ),
