@@ -5,6 +5,7 @@ import { useSession } from '@/features/auth/api/get-session';
 import { PasswordForm } from '@/features/auth/components/password-form';
 import { ProfileForm } from '@/features/auth/components/profile-form';
 import { TwoFactorPanel } from '@/features/auth/components/two-factor-panel';
+import { ScreenHeader } from '@/components/screen-header';
 
 /** The signed-in person's own details: name, password, two-step sign-in and open sessions. */
 export function AccountRoute() {
@@ -12,10 +13,9 @@ export function AccountRoute() {
   const { user } = session;
   return (
     <div className="max-w-2xl space-y-6">
-      <header>
-        <h1 className="text-display font-black text-ink-950">Account</h1>
+      <ScreenHeader title="Account">
         <p className="mt-1 text-lead text-ink-700">How you appear to your labs, and how you sign in.</p>
-      </header>
+      </ScreenHeader>
       <Panel title="Your name">
         <ProfileForm name={user.name} email={user.email} />
       </Panel>

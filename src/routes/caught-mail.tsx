@@ -9,6 +9,7 @@ import { NotYourLab } from '@/features/labs/components/not-your-lab';
 import { useCaughtMail } from '@/features/mail/api/get-caught-mail';
 import { MailList } from '@/features/mail/components/mail-list';
 import { MailReader } from '@/features/mail/components/mail-reader';
+import { ScreenHeader } from '@/components/screen-header';
 
 const pageSize = 20;
 
@@ -32,14 +33,13 @@ function CaughtMailScreen() {
 
   return (
     <div className="max-w-6xl space-y-6">
-      <header>
-        <h1 className="text-display font-black text-ink-950">Caught mail</h1>
+      <ScreenHeader title="Caught mail">
         <p className="mt-1 max-w-2xl text-lead text-ink-700">
           No mail leaves this workspace: a local catcher keeps every message it sends. Here are the ones addressed to
           you, and the invitations you sent, so you can pass their links on by hand. Whoever runs the machine finds
           every message as a file in the data folder.
         </p>
-      </header>
+      </ScreenHeader>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
         <Panel title="Messages" aside={mail.data && <Signal tone="good">{`${mail.data.total} caught`}</Signal>}>
           {mail.isPending && <Signal tone="waiting">Loading messages</Signal>}

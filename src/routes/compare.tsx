@@ -14,6 +14,7 @@ import { ComparisonTable } from '@/features/comparisons/components/comparison-ta
 import { TrendPlot } from '@/features/comparisons/components/trend-plot';
 import { useCompounds } from '@/features/library/api/get-compounds';
 import { useLab } from '@/routes/lab-context';
+import { ScreenHeader } from '@/components/screen-header';
 
 const sorts = [
   { value: 'kq', label: 'kq, fastest first' },
@@ -55,13 +56,12 @@ export function CompareRoute() {
 
   return (
     <div className="max-w-6xl space-y-6">
-      <header>
-        <h1 className="text-display font-black text-ink-950">Compare</h1>
+      <ScreenHeader title="Compare">
         <p className="mt-1 max-w-3xl text-lead text-ink-700">
           Line up every quencher studied against one emitter, or every emitter against one quencher, and see how the
           rate constants follow the driving force.
         </p>
-      </header>
+      </ScreenHeader>
       <Panel title="What to compare">
         <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
           <SelectField

@@ -8,6 +8,7 @@ import { useLabSettings } from '@/features/library/api/get-lab-settings';
 import { LabSettingsForm } from '@/features/library/components/lab-settings-form';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
+import { ScreenHeader } from '@/components/screen-header';
 
 /** Lab settings for admins: the reference electrode in which potentials are read, and sign-in rules. */
 export function LibrarySettingsRoute() {
@@ -35,15 +36,13 @@ function SettingsScreen({ labId, labName, requireTwoFactor, ownTwoFactor }: Sett
   const settings = useLabSettings(labId);
   return (
     <div className="max-w-4xl space-y-6">
-      <header>
-        <p className="text-caption uppercase text-ink-500">{labName}</p>
-        <h1 className="text-display font-black text-ink-950">Lab settings</h1>
+      <ScreenHeader lab={{ labName }} title="Lab settings">
         <p className="mt-1 text-lead text-ink-700">
           Potentials are stored exactly as entered and shown converted into this reference, with the original beside
           them. IUPAC recommends Fc+/Fc for work in organic solvents; aqueous references there carry a
           junction-potential error.
         </p>
-      </header>
+      </ScreenHeader>
       <Panel title="Display reference">
         {settings.isPending && <Signal tone="waiting">Loading settings</Signal>}
         {settings.isError && <ErrorNotice error={settings.error} what="the settings" />}

@@ -6,7 +6,6 @@ import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { SelectField } from '@/components/select-field';
 import { Signal } from '@/components/signal';
-import { Tag } from '@/components/tag';
 import { TextField } from '@/components/text-field';
 import { useCreateCompound } from '@/features/library/api/create-compound';
 import { useCompounds } from '@/features/library/api/get-compounds';
@@ -17,6 +16,7 @@ import { roleHintLabels } from '@/features/library/components/library-format';
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
+import { ScreenHeader } from '@/components/screen-header';
 
 const pageSize = 25;
 
@@ -53,16 +53,12 @@ function LibraryScreen({
   const pages = compounds.data ? Math.max(1, Math.ceil(compounds.data.total / pageSize)) : 1;
   return (
     <div className="max-w-6xl space-y-6">
-      <header>
-        <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
-          {labName} {isDemo && <Tag tone="demo">Demo</Tag>}
-        </p>
-        <h1 className="text-display font-black text-ink-950">Library</h1>
+      <ScreenHeader lab={{ labName, isDemo }} title="Library">
         <p className="mt-1 max-w-3xl text-lead text-ink-700">
           Emitters and quenchers with their redox potentials, lifetimes and E00, kept as reported and read in one
           reference.
         </p>
-      </header>
+      </ScreenHeader>
       <Panel
         title="Compounds"
         aside={compounds.data && <Signal tone="good">{`${compounds.data.total} in the library`}</Signal>}

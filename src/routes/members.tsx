@@ -3,7 +3,6 @@ import { useNavigate } from 'react-router-dom';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
-import { Tag } from '@/components/tag';
 import { authKeys } from '@/features/auth/api/auth-keys';
 import { useSession } from '@/features/auth/api/get-session';
 import { useMembers } from '@/features/members/api/get-members';
@@ -13,6 +12,7 @@ import { PendingInvitations } from '@/features/members/components/pending-invita
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
+import { ScreenHeader } from '@/components/screen-header';
 
 /** Who works in the lab and with which role; admins invite, re-role and remove people here. */
 export function MembersRoute() {
@@ -49,17 +49,13 @@ function MembersScreen({ labId, labName, isDemo, canManage, selfUserId }: Member
 
   return (
     <div className="max-w-5xl space-y-6">
-      <header>
-        <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
-          {labName} {isDemo && <Tag tone="demo">Demo</Tag>}
-        </p>
-        <h1 className="text-display font-black text-ink-950">Members</h1>
+      <ScreenHeader lab={{ labName, isDemo }} title="Members">
         <p className="mt-1 text-lead text-ink-700">
           {canManage
             ? 'Everyone who works in this lab. As an admin you decide who joins and what each person may do.'
             : 'Everyone who works in this lab. Only the lab’s admins can change who is here.'}
         </p>
-      </header>
+      </ScreenHeader>
       <Panel
         title="People"
         aside={members.data && <Signal tone="good">{`${members.data.members.length} in the lab`}</Signal>}

@@ -14,6 +14,7 @@ import { describeError } from '@/lib/form-errors';
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
+import { ScreenHeader } from '@/components/screen-header';
 
 /** The new-study form, pre-filled with the plan's volumes and stock and the dilution correction switched on. */
 function studyFromPlan(labId: string, input: TitrationPlanInput): string {
@@ -36,13 +37,12 @@ export function PlannerRoute() {
 
   return (
     <div className="max-w-5xl space-y-6">
-      <header className="print:hidden">
-        <h1 className="text-display font-black text-ink-950">Titration planner</h1>
+      <ScreenHeader title="Titration planner" className="print:hidden">
         <p className="mt-1 max-w-3xl text-lead text-ink-700">
           Work out each addition of quencher stock, how far the sample is diluted, and the concentration you really
           reach, before you start the titration.
         </p>
-      </header>
+      </ScreenHeader>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem] print:block">
         <Panel title="Starting point">
           <div className="print:hidden">
