@@ -31,6 +31,9 @@ await build({
   format: 'esm',
   target: 'node20',
   sourcemap: true,
+  // Sequelize names each model after its class, and SQL fragments name the models ("Study"."title"):
+  // without this the bundler renames clashing classes (_Study) and those queries fail in production.
+  keepNames: true,
   alias: { '@shared': './shared', '@server': './server' },
   logLevel: 'warning',
 });

@@ -55,6 +55,13 @@ describe('npm start (compiled server under plain node)', { timeout: 240_000 }, (
         'series.csv',
       );
     expect(upload.status, JSON.stringify(upload.body)).toBe(201);
+    // SQL fragments name the models ("Compound"."id", "Study"."title"): the bundle must keep the class names.
+    const compounds = await client.get(`/api/labs/${labId}/compounds`);
+    expect(compounds.status, JSON.stringify(compounds.body)).toBe(200);
+    expect(compounds.body.total).toBeGreaterThan(0);
+    const search = await client.get(`/api/labs/${labId}/studies?q=compiled`);
+    expect(search.status, JSON.stringify(search.body)).toBe(200);
+    expect(search.body.total).toBe(1);
     expect(postgresProcessesOf(started.pgdata)).toHaveLength(1);
     // The serving process is node itself running JavaScript: no TypeScript loader in between.
     const commandLine = fs.readFileSync(`/proc/${started.server.child.pid}/cmdline`, 'utf8').split('\0');
