@@ -13,6 +13,7 @@ import { toHandler } from './http/define-route';
 import type { AnyRouteSpec, RouteAccess } from './http/define-route';
 import { logRedactPaths, redactUrl } from './http/log-redaction';
 import { buildOpenApiDocument } from './http/openapi';
+import { countDatabaseTime } from './db/database-time';
 import { createJobQueue } from './jobs/job-queue';
 import type { JobQueue } from './jobs/job-queue';
 import { appVersion } from './lib/version';
@@ -151,13 +152,18 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     await Promise.all([session.close(), uploadReader.close()]);
   };
 
+  const logDatabaseTime = logger.isLevelEnabled('debug');
   app.use(
     pinoHttp({
       logger,
       autoLogging: { ignore: (req) => req.url === '/api/health' },
       serializers: { req: (req: { url: string }) => Object.assign(req, { url: redactUrl(req.url) }) },
+      // At debug level each request's line says how many database round trips it made and their time.
+      customProps: (_req, res) =>
+        logDatabaseTime && res.locals?.databaseTime ? { database: res.locals.databaseTime } : {},
     }),
   );
+  if (logDatabaseTime) app.use(countDatabaseTime);
   app.use(securityHeaders(secure));
   app.use(
     '/api',

@@ -18,6 +18,8 @@ const env = {
   ...process.env,
   ...(database ? { DATABASE_URL: database.url, HALFLIGHT_DEMO_DATA: process.env.HALFLIGHT_DEMO_DATA ?? 'true' } : {}),
   HALFLIGHT_PUBLIC_URL: process.env.HALFLIGHT_PUBLIC_URL ?? 'http://127.0.0.1:5173',
+  // One API process restarts fastest on each change; several web workers are for production.
+  HALFLIGHT_WORKERS: process.env.HALFLIGHT_WORKERS ?? '1',
 };
 const children: ChildProcess[] = [
   spawn('npx', ['tsx', 'watch', '--clear-screen=false', 'server/index.ts'], { stdio: 'inherit', env }),

@@ -22,13 +22,8 @@ export function createPassport(): InstanceType<typeof Passport> {
     }),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  passport.deserializeUser(async (id: string, done) => {
-    try {
-      const user = await User.findByPk(id, { attributes: ['id'] });
-      done(null, user ? { id: user.id } : false);
-    } catch (error) {
-      done(error);
-    }
-  });
+  // The session row is the proof of sign-in (signing out or ending a session deletes it), so the id
+  // is taken as it is: no query per request. Routes that need the person or a lab look them up.
+  passport.deserializeUser((id: string, done) => done(null, { id }));
   return passport;
 }

@@ -10,15 +10,23 @@ import { resolveSessionSecret } from '../lib/session-secret';
 import { startMailCatcher } from '../mail/catcher';
 import type { MailCatcher } from '../mail/catcher';
 import { createMailer } from '../mail/mailer';
+import type { Mailer } from '../mail/mailer';
 import { fileStoreFromConfig } from '../services/studies/files/file-store-config';
 
 /** How long requests in progress may take to finish once stopping has begun. */
 const drainMs = 10_000;
 
+/** The mailer of a process that only queues mail: the job worker of another process sends it. */
+const queueOnlyMailer: Mailer = {
+  send: () => Promise.reject(new Error('This process only queues mail; the job worker sends it.')),
+  close: () => {},
+};
+
 /**
  * The web server of one process: mail, the job queue, the Express app and the listener. `stop`
  * stops taking connections, lets requests in progress finish (at most 10 s) and closes what it
- * opened (the job worker gets its own 10 s to finish a running job).
+ * opened (the job worker gets its own 10 s to finish a running job). With several web workers,
+ * only the one that runs the jobs (`runsJobs`) sends mail and runs the local mail catcher.
  */
 export async function startWeb(options: {
   config: AppConfig;
@@ -26,10 +34,13 @@ export async function startWeb(options: {
   databaseUrl: string;
   embeddedDatabase: boolean;
   logger: Logger;
+  /** Run the job worker (and the mail catcher when there is no SMTP_URL) here; default HALFLIGHT_JOB_WORKER. */
+  runsJobs?: boolean;
 }): Promise<{ stop(): Promise<void> }> {
   const { config, logger } = options;
+  const runsJobs = options.runsJobs ?? config.HALFLIGHT_JOB_WORKER;
   let catcher: MailCatcher | undefined;
-  if (!config.SMTP_URL) {
+  if (!config.SMTP_URL && runsJobs) {
     const emlDir = path.join(config.HALFLIGHT_DATA_DIR, 'caught-mail');
     catcher = await startMailCatcher({ emlDir, logger });
     const where = `caught on 127.0.0.1:${catcher.port}, written under ${emlDir} and shown in the app to each addressee`;
@@ -40,9 +51,11 @@ export async function startWeb(options: {
       );
     }
   }
-  const mailer = config.SMTP_URL
-    ? createMailer(config.SMTP_URL, config.MAIL_FROM)
-    : createMailer(catcher!.url, config.MAIL_FROM, { tagForCatcher: true });
+  const mailer = !runsJobs
+    ? queueOnlyMailer
+    : config.SMTP_URL
+      ? createMailer(config.SMTP_URL, config.MAIL_FROM)
+      : createMailer(catcher!.url, config.MAIL_FROM, { tagForCatcher: true });
   const app = createApp({
     sequelize: options.sequelize,
     embeddedDatabase: options.embeddedDatabase,
@@ -50,11 +63,11 @@ export async function startWeb(options: {
     databaseUrl: options.databaseUrl,
     sessionSecret: resolveSessionSecret(config.SESSION_SECRET, config.HALFLIGHT_DATA_DIR),
     mailer,
-    mailCatcher: catcher !== undefined,
+    mailCatcher: !config.SMTP_URL,
     publicUrl: config.publicUrl,
     behindTls: config.HALFLIGHT_BEHIND_TLS,
     trustProxy: config.trustProxy,
-    jobWorker: config.HALFLIGHT_JOB_WORKER,
+    jobWorker: runsJobs,
     files: fileStoreFromConfig(config).files,
   });
   let server: Server | undefined;

@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
@@ -43,6 +44,7 @@ const envSchema = z.object({
       'must be a number of proxy hops (e.g. 1) or a comma-separated list of proxy addresses or subnets',
     )
     .optional(),
+  HALFLIGHT_WORKERS: z.coerce.number().int().min(1, 'must be 1 or more').max(64).optional(),
   HALFLIGHT_PUBLIC_URL: z
     .string()
     .regex(/^https?:\/\//, 'must start with http:// or https://')
@@ -65,6 +67,8 @@ export type AppConfig = z.infer<typeof envSchema> & {
   demoData: boolean;
   publicUrl: string;
   trustProxy: number | string[] | false;
+  /** Web processes to run (HALFLIGHT_WORKERS). */
+  workers: number;
 };
 
 /** HALFLIGHT_TRUST_PROXY: a hop count, or the proxies' addresses and subnets; unset trusts none. */
@@ -105,6 +109,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     ...config,
     demoData: config.HALFLIGHT_DEMO_DATA ?? config.DATABASE_URL === undefined,
     trustProxy,
+    // One web process per core, at most four (each holds its own database connections).
+    workers: config.HALFLIGHT_WORKERS ?? Math.min(os.availableParallelism(), 4),
     publicUrl: (config.HALFLIGHT_PUBLIC_URL ?? `http://${shownHost}:${config.PORT}`).replace(/\/$/, ''),
   };
 }

@@ -16,6 +16,8 @@ export async function startProductionServer(options: {
   port: number;
   pgPort: number;
   nodeArgs?: string[];
+  /** Also write everything the server prints to this file. */
+  logFile?: string;
 }) {
   const entry = path.join(options.projectRoot, 'dist', 'server', 'index.js');
   if (!fs.existsSync(entry)) throw new Error(`${entry} is missing: run "npm run build" first.`);
@@ -36,7 +38,9 @@ export async function startProductionServer(options: {
   // Keep the start of the output (where the cluster folder is named) and its last part.
   let head = '';
   let tail = '';
+  const log = options.logFile ? fs.createWriteStream(options.logFile) : undefined;
   const take = (chunk: Buffer) => {
+    log?.write(chunk);
     const text = chunk.toString();
     if (head.length < 20_000) head += text;
     tail = (tail + text).slice(-20_000);

@@ -17,7 +17,8 @@
  * alone at 50 connections), BENCH_LOAD_CPU_PROF=<folder> (the server runs with --cpu-prof and
  * writes one .cpuprofile per process there), BENCH_LOAD_PROJECT=<folder> (serve another checkout's
  * build, e.g. a worktree of an older commit, with this benchmark). HALFLIGHT_WORKERS and LOG_LEVEL
- * reach the server; BENCH_LOAD_DEBUG=1 prints the status codes of each phase and the server's output.
+ * reach the server; BENCH_LOAD_SERVER_LOG=<file> keeps
+ * the server's output (with LOG_LEVEL=debug each request's line has its database time); BENCH_LOAD_DEBUG=1 prints the status codes of each phase and the server's output.
  */
 import fs from 'node:fs';
 import os from 'node:os';
@@ -94,6 +95,7 @@ async function main() {
     dataDir,
     port: await freePort(),
     pgPort: await freePort(),
+    logFile: process.env.BENCH_LOAD_SERVER_LOG,
     nodeArgs: cpuProfileDir ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(cpuProfileDir)}`] : [],
   });
   try {

@@ -2,7 +2,23 @@ import { Op, type Order, type WhereOptions } from 'sequelize';
 import type { ListStudiesQuery, StudyList } from '@shared/schemas/studies';
 import type { LabContext } from '../../domain/lab-context';
 import { Compound, Study, User } from '../../models';
-import { toSummary } from './study-serialize';
+import { toSummary, type SummaryRow } from './study-serialize';
+
+const summaryColumns = [
+  'id',
+  'title',
+  'emitterId',
+  'quencherId',
+  'solventId',
+  'customSolventName',
+  'status',
+  'revision',
+  'ownerId',
+  'kSv',
+  'kq',
+  'flagged',
+  'updatedAt',
+] as const satisfies readonly (keyof Study)[];
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, '\\$&');
 
@@ -43,17 +59,24 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
             ['updatedAt', direction],
             ['id', 'ASC'],
           ];
-  const { rows, count } = await Study.findAndCountAll({
-    where,
-    include: [
-      { model: Compound, as: 'emitter', attributes: ['id', 'name'] },
-      { model: Compound, as: 'quencher', attributes: ['id', 'name'] },
-      { model: User, as: 'owner', attributes: ['id', 'name'] },
-    ],
-    order,
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
-    distinct: true,
-  });
+  // The joins are to-one and never change the count, so it counts studies alone (no DISTINCT over
+  // joined rows); the page comes back as plain rows, without building a model instance per row.
+  const [rows, count] = await Promise.all([
+    Study.findAll({
+      where,
+      attributes: [...summaryColumns],
+      include: [
+        { model: Compound, as: 'emitter', attributes: ['id', 'name'] },
+        { model: Compound, as: 'quencher', attributes: ['id', 'name'] },
+        { model: User, as: 'owner', attributes: ['id', 'name'] },
+      ],
+      order,
+      limit: query.pageSize,
+      offset: (query.page - 1) * query.pageSize,
+      raw: true,
+      nest: true,
+    }) as unknown as Promise<SummaryRow[]>,
+    Study.count({ where }),
+  ]);
   return { items: rows.map(toSummary), total: count, page: query.page, pageSize: query.pageSize };
 }

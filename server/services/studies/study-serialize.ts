@@ -38,7 +38,25 @@ export const settingsOf = (study: Study): StudySettings => ({
   notes: study.notes,
 });
 
-export const toSummary = (study: Study): StudySummary => ({
+/** What a list row needs of a study (a model instance or a plain row with the same names). */
+export type SummaryRow = Pick<
+  Study,
+  | 'id'
+  | 'title'
+  | 'emitterId'
+  | 'quencherId'
+  | 'solventId'
+  | 'customSolventName'
+  | 'status'
+  | 'revision'
+  | 'ownerId'
+  | 'kSv'
+  | 'kq'
+  | 'flagged'
+  | 'updatedAt'
+> & { emitter?: { name: string } | null; quencher?: { name: string } | null; owner?: { name: string } | null };
+
+export const toSummary = (study: SummaryRow): StudySummary => ({
   id: study.id,
   title: study.title,
   emitter: { id: study.emitterId, name: study.emitter?.name ?? '' },
