@@ -1,6 +1,7 @@
 import { fileURLToPath, URL } from 'node:url';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { compression } from 'vite-plugin-compression2';
 import { defineConfig } from 'vitest/config';
 
 const alias = {
@@ -12,7 +13,13 @@ const alias = {
 const apiPort = process.env.PORT ?? '4310';
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  // Brotli and gzip copies of every text asset, made once at build so the server never compresses
+  // them per request (server/app.ts serves the copy the browser accepts).
+  plugins: [
+    react(),
+    tailwindcss(),
+    compression({ algorithms: ['brotliCompress', 'gzip'], threshold: 1024, logLevel: 'silent' }),
+  ],
   resolve: { alias },
   server: {
     host: '127.0.0.1',

@@ -1,7 +1,11 @@
 import fs from 'node:fs';
+import type { ServerResponse } from 'node:http';
 import path from 'node:path';
+import zlib from 'node:zlib';
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import express from 'express';
+import expressStaticGzip from 'express-static-gzip';
 import type { Request, RequestHandler, Response } from 'express';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
@@ -94,6 +98,22 @@ export interface HalflightApp extends express.Express {
   closeResources(): Promise<void>;
 }
 
+const apiCompression = compression({
+  threshold: 1024,
+  level: zlib.constants.Z_BEST_SPEED,
+  brotli: { params: { [zlib.constants.BROTLI_PARAM_QUALITY]: 4 } },
+});
+
+/**
+ * Vite names every file under assets/ after a hash of its content, so a changed file has a new
+ * name: those are cached for a year and never revalidated. Everything else (fonts at fixed names,
+ * favicon) is revalidated each time.
+ */
+const staticCacheHeaders = (clientDir: string) => (res: ServerResponse, filePath: string) => {
+  const immutable = path.relative(clientDir, filePath).startsWith(`assets${path.sep}`);
+  res.setHeader('Cache-Control', immutable ? 'public, max-age=31536000, immutable' : 'no-cache');
+};
+
 function accessGuards(access: RouteAccess): RequestHandler[] {
   if (access === 'public') return [];
   if (access === 'signed-in') return [requireAuth];
@@ -165,6 +185,12 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   );
   if (logDatabaseTime) app.use(countDatabaseTime);
   app.use(securityHeaders(secure));
+  // API answers: gzip or brotli (fast settings) above 1 KB when the client accepts it. Each answer
+  // is private to the person and revalidated with its ETag (304 when unchanged), never stored by proxies.
+  app.use('/api', apiCompression, (_req, res, next) => {
+    res.setHeader('Cache-Control', 'private, no-cache');
+    next();
+  });
   app.use(
     '/api',
     express.json({ limit: '1mb' }),
@@ -183,7 +209,14 @@ export function createApp(options: CreateAppOptions): HalflightApp {
 
   const clientDir = options.clientDir ?? path.join(projectRoot, 'dist', 'client');
   const indexHtml = path.join(clientDir, 'index.html');
-  app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+  app.use(
+    expressStaticGzip(clientDir, {
+      index: false,
+      enableBrotli: true,
+      orderPreference: ['br', 'gzip'],
+      serveStatic: { setHeaders: staticCacheHeaders(clientDir) },
+    }),
+  );
   // Client-side routes (anything not under /api) get the single-page app.
   app.get(/^(?!\/api(\/|$)).*/, (_req, res) => {
     if (fs.existsSync(indexHtml)) {
