@@ -12,7 +12,10 @@ import { createStudy } from '../support/studies';
 const folders: string[] = [];
 afterAll(() => folders.forEach((folder) => fs.rmSync(folder, { recursive: true, force: true })));
 
-/** A fresh data folder and free ports: the production server with its own built-in cluster. */
+/**
+ * A fresh data folder and free ports: the production server with its own built-in cluster, as a
+ * primary with two web workers (so the cluster is started and stopped by the primary alone).
+ */
 async function startWithOwnCluster(demoData = false) {
   const dataRoot = fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-start-'));
   folders.push(dataRoot);
@@ -20,6 +23,7 @@ async function startWithOwnCluster(demoData = false) {
     HALFLIGHT_DATA_DIR: dataRoot,
     HALFLIGHT_PG_PORT: String(await freePort()),
     HALFLIGHT_DEMO_DATA: String(demoData),
+    HALFLIGHT_WORKERS: '2',
   });
   return { server, dataRoot, pgdata: path.join(dataRoot, 'pgdata') };
 }
@@ -62,6 +66,8 @@ describe('npm start (compiled server under plain node)', { timeout: 240_000 }, (
     const search = await client.get(`/api/labs/${labId}/studies?q=compiled`);
     expect(search.status, JSON.stringify(search.body)).toBe(200);
     expect(search.body.total).toBe(1);
+    // Two web workers serve; one PostgreSQL (one postmaster) serves them both.
+    expect(started.server.output()).toContain('2 web workers are serving');
     expect(postgresProcessesOf(started.pgdata)).toHaveLength(1);
     // The serving process is node itself running JavaScript: no TypeScript loader in between.
     const commandLine = fs.readFileSync(`/proc/${started.server.child.pid}/cmdline`, 'utf8').split('\0');

@@ -83,15 +83,18 @@ describe('several web processes on one database', { timeout: 240_000 }, () => {
     const writer = async (lane: number) => {
       for (let i = 0; writing; i++) {
         try {
-          const response = await client.post(`/api/labs/${labId}/studies`, {
-            title: `Worker kill ${lane}-${i}`,
-            emitterId: emitter.id,
-            quencherId: quencher.id,
-            solventId: 'acetonitrile',
-            atmosphere: 'argon',
-            degassingMethod: 'sparging',
-            tau0: 1e-6,
-          });
+          // A bound on each write: a connection handed to the worker as it died must not hang the test.
+          const response = await client
+            .post(`/api/labs/${labId}/studies`, {
+              title: `Worker kill ${lane}-${i}`,
+              emitterId: emitter.id,
+              quencherId: quencher.id,
+              solventId: 'acetonitrile',
+              atmosphere: 'argon',
+              degassingMethod: 'sparging',
+              tau0: 1e-6,
+            })
+            .timeout(15_000);
           if (response.status === 201) accepted.push(response.body.id as string);
           else refusals.push(`${response.status} ${JSON.stringify(response.body)}`);
         } catch (error) {
@@ -102,10 +105,13 @@ describe('several web processes on one database', { timeout: 240_000 }, () => {
     };
     /** Waits until `count` writes were accepted; stops the writers and fails if writes keep being refused. */
     const acceptedReaches = async (count: number) => {
+      const deadline = Date.now() + 60_000;
       while (accepted.length < count) {
-        if (refusals.length > 20) {
+        if (refusals.length > 20 || Date.now() > deadline) {
           writing = false;
-          throw new Error(`Writes refused:\n${refusals.slice(0, 5).join('\n')}`);
+          throw new Error(
+            `${accepted.length} of ${count} writes accepted; refused:\n${refusals.slice(0, 5).join('\n')}\n${workers.output().slice(-3000)}`,
+          );
         }
         await sleep(50);
       }
@@ -128,7 +134,9 @@ describe('several web processes on one database', { timeout: 240_000 }, () => {
     await reader.signIn(researcher);
     for (const id of accepted) expect((await reader.get(`/api/labs/${labId}/studies/${id}`)).status).toBe(200);
     const listed = await reader.get(`/api/labs/${labId}/studies?q=${encodeURIComponent('Worker kill')}&pageSize=100`);
-    expect(listed.body.total).toBe(accepted.length);
+    // A write the dying worker committed but could not answer may be there too (never more than were sent).
+    expect(listed.body.total).toBeGreaterThanOrEqual(accepted.length);
+    expect(listed.body.total).toBeLessThanOrEqual(accepted.length + refusals.length);
     expect(refusals.length).toBeLessThan(accepted.length);
   });
 });
