@@ -139,12 +139,16 @@ export async function updateStudy(
 
 export async function getStudyDetail(lab: LabContext, studyId: string): Promise<StudyDetail> {
   const study = await loadStudyWithNames(lab, studyId);
+  // Plain rows (raw, nested includes): the answer is built from their fields, so Sequelize need not
+  // make model instances of every point, upload and review (its largest cost per read).
   const [points, latestFit, uploads, reviews, next] = await Promise.all([
-    StudyPoint.findAll({ where: { studyId }, order: [['position', 'ASC']] }),
+    StudyPoint.findAll({ where: { studyId }, order: [['position', 'ASC']], raw: true }),
     study.latestFitId
       ? StudyFit.findOne({
           where: { id: study.latestFitId },
           include: [{ model: User, as: 'createdBy', attributes: ['name'] }],
+          raw: true,
+          nest: true,
         })
       : null,
     StudyUpload.findAll({
@@ -152,13 +156,17 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
       attributes: { exclude: ['content'] },
       include: [{ model: User, as: 'uploadedBy', attributes: ['name'] }],
       order: [['createdAt', 'DESC']],
+      raw: true,
+      nest: true,
     }),
     StudyReview.findAll({
       where: { studyId },
       include: [{ model: User, as: 'author', attributes: ['name'] }],
       order: [['createdAt', 'ASC']],
+      raw: true,
+      nest: true,
     }),
-    Study.findOne({ where: { previousRevisionId: studyId, labId: lab.id }, attributes: ['id'] }),
+    Study.findOne({ where: { previousRevisionId: studyId, labId: lab.id }, attributes: ['id'], raw: true }),
   ]);
   return {
     ...settingsOf(study),
