@@ -41,7 +41,13 @@ export { compareStaticDynamic, type StaticDynamicComparison } from './stern-volm
 export { screenSeries, type SeriesScreen } from './stern-volmer/screen-series';
 
 export { SOLVENTS, getSolvent, type SolventId, type SolventProperties } from './kinetics/solvents';
-export { diffusionRateConstant, solventDiffusionLimit } from './kinetics/diffusion-rate-constant';
+export {
+  diffusionRateConstant,
+  solventDiffusionLimit,
+  solventDiffusionLimitAt,
+  type SolventDiffusionLimit,
+} from './kinetics/diffusion-rate-constant';
+export { viscosityAt, type ViscosityAtTemperature, type ViscosityCorrelation } from './kinetics/viscosity-correlation';
 export { quenchingRateConstant, type QuenchingRateConstant } from './kinetics/quenching-rate-constant';
 export { quenchingFractions, type QuenchingFractions, type QuenchingShare } from './kinetics/quenching-fractions';
 export { rehmWellerRateConstant, REHM_WELLER_KD_OVER_KZ } from './kinetics/rehm-weller-rate-constant';

@@ -1,9 +1,8 @@
 import {
   diffusionRateConstant,
   EngineError,
-  getSolvent,
   quenchingRateConstant,
-  solventDiffusionLimit,
+  solventDiffusionLimitAt,
   studentTQuantile975,
   type ParameterEstimate,
   type QualityFlag,
@@ -21,8 +20,9 @@ export interface KineticsSettings {
 }
 
 /**
- * Diffusion limit k_diff = 8RT/(3 eta) for the study: the entered viscosity at the study's
- * temperature when there is one, else the engine's 25 °C table value for the solvent.
+ * Diffusion limit k_diff = 8RT/(3 eta) for the study at its own temperature: the entered
+ * viscosity when there is one (a single value, taken as measured at the study's temperature),
+ * else eta(T) from the solvent's handbook correlation, with a note outside its valid range.
  */
 export function diffusionLimitFor(
   settings: KineticsSettings,
@@ -30,18 +30,16 @@ export function diffusionLimitFor(
 ): { value: number; basis: string } | null {
   if (settings.customViscosity !== null) {
     const value = diffusionRateConstant(settings.customViscosity, settings.temperature);
-    return { value, basis: `entered viscosity ${settings.customViscosity} Pa s at ${settings.temperature} K` };
+    return {
+      value,
+      basis: `entered viscosity ${settings.customViscosity} Pa s, taken as measured at ${settings.temperature} K`,
+    };
   }
   if (!settings.solventId) return null;
   try {
-    const value = solventDiffusionLimit(settings.solventId);
-    const solvent = getSolvent(settings.solventId);
-    if (Math.abs(settings.temperature - 298.15) > 0.5) {
-      notes.push(
-        `The diffusion limit uses the 25 °C viscosity of ${solvent.name}; enter the viscosity at ${settings.temperature} K for a closer limit.`,
-      );
-    }
-    return { value, basis: `${solvent.name} at 25 °C (${solvent.viscositySource})` };
+    const limit = solventDiffusionLimitAt(settings.solventId, settings.temperature);
+    if (limit.warning) notes.push(`Diffusion limit: ${limit.warning}.`);
+    return { value: limit.value, basis: limit.basis };
   } catch (error) {
     if (error instanceof EngineError) {
       notes.push(`No diffusion limit: ${error.message}`);

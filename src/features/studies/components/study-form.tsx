@@ -124,7 +124,7 @@ export function StudyForm({ options, study, preset, submitLabel, onSubmit }: Pro
       ) : (
         <TextField
           label="Viscosity override (mPa s)"
-          hint="Leave empty to use the 25 °C table value"
+          hint="Leave empty to use the handbook η at the study temperature"
           error={e('customViscosityMilli')}
           {...register('customViscosityMilli')}
           className="md:col-span-2"
