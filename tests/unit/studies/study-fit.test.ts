@@ -49,9 +49,18 @@ describe('points -> engine', () => {
     expect(fit.kSv).toBeCloseTo(500, 6);
     expect(fit.kq).toBeCloseTo(5e8, -1);
     expect(fit.result.reference).toMatchObject({ kind: 'i0', value: 1000 });
-    // k_diff = 8RT/(3 eta) with eta(MeCN, 25 °C) = 0.342 mPa s: 8 * 8.314462618 * 298.15 / (3 * 0.342e-3) * 1000 = 1.9327e10 (hand-computed)
-    expect(fit.result.diffusionLimit!.value).toBeCloseTo(1.9327e10, -7);
-    expect(fit.result.diffusionLimit!.ratio).toBeCloseTo(5e8 / 1.9327e10, 4);
+    // k_diff = 8RT/(3 eta) with eta(MeCN, 25 °C) = exp(-10.906 + 872.02/298.15) Pa s = 0.34182 mPa s
+    // (Perry 8th ed. Table 2-313): 8 * 8.314462618 * 298.15 / (3 * 0.34182e-3) * 1000 = 1.9339e10 (hand-computed)
+    expect(fit.result.diffusionLimit!.value).toBeCloseTo(1.9339e10, -7);
+    expect(fit.result.diffusionLimit!.ratio).toBeCloseTo(5e8 / 1.9339e10, 4);
+  });
+
+  it('when the study runs at 50 °C, then k_diff uses the viscosity at 50 °C, not at 25 °C', () => {
+    const fit = computeStudyFit({ ...settings, temperature: 323.15 }, exact, 'linear-free');
+    // 8RT/(3 eta) with eta(MeCN, 50 °C) = 0.2801 mPa s (VDI Heat Atlas PPDS eq. 9, CalebBell/chemicals
+    // coefficients): 7164.9 / 0.2801e-3 * 1000 = 2.558e10; Perry's 0.2726 gives 2.628e10 (3 % apart)
+    expect(Math.abs(fit.result.diffusionLimit!.value / 2.558e10 - 1)).toBeLessThan(0.03);
+    expect(fit.result.diffusionLimit!.basis).toMatch(/323\.15 K/);
   });
 
   it('when the points scatter, then the free-intercept slope equals simple-statistics linearRegression on (Q, I0/I)', () => {
