@@ -96,3 +96,11 @@ export { meanLifetimes } from './decays/mean-lifetimes';
 export { prepareResponse, type PreparedResponse } from './decays/prepare-response';
 export { evaluateDecayModel, decayWorkspace, type DecayModelSetup } from './decays/decay-model';
 export type { DecayComponent, DecayEstimate, DecayFit, DecayFitOptions, DecayInput } from './decays/decay-types';
+
+export { fitActivation, type ActivationFit } from './mechanism/fit-activation';
+export {
+  analyseTemperatureSeries,
+  type TemperaturePoint,
+  type TemperatureSeriesAnalysis,
+  type TemperatureVerdict,
+} from './mechanism/analyse-temperature-series';
