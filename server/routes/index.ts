@@ -9,6 +9,7 @@ import { dashboardRoutes } from './dashboard.routes';
 import { fileReadingRoutes } from './file-reading.routes';
 import { invitationRoutes } from './invitations.routes';
 import { librarySettingsRoutes } from './library-settings.routes';
+import { mechanismRoutes } from './mechanism.routes';
 import { memberRoutes } from './members.routes';
 import { plannerRoutes } from './planner.routes';
 import { reportRoutes } from './reports.routes';
@@ -37,6 +38,7 @@ export const apiRoutes: AnyRouteSpec[] = [
   ...plannerRoutes,
   ...scenarioRoutes,
   ...comparisonRoutes,
+  ...mechanismRoutes,
   ...dashboardRoutes,
   ...reportRoutes,
   ...compoundRoutes,

@@ -201,6 +201,14 @@ const matrix: Record<string, Row> = {
     path: ({ labId }) => `/api/labs/${labId}/scenarios/${unknownId}`,
     expected: labRoute('researcher', 404),
   },
+  'GET /api/labs/:labId/temperature-series': {
+    path: ({ labId }) => `/api/labs/${labId}/temperature-series`,
+    expected: labRoute('viewer', 200),
+  },
+  'GET /api/labs/:labId/temperature-series/analysis': {
+    path: ({ labId }) => `/api/labs/${labId}/temperature-series/analysis?studies=${unknownId}`,
+    expected: labRoute('viewer', 404),
+  },
   // Studies (issue 5): unknown study ids end in 404, incomplete bodies in 400.
   'GET /api/labs/:labId/studies': {
     path: ({ labId }) => `/api/labs/${labId}/studies`,

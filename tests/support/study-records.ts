@@ -19,6 +19,8 @@ export function createStudyRecord(input: {
   kSv?: number | null;
   status?: 'draft' | 'submitted' | 'approved' | 'returned';
   solventId?: string;
+  /** K, default 298.15 */
+  temperature?: number;
 }) {
   return Study.create({
     labId: input.labId,
@@ -28,7 +30,7 @@ export function createStudyRecord(input: {
     solventId: input.solventId ?? 'acetonitrile',
     customSolventName: null,
     customViscosity: null,
-    temperature: 298.15,
+    temperature: input.temperature ?? 298.15,
     excitationWavelength: 450,
     emissionWavelength: 600,
     windowStart: null,
