@@ -22,6 +22,7 @@ import { RootLayout } from '@/routes/root-layout';
 import { RouteErrorScreen } from '@/routes/route-error';
 import { ScenarioRoute } from '@/routes/scenario';
 import { ScenariosRoute } from '@/routes/scenarios';
+import { TemperatureSeriesRoute } from '@/routes/temperature-series';
 import { bootstrapSessionLoader, requireSessionLoader } from '@/routes/session-loaders';
 import { SignInRoute } from '@/routes/sign-in';
 import { StudiesRoute } from '@/routes/studies';
@@ -77,6 +78,7 @@ export const appRoutes: RouteObject[] = [
           screen(at.planner, <PlannerRoute />),
           screen(at.compare, <CompareRoute />),
           screen(at.scenarios, <ScenariosRoute />),
+          screen(at.temperatureSeries, <TemperatureSeriesRoute />),
           screen(at.scenario, <ScenarioRoute />),
         ],
       },

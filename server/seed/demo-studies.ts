@@ -1,4 +1,5 @@
 import type { Transaction } from 'sequelize';
+import { getSolvent, viscosityAt } from '@shared/engine';
 import type { FitModel } from '@shared/schemas/studies';
 import { Study, StudyPoint, StudyReview, type Lab, type User } from '../models';
 import { refitStudy } from '../services/studies/study-fitting.service';
@@ -39,6 +40,8 @@ export interface DemoStudy {
   emitter: string;
   quencher: string;
   solventId: string;
+  /** K, default 298.15 */
+  temperature?: number;
   owner: Person;
   /** the lifetime record of the emitter, or a tau0 typed in s (e.g. measured in another solvent) */
   tau0: 'record' | { value: number; uncertainty: number };
@@ -281,6 +284,57 @@ export const demoStudies: DemoStudy[] = [
   },
 ];
 
+/** T/eta(T) in acetonitrile relative to 25 °C: how a diffusion-controlled constant scales. */
+function diffusionScale(temperature: number): number {
+  const correlation = getSolvent('acetonitrile').viscosityCorrelation!;
+  const at = (t: number) => t / viscosityAt(correlation, t).value;
+  return at(temperature) / at(298.15);
+}
+
+const celsius = (kelvin: number) => Math.round(kelvin - 273.15);
+
+/*
+ * Two temperature series in MeCN (thermostatted cell, invented): HL-Ir-7 with Q-amine-3 beside
+ * the 25 °C studies above (dynamic: K_SV follows T/eta), and HL-Ru-4 with Q-aryl-Br-1, a
+ * ground-state pair whose constant falls on warming as for dH = -18 kJ/mol (static). tau0 is the
+ * 25 °C record in both: the demo keeps the lifetime fixed so kq follows K_SV.
+ */
+const temperatureSeries: DemoStudy[] = [
+  ...[283.15, 313.15, 328.15].map((temperature, i): DemoStudy => ({
+    key: `ir-amine-${temperature}`,
+    title: `Demo: HL-Ir-7 (iridium) with the amine Q-amine-3 at ${celsius(temperature)} °C`,
+    emitter: 'HL-Ir-7',
+    quencher: 'Q-amine-3',
+    solventId: 'acetonitrile',
+    temperature,
+    owner: 'ines',
+    tau0: 'record',
+    model: 'linear-free',
+    series: { concentrations: evenly(4e-3, 7), ratio: line(1600 * diffusionScale(temperature)) },
+    notes: 'Demo data: temperature series in a thermostatted cell, ±0.1 K (invented).',
+    story: { started: 8 - i },
+  })),
+  ...[283.15, 298.15, 313.15, 328.15].map((temperature, i): DemoStudy => ({
+    key: `ru-aryl-bromide-${temperature}`,
+    title: `Demo: HL-Ru-4 (ruthenium) with the aryl bromide Q-aryl-Br-1 at ${celsius(temperature)} °C`,
+    emitter: 'HL-Ru-4',
+    quencher: 'Q-aryl-Br-1',
+    solventId: 'acetonitrile',
+    temperature,
+    owner: 'ines',
+    tau0: 'record',
+    model: 'linear-free',
+    series: {
+      concentrations: evenly(5e-3, 7),
+      ratio: line(
+        12 * diffusionScale(temperature) + 180 * Math.exp((18_000 / 8.314462618) * (1 / temperature - 1 / 298.15)),
+      ),
+    },
+    notes: 'Demo data: temperature series; the pair also changes the absorption spectrum (invented).',
+    story: { started: 12 - i },
+  })),
+];
+
 function points(studyId: string, series: Series) {
   const wobble = series.wobble ?? WOBBLE;
   let added = 0;
@@ -326,7 +380,7 @@ export async function seedDemoStudies(
     if (!found) throw new Error(`The demo library has no compound named ${name}.`);
     return found;
   };
-  for (const demo of demoStudies) {
+  for (const demo of [...demoStudies, ...temperatureSeries]) {
     const owner = people[demo.owner];
     const actor = { userId: owner.id, ip: null };
     const record = demo.tau0 === 'record' ? library.lifetimes[demo.emitter] : null;
@@ -342,7 +396,7 @@ export async function seedDemoStudies(
         solventId: demo.solventId,
         customSolventName: null,
         customViscosity: null,
-        temperature: 298.15,
+        temperature: demo.temperature ?? 298.15,
         excitationWavelength: 420,
         emissionWavelength: null,
         windowStart: 470,

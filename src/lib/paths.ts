@@ -24,6 +24,7 @@ export const routePatterns = {
   compare: 'compare',
   scenarios: 'scenarios',
   scenario: 'scenarios/:scenarioId',
+  temperatureSeries: 'temperature',
 } as const;
 
 type Query = Record<string, string | number | boolean | null | undefined>;
@@ -64,6 +65,9 @@ export const paths = {
   scenarios: (labId: string) => inLab(labId, 'scenarios'),
   newScenario: (labId: string) => inLab(labId, 'scenarios/new'),
   scenario: (labId: string, scenarioId: string) => inLab(labId, `scenarios/${encodeURIComponent(scenarioId)}`),
+  /** `studyIds` are the studies read as one series; none lists the lab's candidate series. */
+  temperatureSeries: (labId: string, studyIds?: string[]) =>
+    withQuery(inLab(labId, 'temperature'), { studies: studyIds?.join(',') }),
   /** The same kind of screen in another lab (the lab switcher): `screen` is a first segment under the lab. */
   labScreen: (labId: string, screen: string) => inLab(labId, screen),
 } as const;

@@ -29,6 +29,7 @@ export function RootLayout() {
     ...(lab && can(lab.role, 'members:view') ? [{ to: paths.members(lab.labId), label: 'Members' }] : []),
     ...(lab ? [{ to: paths.compare(lab.labId), label: 'Compare' }] : []),
     ...(lab ? [{ to: paths.scenarios(lab.labId), label: 'Who quenches?' }] : []),
+    ...(lab ? [{ to: paths.temperatureSeries(lab.labId), label: 'Temperature' }] : []),
     ...(lab ? [{ to: paths.planner(lab.labId), label: 'Planner' }] : []),
     ...(lab && can(lab.role, 'settings:manage') ? [{ to: paths.labSettings(lab.labId), label: 'Lab settings' }] : []),
     { to: paths.account(), label: 'Account' },

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Compound, Lab, Study, StudyFit } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
 import { demoCompoundFamilies } from '../../server/seed/demo-library';
+import { analyseSeries, listTemperatureSeries } from '../../server/services/mechanism/temperature-series.service';
 import { apiClient } from '../support/accounts';
 import { createTestApp } from '../support/test-app';
 
@@ -82,5 +83,15 @@ describe('seedDemoStudies', () => {
       expect(times[0]! - times.at(-1)!).toBeGreaterThan(24 * 3600 * 1000);
       expect(new Set(activity.map((event) => event.action)).size).toBeGreaterThanOrEqual(3);
     }
+  });
+
+  it('when the demo is loaded, then it holds one dynamic and one static temperature series', async () => {
+    const lab = await Lab.findOne({ where: { slug: demoLabs[0].slug } });
+    const context = { id: lab!.id, name: lab!.name, isDemo: true, role: 'viewer' as const, membershipId: '' };
+    const ready = (await listTemperatureSeries(context)).items.filter((group) => group.ready);
+    const verdicts = await Promise.all(
+      ready.map(async (group) => (await analyseSeries(context, group.studyIds)).verdict),
+    );
+    expect(verdicts.sort()).toEqual(['dynamic', 'static']);
   });
 });

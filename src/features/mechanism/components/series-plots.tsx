@@ -1,0 +1,93 @@
+import { Scatter } from 'react-chartjs-2';
+import { formatNumber, titled, UNITS } from '@shared/format';
+import type { TemperatureSeriesAnalysis } from '@shared/schemas/temperature-series';
+import { seriesColours } from './chart-setup';
+
+const tick = (value: number | string) => (typeof value === 'number' ? formatNumber(value) : value);
+const axis = (title: string) => ({
+  type: 'linear' as const,
+  title: { display: true, text: title },
+  grid: { color: seriesColours.grid },
+  ticks: { callback: tick },
+});
+
+/**
+ * K_SV(T) beside T/η(T) scaled to meet K_SV at the lowest temperature (dynamic quenching
+ * follows that curve), and the Arrhenius plot ln kq against 1000/T with its fitted line.
+ */
+export function SeriesPlots({ analysis }: { analysis: TemperatureSeriesAnalysis }) {
+  const first = analysis.points[0]!;
+  const scale = first.kSv.value / first.temperatureOverViscosity;
+  const arrhenius = analysis.arrhenius;
+  const withKq = analysis.points.filter((p) => p.kq !== null);
+  const inverse = withKq.map((p) => 1000 / p.temperature);
+  const line =
+    arrhenius && inverse.length > 1
+      ? [Math.min(...inverse), Math.max(...inverse)].map((x) => ({
+          x,
+          // ln kq = ln A − Ea/(R T), with 1/T = x/1000
+          y: arrhenius.lnPreExponentialFactor.value - (arrhenius.activationEnergy.value * x) / (1000 * 8.314462618),
+        }))
+      : [];
+  return (
+    <div className="grid gap-4 md:grid-cols-2">
+      <figure aria-label="K_SV against temperature" className="relative h-64">
+        <Scatter
+          data={{
+            datasets: [
+              {
+                label: 'K_SV',
+                data: analysis.points.map((p) => ({ x: p.temperature, y: p.kSv.value })),
+                backgroundColor: seriesColours.measured,
+                pointRadius: 5,
+              },
+              {
+                label: 'T/η, scaled (diffusion)',
+                data: analysis.points.map((p) => ({ x: p.temperature, y: p.temperatureOverViscosity * scale })),
+                borderColor: seriesColours.reference,
+                backgroundColor: seriesColours.reference,
+                showLine: true,
+                pointRadius: 2,
+              },
+            ],
+          }}
+          options={{
+            maintainAspectRatio: false,
+            animation: false,
+            scales: { x: axis(titled('T', UNITS.kelvin)), y: axis(titled('K_SV', UNITS.perMolar)) },
+          }}
+        />
+      </figure>
+      <figure aria-label="Arrhenius plot" className="relative h-64">
+        {withKq.length === 0 ? (
+          <p className="text-body text-ink-600">No kq: give τ0 at each temperature for the Arrhenius plot.</p>
+        ) : (
+          <Scatter
+            data={{
+              datasets: [
+                {
+                  label: 'ln kq',
+                  data: withKq.map((p) => ({ x: 1000 / p.temperature, y: Math.log(p.kq!.value) })),
+                  backgroundColor: seriesColours.measured,
+                  pointRadius: 5,
+                },
+                {
+                  label: 'Arrhenius fit',
+                  data: line,
+                  borderColor: seriesColours.second,
+                  showLine: true,
+                  pointRadius: 0,
+                },
+              ],
+            }}
+            options={{
+              maintainAspectRatio: false,
+              animation: false,
+              scales: { x: axis('1000 K / T'), y: axis(`ln(kq / ${UNITS.perMolarPerSecond})`) },
+            }}
+          />
+        )}
+      </figure>
+    </div>
+  );
+}
