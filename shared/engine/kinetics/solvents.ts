@@ -38,7 +38,7 @@ export interface SolventProperties {
 // CalebBell/chemicals (commit 82faef9). One source for all rows keeps them comparable.
 const CRC_FIT = 'CRC Handbook, Permittivity of Liquids (2014), fit at 298.15 K (CalebBell/chemicals digitisation)';
 // Viscosities: eta(T) from one handbook correlation per row, chosen where it reproduces the
-// confirmed 25 °C value best (check-values.md §1a); each row names its table and range of
+// handbook 25 °C value best (CRC, IAPWS 2008); each row names its table and range of
 // validity. Coefficients as digitised in CalebBell/chemicals (commit 82faef9,
 // chemicals/Viscosity/*.tsv). Perry's rows use DIPPR eq. 101 in Pa s; Viswanath–Natarajan's
 // rows the Vogel form log10(eta/mPa s) = A + B/(C - T).
@@ -83,7 +83,7 @@ export const SOLVENTS: Readonly<Record<SolventId, SolventProperties>> = {
     id: 'water',
     name: 'water',
     // Viswanath–Natarajan reproduces IAPWS 2008 within 0.4 % over 0–50 °C (0.8931 against
-    // 0.8900 mPa s at 25 °C); Perry's and VDI's water rows are 1–2.5 % off (check-values §1a).
+    // 0.8900 mPa s at 25 °C); Perry's and VDI's water rows are 1–2.5 % off at 25 °C.
     ...viscosityFields(viswanath([-1.5318, -220.57, 149.39], 270, 380)),
     permittivity: 78.36,
     permittivitySource: CRC_FIT,

@@ -10,75 +10,77 @@ const etaAt = (solvent: string, temperature: number): number =>
  * Each solvent's eta(T) (one handbook correlation, named in SOLVENTS) against a second,
  * independent handbook at three temperatures. Expected values are that second handbook's
  * correlation evaluated at T from its coefficient file in CalebBell/chemicals (commit 82faef9,
- * chemicals/Viscosity/*.tsv), or a point value of check-values.md §1a:
+ * chemicals/Viscosity/*.tsv) at T, or at 25 °C the value of a further handbook correlation:
  * - PPDS: VDI Heat Atlas, 2nd ed., "Dynamic viscosity of saturated liquids", PPDS eq. 9
  * - Perry: Perry's Chemical Engineers' Handbook, 8th ed., Table 2-313 (DIPPR eq. 101)
  * - VN: Viswanath & Natarajan, Data Book on the Viscosity of Liquids (1989), 3-term fit
- * Tolerance 3 %: check-values.md's suggestion for comparing different sources.
+ * - DDB: Dortmund Data Bank Vogel coefficients (as packaged in Deniz-Koseoglu/lcqc)
+ * - Dutt–Prasad: the Dutt–Prasad 3-term fit (CalebBell/chemicals)
+ * Tolerance 3 %: handbook correlations of one liquid commonly differ by 1–3 % (common practice).
  */
 const crossChecks: Record<string, Array<[temperature: number, mPaS: number, source: string]>> = {
   acetonitrile: [
     [273.15, 0.446, 'PPDS'],
-    [298.15, 0.349, 'PPDS (check-values §1a: 0.349)'],
+    [298.15, 0.349, 'PPDS'],
     [323.15, 0.2801, 'PPDS'],
   ],
   dmf: [
     [283.15, 0.9901, 'Perry'],
-    [298.15, 0.794, 'check-values §1a: 0.794 (VN, Dutt–Prasad 0.793)'],
+    [298.15, 0.794, '0.794 (VN; Dutt–Prasad 0.793)'],
     [313.15, 0.6858, 'Perry'],
   ],
   dmso: [
     [293.15, 2.1867, 'Perry'],
-    [298.15, 1.983, 'check-values §1a: Perry 1.983'],
+    [298.15, 1.983, 'Perry 1.983'],
     [323.15, 1.2894, 'Perry'],
   ],
   methanol: [
     [283.15, 0.6759, 'VN (within its 180–290 K range)'],
-    [298.15, 0.544, 'check-values §1a: 0.544 (VN, PPDS)'],
+    [298.15, 0.544, '0.544 (VN, PPDS)'],
     [313.15, 0.4421, 'PPDS'],
   ],
   ethanol: [
     [273.15, 1.7511, 'PPDS'],
-    [298.15, 1.062, 'check-values §1a: PPDS 1.062'],
+    [298.15, 1.062, 'PPDS 1.062'],
     [323.15, 0.683, 'PPDS'],
   ],
   dichloromethane: [
     [273.15, 0.533, 'VN'],
     [283.15, 0.4781, 'PPDS'],
-    [298.15, 0.413, 'check-values §1a: 0.413 (VN, PPDS)'],
+    [298.15, 0.413, '0.413 (VN, PPDS)'],
   ],
   '1,2-dichloroethane': [
     [273.15, 1.0902, 'PPDS'],
-    [298.15, 0.779, 'check-values §1a: 0.779 (VN, Dutt–Prasad)'],
+    [298.15, 0.779, '0.779 (VN, Dutt–Prasad)'],
     [323.15, 0.5756, 'PPDS'],
   ],
   acetone: [
     [273.15, 0.3987, 'Perry'],
-    [298.15, 0.305, 'check-values §1a: PPDS 0.305'],
+    [298.15, 0.305, 'PPDS 0.305'],
     [313.15, 0.2681, 'Perry'],
   ],
   toluene: [
     [273.15, 0.7779, 'PPDS'],
-    [298.15, 0.552, 'check-values §1a: PPDS 0.552'],
+    [298.15, 0.552, 'PPDS 0.552'],
     [323.15, 0.4153, 'PPDS'],
   ],
   benzene: [
     [283.15, 0.7293, 'PPDS'],
-    [298.15, 0.601, 'check-values §1a: DDB Vogel 0.601'],
+    [298.15, 0.601, 'DDB Vogel 0.601'],
     [323.15, 0.444, 'PPDS'],
   ],
   'ethyl-acetate': [
     [273.15, 0.572, 'PPDS'],
-    [298.15, 0.43, 'check-values §1a: Perry 0.430'],
+    [298.15, 0.43, 'Perry 0.430'],
     [323.15, 0.33, 'PPDS'],
   ],
   '1,4-dioxane': [
     [293.15, 1.2968, 'PPDS'],
-    [298.15, 1.187, 'check-values §1a: PPDS 1.187'],
+    [298.15, 1.187, 'PPDS 1.187'],
     [323.15, 0.8057, 'PPDS'],
   ],
   // No second handbook correlation for THF was found; one temperature only.
-  thf: [[298.15, 0.468, 'check-values §1a: DDB Vogel 0.468']],
+  thf: [[298.15, 0.468, 'DDB Vogel 0.468']],
 };
 
 describe('viscosity at temperature eta(T)', () => {
@@ -89,7 +91,7 @@ describe('viscosity at temperature eta(T)', () => {
   }
 
   it('water: IAPWS 2008 at 0, 25 and 50 °C within 1 %', () => {
-    expectClose(etaAt('water', 298.15), 0.89 * mPas, 0.005); // check-values §1a (IAPWS 2008, confirmed)
+    expectClose(etaAt('water', 298.15), 0.89 * mPas, 0.005); // IAPWS 2008 viscosity formulation at 0.1 MPa (CalebBell/chemicals mu_IAPWS)
     // IAPWS 2008 values at 0.1 MPa, 0 °C 1.7914 and 50 °C 0.5465 mPa s: from memory
     expectClose(etaAt('water', 273.15), 1.7914 * mPas, 0.01);
     expectClose(etaAt('water', 323.15), 0.5465 * mPas, 0.01);
