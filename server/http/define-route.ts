@@ -74,7 +74,8 @@ function plainIssues(issues: Issue[]): Issue[] {
   });
 }
 
-function parsePart<T>(schema: z.ZodType<T> | undefined, value: unknown, part: string): T {
+/** Validates one part of a request (or a JSON field of a multipart form) against its schema: 400 naming each field. */
+export function parsePart<T>(schema: z.ZodType<T> | undefined, value: unknown, part: string): T {
   // Text PostgreSQL cannot store (NUL, lone surrogates) is refused in every part of every route
   // first, naming the field; then the route's own schema runs.
   const checked = schema ? storableInput.pipe(schema) : storableInput;

@@ -2,6 +2,8 @@ import type { Sequelize } from 'sequelize';
 import { AuditEvent } from './audit-event.model';
 import { CaughtMail } from './caught-mail.model';
 import { Compound } from './compound.model';
+import { DecayFile } from './decay-file.model';
+import { DecaySet } from './decay-set.model';
 import { ExcitedStateEnergy } from './excited-state-energy.model';
 import { ExcitedStateLifetime } from './excited-state-lifetime.model';
 import { Invitation } from './invitation.model';
@@ -11,7 +13,7 @@ import { PasswordReset } from './password-reset.model';
 import { RecoveryCode } from './recovery-code.model';
 import { RedoxPotential } from './redox-potential.model';
 import { initScenarioModels } from './scenario-models';
-import { initStudyModels } from './study-models';
+import { initStudyModels, Study } from './study-models';
 import { User } from './user.model';
 
 /** Binds every model to one Sequelize instance and declares the associations; call once per instance. */
@@ -44,12 +46,25 @@ export function initModels(sequelize: Sequelize): void {
   Compound.hasMany(ExcitedStateEnergy, { as: 'energies', foreignKey: 'compoundId' });
   initStudyModels(sequelize);
   initScenarioModels(sequelize);
+  DecayFile.initModel(sequelize);
+  DecaySet.initModel(sequelize);
+  DecaySet.belongsTo(DecayFile, { as: 'file', foreignKey: 'fileId' });
+  DecaySet.belongsTo(DecayFile, { as: 'responseFile', foreignKey: 'responseFileId' });
+  DecaySet.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  DecaySet.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
+  DecaySet.belongsTo(Study, { as: 'study', foreignKey: 'studyId' });
+  DecaySet.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
+  DecaySet.belongsTo(ExcitedStateLifetime, { as: 'lifetime', foreignKey: 'lifetimeId' });
+  DecayFile.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
+  DecayFile.belongsTo(User, { as: 'uploadedBy', foreignKey: 'uploadedById' });
 }
 
 export {
   AuditEvent,
   CaughtMail,
   Compound,
+  DecayFile,
+  DecaySet,
   ExcitedStateEnergy,
   ExcitedStateLifetime,
   Invitation,

@@ -7,6 +7,7 @@ import { comparisonRoutes } from './comparisons.routes';
 import { compoundRoutes } from './compounds.routes';
 import { dashboardRoutes } from './dashboard.routes';
 import { fileReadingRoutes } from './file-reading.routes';
+import { decaySetRoutes } from './decay-sets.routes';
 import { invitationRoutes } from './invitations.routes';
 import { librarySettingsRoutes } from './library-settings.routes';
 import { mechanismRoutes } from './mechanism.routes';
@@ -34,6 +35,7 @@ export const apiRoutes: AnyRouteSpec[] = [
   ...studyRoutes,
   ...studyUploadRoutes,
   ...fileReadingRoutes,
+  ...decaySetRoutes,
   ...studyReviewRoutes,
   ...plannerRoutes,
   ...scenarioRoutes,

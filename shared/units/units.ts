@@ -11,7 +11,7 @@ import { KJ_PER_MOL_PER_EV } from '../engine/core/constants';
 /** mol/L per unit. */
 export const CONCENTRATION_UNITS = { M: 1, mM: 1e-3, uM: 1e-6, nM: 1e-9 } as const;
 /** s per unit. */
-export const TIME_UNITS = { s: 1, ms: 1e-3, us: 1e-6, ns: 1e-9 } as const;
+export const TIME_UNITS = { s: 1, ms: 1e-3, us: 1e-6, ns: 1e-9, ps: 1e-12 } as const;
 /** L per unit. */
 export const VOLUME_UNITS = { L: 1, mL: 1e-3, uL: 1e-6 } as const;
 /** Pa s per unit (1 cP = 1 mPa s). */

@@ -278,6 +278,28 @@ const matrix: Record<string, Row> = {
     path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads/${unknownId}/file`,
     expected: labRoute('viewer', 404),
   },
+  'POST /api/labs/:labId/studies/:studyId/decay-sets/preview': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/decay-sets/preview`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'POST /api/labs/:labId/studies/:studyId/decay-sets': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/decay-sets`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'GET /api/labs/:labId/studies/:studyId/decay-sets': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/decay-sets`,
+    expected: labRoute('viewer', 404),
+  },
+  'GET /api/labs/:labId/decay-sets/:setId/decays/:index/curves': {
+    path: ({ labId }) => `/api/labs/${labId}/decay-sets/${unknownId}/decays/0/curves`,
+    expected: labRoute('viewer', 404),
+  },
+  'GET /api/labs/:labId/decay-files/:fileId': {
+    path: ({ labId }) => `/api/labs/${labId}/decay-files/${unknownId}`,
+    expected: labRoute('viewer', 404),
+  },
   'POST /api/labs/:labId/studies/:studyId/submit': {
     path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/submit`,
     body: {},

@@ -15,7 +15,7 @@ import {
 describe('units module', () => {
   it('when a value is converted to SI and back, then the prefixes are those of the SI brochure', () => {
     expect(CONCENTRATION_UNITS).toEqual({ M: 1, mM: 1e-3, uM: 1e-6, nM: 1e-9 });
-    expect(TIME_UNITS).toEqual({ s: 1, ms: 1e-3, us: 1e-6, ns: 1e-9 });
+    expect(TIME_UNITS).toEqual({ s: 1, ms: 1e-3, us: 1e-6, ns: 1e-9, ps: 1e-12 });
     expect(VOLUME_UNITS).toEqual({ L: 1, mL: 1e-3, uL: 1e-6 });
     expect(toSi(2.5, 'mM')).toBe(0.0025);
     expect(fromSi(1.1e-6, 'ns')).toBeCloseTo(1100, 9);

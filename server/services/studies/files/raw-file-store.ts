@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { AppError, unavailable } from '../../../lib/app-error';
-import { StudyUpload } from '../../../models';
+import { DecayFile, StudyUpload } from '../../../models';
 import type { S3Objects } from './s3-objects';
 
 /** Where a kept upload's bytes are: on its own row, or under a key in object storage. */
@@ -13,6 +13,8 @@ export interface KeptFile {
   sha256: string;
   storage: 'database' | 's3';
   storageKey: string | null;
+  /** the table of the row: a study upload (default) or a decay file */
+  kind?: 'study-upload' | 'decay-file';
 }
 
 /**
@@ -78,7 +80,11 @@ export function createRawFileStore(options: { writeTo: 'database' | 's3'; s3: S3
     async read(file) {
       let bytes: Buffer | null;
       if (file.storage === 'database') {
-        bytes = (await StudyUpload.findByPk(file.id, { attributes: ['content'], rejectOnEmpty: true })).content;
+        const options = { attributes: ['content'], rejectOnEmpty: true as const };
+        bytes =
+          file.kind === 'decay-file'
+            ? (await DecayFile.findByPk(file.id, options)).content
+            : (await StudyUpload.findByPk(file.id, options)).content;
       } else {
         if (!s3) throw storeUnavailable('this upload lives in object storage, and none is configured');
         bytes = await s3.get(file.storageKey!);

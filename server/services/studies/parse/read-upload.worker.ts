@@ -1,2 +1,3 @@
-/** Entry of the upload-reading threads (upload-reader.ts starts them): one task, one outcome. */
+/** Entry of the upload-reading threads (upload-reader.ts starts them): one task, one outcome; decay sets run readDecays by name. */
 export { readAndMap as default } from './read-and-map';
+export { readDecays } from '../../decays/read-decays';

@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import { Piscina } from 'piscina';
 import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { unavailable } from '../../../lib/app-error';
+import type { DecayReadOutcome, DecayReadTask } from '../../decays/read-decays';
 import type { StudyReading } from './propose-mapping';
 import type { ReadOutcome, ReadTask } from './read-and-map';
 import { DEFAULT_UPLOAD_LIMITS, limitMessage, type UploadLimits } from './upload-limits';
@@ -10,6 +11,8 @@ export interface UploadReader {
   readonly limits: UploadLimits;
   /** Reads the bytes and applies the mapping (or proposes one) off the main thread, within the limits. */
   read(fileName: string, bytes: Uint8Array, mapping: UploadMapping | null, study?: StudyReading): Promise<ReadOutcome>;
+  /** Reads and fits a decay set in the same threads, under the same limits. */
+  readDecays(task: Omit<DecayReadTask, 'limits'>): Promise<DecayReadOutcome>;
   close(): Promise<void>;
 }
 
@@ -49,7 +52,7 @@ const threadArguments = () =>
  */
 export function createUploadReader(options: UploadReaderOptions = {}): UploadReader {
   const limits: UploadLimits = { ...DEFAULT_UPLOAD_LIMITS, ...options.limits };
-  const pool = new Piscina<ReadTask, ReadOutcome>({
+  const pool = new Piscina<ReadTask | DecayReadTask, ReadOutcome | DecayReadOutcome>({
     filename: workerFile.href,
     // One thread waits ready, so its start-up never falls inside a request.
     minThreads: 1,
@@ -59,29 +62,32 @@ export function createUploadReader(options: UploadReaderOptions = {}): UploadRea
     execArgv: threadArguments(),
     resourceLimits: { maxOldGenerationSizeMb: limits.memoryMb, maxYoungGenerationSizeMb: 32 },
   });
+  /** Runs one task in a thread; time and memory overruns become outcomes naming the limit. */
+  async function run<T, O>(task: T, name?: string): Promise<O | Extract<ReadOutcome, { kind: 'limit' }>> {
+    try {
+      return (await pool.run(task as ReadTask | DecayReadTask, {
+        signal: AbortSignal.timeout(limits.seconds * 1000),
+        ...(name ? { name } : {}),
+      })) as O;
+    } catch (error) {
+      const { name: errorName, code, message } = error as { name?: string; code?: string; message?: string };
+      if (errorName === 'AbortError' || errorName === 'TimeoutError')
+        return { kind: 'limit', limit: 'seconds', message: limitMessage.seconds(limits) };
+      if (code === 'ERR_WORKER_OUT_OF_MEMORY')
+        return { kind: 'limit', limit: 'memoryMb', message: limitMessage.memoryMb(limits) };
+      if (message?.includes('queue is at limit'))
+        throw unavailable(
+          'uploads_busy',
+          'Halflight is reading many files just now; nothing was kept. Send the file again in a few seconds.',
+          uploadsBusyRetryAfterSeconds,
+        );
+      throw error;
+    }
+  }
   return {
     limits,
-    async read(fileName, bytes, mapping, study) {
-      try {
-        return await pool.run(
-          { fileName, bytes, mapping, limits, study },
-          { signal: AbortSignal.timeout(limits.seconds * 1000) },
-        );
-      } catch (error) {
-        const { name, code, message } = error as { name?: string; code?: string; message?: string };
-        if (name === 'AbortError' || name === 'TimeoutError')
-          return { kind: 'limit', limit: 'seconds', message: limitMessage.seconds(limits) };
-        if (code === 'ERR_WORKER_OUT_OF_MEMORY')
-          return { kind: 'limit', limit: 'memoryMb', message: limitMessage.memoryMb(limits) };
-        if (message?.includes('queue is at limit'))
-          throw unavailable(
-            'uploads_busy',
-            'Halflight is reading many files just now; nothing was kept. Send the file again in a few seconds.',
-            uploadsBusyRetryAfterSeconds,
-          );
-        throw error;
-      }
-    },
+    read: (fileName, bytes, mapping, study) => run<ReadTask, ReadOutcome>({ fileName, bytes, mapping, limits, study }),
+    readDecays: (task) => run<DecayReadTask, DecayReadOutcome>({ ...task, limits }, 'readDecays'),
     close: () => pool.destroy(),
   };
 }

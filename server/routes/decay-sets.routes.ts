@@ -1,0 +1,193 @@
+import type { Request, Response } from 'express';
+import multer from 'multer';
+import {
+  decayCurveParamsSchema,
+  decayCurvesSchema,
+  decayFileParamsSchema,
+  decayPreviewSchema,
+  decayReadOptionsSchema,
+  decaySetListSchema,
+  decaySetSchema,
+} from '@shared/schemas/decays';
+import { studyParamsSchema } from '@shared/schemas/studies';
+import { defineRoute, parsePart } from '../http/define-route';
+import { sendDownload } from '../http/send-download';
+import { labOf, signedInActor } from '../http/request-context';
+import { AppError } from '../lib/app-error';
+import {
+  decaySetCurves,
+  downloadDecayFile,
+  keepStudyDecaySet,
+  listStudyDecaySets,
+  previewDecaySet,
+  type DecayUpload,
+} from '../services/decays/decay-sets.service';
+import { ACCEPTED_EXTENSIONS, isAcceptedFile, MAX_UPLOAD_BYTES } from '../services/studies/parse/read-upload';
+
+const twoFiles = multer({
+  storage: multer.memoryStorage(),
+  defParamCharset: 'utf8',
+  limits: { fileSize: MAX_UPLOAD_BYTES, files: 2, fields: 2, fieldSize: 64 * 1024 },
+}).fields([
+  { name: 'file', maxCount: 1 },
+  { name: 'response', maxCount: 1 },
+]);
+
+const FIELDS =
+  'multipart fields: "file" (the decays: time in the first column with its unit in the header, one counts column per decay, concentrations in the headers, a response column named IRF or response; or JCAMP-DX on a time axis), optional "response" (the instrument response as its own file), optional "options" (JSON, DecayReadOptions); 20 MB per file';
+
+/**
+ * Runs multer inside the handler and checks what arrived: the decay file (and response file) of
+ * an accepted type, and the options as JSON that DecayReadOptions accepts (400 naming the field).
+ */
+function receiveDecays(req: Request, res: Response): Promise<DecayUpload> {
+  if (!req.is('multipart/form-data'))
+    return Promise.reject(
+      new AppError('no_file', 'Send the decays as multipart/form-data in a field named "file".', 400, [
+        { path: 'body.file', message: 'missing' },
+      ]),
+    );
+  return new Promise((resolve, reject) => {
+    twoFiles(req, res, (error: unknown) => {
+      if (error instanceof multer.MulterError && error.code === 'LIMIT_FILE_SIZE') {
+        req.resume();
+        return reject(
+          new AppError('file_too_large', `A file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit.`, 413),
+        );
+      }
+      if (error) return reject(new AppError('bad_upload', (error as Error).message, 400));
+      const files = (req.files ?? {}) as Record<string, Express.Multer.File[] | undefined>;
+      const file = files.file?.[0];
+      if (!file)
+        return reject(
+          new AppError('no_file', 'No decay file arrived; send it in a field named "file".', 400, [
+            { path: 'body.file', message: 'missing' },
+          ]),
+        );
+      const response = files.response?.[0] ?? null;
+      for (const sent of [file, response])
+        if (sent && !isAcceptedFile(sent.originalname))
+          return reject(
+            new AppError(
+              'unsupported_type',
+              `"${sent.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
+              415,
+            ),
+          );
+      const text = (req.body as Record<string, unknown> | undefined)?.options;
+      let options: unknown = {};
+      if (typeof text === 'string' && text.trim() !== '') {
+        try {
+          options = JSON.parse(text);
+        } catch {
+          return reject(
+            new AppError('validation_failed', 'The field "options" is not JSON.', 400, [
+              { path: 'body.options', message: 'not JSON' },
+            ]),
+          );
+        }
+      }
+      try {
+        resolve({ file, response, options: parsePart(decayReadOptionsSchema, options, 'body.options') });
+      } catch (problem) {
+        reject(problem as Error);
+      }
+    });
+  });
+}
+
+const readResponses = {
+  400: { description: 'No file, or options that are not valid (details name the field)' },
+  404: { description: 'No such study' },
+  413: { description: 'Larger than 20 MB or over a reading limit; nothing kept' },
+  415: { description: 'Not an accepted file type' },
+  422: {
+    description:
+      'Unreadable (time not increasing, a negative count, a bad cell: details name it), a decay that cannot be fitted, or a choice still open; nothing kept',
+  },
+  503: { description: 'Too many files are being read; send them again shortly' },
+};
+
+export const decaySetRoutes = [
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/decay-sets/preview',
+    summary: `Read and fit decay histograms as chosen, and answer what was found; keeps nothing (${FIELDS})`,
+    tags: ['decays'],
+    access: { lab: 'researcher' },
+    request: { params: studyParamsSchema },
+    responses: {
+      200: { description: 'The file as read, each decay fitted, the curves of one', schema: decayPreviewSchema },
+      ...readResponses,
+    },
+    handler: async ({ req, res, params }) => {
+      const upload = await receiveDecays(req, res);
+      res.json(await previewDecaySet(req.app.locals.services, labOf(req), params.studyId, upload));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/decay-sets',
+    summary: `Keep a decay set in a study: the raw files byte for byte with their SHA-256 and every decay's fit (${FIELDS})`,
+    tags: ['decays'],
+    access: { lab: 'researcher' },
+    request: { params: studyParamsSchema },
+    responses: {
+      201: { description: 'The kept set', schema: decaySetSchema },
+      ...readResponses,
+      403: { description: 'Not the owner' },
+      409: { description: 'The study is locked' },
+    },
+    handler: async ({ req, res, params }) => {
+      const upload = await receiveDecays(req, res);
+      res
+        .status(201)
+        .json(await keepStudyDecaySet(req.app.locals.services, labOf(req), params.studyId, upload, signedInActor(req)));
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api/labs/:labId/studies/:studyId/decay-sets',
+    summary: "A study's decay sets, newest first",
+    tags: ['decays'],
+    access: { lab: 'viewer' },
+    request: { params: studyParamsSchema },
+    responses: { 200: { description: 'The sets', schema: decaySetListSchema }, 404: { description: 'No such study' } },
+    handler: async ({ req, res, params }) => {
+      res.json({ items: await listStudyDecaySets(labOf(req), params.studyId) });
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api/labs/:labId/decay-sets/:setId/decays/:index/curves',
+    summary:
+      'One decay of a kept set for plotting: counts, response, fitted curve, weighted residuals and their autocorrelation',
+    tags: ['decays'],
+    access: { lab: 'viewer' },
+    request: { params: decayCurveParamsSchema },
+    responses: {
+      200: { description: 'The curves (time in s)', schema: decayCurvesSchema },
+      404: { description: 'No such set or decay' },
+    },
+    handler: async ({ req, res, params }) => {
+      res.json(await decaySetCurves(req.app.locals.services, labOf(req), params.setId, params.index));
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api/labs/:labId/decay-files/:fileId',
+    summary: 'Download a decay file (or response file) exactly as received',
+    tags: ['decays'],
+    access: { lab: 'viewer' },
+    request: { params: decayFileParamsSchema },
+    responses: {
+      200: { description: 'The bytes' },
+      404: { description: 'No such file' },
+      503: { description: 'The object store holding the file did not answer' },
+    },
+    handler: async ({ req, res, params }) => {
+      const file = await downloadDecayFile(req.app.locals.services, labOf(req), params.fileId);
+      sendDownload(res, { fileName: file.fileName, type: 'application/octet-stream', body: file.content });
+    },
+  }),
+];

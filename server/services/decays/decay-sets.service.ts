@@ -1,0 +1,313 @@
+import crypto from 'node:crypto';
+import type { Transaction } from 'sequelize';
+import { ENGINE_VERSION } from '@shared/engine';
+import type {
+  DecayCurves,
+  DecayOutcome,
+  DecayPreview,
+  DecayReadOptions,
+  DecaySet as DecaySetAnswer,
+} from '@shared/schemas/decays';
+import { AppError } from '../../lib/app-error';
+import type { LabContext } from '../../domain/lab-context';
+import type { SignedInActor } from '../../domain/actor';
+import { DecayFile, DecaySet, User } from '../../models';
+import { recordAudit } from '../audit.service';
+import { sha256Of, type StoredLocation } from '../studies/files/raw-file-store';
+import type { Problem } from '../studies/parse/read-and-map';
+import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
+import type { UploadServices } from '../studies/study-upload.service';
+import type { DecayReadOutcome } from './read-decays';
+
+/** A file as multer hands it over. */
+export interface ReceivedFile {
+  originalname: string;
+  mimetype: string;
+  buffer: Buffer;
+}
+export interface DecayUpload {
+  file: ReceivedFile;
+  response: ReceivedFile | null;
+  options: DecayReadOptions;
+}
+
+const problemDetails = (problems: Problem[]) =>
+  problems.map((problem) => ({
+    path: problem.column ? `file.column ${problem.column}` : problem.row ? `file.row ${problem.row}` : 'file',
+    message: problem.message,
+  }));
+
+/** Unreadable or over a limit: 422 or 413 naming what is wrong; nothing was kept. */
+function refuse(outcome: Exclude<DecayReadOutcome, { kind: 'read' }>): never {
+  if (outcome.kind === 'limit')
+    throw new AppError(
+      'upload_limit',
+      `${outcome.message} Nothing was kept.`,
+      outcome.limit === 'seconds' ? 422 : 413,
+      [{ path: 'file', message: `over the ${outcome.limit} limit` }],
+    );
+  throw new AppError(
+    'decay_unreadable',
+    `${outcome.problems[0]!.message} Nothing was kept.`,
+    422,
+    problemDetails(outcome.problems),
+  );
+}
+
+interface ReadRequest {
+  file: { fileName: string; bytes: Buffer };
+  response: { fileName: string; bytes: Buffer } | null;
+  options: DecayReadOptions;
+  stored?: DecayOutcome[];
+}
+
+async function read(services: UploadServices, request: ReadRequest) {
+  const outcome = await services.uploadReader.readDecays({
+    fileName: request.file.fileName,
+    bytes: request.file.bytes,
+    response: request.response,
+    options: request.options,
+    stored: request.stored ?? null,
+  });
+  if (outcome.kind !== 'read') refuse(outcome);
+  return outcome;
+}
+
+const asFile = (file: ReceivedFile) => ({ fileName: file.originalname, bytes: file.buffer });
+
+/**
+ * Reads and fits a decay file (and its response file) as chosen and answers what it found;
+ * nothing is kept. Any member who may add data to the study may look.
+ */
+export async function previewDecaySet(
+  services: UploadServices,
+  lab: LabContext,
+  studyId: string,
+  upload: DecayUpload,
+): Promise<DecayPreview> {
+  await loadStudy(lab, studyId);
+  const outcome = await read(services, {
+    file: asFile(upload.file),
+    response: upload.response ? asFile(upload.response) : null,
+    options: upload.options,
+  });
+  return {
+    ...outcome.summary,
+    fileName: upload.file.originalname,
+    responseFileName: upload.response?.originalname ?? null,
+    model: outcome.model,
+    outcomes: outcome.outcomes,
+    shown: outcome.shown,
+    questions: outcome.questions,
+  };
+}
+
+/** The answer for a kept set, with its files' names and hashes. */
+export function toDecaySet(set: DecaySet): DecaySetAnswer {
+  const file = (row: DecayFile) => ({
+    id: row.id,
+    fileName: row.fileName,
+    size: row.size,
+    sha256: row.sha256,
+    createdAt: row.createdAt.toISOString(),
+  });
+  return {
+    ...set.reading,
+    id: set.id,
+    title: set.title,
+    studyId: set.studyId,
+    compoundId: set.compoundId,
+    lifetimeId: set.lifetimeId,
+    file: file(set.file!),
+    responseFile: set.responseFile ? file(set.responseFile) : null,
+    model: set.options.model,
+    countRate: set.options.countRate,
+    repetitionRate: set.options.repetitionRate,
+    outcomes: set.outcomes,
+    engineVersion: set.engineVersion,
+    createdBy: set.createdBy?.name ?? null,
+    version: set.version,
+    createdAt: set.createdAt.toISOString(),
+  };
+}
+
+const withFiles = [
+  { model: DecayFile, as: 'file', attributes: { exclude: ['content'] } },
+  { model: DecayFile, as: 'responseFile', attributes: { exclude: ['content'] } },
+  { model: User, as: 'createdBy', attributes: ['name'] },
+];
+
+/** The decay set in this lab (404 otherwise), with its files but not their bytes. */
+export async function findDecaySet(lab: LabContext, setId: string): Promise<DecaySet> {
+  const set = await DecaySet.findOne({ where: { id: setId, labId: lab.id }, include: withFiles });
+  if (!set) throw new AppError('not_found', 'No decay set with this id in this lab.', 404);
+  return set;
+}
+
+/**
+ * Keeps a decay set: only when every decay is read and fitted and nothing is left to choose
+ * (else 422 naming the decay, nothing kept). The bytes go to the file store first; the rows and
+ * the audit entry follow in one transaction, and the stored bytes are removed again if it does
+ * not commit.
+ */
+export async function keepDecaySet(
+  services: UploadServices,
+  lab: LabContext,
+  target: { studyId: string | null; compoundId: string | null },
+  upload: DecayUpload,
+  actor: SignedInActor,
+  extra: (set: DecaySet, transaction: Transaction) => Promise<void> = async () => {},
+): Promise<DecaySet> {
+  const outcome = await read(services, {
+    file: asFile(upload.file),
+    response: upload.response ? asFile(upload.response) : null,
+    options: upload.options,
+  });
+  if (outcome.questions.length > 0)
+    throw new AppError(
+      'decay_choice_needed',
+      `Nothing was kept: ${outcome.questions[0]}`,
+      422,
+      outcome.questions.map((question) => ({ path: 'body.options', message: question })),
+    );
+  const failed = outcome.outcomes.filter((decay) => decay.problem !== null);
+  if (failed.length > 0)
+    throw new AppError(
+      'decay_not_fittable',
+      `Nothing was kept: decay "${failed[0]!.label}" cannot be fitted: ${failed[0]!.problem} Mark it "ignore" or change the model.`,
+      422,
+      failed.map((decay) => ({ path: `file.column ${decay.label}`, message: decay.problem! })),
+    );
+  const received = [upload.file, ...(upload.response ? [upload.response] : [])];
+  const kept: Array<{ id: string; file: ReceivedFile; sha256: string; location: StoredLocation }> = [];
+  try {
+    for (const file of received) {
+      const id = crypto.randomUUID();
+      const sha256 = await sha256Of(file.buffer);
+      kept.push({
+        id,
+        file,
+        sha256,
+        location: await services.files.put({ uploadId: id, labId: lab.id, bytes: file.buffer }),
+      });
+    }
+    const setId = await services.sequelize.transaction(async (transaction) => {
+      for (const { id, file, sha256, location } of kept)
+        await DecayFile.create(
+          {
+            ...location,
+            id,
+            labId: lab.id,
+            fileName: file.originalname.slice(0, 255),
+            mediaType: file.mimetype || 'application/octet-stream',
+            size: file.buffer.length,
+            sha256,
+            uploadedById: actor.userId,
+          },
+          { transaction },
+        );
+      const set = await DecaySet.create(
+        {
+          labId: lab.id,
+          studyId: target.studyId,
+          compoundId: target.compoundId,
+          lifetimeId: null,
+          title: upload.file.originalname.slice(0, 255),
+          fileId: kept[0]!.id,
+          responseFileId: kept[1]?.id ?? null,
+          reading: outcome.summary,
+          options: { ...upload.options, model: outcome.model, show: 0 },
+          outcomes: outcome.outcomes,
+          engineVersion: ENGINE_VERSION,
+          createdById: actor.userId,
+        },
+        { transaction },
+      );
+      await recordAudit(
+        actor,
+        {
+          action: 'decay_set_kept',
+          labId: lab.id,
+          targetType: target.studyId ? 'study' : 'compound',
+          targetId: (target.studyId ?? target.compoundId)!,
+          details: {
+            decaySetId: set.id,
+            files: kept.map(({ id, file, sha256 }) => ({
+              id,
+              fileName: file.originalname,
+              size: file.buffer.length,
+              sha256,
+            })),
+            decays: outcome.outcomes.length,
+          },
+        },
+        transaction,
+      );
+      await extra(set, transaction);
+      return set.id;
+    });
+    return await findDecaySet(lab, setId);
+  } catch (error) {
+    for (const { location } of kept) await services.files.discard(location);
+    throw error;
+  }
+}
+
+/** A study's decay sets, newest first. */
+export async function listStudyDecaySets(lab: LabContext, studyId: string): Promise<DecaySetAnswer[]> {
+  await loadStudy(lab, studyId);
+  const sets = await DecaySet.findAll({
+    where: { labId: lab.id, studyId },
+    include: withFiles,
+    order: [['createdAt', 'DESC']],
+  });
+  return sets.map(toDecaySet);
+}
+
+/** Keeps a decay set of a study: the owner, while the study may change. */
+export async function keepStudyDecaySet(
+  services: UploadServices,
+  lab: LabContext,
+  studyId: string,
+  upload: DecayUpload,
+  actor: SignedInActor,
+): Promise<DecaySetAnswer> {
+  const study = await loadStudy(lab, studyId);
+  requireOwner(study, lab, actor.userId);
+  requireEditable(study);
+  return toDecaySet(await keepDecaySet(services, lab, { studyId, compoundId: null }, upload, actor));
+}
+
+/** The curves of one decay of a kept set, drawn again from its files and stored choices in a reading thread. */
+export async function decaySetCurves(
+  services: UploadServices,
+  lab: LabContext,
+  setId: string,
+  index: number,
+): Promise<DecayCurves> {
+  const set = await findDecaySet(lab, setId);
+  if (index >= set.outcomes.length)
+    throw new AppError('not_found', `The set holds decays 0 to ${set.outcomes.length - 1}.`, 404);
+  const bytes = async (file: DecayFile) => ({
+    fileName: file.fileName,
+    bytes: await services.files.read({ ...file.get({ plain: true }), kind: 'decay-file' }),
+  });
+  const outcome = await read(services, {
+    file: await bytes(set.file!),
+    response: set.responseFile ? await bytes(set.responseFile) : null,
+    options: { ...set.options, show: index },
+    stored: set.outcomes,
+  });
+  if (!outcome.shown) throw new AppError('not_found', 'This decay has no curves.', 404);
+  return outcome.shown;
+}
+
+/** A kept decay file exactly as received (checked against its SHA-256). */
+export async function downloadDecayFile(services: UploadServices, lab: LabContext, fileId: string) {
+  const file = await DecayFile.findOne({ where: { id: fileId, labId: lab.id }, attributes: { exclude: ['content'] } });
+  if (!file) throw new AppError('not_found', 'No decay file with this id in this lab.', 404);
+  return {
+    fileName: file.fileName,
+    content: await services.files.read({ ...file.get({ plain: true }), kind: 'decay-file' }),
+  };
+}
