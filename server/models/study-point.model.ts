@@ -17,6 +17,10 @@ export class StudyPoint extends Model<InferAttributes<StudyPoint>, InferCreation
   declare excluded: boolean;
   declare exclusionReason: string | null;
   declare uploadId: string | null;
+  /** s, one standard error; set when the lifetime came from a fitted decay */
+  declare lifetimeUncertainty: CreationOptional<number | null>;
+  /** the decay set the lifetime was fitted from */
+  declare lifetimeDecaySetId: CreationOptional<string | null>;
 
   static initModel(sequelize: Sequelize): void {
     const double = () => ({ type: DataTypes.DOUBLE, allowNull: true });
@@ -34,6 +38,8 @@ export class StudyPoint extends Model<InferAttributes<StudyPoint>, InferCreation
         excluded: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         exclusionReason: { type: DataTypes.TEXT, allowNull: true },
         uploadId: { type: DataTypes.UUID, allowNull: true },
+        lifetimeUncertainty: double(),
+        lifetimeDecaySetId: { type: DataTypes.UUID, allowNull: true },
       },
       { sequelize, tableName: 'study_points', timestamps: false },
     );

@@ -32,6 +32,8 @@ export class Study extends Model<InferAttributes<Study>, InferCreationAttributes
   declare tau0: number | null;
   declare tau0Uncertainty: number | null;
   declare tau0LifetimeId: string | null;
+  /** the decay set whose zero-concentration decays gave tau0 */
+  declare tau0DecaySetId: CreationOptional<string | null>;
   declare i0: number | null;
   declare dataKind: 'intensity' | 'ratio';
   declare fitModel: FitModel;
@@ -78,6 +80,7 @@ export class Study extends Model<InferAttributes<Study>, InferCreationAttributes
         tau0: double(),
         tau0Uncertainty: double(),
         tau0LifetimeId: { type: DataTypes.UUID, allowNull: true },
+        tau0DecaySetId: { type: DataTypes.UUID, allowNull: true },
         i0: double(),
         dataKind: { type: DataTypes.STRING(20), allowNull: false },
         fitModel: { type: DataTypes.STRING(20), allowNull: false },

@@ -1,6 +1,12 @@
 import type { Request, Response } from 'express';
 import multer from 'multer';
+import type { z } from 'zod';
 import {
+  applyDecaySetSchema,
+  compoundDecayParamsSchema,
+  libraryDecayOptionsSchema,
+  studyDecaySetParamsSchema,
+  type DecayReadOptions,
   decayCurveParamsSchema,
   decayCurvesSchema,
   decayFileParamsSchema,
@@ -10,6 +16,7 @@ import {
   decaySetSchema,
 } from '@shared/schemas/decays';
 import { studyParamsSchema } from '@shared/schemas/studies';
+import { studyDetailSchema } from '@shared/schemas/study-detail';
 import { defineRoute, parsePart } from '../http/define-route';
 import { sendDownload } from '../http/send-download';
 import { labOf, signedInActor } from '../http/request-context';
@@ -17,11 +24,14 @@ import { AppError } from '../lib/app-error';
 import {
   decaySetCurves,
   downloadDecayFile,
+  keepLibraryDecay,
   keepStudyDecaySet,
   listStudyDecaySets,
   previewDecaySet,
   type DecayUpload,
 } from '../services/decays/decay-sets.service';
+import { applyDecaySet } from '../services/decays/apply-decay-set.service';
+import { getStudyDetail } from '../services/studies/study.service';
 import { ACCEPTED_EXTENSIONS, isAcceptedFile, MAX_UPLOAD_BYTES } from '../services/studies/parse/read-upload';
 
 const twoFiles = multer({
@@ -40,7 +50,11 @@ const FIELDS =
  * Runs multer inside the handler and checks what arrived: the decay file (and response file) of
  * an accepted type, and the options as JSON that DecayReadOptions accepts (400 naming the field).
  */
-function receiveDecays(req: Request, res: Response): Promise<DecayUpload> {
+function receiveDecays<O extends DecayReadOptions = DecayReadOptions>(
+  req: Request,
+  res: Response,
+  schema: z.ZodType<O> = decayReadOptionsSchema as unknown as z.ZodType<O>,
+): Promise<Omit<DecayUpload, 'options'> & { options: O }> {
   if (!req.is('multipart/form-data'))
     return Promise.reject(
       new AppError('no_file', 'Send the decays as multipart/form-data in a field named "file".', 400, [
@@ -88,7 +102,7 @@ function receiveDecays(req: Request, res: Response): Promise<DecayUpload> {
         }
       }
       try {
-        resolve({ file, response, options: parsePart(decayReadOptionsSchema, options, 'body.options') });
+        resolve({ file, response, options: parsePart(schema, options, 'body.options') });
       } catch (problem) {
         reject(problem as Error);
       }
@@ -188,6 +202,62 @@ export const decaySetRoutes = [
     handler: async ({ req, res, params }) => {
       const file = await downloadDecayFile(req.app.locals.services, labOf(req), params.fileId);
       sendDownload(res, { fileName: file.fileName, type: 'application/octet-stream', body: file.content });
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/decay-sets/:setId/apply',
+    summary:
+      "Put a kept decay set's lifetimes into the study: each decay fills the lifetime (with its SE, labelled from decay <file>) of a point at its concentration or adds one; the zero-concentration decays give tau0",
+    tags: ['decays'],
+    access: { lab: 'researcher' },
+    request: { params: studyDecaySetParamsSchema, body: applyDecaySetSchema },
+    responses: {
+      200: { description: 'The study with its new lifetimes, tau0 and fit', schema: studyDetailSchema },
+      403: { description: 'Not the owner' },
+      404: { description: 'No such study or decay set' },
+      409: { description: 'Stale version or locked study' },
+      422: { description: 'A decay has no concentration; nothing saved' },
+    },
+    handler: async ({ req, res, params, body }) => {
+      const lab = labOf(req);
+      await applyDecaySet(
+        req.app.locals.services.sequelize,
+        lab,
+        params.studyId,
+        params.setId,
+        body,
+        signedInActor(req),
+      );
+      res.json(await getStudyDetail(lab, params.studyId));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/compounds/:compoundId/decay-lifetimes',
+    summary: `Keep one decay of an emitter and add its lifetime to the library, with the file as its source (${FIELDS}; options also carry solvent, atmosphere, temperature and notes)`,
+    tags: ['decays'],
+    access: { lab: 'researcher' },
+    request: { params: compoundDecayParamsSchema },
+    responses: {
+      201: { description: 'The kept set; lifetimeId names the new lifetime record', schema: decaySetSchema },
+      ...readResponses,
+      404: { description: 'No such compound' },
+    },
+    handler: async ({ req, res, params }) => {
+      const { options, ...files } = await receiveDecays(req, res, libraryDecayOptionsSchema);
+      const { solvent, atmosphere, temperature, notes, ...readOptions } = options;
+      res
+        .status(201)
+        .json(
+          await keepLibraryDecay(
+            req.app.locals.services,
+            labOf(req),
+            params.compoundId,
+            { ...files, options: readOptions, conditions: { solvent, atmosphere, temperature, notes } },
+            signedInActor(req),
+          ),
+        );
     },
   }),
 ];

@@ -196,6 +196,16 @@ export const decayPreviewSchema = decayReadingSummarySchema
   .meta({ id: 'DecayPreview' });
 export type DecayPreview = z.infer<typeof decayPreviewSchema>;
 
+/** tau0/tau against [Q] from a set's fitted lifetimes (Lakowicz, 3rd ed., eq. 8.2). */
+export const decaySternVolmerSchema = z
+  .object({
+    tau0: estimate.describe('s, from the zero-concentration decays'),
+    kSv: estimate.describe('M^-1, the lifetime (dynamic) K_SV'),
+    points: z.array(z.object({ concentration: z.number().describe('mol/L'), ratio: z.number(), label: z.string() })),
+  })
+  .meta({ id: 'DecaySternVolmer' });
+export type DecaySternVolmer = z.infer<typeof decaySternVolmerSchema>;
+
 export const decayFileSchema = z
   .object({
     id: z.string().uuid(),
@@ -219,6 +229,8 @@ export const decaySetSchema = decayReadingSummarySchema
     countRate: z.number().nullable(),
     repetitionRate: z.number().nullable(),
     outcomes: z.array(decayOutcomeSchema),
+    sternVolmer: decaySternVolmerSchema.nullable(),
+    sternVolmerProblem: z.string().nullable().describe('why the lifetime Stern–Volmer line cannot be drawn'),
     engineVersion: z.string(),
     createdBy: z.string().nullable(),
     version: z.number().int(),
@@ -242,4 +254,13 @@ export const studyDecaySetParamsSchema = decaySetParamsSchema.extend({
 export const decayFileParamsSchema = z.object({
   labId: z.string().uuid('must be a lab id'),
   fileId: z.string().uuid('must be a decay file id'),
+});
+
+export const applyDecaySetSchema = z
+  .object({ version: z.number().int().min(0).describe('the study version you edited; a stale one gets 409') })
+  .meta({ id: 'ApplyDecaySet' });
+
+export const compoundDecayParamsSchema = z.object({
+  labId: z.string().uuid('must be a lab id'),
+  compoundId: z.string().uuid('must be a compound id'),
 });

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { compoundRefSchema, studySettingsSchema, studyStatusSchema } from './studies';
 import { studyFitSchema } from './study-fits';
-import { studyPointSchema } from './study-points';
+import { decaySourceSchema, studyPointSchema } from './study-points';
 
 export const uploadSummarySchema = z
   .object({
@@ -47,6 +47,7 @@ export const studyDetailSchema = studySettingsSchema
     points: z.array(studyPointSchema),
     latestFit: studyFitSchema.nullable(),
     fitProblem: z.string().nullable().describe('why the newest points could not be fitted'),
+    tau0Source: decaySourceSchema.nullable().describe('the decay set whose zero-concentration decays gave tau0'),
     uploads: z.array(uploadSummarySchema),
     reviews: z.array(reviewEntrySchema),
   })

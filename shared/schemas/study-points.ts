@@ -40,6 +40,11 @@ export const replacePointsSchema = z
   .meta({ id: 'ReplacePoints' });
 export type ReplacePointsInput = z.input<typeof replacePointsSchema>;
 
+/** Where a lifetime came from: a kept decay set, named by its file ("from decay <file>"). */
+export const decaySourceSchema = z
+  .object({ decaySetId: z.string().uuid(), fileName: z.string() })
+  .meta({ id: 'DecaySource' });
+
 export const studyPointSchema = z
   .object({
     id: z.string().uuid(),
@@ -54,6 +59,8 @@ export const studyPointSchema = z
     excluded: z.boolean(),
     exclusionReason: z.string().nullable(),
     uploadId: z.string().nullable(),
+    lifetimeUncertainty: z.number().nullable().describe('s, one standard error (lifetimes fitted from a decay)'),
+    lifetimeSource: decaySourceSchema.nullable().describe('the decay set the lifetime was fitted from'),
     corrected: z
       .object({
         concentration: z.number(),

@@ -239,3 +239,122 @@ describe('POST /api/labs/:labId/studies/:studyId/decay-sets', () => {
     expect(answer.body.error.details[0].path).toBe('body.options.model.components');
   });
 });
+
+/** Intensity points at the decays' concentrations, on the same invented K_SV (I0/I = 1 + 200 [Q]). */
+const intensityPoints = concentrationsMm.map((mM) => ({
+  concentration: mM * 1e-3,
+  intensity: 1000 / (1 + K_SV * mM * 1e-3),
+  lifetime: null,
+  absorbanceExcitation: null,
+  absorbanceEmission: null,
+  volumeAdded: null,
+  uncertainty: null,
+  excluded: false,
+  exclusionReason: null,
+}));
+
+interface PointAnswer {
+  concentration: number;
+  intensity: number | null;
+  lifetime: number | null;
+  lifetimeUncertainty: number | null;
+  lifetimeSource: { fileName: string } | null;
+}
+
+describe('POST /api/labs/:labId/studies/:studyId/decay-sets/:setId/apply', () => {
+  it('when a kept set is applied, then the points carry its lifetimes with SE and source, tau0 comes from the blank, and the lifetime K_SV is fitted', async () => {
+    const study = await newStudy();
+    await client.patch(`${base(study.id)}/points`, { version: 0, points: intensityPoints }).expect(200);
+    const kept = await send(`${base(study.id)}/decay-sets`, titrationFile()).expect(201);
+    // The set's own lifetime Stern–Volmer line: K_SV within 5 % of the 200 M^-1 the decays were made with.
+    expect(Math.abs(kept.body.sternVolmer.kSv.value / K_SV - 1)).toBeLessThan(0.05);
+    expect(Math.abs(kept.body.sternVolmer.tau0.value / TAU0 - 1)).toBeLessThan(0.01);
+    const applied = await client.post(`${base(study.id)}/decay-sets/${kept.body.id}/apply`, { version: 1 }).expect(200);
+    const points = applied.body.points as PointAnswer[];
+    expect(points).toHaveLength(4);
+    points.forEach((point, i) => {
+      expect(point.intensity).not.toBeNull();
+      expect(point.lifetime).toBe(kept.body.outcomes[i].lifetime.value);
+      expect(point.lifetimeUncertainty).toBe(kept.body.outcomes[i].lifetime.standardError);
+      expect(point.lifetimeSource?.fileName).toBe('titration.csv');
+    });
+    expect(applied.body.tau0).toBe(kept.body.outcomes[0].lifetime.value);
+    expect(applied.body.tau0Uncertainty).toBe(kept.body.outcomes[0].lifetime.standardError);
+    expect(applied.body.tau0Source).toMatchObject({ decaySetId: kept.body.id, fileName: 'titration.csv' });
+    const lifetimeFit = applied.body.latestFit.result.lifetime;
+    expect(Math.abs(lifetimeFit.kSv.value / K_SV - 1)).toBeLessThan(0.05);
+
+    // The grid sends values only: an unchanged lifetime keeps its source, a typed one does not.
+    const edited = applied.body.points.map((point: PointAnswer, i: number) => ({
+      ...intensityPoints[i],
+      lifetime: i === 3 ? 2.9e-9 : point.lifetime,
+    }));
+    const after = await client
+      .patch(`${base(study.id)}/points`, { version: applied.body.version, points: edited })
+      .expect(200);
+    expect(after.body.points.map((point: PointAnswer) => point.lifetimeSource?.fileName ?? null)).toEqual([
+      'titration.csv',
+      'titration.csv',
+      'titration.csv',
+      null,
+    ]);
+    const typed = await client
+      .patch(base(study.id), { version: after.body.version, tau0: 5.1e-9, tau0Uncertainty: 1e-10 })
+      .expect(200);
+    expect(typed.body.tau0Source).toBeNull();
+  });
+
+  it('when a decay has no concentration, then applying is refused with 422 and the points are unchanged', async () => {
+    const study = await newStudy();
+    await client.patch(`${base(study.id)}/points`, { version: 0, points: intensityPoints }).expect(200);
+    const file = Buffer.from(titrationFile().toString().replace('[Q] 4 mM', 'sample D'));
+    const kept = await send(`${base(study.id)}/decay-sets`, file).expect(201);
+    expect(kept.body.warnings[0]).toMatch(/no quencher concentration/);
+    const answer = await client.post(`${base(study.id)}/decay-sets/${kept.body.id}/apply`, { version: 1 });
+    expect(answer.status).toBe(422);
+    expect(answer.body.error.message).toMatch(/decay "sample D" has no quencher concentration/);
+    const detail = (await client.get(base(study.id)).expect(200)).body;
+    expect(detail.version).toBe(1);
+    expect(detail.points.every((point: PointAnswer) => point.lifetime === null)).toBe(true);
+  });
+});
+
+describe('POST /api/labs/:labId/compounds/:compoundId/decay-lifetimes', () => {
+  const single = () =>
+    Buffer.from(
+      `time (ns),IRF,emitter in MeCN\n${response.map((count, i) => `${(i * WIDTH * 1e9).toFixed(4)},${count},${decays[0]!.counts[i]}`).join('\n')}\n`,
+    );
+  const conditions = { solvent: 'acetonitrile', atmosphere: 'argon' };
+
+  it('when one decay of an emitter is sent, then a lifetime record is added with the file as its source', async () => {
+    const study = await newStudy();
+    const answer = await send(
+      `/api/labs/${labId}/compounds/${study.emitter.id}/decay-lifetimes`,
+      single(),
+      conditions,
+      { name: 'emitter-decay.csv' },
+    );
+    expect(answer.status, JSON.stringify(answer.body).slice(0, 400)).toBe(201);
+    expect(answer.body.lifetimeId).toBeTruthy();
+    const compound = (await client.get(`/api/labs/${labId}/compounds/${study.emitter.id}`).expect(200)).body;
+    const record = compound.lifetimes.find((lifetime: { id: string }) => lifetime.id === answer.body.lifetimeId);
+    expect(record.source).toBe('from decay emitter-decay.csv');
+    expect(record.method).toMatch(/1 exponential by reconvolution, Poisson likelihood/);
+    expect(Math.abs(record.value / TAU0 - 1)).toBeLessThan(0.01);
+    expect(record.uncertainty).toBe(answer.body.outcomes[0].lifetime.standardError);
+  });
+
+  it('when the file holds several decays, then 422 and neither a set nor a lifetime is kept', async () => {
+    const study = await newStudy();
+    const before = (await client.get(`/api/labs/${labId}/compounds/${study.emitter.id}`).expect(200)).body.lifetimes;
+    const answer = await send(
+      `/api/labs/${labId}/compounds/${study.emitter.id}/decay-lifetimes`,
+      titrationFile(),
+      conditions,
+    );
+    expect(answer.status).toBe(422);
+    expect(answer.body.error.message).toMatch(/one decay, and the file holds 4/);
+    const after = (await client.get(`/api/labs/${labId}/compounds/${study.emitter.id}`).expect(200)).body.lifetimes;
+    expect(after).toEqual(before);
+  });
+});

@@ -296,6 +296,16 @@ const matrix: Record<string, Row> = {
     path: ({ labId }) => `/api/labs/${labId}/decay-sets/${unknownId}/decays/0/curves`,
     expected: labRoute('viewer', 404),
   },
+  'POST /api/labs/:labId/studies/:studyId/decay-sets/:setId/apply': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/decay-sets/${unknownId}/apply`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'POST /api/labs/:labId/compounds/:compoundId/decay-lifetimes': {
+    path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}/decay-lifetimes`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
   'GET /api/labs/:labId/decay-files/:fileId': {
     path: ({ labId }) => `/api/labs/${labId}/decay-files/${unknownId}`,
     expected: labRoute('viewer', 404),

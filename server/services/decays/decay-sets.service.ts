@@ -3,6 +3,7 @@ import type { Transaction } from 'sequelize';
 import { ENGINE_VERSION } from '@shared/engine';
 import type {
   DecayCurves,
+  DecayModel,
   DecayOutcome,
   DecayPreview,
   DecayReadOptions,
@@ -11,12 +12,15 @@ import type {
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import type { SignedInActor } from '../../domain/actor';
-import { DecayFile, DecaySet, User } from '../../models';
+import { DecayFile, DecaySet, ExcitedStateLifetime, User } from '../../models';
+import type { Atmosphere } from '../../models/excited-state-lifetime.model';
+import { findCompound } from '../library/library-access.service';
 import { recordAudit } from '../audit.service';
 import { sha256Of, type StoredLocation } from '../studies/files/raw-file-store';
 import type { Problem } from '../studies/parse/read-and-map';
 import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
+import { decaySternVolmer } from './decay-stern-volmer';
 import type { DecayReadOutcome } from './read-decays';
 
 /** A file as multer hands it over. */
@@ -111,6 +115,7 @@ export function toDecaySet(set: DecaySet): DecaySetAnswer {
     sha256: row.sha256,
     createdAt: row.createdAt.toISOString(),
   });
+  const { sternVolmer, problem } = decaySternVolmer(set.outcomes);
   return {
     ...set.reading,
     id: set.id,
@@ -124,6 +129,8 @@ export function toDecaySet(set: DecaySet): DecaySetAnswer {
     countRate: set.options.countRate,
     repetitionRate: set.options.repetitionRate,
     outcomes: set.outcomes,
+    sternVolmer,
+    sternVolmerProblem: problem,
     engineVersion: set.engineVersion,
     createdBy: set.createdBy?.name ?? null,
     version: set.version,
@@ -310,4 +317,78 @@ export async function downloadDecayFile(services: UploadServices, lab: LabContex
     fileName: file.fileName,
     content: await services.files.read({ ...file.get({ plain: true }), kind: 'decay-file' }),
   };
+}
+
+/** The method text a lifetime record from a decay carries, e.g. "TCSPC decay fit: 1 exponential by reconvolution, Poisson likelihood". */
+const methodOf = (model: DecayModel) =>
+  `TCSPC decay fit: ${model.components} exponential${model.components === 1 ? '' : 's'} ${
+    model.method === 'tail' ? 'as a tail fit' : 'by reconvolution'
+  }, ${model.estimator === 'poisson' ? 'Poisson likelihood' : 'weighted least squares'}`;
+
+/**
+ * Keeps a single decay of an emitter and makes it a lifetime record of the library with the
+ * decay file as its source ("from decay <file>"): tau of one exponential, else the
+ * amplitude-weighted mean (said in the notes). Refused (422, nothing kept) unless the file
+ * holds exactly one decay that fits.
+ */
+export async function keepLibraryDecay(
+  services: UploadServices,
+  lab: LabContext,
+  compoundId: string,
+  upload: DecayUpload & { conditions: { solvent: string; atmosphere: Atmosphere; temperature: number; notes: string } },
+  actor: SignedInActor,
+): Promise<DecaySetAnswer> {
+  await findCompound(lab, compoundId);
+  const set = await keepDecaySet(
+    services,
+    lab,
+    { studyId: null, compoundId },
+    upload,
+    actor,
+    async (kept, transaction) => {
+      if (kept.outcomes.length !== 1)
+        throw new AppError(
+          'one_decay_needed',
+          `Nothing was kept: a library lifetime comes from one decay, and the file holds ${kept.outcomes.length}; mark the others "ignore".`,
+          422,
+          [{ path: 'body.options.columns', message: `${kept.outcomes.length} decays` }],
+        );
+      const lifetime = kept.outcomes[0]!.lifetime!;
+      const { conditions } = upload;
+      const record = await ExcitedStateLifetime.create(
+        {
+          labId: lab.id,
+          compoundId,
+          value: lifetime.value,
+          uncertainty: lifetime.standardError,
+          solvent: conditions.solvent,
+          atmosphere: conditions.atmosphere,
+          temperature: conditions.temperature,
+          method: methodOf(kept.options.model),
+          source: `from decay ${upload.file.originalname}`.slice(0, 400),
+          notes: [
+            lifetime.basis === 'amplitude-weighted-mean' ? 'Amplitude-weighted mean lifetime of the fit.' : '',
+            conditions.notes,
+          ]
+            .filter(Boolean)
+            .join(' '),
+          createdById: actor.userId,
+        },
+        { transaction },
+      );
+      await kept.update({ lifetimeId: record.id }, { transaction });
+      await recordAudit(
+        actor,
+        {
+          action: 'lifetime_added',
+          labId: lab.id,
+          targetType: 'lifetime',
+          targetId: record.id,
+          details: { decaySetId: kept.id, value: record.value, uncertainty: record.uncertainty, source: record.source },
+        },
+        transaction,
+      );
+    },
+  );
+  return toDecaySet(set);
 }

@@ -8,7 +8,7 @@ import { loadStudy, requireChangeable } from './study-access';
 import { refitStudy } from './study-fitting.service';
 import { getStudyDetail } from './study.service';
 
-const plain = (point: StudyPoint | (StudyPointValues & { uploadId?: string | null })) => ({
+const plain = (point: StudyPoint | SeriesPoint) => ({
   concentration: point.concentration,
   intensity: point.intensity,
   lifetime: point.lifetime,
@@ -20,22 +20,51 @@ const plain = (point: StudyPoint | (StudyPointValues & { uploadId?: string | nul
   exclusionReason: point.exclusionReason,
 });
 
+/** A point as written: its values, the upload it came from, and where its lifetime came from. */
+export type SeriesPoint = StudyPointValues & {
+  uploadId?: string | null;
+  lifetimeUncertainty?: number | null;
+  lifetimeDecaySetId?: string | null;
+};
+
+/**
+ * A lifetime fitted from a decay keeps its standard error and source while the point keeps the
+ * same concentration and the same lifetime (the grid sends values only); a changed value is the
+ * person's own.
+ */
+function lifetimeSources(before: StudyPoint[], points: SeriesPoint[]) {
+  const linked = before.filter((point) => point.lifetimeDecaySetId !== null && point.lifetime !== null);
+  const taken = new Set<StudyPoint>();
+  return points.map((point) => {
+    if (point.lifetimeDecaySetId !== undefined)
+      return { lifetimeUncertainty: point.lifetimeUncertainty ?? null, lifetimeDecaySetId: point.lifetimeDecaySetId };
+    const same = linked.find(
+      (old) => !taken.has(old) && old.concentration === point.concentration && old.lifetime === point.lifetime,
+    );
+    if (!same) return { lifetimeUncertainty: null, lifetimeDecaySetId: null };
+    taken.add(same);
+    return { lifetimeUncertainty: same.lifetimeUncertainty, lifetimeDecaySetId: same.lifetimeDecaySetId };
+  });
+}
+
 /**
  * Replaces the whole series (the grid is edited as one table), records before and after in
  * the audit log, bumps the version and refits. Used by the grid and by a confirmed upload.
  */
 export async function writeSeries(
   study: Study,
-  points: Array<StudyPointValues & { uploadId?: string | null }>,
+  points: SeriesPoint[],
   actor: Actor,
   transaction: Transaction,
-  reason: { action: string; uploadId?: string },
+  reason: { action: string; uploadId?: string; decaySetId?: string; tau0?: { value: number; standardError: number } },
 ): Promise<void> {
   const before = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
+  const sources = lifetimeSources(before, points);
   await StudyPoint.destroy({ where: { studyId: study.id }, transaction });
   await StudyPoint.bulkCreate(
     points.map((point, position) => ({
       ...plain(point),
+      ...sources[position]!,
       exclusionReason: point.excluded ? point.exclusionReason : null,
       studyId: study.id,
       position,
@@ -55,6 +84,8 @@ export async function writeSeries(
         before: before.map(plain),
         after: points.map(plain),
         ...(reason.uploadId ? { uploadId: reason.uploadId } : {}),
+        ...(reason.decaySetId ? { decaySetId: reason.decaySetId } : {}),
+        ...(reason.tau0 ? { tau0: reason.tau0 } : {}),
       },
     },
     transaction,

@@ -72,7 +72,14 @@ export const toSummary = (study: SummaryRow): StudySummary => ({
   updatedAt: study.updatedAt.toISOString(),
 });
 
-export const toPoint = (study: Study, point: StudyPoint): StudyPointRecord => {
+/** Decay set id -> its file name, for "from decay <file>". */
+export type DecaySources = ReadonlyMap<string, string>;
+const decaySource = (sources: DecaySources, setId: string | null) =>
+  setId && sources.has(setId) ? { decaySetId: setId, fileName: sources.get(setId)! } : null;
+
+export const toTau0Source = (study: Study, sources: DecaySources) => decaySource(sources, study.tau0DecaySetId ?? null);
+
+export const toPoint = (study: Study, point: StudyPoint, sources: DecaySources = new Map()): StudyPointRecord => {
   const corrected = correctPoint(study, point, study.dataKind === 'ratio');
   return {
     id: point.id,
@@ -87,6 +94,8 @@ export const toPoint = (study: Study, point: StudyPoint): StudyPointRecord => {
     excluded: point.excluded,
     exclusionReason: point.exclusionReason,
     uploadId: point.uploadId,
+    lifetimeUncertainty: point.lifetimeUncertainty ?? null,
+    lifetimeSource: decaySource(sources, point.lifetimeDecaySetId ?? null),
     corrected: corrected && {
       concentration: corrected.concentration,
       intensity: corrected.intensity,

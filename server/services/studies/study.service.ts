@@ -4,14 +4,14 @@ import { studySettingsIssues } from '@shared/schemas/studies';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import { Study, StudyFit, StudyPoint, StudyReview, StudyUpload, User } from '../../models';
+import { DecayFile, DecaySet, Study, StudyFit, StudyPoint, StudyReview, StudyUpload, User } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, loadStudyWithNames, requireChangeable } from './study-access';
 import { resolveCompound } from './study-compounds';
 import { refitStudy } from './study-fitting.service';
 import { resolveTau0 } from './study-tau0';
-import { settingsOf, solventLabel, toFit, toPoint, toReview, toUpload } from './study-serialize';
+import { settingsOf, solventLabel, toFit, toPoint, toReview, toTau0Source, toUpload } from './study-serialize';
 
 const settingsIssuesError = (issues: { path: string; message: string }[]) =>
   new AppError(
@@ -120,7 +120,15 @@ export async function updateStudy(
       compounds.emitterId ?? study.emitterId,
       transaction,
     );
-    await study.update({ ...defined, ...compounds, ...tau0, version: study.version + 1 }, { transaction });
+    // tau0 stays "from decay" only while it is the number the decays gave.
+    const tau0DecaySetId =
+      tau0.tau0LifetimeId === null && tau0.tau0 === study.tau0 && tau0.tau0Uncertainty === study.tau0Uncertainty
+        ? study.tau0DecaySetId
+        : null;
+    await study.update(
+      { ...defined, ...compounds, ...tau0, tau0DecaySetId, version: study.version + 1 },
+      { transaction },
+    );
     await recordAudit(
       actor,
       {
@@ -141,7 +149,7 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
   const study = await loadStudyWithNames(lab, studyId);
   // Plain rows (raw, nested includes): the answer is built from their fields, so Sequelize need not
   // make model instances of every point, upload and review (its largest cost per read).
-  const [points, latestFit, uploads, reviews, next] = await Promise.all([
+  const [points, latestFit, uploads, reviews, next, decaySets] = await Promise.all([
     StudyPoint.findAll({ where: { studyId }, order: [['position', 'ASC']], raw: true }),
     study.latestFitId
       ? StudyFit.findOne({
@@ -167,7 +175,13 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
       nest: true,
     }),
     Study.findOne({ where: { previousRevisionId: studyId, labId: lab.id }, attributes: ['id'], raw: true }),
+    DecaySet.findAll({
+      where: { studyId, labId: lab.id },
+      attributes: ['id'],
+      include: [{ model: DecayFile, as: 'file', attributes: ['fileName'] }],
+    }),
   ]);
+  const sources = new Map(decaySets.map((set) => [set.id, set.file?.fileName ?? 'decay file']));
   return {
     ...settingsOf(study),
     id: study.id,
@@ -183,9 +197,10 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
     version: study.version,
     createdAt: study.createdAt.toISOString(),
     updatedAt: study.updatedAt.toISOString(),
-    points: points.map((point) => toPoint(study, point)),
+    points: points.map((point) => toPoint(study, point, sources)),
     latestFit: latestFit ? toFit(latestFit) : null,
     fitProblem: study.fitProblem,
+    tau0Source: toTau0Source(study, sources),
     uploads: uploads.map(toUpload),
     reviews: reviews.map(toReview),
   };

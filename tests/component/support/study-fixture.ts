@@ -18,6 +18,8 @@ export function point(position: number, concentration: number, intensity: number
     excluded: false,
     exclusionReason: null,
     uploadId: null,
+    lifetimeUncertainty: null,
+    lifetimeSource: null,
     corrected: null,
   };
 }
@@ -64,6 +66,7 @@ export function studyDetail(changes: Partial<StudyDetail> = {}): StudyDetail {
     points: [point(0, 0, 1000), point(1, 0.001, 800)],
     latestFit: null,
     fitProblem: null,
+    tau0Source: null,
     uploads: [],
     reviews: [],
     ...changes,

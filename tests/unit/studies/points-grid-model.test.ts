@@ -21,6 +21,8 @@ const saved = (id: string, position: number, concentration: number, intensity: n
   excluded: false,
   exclusionReason: null,
   uploadId: null,
+  lifetimeUncertainty: null,
+  lifetimeSource: null,
   corrected: {
     concentration: concentration * 0.99,
     intensity: intensity * 1.01,

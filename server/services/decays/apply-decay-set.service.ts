@@ -1,0 +1,98 @@
+import type { Sequelize } from 'sequelize';
+import type { StudyPointValues } from '@shared/schemas/study-points';
+import { AppError } from '../../lib/app-error';
+import type { LabContext } from '../../domain/lab-context';
+import type { SignedInActor } from '../../domain/actor';
+import { DecaySet, StudyPoint } from '../../models';
+import { loadStudy, requireChangeable } from '../studies/study-access';
+import { writeSeries, type SeriesPoint } from '../studies/study-points.service';
+import { fittedWithConcentration, tau0FromBlanks } from './decay-stern-volmer';
+
+// Concentrations read from a header and typed in a grid agree to rounding, not bit for bit.
+const sameConcentration = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(Math.abs(a), Math.abs(b));
+
+const valuesOf = (point: StudyPoint): SeriesPoint => ({
+  concentration: point.concentration,
+  intensity: point.intensity,
+  lifetime: point.lifetime,
+  absorbanceExcitation: point.absorbanceExcitation,
+  absorbanceEmission: point.absorbanceEmission,
+  volumeAdded: point.volumeAdded,
+  uncertainty: point.uncertainty,
+  excluded: point.excluded,
+  exclusionReason: point.exclusionReason,
+  uploadId: point.uploadId,
+  lifetimeUncertainty: point.lifetimeUncertainty,
+  lifetimeDecaySetId: point.lifetimeDecaySetId,
+});
+
+/**
+ * Puts a kept decay set's lifetimes into its study: each decay fills the lifetime (with its
+ * standard error and the set as source) of the next point at its concentration, or becomes a
+ * new point with only a lifetime; the zero-concentration decays give tau0 (their weighted mean).
+ * One transaction, version-checked; the study is fitted again as after any change of points.
+ */
+export async function applyDecaySet(
+  sequelize: Sequelize,
+  lab: LabContext,
+  studyId: string,
+  setId: string,
+  input: { version: number },
+  actor: SignedInActor,
+): Promise<void> {
+  await sequelize.transaction(async (transaction) => {
+    const study = await loadStudy(lab, studyId, transaction);
+    requireChangeable(study, lab, actor.userId, input.version);
+    const set = await DecaySet.findOne({ where: { id: setId, labId: lab.id, studyId }, transaction });
+    if (!set) throw new AppError('not_found', 'No decay set with this id in this study.', 404);
+    const unplaced = set.outcomes.filter((outcome) => outcome.lifetime !== null && outcome.concentration === null);
+    if (unplaced.length > 0)
+      throw new AppError(
+        'concentration_needed',
+        `Nothing was saved: decay "${unplaced[0]!.label}" has no quencher concentration; keep the set again with the concentration given.`,
+        422,
+        unplaced.map((outcome) => ({ path: `decays.${outcome.index}.concentration`, message: 'missing' })),
+      );
+    const existing = await StudyPoint.findAll({ where: { studyId }, order: [['position', 'ASC']], transaction });
+    const points = existing.map(valuesOf);
+    const filled = new Set<number>();
+    for (const decay of fittedWithConcentration(set.outcomes)) {
+      const fromDecay = {
+        lifetime: decay.lifetime.value,
+        lifetimeUncertainty: decay.lifetime.standardError,
+        lifetimeDecaySetId: set.id,
+      };
+      const match = points.findIndex(
+        (point, i) => !filled.has(i) && sameConcentration(point.concentration, decay.concentration),
+      );
+      if (match !== -1) {
+        Object.assign(points[match]!, fromDecay);
+        filled.add(match);
+      } else {
+        const point: StudyPointValues = {
+          concentration: decay.concentration,
+          intensity: null,
+          lifetime: null,
+          absorbanceExcitation: null,
+          absorbanceEmission: null,
+          volumeAdded: null,
+          uncertainty: null,
+          excluded: false,
+          exclusionReason: null,
+        };
+        filled.add(points.push({ ...point, uploadId: null, ...fromDecay }) - 1);
+      }
+    }
+    const tau0 = tau0FromBlanks(set.outcomes);
+    if (tau0)
+      await study.update(
+        { tau0: tau0.value, tau0Uncertainty: tau0.standardError, tau0LifetimeId: null, tau0DecaySetId: set.id },
+        { transaction },
+      );
+    await writeSeries(study, points, actor, transaction, {
+      action: 'study_lifetimes_from_decays',
+      decaySetId: set.id,
+      ...(tau0 ? { tau0 } : {}),
+    });
+  });
+}
