@@ -1,4 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
 import { formatEstimate, UNITS } from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
@@ -8,9 +9,11 @@ import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
 import { Tag } from '@/components/tag';
 import { useSession } from '@/features/auth/api/get-session';
+import { DecaysPanel } from '@/features/decays/components/decays-panel';
 import { DrivingForcePanel } from '@/features/library/components/driving-force-panel';
 import { useStudy } from '@/features/studies/api/get-study';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
+import { studiesKeys } from '@/features/studies/api/studies-keys';
 import { useUpdateStudy } from '@/features/studies/api/update-study';
 import '@/features/studies/components/chart-setup';
 import { FilesList } from '@/features/studies/components/files-list';
@@ -101,6 +104,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
   const [editing, setEditing] = useState(false);
   const options = useStudyFormOptions(labId);
   const update = useUpdateStudy(labId, study.id);
+  const queryClient = useQueryClient();
   const editable =
     isOwner && canWrite && (study.status === 'draft' || study.status === 'returned') && study.nextRevisionId === null;
   const fit = study.latestFit;
@@ -217,6 +221,18 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
           editable={editable}
         />
       </Panel>
+      <Panel title="Lifetimes from decays">
+        <DecaysPanel
+          labId={labId}
+          study={study}
+          editable={editable}
+          onApplied={(next) => {
+            queryClient.setQueryData(studiesKeys.detail(labId, study.id), next);
+            void queryClient.invalidateQueries({ queryKey: studiesKeys.history(labId, study.id) });
+            void queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) });
+          }}
+        />
+      </Panel>
       {editable && (
         <Panel title="Upload an instrument file">
           <UploadPanel
@@ -293,7 +309,13 @@ function SetupSummary({ study }: { study: StudyDetail }) {
     [
       'τ0',
       study.tau0 !== null
-        ? `${(study.tau0 * 1e9).toPrecision(4)} ns${study.tau0LifetimeId ? ' (lifetime record)' : ''}`
+        ? `${(study.tau0 * 1e9).toPrecision(4)} ns${
+            study.tau0LifetimeId
+              ? ' (lifetime record)'
+              : study.tau0Source
+                ? ` (from decay ${study.tau0Source.fileName})`
+                : ''
+          }`
         : 'not given',
     ],
     [

@@ -1,0 +1,146 @@
+import { useRef } from 'react';
+import type { Chart } from 'chart.js';
+import { Scatter } from 'react-chartjs-2';
+import type { DecayCurves } from '@shared/schemas/decays';
+import { decayColours, paperUnderPlot, saveChartPng } from './decay-chart-setup';
+
+const NS = 1e9;
+
+/**
+ * One decay: counts on a log axis with the measured response and the fitted curve; below,
+ * the weighted residuals (c - m)/sqrt(m) and their autocorrelation, which should scatter
+ * around zero without pattern when the model holds.
+ */
+export function DecayPlot({ curves, title }: { curves: DecayCurves; title: string }) {
+  const main = useRef<Chart<'scatter'>>(null);
+  const residualChart = useRef<Chart<'scatter'>>(null);
+  const timeNs = curves.time.map((t) => t * NS);
+  const positive = (values: ReadonlyArray<number | null>) =>
+    values.flatMap((value, i) => (value !== null && value > 0 ? [{ x: timeNs[i]!, y: value }] : []));
+  const start = curves.startChannel ?? 0;
+  const residuals = (curves.weightedResiduals ?? []).map((value, i) => ({ x: timeNs[start + i]!, y: value }));
+  const autocorrelation = (curves.autocorrelation ?? []).map((value, lag) => ({ x: lag, y: value }));
+  return (
+    <figure aria-label={`Decay plot of ${curves.label}`} className="space-y-2">
+      <div className="flex justify-end gap-3">
+        <button
+          type="button"
+          className="text-caption underline"
+          onClick={() => saveChartPng(main.current, `${title} decay`)}
+        >
+          Decay as PNG
+        </button>
+        <button
+          type="button"
+          className="text-caption underline"
+          onClick={() => saveChartPng(residualChart.current, `${title} residuals`)}
+        >
+          Residuals as PNG
+        </button>
+      </div>
+      <div className="relative h-64">
+        <Scatter
+          ref={main}
+          plugins={[paperUnderPlot]}
+          data={{
+            datasets: [
+              {
+                label: 'Counts',
+                data: positive(curves.counts),
+                backgroundColor: decayColours.counts,
+                pointRadius: 1.2,
+              },
+              ...(curves.response
+                ? [
+                    {
+                      label: 'Response (IRF)',
+                      data: positive(curves.response),
+                      borderColor: decayColours.response,
+                      showLine: true,
+                      pointRadius: 0,
+                      borderWidth: 1,
+                    },
+                  ]
+                : []),
+              ...(curves.model
+                ? [
+                    {
+                      label: 'Fit',
+                      data: positive(curves.model),
+                      borderColor: decayColours.fit,
+                      showLine: true,
+                      pointRadius: 0,
+                      borderWidth: 1.5,
+                    },
+                  ]
+                : []),
+            ],
+          }}
+          options={{
+            maintainAspectRatio: false,
+            animation: false,
+            scales: {
+              x: { type: 'linear', title: { display: true, text: 'time (ns)' } },
+              y: { type: 'logarithmic', min: 1, title: { display: true, text: 'counts per channel' } },
+            },
+          }}
+        />
+      </div>
+      {residuals.length > 0 && (
+        <div className="grid gap-2 md:grid-cols-2">
+          <div className="relative h-36">
+            <Scatter
+              ref={residualChart}
+              plugins={[paperUnderPlot]}
+              data={{
+                datasets: [
+                  {
+                    label: 'Weighted residuals',
+                    data: residuals,
+                    backgroundColor: decayColours.residual,
+                    pointRadius: 1,
+                  },
+                ],
+              }}
+              options={{
+                maintainAspectRatio: false,
+                animation: false,
+                plugins: { legend: { display: false } },
+                scales: {
+                  x: { type: 'linear', title: { display: true, text: 'time (ns)' } },
+                  y: { title: { display: true, text: '(c − m)/√m' } },
+                },
+              }}
+            />
+          </div>
+          <div className="relative h-36">
+            <Scatter
+              plugins={[paperUnderPlot]}
+              data={{
+                datasets: [
+                  {
+                    label: 'Autocorrelation',
+                    data: autocorrelation,
+                    borderColor: decayColours.fit,
+                    showLine: true,
+                    pointRadius: 0,
+                    borderWidth: 1,
+                  },
+                ],
+              }}
+              options={{
+                maintainAspectRatio: false,
+                animation: false,
+                plugins: { legend: { display: false } },
+                scales: {
+                  x: { type: 'linear', title: { display: true, text: 'lag (channels)' } },
+                  y: { min: -1, max: 1, title: { display: true, text: 'autocorrelation' } },
+                },
+              }}
+            />
+          </div>
+        </div>
+      )}
+    </figure>
+  );
+}

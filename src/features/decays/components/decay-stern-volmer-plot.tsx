@@ -1,0 +1,68 @@
+import { useRef } from 'react';
+import type { Chart } from 'chart.js';
+import { Scatter } from 'react-chartjs-2';
+import type { DecaySternVolmer } from '@shared/schemas/decays';
+import { formatNumber } from '@shared/format';
+import { decayColours, paperUnderPlot, saveChartPng } from './decay-chart-setup';
+
+/** tau0/tau against [Q] from the fitted lifetimes, with tau0 and the lifetime K_SV. */
+export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: DecaySternVolmer; title: string }) {
+  const chart = useRef<Chart<'scatter'>>(null);
+  const maxQ = Math.max(...sternVolmer.points.map((point) => point.concentration));
+  return (
+    <figure aria-label="Lifetime Stern–Volmer plot" className="space-y-2">
+      <dl className="flex flex-wrap gap-6 text-body">
+        <div>
+          <dt className="text-caption uppercase text-ink-500">τ0 from the blank decay</dt>
+          <dd aria-label="Decay τ0" className="font-bold tabular-nums">
+            {formatNumber(sternVolmer.tau0.value * 1e9, 4)} ± {formatNumber(sternVolmer.tau0.standardError * 1e9, 2)} ns
+          </dd>
+        </div>
+        <div>
+          <dt className="text-caption uppercase text-ink-500">Lifetime K_SV</dt>
+          <dd aria-label="Lifetime K_SV" className="font-bold tabular-nums">
+            {formatNumber(sternVolmer.kSv.value, 4)} ± {formatNumber(sternVolmer.kSv.standardError, 2)} M⁻¹
+          </dd>
+        </div>
+        <button
+          type="button"
+          className="text-caption underline"
+          onClick={() => saveChartPng(chart.current, `${title} lifetime Stern-Volmer`)}
+        >
+          Plot as PNG
+        </button>
+      </dl>
+      <div className="relative h-56">
+        <Scatter
+          ref={chart}
+          plugins={[paperUnderPlot]}
+          data={{
+            datasets: [
+              {
+                label: 'τ0/τ',
+                data: sternVolmer.points.map((point) => ({ x: point.concentration * 1e3, y: point.ratio })),
+                backgroundColor: decayColours.counts.replace('0.55', '1'),
+                pointRadius: 5,
+              },
+              {
+                label: '1 + K_SV[Q]',
+                data: [0, maxQ].map((q) => ({ x: q * 1e3, y: 1 + sternVolmer.kSv.value * q })),
+                borderColor: decayColours.fit,
+                showLine: true,
+                pointRadius: 0,
+              },
+            ],
+          }}
+          options={{
+            maintainAspectRatio: false,
+            animation: false,
+            scales: {
+              x: { type: 'linear', title: { display: true, text: '[Q] (mM)' } },
+              y: { title: { display: true, text: 'τ0/τ' } },
+            },
+          }}
+        />
+      </div>
+    </figure>
+  );
+}

@@ -1,0 +1,275 @@
+import { useState } from 'react';
+import type { DecayModel, DecayOutcome, DecayPreview, DecaySet, DecayTimeUnit } from '@shared/schemas/decays';
+import type { StudyDetail } from '@shared/schemas/study-detail';
+import { formatNumber } from '@shared/format';
+import { Button } from '@/components/button';
+import { FormAlert } from '@/components/form-alert';
+import { SelectField } from '@/components/select-field';
+import { describeError } from '@/lib/form-errors';
+import { useApplyDecaySet } from '../api/apply-decay-set';
+import { useDecayCurves } from '../api/get-decay-curves';
+import { useStudyDecaySets } from '../api/get-study-decay-sets';
+import { useKeepDecaySet } from '../api/keep-decay-set';
+import { usePreviewDecays } from '../api/preview-decays';
+import { DecayModelPicker } from './decay-model-picker';
+import { DecayParameters } from './decay-parameters';
+import { DecayPlot } from './decay-plot';
+import { DecaySternVolmerPlot } from './decay-stern-volmer-plot';
+
+const DEFAULT_MODEL: DecayModel = {
+  components: 1,
+  method: null,
+  estimator: 'poisson',
+  startChannel: null,
+  endChannel: null,
+};
+const lifetimeText = (outcome: DecayOutcome) =>
+  outcome.lifetime
+    ? `${formatNumber(outcome.lifetime.value * 1e9, 4)} ± ${formatNumber(outcome.lifetime.standardError * 1e9, 2)}`
+    : (outcome.problem ?? '—');
+
+/** The decays of a set: [Q], lifetime, chi-squared, flags; a row button shows that decay. */
+function OutcomesTable({
+  outcomes,
+  shown,
+  onShow,
+}: {
+  outcomes: DecayOutcome[];
+  shown: number;
+  onShow: (i: number) => void;
+}) {
+  return (
+    <table aria-label="Fitted decays" className="w-full text-body">
+      <thead>
+        <tr className="text-left text-caption uppercase text-ink-500">
+          <th className="pr-3">Decay</th>
+          <th className="pr-3">[Q] (mM)</th>
+          <th className="pr-3">τ (ns)</th>
+          <th className="pr-3">χ²</th>
+          <th />
+        </tr>
+      </thead>
+      <tbody>
+        {outcomes.map((outcome) => (
+          <tr
+            key={outcome.index}
+            className={`border-b border-paper-200 ${outcome.index === shown ? 'bg-glow-50' : ''}`}
+          >
+            <td className="pr-3">{outcome.label}</td>
+            <td className="pr-3 tabular-nums">
+              {outcome.concentration === null ? 'not given' : formatNumber(outcome.concentration * 1e3, 4)}
+            </td>
+            <td className="pr-3 tabular-nums">{lifetimeText(outcome)}</td>
+            <td className="pr-3 tabular-nums">
+              {outcome.fit ? formatNumber(outcome.fit.reducedChiSquared, 3) : ''}
+              {outcome.fit && outcome.fit.flags.length > 0 ? ` · ${outcome.fit.flags.length} to check` : ''}
+            </td>
+            <td>
+              <button type="button" className="text-caption underline" onClick={() => onShow(outcome.index)}>
+                Show
+              </button>
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+/** A kept set: its decays, the one chosen drawn from the stored fit, the lifetime Stern–Volmer plot, and "use in the study". */
+function KeptSet({
+  labId,
+  set,
+  study,
+  editable,
+  onApplied,
+}: {
+  labId: string;
+  set: DecaySet;
+  study: StudyDetail;
+  editable: boolean;
+  onApplied: (study: StudyDetail) => void;
+}) {
+  const [shown, setShown] = useState(0);
+  const curves = useDecayCurves(labId, set.id, shown);
+  const apply = useApplyDecaySet(labId, study.id, onApplied);
+  const inUse =
+    study.tau0Source?.decaySetId === set.id || study.points.some((p) => p.lifetimeSource?.decaySetId === set.id);
+  return (
+    <article aria-label={`Decay set ${set.title}`} className="space-y-3 rounded-md border border-paper-300 p-3">
+      <header className="flex flex-wrap items-baseline justify-between gap-3">
+        <p className="text-body">
+          <strong>{set.title}</strong>: {set.outcomes.length} decay{set.outcomes.length === 1 ? '' : 's'}, {set.format}
+          {set.responseFile ? `, response ${set.responseFile.fileName}` : ''}.{' '}
+          <a className="text-caption underline" href={`/api/labs/${labId}/decay-files/${set.file.id}`}>
+            Raw file
+          </a>
+        </p>
+        {editable && (
+          <Button
+            variant={inUse ? 'quiet' : 'primary'}
+            pending={apply.isPending}
+            onClick={() => apply.mutate({ setId: set.id, version: study.version })}
+          >
+            {inUse ? 'Use these lifetimes again' : 'Use these lifetimes in the study'}
+          </Button>
+        )}
+      </header>
+      {apply.isError && <FormAlert>{describeError(apply.error)}</FormAlert>}
+      <OutcomesTable outcomes={set.outcomes} shown={shown} onShow={setShown} />
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        {curves.data ? <DecayPlot curves={curves.data} title={study.title} /> : <p className="text-body">Drawing…</p>}
+        {set.outcomes[shown] && <DecayParameters outcome={set.outcomes[shown]} />}
+      </div>
+      {set.sternVolmer ? (
+        <DecaySternVolmerPlot sternVolmer={set.sternVolmer} title={study.title} />
+      ) : (
+        <p className="text-caption text-ink-500">No lifetime Stern–Volmer plot: {set.sternVolmerProblem}</p>
+      )}
+    </article>
+  );
+}
+
+/**
+ * Decays of the study: choose the decay file (and a response file), look at the fits, keep the
+ * set, and put its lifetimes and tau0 into the study. Nothing is kept before "Keep".
+ */
+export function DecaysPanel({
+  labId,
+  study,
+  editable,
+  onApplied,
+}: {
+  labId: string;
+  study: StudyDetail;
+  editable: boolean;
+  onApplied: (study: StudyDetail) => void;
+}) {
+  const [file, setFile] = useState<File | null>(null);
+  const [response, setResponse] = useState<File | null>(null);
+  const [model, setModel] = useState<DecayModel>(DEFAULT_MODEL);
+  const [timeUnit, setTimeUnit] = useState<DecayTimeUnit | null>(null);
+  const [preview, setPreview] = useState<DecayPreview | null>(null);
+  const sets = useStudyDecaySets(labId, study.id);
+  const read = usePreviewDecays(labId, study.id);
+  const keep = useKeepDecaySet(labId, study.id);
+  const input = (next: {
+    file?: File;
+    response?: File | null;
+    show?: number;
+    model?: DecayModel;
+    timeUnit?: DecayTimeUnit | null;
+  }) => ({
+    file: (next.file ?? file)!,
+    response: next.response !== undefined ? next.response : response,
+    options: {
+      model: next.model ?? model,
+      timeUnit: next.timeUnit !== undefined ? next.timeUnit : timeUnit,
+      show: next.show ?? 0,
+    },
+  });
+  const look = (next: Parameters<typeof input>[0]) => {
+    if (!(next.file ?? file)) return;
+    read.mutate(input(next), { onSuccess: setPreview });
+  };
+
+  return (
+    <div className="space-y-4">
+      {editable && (
+        <div className="space-y-3">
+          <div className="grid gap-3 sm:grid-cols-2">
+            <label className="flex flex-col gap-1 text-body font-bold text-ink-900">
+              Decay file (time in the first column, one counts column per decay; .csv .txt .dat .xlsx .jdx)
+              <input
+                type="file"
+                accept=".csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp"
+                onChange={(event) => {
+                  const chosen = event.target.files?.[0];
+                  if (chosen) {
+                    setFile(chosen);
+                    look({ file: chosen });
+                  }
+                }}
+              />
+            </label>
+            <label className="flex flex-col gap-1 text-body font-bold text-ink-900">
+              Response file, if not a column of the decay file (optional)
+              <input
+                type="file"
+                accept=".csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp"
+                onChange={(event) => {
+                  const chosen = event.target.files?.[0] ?? null;
+                  setResponse(chosen);
+                  look({ response: chosen });
+                }}
+              />
+            </label>
+          </div>
+          <DecayModelPicker model={model} onChange={setModel} />
+          <div className="flex flex-wrap items-end gap-3">
+            <SelectField
+              label="Time unit, when the header names none"
+              value={timeUnit ?? ''}
+              options={[
+                { value: '', label: 'from the header' },
+                { value: 'ps', label: 'ps' },
+                { value: 'ns', label: 'ns' },
+                { value: 'us', label: 'µs' },
+              ]}
+              onChange={(event) =>
+                setTimeUnit(event.target.value === '' ? null : (event.target.value as DecayTimeUnit))
+              }
+            />
+            <Button variant="quiet" disabled={!file} pending={read.isPending} onClick={() => look({})}>
+              Fit again with these choices
+            </Button>
+          </div>
+          {read.isPending && <p className="text-body">Reading and fitting…</p>}
+          {read.isError && <FormAlert>{describeError(read.error)}</FormAlert>}
+          {preview && (
+            <div aria-label="Decay preview" className="space-y-3 rounded-md border border-paper-300 p-3">
+              <p className="text-body">
+                <strong>{preview.fileName}</strong>: {preview.format}, {preview.channels} channels
+                {preview.channelWidth ? ` of ${formatNumber(preview.channelWidth * 1e12, 4)} ps` : ''}
+                {preview.responseSource ? `, response from the ${preview.responseSource}` : ', no response'}.
+              </p>
+              {[...preview.questions, ...preview.warnings].map((text) => (
+                <FormAlert key={text} tone="note">
+                  {text}
+                </FormAlert>
+              ))}
+              <OutcomesTable
+                outcomes={preview.outcomes}
+                shown={preview.shown?.index ?? 0}
+                onShow={(index) => look({ show: index })}
+              />
+              {preview.shown && (
+                <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+                  <DecayPlot curves={preview.shown} title={study.title} />
+                  {preview.outcomes[preview.shown.index] && (
+                    <DecayParameters outcome={preview.outcomes[preview.shown.index]!} />
+                  )}
+                </div>
+              )}
+              {keep.isError && <FormAlert>{describeError(keep.error)}</FormAlert>}
+              <Button
+                pending={keep.isPending}
+                disabled={preview.questions.length > 0}
+                onClick={() => keep.mutate(input({}), { onSuccess: () => setPreview(null) })}
+              >
+                Keep this decay set
+              </Button>
+            </div>
+          )}
+        </div>
+      )}
+      {sets.isError && <FormAlert>{describeError(sets.error)}</FormAlert>}
+      {sets.data?.items.length === 0 && !editable && (
+        <p className="text-body text-ink-500">No decays kept for this study.</p>
+      )}
+      {sets.data?.items.map((set) => (
+        <KeptSet key={set.id} labId={labId} set={set} study={study} editable={editable} onApplied={onApplied} />
+      ))}
+    </div>
+  );
+}

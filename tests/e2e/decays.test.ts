@@ -1,0 +1,88 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createLabWithMembers } from '../support/accounts';
+import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
+import { startLiveServer } from '../support/live-server';
+import { syntheticDecay } from '../unit/engine/support/synthetic-decay';
+
+let browser: Browser;
+let server: Awaited<ReturnType<typeof startLiveServer>>;
+let people: Awaited<ReturnType<typeof createLabWithMembers>>['users'];
+const shot = (page: Page, name: string) => page.screenshot({ path: path.join(screenshotDir, name), fullPage: true });
+
+/*
+ * An invented titration: tau0 = 6.0 ns and K_SV = 250 M^-1 (tau = tau0/(1 + 250 [Q]), Lakowicz
+ * 3rd ed. eq. 8.2), decays made by the test's own generator (Gaussian response, Poisson noise,
+ * peak 10^4 counts), one column per concentration with [Q] in the header and the response as a column.
+ */
+const TAU0 = 6e-9;
+const K_SV = 250;
+const WIDTH = 25e-12;
+const CHANNELS = 1024;
+const concentrationsMm = [0, 1, 2, 3];
+function titrationFile(): string {
+  const decays = concentrationsMm.map((mM, i) =>
+    syntheticDecay({
+      channels: CHANNELS,
+      channelWidth: WIDTH,
+      responseCentre: 2e-9,
+      responseFwhm: 150e-12,
+      components: [{ lifetime: TAU0 / (1 + K_SV * mM * 1e-3), fraction: 1 }],
+      seed: 4200 + i,
+    }),
+  );
+  const lines = [['time (ns)', 'IRF', ...concentrationsMm.map((mM) => `[Q] ${mM} mM`)].join(',')];
+  for (let c = 0; c < CHANNELS; c++)
+    lines.push([(c * WIDTH * 1e9).toFixed(4), decays[0]!.response[c], ...decays.map((d) => d.counts[c])].join(','));
+  const file = path.join(screenshotDir, 'e2e-decay-titration.csv');
+  fs.writeFileSync(file, `${lines.join('\n')}\n`);
+  return file;
+}
+
+beforeAll(async () => {
+  server = await startLiveServer();
+  browser = await launchBrowser();
+  people = (await createLabWithMembers(server.sequelize, { roles: ['researcher'] })).users;
+  fs.mkdirSync(screenshotDir, { recursive: true });
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('decays in Chromium', () => {
+  it('when a decay set is uploaded to a study, fitted, kept and used, then tau0 and the lifetime K_SV are on screen', async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signInThroughPage(page, server.baseUrl, people.researcher);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
+    await page.getByRole('link', { name: 'New study' }).click();
+    await page.getByLabel('Title').fill('E2E decays: Ir/amine');
+    await page.getByLabel('Emitter', { exact: true }).selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('New emitter name').fill('E2E-Ir-decay');
+    await page.getByLabel('Quencher', { exact: true }).selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('New quencher name').fill('E2E-amine-decay');
+    await page.getByRole('button', { name: 'Create study' }).click();
+    await page.getByRole('heading', { name: 'E2E decays: Ir/amine', level: 1 }).waitFor();
+
+    await page.getByLabel(/Decay file/).setInputFiles(titrationFile());
+    await page.getByRole('table', { name: 'Fitted decays' }).waitFor();
+    await page.getByRole('figure', { name: 'Decay plot of [Q] 0 mM' }).waitFor();
+    await expect.poll(() => page.getByRole('table', { name: 'Fitted decays' }).textContent()).toContain('[Q] 3 mM');
+    await shot(page, 'decays-preview.png');
+    await page.getByRole('button', { name: 'Keep this decay set' }).click();
+    await page.getByRole('button', { name: 'Use these lifetimes in the study' }).click();
+    // tau0 within 1 % of 6.0 ns and K_SV within 5 % of 250 M^-1 (the numbers the decays were made with)
+    await expect
+      .poll(async () => (await page.getByLabel('Decay τ0').textContent()) ?? '')
+      .toMatch(/^(5\.9|6\.0)\d* ± /);
+    const kSv = Number(((await page.getByLabel('Lifetime K_SV').textContent()) ?? '').split(' ')[0]);
+    expect(Math.abs(kSv / K_SV - 1)).toBeLessThan(0.05);
+    await expect.poll(() => page.getByText(/ns \(from decay e2e-decay-titration\.csv\)/).count()).toBe(1);
+    await page.getByRole('figure', { name: 'Lifetime Stern–Volmer plot' }).scrollIntoViewIfNeeded();
+    await shot(page, 'decays-used.png');
+    await page.close();
+  });
+});
