@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { atmospheres } from './library-measurements';
 import { solventSchema } from './library';
-import { fitFlagSchema } from './study-fits';
+import { qualityFlagSchema } from './quality-flag';
 
 /*
  * Decay histograms (time-correlated single photon counting, multichannel scaling) and their
@@ -121,13 +121,13 @@ export const decayFitResultSchema = z
     responseWidth: z.number().nullable().describe('FWHM of the response, s'),
     iterations: z.number().int(),
     converged: z.boolean(),
-    flags: z.array(fitFlagSchema),
+    flags: z.array(qualityFlagSchema),
     parameters: z.array(z.number()).describe('the exact parameter vector, to draw the curves again'),
   })
   .meta({ id: 'DecayFitResult' });
 export type DecayFitResult = z.infer<typeof decayFitResultSchema>;
 
-/** The lifetime a decay gives a Stern–Volmer plot: tau itself, or the amplitude-weighted mean (DESIGN.md 4.11). */
+/** The lifetime a decay gives a Stern–Volmer plot: tau itself, or the amplitude-weighted mean (shared/engine/README.md section 11). */
 export const decayLifetimeSchema = z
   .object({
     value: z.number().describe('s'),

@@ -22,7 +22,7 @@ export interface DecaySetReading {
 
 /**
  * The lifetime a Stern–Volmer plot takes from a decay: tau of a single exponential, else the
- * amplitude-weighted mean sum(a tau)/sum(a) (DESIGN.md 4.11; Lakowicz, 3rd ed., 2006, ch. 4).
+ * amplitude-weighted mean sum(a tau)/sum(a) (shared/engine/README.md section 11; Lakowicz, 3rd ed., 2006, ch. 4).
  */
 export function lifetimeOf(fit: DecayFit): DecayLifetime {
   return fit.components.length === 1
