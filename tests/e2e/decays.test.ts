@@ -59,11 +59,11 @@ describe('decays in Chromium', () => {
     await signInThroughPage(page, server.baseUrl, people.researcher);
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
     await page.getByRole('link', { name: 'New study' }).click();
-    await page.getByLabel('Title').fill('E2E decays: Ir/amine');
-    await page.getByLabel('Emitter', { exact: true }).selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('Emitter (required)').selectOption({ label: '+ a new compound…' });
     await page.getByLabel('New emitter name').fill('E2E-Ir-decay');
-    await page.getByLabel('Quencher', { exact: true }).selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('Quencher (required)').selectOption({ label: '+ a new compound…' });
     await page.getByLabel('New quencher name').fill('E2E-amine-decay');
+    await page.getByLabel('Title').fill('E2E decays: Ir/amine');
     await page.getByRole('button', { name: 'Create study' }).click();
     await page.getByRole('heading', { name: 'E2E decays: Ir/amine', level: 1 }).waitFor();
 
