@@ -1,8 +1,11 @@
+import path from 'node:path';
 import { fileURLToPath, URL } from 'node:url';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { compression } from 'vite-plugin-compression2';
+import type { Plugin } from 'vite';
 import { defineConfig } from 'vitest/config';
+import { describeFirstLoad, firstLoadBudgets, measureFirstLoad } from './tests/support/first-load';
 
 const alias = {
   '@': fileURLToPath(new URL('./src', import.meta.url)),
@@ -12,6 +15,23 @@ const alias = {
 // The API server listens on PORT (default 4310); the Vite dev server proxies /api to it.
 const apiPort = process.env.PORT ?? '4310';
 
+/** After a build, prints what the budgeted screens load first (tests/e2e/first-load-budget.test.ts checks it). */
+function firstLoadReport(): Plugin {
+  let outDir = 'dist';
+  return {
+    name: 'halflight-first-load-report',
+    apply: 'build',
+    configResolved(config) {
+      outDir = path.resolve(config.root, config.build.outDir);
+    },
+    closeBundle() {
+      for (const budget of firstLoadBudgets) {
+        this.info(describeFirstLoad(measureFirstLoad(outDir, budget), budget));
+      }
+    },
+  };
+}
+
 export default defineConfig({
   // Brotli and gzip copies of every text asset, made once at build so the server never compresses
   // them per request (server/app.ts serves the copy the browser accepts).
@@ -19,6 +39,7 @@ export default defineConfig({
     react(),
     tailwindcss(),
     compression({ algorithms: ['brotliCompress', 'gzip'], threshold: 1024, logLevel: 'silent' }),
+    firstLoadReport(),
   ],
   resolve: { alias },
   server: {
@@ -27,7 +48,7 @@ export default defineConfig({
     proxy: { '/api': `http://127.0.0.1:${apiPort}` },
   },
   // The client goes to dist/client; the compiled server to dist/server (.config/build-server.mjs).
-  build: { outDir: 'dist/client', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
+  build: { outDir: 'dist/client', emptyOutDir: true, manifest: true },
   test: {
     reporters: ['default', './tests/support/plain-summary-reporter.ts'],
     projects: [

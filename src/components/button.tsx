@@ -39,7 +39,7 @@ export function Button({
     >
       {pending && (
         <span
-          className="h-3 w-3 animate-spin rounded-full border-2 border-current border-t-transparent"
+          className="h-3 w-3 motion-safe:animate-spin rounded-full border-2 border-current border-t-transparent"
           aria-hidden="true"
         />
       )}

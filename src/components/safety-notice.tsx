@@ -20,7 +20,7 @@ export function SafetyNotice({ hazards, extra = [] }: { hazards: readonly Hazard
   if (hazards.length === 0 && extra.length === 0) return null;
   return (
     <aside aria-label="Safety" className="rounded-card border border-glow-300 bg-glow-50 p-4 text-body text-ink-800">
-      <h2 className="mb-2 text-body font-black uppercase tracking-wide text-glow-700">Before you start</h2>
+      <h2 className="mb-2 text-body font-black tracking-wide text-glow-700">Before you start</h2>
       <ul className="list-disc space-y-1 pl-5">
         {hazards.map((hazard) => (
           <li key={hazard}>{cautions[hazard]}</li>

@@ -19,7 +19,7 @@ export function ScreenHeader({
   return (
     <header className={className}>
       {lab && (
-        <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
+        <p className="flex items-center gap-2 text-caption tracking-wide text-ink-500">
           {lab.labName} {lab.isDemo && <Tag tone="demo">Demo</Tag>}
         </p>
       )}

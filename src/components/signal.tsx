@@ -9,7 +9,7 @@ const toneClasses: Record<Tone, string> = {
 const dotClasses: Record<Tone, string> = {
   good: 'bg-moss-500',
   bad: 'bg-brick-500',
-  waiting: 'bg-ink-300 animate-pulse',
+  waiting: 'bg-ink-400 motion-safe:animate-pulse',
 };
 
 /** A small coloured label with a dot; the text always carries the meaning, not the colour alone. */

@@ -27,12 +27,14 @@ export function TableHead({
     (column): column is Column => column !== false && column !== null && column !== undefined,
   );
   const classFor = (index: number) => {
-    if (look === 'spaced') return 'px-3 py-2 text-left text-caption font-bold uppercase text-ink-500';
+    if (look === 'spaced') return 'px-3 py-2 text-left text-caption font-bold tracking-wide text-ink-500';
     const last = index === shown.length - 1;
     return [index === 0 ? 'py-2' : '', last ? '' : 'pr-3'].filter(Boolean).join(' ') || undefined;
   };
   return (
-    <thead className={look === 'ruled' ? 'border-b border-paper-300 text-caption uppercase text-ink-500' : undefined}>
+    <thead
+      className={look === 'ruled' ? 'border-b border-paper-300 text-caption tracking-wide text-ink-500' : undefined}
+    >
       <tr>
         {shown.map((column, index) => {
           const heading = isHeading(column) ? column : { label: column, className: '' };

@@ -1,5 +1,5 @@
-import { roleAtLeast } from '@shared/schemas/roles';
-import type { Role } from '@shared/schemas/roles';
+import { roleAtLeast } from '@shared/schemas/role-names';
+import type { Role } from '@shared/schemas/role-names';
 
 /**
  * The least role each action needs inside one lab. It mirrors the server's checks so screens only

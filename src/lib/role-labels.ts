@@ -1,5 +1,5 @@
-import { roles } from '@shared/schemas/roles';
-import type { Role } from '@shared/schemas/roles';
+import { roles } from '@shared/schemas/role-names';
+import type { Role } from '@shared/schemas/role-names';
 
 /** How roles are named on screen. */
 export const roleLabels: Record<Role, string> = {

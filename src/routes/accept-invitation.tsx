@@ -72,11 +72,11 @@ export function AcceptInvitationRoute() {
     >
       <dl className="space-y-2 rounded-md bg-paper-100 p-3 text-body">
         <div>
-          <dt className="text-caption uppercase text-ink-500">What a {roleLabels[role].toLowerCase()} can do</dt>
+          <dt className="text-caption tracking-wide text-ink-500">What a {roleLabels[role].toLowerCase()} can do</dt>
           <dd className="text-ink-800">{roleDescriptions[role]}</dd>
         </div>
         <div>
-          <dt className="text-caption uppercase text-ink-500">Link valid until</dt>
+          <dt className="text-caption tracking-wide text-ink-500">Link valid until</dt>
           <dd className="text-ink-800">{formatDateTime(expiresAt)}</dd>
         </div>
       </dl>

@@ -10,6 +10,7 @@ import { useCaughtMail } from '@/features/mail/api/get-caught-mail';
 import { MailList } from '@/features/mail/components/mail-list';
 import { MailReader } from '@/features/mail/components/mail-reader';
 import { ScreenHeader } from '@/components/screen-header';
+import { Tag } from '@/components/tag';
 
 const pageSize = 20;
 
@@ -41,7 +42,7 @@ function CaughtMailScreen() {
         </p>
       </ScreenHeader>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
-        <Panel title="Messages" aside={mail.data && <Signal tone="good">{`${mail.data.total} caught`}</Signal>}>
+        <Panel title="Messages" aside={mail.data && <Tag tone="neutral">{`${mail.data.total} caught`}</Tag>}>
           {mail.isPending && <Signal tone="waiting">Loading messages</Signal>}
           {mail.isError && <ErrorNotice error={mail.error} what="the caught mail" />}
           {mail.data && <MailList items={mail.data.items} selectedId={selectedId} onSelect={setSelectedId} />}

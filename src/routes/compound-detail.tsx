@@ -23,6 +23,7 @@ import { describeError } from '@/lib/form-errors';
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
+import { Tag } from '@/components/tag';
 
 /** One compound: potentials in the lab's reference with the originals, excited-state potentials, lifetimes, E00, driving force. */
 export function CompoundDetailRoute() {
@@ -62,7 +63,7 @@ export function CompoundDetailRoute() {
         </FormAlert>
       )}
       {remove.isError && <FormAlert>{describeError(remove.error)}</FormAlert>}
-      <Panel title="Redox potentials" aside={<Signal tone="good">{`shown vs ${data.displayReference}`}</Signal>}>
+      <Panel title="Redox potentials" aside={<Tag tone="neutral">{`shown vs ${data.displayReference}`}</Tag>}>
         <PotentialsTable
           labId={labId}
           compoundId={data.id}

@@ -17,6 +17,7 @@ import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
 import { ScreenHeader } from '@/components/screen-header';
+import { Tag } from '@/components/tag';
 
 const pageSize = 25;
 
@@ -61,7 +62,7 @@ function LibraryScreen({
       </ScreenHeader>
       <Panel
         title="Compounds"
-        aside={compounds.data && <Signal tone="good">{`${compounds.data.total} in the library`}</Signal>}
+        aside={compounds.data && <Tag tone="neutral">{`${compounds.data.total} in the library`}</Tag>}
       >
         <div className="mb-3 grid gap-3 sm:grid-cols-[2fr_1fr]">
           <TextField

@@ -13,6 +13,7 @@ import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
 import { ScreenHeader } from '@/components/screen-header';
+import { Tag } from '@/components/tag';
 
 /** Who works in the lab and with which role; admins invite, re-role and remove people here. */
 export function MembersRoute() {
@@ -58,7 +59,7 @@ function MembersScreen({ labId, labName, isDemo, canManage, selfUserId }: Member
       </ScreenHeader>
       <Panel
         title="People"
-        aside={members.data && <Signal tone="good">{`${members.data.members.length} in the lab`}</Signal>}
+        aside={members.data && <Tag tone="neutral">{`${members.data.members.length} in the lab`}</Tag>}
       >
         {members.isPending && <Signal tone="waiting">Loading members</Signal>}
         {members.isError && <ErrorNotice error={members.error} what="the members" />}

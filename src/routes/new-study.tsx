@@ -47,7 +47,7 @@ export function NewStudyRoute() {
   return (
     <div className="max-w-5xl space-y-6">
       <header>
-        <p className="text-caption text-ink-500">{lab.labName}</p>
+        <p className="text-caption tracking-wide text-ink-500">{lab.labName}</p>
         <h1 className="text-display font-black text-ink-950">New quenching study</h1>
         <p className="mt-1 text-lead text-ink-700">
           One emitter against one quencher in one solvent: pick them, drop the instrument export, check the preview, and

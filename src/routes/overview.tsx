@@ -13,7 +13,7 @@ import { useHealth } from '@/features/system/api/get-health';
 function Fact({ label, value }: { label: string; value: string }) {
   return (
     <div>
-      <dt className="text-caption uppercase text-ink-500">{label}</dt>
+      <dt className="text-caption tracking-wide text-ink-500">{label}</dt>
       <dd className="text-body font-bold text-ink-900">{value}</dd>
     </div>
   );

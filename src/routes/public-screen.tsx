@@ -15,7 +15,7 @@ export function PublicScreen({ title, kicker, lead, children, footer }: PublicSc
   return (
     <div className="space-y-5">
       <header className="space-y-1">
-        {kicker && <p className="text-caption uppercase text-ink-500">{kicker}</p>}
+        {kicker && <p className="text-caption tracking-wide text-ink-500">{kicker}</p>}
         <h1 className="text-title font-black text-ink-950">{title}</h1>
         {lead && <p className="text-body text-ink-700">{lead}</p>}
       </header>

@@ -10,7 +10,10 @@ export function RouteErrorScreen() {
       ? error.message
       : 'Unknown problem';
   return (
-    <div role="alert" className="m-10 max-w-xl space-y-3 rounded-card border border-brick-500/40 bg-brick-100 p-6">
+    <div
+      role="alert"
+      className="m-4 max-w-xl sm:m-10 space-y-3 rounded-card border border-brick-500/40 bg-brick-100 p-6"
+    >
       <h1 className="text-title font-black text-brick-700">This screen ran into a problem</h1>
       <p className="text-body text-brick-700">{detail}</p>
       <p className="text-body text-ink-800">Nothing you saved is lost. Try again, or go back to the overview.</p>

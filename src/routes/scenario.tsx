@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { SOLVENTS } from '@shared/engine';
+import { SOLVENTS } from '@shared/engine/kinetics/solvents';
 import { Button } from '@/components/button';
 import { ErrorNotice } from '@/components/error-notice';
 import { FormAlert } from '@/components/form-alert';

@@ -1,19 +1,17 @@
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { lazy, Suspense, useEffect, useRef, useState } from 'react';
+import type { FormEvent } from 'react';
 import { useLocation, useNavigate, useSearchParams } from 'react-router-dom';
-import { signInSchema } from '@shared/schemas/auth';
 import { FormAlert } from '@/components/form-alert';
 import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { TextLink } from '@/components/text-link';
 import { needsSecondStep, useSignIn } from '@/features/auth/api/sign-in';
-import { SecondStepForm } from '@/features/auth/components/second-step-form';
-import { showServerErrors } from '@/lib/form-errors';
+import { checkWithSchema } from '@/lib/check-with-schema';
+import { serverFieldErrors } from '@/lib/form-errors';
+import { focusHeading, whenHeadingAppears } from '@/lib/screen-heading';
 import { safeReturnAddress } from './session-loaders';
 import { paths } from '@/lib/paths';
 import { PublicScreen } from './public-screen';
-import { fieldsOf } from '@/lib/form-field';
 
 /** A message another screen leaves for this one, e.g. after a new password was set. */
 function noticeFrom(state: unknown): string | null {
@@ -22,30 +20,67 @@ function noticeFrom(state: unknown): string | null {
     : null;
 }
 
-/** Sign in with e-mail and password, then back to where the person was going. */
+const fields = ['email', 'password'] as const;
+type Field = (typeof fields)[number];
+type Problems = Partial<Record<Field | 'form', string>>;
+
+// The shared schema arrives with the first check, not with the screen: the first load stays small.
+const loadSignInSchema = () => import('@shared/schemas/auth').then((module) => module.signInSchema);
+// Only accounts with two-step sign-in see the code form: it (and its form library) loads when asked for.
+const SecondStepForm = lazy(() =>
+  import('@/features/auth/components/second-step-form').then((module) => ({ default: module.SecondStepForm })),
+);
+
+/**
+ * Sign in with e-mail and password, then back to where the person was going. The one form without
+ * react-hook-form: two fields, checked with the shared schema, so the first screen of every visit
+ * loads neither the form library nor the schema library.
+ */
 export function SignInRoute() {
   const [params] = useSearchParams();
   const { state } = useLocation();
   const navigate = useNavigate();
   const signIn = useSignIn();
-  const form = useForm({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
-  const { errors } = form.formState;
-  const field = fieldsOf(form);
+  const [problems, setProblems] = useState<Problems>({});
+  const fieldsArea = useRef<HTMLDivElement>(null);
   const notice = noticeFrom(state);
   const [secondStep, setSecondStep] = useState(false);
-  const goOn = () => navigate(safeReturnAddress(params.get('next')), { replace: true });
+  const goOn = () => void navigate(safeReturnAddress(params.get('next')), { replace: true });
 
-  const onSubmit = form.handleSubmit((values) =>
-    signIn.mutate(values, {
+  // The address stays the same for the code step: move focus to its heading here.
+  useEffect(() => (secondStep ? whenHeadingAppears(focusHeading) : undefined), [secondStep]);
+
+  function show(found: Problems) {
+    setProblems(found);
+    const first = fields.find((field) => found[field]);
+    const input = first ? fieldsArea.current?.querySelector<HTMLElement>(`[name="${first}"]`) : null;
+    input?.focus();
+  }
+
+  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const data = new FormData(event.currentTarget);
+    const checked = await checkWithSchema(loadSignInSchema, {
+      email: String(data.get('email') ?? ''),
+      password: String(data.get('password') ?? ''),
+    });
+    if (!checked.ok) return show(checked.errors);
+    setProblems({});
+    signIn.mutate(checked.data, {
       onSuccess: (answer) => (needsSecondStep(answer) ? setSecondStep(true) : goOn()),
-      onError: (error) => showServerErrors(error, form.setError, ['email', 'password']),
-    }),
-  );
+      onError: (error) => {
+        const sorted = serverFieldErrors(error, fields);
+        show({ ...sorted.fields, ...(sorted.form ? { form: sorted.form } : {}) });
+      },
+    });
+  }
 
   if (secondStep) {
     return (
       <PublicScreen title="One more step" lead="Your password was right. Your account also asks for a code.">
-        <SecondStepForm onSignedIn={goOn} />
+        <Suspense fallback={<p className="text-body text-ink-700">Opening the code form…</p>}>
+          <SecondStepForm onSignedIn={goOn} />
+        </Suspense>
       </PublicScreen>
     );
   }
@@ -62,15 +97,23 @@ export function SignInRoute() {
     >
       {notice && <FormAlert tone="good">{notice}</FormAlert>}
       <FormShell
-        onSubmit={onSubmit}
-        problem={errors.root?.server?.message}
+        onSubmit={(event) => void onSubmit(event)}
+        problem={problems.form}
         submitLabel="Sign in"
         pendingLabel="Signing in…"
         pending={signIn.isPending}
         wide
       >
-        <TextField label="E-mail" type="email" autoComplete="username" {...field('email')} />
-        <TextField label="Password" type="password" autoComplete="current-password" {...field('password')} />
+        <div ref={fieldsArea} className="space-y-4">
+          <TextField label="E-mail" name="email" type="email" autoComplete="username" error={problems.email} />
+          <TextField
+            label="Password"
+            name="password"
+            type="password"
+            autoComplete="current-password"
+            error={problems.password}
+          />
+        </div>
       </FormShell>
     </PublicScreen>
   );

@@ -16,6 +16,7 @@ import { StatusSignal } from '@/features/studies/components/status-signal';
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
+import { TableScroll } from '@/components/table-scroll';
 
 const FILTERS = [
   'emitterId',
@@ -68,7 +69,7 @@ export function StudiesRoute() {
     <div className="max-w-6xl space-y-6">
       <header className="flex items-end justify-between">
         <div>
-          <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
+          <p className="flex items-center gap-2 text-caption tracking-wide text-ink-500">
             {lab.labName} {lab.isDemo && <Tag tone="demo">Demo</Tag>}
           </p>
           <h1 className="text-display font-black text-ink-950">Studies</h1>
@@ -139,46 +140,48 @@ export function StudiesRoute() {
       )}
       {studies.data && studies.data.items.length > 0 && (
         <Panel title={`${studies.data.total} ${studies.data.total === 1 ? 'study' : 'studies'}`}>
-          <table className="w-full text-body">
-            <thead>
-              <tr className="text-left text-caption text-ink-500">
-                <th>Title</th>
-                <th>Emitter → quencher</th>
-                <th>Solvent</th>
-                <th>K_SV (M⁻¹)</th>
-                <th>kq (M⁻¹ s⁻¹)</th>
-                <th>Status</th>
-                <th>Owner</th>
-                <th>Changed</th>
-              </tr>
-            </thead>
-            <tbody>
-              {studies.data.items.map((study) => (
-                <tr key={study.id} className="border-t border-paper-200">
-                  <td className="py-2">
-                    <Link className="font-bold text-ink-900 underline" to={paths.study(labId, study.id)}>
-                      {study.title}
-                    </Link>
-                    {study.revision > 1 && <span className="text-caption text-ink-500"> rev. {study.revision}</span>}
-                  </td>
-                  <td>
-                    {study.emitter.name} → {study.quencher.name}
-                  </td>
-                  <td>{study.solventLabel}</td>
-                  <td>{formatNumber(study.kSv)}</td>
-                  <td>
-                    {formatNumber(study.kq)}
-                    {study.flagged && <span className="ml-1 text-caption font-bold text-brick-700">flagged</span>}
-                  </td>
-                  <td>
-                    <StatusSignal status={study.status} />
-                  </td>
-                  <td>{study.ownerName}</td>
-                  <td className="text-caption">{formatDate(study.updatedAt)}</td>
+          <TableScroll label="Studies, scrolls sideways">
+            <table className="w-full text-body">
+              <thead>
+                <tr className="text-left text-caption text-ink-500">
+                  <th>Title</th>
+                  <th>Emitter → quencher</th>
+                  <th>Solvent</th>
+                  <th>K_SV (M⁻¹)</th>
+                  <th>kq (M⁻¹ s⁻¹)</th>
+                  <th>Status</th>
+                  <th>Owner</th>
+                  <th>Changed</th>
                 </tr>
-              ))}
-            </tbody>
-          </table>
+              </thead>
+              <tbody>
+                {studies.data.items.map((study) => (
+                  <tr key={study.id} className="border-t border-paper-200">
+                    <td className="py-2">
+                      <Link className="font-bold text-ink-900 underline" to={paths.study(labId, study.id)}>
+                        {study.title}
+                      </Link>
+                      {study.revision > 1 && <span className="text-caption text-ink-500"> rev. {study.revision}</span>}
+                    </td>
+                    <td>
+                      {study.emitter.name} → {study.quencher.name}
+                    </td>
+                    <td>{study.solventLabel}</td>
+                    <td>{formatNumber(study.kSv)}</td>
+                    <td>
+                      {formatNumber(study.kq)}
+                      {study.flagged && <span className="ml-1 text-caption font-bold text-brick-700">flagged</span>}
+                    </td>
+                    <td>
+                      <StatusSignal status={study.status} />
+                    </td>
+                    <td>{study.ownerName}</td>
+                    <td className="text-caption">{formatDate(study.updatedAt)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </TableScroll>
           <nav aria-label="Pages" className="mt-3 flex items-center gap-3 text-body">
             <button
               type="button"

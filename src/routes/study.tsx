@@ -116,7 +116,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
   return (
     <div className="max-w-6xl space-y-6">
       <header className="space-y-1">
-        <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
+        <p className="flex items-center gap-2 text-caption tracking-wide text-ink-500">
           <Link to={paths.studies(labId)} className="underline">
             {labName} · Studies
           </Link>{' '}
@@ -330,13 +330,13 @@ function SetupSummary({ study }: { study: StudyDetail }) {
     <dl className="grid grid-cols-2 gap-2 text-body md:grid-cols-3">
       {facts.map(([label, value]) => (
         <div key={label}>
-          <dt className="text-caption uppercase text-ink-500">{label}</dt>
+          <dt className="text-caption tracking-wide text-ink-500">{label}</dt>
           <dd className="font-bold">{value}</dd>
         </div>
       ))}
       {study.notes && (
         <div className="col-span-full">
-          <dt className="text-caption uppercase text-ink-500">Notes</dt>
+          <dt className="text-caption tracking-wide text-ink-500">Notes</dt>
           <dd className="whitespace-pre-wrap">{study.notes}</dd>
         </div>
       )}

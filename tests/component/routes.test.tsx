@@ -1,6 +1,5 @@
 import { QueryClientProvider } from '@tanstack/react-query';
 import { cleanup, render, screen } from '@testing-library/react';
-import type { ReactElement } from 'react';
 import { createMemoryRouter, matchRoutes, RouterProvider } from 'react-router-dom';
 import { describe, expect, it } from 'vitest';
 import type { Session } from '@shared/schemas/auth';
@@ -30,14 +29,16 @@ const lab = '0b7e6d4e-1c2a-4f5e-9d3b-2a1c0e9f8d7a';
 const otherLab = '5f4e3d2c-1b0a-4c9d-8e7f-6a5b4c3d2e1f';
 const id = '9a8b7c6d-5e4f-4a3b-8c2d-1e0f9a8b7c6d';
 
-/** The screen the router shows at an address: the element of the deepest matching route. */
-function screenAt(address: string) {
+/** The screen the router shows at an address: the component the deepest matching route loads. */
+async function screenAt(address: string) {
   const matches = matchRoutes(appRoutes, address) ?? [];
-  return (matches.at(-1)?.route.element as ReactElement | undefined)?.type;
+  const lazy = matches.at(-1)?.route.lazy;
+  if (typeof lazy !== 'function') return undefined;
+  return ((await lazy()) as { Component?: unknown }).Component;
 }
 
 describe('client addresses', () => {
-  it('when an address that worked before is opened, then the same screen answers it', () => {
+  it('when an address that worked before is opened, then the same screen answers it', async () => {
     const before: [string, unknown][] = [
       ['/', OverviewRoute],
       ['/sign-in', SignInRoute],
@@ -61,19 +62,20 @@ describe('client addresses', () => {
       [`/labs/${lab}/nothing-here`, NotFoundRoute],
       ['/nothing-here', NotFoundRoute],
     ];
-    expect(before.map(([address]) => [address, screenAt(address)])).toEqual(before);
+    const found = await Promise.all(before.map(async ([address]) => [address, await screenAt(address)]));
+    expect(found).toEqual(before);
   });
 
-  it('when a link is built from paths, then it leads to the screen it names', () => {
-    expect(screenAt(paths.study(lab, id))).toBe(StudyRoute);
-    expect(screenAt(paths.compound(lab, id, 'add-potential').split('#')[0]!)).toBe(CompoundDetailRoute);
-    expect(screenAt(paths.newStudy(lab, { emitterId: id, title: 'Titration with TEA' }).split('?')[0]!)).toBe(
+  it('when a link is built from paths, then it leads to the screen it names', async () => {
+    expect(await screenAt(paths.study(lab, id))).toBe(StudyRoute);
+    expect(await screenAt(paths.compound(lab, id, 'add-potential').split('#')[0]!)).toBe(CompoundDetailRoute);
+    expect(await screenAt(paths.newStudy(lab, { emitterId: id, title: 'Titration with TEA' }).split('?')[0]!)).toBe(
       NewStudyRoute,
     );
-    expect(screenAt(paths.scenario(lab, id))).toBe(ScenarioRoute);
-    expect(screenAt(paths.labSettings(lab))).toBe(LibrarySettingsRoute);
-    expect(screenAt(paths.caughtMail())).toBe(CaughtMailRoute);
-    expect(screenAt(paths.accountSessions())).toBe(AccountSessionsRoute);
+    expect(await screenAt(paths.scenario(lab, id))).toBe(ScenarioRoute);
+    expect(await screenAt(paths.labSettings(lab))).toBe(LibrarySettingsRoute);
+    expect(await screenAt(paths.caughtMail())).toBe(CaughtMailRoute);
+    expect(await screenAt(paths.accountSessions())).toBe(AccountSessionsRoute);
   });
 
   it('when a query is given, then empty values are left out and the rest is encoded', () => {

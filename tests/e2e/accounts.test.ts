@@ -159,7 +159,10 @@ describe('accounts in Chromium', () => {
     await expect(page.getByLabel(`Role of ${users.admin.name}`).inputValue()).resolves.toBe('admin');
     await shot(page, 'members-last-admin.png');
 
-    await page.getByRole('complementary').getByLabel('Switch lab').selectOption(demoLab.id);
+    await page
+      .getByRole('complementary')
+      .getByRole('button', { name: /Demo — Lantern Bay Group/ })
+      .click();
     await page.waitForURL(`${server.baseUrl}/labs/${demoLab.id}/members`);
     const rail = page.getByRole('complementary');
     await rail.getByText('Researcher', { exact: true }).waitFor();

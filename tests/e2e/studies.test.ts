@@ -125,7 +125,7 @@ describe('studies in Chromium', () => {
     for (const [what, suffix] of figures) {
       const [download] = await Promise.all([
         page.waitForEvent('download'),
-        page.getByRole('button', { name: `Save the ${what} as PNG` }).click(),
+        page.getByRole('button', { name: `Save as PNG: the ${what}` }).click(),
       ]);
       expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}.png`);
       const saved = path.join(screenshotDir, `figure-${suffix}.png`);

@@ -4,55 +4,58 @@ import { formatEstimate, formatFixed, formatNumber, UNITS } from '@shared/format
 import { Signal } from '@/components/signal';
 import { paths } from '@/lib/paths';
 import { TableHead } from '@/components/table-head';
+import { TableScroll } from '@/components/table-scroll';
 
 /** One row per study: the other compound, kq ± SE, K_SV, solvent, driving force, flags and review state. */
 export function ComparisonTable({ comparison, labId }: { comparison: Comparison; labId: string }) {
   const partner = comparison.side === 'emitter' ? 'Quencher' : 'Emitter';
   return (
-    <table className="w-full text-left text-body">
-      <caption className="sr-only">Studies of {comparison.compound.name}</caption>
-      <TableHead
-        look="ruled"
-        columns={[
-          partner,
-          `kq (${UNITS.perMolarPerSecond})`,
-          `K_SV (${UNITS.perMolar})`,
-          'Solvent',
-          `ΔG_ET (${UNITS.electronvolt})`,
-          'Flags',
-          'Review',
-        ]}
-      />
-      <tbody>
-        {comparison.rows.map((row) => (
-          <tr
-            key={row.studyId}
-            className={`border-b border-paper-200 tabular-nums ${row.status === 'approved' ? '' : 'text-ink-600'}`}
-          >
-            <th scope="row" className="py-1.5 pr-3 font-bold">
-              <Link to={paths.study(labId, row.studyId)} className="underline decoration-glow-400">
-                {row.partner.name}
-              </Link>
-            </th>
-            <td className="pr-3">{row.kq ? formatEstimate(row.kq.value, row.kq.standardError) : '—'}</td>
-            <td className="pr-3">{row.kSv ? formatNumber(row.kSv.value) : '—'}</td>
-            <td className="pr-3">{row.solvent}</td>
-            <td className="pr-3" title={row.drivingForceMissing ?? undefined}>
-              {row.drivingForce
-                ? `${formatFixed(row.drivingForce.electronvolts, 2, { signed: true })} (${row.drivingForce.pathway === 'oxidative' ? 'ox.' : 'red.'})`
-                : 'missing'}
-            </td>
-            <td className="pr-3 text-caption">{row.flags.map((flag) => flag.title).join('; ') || '—'}</td>
-            <td>
-              {row.status === 'approved' ? (
-                <Signal tone="good">approved</Signal>
-              ) : (
-                <Signal tone="waiting">{row.status}</Signal>
-              )}
-            </td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <TableScroll label="Comparison, scroll sideways">
+      <table className="w-full text-left text-body">
+        <caption className="sr-only">Studies of {comparison.compound.name}</caption>
+        <TableHead
+          look="ruled"
+          columns={[
+            partner,
+            `kq (${UNITS.perMolarPerSecond})`,
+            `K_SV (${UNITS.perMolar})`,
+            'Solvent',
+            `ΔG_ET (${UNITS.electronvolt})`,
+            'Flags',
+            'Review',
+          ]}
+        />
+        <tbody>
+          {comparison.rows.map((row) => (
+            <tr
+              key={row.studyId}
+              className={`border-b border-paper-200 tabular-nums ${row.status === 'approved' ? '' : 'text-ink-600'}`}
+            >
+              <th scope="row" className="py-1.5 pr-3 font-bold">
+                <Link to={paths.study(labId, row.studyId)} className="underline decoration-glow-400">
+                  {row.partner.name}
+                </Link>
+              </th>
+              <td className="pr-3">{row.kq ? formatEstimate(row.kq.value, row.kq.standardError) : '—'}</td>
+              <td className="pr-3">{row.kSv ? formatNumber(row.kSv.value) : '—'}</td>
+              <td className="pr-3">{row.solvent}</td>
+              <td className="pr-3" title={row.drivingForceMissing ?? undefined}>
+                {row.drivingForce
+                  ? `${formatFixed(row.drivingForce.electronvolts, 2, { signed: true })} (${row.drivingForce.pathway === 'oxidative' ? 'ox.' : 'red.'})`
+                  : 'missing'}
+              </td>
+              <td className="pr-3 text-caption">{row.flags.map((flag) => flag.title).join('; ') || '—'}</td>
+              <td>
+                {row.status === 'approved' ? (
+                  <Signal tone="good">approved</Signal>
+                ) : (
+                  <Signal tone="waiting">{row.status}</Signal>
+                )}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </TableScroll>
   );
 }

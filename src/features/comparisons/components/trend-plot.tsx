@@ -58,8 +58,10 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
     return sets;
   });
   return (
-    <div className="h-80" role="img" aria-label="Plot of log kq against the driving force, one series per solvent">
+    <div className="h-80">
       <Scatter
+        aria-label="Plot of log kq against the driving force, one series per solvent; the values are in the table"
+
         data={{ datasets: datasets as never }}
         options={{
           maintainAspectRatio: false,

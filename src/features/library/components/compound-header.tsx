@@ -46,7 +46,7 @@ export function CompoundHeader({
     .join(' · ');
   return (
     <header className="space-y-2">
-      <p className="flex items-center gap-2 text-caption uppercase text-ink-500">
+      <p className="flex items-center gap-2 text-caption tracking-wide text-ink-500">
         <TextLink to={paths.library(labId)}>Library</TextLink> {labName} {isDemo && <Tag tone="demo">Demo</Tag>}
       </p>
       <div className="flex flex-wrap items-center gap-3">

@@ -5,6 +5,7 @@ import { TextLink } from '@/components/text-link';
 import { roleHintLabels } from './library-format';
 import { paths } from '@/lib/paths';
 import { TableHead } from '@/components/table-head';
+import { TableScroll } from '@/components/table-scroll';
 
 /** One page of the library; each name opens the compound. */
 export function CompoundTable({
@@ -27,7 +28,7 @@ export function CompoundTable({
   }
   const cell = 'px-3 py-2.5';
   return (
-    <div className="overflow-x-auto">
+    <TableScroll label="Compounds, scroll sideways">
       <table className="w-full text-body">
         <TableHead
           look="spaced"
@@ -50,6 +51,6 @@ export function CompoundTable({
           ))}
         </tbody>
       </table>
-    </div>
+    </TableScroll>
   );
 }

@@ -1,7 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
 import { z } from 'zod';
-import { e00FromWavelength, EngineError, MAX_WAVELENGTH_NM, MIN_WAVELENGTH_NM } from '@shared/engine';
+import { EngineError } from '@shared/engine/core/engine-error';
+import {
+  e00FromWavelength,
+  MAX_WAVELENGTH_NM,
+  MIN_WAVELENGTH_NM,
+} from '@shared/engine/electrochem/e00-from-wavelength';
 import type { EnergyInput, EnergyRecord } from '@shared/schemas/library-measurements';
 import { useSaveMeasurement } from '../api/save-measurement';
 import { MeasurementForm, type MeasurementFormSpec } from './measurement-form';

@@ -14,7 +14,7 @@ function Source({ used }: { used: UsedPotential }) {
 
 /** E*(PC+/PC*) = E(PC+/PC) − E00 and E*(PC* / PC−) = E(PC/PC−) + E00, each beside the numbers it comes from. */
 export function ExcitedStatePanel({ state }: { state: ExcitedState }) {
-  const row = 'grid grid-cols-[minmax(10rem,auto)_1fr] gap-x-4 border-t border-paper-200 py-2';
+  const row = 'grid gap-x-4 sm:grid-cols-[minmax(10rem,auto)_1fr] border-t border-paper-200 py-2';
   return (
     <Panel title="Excited-state potentials">
       <div className="text-body">

@@ -1,4 +1,5 @@
-import { REFERENCE_ELECTRODES, SOLVENTS } from '@shared/engine';
+import { REFERENCE_ELECTRODES } from '@shared/engine/electrochem/reference-electrodes';
+import { SOLVENTS } from '@shared/engine/kinetics/solvents';
 import { formatFixed, formatNumber, UNITS } from '@shared/format';
 
 /** Potentials with sign and two decimals, as papers report them: "+1.21 V". */

@@ -2,9 +2,11 @@ import { useState } from 'react';
 import { libraryCsvColumns } from '@shared/schemas/library-import';
 import type { ImportReport } from '@shared/schemas/library-import';
 import { Button } from '@/components/button';
+import { FileField } from '@/components/file-field';
 import { FormAlert } from '@/components/form-alert';
 import { describeError } from '@/lib/form-errors';
 import { libraryExportUrl, useImportLibrary } from '../api/import-library';
+import { TableScroll } from '@/components/table-scroll';
 
 /** Check a CSV file first (every problem by row and column), then import it whole or not at all. */
 export function LibraryImportPanel({ labId, canImport }: { labId: string; canImport: boolean }) {
@@ -13,9 +15,8 @@ export function LibraryImportPanel({ labId, canImport }: { labId: string; canImp
   const [fileName, setFileName] = useState('');
   const [report, setReport] = useState<ImportReport | null>(null);
 
-  async function choose(file: File | undefined) {
+  async function choose(file: File) {
     setReport(null);
-    if (!file) return;
     setFileName(file.name);
     const text = await file.text();
     setCsv(text);
@@ -37,19 +38,14 @@ export function LibraryImportPanel({ labId, canImport }: { labId: string; canImp
       </p>
       {canImport && (
         <>
-          <label className="flex flex-col gap-1">
-            <span className="font-bold text-ink-900">CSV file to import</span>
-            <input
-              type="file"
-              accept=".csv,text/csv"
-              onChange={(event) => void choose(event.target.files?.[0])}
-              className="text-body"
-            />
-          </label>
-          <p className="text-caption text-ink-500">
-            Columns: {libraryCsvColumns.join(', ')}. Potentials in V, lifetimes in s, E00 in eV or nm. Files separated
-            by semicolons may use decimal commas (1,21).
-          </p>
+          <FileField
+            label="CSV file to import"
+            accept=".csv,text/csv"
+            fileName={fileName || null}
+            disabled={importer.isPending}
+            onFile={(file) => void choose(file)}
+            hint={`Columns: ${libraryCsvColumns.join(', ')}. Potentials in V, lifetimes in s, E00 in eV or nm. Files separated by semicolons may use decimal commas (1,21).`}
+          />
           {importer.isError && <FormAlert>{describeError(importer.error)}</FormAlert>}
           {report && report.problems.length > 0 && (
             <div role="region" aria-label="Problems in the file" className="space-y-1">
@@ -57,24 +53,26 @@ export function LibraryImportPanel({ labId, canImport }: { labId: string; canImp
                 {fileName}: {report.problems.length === 1 ? '1 problem' : `${report.problems.length} problems`}; nothing
                 will be saved until the file is fixed.
               </FormAlert>
-              <table className="w-full text-caption">
-                <thead>
-                  <tr>
-                    <th className="px-2 py-1 text-left">Row</th>
-                    <th className="px-2 py-1 text-left">Column</th>
-                    <th className="px-2 py-1 text-left">Reason</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {report.problems.map((problem, index) => (
-                    <tr key={index} className="border-t border-paper-200">
-                      <td className="px-2 py-1">{problem.row}</td>
-                      <td className="px-2 py-1">{problem.column || '—'}</td>
-                      <td className="px-2 py-1">{problem.reason}</td>
+              <TableScroll label="Rows to import, scrolls sideways">
+                <table className="w-full text-caption">
+                  <thead>
+                    <tr>
+                      <th className="px-2 py-1 text-left">Row</th>
+                      <th className="px-2 py-1 text-left">Column</th>
+                      <th className="px-2 py-1 text-left">Reason</th>
                     </tr>
-                  ))}
-                </tbody>
-              </table>
+                  </thead>
+                  <tbody>
+                    {report.problems.map((problem, index) => (
+                      <tr key={index} className="border-t border-paper-200">
+                        <td className="px-2 py-1">{problem.row}</td>
+                        <td className="px-2 py-1">{problem.column || '—'}</td>
+                        <td className="px-2 py-1">{problem.reason}</td>
+                      </tr>
+                    ))}
+                  </tbody>
+                </table>
+              </TableScroll>
             </div>
           )}
           {report && report.problems.length === 0 && !report.saved && csv && (

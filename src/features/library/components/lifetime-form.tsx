@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
 import { z } from 'zod';
-import { fromMicroseconds, fromNanoseconds } from '@shared/engine';
+import { fromMicroseconds, fromNanoseconds } from '@shared/units/units';
 import { atmospheres, lifetimeInputSchema } from '@shared/schemas/library-measurements';
 import type { LifetimeRecord, LifetimeValues } from '@shared/schemas/library-measurements';
 import { useSaveMeasurement } from '../api/save-measurement';

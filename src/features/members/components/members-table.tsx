@@ -8,6 +8,7 @@ import { useRemoveMember } from '../api/remove-member';
 import { describeMemberProblem } from './member-problem';
 import { MemberRow } from './member-row';
 import { TableHead } from '@/components/table-head';
+import { TableScroll } from '@/components/table-scroll';
 
 interface MembersTableProps {
   labId: string;
@@ -48,7 +49,7 @@ export function MembersTable({ labId, members, canManage, selfUserId, onSelfChan
   return (
     <div className="space-y-3">
       {problem && <FormAlert>{problem}</FormAlert>}
-      <div className="overflow-x-auto">
+      <TableScroll label="Members, scroll sideways">
         <table className="w-full text-body">
           <TableHead
             look="spaced"
@@ -74,7 +75,7 @@ export function MembersTable({ labId, members, canManage, selfUserId, onSelfChan
             ))}
           </tbody>
         </table>
-      </div>
+      </TableScroll>
     </div>
   );
 }

@@ -1,5 +1,6 @@
 import type { TitrationPlanResult } from '@shared/schemas/planner';
 import { TableHead } from '@/components/table-head';
+import { TableScroll } from '@/components/table-scroll';
 
 const format = (value: number, digits = 4) =>
   Number(value.toPrecision(digits)).toLocaleString('en', { maximumFractionDigits: 6 });
@@ -7,33 +8,35 @@ const format = (value: number, digits = 4) =>
 /** One row per addition, in µL, mL, mM and µM: what goes on the bench sheet. */
 export function PlanTable({ plan }: { plan: TitrationPlanResult }) {
   return (
-    <table className="w-full text-left text-body">
-      <caption className="sr-only">Additions of quencher stock</caption>
-      <TableHead
-        look="ruled"
-        columns={[
-          'Step',
-          'Target [Q] (mM)',
-          'Add stock (µL)',
-          'Added so far (µL)',
-          'Volume (mL)',
-          '[Q] reached (mM)',
-          'Emitter (µM)',
-        ]}
-      />
-      <tbody>
-        {plan.steps.map((step, index) => (
-          <tr key={index} className="border-b border-paper-200 tabular-nums">
-            <td className="py-1.5 pr-3 font-bold">{index + 1}</td>
-            <td className="pr-3">{format(step.target * 1e3)}</td>
-            <td className="pr-3 font-bold text-ink-950">{format(step.additionMicrolitres)}</td>
-            <td className="pr-3">{format(step.cumulativeAddedMicrolitres)}</td>
-            <td className="pr-3">{format(step.totalVolumeMicrolitres / 1000)}</td>
-            <td className="pr-3">{format(step.concentration * 1e3)}</td>
-            <td>{format(step.emitterConcentration * 1e6)}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <TableScroll label="Plan, scroll sideways">
+      <table className="w-full text-left text-body">
+        <caption className="sr-only">Additions of quencher stock</caption>
+        <TableHead
+          look="ruled"
+          columns={[
+            'Step',
+            'Target [Q] (mM)',
+            'Add stock (µL)',
+            'Added so far (µL)',
+            'Volume (mL)',
+            '[Q] reached (mM)',
+            'Emitter (µM)',
+          ]}
+        />
+        <tbody>
+          {plan.steps.map((step, index) => (
+            <tr key={index} className="border-b border-paper-200 tabular-nums">
+              <td className="py-1.5 pr-3 font-bold">{index + 1}</td>
+              <td className="pr-3">{format(step.target * 1e3)}</td>
+              <td className="pr-3 font-bold text-ink-950">{format(step.additionMicrolitres)}</td>
+              <td className="pr-3">{format(step.cumulativeAddedMicrolitres)}</td>
+              <td className="pr-3">{format(step.totalVolumeMicrolitres / 1000)}</td>
+              <td className="pr-3">{format(step.concentration * 1e3)}</td>
+              <td>{format(step.emitterConcentration * 1e6)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </TableScroll>
   );
 }

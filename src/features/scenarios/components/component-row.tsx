@@ -28,7 +28,7 @@ export function ComponentRow({ index, kind, register, errors, quencherOptions, s
     })),
   ];
   return (
-    <fieldset className="grid grid-cols-[9rem_minmax(0,1fr)_8rem_minmax(0,1fr)_auto] items-start gap-3 border-b border-paper-200 pb-3">
+    <fieldset className="grid grid-cols-1 items-start gap-3 sm:grid-cols-2 xl:grid-cols-[9rem_minmax(0,1fr)_8rem_minmax(0,1fr)_auto] border-b border-paper-200 pb-3">
       <legend className="sr-only">Component {index + 1}</legend>
       <SelectField
         label="Kind"

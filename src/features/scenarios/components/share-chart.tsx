@@ -13,12 +13,9 @@ export function ShareChart({ scenario }: { scenario: Scenario }) {
   const labels = [...known.map((share) => share.label), 'decays unquenched'];
   const values = [...known.map((share) => share.fraction! * 100), scenario.unquenched * 100];
   return (
-    <div
-      className="h-64"
-      role="img"
-      aria-label={`Bar chart: ${labels.map((label, i) => `${label} ${values[i]!.toFixed(1)} %`).join(', ')}`}
-    >
+    <div className="h-64">
       <Bar
+        aria-label={`Bar chart: ${labels.map((label, i) => `${label} ${values[i]!.toFixed(1)} %`).join(', ')}`}
         data={{
           labels,
           datasets: [

@@ -30,6 +30,7 @@ export function LifetimePlot({
         <Scatter
           ref={chart}
           plugins={[paperBackground]}
+          aria-label={`Lifetime plot: τ0/τ against ${xLabel} with the fitted line; the lifetimes are in the points table`}
           data={{
             datasets: [
               {

@@ -8,6 +8,7 @@ import { notify } from '@/lib/notify';
 import { useReplacePoints } from '../api/replace-points';
 import { CONCENTRATION_UNITS, fromSi, unitLabel } from '@shared/units/units';
 import { formatNumber, gridConcentrationUnits, type GridConcentrationUnit } from './format';
+import { TableScroll } from '@/components/table-scroll';
 import {
   emptyRow,
   gridColumns,
@@ -127,7 +128,7 @@ function EditablePointsGrid({ labId, study }: Omit<Props, 'editable'>) {
         </p>
       </div>
       {/* contain:inline-size: with the corrected column the grid scrolls here instead of widening the page */}
-      <div className="overflow-x-auto [contain:inline-size]">
+      <TableScroll label="Points, scroll sideways" className="[contain:inline-size]">
         <table className="w-full text-body">
           <thead>
             <tr className="text-left text-caption text-ink-500">
@@ -189,7 +190,7 @@ function EditablePointsGrid({ labId, study }: Omit<Props, 'editable'>) {
             ))}
           </tbody>
         </table>
-      </div>
+      </TableScroll>
       {waiting && (
         <p className="text-caption text-ink-500">
           Corrected values are worked out on the server from saved points; new and changed rows show theirs after

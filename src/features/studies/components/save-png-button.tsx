@@ -21,7 +21,7 @@ export function SavePngButton({
     link.click();
   }
   return (
-    <Button variant="quiet" aria-label={`Save the ${what} as PNG`} onClick={save}>
+    <Button variant="quiet" aria-label={`Save as PNG: the ${what}`} onClick={save}>
       Save as PNG
     </Button>
   );

@@ -80,6 +80,7 @@ export function SternVolmerPlot({ plot, excluded, xLabel, xScale, studyTitle }: 
         <Scatter
           ref={main}
           plugins={[paperBackground]}
+          aria-label={`Stern–Volmer plot: ${plot.yLabel} against ${xLabel}, the points used, the fitted line and its 95 % band; the values are in the points table`}
           data={data}
           options={{
             maintainAspectRatio: false,
@@ -96,7 +97,7 @@ export function SternVolmerPlot({ plot, excluded, xLabel, xScale, studyTitle }: 
         <Scatter
           ref={residuals}
           plugins={[paperBackground]}
-          aria-label="Residuals"
+          aria-label={`Residuals of the fit against ${xLabel}`}
           data={{
             datasets: [
               {

@@ -1,0 +1,124 @@
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createLabWithMembers } from '../support/accounts';
+import type { TestUser } from '../support/accounts';
+import { launchBrowser } from '../support/browser';
+import { startLiveServer } from '../support/live-server';
+
+/*
+ * The app with a keyboard only, and on a phone: where focus is after each step, the skip link,
+ * the menu drawer, and the pulsing status dot under reduced motion.
+ */
+let browser: Browser;
+let server: Awaited<ReturnType<typeof startLiveServer>>;
+let researcher: TestUser;
+
+beforeAll(async () => {
+  server = await startLiveServer();
+  researcher = (await createLabWithMembers(server.sequelize, { roles: ['researcher'] })).users.researcher;
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+/** What has keyboard focus: its role-ish tag and its text or label. */
+const focused = (page: Page) =>
+  page.evaluate(() => {
+    const element = document.activeElement as HTMLElement | null;
+    if (!element || element === document.body) return 'body';
+    const name = element.getAttribute('aria-label') ?? element.textContent?.trim() ?? '';
+    const label = element.id ? document.querySelector(`label[for="${element.id}"]`)?.textContent?.trim() : undefined;
+    return `${element.tagName.toLowerCase()}: ${label ?? name}`;
+  });
+
+describe('keyboard and phone paths, in Chromium', () => {
+  it('when a person signs in with the keyboard only, then focus goes from the skip link to the form to the new heading', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByRole('heading', { name: 'Sign in', level: 1 }).waitFor();
+    expect(await page.title()).toBe('Sign in · Halflight');
+
+    await page.keyboard.press('Tab');
+    expect(await focused(page)).toBe('a: Skip to the content');
+    await page.keyboard.press('Enter');
+    expect(await focused(page)).toMatch(/^main/);
+    await page.keyboard.press('Tab');
+    expect(await focused(page)).toBe('input: E-mail');
+    await page.keyboard.type(researcher.email);
+    await page.keyboard.press('Tab');
+    expect(await focused(page)).toBe('input: Password');
+    await page.keyboard.type('not the password at all');
+    await page.keyboard.press('Enter');
+    // A refused sign-in says so, and the form keeps the person where they were.
+    await page.getByRole('alert').waitFor();
+    await page.getByLabel('Password').fill(researcher.password);
+    await page.keyboard.press('Enter');
+    await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
+    await page.waitForFunction(() => document.activeElement?.tagName === 'H1');
+    expect(await focused(page)).toBe('h1: Overview');
+    expect(await page.title()).toBe('Overview · Halflight');
+
+    // A link followed with the keyboard lands on the next screen's heading too.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Account' }).focus();
+    await page.keyboard.press('Enter');
+    await page.getByRole('heading', { name: 'Account', level: 1 }).waitFor();
+    await page.waitForFunction(() => document.activeElement?.tagName === 'H1');
+    expect(await focused(page)).toBe('h1: Account');
+    await page.close();
+  });
+
+  it('when the menu is opened on a phone, then the drawer holds the navigation and closes on a choice or Escape', async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(researcher.email);
+    await page.getByLabel('Password').fill(researcher.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
+    // No rail on a phone: the navigation waits behind the menu button.
+    expect(await page.getByRole('navigation', { name: 'Main' }).count()).toBe(0);
+    const menu = page.getByRole('button', { name: 'Menu' });
+    expect(await menu.getAttribute('aria-expanded')).toBe('false');
+
+    await menu.focus();
+    await page.keyboard.press('Enter');
+    const drawer = page.getByRole('dialog', { name: 'Menu' });
+    await drawer.waitFor();
+    expect(await menu.getAttribute('aria-expanded')).toBe('true');
+    await page.keyboard.press('Escape');
+    await drawer.waitFor({ state: 'hidden' });
+    expect(await focused(page)).toBe('button: Menu');
+
+    await menu.click();
+    await drawer.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
+    await page.getByRole('heading', { name: 'Studies', level: 1 }).waitFor();
+    await drawer.waitFor({ state: 'hidden' });
+    await page.waitForFunction(() => document.activeElement?.tagName === 'H1');
+    expect(await focused(page)).toBe('h1: Studies');
+    await context.close();
+  });
+
+  it('when the person asks for reduced motion, then the pulsing status dot stands still', async () => {
+    const page = await browser.newPage();
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByRole('heading', { name: 'Sign in', level: 1 }).waitFor();
+    // The waiting dot's classes (src/components/signal.tsx), on a probe element in the built CSS.
+    const animation = () =>
+      page.evaluate(() => {
+        const probe = document.createElement('span');
+        probe.className = 'motion-safe:animate-pulse';
+        document.body.append(probe);
+        const name = getComputedStyle(probe).animationName;
+        probe.remove();
+        return name;
+      });
+    await page.emulateMedia({ reducedMotion: 'no-preference' });
+    expect(await animation()).toBe('pulse');
+    await page.emulateMedia({ reducedMotion: 'reduce' });
+    expect(await animation()).toBe('none');
+    await page.close();
+  });
+});
