@@ -38,6 +38,7 @@ const widths: Array<{ screen: string; viewport: string; width: number; viewportW
 const contrast: Array<ContrastProblem & { screen: string }> = [];
 const transformed: string[] = [];
 const titles: Array<{ screen: string; title: string; heading: string }> = [];
+const pageErrors: string[] = [];
 
 beforeAll(async () => {
   server = await startLiveServer();
@@ -62,6 +63,9 @@ async function examine(page: Page, screen: Screen, viewport: (typeof viewports)[
   }));
   widths.push({ screen: screen.name, viewport: viewport.name, ...size });
   const heading = (await page.locator('#main h1').textContent())?.trim() ?? '';
+  // Still the screen asked for once everything (charts included) has loaded, not the error screen.
+  expect(heading).toMatch(screen.heading);
+  expect(await page.getByText('This screen ran into a problem').count()).toBe(0);
   titles.push({ screen: screen.name, title: await page.title(), heading });
   transformed.push(...(await transformedText(page)).map((text) => `${screen.name}: ${text}`));
   const result = await new AxeBuilder({ page })
@@ -87,10 +91,12 @@ async function examine(page: Page, screen: Screen, viewport: (typeof viewports)[
 async function visitAll(viewport: (typeof viewports)[number]) {
   const signedOut: BrowserContext = await browser.newContext({ viewport });
   const outPage = await signedOut.newPage();
+  outPage.on('pageerror', (error) => pageErrors.push(`${outPage.url()}: ${error.message}`));
   for (const screen of publicScreens) await examine(outPage, screen, viewport);
   await signedOut.close();
   const signedIn = await browser.newContext({ viewport });
   const inPage = await signedIn.newPage();
+  inPage.on('pageerror', (error) => pageErrors.push(`${inPage.url()}: ${error.message}`));
   await signInThroughPage(inPage, server.baseUrl, demoAdmin);
   for (const screen of screens) await examine(inPage, screen, viewport);
   await signedIn.close();
@@ -122,6 +128,10 @@ describe('every screen, wide and on a phone, in Chromium', () => {
 
   it('when each screen opened, then no text was changed by CSS on its way to the screen (units stay exact)', () => {
     expect(transformed).toEqual([]);
+  });
+
+  it('when each screen ran, then no script failed in the page', () => {
+    expect(pageErrors).toEqual([]);
   });
 
   it('when each screen opened, then the tab title named the screen by its heading', () => {

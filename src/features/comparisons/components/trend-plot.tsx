@@ -1,11 +1,21 @@
 import { formatEstimate, UNITS } from '@shared/format';
-import { Chart as ChartJS, Legend, LinearScale, LineElement, PointElement, Tooltip } from 'chart.js';
+import {
+  Chart as ChartJS,
+  Legend,
+  LinearScale,
+  LineController,
+  LineElement,
+  PointElement,
+  ScatterController,
+  Tooltip,
+} from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import { useNavigate } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
 import { paths } from '@/lib/paths';
 
-ChartJS.register(LinearScale, PointElement, LineElement, Tooltip, Legend);
+// Everything this plot draws, registered here: the screen is loaded on its own, without the study plots' set-up.
+ChartJS.register(ScatterController, LineController, LinearScale, PointElement, LineElement, Tooltip, Legend);
 
 // Halflight palette, one hue per solvent (tailwind.config.ts: glow, ink, moss, brick).
 const hues = ['#d97d10', '#4d4788', '#3f8a58', '#b4432f'];
