@@ -104,7 +104,7 @@ describe('studies in Chromium', () => {
     await reviewerPage.close();
   });
 
-  it('when the plots are saved as PNG, then each download is a PNG named after the study', async () => {
+  it('when the plots are saved as PNG, then each download is a 300 dpi PNG one or two columns wide, named after the study', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     await signIn(page, people.researcher);
     await page.goto(`${server.baseUrl}/labs/${labId}/studies`);
@@ -123,17 +123,28 @@ describe('studies in Chromium', () => {
       ['lifetime plot', 'lifetimes'],
     ];
     for (const [what, suffix] of figures) {
-      const [download] = await Promise.all([
-        page.waitForEvent('download'),
-        page.getByRole('button', { name: `Save as PNG: the ${what}` }).click(),
-      ]);
-      expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}.png`);
-      const saved = path.join(screenshotDir, `figure-${suffix}.png`);
-      await download.saveAs(saved);
-      const bytes = fs.readFileSync(saved);
-      // PNG signature (PNG specification, ISO/IEC 15948, section 5.2): 89 50 4E 47 0D 0A 1A 0A
-      expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
-      expect(bytes.length).toBeGreaterThan(2000); // a drawn chart, not an empty canvas
+      for (const [widthCm, pixels] of [
+        [8.5, 1004],
+        [17, 2008],
+      ] as const) {
+        const [download] = await Promise.all([
+          page.waitForEvent('download'),
+          page.getByRole('button', { name: `PNG ${widthCm} cm wide: the ${what}` }).click(),
+        ]);
+        const millimetres = Math.round(widthCm * 10);
+        expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}-${millimetres}mm.png`);
+        const saved = path.join(screenshotDir, `figure-${suffix}-${millimetres}mm.png`);
+        await download.saveAs(saved);
+        const bytes = fs.readFileSync(saved);
+        // PNG signature (PNG specification, ISO/IEC 15948, section 5.2): 89 50 4E 47 0D 0A 1A 0A
+        expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+        // IHDR width (bytes 16-19): the column width at 300 dpi, 8.5 cm / 2.54 × 300 = 1004 px
+        expect(bytes.readUInt32BE(16)).toBe(pixels);
+        // pHYs right after IHDR: 300 dpi = 11 811 pixels per metre (ISO/IEC 15948, 11.3.5.3)
+        expect(bytes.toString('latin1', 37, 41)).toBe('pHYs');
+        expect(bytes.readUInt32BE(41)).toBe(11811);
+        expect(bytes.length).toBeGreaterThan(8000); // a drawn chart, not an empty canvas
+      }
     }
     await shot(page, 'study-figures.png');
     await expectFitsWindow(page, 'study-figures-1400x900.png');

@@ -12,13 +12,14 @@ import {
 import { Scatter } from 'react-chartjs-2';
 import { useNavigate } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
+import { chartColours } from '@/components/chart-theme';
 import { paths } from '@/lib/paths';
 
 // Everything this plot draws, registered here: the screen is loaded on its own, without the study plots' set-up.
 ChartJS.register(ScatterController, LineController, LinearScale, PointElement, LineElement, Tooltip, Legend);
 
 // Halflight palette, one hue per solvent (tailwind.config.ts: glow, ink, moss, brick).
-const hues = ['#d97d10', '#4d4788', '#3f8a58', '#b4432f'];
+const hues = chartColours.series;
 
 /**
  * log10 kq against dG_ET, one colour per solvent, with the fitted Rehm–Weller/Marcus curve and

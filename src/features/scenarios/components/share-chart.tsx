@@ -1,11 +1,12 @@
 import { BarElement, CategoryScale, Chart as ChartJS, LinearScale, Tooltip } from 'chart.js';
 import { Bar } from 'react-chartjs-2';
 import type { Scenario } from '@shared/schemas/scenarios';
+import { chartColours } from '@/components/chart-theme';
 
 ChartJS.register(BarElement, CategoryScale, LinearScale, Tooltip);
 
 // Halflight palette (tailwind.config.ts): glow for quenchers, ink for oxygen, paper for unquenched decay.
-const colours = { compound: '#f09a27', oxygen: '#625ba3', unquenched: '#dcd4c3' };
+const colours = { compound: chartColours.points, oxygen: '#625ba3', unquenched: '#dcd4c3' };
 
 /** Horizontal bars: the percentage of excited emitter each component takes, and what decays unquenched. */
 export function ShareChart({ scenario }: { scenario: Scenario }) {
@@ -32,7 +33,10 @@ export function ShareChart({ scenario }: { scenario: Scenario }) {
           maintainAspectRatio: false,
           animation: false,
           scales: { x: { min: 0, max: 100, title: { display: true, text: '% of excited emitter' } } },
-          plugins: { tooltip: { callbacks: { label: (item) => `${Number(item.raw).toFixed(2)} %` } } },
+          plugins: {
+            legend: { display: false },
+            tooltip: { callbacks: { label: (item) => `${Number(item.raw).toFixed(2)} %` } },
+          },
         }}
       />
     </div>
