@@ -3,7 +3,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Lab, Study } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
 import { formatEstimate } from '@shared/format';
+import { chartInk } from '../../server/services/reports/report-charts';
 import { apiClient } from '../support/accounts';
+import { pixelsOfColour, renderPdfPages } from '../support/pdf-pages';
 import { createTestApp } from '../support/test-app';
 
 const testApp = await createTestApp();
@@ -22,6 +24,8 @@ async function pdfText(buffer: Buffer): Promise<string> {
 }
 
 const binary = (response: { body: unknown }) => response.body as Buffer;
+// Rendered report pages are saved beside the browser screenshots, for a person to look at.
+const reportShots = 'test-output/reports';
 
 beforeAll(async () => {
   await seedDemoData(testApp.sequelize);
@@ -52,19 +56,50 @@ describe('lab summary reports', () => {
         components: [{ compoundId: study.quencherId, concentration: 0.02 }],
       })
     ).body;
-    const scenarioText = (
-      await pdfText(binary(await pdfOf(`/api/labs/${labId}/scenarios/${scenario.id}/report.pdf`)))
-    ).replace(/\s+/g, ' ');
+    const scenarioPdf = binary(await pdfOf(`/api/labs/${labId}/scenarios/${scenario.id}/report.pdf`));
+    const scenarioText = (await pdfText(scenarioPdf)).replace(/\s+/g, ' ');
     expect(scenarioText).toContain('Who quenches: Report check');
     expect(scenarioText).toContain(`${(scenario.shares[0].fraction * 100).toFixed(1)} %`);
     expect(scenarioText).toContain(scenario.caution);
 
     const comparison = (await client.get(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}`)).body;
-    const comparisonText = (
-      await pdfText(binary(await pdfOf(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}/report.pdf`)))
-    ).replace(/\s+/g, ' ');
+    const comparisonPdf = binary(await pdfOf(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}/report.pdf`));
+    const comparisonText = (await pdfText(comparisonPdf)).replace(/\s+/g, ' ');
     expect(comparisonText).toContain(`Comparison: ${comparison.compound.name}`);
     for (const row of comparison.rows) expect(comparisonText).toContain(row.partner.name);
+  });
+
+  it('when a scenario and a comparison are reported, then each PDF draws its chart in the screen colours', async () => {
+    const study = (await Study.findOne({ where: { labId, isCurrent: true, status: 'approved' } }))!;
+    const scenario = (
+      await client.post(`/api/labs/${labId}/scenarios`, {
+        name: 'Chart check',
+        emitterId: study.emitterId,
+        solvent: 'acetonitrile',
+        tau0: 1e-6,
+        components: [{ compoundId: study.quencherId, concentration: 0.02 }],
+      })
+    ).body;
+    expect(scenario.shares[0].fraction).toBeGreaterThan(0.01);
+    const scenarioPages = renderPdfPages(
+      binary(await pdfOf(`/api/labs/${labId}/scenarios/${scenario.id}/report.pdf`)),
+      reportShots,
+      'scenario',
+    );
+    // The quencher's bar in glow and the unquenched rest in paper, as in the screen's bar chart.
+    expect(pixelsOfColour(scenarioPages[0]!, chartInk.points, 12)).toBeGreaterThan(30);
+    expect(pixelsOfColour(scenarioPages[0]!, chartInk.unquenched, 6)).toBeGreaterThan(30);
+
+    const comparison = (await client.get(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}`)).body;
+    expect(comparison.trends.some((trend: { points: unknown[] }) => trend.points.length > 0)).toBe(true);
+    const comparisonPages = renderPdfPages(
+      binary(await pdfOf(`/api/labs/${labId}/comparisons/emitter/${study.emitterId}/report.pdf`)),
+      reportShots,
+      'comparison',
+    );
+    // The first solvent's points and lines in its hue, on grid lines in paper.
+    const drawn = comparisonPages.reduce((sum, page) => sum + pixelsOfColour(page, chartInk.series[0]!, 12), 0);
+    expect(drawn).toBeGreaterThan(20);
   });
 });
 
@@ -90,6 +125,8 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     const kq = detail.latestFit.result.parameters.kq;
     expect(text).toContain(`kq: ${formatEstimate(kq.value, kq.standardError, 'M⁻¹ s⁻¹')}`);
     expect(text).not.toContain('^-1');
+    expect(text).toContain('× 10');
+    expect(text).not.toMatch(/\de[+-]\d/);
     expect(text).toContain(detail.title);
     expect(text).toContain(`engine ${detail.latestFit.engineVersion}`);
     expect(text).toMatch(/Approved: by .+ on \d{4}-\d{2}-\d{2}/);

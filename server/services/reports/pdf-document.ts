@@ -113,28 +113,53 @@ export function facts(doc: Pdf, rows: Array<[string, string]>): void {
   }
 }
 
-/** A simple table: fixed column widths (points), header in bold, a new page when full. */
+/**
+ * A table with fixed column widths (points) that paginates: each row is measured before it is
+ * drawn and goes whole to the next page when it would not fit, the header is repeated at the top
+ * of every page the table continues on, and a header never stands alone at the foot of a page
+ * (it starts on a new page unless it and two rows fit).
+ */
 export function table(doc: Pdf, header: string[], rows: string[][], widths: number[]): void {
   const left = doc.page.margins.left;
-  const drawRow = (cells: string[], bold: boolean) => {
-    if (doc.y > doc.page.height - 80) doc.addPage();
+  const fontOf = (bold: boolean) => doc.font(bold ? 'Lato-Bold' : 'Lato').fontSize(8.5);
+  const heightOf = (cells: string[], bold: boolean) => {
+    fontOf(bold);
+    return Math.max(...cells.map((cell, index) => doc.heightOfString(cell || ' ', { width: widths[index]! - 4 })));
+  };
+  const bottom = () => doc.page.height - doc.page.margins.bottom;
+  const drawRow = (cells: string[], bold: boolean, height: number) => {
     const top = doc.y;
     let x = left;
-    let bottom = top;
-    doc
-      .font(bold ? 'Lato-Bold' : 'Lato')
-      .fontSize(8.5)
-      .fillColor(ink);
+    fontOf(bold).fillColor(ink);
     cells.forEach((cell, index) => {
       doc.text(cell, x, top, { width: widths[index]! - 4 });
-      bottom = Math.max(bottom, doc.y);
       x += widths[index]!;
     });
+    if (bold) {
+      const total = widths.reduce((sum, width) => sum + width, 0);
+      doc
+        .moveTo(left, top + height + 1)
+        .lineTo(left + total, top + height + 1)
+        .lineWidth(0.5)
+        .strokeColor(muted)
+        .stroke();
+    }
     doc.x = left;
-    doc.y = bottom + 2;
+    doc.y = top + height + (bold ? 4 : 2);
   };
-  drawRow(header, true);
-  rows.forEach((row) => drawRow(row, false));
+  const headerHeight = heightOf(header, true) + 4;
+  const firstRows = rows.slice(0, 2).reduce((sum, row) => sum + heightOf(row, false) + 2, 0);
+  if (doc.y + headerHeight + firstRows > bottom()) doc.addPage();
+  drawRow(header, true, headerHeight - 4);
+  for (const row of rows) {
+    const height = heightOf(row, false);
+    if (doc.y + height > bottom()) {
+      doc.addPage();
+      drawRow(header, true, headerHeight - 4);
+    }
+    drawRow(row, false, height);
+  }
+  doc.x = left;
   doc.moveDown(0.3);
 }
 

@@ -3,6 +3,7 @@ import type { LabContext } from '../../domain/lab-context';
 import { compare } from '../comparisons/comparison.service';
 import { getScenario } from '../scenarios/scenario.service';
 import { createReport, facts, finish, heading, table } from './pdf-document';
+import { drawComparisonChart, drawShareChart } from './report-charts';
 
 const safeName = (text: string) => text.replace(/[^\w.-]+/g, '_').slice(0, 60);
 
@@ -22,6 +23,7 @@ export async function scenarioReport(lab: LabContext, scenarioId: string) {
     ],
   ]);
   heading(doc, 'Share of excited emitter intercepted');
+  drawShareChart(doc, scenario);
   table(
     doc,
     ['Component', titled('In reaction', UNITS.millimolar), titled('kq', UNITS.perMolarPerSecond), 'kq from', 'Share'],
@@ -83,6 +85,7 @@ export async function comparisonReport(
     [80, 85, 55, 60, 70, 50, 95],
   );
   heading(doc, 'kq against driving force, per solvent');
+  drawComparisonChart(doc, comparison);
   for (const trend of comparison.trends) {
     doc.text(
       trend.fit
