@@ -131,6 +131,9 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     expect(text).toContain(`engine ${detail.latestFit.engineVersion}`);
     expect(text).toMatch(/Approved: by .+ on \d{4}-\d{2}-\d{2}/);
     for (const upload of detail.uploads) expect(text).toContain(upload.sha256);
+    // The plot as on screen: points in glow, the fitted line in ink (the colours used to be swapped).
+    const pages = renderPdfPages(binary(response), reportShots, 'study');
+    expect(pages.reduce((sum, page) => sum + pixelsOfColour(page, chartInk.points, 12), 0)).toBeGreaterThan(20);
   });
 
   it('when a demo study has lifetimes, then the report carries the lifetime K_SV as fitted', async () => {
