@@ -25,6 +25,9 @@ interface Props {
   editable: boolean;
 }
 
+/** Rows of the grid on one page. */
+export const gridPageSize = 50;
+
 /** The series as an editable table; paste a block from a spreadsheet into any cell. Corrected values sit beside the raw ones. */
 export function PointsGrid({ labId, study, editable }: Props) {
   if (!editable) return <PointsTable study={study} />;
@@ -71,6 +74,7 @@ function EditablePointsGrid({ labId, study }: Omit<Props, 'editable'>) {
   const [unit, setUnit] = useState<GridConcentrationUnit>('mM');
   const [rows, setRows] = useState<GridRow[]>(() => [...rowsFromPoints(study.points, 'mM'), emptyRow()]);
   const [problems, setProblems] = useState<string[]>([]);
+  const [page, setPage] = useState(0);
   const save = useReplacePoints(labId, study.id);
   const corrections = study.dilutionCorrection || study.innerFilterCorrection;
   const savedById = new Map(study.points.map((point) => [point.id, point]));
@@ -111,6 +115,24 @@ function EditablePointsGrid({ labId, study }: Omit<Props, 'editable'>) {
   }
   const set = (index: number, patch: Partial<GridRow>) =>
     setRows((current) => current.map((row, i) => (i === index ? { ...row, ...patch } : row)));
+  // A long series is shown a page of rows at a time: 400 rows of inputs at once made the screen stall.
+  const pages = Math.max(1, Math.ceil(rows.length / gridPageSize));
+  const shownPage = Math.min(page, pages - 1);
+  const first = shownPage * gridPageSize;
+  const shown = rows.slice(first, first + gridPageSize);
+  const pager = pages > 1 && (
+    <nav aria-label="Pages of points" className="flex flex-wrap items-center gap-2 text-body">
+      <Button variant="quiet" disabled={shownPage === 0} onClick={() => setPage(shownPage - 1)}>
+        Previous rows
+      </Button>
+      <span aria-live="polite">
+        Rows {first + 1}–{first + shown.length} of {rows.length}
+      </span>
+      <Button variant="quiet" disabled={shownPage >= pages - 1} onClick={() => setPage(shownPage + 1)}>
+        Next rows
+      </Button>
+    </nav>
+  );
 
   return (
     <div className="space-y-3">
@@ -142,55 +164,59 @@ function EditablePointsGrid({ labId, study }: Omit<Props, 'editable'>) {
             </tr>
           </thead>
           <tbody>
-            {rows.map((row, index) => (
-              <tr key={index} className={row.excluded ? 'bg-brick-100/50' : ''}>
-                <td className="pr-2 text-caption text-ink-500">{index + 1}</td>
-                {gridColumns.map((column, columnIndex) => (
-                  <td key={column.key} className="pr-1">
+            {shown
+              .map((row, shownIndex) => ({ row, index: first + shownIndex }))
+              .map(({ row, index }) => (
+                <tr key={index} className={row.excluded ? 'bg-brick-100/50' : ''}>
+                  <td className="pr-2 text-caption text-ink-500">{index + 1}</td>
+                  {gridColumns.map((column, columnIndex) => (
+                    <td key={column.key} className="pr-1">
+                      <input
+                        aria-label={`Row ${index + 1} ${column.label}`}
+                        disabled={!editable}
+                        value={row[column.key]}
+                        className="w-24 rounded border border-paper-300 px-1.5 py-1"
+                        onChange={(event) => set(index, { [column.key]: event.target.value })}
+                        onPaste={(event) => {
+                          const text = event.clipboardData.getData('text');
+                          if (!/[\t\n]/.test(text)) return;
+                          event.preventDefault();
+                          setRows((current) => [
+                            ...pasteInto(current, text, index, columnIndex).filter(
+                              (r, i, all) =>
+                                i < all.length - 1 || Object.values(r).some((v) => v !== '' && v !== false),
+                            ),
+                            emptyRow(),
+                          ]);
+                        }}
+                      />
+                    </td>
+                  ))}
+                  <td>
                     <input
-                      aria-label={`Row ${index + 1} ${column.label}`}
+                      type="checkbox"
+                      aria-label={`Row ${index + 1} leave out`}
                       disabled={!editable}
-                      value={row[column.key]}
-                      className="w-24 rounded border border-paper-300 px-1.5 py-1"
-                      onChange={(event) => set(index, { [column.key]: event.target.value })}
-                      onPaste={(event) => {
-                        const text = event.clipboardData.getData('text');
-                        if (!/[\t\n]/.test(text)) return;
-                        event.preventDefault();
-                        setRows((current) => [
-                          ...pasteInto(current, text, index, columnIndex).filter(
-                            (r, i, all) => i < all.length - 1 || Object.values(r).some((v) => v !== '' && v !== false),
-                          ),
-                          emptyRow(),
-                        ]);
-                      }}
+                      checked={row.excluded}
+                      onChange={(event) => set(index, { excluded: event.target.checked })}
                     />
                   </td>
-                ))}
-                <td>
-                  <input
-                    type="checkbox"
-                    aria-label={`Row ${index + 1} leave out`}
-                    disabled={!editable}
-                    checked={row.excluded}
-                    onChange={(event) => set(index, { excluded: event.target.checked })}
-                  />
-                </td>
-                <td>
-                  <input
-                    aria-label={`Row ${index + 1} reason`}
-                    disabled={!editable || !row.excluded}
-                    value={row.exclusionReason}
-                    className="w-36 rounded border border-paper-300 px-1.5 py-1"
-                    onChange={(event) => set(index, { exclusionReason: event.target.value })}
-                  />
-                </td>
-                {corrections && <td className="text-caption text-ink-700">{correctedCell(row)}</td>}
-              </tr>
-            ))}
+                  <td>
+                    <input
+                      aria-label={`Row ${index + 1} reason`}
+                      disabled={!editable || !row.excluded}
+                      value={row.exclusionReason}
+                      className="w-36 rounded border border-paper-300 px-1.5 py-1"
+                      onChange={(event) => set(index, { exclusionReason: event.target.value })}
+                    />
+                  </td>
+                  {corrections && <td className="text-caption text-ink-700">{correctedCell(row)}</td>}
+                </tr>
+              ))}
           </tbody>
         </table>
       </TableScroll>
+      {pager}
       {waiting && (
         <p className="text-caption text-ink-500">
           Corrected values are worked out on the server from saved points; new and changed rows show theirs after
@@ -210,7 +236,13 @@ function EditablePointsGrid({ labId, study }: Omit<Props, 'editable'>) {
           <Button onClick={onSave} pending={save.isPending} pendingLabel="Saving and fitting…">
             Save points and fit
           </Button>
-          <Button variant="quiet" onClick={() => setRows((current) => [...current, emptyRow()])}>
+          <Button
+            variant="quiet"
+            onClick={() => {
+              setRows((current) => [...current, emptyRow()]);
+              setPage(Math.floor(rows.length / gridPageSize));
+            }}
+          >
             Add a row
           </Button>
         </div>
