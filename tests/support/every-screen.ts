@@ -65,6 +65,7 @@ export async function signedInScreens(sequelize: Sequelize): Promise<Screen[]> {
   return [
     { name: 'overview', path: '/', heading: 'Overview' },
     { name: 'account', path: '/account', heading: 'Account' },
+    { name: 'account-sessions', path: '/account/sessions', heading: 'Signed-in browsers' },
     { name: 'studies', path: inLab('studies'), heading: 'Studies' },
     { name: 'new-study', path: inLab('studies/new'), heading: 'New quenching study' },
     { name: 'study-approved', path: inLab(`studies/${approved.id}`), heading: approved.title },
@@ -73,7 +74,7 @@ export async function signedInScreens(sequelize: Sequelize): Promise<Screen[]> {
     { name: 'compound', path: inLab(`library/${emitter.id}`), heading: emitter.name },
     { name: 'lab-settings', path: inLab('settings'), heading: 'Lab settings' },
     { name: 'members', path: inLab('members'), heading: 'Members' },
-    { name: 'caught-mail', path: inLab('mail'), heading: 'Caught mail' },
+    { name: 'caught-mail', path: '/mail', heading: 'Caught mail' },
     { name: 'planner', path: inLab('planner'), heading: 'Titration planner' },
     { name: 'compare', path: inLab(`compare?side=emitter&compoundId=${emitter.id}`), heading: 'Compare' },
     { name: 'scenarios', path: inLab('scenarios'), heading: 'Who quenches?' },
