@@ -62,19 +62,18 @@ describe('PointsGrid', () => {
     expect(screen.queryByRole('button', { name: 'Save points and fit' })).toBeNull();
   });
 
-  it('when a series has 400 points, then the grid shows 50 rows at a time and keeps edits made on other pages', async () => {
+  it('when a series has 400 points, then the grid shows 50 rows at a time and keeps edits made on other pages', () => {
     const long = Array.from({ length: 400 }, (_, i) => point(i, i * 1e-5, 1000 - i));
     renderWithClient(<PointsGrid labId={labId} study={studyDetail({ points: long })} editable />);
     // 400 points and the empty row for the next value: 401 rows, 50 in the page.
     expect(screen.getAllByLabelText(/^Row \d+ Concentration$/)).toHaveLength(50);
     expect(screen.getByText('Rows 1–50 of 401')).toBeTruthy();
-    await userEvent.clear(cell(2, 'Intensity'));
-    await userEvent.type(cell(2, 'Intensity'), '999.5');
-    await userEvent.click(screen.getByRole('button', { name: 'Next rows' }));
+    fireEvent.change(cell(2, 'Intensity'), { target: { value: '999.5' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Next rows' }));
     expect(screen.getByText('Rows 51–100 of 401')).toBeTruthy();
     expect(screen.queryByLabelText('Row 2 Intensity')).toBeNull();
     expect(cell(51, 'Intensity').value).toBe('950');
-    await userEvent.click(screen.getByRole('button', { name: 'Previous rows' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Previous rows' }));
     expect(cell(2, 'Intensity').value).toBe('999.5');
-  });
+  }, 20_000);
 });
