@@ -41,7 +41,8 @@ export function focusHeading(heading: HTMLElement) {
  * What a screen change means for people who cannot see the page change: the tab's title follows
  * the screen's heading, and after a move to another address (sign-in, a link, a redirect) focus
  * goes to that heading, so the next Tab starts from the new screen and a screen reader reads its
- * name. The first screen of a visit keeps the browser's own starting point.
+ * name, unless the new screen already put the focus inside itself. The first screen of a visit
+ * keeps the browser's own starting point.
  */
 export function useScreenHeading() {
   const { pathname } = useLocation();
@@ -52,7 +53,13 @@ export function useScreenHeading() {
       firstScreen.current = false;
       return;
     }
-    return whenHeadingAppears(focusHeading);
+    // A screen that has already placed the focus inside itself on arrival (a fresh result, say)
+    // keeps it; otherwise the heading takes it.
+    return whenHeadingAppears((heading) => {
+      const active = document.activeElement;
+      if (active && active !== document.body && document.querySelector('#main')?.contains(active)) return;
+      focusHeading(heading);
+    });
   }, [pathname]);
 
   useEffect(() => {

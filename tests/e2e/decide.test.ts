@@ -123,7 +123,7 @@ describe('deciding who quenches, in Chromium', () => {
     await page.getByRole('heading', { name: 'New quenching study' }).waitFor();
     await expect(page.getByLabel('Starting volume V0 (mL)').inputValue()).resolves.toBe('2');
     await expect(page.getByLabel('Stock concentration (mM)').inputValue()).resolves.toBe('50');
-    await expect(page.getByLabel('Dilution (needs volumes added)').isChecked()).resolves.toBe(true);
+    await expect(page.getByLabel('Dilution correction (needs volumes added)').isChecked()).resolves.toBe(true);
   });
 
   it('when the charts and forms ran, then the content security policy refused nothing', () => {

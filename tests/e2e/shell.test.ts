@@ -54,6 +54,7 @@ describe('the app shell in Chromium', () => {
       'Members',
       'Compare',
       'Who quenches?',
+      'Temperature',
       'Planner',
       'Account',
       'Caught mail',

@@ -57,12 +57,12 @@ describe('the main job in Chromium', () => {
 
     await act(page.getByRole('link', { name: 'New study' }).click());
     await act(page.getByLabel('Emitter (required)').selectOption({ label: 'HL-Ir-7' }));
-    await act(page.getByLabel('Quencher (required)').selectOption({ label: 'Q-amine-3' }));
+    await act(page.getByLabel('Quencher (required)').selectOption({ label: 'Q-thiol-8' }));
     await act(page.getByLabel('Instrument export').setInputFiles(fixture));
     await page.getByLabel('Points from the file').waitFor();
     // The preview speaks the file's unit (mM), τ0 came from the one lifetime record, the title from the pair.
     expect(await page.getByLabel('Points from the file').textContent()).toContain('[Q] in mM');
-    expect(await page.getByLabel('Title').inputValue()).toBe('HL-Ir-7 with Q-amine-3 in acetonitrile');
+    expect(await page.getByLabel('Title').inputValue()).toBe('HL-Ir-7 with Q-thiol-8 in acetonitrile');
     expect(await page.getByText('Chosen: series-comma-mM.csv').count()).toBe(1);
     await shot(page, 'flow-new-study-preview.png');
     await act(page.getByRole('button', { name: /^Create and fit 6 points/ }).click());
