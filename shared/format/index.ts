@@ -1,5 +1,14 @@
 /** How Halflight writes numbers, units and dates for people: screens, CSV headers, PNG and PDF. */
-export { formatFixed, formatNumber, formatQuantity, MINUS, powerOfTen, superscript, TIMES } from './format-number';
+export {
+  formatFixed,
+  formatNumber,
+  formatQuantity,
+  MINUS,
+  powerOfTen,
+  superscript,
+  TIMES,
+  withTrueMinus,
+} from './format-number';
 export { estimateParts, formatEstimate, formatInterval, uncertaintyDigit, type EstimateParts } from './format-estimate';
 export { titled, UNITS, type UnitText } from './quantity-units';
 export { formatDate, formatDateTime, isoDate, isoDateTime } from './format-date';

@@ -16,6 +16,13 @@ export const fitModelSchema = z.enum(fitModels).meta({
     'Stern–Volmer model: free or fixed intercept line, combined static+dynamic, modified (accessible fraction)',
 });
 export type FitModel = z.infer<typeof fitModelSchema>;
+/** Each model in words, for people: the screens and the PDF report (never the stored key). */
+export const fitModelNames = {
+  'linear-free': 'Straight line, free intercept',
+  'linear-fixed': 'Straight line through 1',
+  'static-dynamic': 'Static + dynamic (quadratic)',
+  modified: 'Accessible fraction (modified plot)',
+} as const satisfies Record<FitModel, string>;
 export const pinnedMechanisms = ['oxidative', 'reductive', 'energy-transfer'] as const;
 export const solventIds = Object.keys(SOLVENTS) as [string, ...string[]];
 

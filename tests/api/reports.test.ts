@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Lab, Study } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
 import { formatEstimate } from '@shared/format';
+import { fitModelNames, type FitModel } from '@shared/schemas/studies';
 import { chartInk } from '../../server/services/reports/report-charts';
 import { apiClient } from '../support/accounts';
 import { pixelsOfColour, renderPdfPages } from '../support/pdf-pages';
@@ -67,6 +68,9 @@ describe('lab summary reports', () => {
     const comparisonText = (await pdfText(comparisonPdf)).replace(/\s+/g, ' ');
     expect(comparisonText).toContain(`Comparison: ${comparison.compound.name}`);
     for (const row of comparison.rows) expect(comparisonText).toContain(row.partner.name);
+    // Driving forces and axis ticks below zero with the true minus sign U+2212 (typeset practice).
+    for (const text of [scenarioText, comparisonText]) expect(text).not.toMatch(/(?<![\w.])-\d/);
+    expect(comparisonText).toMatch(/−\d/);
   });
 
   it('when a scenario and a comparison are reported, then each PDF draws its chart in the screen colours', async () => {
@@ -129,6 +133,12 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     expect(text).not.toMatch(/\de[+-]\d/);
     expect(text).toContain(detail.title);
     expect(text).toContain(`engine ${detail.latestFit.engineVersion}`);
+    // The model in words as on screen, never its stored key ("linear-free").
+    expect(text).toContain(`Model: ${fitModelNames[detail.latestFit.model as FitModel]}`);
+    expect(text).not.toContain(detail.latestFit.model);
+    // Negative numbers with the true minus sign U+2212 (typeset practice, as in shared/format), never "-0.6 eV".
+    expect(text).not.toMatch(/(?<![\w.])-\d/);
+    expect(text).toMatch(/−\d/);
     expect(text).toMatch(/Approved: by .+ on \d{4}-\d{2}-\d{2}/);
     for (const upload of detail.uploads) expect(text).toContain(upload.sha256);
     // The plot as on screen: points in glow, the fitted line in ink (the colours used to be swapped).

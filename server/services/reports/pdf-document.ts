@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import PDFDocument from 'pdfkit';
 import { ENGINE_VERSION } from '@shared/engine';
-import { formatNumber, isoDateTime } from '@shared/format';
+import { formatNumber, isoDateTime, withTrueMinus } from '@shared/format';
 import { projectRoot } from '../../config/env';
 import { appVersion } from '../../lib/version';
 
@@ -193,5 +193,6 @@ export function finish(doc: Pdf): Promise<Buffer> {
 
 /** A number as everywhere in Halflight (shared/format): "1.07 × 10⁷", plain from 0.01 to below 10 000. */
 export const sci = (value: number | null | undefined, digits = 3) => formatNumber(value, digits);
+/** `digits` significant figures written plainly, a negative value with the true minus sign ("−0.57"). */
 export const fixed = (value: number | null | undefined, digits = 3) =>
-  value === null || value === undefined ? '—' : String(Number(value.toPrecision(digits)));
+  value === null || value === undefined ? '—' : withTrueMinus(String(Number(value.toPrecision(digits))));

@@ -1,5 +1,6 @@
 import { formatEstimate, formatInterval, isoDateTime, UNITS } from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
+import { fitModelNames } from '@shared/schemas/studies';
 import type { LabContext } from '../../domain/lab-context';
 import { drivingForceOfStudy } from '../library/driving-force.service';
 import { getStudyDetail } from '../studies/study.service';
@@ -51,7 +52,7 @@ function results(doc: Pdf, study: StudyDetail) {
       : '—';
   };
   facts(doc, [
-    ['Model', fit.model],
+    ['Model', fitModelNames[fit.model]],
     ['K_SV', estimate('kSv', UNITS.perMolar)],
     ...(p.intercept
       ? [['Intercept', formatEstimate(p.intercept.value, p.intercept.standardError)] as [string, string]]

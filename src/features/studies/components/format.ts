@@ -13,9 +13,5 @@ export const statusLabels = {
   approved: 'Approved',
   returned: 'Returned',
 } as const;
-export const modelLabels = {
-  'linear-free': 'Straight line, free intercept',
-  'linear-fixed': 'Straight line through 1',
-  'static-dynamic': 'Static + dynamic (quadratic)',
-  modified: 'Accessible fraction (modified plot)',
-} as const;
+/** The fit models in words (one list in shared/schemas/studies.ts, also used by the PDF report). */
+export { fitModelNames as modelLabels } from '@shared/schemas/studies';
