@@ -1,5 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import { PDFParse } from 'pdf-parse';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Lab } from '../../server/models';
@@ -150,4 +151,60 @@ describe('the main job in Chromium', () => {
     expect(await page.getByLabel(/^Row \d+ Concentration$/).count()).toBe(7); // the 6 typed points and the empty row
     await page.close();
   });
+});
+
+/** The text of a PDF as pdf-parse reads it, whitespace folded (as in tests/api/reports.test.ts). */
+async function pdfText(bytes: Buffer): Promise<string> {
+  const parser = new PDFParse({ data: new Uint8Array(bytes) });
+  try {
+    return (await parser.getText()).text.replace(/\s+/g, ' ');
+  } finally {
+    await parser.destroy();
+  }
+}
+
+describe('every model’s numbers on screen and in the report', () => {
+  it.each([
+    {
+      model: 'combined static + dynamic (lifetimes decide which root is which)',
+      title: 'Demo: HL-Cz-2 (carbazole) with the alkene Q-ene-6, static and dynamic',
+      headline: ['K_D (dynamic)', 'K_S (static)'],
+      also: ['K_D + K_S', 'K_D × K_S', 'kq'],
+    },
+    {
+      model: 'modified (accessible fraction)',
+      title: 'Demo: HL-Ru-4 (ruthenium) with the thiol Q-thiol-8, part of the emission out of reach',
+      headline: ['K (accessible part)', 'f_a (accessible fraction)'],
+      also: ['kq'],
+    },
+  ])(
+    'when the $model study is opened, then its constants are on screen and the same numbers are in its PDF',
+    async ({ title, headline, also }) => {
+      const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+      await signInThroughPage(page, server.baseUrl, person('priya'));
+      await page.goto(`${server.baseUrl}/labs/${labId}/studies`);
+      await page.getByRole('link', { name: title }).click();
+      const result = page.getByRole('region', { name: 'Result' });
+      const shown: Record<string, string> = {};
+      for (const label of headline) {
+        const text = (await result.getByLabel(`${label} result`).textContent()) ?? '';
+        expect(text, label).toMatch(/ ± /);
+        shown[label] = text;
+      }
+      for (const label of [...headline, ...also]) {
+        const text = (await page.getByLabel(label, { exact: true }).textContent()) ?? '';
+        expect(text, label).toMatch(/ ± .*95 % interval/);
+        // The panel's first line is the estimate, as in the summary at the top.
+        if (shown[label]) expect(text.startsWith(shown[label])).toBe(true);
+        shown[label] ??= text.slice(0, text.indexOf('95 % interval'));
+      }
+      await shot(page, `model-numbers-${headline[0]!.startsWith('K_D') ? 'combined' : 'modified'}.png`);
+      const studyId = /studies\/([0-9a-f-]{36})/.exec(page.url())![1]!;
+      const response = await page.request.get(`${server.baseUrl}/api/labs/${labId}/studies/${studyId}/report.pdf`);
+      expect(response.status()).toBe(200);
+      const text = await pdfText(await response.body());
+      for (const [label, value] of Object.entries(shown)) expect(text, label).toContain(`${label}: ${value.trim()}`);
+      await page.close();
+    },
+  );
 });

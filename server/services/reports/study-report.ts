@@ -1,4 +1,4 @@
-import { formatEstimate, formatInterval, isoDateTime, UNITS } from '@shared/format';
+import { fitParameterLines, formatEstimate, formatInterval, isoDateTime, UNITS } from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { fitModelNames } from '@shared/schemas/studies';
 import type { LabContext } from '../../domain/lab-context';
@@ -44,20 +44,17 @@ function results(doc: Pdf, study: StudyDetail) {
     doc.text(study.fitProblem ? `No fit: ${study.fitProblem}` : 'No fit yet.');
     return;
   }
-  const p = fit.result.parameters;
-  const estimate = (name: string, unit: string) => {
-    const value = p[name];
-    return value
-      ? `${formatEstimate(value.value, value.standardError, unit)} (95 % interval ${formatInterval(value.interval95.lower, value.interval95.upper, value.standardError, value.value)})`
-      : '—';
-  };
+  const { lines, note } = fitParameterLines(fit.model, fit.result);
   facts(doc, [
     ['Model', fitModelNames[fit.model]],
-    ['K_SV', estimate('kSv', UNITS.perMolar)],
-    ...(p.intercept
-      ? [['Intercept', formatEstimate(p.intercept.value, p.intercept.standardError)] as [string, string]]
-      : []),
-    ['kq', estimate('kq', UNITS.perMolarPerSecond)],
+    ...lines.map(
+      ({ label, unit, estimate }) =>
+        [
+          label,
+          `${formatEstimate(estimate.value, estimate.standardError, unit)} (95 % interval ${formatInterval(estimate.interval95.lower, estimate.interval95.upper, estimate.standardError, estimate.value)})`,
+        ] as [string, string],
+    ),
+    ...(note ? [['Roots', note] as [string, string]] : []),
     ['R², n', `${fixed(fit.result.statistics.rSquared, 6)}, ${fit.result.statistics.n} points`],
     [
       'Diffusion limit',

@@ -1,6 +1,6 @@
 import { forwardRef } from 'react';
 import type { StudyDetail } from '@shared/schemas/study-detail';
-import { formatEstimate, UNITS } from '@shared/format';
+import { fitParameterLines, formatEstimate, UNITS } from '@shared/format';
 import { modelLabels } from './format';
 import { StatusSignal } from './status-signal';
 
@@ -16,7 +16,7 @@ const returnReasonOf = (study: StudyDetail) =>
  */
 export const ResultSummary = forwardRef<HTMLElement, { study: StudyDetail }>(function ResultSummary({ study }, ref) {
   const fit = study.latestFit;
-  const kSv = fit?.result.parameters.kSv;
+  const headline = fit ? fitParameterLines(fit.model, fit.result).lines.filter((line) => line.headline) : [];
   const kq = fit?.result.parameters.kq;
   const returned = returnReasonOf(study);
   return (
@@ -32,12 +32,22 @@ export const ResultSummary = forwardRef<HTMLElement, { study: StudyDetail }>(fun
         </div>
       )}
       <div className="flex flex-wrap items-baseline gap-x-8 gap-y-2">
-        <p>
-          <span className="block text-caption text-ink-600">K_SV</span>
-          <span aria-label="K_SV result" className="text-title font-black text-ink-950">
-            {kSv ? formatEstimate(kSv.value, kSv.standardError, UNITS.perMolar) : '—'}
-          </span>
-        </p>
+        {headline.length === 0 && (
+          <p>
+            <span className="block text-caption text-ink-600">K_SV</span>
+            <span aria-label="K_SV result" className="text-title font-black text-ink-950">
+              —
+            </span>
+          </p>
+        )}
+        {headline.map((line) => (
+          <p key={line.key}>
+            <span className="block text-caption text-ink-600">{line.label}</span>
+            <span aria-label={`${line.label} result`} className="text-title font-black text-ink-950">
+              {formatEstimate(line.estimate.value, line.estimate.standardError, line.unit)}
+            </span>
+          </p>
+        ))}
         <p>
           <span className="block text-caption text-ink-600">kq</span>
           <span aria-label="kq result" className="text-title font-black text-ink-950">

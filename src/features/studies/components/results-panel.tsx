@@ -1,6 +1,13 @@
 import type { StudyFit } from '@shared/schemas/study-fits';
 import type { Estimate } from '@shared/schemas/study-fits';
-import { formatDateTime, formatEstimate, formatInterval, formatQuantity, UNITS } from '@shared/format';
+import {
+  fitParameterLines,
+  formatDateTime,
+  formatEstimate,
+  formatInterval,
+  formatQuantity,
+  UNITS,
+} from '@shared/format';
 import { modelLabels } from './format';
 
 function Row({ label, estimate, unit }: { label: string; estimate: Estimate | undefined; unit: string }) {
@@ -29,21 +36,19 @@ function Row({ label, estimate, unit }: { label: string; estimate: Estimate | un
 
 /** The newest fit in numbers: constants with SE and interval, statistics, the diffusion limit, every flag explained. */
 export function ResultsPanel({ fit }: { fit: StudyFit }) {
-  const { parameters, statistics, diffusionLimit, tau0, flags, notes } = fit.result;
+  const { statistics, diffusionLimit, tau0, flags, notes } = fit.result;
+  const { lines, note: rootNote } = fitParameterLines(fit.model, fit.result);
   return (
     <div className="space-y-3 text-body text-ink-800">
       <p className="text-caption text-ink-500">
         {modelLabels[fit.model]} · engine {fit.engineVersion} · {formatDateTime(fit.createdAt)}
       </p>
       <dl>
-        <Row label="K_SV" estimate={parameters.kSv} unit={UNITS.perMolar} />
-        <Row label="K_D (dynamic)" estimate={parameters.kD} unit={UNITS.perMolar} />
-        <Row label="K_S (static)" estimate={parameters.kS} unit={UNITS.perMolar} />
-        <Row label="Accessible fraction" estimate={parameters.accessibleFraction} unit="" />
-        <Row label="Intercept" estimate={parameters.intercept} unit="" />
-        <Row label="kq" estimate={parameters.kq} unit={UNITS.perMolarPerSecond} />
-        <Row label="kq from lifetimes" estimate={parameters.kqFromLifetimes} unit={UNITS.perMolarPerSecond} />
+        {lines.map((line) => (
+          <Row key={line.key} label={line.label} estimate={line.estimate} unit={line.unit} />
+        ))}
       </dl>
+      {rootNote && <p className="text-caption text-ink-500">{rootNote}</p>}
       <p>
         n = {statistics.n}
         {statistics.rSquared !== null && <> · R² = {statistics.rSquared.toFixed(4)}</>}

@@ -1,0 +1,72 @@
+import type { FitModel } from '../schemas/studies';
+import type { Estimate, FitResult } from '../schemas/study-fits';
+import { UNITS } from './quantity-units';
+
+/** One fitted parameter as people read it: the same label, unit and numbers on screen, in CSV and PDF. */
+export interface ParameterLine {
+  /** the parameter's name in the stored result (kSv, kD, sum, accessibleFraction, ...) */
+  key: string;
+  label: string;
+  unit: string;
+  estimate: Estimate;
+  /** true for the model's main constants, shown at the top of the study screen */
+  headline: boolean;
+}
+
+type Known = Omit<ParameterLine, 'estimate'>;
+
+const line = (key: string, label: string, unit: string, headline = false): Known => ({ key, label, unit, headline });
+
+const RATE: Known[] = [
+  line('kq', 'kq', UNITS.perMolarPerSecond),
+  line('kqFromLifetimes', 'kq from lifetimes', UNITS.perMolarPerSecond),
+];
+
+/**
+ * The parameters of a stored fit in reading order, labelled for its model: K_SV and the intercept
+ * for a straight line; K_D and K_S when the combined static + dynamic fit could tell its two roots
+ * apart (a lifetime series, or the diffusion bound k_diff τ0 on K_D), else their sum, product and
+ * both roots unassigned; K of the accessible part and f_a for the modified plot. `note` says how the
+ * combined fit's roots were assigned (null for other models).
+ */
+export function fitParameterLines(
+  model: FitModel,
+  result: Pick<FitResult, 'parameters' | 'lifetime'>,
+): { lines: ParameterLine[]; note: string | null } {
+  const p = result.parameters;
+  let known: Known[];
+  let note: string | null = null;
+  if (model === 'static-dynamic') {
+    const sumAndProduct = [
+      line('sum', 'K_D + K_S', UNITS.perMolar),
+      line('product', 'K_D × K_S', UNITS.perMolarSquared),
+    ];
+    if (p.kD && p.kS) {
+      known = [line('kD', 'K_D (dynamic)', UNITS.perMolar, true), line('kS', 'K_S (static)', UNITS.perMolar, true)];
+      known.push(...sumAndProduct);
+      note = result.lifetime
+        ? 'K_D is the root nearer the slope of the lifetime plot τ0/τ, which sees dynamic quenching only.'
+        : 'K_D is the root below the diffusion bound k_diff τ0; the other root is above it, so it is K_S.';
+    } else {
+      known = sumAndProduct.map((entry) => ({ ...entry, headline: true }));
+      known.push(
+        line('largerRoot', 'Larger root (K_D or K_S)', UNITS.perMolar),
+        line('smallerRoot', 'Smaller root (K_D or K_S)', UNITS.perMolar),
+      );
+      note =
+        'Intensities alone cannot tell K_D from K_S: either root fits equally well. A lifetime series (K_D is the root nearer its slope) or a τ0 with a diffusion limit decides.';
+    }
+  } else if (model === 'modified') {
+    known = [
+      line('kSv', 'K (accessible part)', UNITS.perMolar, true),
+      line('accessibleFraction', 'f_a (accessible fraction)', '', true),
+    ];
+  } else {
+    known = [line('kSv', 'K_SV', UNITS.perMolar, true), line('intercept', 'Intercept', '')];
+  }
+  const lines = [...known, ...RATE].flatMap((entry) => {
+    const estimate = p[entry.key];
+    return estimate ? [{ ...entry, estimate }] : [];
+  });
+  return { lines, note };
+}
