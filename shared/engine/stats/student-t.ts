@@ -1,6 +1,6 @@
+import cdf from '@stdlib/stats-base-dists-t-cdf';
 import quantile from '@stdlib/stats-base-dists-t-quantile';
 import { EngineError } from '../core/engine-error';
-import { LARGE_DF, studentTTwoSidedPValueLargeDf } from './student-t-large-df';
 
 // Quantiles are cached per degrees of freedom: every fit asks for the same few, and the
 // quantile function (an inverse incomplete beta) costs far more than a whole small fit.
@@ -27,11 +27,9 @@ export function studentTQuantile975(degreesOfFreedom: number): number {
 }
 
 /**
- * Two-sided p-value P(|T| >= |t|) of Student's t with integer degrees of freedom, from
- * the finite series of Abramowitz & Stegun, Handbook of Mathematical Functions (1964),
- * 26.7.3 (odd df) and 26.7.4 (even df), with theta = atan(|t| / sqrt(df)); above 300 df,
- * where that series grows long, the incomplete-beta continued fraction of
- * studentTTwoSidedPValueLargeDf.
+ * Two-sided p-value P(|T| >= |t|) of Student's t with integer degrees of freedom: 2 F(-|t|),
+ * with F from `@stdlib/stats-base-dists-t-cdf`, evaluated in the lower tail so that tiny
+ * p-values keep their relative precision.
  *
  * @param t - the t statistic (any finite value, or +-Infinity giving 0)
  * @param degreesOfFreedom - a positive integer
@@ -48,33 +46,5 @@ export function studentTTwoSidedPValue(t: number, degreesOfFreedom: number): num
   }
   if (Number.isNaN(t)) throw new EngineError('INVALID_ARGUMENT', 't', 'is NaN');
   if (!Number.isFinite(t)) return 0;
-  if (degreesOfFreedom > LARGE_DF) return studentTTwoSidedPValueLargeDf(t, degreesOfFreedom);
-  const theta = Math.atan(Math.abs(t) / Math.sqrt(degreesOfFreedom));
-  const sin = Math.sin(theta);
-  const cos = Math.cos(theta);
-  const cos2 = cos * cos;
-  let probabilityInside: number;
-  if (degreesOfFreedom % 2 === 1) {
-    let sum = 0;
-    if (degreesOfFreedom > 1) {
-      let term = 1;
-      sum = 1;
-      for (let k = 1; k <= (degreesOfFreedom - 3) / 2; k++) {
-        term *= (cos2 * (2 * k)) / (2 * k + 1);
-        sum += term;
-        if (term < 1e-17 * sum) break;
-      }
-    }
-    probabilityInside = (2 / Math.PI) * (theta + sin * cos * sum);
-  } else {
-    let term = 1;
-    let sum = 1;
-    for (let k = 1; k <= (degreesOfFreedom - 2) / 2; k++) {
-      term *= (cos2 * (2 * k - 1)) / (2 * k);
-      sum += term;
-      if (term < 1e-17 * sum) break;
-    }
-    probabilityInside = sin * sum;
-  }
-  return Math.min(1, Math.max(0, 1 - probabilityInside));
+  return Math.min(1, 2 * cdf(-Math.abs(t), degreesOfFreedom));
 }

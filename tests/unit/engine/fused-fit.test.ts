@@ -58,7 +58,7 @@ describe('fitSternVolmer on NIST StRD data', () => {
   });
 });
 
-describe('Student t p-value above 300 degrees of freedom (continued fraction)', () => {
+describe('Student t p-value above 300 degrees of freedom', () => {
   it('inverts the @stdlib quantile to 1e-9 for df from 301 to 1e7', () => {
     // quantile(1 - alpha/2, df) from @stdlib/stats-base-dists-t-quantile 0.2.3
     for (const df of [301, 302, 999, 1000, 5001, 99_997, 99_998, 1e7]) {

@@ -29,6 +29,16 @@ describe('Student t distribution', () => {
     }
   });
 
+  it('keeps its relative precision far in the tails, where 1 - P(inside) would cancel', () => {
+    // Closed forms (hand derivation from the densities; Abramowitz & Stegun 26.7.3/26.7.4 with one term):
+    // df = 1 (Cauchy): P(|T| >= t) = (2/pi) atan(1/t); df = 2: P = 1 - t/sqrt(t^2 + 2) = 2/(s (s + t)), s = sqrt(t^2 + 2).
+    for (const t of [1e3, 1e5, 1e7]) {
+      expectClose(studentTTwoSidedPValue(t, 1), (2 / Math.PI) * Math.atan(1 / t), 1e-12);
+      const s = Math.sqrt(t * t + 2);
+      expectClose(studentTTwoSidedPValue(t, 2), 2 / (s * (s + t)), 1e-12);
+    }
+  });
+
   it('rejects a non-integer df for the p-value', () => {
     expect(() => studentTTwoSidedPValue(2, 2.5)).toThrowError(/positive integer/);
   });
