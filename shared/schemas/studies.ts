@@ -181,15 +181,25 @@ export const listStudiesQuerySchema = z.object({
   q: z.string().trim().max(200).optional().describe('words in the title or notes'),
   sort: z.enum(studySortKeys).default('updated'),
   direction: z.enum(['asc', 'desc']).default('desc'),
+  cursor: z
+    .string()
+    .max(400)
+    .optional()
+    .describe(
+      'nextCursor or previousCursor of a page (same filters and sort): the page after or before it; page then only numbers it',
+    ),
 });
 export type ListStudiesQuery = z.infer<typeof listStudiesQuerySchema>;
 
 export const studyListSchema = z
   .object({
     items: z.array(studySummarySchema),
-    total: z.number().int(),
+    total: z.number().int().describe('studies that match, counted up to 10,000'),
+    totalCapped: z.boolean().describe('true: more than `total` (10,000) studies match; counting stopped there'),
     page: z.number().int(),
     pageSize: z.number().int(),
+    nextCursor: z.string().nullable().describe('asks for the page after this one; null on the last page'),
+    previousCursor: z.string().nullable().describe('asks for the page before this one; null on the first page'),
   })
   .meta({ id: 'StudyList' });
 export type StudyList = z.infer<typeof studyListSchema>;

@@ -1,82 +1,190 @@
-import { Op, type Order, type WhereOptions } from 'sequelize';
+import { QueryTypes } from 'sequelize';
+import { z } from 'zod';
 import type { ListStudiesQuery, StudyList } from '@shared/schemas/studies';
 import type { LabContext } from '../../domain/lab-context';
-import { Compound, Study, User } from '../../models';
+import { AppError } from '../../lib/app-error';
+import { Study } from '../../models';
 import { toSummary, type SummaryRow } from './study-serialize';
 
-const summaryColumns = [
-  'id',
-  'title',
-  'emitterId',
-  'quencherId',
-  'solventId',
-  'customSolventName',
-  'status',
-  'revision',
-  'ownerId',
-  'kSv',
-  'kq',
-  'flagged',
-  'updatedAt',
-] as const satisfies readonly (keyof Study)[];
+/** Counting stops here: past it the list says "more than 10,000" instead of reading every match. */
+export const STUDY_COUNT_CAP = 10_000;
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, '\\$&');
 
+type Sort = ListStudiesQuery['sort'];
+type Direction = ListStudiesQuery['direction'];
+const sortColumn: Record<Sort, 'updated_at' | 'kq' | 'k_sv'> = { updated: 'updated_at', kq: 'kq', k_sv: 'k_sv' };
+
 /**
- * One page of the lab's current study revisions with a total count. Every filter maps to an
- * index of migration 0005 (lab_id first, current revisions only), the kq and K_SV sorts to those
- * of migration 0008 (same NULLS LAST and id tie-breaker as the ORDER BY below); text search uses
- * the trigram index on title || ' ' || notes.
+ * A cursor names the row a page starts after (or ends before) by its sort value and id, as the
+ * database prints them (text keeps the microseconds of a timestamp and every digit of a double),
+ * with the sort it belongs to. It is base64url JSON: not secret, and a changed one only names
+ * another place in the same lab's list.
+ */
+const timestampText = /^\d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2}(\.\d{1,6})?[+-]\d{2}(:\d{2})?$/;
+const doubleText = /^-?(\d+(\.\d*)?|\.\d+)(e[+-]?\d+)?$/i;
+const cursorSchema = z.object({
+  s: z.enum(['updated', 'kq', 'k_sv']),
+  d: z.enum(['asc', 'desc']),
+  k: z.enum(['after', 'before']),
+  v: z.string().max(64).nullable(),
+  i: z.string().uuid(),
+});
+type Cursor = z.infer<typeof cursorSchema>;
+
+const encodeCursor = (cursor: Cursor) => Buffer.from(JSON.stringify(cursor)).toString('base64url');
+
+const badCursor = (reason: string) =>
+  new AppError('validation_failed', `The request query has a problem: query.cursor: ${reason}`, 400, [
+    { path: 'query.cursor', message: reason },
+  ]);
+
+function decodeCursor(text: string, sort: Sort, direction: Direction): Cursor {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(Buffer.from(text, 'base64url').toString('utf8'));
+  } catch {
+    throw badCursor('not a cursor this list gave out (take nextCursor or previousCursor of a page)');
+  }
+  const result = cursorSchema.safeParse(parsed);
+  const cursor = result.data;
+  const valueFits =
+    cursor &&
+    (cursor.s === 'updated'
+      ? cursor.v !== null && timestampText.test(cursor.v)
+      : cursor.v === null || doubleText.test(cursor.v));
+  if (!cursor || !valueFits) {
+    throw badCursor('not a cursor this list gave out (take nextCursor or previousCursor of a page)');
+  }
+  if (cursor.s !== sort || cursor.d !== direction) {
+    throw badCursor(
+      `made for sort=${cursor.s}&direction=${cursor.d}, not sort=${sort}&direction=${direction}; start again from the first page`,
+    );
+  }
+  return cursor;
+}
+
+type Row = Omit<SummaryRow, 'emitter' | 'quencher' | 'owner'> & {
+  sortKey: string | null;
+  emitterName: string | null;
+  quencherName: string | null;
+  ownerName: string | null;
+};
+
+/** Binds values as $1, $2, … in the order they are added. */
+class Binds {
+  readonly values: unknown[] = [];
+  add(value: unknown): string {
+    this.values.push(value);
+    return `$${this.values.length}`;
+  }
+}
+
+/**
+ * One page of the lab's current study revisions. Every filter maps to an index of migration 0005
+ * (lab_id first, current revisions only), the kq and K_SV sorts to those of migration 0008 (same
+ * NULLS LAST and id tie-breaker as the ORDER BY here), text search to the lab's trigram index of
+ * migration 20261202-1000. Pages come by number (OFFSET, fine for the first pages) or by cursor
+ * (keyset: the index is entered at the cursor's row, so page 2,000 costs what page 1 does). The
+ * count stops after STUDY_COUNT_CAP matches.
  */
 export async function listStudies(lab: LabContext, query: ListStudiesQuery): Promise<StudyList> {
-  const where: WhereOptions<Study> & Record<string | symbol, unknown> = { labId: lab.id, isCurrent: true };
-  if (query.emitterId) where.emitterId = query.emitterId;
-  if (query.quencherId) where.quencherId = query.quencherId;
-  if (query.solventId) where.solventId = query.solventId;
-  if (query.status) where.status = query.status;
-  if (query.ownerId) where.ownerId = query.ownerId;
-  if (query.flagged === 'true') where.flagged = true;
-  if (query.q) {
-    const sequelize = Study.sequelize!;
-    where[Op.and] = sequelize.where(sequelize.literal('("Study"."title" || \' \' || "Study"."notes")'), {
-      [Op.iLike]: `%${escapeLike(query.q)}%`,
-    });
+  const sequelize = Study.sequelize!;
+  const binds = new Binds();
+  const where = [`s.lab_id = ${binds.add(lab.id)}`, 's.is_current'];
+  if (query.emitterId) where.push(`s.emitter_id = ${binds.add(query.emitterId)}`);
+  if (query.quencherId) where.push(`s.quencher_id = ${binds.add(query.quencherId)}`);
+  if (query.solventId) where.push(`s.solvent_id = ${binds.add(query.solventId)}`);
+  if (query.status) where.push(`s.status = ${binds.add(query.status)}`);
+  if (query.ownerId) where.push(`s.owner_id = ${binds.add(query.ownerId)}`);
+  if (query.flagged === 'true') where.push('s.flagged');
+  if (query.q) where.push(`(s.title || ' ' || s.notes) ILIKE ${binds.add(`%${escapeLike(query.q)}%`)}`);
+
+  const filterBinds = binds.values.length;
+
+  const column = sortColumn[query.sort];
+  const nullable = column !== 'updated_at';
+  const cast = column === 'updated_at' ? 'timestamptz' : 'float8';
+  const cursor = query.cursor ? decodeCursor(query.cursor, query.sort, query.direction) : null;
+  const backwards = cursor?.k === 'before';
+  // The list's order, and (for a page before a cursor) the same order read from the other end.
+  const up = (query.direction === 'asc') !== backwards;
+  const order = (alias: string) =>
+    `${alias}.${column} ${up ? 'ASC' : 'DESC'}${nullable ? (backwards ? ' NULLS FIRST' : ' NULLS LAST') : ''}, ` +
+    `${alias}.id ${backwards ? 'DESC' : 'ASC'}`;
+  const limit = query.pageSize + 1; // one more than a page says whether another page follows
+
+  // Each part reads one stretch of an index in order; a cursor inside the non-NULL values needs a
+  // second part for the NULLs (kept at the end of the list in both directions).
+  const parts: string[][] = [];
+  if (!cursor) parts.push([]);
+  else {
+    const id = binds.add(cursor.i);
+    if (cursor.v === null) {
+      // Among the NULLs, which are ordered by id alone; before the first NULL come all the values.
+      parts.push([`s.${column} IS NULL`, `s.id ${backwards ? '<' : '>'} ${id}`]);
+      if (backwards) parts.push([`s.${column} IS NOT NULL`]);
+    } else {
+      const value = `${binds.add(cursor.v)}::${cast}`;
+      const further = up ? '>' : '<';
+      parts.push([
+        `s.${column} ${further}= ${value}`,
+        `(s.${column} ${further} ${value} OR s.id ${backwards ? '<' : '>'} ${id})`,
+      ]);
+      if (nullable && !backwards) parts.push([`s.${column} IS NULL`]);
+    }
   }
-  const direction = query.direction === 'asc' ? 'ASC' : 'DESC';
-  const nulls = direction === 'ASC' ? 'ASC NULLS LAST' : 'DESC NULLS LAST';
-  const order: Order =
-    query.sort === 'kq'
-      ? [
-          ['kq', nulls],
-          ['id', 'ASC'],
-        ]
-      : query.sort === 'k_sv'
-        ? [
-            ['kSv', nulls],
-            ['id', 'ASC'],
-          ]
-        : [
-            ['updatedAt', direction],
-            ['id', 'ASC'],
-          ];
-  // The joins are to-one and never change the count, so it counts studies alone (no DISTINCT over
-  // joined rows); the page comes back as plain rows, without building a model instance per row.
-  const [rows, count] = await Promise.all([
-    Study.findAll({
-      where,
-      attributes: [...summaryColumns],
-      include: [
-        { model: Compound, as: 'emitter', attributes: ['id', 'name'] },
-        { model: Compound, as: 'quencher', attributes: ['id', 'name'] },
-        { model: User, as: 'owner', attributes: ['id', 'name'] },
-      ],
-      order,
-      limit: query.pageSize,
-      offset: (query.page - 1) * query.pageSize,
-      raw: true,
-      nest: true,
-    }) as unknown as Promise<SummaryRow[]>,
-    Study.count({ where }),
+  const offset = cursor ? 0 : (query.page - 1) * query.pageSize;
+  const columns =
+    's.id, s.title, s.emitter_id, s.quencher_id, s.solvent_id, s.custom_solvent_name, s.status, s.revision, ' +
+    `s.owner_id, s.k_sv, s.kq, s.flagged, s.updated_at, s.${column}::text AS sort_key`;
+  const selects = parts.map(
+    (extra) =>
+      `(SELECT ${columns} FROM studies s WHERE ${[...where, ...extra].join(' AND ')} ` +
+      `ORDER BY ${order('s')} LIMIT ${limit + offset})`,
+  );
+  const pageSql = `
+    SELECT p.id, p.title, p.emitter_id AS "emitterId", p.quencher_id AS "quencherId", p.solvent_id AS "solventId",
+           p.custom_solvent_name AS "customSolventName", p.status, p.revision, p.owner_id AS "ownerId",
+           p.k_sv AS "kSv", p.kq, p.flagged, p.updated_at AS "updatedAt", p.sort_key AS "sortKey",
+           e.name AS "emitterName", q.name AS "quencherName", o.name AS "ownerName"
+    FROM (${selects.join(' UNION ALL ')}) p
+    LEFT JOIN compounds e ON e.id = p.emitter_id
+    LEFT JOIN compounds q ON q.id = p.quencher_id
+    LEFT JOIN users o ON o.id = p.owner_id
+    ORDER BY ${order('p')}
+    LIMIT ${limit} OFFSET ${offset}`;
+  const countSql = `SELECT count(*)::int AS n FROM (SELECT 1 FROM studies s WHERE ${where.join(' AND ')} LIMIT ${STUDY_COUNT_CAP + 1}) c`;
+  const [rows, [counted]] = await Promise.all([
+    sequelize.query<Row>(pageSql, { bind: binds.values, type: QueryTypes.SELECT }),
+    sequelize.query<{ n: number }>(countSql, { bind: binds.values.slice(0, filterBinds), type: QueryTypes.SELECT }),
   ]);
-  return { items: rows.map(toSummary), total: count, page: query.page, pageSize: query.pageSize };
+  const more = rows.length > query.pageSize;
+  const page = rows.slice(0, query.pageSize);
+  if (backwards) page.reverse();
+  if (backwards && page.length < query.pageSize) {
+    // Back at the start (rows were added or removed since): the first page itself.
+    return listStudies(lab, { ...query, cursor: undefined, page: 1 });
+  }
+  const cursorAt = (row: Row | undefined, k: Cursor['k']) =>
+    row ? encodeCursor({ s: query.sort, d: query.direction, k, v: row.sortKey, i: row.id }) : null;
+  const hasNext = backwards || more;
+  const hasPrevious = backwards ? more : cursor !== null || offset > 0;
+  const total = counted?.n ?? 0;
+  return {
+    items: page.map((row) =>
+      toSummary({
+        ...row,
+        emitter: row.emitterName === null ? null : { name: row.emitterName },
+        quencher: row.quencherName === null ? null : { name: row.quencherName },
+        owner: row.ownerName === null ? null : { name: row.ownerName },
+      }),
+    ),
+    total: Math.min(total, STUDY_COUNT_CAP),
+    totalCapped: total > STUDY_COUNT_CAP,
+    page: query.page,
+    pageSize: query.pageSize,
+    nextCursor: hasNext ? cursorAt(page.at(-1), 'after') : null,
+    previousCursor: hasPrevious ? cursorAt(page[0], 'before') : null,
+  };
 }

@@ -1,0 +1,184 @@
+import crypto from 'node:crypto';
+import { QueryTypes } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { apiClient, createLabWithMembers } from '../support/accounts';
+import { createStudy } from '../support/studies';
+import { createTestApp } from '../support/test-app';
+
+const testApp = await createTestApp();
+type Client = Awaited<ReturnType<typeof apiClient>>;
+let viewer: Client;
+let labId = '';
+type Summary = { id: string; kq: number | null; status: string; updatedAt: string };
+type Page = {
+  items: Summary[];
+  total: number;
+  totalCapped: boolean;
+  nextCursor: string | null;
+  previousCursor: string | null;
+};
+
+/**
+ * Copies of one study made in SQL, with many ties on purpose: four change times, kq from three
+ * values and NULL, drafts and submitted ones alternating (invented values).
+ */
+async function copyStudies(lab: string, templateId: string, count: number) {
+  const columns = (
+    await testApp.sequelize.query<{ column_name: string }>(
+      "SELECT column_name FROM information_schema.columns WHERE table_name = 'studies' AND table_schema = current_schema()",
+      { type: QueryTypes.SELECT },
+    )
+  )
+    .map((row) => row.column_name)
+    .filter((name) => !['id', 'title', 'kq', 'k_sv', 'status', 'updated_at', 'created_at'].includes(name));
+  const list = columns.map((name) => `"${name}"`).join(', ');
+  await testApp.sequelize.query(
+    `INSERT INTO studies (id, title, kq, k_sv, status, updated_at, created_at, ${list})
+     SELECT gen_random_uuid(), 'copy ' || g,
+            CASE WHEN g % 5 = 0 THEN NULL ELSE (g % 3) * 1e9 END,
+            CASE WHEN g % 5 = 0 THEN NULL ELSE (g % 3) * 1e3 END,
+            (CASE WHEN g % 2 = 0 THEN 'draft' ELSE 'submitted' END)::enum_studies_status,
+            timestamptz '2026-11-01 10:00:00.123456+00' + (g % 4) * interval '1 second',
+            timestamptz '2026-11-01 10:00:00+00', ${list}
+     FROM studies, generate_series(1, $2::int) AS g WHERE studies.id = $1 AND studies.lab_id = $3`,
+    { bind: [templateId, count, lab] },
+  );
+}
+
+beforeAll(async () => {
+  const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher', 'viewer'] });
+  labId = lab.id;
+  const researcher = await apiClient(testApp.app);
+  await researcher.signIn(users.researcher);
+  viewer = await apiClient(testApp.app);
+  await viewer.signIn(users.viewer);
+  const template = await createStudy(researcher, labId, crypto.randomBytes(3).toString('hex'));
+  // The template itself leaves the list, so the lab holds exactly the 23 copies.
+  await copyStudies(labId, template.id, 23);
+  await testApp.sequelize.query('UPDATE studies SET is_current = false WHERE id = $1', { bind: [template.id] });
+});
+afterAll(testApp.close);
+
+const list = async (query: string): Promise<Page> => {
+  const response = await viewer.get(`/api/labs/${labId}/studies?${query}`);
+  expect(response.status, JSON.stringify(response.body)).toBe(200);
+  return response.body as Page;
+};
+
+/** Every page from the first, following nextCursor; then back again following previousCursor. */
+async function walk(query: string, pageSize: number) {
+  const forward: Summary[][] = [];
+  let page = await list(`${query}&pageSize=${pageSize}`);
+  expect(page.previousCursor).toBeNull();
+  forward.push(page.items);
+  while (page.nextCursor) {
+    page = await list(`${query}&pageSize=${pageSize}&cursor=${encodeURIComponent(page.nextCursor)}`);
+    forward.push(page.items);
+  }
+  const backward: Summary[][] = [page.items];
+  while (page.previousCursor) {
+    page = await list(`${query}&pageSize=${pageSize}&cursor=${encodeURIComponent(page.previousCursor)}`);
+    backward.unshift(page.items);
+  }
+  return { forward, backward, total: page.total };
+}
+
+const ids = (items: Summary[]) => items.map((item) => item.id);
+
+/**
+ * The order the list promises, written out here from its definition (common practice for a
+ * keyset: the sort value, NULLs last in both directions, then id ascending as the tie-breaker).
+ */
+function expectedOrder(items: Summary[], key: 'kq' | 'updatedAt', direction: 'asc' | 'desc') {
+  const sign = direction === 'asc' ? 1 : -1;
+  return [...items].sort((a, b) => {
+    const x = a[key];
+    const y = b[key];
+    if (x !== y) {
+      if (x === null) return 1;
+      if (y === null) return -1;
+      return (x < y ? -1 : 1) * sign;
+    }
+    return a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
+  });
+}
+
+describe('GET /api/labs/:labId/studies with a cursor', () => {
+  for (const [sort, key, direction] of [
+    ['updated', 'updatedAt', 'desc'],
+    ['updated', 'updatedAt', 'asc'],
+    ['kq', 'kq', 'desc'],
+    ['kq', 'kq', 'asc'],
+  ] as const) {
+    it(`when paging by cursor sorted by ${sort} ${direction} over ties and NULLs, then every study comes once in a stable order, forward and back`, async () => {
+      const all = await list(`sort=${sort}&direction=${direction}&pageSize=100`);
+      expect(all.total).toBe(23);
+      expect(all.totalCapped).toBe(false);
+      expect(all.nextCursor).toBeNull();
+      expect(ids(all.items)).toEqual(ids(expectedOrder(all.items, key, direction)));
+      const { forward, backward } = await walk(`sort=${sort}&direction=${direction}`, 4);
+      expect(forward.map((items) => items.length)).toEqual([4, 4, 4, 4, 4, 3]);
+      expect(ids(forward.flat())).toEqual(ids(all.items));
+      expect(backward.map(ids)).toEqual(forward.map(ids));
+    });
+  }
+
+  it('when a filter is given with the cursor, then every page keeps it and the total counts only matches', async () => {
+    const { forward, total } = await walk('status=draft&sort=kq', 5);
+    const drafts = forward.flat();
+    expect(total).toBe(11); // g = 2, 4, …, 22
+    expect(drafts).toHaveLength(11);
+    expect(drafts.every((item) => item.status === 'draft')).toBe(true);
+    expect(new Set(ids(drafts)).size).toBe(11);
+  });
+
+  it('when numbered pages are asked, then they carry cursors too and agree with them', async () => {
+    const second = await list('pageSize=5&page=2');
+    const first = await list(`pageSize=5&cursor=${encodeURIComponent(second.previousCursor!)}`);
+    const third = await list(`pageSize=5&cursor=${encodeURIComponent(second.nextCursor!)}`);
+    const all = await list('pageSize=15');
+    expect([...ids(first.items), ...ids(second.items), ...ids(third.items)]).toEqual(ids(all.items));
+    expect(first.previousCursor).toBeNull();
+  });
+
+  it('when the cursor is not one the list gave out, then 400 names query.cursor', async () => {
+    for (const cursor of ['not-a-cursor', Buffer.from('{"s":"updated"}').toString('base64url')]) {
+      const response = await viewer.get(`/api/labs/${labId}/studies?cursor=${cursor}`);
+      expect(response.status).toBe(400);
+      expect(response.body.error.details).toEqual([expect.objectContaining({ path: 'query.cursor' })]);
+    }
+    const forged = Buffer.from(
+      JSON.stringify({
+        s: 'updated',
+        d: 'desc',
+        k: 'after',
+        v: "now'); DROP TABLE studies; --",
+        i: crypto.randomUUID(),
+      }),
+    ).toString('base64url');
+    expect((await viewer.get(`/api/labs/${labId}/studies?cursor=${forged}`)).status).toBe(400);
+  });
+
+  it('when a cursor of another sort is sent, then 400 says which sort it was made for', async () => {
+    const byKq = await list('sort=kq&pageSize=5');
+    const response = await viewer.get(
+      `/api/labs/${labId}/studies?sort=updated&pageSize=5&cursor=${encodeURIComponent(byKq.nextCursor!)}`,
+    );
+    expect(response.status).toBe(400);
+    expect(response.body.error.message).toContain('query.cursor: made for sort=kq&direction=desc');
+  });
+});
+
+describe('GET /api/labs/:labId/studies in a lab of more than 10,000 studies', () => {
+  it('when it is counted, then the total stops at 10,000 and says there are more', async () => {
+    const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+    const researcher = await apiClient(testApp.app);
+    await researcher.signIn(users.researcher);
+    const template = await createStudy(researcher, lab.id, crypto.randomBytes(3).toString('hex'));
+    await copyStudies(lab.id, template.id, 10_005);
+    const response = await researcher.get(`/api/labs/${lab.id}/studies?pageSize=2`);
+    expect(response.status).toBe(200);
+    expect(response.body).toMatchObject({ total: 10_000, totalCapped: true, pageSize: 2 });
+    expect(response.body.items).toHaveLength(2);
+  });
+});
