@@ -29,6 +29,7 @@ const FILTERS = [
   'sort',
   'direction',
   'page',
+  'cursor',
 ] as const;
 
 /** The lab's studies, filtered, sorted and paged on the server; the filters live in the address. */
@@ -46,7 +47,25 @@ export function StudiesRoute() {
     const next = new URLSearchParams(params);
     if (value) next.set(key, value);
     else next.delete(key);
-    if (key !== 'page') next.delete('page');
+    if (key !== 'page') {
+      next.delete('page');
+      next.delete('cursor');
+    }
+    setParams(next);
+  };
+  /**
+   * Pages go by the cursors the server gives (a deep page costs what the first does); the page
+   * number rides along in the address only to be shown. Page 1 is the plain list again.
+   */
+  const turn = (to: number, cursor: string | null) => {
+    const next = new URLSearchParams(params);
+    if (to <= 1 || !cursor) {
+      next.delete('page');
+      next.delete('cursor');
+    } else {
+      next.set('page', String(to));
+      next.set('cursor', cursor);
+    }
     setParams(next);
   };
   const select = (
@@ -65,6 +84,12 @@ export function StudiesRoute() {
   const compounds = options.data?.compounds ?? [];
   const page = Number(params.get('page') ?? 1);
   const pages = studies.data ? Math.max(1, Math.ceil(studies.data.total / studies.data.pageSize)) : 1;
+  // Counting stops at 10,000 matches: past that the screen says so instead of a made-up number.
+  const counted = studies.data
+    ? studies.data.totalCapped
+      ? `More than ${studies.data.total.toLocaleString('en-GB')} studies`
+      : `${studies.data.total.toLocaleString('en-GB')} ${studies.data.total === 1 ? 'study' : 'studies'}`
+    : '';
   return (
     <div className="max-w-6xl space-y-6">
       <header className="flex items-end justify-between">
@@ -139,7 +164,7 @@ export function StudiesRoute() {
         <EmptyState title="No studies match">Change the filters, or start a new study.</EmptyState>
       )}
       {studies.data && studies.data.items.length > 0 && (
-        <Panel title={`${studies.data.total} ${studies.data.total === 1 ? 'study' : 'studies'}`}>
+        <Panel title={counted}>
           <TableScroll label="Studies, scrolls sideways">
             <table className="w-full text-body">
               <thead>
@@ -185,19 +210,20 @@ export function StudiesRoute() {
           <nav aria-label="Pages" className="mt-3 flex items-center gap-3 text-body">
             <button
               type="button"
-              disabled={page <= 1}
-              onClick={() => set('page', String(page - 1))}
+              disabled={page <= 1 && !studies.data.previousCursor}
+              onClick={() => turn(page - 1, studies.data.previousCursor)}
               className="underline disabled:opacity-40"
             >
               Previous
             </button>
             <span>
-              Page {page} of {pages}
+              Page {page.toLocaleString('en-GB')}
+              {studies.data.totalCapped ? '' : ` of ${pages.toLocaleString('en-GB')}`}
             </span>
             <button
               type="button"
-              disabled={page >= pages}
-              onClick={() => set('page', String(page + 1))}
+              disabled={!studies.data.nextCursor}
+              onClick={() => turn(page + 1, studies.data.nextCursor)}
               className="underline disabled:opacity-40"
             >
               Next
