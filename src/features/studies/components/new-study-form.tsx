@@ -1,18 +1,19 @@
 import { useEffect, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
-import { createStudySchema, degassingMethods, studyAtmospheres, type StudyFormOptions } from '@shared/schemas/studies';
+import type { StudyFormOptions } from '@shared/schemas/studies';
 import type { FileReading } from '@shared/schemas/file-reading';
 import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
 import { TextField } from '@/components/text-field';
-import { ApiError } from '@/lib/api-client';
 import { describeError } from '@/lib/form-errors';
 import { readFile } from '../api/read-file';
 import { FileDrop } from './file-drop';
 import { FilePreview } from './file-preview';
-import { CUSTOM, fieldOfPath, initialValues, NEW, toBody, type StudyFormValues } from './study-form-values';
+import { CustomSolventFields, NewCompoundField, StudyConditionsFields } from './study-form-parts';
+import { compoundChoices, solventChoices, studySubmit } from './study-form-submit';
+import { CUSTOM, initialValues, NEW, type toBody, type StudyFormValues } from './study-form-values';
 import { fittingLifetime, rememberConditions, rememberedConditions } from './study-conditions';
 
 export interface NewStudySubmission {
@@ -92,44 +93,16 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
     }
   };
 
-  const place = (issues: Array<{ path: string; message: string }>) => {
-    let placed = false;
-    for (const issue of issues) {
-      const field = fieldOfPath[issue.path.replace(/^body\./, '')];
-      if (field) {
-        setError(field, { message: issue.message });
-        placed = true;
-      }
-    }
-    if (!placed)
-      setError('root.server', { message: issues.map((issue) => `${issue.path}: ${issue.message}`).join('; ') });
-  };
-  const submit = handleSubmit(async (form) => {
-    const body = toBody(form, options);
-    const checked = createStudySchema.safeParse(body);
-    if (!checked.success)
-      return place(checked.error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message })));
+  const submit = studySubmit({ handleSubmit, setError }, options, async (body, form) => {
     try {
       await onSubmit({ body, file: reading ? file : null, mapping }, setProgress);
       rememberConditions(memory.userId, memory.labId, form);
-    } catch (error) {
-      if (error instanceof ApiError && error.details.length) place(error.details);
-      else setError('root.server', { message: describeError(error) });
     } finally {
       setProgress(null);
     }
   });
   const e = (key: keyof StudyFormValues) => errors[key]?.message;
-  const pick = (role: 'photocatalyst' | 'quencher') => [
-    { value: '', label: '— pick —' },
-    ...options.compounds
-      .filter((c) => c.roleHint === role || c.roleHint === 'both')
-      .map((c) => ({ value: c.id, label: c.name })),
-    ...options.compounds
-      .filter((c) => c.roleHint !== role && c.roleHint !== 'both')
-      .map((c) => ({ value: c.id, label: `${c.name} (listed as ${c.roleHint})` })),
-    { value: NEW, label: '+ a new compound…' },
-  ];
+  const fields = { register, errors };
   const ready = reading !== null && reading.points.length > 0 && reading.problems.length === 0;
 
   return (
@@ -138,52 +111,25 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
         <legend className="mb-2 text-lead font-bold text-ink-900">What was measured</legend>
         <SelectField
           label="Emitter (required)"
-          options={pick('photocatalyst')}
+          options={compoundChoices(options.compounds, 'photocatalyst')}
           error={e('emitterId')}
           {...register('emitterId')}
         />
         <SelectField
           label="Quencher (required)"
-          options={pick('quencher')}
+          options={compoundChoices(options.compounds, 'quencher')}
           error={e('quencherId')}
           {...register('quencherId')}
         />
         <SelectField
           label="Solvent (required)"
           error={e('solventId')}
-          options={[
-            ...options.solvents.map((s) => ({ value: s.id, label: s.name })),
-            { value: CUSTOM, label: 'another solvent…' },
-          ]}
+          options={solventChoices(options)}
           {...register('solventId')}
         />
-        {values.emitterId === NEW && (
-          <TextField
-            label="New emitter name"
-            hint="Added to the lab's compound library"
-            error={e('newEmitterName')}
-            {...register('newEmitterName')}
-          />
-        )}
-        {values.quencherId === NEW && (
-          <TextField
-            label="New quencher name"
-            hint="Added to the lab's compound library"
-            error={e('newQuencherName')}
-            {...register('newQuencherName')}
-          />
-        )}
-        {values.solventId === CUSTOM && (
-          <>
-            <TextField label="Solvent name" error={e('customSolventName')} {...register('customSolventName')} />
-            <TextField
-              label="Viscosity (mPa s)"
-              hint="At the study temperature; sets the diffusion limit"
-              error={e('customViscosityMilli')}
-              {...register('customViscosityMilli')}
-            />
-          </>
-        )}
+        {values.emitterId === NEW && <NewCompoundField {...fields} role="emitter" />}
+        {values.quencherId === NEW && <NewCompoundField {...fields} role="quencher" />}
+        {values.solventId === CUSTOM && <CustomSolventFields {...fields} />}
         <TextField
           label="Title"
           className="md:col-span-3"
@@ -227,90 +173,7 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
           , {values.temperature} K, {values.atmosphere}, {values.degassingMethod}
         </summary>
         <div className="mt-3 grid grid-cols-1 gap-4 md:grid-cols-3">
-          <SelectField
-            label="τ0 from a lifetime record"
-            options={[
-              { value: '', label: 'enter τ0 by hand' },
-              ...lifetimes.map((l) => ({
-                value: l.id,
-                label: `${(l.value * 1e9).toPrecision(4)} ns, ${l.solvent}, ${l.atmosphere}, ${l.temperature} K`,
-              })),
-            ]}
-            error={e('tau0LifetimeId')}
-            {...register('tau0LifetimeId')}
-          />
-          {!values.tau0LifetimeId && (
-            <>
-              <TextField label="τ0 (ns)" error={e('tau0Nano')} {...register('tau0Nano')} />
-              <TextField
-                label="τ0 uncertainty (ns)"
-                error={e('tau0UncertaintyNano')}
-                {...register('tau0UncertaintyNano')}
-              />
-            </>
-          )}
-          <TextField label="Temperature (K)" error={e('temperature')} {...register('temperature')} />
-          <TextField
-            label="Excitation λ (nm)"
-            error={e('excitationWavelength')}
-            {...register('excitationWavelength')}
-          />
-          <TextField
-            label="Emission λ (nm)"
-            hint="Or an integration window"
-            error={e('emissionWavelength')}
-            {...register('emissionWavelength')}
-          />
-          <TextField label="Window from (nm)" error={e('windowStart')} {...register('windowStart')} />
-          <TextField label="Window to (nm)" error={e('windowEnd')} {...register('windowEnd')} />
-          <SelectField
-            label="Atmosphere"
-            options={studyAtmospheres.map((value) => ({ value, label: value }))}
-            {...register('atmosphere')}
-          />
-          <SelectField
-            label="Degassing"
-            options={degassingMethods.map((value) => ({ value, label: value }))}
-            {...register('degassingMethod')}
-          />
-          <SelectField
-            label="The series holds"
-            options={[
-              { value: 'intensity', label: 'intensities' },
-              { value: 'ratio', label: 'I0/I ratios' },
-            ]}
-            {...register('dataKind')}
-          />
-          <TextField
-            label="I0 (without a blank)"
-            hint="Only when the series has no point at zero quencher"
-            error={e('i0')}
-            {...register('i0')}
-          />
-          <label className="flex items-center gap-2 text-body">
-            <input type="checkbox" {...register('dilutionCorrection')} /> Dilution correction (needs volumes added)
-          </label>
-          <TextField
-            label="Starting volume V0 (mL)"
-            error={e('initialVolumeMilli')}
-            {...register('initialVolumeMilli')}
-          />
-          <TextField label="Stock concentration (mM)" error={e('stockMilli')} {...register('stockMilli')} />
-          <label className="flex items-center gap-2 text-body">
-            <input type="checkbox" {...register('stockContainsEmitter')} /> Stock also holds the emitter
-          </label>
-          <label className="flex items-center gap-2 text-body md:col-span-2">
-            <input type="checkbox" {...register('innerFilterCorrection')} /> Inner-filter correction (needs absorbances
-            at λex and λem)
-          </label>
-          <label className="flex flex-col gap-1 text-body font-bold text-ink-900 md:col-span-3">
-            Notes
-            <textarea
-              rows={2}
-              className="rounded-md border border-paper-300 px-3 py-2 font-normal"
-              {...register('notes')}
-            />
-          </label>
+          <StudyConditionsFields {...fields} values={values} lifetimes={lifetimes} />
         </div>
       </details>
 
