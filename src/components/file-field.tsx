@@ -1,4 +1,5 @@
 import { useId } from 'react';
+import { FilePickButton } from './file-pick-button';
 
 interface FileFieldProps {
   label: string;
@@ -12,8 +13,7 @@ interface FileFieldProps {
 
 /**
  * Halflight's file picker: a labelled button and the chosen file's name, instead of the browser's
- * bare control. The real input stays in the page (visually hidden) so keyboards, screen readers and
- * the browser's file dialog work as usual; the button shows its focus ring.
+ * bare control (the input itself: FilePickButton).
  */
 export function FileField({ label, accept, hint, fileName, disabled = false, onFile }: FileFieldProps) {
   const id = useId();
@@ -23,26 +23,14 @@ export function FileField({ label, accept, hint, fileName, disabled = false, onF
         {label}
       </span>
       <div className="flex flex-wrap items-center gap-3 rounded-md border border-dashed border-ink-400 bg-white px-3 py-2.5">
-        <input
-          id={id}
-          type="file"
+        <FilePickButton
           accept={accept}
+          text="Choose a file"
           disabled={disabled}
-          aria-labelledby={`${id}-label`}
-          aria-describedby={[hint && `${id}-hint`, `${id}-chosen`].filter(Boolean).join(' ')}
-          className="peer sr-only"
-          onChange={(event) => {
-            const file = event.target.files?.[0];
-            if (file) onFile(file);
-            event.target.value = '';
-          }}
+          labelledBy={`${id}-label`}
+          describedBy={[hint && `${id}-hint`, `${id}-chosen`].filter(Boolean).join(' ')}
+          onFile={onFile}
         />
-        <label
-          htmlFor={id}
-          className="cursor-pointer rounded-md border border-ink-400 bg-paper-50 px-4 py-1.5 text-body font-bold text-ink-800 peer-focus-visible:outline-2 peer-focus-visible:outline-offset-2 peer-focus-visible:outline-solid peer-disabled:cursor-not-allowed peer-disabled:opacity-60 hover:border-ink-600"
-        >
-          Choose a file
-        </label>
         <span id={`${id}-chosen`} className="text-body break-all text-ink-700">
           {fileName ? fileName : 'No file chosen yet'}
         </span>

@@ -1,4 +1,5 @@
-import { useId, useState } from 'react';
+import { useState } from 'react';
+import { FilePickButton } from '@/components/file-pick-button';
 
 export const ACCEPTED_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
 
@@ -14,7 +15,6 @@ interface Props {
 
 /** Drop an instrument export here or pick one; shows the chosen name and how much has been sent. */
 export function FileDrop({ label, fileName, progress, disabled = false, onFile }: Props) {
-  const id = useId();
   const [over, setOver] = useState(false);
   return (
     <div
@@ -37,25 +37,7 @@ export function FileDrop({ label, fileName, progress, disabled = false, onFile }
         until you confirm.
       </p>
       <div className="mt-2 flex flex-wrap items-center gap-3">
-        <input
-          id={id}
-          type="file"
-          accept={ACCEPTED_FILES}
-          disabled={disabled}
-          aria-label={label}
-          className="peer sr-only"
-          onChange={(event) => {
-            const file = event.target.files?.[0];
-            if (file) onFile(file);
-            event.target.value = '';
-          }}
-        />
-        <label
-          htmlFor={id}
-          className="cursor-pointer rounded-md border border-ink-300 bg-paper-50 px-3 py-1.5 font-bold text-ink-800 hover:border-ink-500 peer-focus-visible:outline-2 peer-focus-visible:outline-glow-400"
-        >
-          Pick a file
-        </label>
+        <FilePickButton text="Pick a file" label={label} accept={ACCEPTED_FILES} disabled={disabled} onFile={onFile} />
         <span className="text-ink-800" aria-live="polite">
           {fileName ? (
             <>
