@@ -1,39 +1,9 @@
-import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
-import type { Lab } from './lab.model';
-import type { User } from './user.model';
+import type { Sequelize } from 'sequelize';
+import { StoredFile, storedFileColumns } from './stored-file';
 
 /** A decay histogram file (or its response file) exactly as received, with its SHA-256. */
-export class DecayFile extends Model<InferAttributes<DecayFile>, InferCreationAttributes<DecayFile>> {
-  declare id: CreationOptional<string>;
-  declare labId: ForeignKey<Lab['id']>;
-  declare fileName: string;
-  declare mediaType: string;
-  declare size: number;
-  declare sha256: string;
-  /** where the bytes are: on this row (content) or in object storage (storageKey) */
-  declare storage: CreationOptional<'database' | 's3'>;
-  declare storageKey: string | null;
-  declare content: Buffer | null;
-  declare uploadedById: ForeignKey<User['id']> | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
+export class DecayFile extends StoredFile<DecayFile> {
   static initModel(sequelize: Sequelize): void {
-    DecayFile.init(
-      {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-        fileName: { type: DataTypes.STRING(255), allowNull: false },
-        mediaType: { type: DataTypes.STRING(120), allowNull: false },
-        size: { type: DataTypes.INTEGER, allowNull: false },
-        sha256: { type: DataTypes.STRING(64), allowNull: false },
-        storage: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'database' },
-        storageKey: { type: DataTypes.STRING(512), allowNull: true },
-        content: { type: DataTypes.BLOB, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
-      },
-      { sequelize, tableName: 'decay_files' },
-    );
+    DecayFile.init(storedFileColumns(), { sequelize, tableName: 'decay_files' });
   }
 }
