@@ -1,20 +1,14 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { apiClient, createLabWithMembers } from '../support/accounts';
+import { signedInResearcher, type ApiClient } from '../support/accounts';
 import { createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 import { syntheticDecay } from '../unit/engine/support/synthetic-decay';
 
 const testApp = await createTestApp();
-let client: Awaited<ReturnType<typeof apiClient>>;
-let csrf = '';
-let labId = '';
-
+let client: ApiClient, csrf: string, labId: string;
 beforeAll(async () => {
-  const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
-  labId = lab.id;
-  client = await apiClient(testApp.app);
-  csrf = (await client.signIn(users.researcher)).body.csrfToken;
+  ({ client, csrf, labId } = await signedInResearcher(testApp));
 });
 afterAll(testApp.close);
 

@@ -2,22 +2,16 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { apiClient, createLabWithMembers } from '../support/accounts';
+import { signedInResearcher, type ApiClient } from '../support/accounts';
 import { createStudy, exactPoints } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
 // Upload fixtures are invented test data (tests/fixtures/uploads/README.md says how each was built).
 const fixture = (name: string) => fs.readFileSync(path.join(import.meta.dirname, '../fixtures/uploads', name));
 const testApp = await createTestApp();
-let client: Awaited<ReturnType<typeof apiClient>>;
-let csrf = '';
-let labId = '';
-
+let client: ApiClient, csrf: string, labId: string;
 beforeAll(async () => {
-  const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
-  labId = lab.id;
-  client = await apiClient(testApp.app);
-  csrf = (await client.signIn(users.researcher)).body.csrfToken;
+  ({ client, csrf, labId } = await signedInResearcher(testApp));
 });
 afterAll(testApp.close);
 

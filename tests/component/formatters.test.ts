@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatNumber } from '@/features/studies/components/format';
+import { formatNumber as screenFormatNumber } from '@/features/studies/components/format';
 import {
   formatElectronvolts,
   formatKilojoules,
@@ -7,32 +7,13 @@ import {
   formatVolts,
   solventName,
 } from '@/features/library/components/library-format';
-import { formatDate } from '@shared/format';
+import { formatDate, formatNumber } from '@shared/format';
 
 // Expected strings are the display conventions of the screens (common practice in papers: signed
 // potentials with two decimals, powers of ten as × 10ⁿ), written out by hand.
-describe('formatNumber', () => {
-  it('when a value lies between 0.01 and 10 000, then it is written plainly to three significant figures', () => {
-    expect(formatNumber(1234.5678)).toBe('1230');
-    expect(formatNumber(0.0123456)).toBe('0.0123');
-    expect(formatNumber(0)).toBe('0');
-    expect(formatNumber(-42.25, 4)).toBe('−42.25');
-  });
-
-  it('when a value is very large or very small, then it gets a power of ten with a superscript exponent', () => {
-    expect(formatNumber(5e8)).toBe('5.00 × 10⁸');
-    expect(formatNumber(10000)).toBe('1.00 × 10⁴');
-    expect(formatNumber(-2.5e-5)).toBe('−2.50 × 10⁻⁵');
-    expect(formatNumber(1.234e10, 2)).toBe('1.2 × 10¹⁰');
-  });
-
-  it('when there is no finite value, then a dash stands in its place', () => {
-    expect([null, undefined, Number.NaN, Number.POSITIVE_INFINITY].map((value) => formatNumber(value))).toEqual([
-      '—',
-      '—',
-      '—',
-      '—',
-    ]);
+describe('formatNumber on the study screens', () => {
+  it('when a study screen writes a number, then it uses the one shared formatter (its cases: tests/unit/format)', () => {
+    expect(screenFormatNumber).toBe(formatNumber);
   });
 });
 

@@ -57,6 +57,19 @@ export async function apiClient(app: Parameters<typeof request.agent>[0]) {
   };
 }
 
+export type ApiClient = Awaited<ReturnType<typeof apiClient>>;
+
+/** A new lab with one researcher, signed in through a fresh client: the set-up of the upload tests. */
+export async function signedInResearcher(testApp: {
+  app: Parameters<typeof request.agent>[0];
+  sequelize: Sequelize;
+}): Promise<{ labId: string; client: ApiClient; csrf: string }> {
+  const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+  const client = await apiClient(testApp.app);
+  const csrf = (await client.signIn(users.researcher)).body.csrfToken as string;
+  return { labId: lab.id, client, csrf };
+}
+
 /**
  * Waits until the mail jobs are done (sent, or given up), so a test reads what the worker sent.
  * A retry that is waiting for a relay that is down counts as not done. The bound is generous: on a

@@ -32,6 +32,8 @@ describe('formatNumber', () => {
     expect(formatNumber(2.63e8)).toBe('2.63 × 10⁸');
     expect(formatNumber(1.933e10, 4)).toBe('1.933 × 10¹⁰');
     expect(formatNumber(10_000)).toBe('1.00 × 10⁴');
+    expect(formatNumber(5e8)).toBe('5.00 × 10⁸');
+    expect(formatNumber(1.234e10, 2)).toBe('1.2 × 10¹⁰');
   });
 
   it('when a value is small, then the exponent is negative and written with a superscript minus', () => {
@@ -42,6 +44,7 @@ describe('formatNumber', () => {
   it('when a value is negative, then it gets a true minus sign, not a hyphen', () => {
     expect(formatNumber(-2.5e-5, 2)).toBe('−2.5 × 10⁻⁵');
     expect(formatNumber(-42.25, 4)).toBe('−42.25');
+    expect(formatNumber(-2.5e-5)).toBe('−2.50 × 10⁻⁵');
   });
 
   it('when a value lies from 0.01 to below 10 000, then it is written plainly to the significant figures asked', () => {
