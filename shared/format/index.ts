@@ -13,3 +13,4 @@ export { estimateParts, formatEstimate, formatInterval, uncertaintyDigit, type E
 export { titled, UNITS, type UnitText } from './quantity-units';
 export { formatDate, formatDateTime, isoDate, isoDateTime } from './format-date';
 export { fitParameterLines, type ParameterLine } from './fit-parameters';
+export { describeUploadReading } from './upload-reading';

@@ -12,6 +12,10 @@ export const uploadSummarySchema = z
     sha256: z.string(),
     parseStatus: z.enum(['parsed', 'failed', 'applied']),
     problem: z.string().nullable().describe('why parsing failed, naming row and column'),
+    reading: z
+      .string()
+      .nullable()
+      .describe('how the applied file was read (spectrum window or wavelength, baseline, concentration unit)'),
     uploadedBy: z.string().nullable(),
     createdAt: z.string(),
   })

@@ -65,12 +65,27 @@ export const uploadParamsSchema = z.object({
   uploadId: z.string().uuid('must be an upload id'),
 });
 
+/**
+ * Questions a chemist would ask of points whose concentration unit may be wrong. They do not
+ * refuse the file: applying it needs each one acknowledged (the person has checked the unit).
+ */
+export const uploadQuestionCodes = ['concentration_above_1_molar', 'ksv_below_1_per_molar'] as const;
+export type UploadQuestionCode = (typeof uploadQuestionCodes)[number];
+export const uploadQuestionSchema = z
+  .object({ code: z.enum(uploadQuestionCodes), message: z.string() })
+  .meta({ id: 'UploadQuestion' });
+export type UploadQuestion = z.infer<typeof uploadQuestionSchema>;
+
 export const previewUploadSchema = z.object({ mapping: uploadMappingSchema }).meta({ id: 'PreviewUpload' });
 export const applyUploadSchema = z
   .object({
     version: z.number().int().min(0),
     mapping: uploadMappingSchema,
     mode: z.enum(['replace', 'append']).default('replace'),
+    acknowledged: z
+      .array(z.enum(uploadQuestionCodes))
+      .default([])
+      .describe("the preview's questions the person has checked; apply is refused while one is open"),
   })
   .meta({ id: 'ApplyUpload' });
 export type ApplyUploadInput = z.input<typeof applyUploadSchema>;
@@ -97,6 +112,9 @@ export const uploadPreviewSchema = z
     pointCount: z.number().int().describe('points the mapping gives in all'),
     problems: z.array(problemSchema),
     warnings: z.array(z.string()),
+    questions: z
+      .array(uploadQuestionSchema)
+      .describe('what these points make doubtful (for instance above 1 M); each must be acknowledged on apply'),
   })
   .meta({ id: 'UploadPreview' });
 export type UploadPreview = z.infer<typeof uploadPreviewSchema>;

@@ -64,7 +64,7 @@ export function NewStudyRoute() {
             options={options.data}
             memory={{ userId: user.id, labId }}
             preset={preset}
-            onSubmit={async ({ body, file, mapping }, onProgress) => {
+            onSubmit={async ({ body, file, mapping, acknowledged }, onProgress) => {
               const study = await createStudy(labId, body);
               await queryClient.invalidateQueries({ queryKey: studiesKeys.all });
               let arrival: StudyArrival = { arrived: 'created' };
@@ -75,6 +75,7 @@ export function NewStudyRoute() {
                     version: study.version,
                     mapping,
                     mode: 'replace',
+                    acknowledged,
                   });
                   arrival = { arrived: 'fitted' };
                 } catch (error) {

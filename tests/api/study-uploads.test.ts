@@ -1,6 +1,7 @@
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
+import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signedInResearcher, type ApiClient } from '../support/accounts';
 import { createStudy, exactPoints } from '../support/studies';
@@ -254,5 +255,120 @@ describe('POST /api/labs/:labId/studies/:studyId/uploads', () => {
     expect(response.status).toBe(415);
     expect(response.body.error.code).toBe('unsupported_type');
     expect((await expectPointsUnchanged(study.id)).uploads).toEqual([]);
+  });
+});
+
+describe('POST /api/labs/:labId/studies/:studyId/uploads/:uploadId/apply: points that question their unit', () => {
+  // Invented series: I = 1000 / (1 + 0.25 [Q]) with [Q] = 0, 2, 4, 6, 8 and no unit in the header.
+  const unitless = Buffer.from(
+    `[Q],intensity\n${[0, 2, 4, 6, 8].map((q) => `${q},${1000 / (1 + 0.25 * q)}`).join('\n')}\n`,
+  );
+
+  it('when M is chosen for values up to 8, then the preview asks two questions and apply saves nothing until both are acknowledged', async () => {
+    const study = await studyWithPoints();
+    const sent = await send(study.id, 'unitless.csv', unitless).expect(201);
+    expect(sent.body.questions).toEqual([]); // no unit yet: nothing to question, the unit is asked first
+    const mapping = { ...sent.body.mapping, concentrationUnit: 'M' };
+    const preview = await client.post(`${base(study.id)}/uploads/${sent.body.upload.id}/preview`, { mapping });
+    // I0/I - 1 = 0.25 [Q] exactly, so K_SV reads 0.25 M^-1 in M (by construction)
+    expect(preview.body.questions.map((question: { code: string }) => question.code)).toEqual([
+      'concentration_above_1_molar',
+      'ksv_below_1_per_molar',
+    ]);
+    const apply = (acknowledged?: string[]) =>
+      client.post(`${base(study.id)}/uploads/${sent.body.upload.id}/apply`, {
+        version: 1,
+        mapping,
+        ...(acknowledged ? { acknowledged } : {}),
+      });
+    const refused = await apply();
+    expect(refused.status).toBe(422);
+    expect(refused.body.error.code).toBe('questions_open');
+    expect(refused.body.error.message).toMatch(/^Nothing was saved: .*8 M.*0\.25 M⁻¹/);
+    expect(refused.body.error.details).toEqual([
+      { path: 'body.acknowledged', message: expect.stringContaining('concentration_above_1_molar') },
+      { path: 'body.acknowledged', message: expect.stringContaining('ksv_below_1_per_molar') },
+    ]);
+    expect((await apply(['concentration_above_1_molar'])).body.error.details).toHaveLength(1);
+    await expectPointsUnchanged(study.id);
+    const applied = await apply(['concentration_above_1_molar', 'ksv_below_1_per_molar']);
+    expect(applied.status, JSON.stringify(applied.body)).toBe(200);
+    expect(applied.body.latestFit.kSv).toBeCloseTo(0.25, 9);
+  });
+});
+
+describe('spectra read over the study window', () => {
+  /**
+   * An invented spectrum matrix on a 1 nm grid, 400-800 nm: a band quenched as 1 / (1 + 500 [Q])
+   * (triangle, peak 100 at 600 nm, zero outside 500-700 nm) and a second band the quencher leaves
+   * alone (triangle, peak 50 at 740 nm, zero outside 710-770 nm), on a flat offset. Every kink lies
+   * on a grid point, so the trapezoid rule is exact and the integrals are hand-computed areas.
+   */
+  const spectra = (offset: number) => {
+    const quenched = (nm: number) => Math.max(0, 100 - Math.abs(nm - 600));
+    const untouched = (nm: number) => Math.max(0, 50 - (5 / 3) * Math.abs(nm - 740));
+    const mM = [0, 1, 2, 3, 4];
+    const lines = [['wavelength (nm)', ...mM.map((c) => `${c} mM`)].join(',')];
+    for (let nm = 400; nm <= 800; nm++)
+      lines.push([nm, ...mM.map((c) => quenched(nm) / (1 + 0.5 * c) + untouched(nm) + offset)].join(','));
+    return Buffer.from(`${lines.join('\n')}\n`);
+  };
+  const windowStudy = () =>
+    createStudy(client, labId, crypto.randomBytes(3).toString('hex'), { windowStart: 560, windowEnd: 680 });
+  const applyProposed = async (bytes: Buffer, name: string, change: Record<string, unknown> = {}) => {
+    const study = await windowStudy();
+    const sent = await send(study.id, name, bytes);
+    expect(sent.status, JSON.stringify(sent.body)).toBe(201);
+    const applied = await client.post(`${base(study.id)}/uploads/${sent.body.upload.id}/apply`, {
+      version: study.version,
+      mapping: { ...sent.body.mapping, ...change },
+    });
+    expect(applied.status, JSON.stringify(applied.body)).toBe(200);
+    return { study, sent, applied };
+  };
+
+  it('when the study says 560-680 nm, then the proposal integrates there and K_SV is that of the quenched band alone', async () => {
+    const { sent, applied } = await applyProposed(spectra(0), 'two-bands.csv');
+    expect(sent.body.mapping).toMatchObject({ reduction: { kind: 'window', start: 560, end: 680 }, baseline: null });
+    // Blank over 560-680 nm (trapezoid, exact here): quenched band (60+100)/2 x 40 + (100+20)/2 x 80 = 3200 + 4800
+    // = 8000; the untouched band is zero below 710 nm. So I0/I = 1 + 500 [Q] exactly and K_SV = 500 M^-1.
+    // (Over the whole 400-800 nm the blank would be 10000 + 1500 and I0/I curve below that line.)
+    expect(sent.body.points[0].intensity).toBeCloseTo(8000, 9);
+    expect(applied.body.latestFit.kSv).toBeCloseTo(500, 6);
+  });
+
+  it('when the spectra sit on a 40-count offset and a baseline region is subtracted, then K_SV is the same as without the offset', async () => {
+    const plain = await applyProposed(spectra(0), 'no-offset.csv');
+    // 780-800 nm holds only the offset (both bands are zero there): its mean, 40 counts, comes off every reading.
+    const { applied } = await applyProposed(spectra(40), 'offset.csv', { baseline: { start: 780, end: 800 } });
+    expect(applied.body.latestFit.kSv).toBeCloseTo(plain.applied.body.latestFit.kSv, 9);
+    // Without the baseline the offset adds 40 x 120 = 4800 to every integral and K_SV falls well below 500.
+    const { applied: offsetOnly } = await applyProposed(spectra(40), 'offset-kept.csv');
+    expect(offsetOnly.body.latestFit.kSv).toBeLessThan(400);
+  });
+
+  it('when spectra are applied, then the upload, the history and the report say how they were read', async () => {
+    const { study, applied } = await applyProposed(spectra(40), 'stated.csv', { baseline: { start: 780, end: 800 } });
+    const reading = 'spectra integrated over 560–680 nm (trapezoid), baseline 780–800 nm subtracted (its mean)';
+    expect(applied.body.uploads).toEqual([expect.objectContaining({ fileName: 'stated.csv', reading })]);
+    const history = await client.get(`${base(study.id)}/history`).expect(200);
+    const taken = history.body.events.find((event: { action: string }) => event.action === 'study_points_from_upload');
+    expect(taken.details).toMatchObject({
+      reading,
+      reduction: { kind: 'window', start: 560, end: 680 },
+      baseline: { start: 780, end: 800 },
+    });
+    const pdf = await client.agent
+      .get(`${base(study.id)}/report.pdf`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    const parser = new PDFParse({ data: new Uint8Array(pdf.body as Buffer) });
+    const text = (await parser.getText().finally(() => parser.destroy())).text.replace(/\s+/g, ' ');
+    expect(text).toContain(`stated.csv`);
+    expect(text).toContain(`read as ${reading}`);
   });
 });

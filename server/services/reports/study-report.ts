@@ -166,7 +166,11 @@ function review(doc: Pdf, study: StudyDetail) {
   heading(doc, 'Raw files');
   if (study.uploads.length === 0) doc.text('No files uploaded; points were entered by hand.');
   study.uploads.forEach((upload) =>
-    doc.fontSize(8.5).text(`${upload.fileName} (${upload.size} bytes, ${upload.parseStatus}) SHA-256 ${upload.sha256}`),
+    doc
+      .fontSize(8.5)
+      .text(
+        `${upload.fileName} (${upload.size} bytes, ${upload.parseStatus}) SHA-256 ${upload.sha256}${upload.reading ? `; read as ${upload.reading}` : ''}`,
+      ),
   );
   doc.fontSize(10);
 }

@@ -45,5 +45,6 @@ export async function readFileForPreview(
     pointCount: outcome.points.length,
     problems: outcome.problems,
     warnings: outcome.warnings,
+    questions: outcome.questions,
   };
 }

@@ -56,7 +56,14 @@ export async function writeSeries(
   points: SeriesPoint[],
   actor: Actor,
   transaction: Transaction,
-  reason: { action: string; uploadId?: string; decaySetId?: string; tau0?: { value: number; standardError: number } },
+  reason: {
+    action: string;
+    uploadId?: string;
+    /** how the upload was read (for spectra: reduction and baseline), kept with the change */
+    reading?: Record<string, unknown>;
+    decaySetId?: string;
+    tau0?: { value: number; standardError: number };
+  },
 ): Promise<void> {
   const before = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
   const sources = lifetimeSources(before, points);
@@ -84,6 +91,7 @@ export async function writeSeries(
         before: before.map(plain),
         after: points.map(plain),
         ...(reason.uploadId ? { uploadId: reason.uploadId } : {}),
+        ...reason.reading,
         ...(reason.decaySetId ? { decaySetId: reason.decaySetId } : {}),
         ...(reason.tau0 ? { tau0: reason.tau0 } : {}),
       },

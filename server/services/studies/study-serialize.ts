@@ -1,8 +1,10 @@
 import { SOLVENTS, type SolventId } from '@shared/engine';
+import { describeUploadReading } from '@shared/format';
 import type { StudySettings, StudySummary } from '@shared/schemas/studies';
 import type { StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
 import type { StudyPoint as StudyPointRecord } from '@shared/schemas/study-points';
 import type { ReviewEntry, UploadSummary } from '@shared/schemas/study-detail';
+import { uploadMappingSchema } from '@shared/schemas/study-uploads';
 import type { Study, StudyFit, StudyPoint, StudyReview, StudyUpload } from '../../models';
 import { correctPoint } from './fit/series-corrections';
 
@@ -118,6 +120,12 @@ export const toFit = (fit: StudyFit): StudyFitRecord => ({
   createdAt: fit.createdAt.toISOString(),
 });
 
+/** The stored mapping of an applied upload, in words; null before it is applied. */
+function readingOf(applied: unknown): string | null {
+  const mapping = uploadMappingSchema.safeParse(applied);
+  return mapping.success ? describeUploadReading(mapping.data) : null;
+}
+
 export const toUpload = (upload: StudyUpload): UploadSummary => ({
   id: upload.id,
   fileName: upload.fileName,
@@ -126,6 +134,7 @@ export const toUpload = (upload: StudyUpload): UploadSummary => ({
   sha256: upload.sha256,
   parseStatus: upload.parseStatus,
   problem: typeof upload.parseReport.problem === 'string' ? upload.parseReport.problem : null,
+  reading: readingOf(upload.parseReport.appliedMapping),
   uploadedBy: upload.uploadedBy?.name ?? null,
   createdAt: upload.createdAt.toISOString(),
 });

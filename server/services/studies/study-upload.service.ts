@@ -2,8 +2,9 @@ import crypto from 'node:crypto';
 import type { Sequelize } from 'sequelize';
 import { UniqueConstraintError } from 'sequelize';
 import { EngineError } from '@shared/engine';
+import { describeUploadReading } from '@shared/format';
 import type { StudyPointValues } from '@shared/schemas/study-points';
-import type { UploadMapping, UploadPreview } from '@shared/schemas/study-uploads';
+import type { UploadMapping, UploadPreview, UploadQuestionCode } from '@shared/schemas/study-uploads';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { StudyPoint, StudyUpload, User } from '../../models';
@@ -73,8 +74,15 @@ function preview(upload: StudyUpload, outcome: ReadOutcome): UploadPreview {
     pointCount: read?.points.length ?? 0,
     problems: outcome.kind === 'limit' ? [] : outcome.problems,
     warnings: read?.warnings ?? [],
+    questions: read?.questions ?? [],
   };
 }
+
+/** What the history keeps of how a file was read: the words, and for spectra the reduction and baseline as numbers. */
+const readingDetails = (mapping: UploadMapping) => ({
+  reading: describeUploadReading(mapping),
+  ...(mapping.layout === 'spectrum' ? { reduction: mapping.reduction, baseline: mapping.baseline } : {}),
+});
 
 function parseReportOf(outcome: ReadOutcome) {
   if (outcome.kind === 'limit') return { problem: outcome.message, limit: outcome.limit };
@@ -212,7 +220,13 @@ export async function applyUpload(
   lab: LabContext,
   studyId: string,
   uploadId: string,
-  input: { version: number; mapping: UploadMapping; mode: 'replace' | 'append' },
+  input: {
+    version: number;
+    mapping: UploadMapping;
+    mode: 'replace' | 'append';
+    /** questions of the preview the person has checked (a concentration above 1 M, K_SV below 1 M^-1) */
+    acknowledged?: UploadQuestionCode[];
+  },
   actor: SignedInActor,
 ) {
   if (input.mapping.layout === 'series' && input.mapping.concentrationUnit === null)
@@ -235,6 +249,14 @@ export async function applyUpload(
     );
   }
   const read = outcome;
+  const open = read.questions.filter((question) => !(input.acknowledged ?? []).includes(question.code));
+  if (open.length > 0)
+    throw new AppError(
+      'questions_open',
+      `Nothing was saved: ${open.map((question) => question.message).join(' ')} Confirm that you checked ${open.length === 1 ? 'this' : 'these'}, or choose another unit.`,
+      422,
+      open.map((question) => ({ path: 'body.acknowledged', message: `not acknowledged: ${question.code}` })),
+    );
   await services.sequelize.transaction(async (transaction) => {
     const study = await loadStudy(lab, studyId, transaction);
     requireChangeable(study, lab, actor.userId, input.version);
@@ -273,7 +295,11 @@ export async function applyUpload(
       throw error;
     }
     if (settings.dataKind !== study.dataKind) await study.update({ dataKind: settings.dataKind }, { transaction });
-    await writeSeries(study, points, actor, transaction, { action: 'study_points_from_upload', uploadId });
+    await writeSeries(study, points, actor, transaction, {
+      action: 'study_points_from_upload',
+      uploadId,
+      reading: readingDetails(input.mapping),
+    });
     await upload.update(
       {
         parseStatus: 'applied',

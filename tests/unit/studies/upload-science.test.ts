@@ -83,15 +83,21 @@ describe('concentration units are chosen, never guessed', () => {
     const outcome = await read(series, { ...open.mapping, concentrationUnit: 'M' } as UploadMapping);
     expect(outcome.points).toHaveLength(5);
     // I0/I - 1 = 0.25 [Q] exactly, so the least-squares slope is 0.25 M^-1 (by construction; in mM it would read 250)
-    expect(outcome.warnings).toEqual([
-      expect.stringMatching(/highest concentration reads as 8 M/),
-      expect.stringMatching(/K_SV of about 0\.25 M⁻¹ .*read as mM, K_SV would be 250 M⁻¹/),
+    expect(outcome.questions).toEqual([
+      { code: 'concentration_above_1_molar', message: expect.stringMatching(/highest concentration reads as 8 M/) },
+      {
+        code: 'ksv_below_1_per_molar',
+        message: expect.stringMatching(/K_SV of about 0\.25 M⁻¹ .*read as mM, K_SV would be 250 M⁻¹/),
+      },
     ]);
+    // Questions are not plain notes: they are asked apart so that applying can require an answer.
+    expect(outcome.warnings).toEqual([]);
   });
 
   it('when mM is chosen, then the same points raise no question', async () => {
     const open = await read(series, null);
     const outcome = await read(series, { ...open.mapping, concentrationUnit: 'mM' } as UploadMapping);
     expect(outcome.warnings).toEqual([]);
+    expect(outcome.questions).toEqual([]);
   });
 });

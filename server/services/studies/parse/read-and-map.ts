@@ -1,5 +1,5 @@
 import type { StudyPointValues } from '@shared/schemas/study-points';
-import type { UploadMapping } from '@shared/schemas/study-uploads';
+import type { UploadMapping, UploadQuestion } from '@shared/schemas/study-uploads';
 import { applyMapping } from './apply-mapping';
 import { ParseProblem } from './parse-problem';
 import { mappingNotes, NO_STUDY_READING, proposeWithNotes, type StudyReading } from './propose-mapping';
@@ -39,6 +39,8 @@ export type ReadOutcome =
       points: StudyPointValues[];
       problems: Problem[];
       warnings: string[];
+      /** doubts about the points (a unit slip?) that applying needs acknowledged */
+      questions: UploadQuestion[];
     }
   | { kind: 'unreadable'; problems: Problem[] }
   | { kind: 'limit'; limit: keyof UploadLimits; message: string };
@@ -71,11 +73,12 @@ export async function readAndMap(task: ReadTask): Promise<ReadOutcome> {
     const unitOpen = mapping.layout === 'series' && mapping.concentrationUnit === null;
     // Without a concentration unit there are no points yet: the preview asks for the unit first.
     const { points, problems } = unitOpen ? { points: [], problems: [] } : applyMapping(table, mapping);
-    const questions = unitOpen
+    const unitNote = unitOpen
       ? [
           `The concentration column "${table.headers[mapping.concentration] ?? ''}" names no unit: choose M, mM, µM or nM (Halflight does not guess one).`,
         ]
-      : questionPoints(points, mapping.layout === 'series' && mapping.intensityIsRatio);
+      : [];
+    const questions = questionPoints(points, mapping.layout === 'series' && mapping.intensityIsRatio);
     if (points.length > task.limits.seriesPoints)
       throw new UploadLimitExceeded('seriesPoints', limitMessage.seriesPoints(task.limits, points.length));
     const shownRows = Math.max(
@@ -95,7 +98,8 @@ export async function readAndMap(task: ReadTask): Promise<ReadOutcome> {
       mapping,
       points,
       problems: problems.map(toProblem),
-      warnings: [...(proposal?.notes ?? []), ...questions, ...mappingNotes(table, mapping)],
+      warnings: [...(proposal?.notes ?? []), ...unitNote, ...mappingNotes(table, mapping)],
+      questions,
     };
   } catch (error) {
     if (error instanceof ParseProblem) return { kind: 'unreadable', problems: [toProblem(error)] };

@@ -1,5 +1,6 @@
+import { useState } from 'react';
 import type { FileReading } from '@shared/schemas/file-reading';
-import type { UploadMapping } from '@shared/schemas/study-uploads';
+import type { UploadMapping, UploadQuestionCode } from '@shared/schemas/study-uploads';
 import { formatNumber } from '@shared/format';
 import { concentrationDisplayUnit, fromSi, unitLabel, type ConcentrationUnit } from '@shared/units/units';
 import { FormAlert } from '@/components/form-alert';
@@ -13,19 +14,62 @@ function fileUnit(reading: Reading, mapping: UploadMapping): ConcentrationUnit {
   return concentrationDisplayUnit(Math.max(0, ...reading.points.map((point) => point.concentration)));
 }
 
+/** Doubts about the points (a unit slip?): each needs a tick before the points can be used. */
+function Questions({
+  questions,
+  acknowledged,
+  onAcknowledged,
+}: {
+  questions: Reading['questions'];
+  acknowledged: readonly UploadQuestionCode[];
+  onAcknowledged: (next: UploadQuestionCode[]) => void;
+}) {
+  return (
+    <fieldset className="space-y-2 rounded-md border border-glow-300 bg-glow-50 px-3 py-2 text-body text-ink-800">
+      <legend className="px-1 font-bold">Check before using these points</legend>
+      {questions.map((question) => (
+        <label key={question.code} className="flex items-start gap-2">
+          <input
+            type="checkbox"
+            className="mt-1"
+            checked={acknowledged.includes(question.code)}
+            onChange={(event) =>
+              onAcknowledged(
+                event.target.checked
+                  ? [...acknowledged, question.code]
+                  : acknowledged.filter((code) => code !== question.code),
+              )
+            }
+          />
+          <span>
+            {question.message} <strong>I have checked: the values are right as read.</strong>
+          </span>
+        </label>
+      ))}
+    </fieldset>
+  );
+}
+
 /** What a file gave: the first rows, the mapping to confirm or change, the points in the file's own units. */
 export function FilePreview({
   fileName,
   reading,
   mapping,
   onMapping,
+  acknowledged,
+  onAcknowledged,
 }: {
   fileName: string;
   reading: Reading;
   mapping: UploadMapping;
   onMapping: (next: UploadMapping) => void;
+  /** the questions of this reading the person has ticked */
+  acknowledged: readonly UploadQuestionCode[];
+  onAcknowledged: (next: UploadQuestionCode[]) => void;
 }) {
   const unit = fileUnit(reading, mapping);
+  // A file that names no concentration unit opens the columns and units: the choice is needed first.
+  const [mappingOpen, setMappingOpen] = useState(mapping.layout === 'series' && mapping.concentrationUnit === null);
   return (
     <div className="space-y-3 rounded-md border border-paper-300 p-3">
       <p className="text-body">
@@ -56,7 +100,7 @@ export function FilePreview({
           </tbody>
         </table>
       </div>
-      <details>
+      <details open={mappingOpen} onToggle={(event) => setMappingOpen(event.currentTarget.open)}>
         <summary className="cursor-pointer text-body font-bold text-ink-800">Columns and units</summary>
         <div className="mt-2">
           <MappingEditor headers={reading.headers} mapping={mapping} onChange={onMapping} />
@@ -68,6 +112,9 @@ export function FilePreview({
             <p key={warning}>{warning}</p>
           ))}
         </FormAlert>
+      )}
+      {reading.questions.length > 0 && (
+        <Questions questions={reading.questions} acknowledged={acknowledged} onAcknowledged={onAcknowledged} />
       )}
       {reading.problems.length > 0 && (
         <FormAlert>

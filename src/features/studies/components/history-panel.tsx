@@ -35,6 +35,9 @@ export function HistoryPanel({ labId, studyId }: { labId: string; studyId: strin
                   (K_SV {formatQuantity(Number(event.details.kSv), UNITS.perMolar)}, {String(event.details.model)})
                 </>
               )}
+              {event.action === 'study_points_from_upload' && typeof event.details.reading === 'string' && (
+                <> ({event.details.reading})</>
+              )}
             </summary>
             <pre className="overflow-auto whitespace-pre-wrap text-caption text-ink-700">
               {JSON.stringify(event.details, null, 1)}

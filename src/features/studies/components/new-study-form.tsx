@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import type { StudyFormOptions } from '@shared/schemas/studies';
 import type { FileReading } from '@shared/schemas/file-reading';
-import type { UploadMapping } from '@shared/schemas/study-uploads';
+import type { UploadMapping, UploadQuestionCode } from '@shared/schemas/study-uploads';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
@@ -14,12 +14,15 @@ import { FilePreview } from './file-preview';
 import { CustomSolventFields, NewCompoundField, StudyConditionsFields } from './study-form-parts';
 import { compoundChoices, solventChoices, studySubmit } from './study-form-submit';
 import { CUSTOM, initialValues, NEW, type toBody, type StudyFormValues } from './study-form-values';
+import { allAcknowledged } from './upload-questions';
 import { fittingLifetime, rememberConditions, rememberedConditions } from './study-conditions';
 
 export interface NewStudySubmission {
   body: ReturnType<typeof toBody>;
   file: File | null;
   mapping: UploadMapping | null;
+  /** the preview's questions the person has ticked */
+  acknowledged: UploadQuestionCode[];
 }
 
 interface Props {
@@ -54,6 +57,7 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
   const [file, setFile] = useState<File | null>(null);
   const [reading, setReading] = useState<FileReading | null>(null);
   const [mapping, setMapping] = useState<UploadMapping | null>(null);
+  const [acknowledged, setAcknowledged] = useState<UploadQuestionCode[]>([]);
   const [readError, setReadError] = useState<unknown>(null);
   const [progress, setProgress] = useState<number | null>(null);
   const [titleTouched, setTitleTouched] = useState(Boolean(preset?.title));
@@ -85,6 +89,7 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
       const result = await readFile(memory.labId, next, nextMapping, setProgress);
       setReading(result);
       setMapping(result.mapping);
+      setAcknowledged([]);
     } catch (error) {
       setReading(null);
       setReadError(error);
@@ -93,9 +98,22 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
     }
   };
 
+  const unitOpen = mapping?.layout === 'series' && mapping.concentrationUnit === null;
+  const ready =
+    reading !== null &&
+    reading.points.length > 0 &&
+    reading.problems.length === 0 &&
+    allAcknowledged(reading, acknowledged);
   const submit = studySubmit({ handleSubmit, setError }, options, async (body, form) => {
+    // A file waiting for a unit or a tick is not dropped quietly: the preview says what it needs.
+    if (reading && !ready && (unitOpen || !allAcknowledged(reading, acknowledged)))
+      return setError('root.server', {
+        message: unitOpen
+          ? 'Choose the unit of the file’s concentration column under “Columns and units” first.'
+          : 'Tick each check under the file’s preview first, or change the unit there.',
+      });
     try {
-      await onSubmit({ body, file: reading ? file : null, mapping }, setProgress);
+      await onSubmit({ body, file: reading ? file : null, mapping, acknowledged }, setProgress);
       rememberConditions(memory.userId, memory.labId, form);
     } finally {
       setProgress(null);
@@ -103,7 +121,6 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
   });
   const e = (key: keyof StudyFormValues) => errors[key]?.message;
   const fields = { register, errors };
-  const ready = reading !== null && reading.points.length > 0 && reading.problems.length === 0;
 
   return (
     <form onSubmit={submit} noValidate className="space-y-5">
@@ -159,6 +176,8 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
             setMapping(next);
             void read(file, next);
           }}
+          acknowledged={acknowledged}
+          onAcknowledged={setAcknowledged}
         />
       )}
 

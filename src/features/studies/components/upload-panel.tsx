@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import type { StudyPointInput } from '@shared/schemas/study-points';
-import type { UploadMapping, UploadPreview } from '@shared/schemas/study-uploads';
+import type { UploadMapping, UploadPreview, UploadQuestionCode } from '@shared/schemas/study-uploads';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { describeError } from '@/lib/form-errors';
@@ -12,6 +12,7 @@ import { useReplacePoints } from '../api/replace-points';
 import { useUploadFile } from '../api/upload-file';
 import { FileDrop } from './file-drop';
 import { FilePreview } from './file-preview';
+import { allAcknowledged } from './upload-questions';
 
 const asInput = (point: StudyDetail['points'][number]): StudyPointInput => ({
   concentration: point.concentration,
@@ -44,6 +45,7 @@ export function UploadPanel({
   const [mapping, setMapping] = useState<UploadMapping | null>(null);
   const [progress, setProgress] = useState<number | null>(null);
   const [confirmReplace, setConfirmReplace] = useState(false);
+  const [acknowledged, setAcknowledged] = useState<UploadQuestionCode[]>([]);
   const upload = useUploadFile(labId, study.id, setProgress);
   const reread = usePreviewUpload(labId, study.id);
   const apply = useApplyUpload(labId, study.id);
@@ -53,13 +55,16 @@ export function UploadPanel({
     setPreview(next);
     setMapping(next.mapping);
     setConfirmReplace(false);
+    // A tick answers the question about these points; points read another way ask afresh.
+    setAcknowledged([]);
   };
+  const usable = preview !== null && preview.points.length > 0 && allAcknowledged(preview, acknowledged);
 
   const take = (mode: 'replace' | 'append') => {
     if (!preview || !mapping) return;
     const before = study.points.map(asInput);
     apply.mutate(
-      { uploadId: preview.upload.id, version: study.version, mapping, mode },
+      { uploadId: preview.upload.id, version: study.version, mapping, mode, acknowledged },
       {
         onSuccess: (after) => {
           setPreview(null);
@@ -100,8 +105,13 @@ export function UploadPanel({
               setMapping(next);
               reread.mutate({ uploadId: preview.upload.id, mapping: next }, { onSuccess: show });
             }}
+            acknowledged={acknowledged}
+            onAcknowledged={setAcknowledged}
           />
           {apply.isError && <FormAlert>{describeError(apply.error)}</FormAlert>}
+          {preview.points.length > 0 && !allAcknowledged(preview, acknowledged) && (
+            <p className="text-caption text-ink-600">Tick each check above to use these points.</p>
+          )}
           {confirmReplace ? (
             <div role="alertdialog" aria-label="Replace typed points" className="space-y-2 text-body">
               <p className="font-bold">
@@ -125,18 +135,13 @@ export function UploadPanel({
               <Button
                 pending={apply.isPending}
                 pendingLabel="Fitting…"
-                disabled={preview.points.length === 0}
+                disabled={!usable}
                 onClick={() => (typed.length > 0 ? setConfirmReplace(true) : take('replace'))}
               >
                 Use these points
               </Button>
               {study.points.length > 0 && (
-                <Button
-                  variant="quiet"
-                  pending={apply.isPending}
-                  disabled={preview.points.length === 0}
-                  onClick={() => take('append')}
-                >
+                <Button variant="quiet" pending={apply.isPending} disabled={!usable} onClick={() => take('append')}>
                   Add them to the present points
                 </Button>
               )}
