@@ -5,7 +5,7 @@
  */
 
 /** Recorded with every stored fit. */
-export const ENGINE_VERSION = '1.0.0';
+export const ENGINE_VERSION = '1.1.0';
 
 export { EngineError, type EngineErrorCode } from './core/engine-error';
 export { approxEqual, relativeDifference } from './core/approx-equal';
@@ -104,3 +104,5 @@ export {
   type TemperatureSeriesAnalysis,
   type TemperatureVerdict,
 } from './mechanism/analyse-temperature-series';
+
+export * from './study-fit';

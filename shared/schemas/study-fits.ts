@@ -13,6 +13,16 @@ export type Estimate = z.infer<typeof estimateSchema>;
 
 const plotPointSchema = z.object({ x: z.number(), y: z.number() });
 
+/** An axis of a stored plot series: its title with the unit, and the factor from stored x to the axis. */
+export const plotAxisSchema = z
+  .object({
+    label: z.string().describe('axis title with its unit, e.g. "[Q] (mM)" or "1/[Q] (mM⁻¹)"'),
+    unit: z.string(),
+    scale: z.number().positive().describe('multiply a stored x (SI: M or M⁻¹) by this for the value on the axis'),
+  })
+  .meta({ id: 'PlotAxis' });
+export type PlotAxis = z.infer<typeof plotAxisSchema>;
+
 /** What a fit found; parameters by name (kSv, intercept, kq, kD, kS, accessibleFraction, ...). */
 export const fitResultSchema = z
   .object({
@@ -44,15 +54,22 @@ export const fitResultSchema = z
         rSquared: z.number(),
         verdict: z.string().nullable(),
         points: z.array(plotPointSchema),
+        xAxis: plotAxisSchema,
       })
       .nullable(),
     flags: z.array(qualityFlagSchema),
     notes: z.array(z.string()),
-    plot: z.object({
-      points: z.array(plotPointSchema.extend({ residual: z.number() })),
-      line: z.array(plotPointSchema.extend({ lower: z.number(), upper: z.number() })),
-      yLabel: z.string(),
-    }),
+    plot: z
+      .object({
+        xAxis: plotAxisSchema,
+        yLabel: z.string(),
+        points: z.array(plotPointSchema.extend({ position: z.number().int(), residual: z.number() })),
+        line: z.array(plotPointSchema.extend({ lower: z.number(), upper: z.number() })),
+        excluded: z
+          .array(plotPointSchema.extend({ position: z.number().int() }))
+          .describe('left-out points at their plotted coordinates (corrected, on the model axes)'),
+      })
+      .describe('x in SI (M, or M⁻¹ for the modified model); draw x × xAxis.scale'),
   })
   .meta({ id: 'FitResult' });
 export type FitResult = z.infer<typeof fitResultSchema>;

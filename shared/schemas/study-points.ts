@@ -32,6 +32,39 @@ export const studyPointInputSchema = z
 export type StudyPointInput = z.input<typeof studyPointInputSchema>;
 export type StudyPointValues = z.output<typeof studyPointInputSchema>;
 
+/** The nine values a point holds: the one list every service copies a point by. */
+export const POINT_VALUE_KEYS = [
+  'concentration',
+  'intensity',
+  'lifetime',
+  'absorbanceExcitation',
+  'absorbanceEmission',
+  'volumeAdded',
+  'uncertainty',
+  'excluded',
+  'exclusionReason',
+] as const satisfies ReadonlyArray<keyof StudyPointValues>;
+
+/** A point with only its concentration: every measured value empty, not left out. */
+export const pointAt = (concentration: number): StudyPointValues => ({
+  concentration,
+  intensity: null,
+  lifetime: null,
+  absorbanceExcitation: null,
+  absorbanceEmission: null,
+  volumeAdded: null,
+  uncertainty: null,
+  excluded: false,
+  exclusionReason: null,
+});
+
+/** A point's nine values (from a model row, a plain row or an input), nothing else. */
+export function pointValues(point: Pick<StudyPointValues, (typeof POINT_VALUE_KEYS)[number]>): StudyPointValues {
+  const values: Partial<Record<(typeof POINT_VALUE_KEYS)[number], unknown>> = {};
+  for (const key of POINT_VALUE_KEYS) values[key] = point[key];
+  return values as StudyPointValues;
+}
+
 export const replacePointsSchema = z
   .object({
     version: z.number().int().min(0).describe('the study version you edited; a stale one gets 409'),

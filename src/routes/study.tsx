@@ -108,9 +108,6 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
   const editable =
     isOwner && canWrite && (study.status === 'draft' || study.status === 'returned') && study.nextRevisionId === null;
   const fit = study.latestFit;
-  const excluded = study.points
-    .filter((p) => p.excluded && p.intensity !== null && fit?.result.reference.kind === 'i0')
-    .map((p) => ({ x: p.concentration, y: fit!.result.reference.value / p.intensity! }));
   const pinned = study.pinnedMechanism === 'energy-transfer' ? null : study.pinnedMechanism;
 
   return (
@@ -174,13 +171,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
           }
         >
           {fit ? (
-            <SternVolmerPlot
-              plot={fit.result.plot}
-              excluded={excluded}
-              xLabel={fit.model === 'modified' ? '1/[Q] (M⁻¹ × 10⁻³)' : '[Q] (mM)'}
-              xScale={fit.model === 'modified' ? 1e-3 : 1e3}
-              studyTitle={study.title}
-            />
+            <SternVolmerPlot plot={fit.result.plot} studyTitle={study.title} />
           ) : (
             <p className="text-body text-ink-500">
               {study.fitProblem ?? 'Add points (type, paste or upload) and the fit appears here.'}
@@ -189,7 +180,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
           {fit?.result.lifetime && (
             <div className="mt-4">
               <h3 className="text-body font-bold">Lifetimes</h3>
-              <LifetimePlot lifetime={fit.result.lifetime} xLabel="[Q] (mM)" xScale={1e3} studyTitle={study.title} />
+              <LifetimePlot lifetime={fit.result.lifetime} studyTitle={study.title} />
             </div>
           )}
         </Panel>

@@ -6,6 +6,7 @@ import { formatEstimate } from '@shared/format';
 import { fitModelNames, type FitModel } from '@shared/schemas/studies';
 import { chartInk } from '../../server/services/reports/report-charts';
 import { apiClient } from '../support/accounts';
+import { createStudy, exactPoints } from '../support/studies';
 import { pixelsOfColour, renderPdfPages } from '../support/pdf-pages';
 import { createTestApp } from '../support/test-app';
 
@@ -167,6 +168,22 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     expect(text).toContain(
       `K_SV from lifetimes: ${formatEstimate(withLifetimes!.kSv.value, withLifetimes!.kSv.standardError, 'M⁻¹')}`,
     );
+  });
+
+  it('when a modified fit with a left-out point is reported, then the x axis reads 1/[Q] with its unit and the cross is drawn (issue 13, finding 11)', async () => {
+    const study = await createStudy(client, labId, 'report-axis');
+    const points = exactPoints.map((p, i) => (i === 3 ? { ...p, excluded: true, exclusionReason: 'bubble' } : p));
+    expect((await client.patch(`/api/labs/${labId}/studies/${study.id}/points`, { version: 0, points })).status).toBe(
+      200,
+    );
+    expect((await client.post(`/api/labs/${labId}/studies/${study.id}/fits`, { model: 'modified' })).status).toBe(201);
+    const pdf = binary(await pdfOf(`/api/labs/${labId}/studies/${study.id}/report.pdf`));
+    const text = (await pdfText(pdf)).replace(/\s+/g, ' ');
+    // the stored series' axis (shared/engine/study-fit): 1/[Q] in mM⁻¹ on the plot and the residuals beneath
+    expect(text.match(/1\/\[Q\] \(mM⁻¹\)/g)).toHaveLength(2);
+    // 150 dpi: the cross is two 1.2 pt strokes, thinner than a pixel at the default 60 dpi
+    const pages = renderPdfPages(pdf, reportShots, 'study-modified', 150);
+    expect(pages.reduce((sum, page) => sum + pixelsOfColour(page, chartInk.excluded, 12), 0)).toBeGreaterThan(10);
   });
 
   it('when the study is unknown, then 404 in the one error shape', async () => {

@@ -1,3 +1,4 @@
+import { pointAt } from '@shared/schemas/study-points';
 import type { apiClient } from './accounts';
 
 type Client = Awaited<ReturnType<typeof apiClient>>;
@@ -17,15 +18,8 @@ export const studyBody = (tag: string, extra: Record<string, unknown> = {}) => (
 
 /** Exact line I0/I = 1 + 500 [Q] (invented numbers; K_SV = 500 M^-1 by construction). */
 export const exactPoints = [0, 1e-3, 2e-3, 3e-3, 4e-3, 5e-3].map((q) => ({
-  concentration: q,
+  ...pointAt(q),
   intensity: 1000 / (1 + 500 * q),
-  lifetime: null,
-  absorbanceExcitation: null,
-  absorbanceEmission: null,
-  volumeAdded: null,
-  uncertainty: null,
-  excluded: false,
-  exclusionReason: null,
 }));
 
 export async function createStudy(client: Client, labId: string, tag: string, extra: Record<string, unknown> = {}) {

@@ -1,30 +1,15 @@
 import type { Sequelize } from 'sequelize';
-import type { StudyPointValues } from '@shared/schemas/study-points';
+import { pointAt } from '@shared/schemas/study-points';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import type { SignedInActor } from '../../domain/actor';
 import { DecaySet, StudyPoint } from '../../models';
 import { loadStudy, requireChangeable } from '../studies/study-access';
-import { writeSeries, type SeriesPoint } from '../studies/study-points.service';
+import { storedSeriesPoint, writeSeries } from '../studies/study-points.service';
 import { fittedWithConcentration, tau0FromBlanks } from './decay-stern-volmer';
 
 // Concentrations read from a header and typed in a grid agree to rounding, not bit for bit.
 const sameConcentration = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(Math.abs(a), Math.abs(b));
-
-const valuesOf = (point: StudyPoint): SeriesPoint => ({
-  concentration: point.concentration,
-  intensity: point.intensity,
-  lifetime: point.lifetime,
-  absorbanceExcitation: point.absorbanceExcitation,
-  absorbanceEmission: point.absorbanceEmission,
-  volumeAdded: point.volumeAdded,
-  uncertainty: point.uncertainty,
-  excluded: point.excluded,
-  exclusionReason: point.exclusionReason,
-  uploadId: point.uploadId,
-  lifetimeUncertainty: point.lifetimeUncertainty,
-  lifetimeDecaySetId: point.lifetimeDecaySetId,
-});
 
 /**
  * Puts a kept decay set's lifetimes into its study: each decay fills the lifetime (with its
@@ -54,7 +39,7 @@ export async function applyDecaySet(
         unplaced.map((outcome) => ({ path: `decays.${outcome.index}.concentration`, message: 'missing' })),
       );
     const existing = await StudyPoint.findAll({ where: { studyId }, order: [['position', 'ASC']], transaction });
-    const points = existing.map(valuesOf);
+    const points = existing.map(storedSeriesPoint);
     const filled = new Set<number>();
     for (const decay of fittedWithConcentration(set.outcomes)) {
       const fromDecay = {
@@ -69,18 +54,7 @@ export async function applyDecaySet(
         Object.assign(points[match]!, fromDecay);
         filled.add(match);
       } else {
-        const point: StudyPointValues = {
-          concentration: decay.concentration,
-          intensity: null,
-          lifetime: null,
-          absorbanceExcitation: null,
-          absorbanceEmission: null,
-          volumeAdded: null,
-          uncertainty: null,
-          excluded: false,
-          exclusionReason: null,
-        };
-        filled.add(points.push({ ...point, uploadId: null, ...fromDecay }) - 1);
+        filled.add(points.push({ ...pointAt(decay.concentration), uploadId: null, ...fromDecay }) - 1);
       }
     }
     const tau0 = tau0FromBlanks(set.outcomes);

@@ -11,19 +11,27 @@ function axes(doc: Pdf, box: Box, xValues: number[], yValues: number[], xLabel: 
 }
 
 /**
- * The Stern–Volmer plot (points, fit line, 95 % band) with the residuals beneath, as vector
- * graphics in the screen's colours: points in glow, the line in ink, the band in pale ink.
+ * The Stern–Volmer plot (points, fit line, 95 % band, left-out points as crosses) with the residuals
+ * beneath, as vector graphics in the screen's colours, from the stored series and its axis
+ * (x × xAxis.scale, titled xAxis.label: [Q] or 1/[Q] with the unit), as on screen.
  */
-export function drawSternVolmer(doc: Pdf, result: FitResult, concentrationScale = 1e3): void {
+export function drawSternVolmer(doc: Pdf, result: FitResult): void {
+  const { label: xLabel, scale: concentrationScale } = result.plot.xAxis;
   if (doc.y > doc.page.height - 340) doc.addPage();
   const top = doc.y + 20;
   const main: Box = { x: 100, y: top, width: 380, height: 170 };
   const residualBox: Box = { x: 100, y: top + 225, width: 380, height: 55 };
-  const xs = [...result.plot.points.map((p) => p.x), ...result.plot.line.map((p) => p.x)].map(
-    (x) => x * concentrationScale,
-  );
-  const ys = [...result.plot.points.map((p) => p.y), ...result.plot.line.flatMap((p) => [p.lower, p.upper])];
-  const at = axes(doc, main, xs, ys, '[Q] (mM)', result.plot.yLabel);
+  const xs = [
+    ...result.plot.points.map((p) => p.x),
+    ...result.plot.excluded.map((p) => p.x),
+    ...result.plot.line.map((p) => p.x),
+  ].map((x) => x * concentrationScale);
+  const ys = [
+    ...result.plot.points.map((p) => p.y),
+    ...result.plot.excluded.map((p) => p.y),
+    ...result.plot.line.flatMap((p) => [p.lower, p.upper]),
+  ];
+  const at = axes(doc, main, xs, ys, xLabel, result.plot.yLabel);
   const onMain = (x: number, y: number) => at(x * concentrationScale, y);
   // 95 % band, then the line, then the points.
   const band = [
@@ -40,10 +48,21 @@ export function drawSternVolmer(doc: Pdf, result: FitResult, concentrationScale 
   );
   doc.lineWidth(1.2).strokeColor(chartInk.line).stroke();
   result.plot.points.forEach((p) => doc.circle(...onMain(p.x, p.y), 2.6).fill(chartInk.points));
+  result.plot.excluded.forEach((p) => {
+    const [cx, cy] = onMain(p.x, p.y);
+    doc
+      .moveTo(cx - 3.5, cy - 3.5)
+      .lineTo(cx + 3.5, cy + 3.5)
+      .moveTo(cx - 3.5, cy + 3.5)
+      .lineTo(cx + 3.5, cy - 3.5)
+      .lineWidth(1.2)
+      .strokeColor(chartInk.excluded)
+      .stroke();
+  });
 
   const residuals = result.plot.points.map((p) => p.residual);
   const extent = Math.max(1e-12, ...residuals.map(Math.abs));
-  const onResiduals = axes(doc, residualBox, xs, [-extent, extent], '[Q] (mM)', 'residual');
+  const onResiduals = axes(doc, residualBox, xs, [-extent, extent], xLabel, 'residual');
   const zero = onResiduals(0, 0)[1];
   doc
     .moveTo(residualBox.x, zero)
@@ -59,14 +78,15 @@ export function drawSternVolmer(doc: Pdf, result: FitResult, concentrationScale 
 }
 
 /** τ0/τ against [Q] with the line 1 + K_SV(τ)[Q] (Lakowicz, 3rd ed., ch. 8), when lifetimes were measured. */
-export function drawLifetime(doc: Pdf, lifetime: NonNullable<FitResult['lifetime']>, concentrationScale = 1e3): void {
+export function drawLifetime(doc: Pdf, lifetime: NonNullable<FitResult['lifetime']>): void {
+  const { label: xLabel, scale: concentrationScale } = lifetime.xAxis;
   if (doc.y > doc.page.height - 260) doc.addPage();
   const box: Box = { x: 100, y: doc.y + 20, width: 380, height: 150 };
   const xs = lifetime.points.map((p) => p.x * concentrationScale);
   const line = (x: number) => 1 + lifetime.kSv.value * (x / concentrationScale);
   const low = Math.min(0, ...xs);
   const high = Math.max(...xs);
-  const at = axes(doc, box, xs, [...lifetime.points.map((p) => p.y), line(low), line(high)], '[Q] (mM)', 'τ0/τ');
+  const at = axes(doc, box, xs, [...lifetime.points.map((p) => p.y), line(low), line(high)], xLabel, 'τ0/τ');
   doc
     .moveTo(...at(low, line(low)))
     .lineTo(...at(high, line(high)))

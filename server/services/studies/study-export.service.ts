@@ -7,10 +7,7 @@ import { getStudyDetail } from './study.service';
 export async function exportPointsCsv(lab: LabContext, studyId: string) {
   const study = await getStudyDetail(lab, studyId);
   const used = new Map(study.latestFit?.pointsUsed.map((point) => [point.position, point]) ?? []);
-  const residuals = new Map(
-    study.latestFit?.pointsUsed.map((point, i) => [point.position, study.latestFit!.result.plot.points[i]?.residual]) ??
-      [],
-  );
+  const residuals = new Map(study.latestFit?.result.plot.points.map((point) => [point.position, point.residual]) ?? []);
   const header = [
     'position',
     titled('[Q]', UNITS.molar),

@@ -1,44 +1,26 @@
 import type { Transaction } from 'sequelize';
-import { ENGINE_VERSION, EngineError } from '@shared/engine';
+import { ENGINE_VERSION, EngineError, fitStudy, type StudyFitOutcome } from '@shared/engine';
 import type { FitModel } from '@shared/schemas/studies';
 import { AppError } from '../../lib/app-error';
 import { StudyFit, StudyPoint, type Study } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
-import { computeStudyFit, type ComputedFit } from './fit/compute-study-fit';
 import { lifetimeOfEmitter } from './study-tau0';
 
-type SeriesFields =
-  | 'position'
-  | 'concentration'
-  | 'intensity'
-  | 'lifetime'
-  | 'absorbanceExcitation'
-  | 'absorbanceEmission'
-  | 'volumeAdded'
-  | 'uncertainty'
-  | 'excluded';
-
-export const seriesOf = (points: ReadonlyArray<Pick<StudyPoint, SeriesFields>>) =>
-  points.map((point) => ({
-    position: point.position,
-    concentration: point.concentration,
-    intensity: point.intensity,
-    lifetime: point.lifetime,
-    absorbanceExcitation: point.absorbanceExcitation,
-    absorbanceEmission: point.absorbanceEmission,
-    volumeAdded: point.volumeAdded,
-    uncertainty: point.uncertainty,
-    excluded: point.excluded,
-  }));
-
-/** Runs the engine on the study's stored points; an EngineError becomes a 422 naming the field. */
-export async function computeForStudy(study: Study, model: FitModel, transaction?: Transaction): Promise<ComputedFit> {
+/**
+ * Runs the study-fit pipeline (shared/engine/study-fit) on the study's stored points; an
+ * EngineError becomes a 422 naming the field. This service only loads and saves.
+ */
+export async function computeForStudy(
+  study: Study,
+  model: FitModel,
+  transaction?: Transaction,
+): Promise<StudyFitOutcome> {
   // The record behind tau0 is checked on every refit too: same lab, same emitter.
   if (study.tau0LifetimeId) await lifetimeOfEmitter(study.labId, study.tau0LifetimeId, study.emitterId, transaction);
   const points = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
   try {
-    return computeStudyFit(study, seriesOf(points), model);
+    return fitStudy(study, points, model);
   } catch (error) {
     if (error instanceof EngineError) {
       throw new AppError('fit_failed', `The series cannot be fitted: ${error.message}`, 422, [
@@ -52,19 +34,26 @@ export async function computeForStudy(study: Study, model: FitModel, transaction
 /**
  * Fits the study and stores the fit as a new record (never updated), then copies K_SV, kq and
  * "flagged" onto the study for the list. `auto` fits follow every change of the points or
- * settings; a failing auto fit clears the copied numbers and keeps the reason instead.
+ * settings; a failing auto fit clears the copied numbers and keeps the reason instead, unless
+ * `refuseUnfittable` (an upload apply) asks for the failure to be thrown so nothing is saved.
  */
 export async function refitStudy(
   study: Study,
-  options: { model?: FitModel; trigger: 'auto' | 'manual'; actor: Actor; transaction: Transaction },
+  options: {
+    model?: FitModel;
+    trigger: 'auto' | 'manual';
+    actor: Actor;
+    transaction: Transaction;
+    refuseUnfittable?: boolean;
+  },
 ): Promise<StudyFit | null> {
   const model = options.model ?? study.fitModel;
   const { transaction } = options;
-  let computed: ComputedFit;
+  let computed: StudyFitOutcome;
   try {
     computed = await computeForStudy(study, model, transaction);
   } catch (error) {
-    if (options.trigger === 'manual' || !(error instanceof AppError)) throw error;
+    if (options.trigger === 'manual' || options.refuseUnfittable || !(error instanceof AppError)) throw error;
     await study.update(
       { kSv: null, kq: null, flagged: false, fitProblem: error.message, latestFitId: null },
       { transaction },

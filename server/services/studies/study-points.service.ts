@@ -1,5 +1,5 @@
 import type { Sequelize, Transaction } from 'sequelize';
-import type { StudyPointValues } from '@shared/schemas/study-points';
+import { pointValues, type StudyPointValues } from '@shared/schemas/study-points';
 import type { LabContext } from '../../domain/lab-context';
 import { StudyPoint, type Study } from '../../models';
 import { recordAudit } from '../audit.service';
@@ -8,17 +8,7 @@ import { loadStudy, requireChangeable } from './study-access';
 import { refitStudy } from './study-fitting.service';
 import { getStudyDetail } from './study.service';
 
-const plain = (point: StudyPoint | SeriesPoint) => ({
-  concentration: point.concentration,
-  intensity: point.intensity,
-  lifetime: point.lifetime,
-  absorbanceExcitation: point.absorbanceExcitation,
-  absorbanceEmission: point.absorbanceEmission,
-  volumeAdded: point.volumeAdded,
-  uncertainty: point.uncertainty,
-  excluded: point.excluded,
-  exclusionReason: point.exclusionReason,
-});
+const plain = (point: StudyPoint | SeriesPoint) => pointValues(point);
 
 /** A point as written: its values, the upload it came from, and where its lifetime came from. */
 export type SeriesPoint = StudyPointValues & {
@@ -26,6 +16,14 @@ export type SeriesPoint = StudyPointValues & {
   lifetimeUncertainty?: number | null;
   lifetimeDecaySetId?: string | null;
 };
+
+/** A stored point as written again: its values, its upload and its lifetime's source unchanged. */
+export const storedSeriesPoint = (point: StudyPoint): SeriesPoint => ({
+  ...pointValues(point),
+  uploadId: point.uploadId,
+  lifetimeUncertainty: point.lifetimeUncertainty,
+  lifetimeDecaySetId: point.lifetimeDecaySetId,
+});
 
 /**
  * A lifetime fitted from a decay keeps its standard error and source while the point keeps the
@@ -63,6 +61,8 @@ export async function writeSeries(
     reading?: Record<string, unknown>;
     decaySetId?: string;
     tau0?: { value: number; standardError: number };
+    /** an upload apply: a series that cannot be fitted is refused (nothing saved), not stored unfitted */
+    refuseUnfittable?: boolean;
   },
 ): Promise<void> {
   const before = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
@@ -98,7 +98,7 @@ export async function writeSeries(
     },
     transaction,
   );
-  await refitStudy(study, { trigger: 'auto', actor, transaction });
+  await refitStudy(study, { trigger: 'auto', actor, transaction, refuseUnfittable: reason.refuseUnfittable ?? false });
 }
 
 export async function replacePoints(

@@ -1,12 +1,11 @@
-import { SOLVENTS, type SolventId } from '@shared/engine';
+import { correctPoint, fromSi, SOLVENTS, toSi, type SolventId } from '@shared/engine';
 import { describeUploadReading } from '@shared/format';
 import type { StudySettings, StudySummary } from '@shared/schemas/studies';
-import type { StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
+import type { FitResult, StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
 import type { StudyPoint as StudyPointRecord } from '@shared/schemas/study-points';
 import type { ReviewEntry, UploadSummary } from '@shared/schemas/study-detail';
 import { uploadMappingSchema } from '@shared/schemas/study-uploads';
 import type { Study, StudyFit, StudyPoint, StudyReview, StudyUpload } from '../../models';
-import { correctPoint } from './fit/series-corrections';
 
 export const solventLabel = (study: Pick<Study, 'solventId' | 'customSolventName'>) =>
   study.solventId
@@ -107,13 +106,38 @@ export const toPoint = (study: Study, point: StudyPoint, sources: DecaySources =
   };
 };
 
+/** A result stored before the plot series named their axes and carried the left-out points. */
+export const isLegacyResult = (result: FitResult) => !(result.plot as Partial<FitResult['plot']>).xAxis;
+
+/**
+ * An older fit record as the screen and the PDF drew it then: [Q] in mM (1/[Q] in mM⁻¹ for the
+ * modified model), no left-out markers, positions from the points used. The record itself is
+ * never changed; a study's latest such fit is fitted again on read (study.service.ts).
+ */
+function withPlotAxes(fit: Pick<StudyFit, 'model' | 'result' | 'pointsUsed'>): FitResult {
+  const { result } = fit;
+  if (!isLegacyResult(result)) return result;
+  const millimolar = { label: '[Q] (mM)', unit: 'mM', scale: fromSi(1, 'mM') };
+  const plotted = fit.model === 'modified' ? fit.pointsUsed.filter((p) => p.concentration > 0) : fit.pointsUsed;
+  return {
+    ...result,
+    plot: {
+      ...result.plot,
+      xAxis: fit.model === 'modified' ? { label: '1/[Q] (mM⁻¹)', unit: 'mM⁻¹', scale: toSi(1, 'mM') } : millimolar,
+      points: result.plot.points.map((p, i) => ({ ...p, position: plotted[i]?.position ?? i })),
+      excluded: [],
+    },
+    lifetime: result.lifetime && { ...result.lifetime, xAxis: millimolar },
+  };
+}
+
 export const toFit = (fit: StudyFit): StudyFitRecord => ({
   id: fit.id,
   model: fit.model,
   trigger: fit.trigger,
   kSv: fit.kSv,
   kq: fit.kq,
-  result: fit.result,
+  result: withPlotAxes(fit),
   pointsUsed: fit.pointsUsed,
   engineVersion: fit.engineVersion,
   createdBy: fit.createdBy?.name ?? null,

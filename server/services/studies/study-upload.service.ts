@@ -1,22 +1,18 @@
 import crypto from 'node:crypto';
 import type { Sequelize } from 'sequelize';
 import { UniqueConstraintError } from 'sequelize';
-import { EngineError } from '@shared/engine';
 import { describeUploadReading } from '@shared/format';
-import type { StudyPointValues } from '@shared/schemas/study-points';
 import type { UploadMapping, UploadPreview, UploadQuestionCode } from '@shared/schemas/study-uploads';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { StudyPoint, StudyUpload, User } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
-import { computeStudyFit } from './fit/compute-study-fit';
 import type { RawFileStore, StoredLocation } from './files/raw-file-store';
 import type { Problem, ReadOutcome } from './parse/read-and-map';
 import type { UploadReader } from './parse/upload-reader';
 import { loadStudy, requireChangeable, requireEditable, requireOwner } from './study-access';
-import { seriesOf } from './study-fitting.service';
-import { writeSeries } from './study-points.service';
+import { storedSeriesPoint, writeSeries } from './study-points.service';
 import { toUpload } from './study-serialize';
 
 /** What the upload flows need from the app: the database, the reading threads and the file store. */
@@ -279,27 +275,28 @@ export async function applyUpload(
         409,
       );
     }
-    const points = [
-      ...existing.map((point) => point.get({ plain: true }) as StudyPointValues & { uploadId: string | null }),
-      ...read.points.map((point) => ({ ...point, uploadId })),
-    ];
-    const settings = { ...study.get({ plain: true }), dataKind: isRatio ? ('ratio' as const) : ('intensity' as const) };
+    const points = [...existing.map(storedSeriesPoint), ...read.points.map((point) => ({ ...point, uploadId }))];
+    const dataKind = isRatio ? ('ratio' as const) : ('intensity' as const);
+    if (dataKind !== study.dataKind) await study.update({ dataKind }, { transaction });
+    // One fit: the refit after writing; a series it cannot fit is refused and the transaction saves nothing.
     try {
-      computeStudyFit(settings, seriesOf(points.map((point, position) => ({ ...point, position }))), study.fitModel);
+      await writeSeries(study, points, actor, transaction, {
+        action: 'study_points_from_upload',
+        uploadId,
+        reading: readingDetails(input.mapping),
+        refuseUnfittable: true,
+      });
     } catch (error) {
-      if (error instanceof EngineError) {
-        throw new AppError('series_not_fittable', `Nothing was saved: ${error.message}`, 422, [
-          { path: `series.${error.field}`, message: error.message },
-        ]);
+      if (error instanceof AppError && error.code === 'fit_failed') {
+        throw new AppError(
+          'series_not_fittable',
+          `Nothing was saved: ${error.details?.[0]?.message ?? error.message}`,
+          422,
+          error.details?.map((issue) => ({ ...issue, path: `series.${issue.path}` })),
+        );
       }
       throw error;
     }
-    if (settings.dataKind !== study.dataKind) await study.update({ dataKind: settings.dataKind }, { transaction });
-    await writeSeries(study, points, actor, transaction, {
-      action: 'study_points_from_upload',
-      uploadId,
-      reading: readingDetails(input.mapping),
-    });
     await upload.update(
       {
         parseStatus: 'applied',

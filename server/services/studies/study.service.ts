@@ -11,7 +11,16 @@ import { loadStudy, loadStudyWithNames, requireChangeable } from './study-access
 import { resolveCompound } from './study-compounds';
 import { refitStudy } from './study-fitting.service';
 import { resolveTau0 } from './study-tau0';
-import { settingsOf, solventLabel, toFit, toPoint, toReview, toTau0Source, toUpload } from './study-serialize';
+import {
+  isLegacyResult,
+  settingsOf,
+  solventLabel,
+  toFit,
+  toPoint,
+  toReview,
+  toTau0Source,
+  toUpload,
+} from './study-serialize';
 
 const settingsIssuesError = (issues: { path: string; message: string }[]) =>
   new AppError(
@@ -145,7 +154,34 @@ export async function updateStudy(
   return getStudyDetail(lab, studyId);
 }
 
-export async function getStudyDetail(lab: LabContext, studyId: string): Promise<StudyDetail> {
+/**
+ * A latest fit stored before the plot series carried their axes and left-out points is fitted
+ * again once, on first read, with the same model (a new fit record; the old one is kept). When it
+ * cannot be fitted now, nothing changes and the old record is shown as it was.
+ */
+async function refitLegacyFit(lab: LabContext, studyId: string): Promise<boolean> {
+  try {
+    return await Study.sequelize!.transaction(async (transaction) => {
+      const study = await Study.findOne({
+        where: { id: studyId, labId: lab.id },
+        transaction,
+        lock: transaction.LOCK.UPDATE,
+      });
+      const fit = study?.latestFitId
+        ? await StudyFit.findByPk(study.latestFitId, { attributes: ['id', 'model', 'result'], transaction })
+        : null;
+      if (!study || !fit || !isLegacyResult(fit.result)) return false;
+      const actor = { userId: null, ip: null };
+      await refitStudy(study, { model: fit.model, trigger: 'auto', actor, transaction, refuseUnfittable: true });
+      return true;
+    });
+  } catch (error) {
+    if (error instanceof AppError) return false;
+    throw error;
+  }
+}
+
+export async function getStudyDetail(lab: LabContext, studyId: string, refitted = false): Promise<StudyDetail> {
   const study = await loadStudyWithNames(lab, studyId);
   // Plain rows (raw, nested includes): the answer is built from their fields, so Sequelize need not
   // make model instances of every point, upload and review (its largest cost per read).
@@ -181,6 +217,8 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
       include: [{ model: DecayFile, as: 'file', attributes: ['fileName'] }],
     }),
   ]);
+  if (!refitted && latestFit && isLegacyResult(latestFit.result) && (await refitLegacyFit(lab, studyId)))
+    return getStudyDetail(lab, studyId, true);
   const sources = new Map(decaySets.map((set) => [set.id, set.file?.fileName ?? 'decay file']));
   return {
     ...settingsOf(study),

@@ -1,5 +1,5 @@
 import type { StudyDetail } from '@shared/schemas/study-detail';
-import type { StudyPoint } from '@shared/schemas/study-points';
+import { pointAt, type StudyPoint } from '@shared/schemas/study-points';
 
 // An invented study for component tests (demo-style numbers, not measurements).
 export const labId = '0b7e6d4e-1c2a-4f5e-9d3b-2a1c0e9f8d7a';
@@ -8,15 +8,8 @@ export function point(position: number, concentration: number, intensity: number
   return {
     id: `00000000-0000-4000-8000-${String(position).padStart(12, '0')}`,
     position,
-    concentration,
+    ...pointAt(concentration),
     intensity,
-    lifetime: null,
-    absorbanceExcitation: null,
-    absorbanceEmission: null,
-    volumeAdded: null,
-    uncertainty: null,
-    excluded: false,
-    exclusionReason: null,
     uploadId: null,
     lifetimeUncertainty: null,
     lifetimeSource: null,

@@ -14,7 +14,15 @@ const resultWith = (
   lifetime = false,
 ): Pick<FitResult, 'parameters' | 'lifetime'> => ({
   parameters,
-  lifetime: lifetime ? { kSv: estimate(150), rSquared: 0.99, verdict: null, points: [] } : null,
+  lifetime: lifetime
+    ? {
+        kSv: estimate(150),
+        rSquared: 0.99,
+        verdict: null,
+        points: [],
+        xAxis: { label: '[Q] (mM)', unit: 'mM', scale: 1000 },
+      }
+    : null,
 });
 
 describe('fitParameterLines', () => {

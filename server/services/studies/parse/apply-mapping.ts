@@ -1,4 +1,4 @@
-import type { StudyPointValues } from '@shared/schemas/study-points';
+import { pointAt, type StudyPointValues } from '@shared/schemas/study-points';
 import type { SeriesMapping, SpectrumMapping, UploadMapping } from '@shared/schemas/study-uploads';
 import { CONCENTRATION_FACTORS, TIME_FACTORS, VOLUME_FACTORS } from './header-units';
 import { parseCellNumber } from './parse-number';
@@ -132,15 +132,8 @@ function spectrumPoints(table: RawTable, mapping: SpectrumMapping, problems: Par
 }
 
 const spectrumPoint = (concentration: number, intensity: number): StudyPointValues => ({
-  concentration,
+  ...pointAt(concentration),
   intensity,
-  lifetime: null,
-  absorbanceExcitation: null,
-  absorbanceEmission: null,
-  volumeAdded: null,
-  uncertainty: null,
-  excluded: false,
-  exclusionReason: null,
 });
 
 /** Table + mapping -> series points in SI units; every bad cell is reported by row and column. */

@@ -6,18 +6,15 @@ import { paperBackground, plotColours } from './chart-setup';
 import { figureFileName } from './figure-file-name';
 import { SavePngButton } from './save-png-button';
 
-/** tau0/tau against [Q] with the line 1 + K_SV[Q] from the lifetime fit. */
+/** tau0/tau against [Q] with the line 1 + K_SV[Q] from the lifetime fit, on the stored series' axis. */
 export function LifetimePlot({
   lifetime,
-  xLabel,
-  xScale,
   studyTitle,
 }: {
   lifetime: NonNullable<FitResult['lifetime']>;
-  xLabel: string;
-  xScale: number;
   studyTitle: string;
 }) {
+  const { label: xLabel, scale: xScale } = lifetime.xAxis;
   const chart = useRef<Chart<'scatter'>>(null);
   const maxX = Math.max(...lifetime.points.map((p) => p.x));
   const line = [0, maxX].map((x) => ({ x: x * xScale, y: 1 + lifetime.kSv.value * x }));

@@ -8,11 +8,8 @@ import { figureFileName } from './figure-file-name';
 import { SavePngButton } from './save-png-button';
 
 interface Props {
+  /** the stored plot series: points, line, left-out points and the axes with their units */
   plot: FitResult['plot'];
-  excluded: Array<{ x: number; y: number }>;
-  xLabel: string;
-  /** concentration axis scale for display, e.g. 1e3 for mM */
-  xScale: number;
   /** the study title, for the PNG file names */
   studyTitle: string;
 }
@@ -26,8 +23,13 @@ const axis = (title: string) => ({
   ticks: { callback: tick },
 });
 
-/** Stern–Volmer plot with the fit line and its 95 % band, and the residuals beneath. */
-export function SternVolmerPlot({ plot, excluded, xLabel, xScale, studyTitle }: Props) {
+/**
+ * Stern–Volmer plot with the fit line and its 95 % band, and the residuals beneath, drawn from the
+ * stored series exactly as the PDF draws them: x × plot.xAxis.scale on an axis titled plot.xAxis.label.
+ */
+export function SternVolmerPlot({ plot, studyTitle }: Props) {
+  const xLabel = plot.xAxis.label;
+  const xScale = plot.xAxis.scale;
   const main = useRef<Chart<'scatter'>>(null);
   const residuals = useRef<Chart<'scatter'>>(null);
   const scaled = (points: Array<{ x: number; y: number }>) =>
@@ -61,7 +63,7 @@ export function SternVolmerPlot({ plot, excluded, xLabel, xScale, studyTitle }: 
       { label: 'Points used', data: scaled(plot.points), backgroundColor: plotColours.points, pointRadius: 5 },
       {
         label: 'Left out',
-        data: scaled(excluded),
+        data: scaled(plot.excluded),
         backgroundColor: 'transparent',
         borderColor: plotColours.excluded,
         pointStyle: 'crossRot' as const,

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { StudyDetail } from '@shared/schemas/study-detail';
-import type { StudyPointInput } from '@shared/schemas/study-points';
+import { pointValues, type StudyPointInput } from '@shared/schemas/study-points';
 import type { UploadMapping, UploadPreview, UploadQuestionCode } from '@shared/schemas/study-uploads';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
@@ -14,17 +14,7 @@ import { FileDrop } from './file-drop';
 import { FilePreview } from './file-preview';
 import { allAcknowledged } from './upload-questions';
 
-const asInput = (point: StudyDetail['points'][number]): StudyPointInput => ({
-  concentration: point.concentration,
-  intensity: point.intensity,
-  lifetime: point.lifetime,
-  absorbanceExcitation: point.absorbanceExcitation,
-  absorbanceEmission: point.absorbanceEmission,
-  volumeAdded: point.volumeAdded,
-  uncertainty: point.uncertainty,
-  excluded: point.excluded,
-  exclusionReason: point.exclusionReason,
-});
+const asInput = (point: StudyDetail['points'][number]): StudyPointInput => pointValues(point);
 
 /**
  * Upload an instrument export (drop or pick), check the table and the mapping, then confirm;

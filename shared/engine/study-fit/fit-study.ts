@@ -1,34 +1,31 @@
-import {
-  fitIntensitySternVolmer,
-  fitModifiedSternVolmer,
-  fitStaticDynamic,
-  fitSternVolmer,
-  qualityFlag,
-  referenceFromBlanks,
-  screenSeries,
-  type ParameterEstimate,
-  type QualityFlag,
-} from '@shared/engine';
-import type { FitModel } from '@shared/schemas/studies';
-import type { FitResult } from '@shared/schemas/study-fits';
-import { fixedLineBand, freeLineBand, quadraticBand, type BandPoint } from './fit-plot';
-import { diffusionLimitFor, rateConstant, tau0For, type KineticsSettings } from './kq-and-limit';
-import { lifetimeAnalysis } from './lifetime-analysis';
-import { correctPoint, type CorrectablePoint, type CorrectionSettings } from './series-corrections';
+import type { FitModel } from '../../schemas/studies';
+import type { FitResult, PlotAxis } from '../../schemas/study-fits';
+import type { StudyPointValues } from '../../schemas/study-points';
+import { CONCENTRATION_UNITS, concentrationDisplayUnit, unitLabel } from '../../units/units';
+import { qualityFlag, type QualityFlag } from '../flags/quality-flag';
+import type { ParameterEstimate } from '../stats/parameter-estimate';
+import { fitIntensitySternVolmer } from '../stern-volmer/fit-intensity-stern-volmer';
+import { fitModifiedSternVolmer } from '../stern-volmer/fit-modified-stern-volmer';
+import { fitStaticDynamic } from '../stern-volmer/fit-static-dynamic';
+import { fitSternVolmer } from '../stern-volmer/fit-stern-volmer';
+import { referenceFromBlanks } from '../stern-volmer/reference-from-blanks';
+import { screenSeries } from '../stern-volmer/screen-series';
+import { fixedLineBand, freeLineBand, quadraticBand, type BandPoint } from './bands';
+import { correctPoint, type CorrectionSettings } from './corrections';
+import { diffusionLimitFor, rateConstant, tau0For, type KineticsSettings } from './kinetics';
+import { lifetimeAnalysis } from './lifetimes';
 
-export interface FitSettings extends KineticsSettings, CorrectionSettings {
+/** The study settings the pipeline reads (a study row or its plain settings). */
+export interface StudyFitSettings extends KineticsSettings, CorrectionSettings {
   dataKind: 'intensity' | 'ratio';
   i0: number | null;
 }
 
-export interface SeriesPoint extends CorrectablePoint {
-  position: number;
-  lifetime: number | null;
-  uncertainty: number | null;
-  excluded: boolean;
-}
+/** A point as the pipeline reads it: its place in the series and its values (SI units). */
+export type StudyFitPoint = Omit<StudyPointValues, 'exclusionReason'> & { position: number };
 
-export interface ComputedFit {
+/** What the server stores: the model, the copied K_SV and kq, the full result and the points used. */
+export interface StudyFitOutcome {
   model: FitModel;
   kSv: number | null;
   kq: number | null;
@@ -36,38 +33,67 @@ export interface ComputedFit {
   pointsUsed: Array<{ position: number; concentration: number; ratio: number }>;
 }
 
-/** A correction above 10 % dilution is worth a flag (common practice; shared/engine/README.md, section 9). */
+/** A correction above 10 % dilution is worth a flag (common practice; shared/engine/README.md, section 4). */
 const DILUTION_FLAG_FACTOR = 1.1;
 
 /**
- * Study points -> engine: drops excluded points, applies the switched-on corrections, fits the
- * chosen model, adds the lifetime series, kq with the diffusion limit, and every flag.
- * Throws the engine's EngineError when the series cannot be fitted.
+ * The concentration axis in the unit that shows the largest [Q] as 0.1 to 100 (shared/units), and
+ * its reciprocal for the modified plot: 1/[Q] in M⁻¹ times the unit's factor is 1/[Q] in that unit⁻¹.
  */
-export function computeStudyFit(settings: FitSettings, points: readonly SeriesPoint[], model: FitModel): ComputedFit {
+function axesFor(largestConcentration: number): { concentration: PlotAxis; reciprocal: PlotAxis } {
+  const unit = concentrationDisplayUnit(largestConcentration);
+  const label = unitLabel(unit);
+  const factor = CONCENTRATION_UNITS[unit];
+  return {
+    concentration: { label: `[Q] (${label})`, unit: label, scale: 1 / factor },
+    reciprocal: { label: `1/[Q] (${label}⁻¹)`, unit: `${label}⁻¹`, scale: factor },
+  };
+}
+
+/**
+ * The study-fit pipeline, from the study's points, settings and tau0 source to the result the
+ * server stores: each point corrected once (dilution, inner filter), excluded points dropped from
+ * the fit, the chosen model fitted (free or fixed line, combined static+dynamic, modified, with the
+ * lifetime series beside), kq with the diffusion limit at the study's temperature, every flag, and
+ * the plot series with their axis titles and units and the left-out points at their plotted places.
+ * Pure: no database, same answer on server and client. Throws EngineError when the series cannot be
+ * fitted.
+ */
+export function fitStudy(
+  settings: StudyFitSettings,
+  points: readonly StudyFitPoint[],
+  model: FitModel,
+): StudyFitOutcome {
   const isRatio = settings.dataKind === 'ratio';
-  const included = points.filter((point) => !point.excluded);
   const notes: string[] = [];
   const flags: QualityFlag[] = [];
-  const used = included
-    .filter((point) => point.intensity !== null)
-    .map((point) => {
-      const corrected = correctPoint(settings, point, isRatio);
-      if (corrected?.missing.length)
-        notes.push(`Point ${point.position + 1}: no ${corrected.missing.join(' and no ')}; used as measured.`);
-      if (corrected?.dilutionFactor && corrected.dilutionFactor > DILUTION_FLAG_FACTOR)
-        flags.push(
-          qualityFlag(
-            'LARGE_DILUTION',
-            `dilution factor ${corrected.dilutionFactor.toFixed(3)} at point ${point.position + 1}`,
-          ),
-        );
-      return {
-        point,
-        concentration: corrected?.concentration ?? point.concentration,
-        value: corrected?.intensity ?? point.intensity!,
-      };
-    });
+  // Corrections once per point; the fit, the lifetimes and the left-out markers all read these.
+  const corrected = points.map((point) => {
+    const values = correctPoint(settings, point, isRatio);
+    return {
+      point,
+      concentration: values?.concentration ?? point.concentration,
+      value: values ? values.intensity : point.intensity,
+      dilutionFactor: values?.dilutionFactor ?? null,
+      missing: values?.missing ?? [],
+    };
+  });
+  const included = corrected.filter((entry) => !entry.point.excluded);
+  const used = included.flatMap((entry) => {
+    if (entry.value === null) return [];
+    const { point } = entry;
+    if (entry.missing.length)
+      notes.push(`Point ${point.position + 1}: no ${entry.missing.join(' and no ')}; used as measured.`);
+    if (entry.dilutionFactor && entry.dilutionFactor > DILUTION_FLAG_FACTOR)
+      flags.push(
+        qualityFlag(
+          'LARGE_DILUTION',
+          `dilution factor ${entry.dilutionFactor.toFixed(3)} at point ${point.position + 1}`,
+        ),
+      );
+    return [{ point, concentration: entry.concentration, value: entry.value }];
+  });
+  const leftOut = corrected.filter((entry) => entry.point.excluded && entry.value !== null);
   const x = used.map((entry) => entry.concentration);
   const values = used.map((entry) => entry.value);
   const everyUncertainty = used.length > 0 && used.every((entry) => entry.point.uncertainty !== null);
@@ -102,10 +128,11 @@ export function computeStudyFit(settings: FitSettings, points: readonly SeriesPo
   const sigmaRatios = sigmas && (isRatio ? sigmas : sigmas.map((sigma, i) => (ratios[i]! * sigma) / values[i]!));
 
   // Lifetimes need no intensity correction, but their [Q] is diluted like the intensities' (shared/engine/README.md, section 4).
-  const lifetimeSeries = included.map((point) => ({
-    concentration: correctPoint(settings, point, isRatio)?.concentration ?? point.concentration,
-    lifetime: point.lifetime,
+  const lifetimeSeries = included.map((entry) => ({
+    concentration: entry.concentration,
+    lifetime: entry.point.lifetime,
   }));
+  const axes = axesFor(Math.max(0, ...corrected.map((entry) => entry.concentration)));
   const lifetime = lifetimeAnalysis(lifetimeSeries, settings.tau0, notes);
   const tau0 = tau0For(settings, lifetime?.tau0 ?? null);
   const limit = diffusionLimitFor(settings, notes);
@@ -115,8 +142,16 @@ export function computeStudyFit(settings: FitSettings, points: readonly SeriesPo
   let statistics: FitResult['statistics'];
   let kForRate: ParameterEstimate | null = null;
   let yLabel = 'I0/I';
+  let xAxis = axes.concentration;
   let plotX = x;
   let plotY = ratios;
+  let plotPositions = used.map((entry) => entry.point.position);
+  // Left-out points on the same axes as the fitted ones: I0/I from the corrected value.
+  let excluded = leftOut.map((entry) => ({
+    position: entry.point.position,
+    x: entry.concentration,
+    y: isRatio ? entry.value! : i0.value / entry.value!,
+  }));
 
   if (model === 'linear-free' || model === 'linear-fixed') {
     const intercept = model === 'linear-free' ? 'free' : 'fixed-at-one';
@@ -193,11 +228,18 @@ export function computeStudyFit(settings: FitSettings, points: readonly SeriesPo
     Object.assign(parameters, { kSv: fit.kSv, accessibleFraction: fit.accessibleFraction });
     kForRate = fit.kSv;
     const quenched = used.flatMap((entry, i) => (entry.concentration > 0 ? [i] : []));
+    // I0/(I0 − I), or from a ratio r = I0/I: 1/(1 − 1/r) (Lehrer 1971).
+    const modifiedY = (value: number) => (isRatio ? 1 / (1 - 1 / value) : fit.i0.value / (fit.i0.value - value));
     plotX = quenched.map((i) => 1 / x[i]!);
-    plotY = quenched.map((i) => (isRatio ? 1 / (1 - 1 / ratios[i]!) : fit.i0.value / (fit.i0.value - values[i]!)));
+    plotY = quenched.map((i) => modifiedY(values[i]!));
+    plotPositions = quenched.map((i) => used[i]!.point.position);
+    excluded = leftOut
+      .filter((entry) => entry.concentration > 0)
+      .map((entry) => ({ position: entry.point.position, x: 1 / entry.concentration, y: modifiedY(entry.value!) }));
     fitted = (xi) => fit.line.intercept.value + fit.line.slope.value * xi;
     band = freeLineBand(plotX, plotY, undefined, Math.min(...plotX));
-    yLabel = 'I0/(I0 − I) against 1/[Q]';
+    yLabel = 'I0/(I0 − I)';
+    xAxis = axes.reciprocal;
     statistics = {
       n: fit.n,
       degreesOfFreedom: fit.degreesOfFreedom,
@@ -231,14 +273,27 @@ export function computeStudyFit(settings: FitSettings, points: readonly SeriesPo
       tau0,
       diffusionLimit: limit ? { ...limit, ratio: ratioToLimit } : null,
       lifetime: lifetime
-        ? { kSv: lifetime.fit.kSv, rSquared: lifetime.fit.rSquared, verdict: lifetime.verdict, points: lifetime.points }
+        ? {
+            kSv: lifetime.fit.kSv,
+            rSquared: lifetime.fit.rSquared,
+            verdict: lifetime.verdict,
+            points: lifetime.points,
+            xAxis: axes.concentration,
+          }
         : null,
       flags: unique,
       notes,
       plot: {
-        points: plotX.map((xi, i) => ({ x: xi, y: plotY[i]!, residual: plotY[i]! - fitted(xi) })),
-        line: band,
+        xAxis,
         yLabel,
+        points: plotX.map((xi, i) => ({
+          x: xi,
+          y: plotY[i]!,
+          position: plotPositions[i]!,
+          residual: plotY[i]! - fitted(xi),
+        })),
+        line: band,
+        excluded,
       },
     },
   };

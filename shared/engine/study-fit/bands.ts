@@ -1,4 +1,6 @@
-import { fitLine, fitQuadratic, studentTQuantile975 } from '@shared/engine';
+import { fitLine } from '../stats/fit-line';
+import { fitQuadratic } from '../stats/fit-quadratic';
+import { studentTQuantile975 } from '../stats/student-t';
 
 export interface BandPoint {
   x: number;

@@ -1,13 +1,10 @@
-import {
-  diffusionRateConstant,
-  EngineError,
-  quenchingRateConstant,
-  solventDiffusionLimitAt,
-  studentTQuantile975,
-  type ParameterEstimate,
-  type QualityFlag,
-} from '@shared/engine';
-import type { FitResult } from '@shared/schemas/study-fits';
+import type { FitResult } from '../../schemas/study-fits';
+import { EngineError } from '../core/engine-error';
+import type { QualityFlag } from '../flags/quality-flag';
+import { diffusionRateConstant, solventDiffusionLimitAt } from '../kinetics/diffusion-rate-constant';
+import { quenchingRateConstant } from '../kinetics/quenching-rate-constant';
+import type { ParameterEstimate } from '../stats/parameter-estimate';
+import { studentTQuantile975 } from '../stats/student-t';
 
 export interface KineticsSettings {
   solventId: string | null;

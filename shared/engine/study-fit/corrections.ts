@@ -1,4 +1,5 @@
-import { correctDilution, correctInnerFilter } from '@shared/engine';
+import { correctDilution } from '../corrections/correct-dilution';
+import { correctInnerFilter } from '../corrections/correct-inner-filter';
 
 /** The study settings the corrections read. */
 export interface CorrectionSettings {

@@ -1,11 +1,8 @@
-import {
-  compareStaticDynamic,
-  EngineError,
-  fitLifetimeSternVolmer,
-  type QualityFlag,
-  type SternVolmerFit,
-} from '@shared/engine';
-import type { LifetimeSternVolmerFit } from '@shared/engine';
+import { EngineError } from '../core/engine-error';
+import type { QualityFlag } from '../flags/quality-flag';
+import { compareStaticDynamic } from '../stern-volmer/compare-static-dynamic';
+import { fitLifetimeSternVolmer, type LifetimeSternVolmerFit } from '../stern-volmer/fit-lifetime-stern-volmer';
+import type { SternVolmerFit } from '../stern-volmer/fit-stern-volmer';
 
 interface LifetimePoint {
   concentration: number;

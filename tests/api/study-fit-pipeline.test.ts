@@ -1,0 +1,81 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import crypto from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { fitStudy } from '@shared/engine/study-fit/fit-study';
+import type * as FitStudyModule from '@shared/engine/study-fit/fit-study';
+import { StudyFit } from '../../server/models';
+import { apiClient, createLabWithMembers } from '../support/accounts';
+import { createStudy, exactPoints } from '../support/studies';
+import { createTestApp } from '../support/test-app';
+
+// The pipeline, wrapped so the test can count the fits a request runs.
+vi.mock('@shared/engine/study-fit/fit-study', async (original) => {
+  const actual = await original<typeof FitStudyModule>();
+  return { ...actual, fitStudy: vi.fn(actual.fitStudy) };
+});
+
+const fixture = (name: string) => fs.readFileSync(path.join(import.meta.dirname, '../fixtures/uploads', name));
+const testApp = await createTestApp();
+let client: Awaited<ReturnType<typeof apiClient>>;
+let labId = '';
+let csrf = '';
+
+beforeAll(async () => {
+  const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+  labId = lab.id;
+  client = await apiClient(testApp.app);
+  csrf = (await client.signIn(users.researcher)).body.csrfToken;
+});
+afterAll(testApp.close);
+
+const base = (studyId: string) => `/api/labs/${labId}/studies/${studyId}`;
+const newStudy = () => createStudy(client, labId, crypto.randomBytes(3).toString('hex'));
+
+describe('one study-fit pipeline (issue 13, findings 11 and 12)', () => {
+  it('when an upload is applied, then the series is fitted once', async () => {
+    const study = await newStudy();
+    const preview = await client.agent
+      .post(`${base(study.id)}/uploads`)
+      .set('x-csrf-token', csrf)
+      .attach('file', fixture('series-comma-mM.csv'), 'series-comma-mM.csv');
+    expect(preview.status, JSON.stringify(preview.body)).toBe(201);
+    vi.mocked(fitStudy).mockClear();
+    const applied = await client.post(`${base(study.id)}/uploads/${preview.body.upload.id}/apply`, {
+      version: study.version,
+      mapping: preview.body.mapping,
+    });
+    expect(applied.status, JSON.stringify(applied.body)).toBe(200);
+    expect(applied.body.latestFit.kSv).toBeCloseTo(500, 1); // the line the fixture was built from
+    expect(vi.mocked(fitStudy)).toHaveBeenCalledTimes(1);
+  });
+
+  it('when a left-out point is stored, then the answer carries it at its plotted place with the axis and its unit', async () => {
+    const study = await newStudy();
+    const points = exactPoints.map((p, i) => (i === 2 ? { ...p, excluded: true, exclusionReason: 'bubble' } : p));
+    const detail = (await client.patch(`${base(study.id)}/points`, { version: 0, points }).expect(200)).body;
+    // I0/I = 1 + 500 × 0.002 = 2 at [Q] = 2 mM (constructed line, hand-computed)
+    expect(detail.latestFit.result.plot.xAxis).toEqual({ label: '[Q] (mM)', unit: 'mM', scale: 1000 });
+    expect(detail.latestFit.result.plot.excluded).toEqual([{ position: 2, x: 2e-3, y: expect.closeTo(2, 9) }]);
+  });
+
+  it('when the latest stored fit predates the axes, then the first read fits again once and keeps the old record', async () => {
+    const study = await newStudy();
+    const points = exactPoints.map((p, i) => (i === 4 ? { ...p, excluded: true, exclusionReason: 'lamp drift' } : p));
+    const first = (await client.patch(`${base(study.id)}/points`, { version: 0, points }).expect(200)).body.latestFit;
+    const stored = (await StudyFit.findByPk(first.id))!;
+    const { xAxis: _x, excluded: _e, ...oldPlot } = stored.result.plot;
+    await stored.update({ result: { ...stored.result, plot: oldPlot as typeof stored.result.plot } });
+
+    const read = (await client.get(base(study.id)).expect(200)).body.latestFit;
+    expect(read.id).not.toBe(first.id);
+    expect(read.kSv).toBeCloseTo(500, 9); // K_SV = 500 M^-1 by construction
+    expect(read.result.plot.excluded).toEqual([{ position: 4, x: 4e-3, y: expect.closeTo(3, 9) }]);
+    expect((await client.get(base(study.id)).expect(200)).body.latestFit.id).toBe(read.id);
+    const fits = (await client.get(`${base(study.id)}/fits`).expect(200)).body.items;
+    expect(fits.map((fit: { id: string }) => fit.id)).toEqual([read.id, first.id]);
+    // the old record as it was drawn: [Q] in mM, no left-out markers
+    expect(fits[1].result.plot.xAxis.label).toBe('[Q] (mM)');
+    expect(fits[1].result.plot.excluded).toEqual([]);
+  });
+});
