@@ -104,7 +104,7 @@ describe('studies in Chromium', () => {
     await reviewerPage.close();
   });
 
-  it('when the plots are saved as PNG, then each download is a 300 dpi PNG one or two columns wide, named after the study', async () => {
+  it('when the plots are saved as PNG and SVG, then each PNG is 300 dpi one or two columns wide and each SVG holds the points, named after the study', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     await signIn(page, people.researcher);
     await page.goto(`${server.baseUrl}/labs/${labId}/studies`);
@@ -146,6 +146,49 @@ describe('studies in Chromium', () => {
         expect(bytes.length).toBeGreaterThan(8000); // a drawn chart, not an empty canvas
       }
     }
+    // The same figures as SVG: each file parses as XML and holds the plotted points with their values.
+    const svgs: Record<string, string> = {};
+    for (const [what, suffix] of figures) {
+      const [download] = await Promise.all([
+        page.waitForEvent('download'),
+        page.getByRole('button', { name: `SVG: the ${what}` }).click(),
+      ]);
+      expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}.svg`);
+      const saved = path.join(screenshotDir, `figure-${suffix}.svg`);
+      await download.saveAs(saved);
+      svgs[suffix] = fs.readFileSync(saved, 'utf8');
+    }
+    const parsed = await page.evaluate((files) => {
+      const read = (text: string) => {
+        const doc = new DOMParser().parseFromString(text, 'image/svg+xml');
+        const marks = [...doc.querySelectorAll('[data-series][data-x]')].map((mark) => ({
+          series: mark.getAttribute('data-series'),
+          x: Number(mark.getAttribute('data-x')),
+          y: Number(mark.getAttribute('data-y')),
+        }));
+        return {
+          error: doc.querySelector('parsererror')?.textContent ?? null,
+          root: doc.documentElement.localName,
+          title: doc.querySelector('title')?.textContent ?? '',
+          marks,
+          lines: doc.querySelectorAll('polyline').length,
+        };
+      };
+      return Object.fromEntries(Object.entries(files).map(([name, text]) => [name, read(text)]));
+    }, svgs);
+    for (const [, suffix] of figures) {
+      expect(parsed[suffix]!.error, suffix).toBeNull();
+      expect(parsed[suffix]!.root).toBe('svg');
+      expect(parsed[suffix]!.marks.length, suffix).toBeGreaterThanOrEqual(6);
+    }
+    expect(parsed['stern-volmer']!.title).toBe('Stern–Volmer plot');
+    expect(parsed['stern-volmer']!.lines).toBeGreaterThanOrEqual(1); // the fitted line
+    // The fixture's points (tests/fixtures/uploads/README.md): [Q] = 0 to 800 µM, I0/I = 1 + 1000 M⁻¹ [Q].
+    const used = parsed['stern-volmer']!.marks.filter((mark) => mark.series === 'Points used');
+    expect(used.map((mark) => mark.x)).toEqual([0, 0.1, 0.2, 0.4, 0.6, 0.8].map((mM) => expect.closeTo(mM, 6)));
+    expect(used.map((mark) => mark.y)).toEqual(
+      [0, 0.1, 0.2, 0.4, 0.6, 0.8].map((mM) => expect.closeTo(1 + 1000 * mM * 1e-3, 4)),
+    );
     await shot(page, 'study-figures.png');
     await expectFitsWindow(page, 'study-figures-1400x900.png');
     await page.close();

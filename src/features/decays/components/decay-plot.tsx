@@ -2,7 +2,7 @@ import { useRef } from 'react';
 import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { DecayCurves } from '@shared/schemas/decays';
-import { decayColours, paperUnderPlot, saveChartPng } from './decay-chart-setup';
+import { decayColours, paperUnderPlot, saveChartPng, saveChartSvg } from './decay-chart-setup';
 
 const NS = 1e9;
 
@@ -33,9 +33,23 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
         <button
           type="button"
           className="text-caption underline"
+          onClick={() => saveChartSvg(main.current, `${title} decay`)}
+        >
+          Decay as SVG
+        </button>
+        <button
+          type="button"
+          className="text-caption underline"
           onClick={() => saveChartPng(residualChart.current, `${title} residuals`)}
         >
           Residuals as PNG
+        </button>
+        <button
+          type="button"
+          className="text-caption underline"
+          onClick={() => saveChartSvg(residualChart.current, `${title} residuals`)}
+        >
+          Residuals as SVG
         </button>
       </div>
       <div className="relative h-64">

@@ -3,7 +3,7 @@ import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { DecaySternVolmer } from '@shared/schemas/decays';
 import { formatNumber } from '@shared/format';
-import { decayColours, paperUnderPlot, saveChartPng } from './decay-chart-setup';
+import { decayColours, paperUnderPlot, saveChartPng, saveChartSvg } from './decay-chart-setup';
 
 /** tau0/tau against [Q] from the fitted lifetimes, with tau0 and the lifetime K_SV. */
 export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: DecaySternVolmer; title: string }) {
@@ -30,6 +30,13 @@ export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: Deca
           onClick={() => saveChartPng(chart.current, `${title} lifetime Stern-Volmer`)}
         >
           Plot as PNG
+        </button>
+        <button
+          type="button"
+          className="text-caption underline"
+          onClick={() => saveChartSvg(chart.current, `${title} lifetime Stern-Volmer`)}
+        >
+          Plot as SVG
         </button>
       </dl>
       <div className="relative h-56">

@@ -1,0 +1,117 @@
+import type { Chart, ChartDataset, Scale } from 'chart.js';
+import { chartColours, chartFont } from './chart-theme';
+
+/*
+ * A chart as an SVG file: the same figure as on screen (plot area, grid, ticks and axis titles,
+ * legend, each series' line, band and marks), written from what Chart.js has laid out, so a journal
+ * or a drawing program gets vectors at any size. Each mark carries the plotted values (data-x,
+ * data-y) and its series (data-series), so the file also says what it shows.
+ */
+
+const escape = (text: string) =>
+  text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+const num = (value: number) => String(Math.round(value * 100) / 100);
+const colour = (value: unknown, fallback = 'none') => (typeof value === 'string' ? value : fallback);
+
+interface Placed {
+  x: number;
+  y: number;
+  options: {
+    radius?: number;
+    pointStyle?: unknown;
+    backgroundColor?: unknown;
+    borderColor?: unknown;
+    borderWidth?: number;
+  };
+}
+
+function mark(point: Placed, series: string, value: { x: number; y: number }): string {
+  const { radius = 3, pointStyle, backgroundColor, borderColor, borderWidth = 1 } = point.options;
+  const data = `data-series="${escape(series)}" data-x="${value.x}" data-y="${value.y}"`;
+  const stroke = `stroke="${colour(borderColor)}" stroke-width="${num(borderWidth)}"`;
+  if (pointStyle === 'crossRot' || pointStyle === 'cross') {
+    const r = num(radius);
+    const [dx, dy] = pointStyle === 'cross' ? ['0', r] : [r, r];
+    return `<path ${data} d="M${num(point.x - +dx)} ${num(point.y - +dy)}L${num(point.x + +dx)} ${num(point.y + +dy)}M${num(point.x + +dx)} ${num(point.y - +dy)}L${num(point.x - +dx)} ${num(point.y + +dy)}" fill="none" ${stroke}/>`;
+  }
+  return `<circle ${data} cx="${num(point.x)}" cy="${num(point.y)}" r="${num(radius)}" fill="${colour(backgroundColor)}" ${stroke}/>`;
+}
+
+function axis(scale: Scale, area: Chart['chartArea'], vertical: boolean): string[] {
+  const parts: string[] = [];
+  for (const tick of scale.ticks) {
+    const at = num(scale.getPixelForValue(tick.value));
+    const label = escape(Array.isArray(tick.label) ? tick.label.join(' ') : String(tick.label ?? ''));
+    parts.push(
+      vertical
+        ? `<line x1="${num(area.left)}" x2="${num(area.right)}" y1="${at}" y2="${at}" stroke="${chartColours.grid}"/>` +
+            `<text x="${num(area.left - 6)}" y="${at}" text-anchor="end" dominant-baseline="middle">${label}</text>`
+        : `<line x1="${at}" x2="${at}" y1="${num(area.top)}" y2="${num(area.bottom)}" stroke="${chartColours.grid}"/>` +
+            `<text x="${at}" y="${num(area.bottom + 16)}" text-anchor="middle">${label}</text>`,
+    );
+  }
+  const title = (scale.options as { title?: { display?: boolean; text?: string | string[] } }).title;
+  if (title?.display && title.text) {
+    const text = escape(Array.isArray(title.text) ? title.text.join(' ') : title.text);
+    parts.push(
+      vertical
+        ? `<text font-weight="bold" text-anchor="middle" transform="translate(${num(scale.left + 8)} ${num((area.top + area.bottom) / 2)}) rotate(-90)">${text}</text>`
+        : `<text font-weight="bold" text-anchor="middle" x="${num((area.left + area.right) / 2)}" y="${num(scale.bottom - 4)}">${text}</text>`,
+    );
+  }
+  return parts;
+}
+
+/** The chart as it stands, as an SVG document named by `title` (its accessible name). */
+export function chartAsSvg(chart: Chart, title: string): string {
+  const { width, height, chartArea: area } = chart;
+  const body: string[] = [`<rect width="${num(width)}" height="${num(height)}" fill="${chartColours.surface}"/>`];
+  const { x, y } = chart.scales;
+  if (x) body.push(...axis(x, area, false));
+  if (y) body.push(...axis(y, area, true));
+  const datasets = chart.data.datasets as Array<ChartDataset<'scatter'> & { showLine?: boolean }>;
+  const placed = datasets.map((_, index) => chart.getDatasetMeta(index).data as unknown as Placed[]);
+  datasets.forEach((dataset, index) => {
+    if (!chart.isDatasetVisible(index)) return;
+    const points = placed[index]!;
+    const path = (list: Placed[]) => list.map((p) => `${num(p.x)},${num(p.y)}`).join(' ');
+    if (dataset.fill === '+1' && placed[index + 1]) {
+      const lower = [...placed[index + 1]!].reverse();
+      body.push(
+        `<polygon points="${path(points)} ${path(lower)}" fill="${colour(dataset.backgroundColor)}" stroke="none"/>`,
+      );
+    }
+    if (dataset.showLine && (dataset.borderWidth ?? 1) !== 0 && points.length > 1)
+      body.push(
+        `<polyline data-series="${escape(dataset.label ?? '')}" points="${path(points)}" fill="none" stroke="${colour(dataset.borderColor, chartColours.line)}" stroke-width="${num(Number(dataset.borderWidth ?? 1))}"/>`,
+      );
+    if (!dataset.showLine || Number(dataset.pointRadius ?? 3) > 0)
+      points.forEach((point, at) => {
+        const value = dataset.data[at] as { x: number; y: number };
+        if (point.options.radius !== 0) body.push(mark(point, dataset.label ?? '', value));
+      });
+  });
+  const legend = chart.legend as unknown as
+    | {
+        legendItems?: Array<{ text: string; fillStyle?: unknown; strokeStyle?: unknown }>;
+        legendHitBoxes?: Array<{ left: number; top: number; height: number }>;
+      }
+    | undefined;
+  legend?.legendItems?.forEach((item, at) => {
+    const box = legend.legendHitBoxes?.[at];
+    if (!box) return;
+    const middle = box.top + box.height / 2;
+    body.push(
+      `<circle cx="${num(box.left + 5)}" cy="${num(middle)}" r="4" fill="${colour(item.fillStyle)}" stroke="${colour(item.strokeStyle)}"/>` +
+        `<text x="${num(box.left + 14)}" y="${num(middle)}" dominant-baseline="middle">${escape(item.text)}</text>`,
+    );
+  });
+  return [
+    `<?xml version="1.0" encoding="UTF-8"?>`,
+    `<svg xmlns="http://www.w3.org/2000/svg" width="${num(width)}" height="${num(height)}" viewBox="0 0 ${num(width)} ${num(height)}" role="img" aria-label="${escape(title)}" font-family="${escape(chartFont)}" font-size="12" fill="${chartColours.text}">`,
+    `<title>${escape(title)}</title>`,
+    ...body,
+    `</svg>`,
+    '',
+  ].join('\n');
+}
