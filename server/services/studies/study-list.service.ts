@@ -134,6 +134,7 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
       if (nullable && !backwards) parts.push([`s.${column} IS NULL`]);
     }
   }
+  // Numbered pages skip rows inside the one part there is (no cursor), so only a page's rows are joined.
   const offset = cursor ? 0 : (query.page - 1) * query.pageSize;
   const columns =
     's.id, s.title, s.emitter_id, s.quencher_id, s.solvent_id, s.custom_solvent_name, s.status, s.revision, ' +
@@ -141,7 +142,7 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
   const selects = parts.map(
     (extra) =>
       `(SELECT ${columns} FROM studies s WHERE ${[...where, ...extra].join(' AND ')} ` +
-      `ORDER BY ${order('s')} LIMIT ${limit + offset})`,
+      `ORDER BY ${order('s')} LIMIT ${limit} OFFSET ${offset})`,
   );
   const pageSql = `
     SELECT p.id, p.title, p.emitter_id AS "emitterId", p.quencher_id AS "quencherId", p.solvent_id AS "solventId",
@@ -153,7 +154,7 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
     LEFT JOIN compounds q ON q.id = p.quencher_id
     LEFT JOIN users o ON o.id = p.owner_id
     ORDER BY ${order('p')}
-    LIMIT ${limit} OFFSET ${offset}`;
+    LIMIT ${limit}`;
   const countSql = `SELECT count(*)::int AS n FROM (SELECT 1 FROM studies s WHERE ${where.join(' AND ')} LIMIT ${STUDY_COUNT_CAP + 1}) c`;
   const [rows, [counted]] = await Promise.all([
     sequelize.query<Row>(pageSql, { bind: binds.values, type: QueryTypes.SELECT }),
