@@ -56,6 +56,23 @@ const casesFor = (lab: BenchLab): Case[] => [
   ['text search "thiophenol"', { q: 'thiophenol' }],
 ];
 
+/**
+ * Deep pages: by number (OFFSET) and by the cursor the page before gave (keyset), for the page
+ * 40 of a typical lab and the last pages of a big one.
+ */
+async function deepCases(context: LabContext, inLab: number): Promise<Case[]> {
+  const pages = [...new Set([40, Math.floor(inLab / 25 / 2), Math.floor(inLab / 25)])].filter(
+    (page) => page > 1 && page * 25 <= inLab,
+  );
+  const cases: Case[] = [];
+  for (const page of pages) {
+    const before = await listStudies(context, listStudiesQuerySchema.parse({ page: String(page - 1) }));
+    cases.push([`page ${page} by number`, { page: String(page) }]);
+    cases.push([`page ${page} by cursor`, { cursor: before.nextCursor!, page: String(page) }]);
+  }
+  return cases;
+}
+
 function report(name: string, times: number[], total: number | string) {
   const sorted = [...times].sort((a, b) => a - b);
   const p95 = percentile(sorted, 0.95);
@@ -130,16 +147,23 @@ async function explain(sequelize: ReturnType<typeof createSequelize>, lab: LabCo
     ['sort kq (asc)', { sort: 'kq', direction: 'asc' }],
     ['sort K_SV (desc)', { sort: 'k_sv' }],
     ['sort K_SV (asc)', { sort: 'k_sv', direction: 'asc' }],
+    ['page 1,000 by number', { page: '1000' }],
   ];
   for (const [name, raw] of explained) {
-    const statements: string[] = [];
-    // Sequelize 6 keeps its options at runtime (the typings leave them out): log the SQL the service sends.
-    const options = (sequelize as unknown as { options: { logging: false | ((sql: string) => void) } }).options;
-    options.logging = (sql) => statements.push(sql.replace(/^Executing \([^)]*\): /, ''));
+    const statements: Array<{ sql: string; bind?: unknown[] }> = [];
+    // Sequelize 6 keeps its options at runtime (the typings leave them out): log the SQL the service
+    // sends with its bind values.
+    type Logging = false | ((sql: string, options?: { bind?: unknown[] }) => void);
+    const options = (sequelize as unknown as { options: { logging: Logging } }).options;
+    options.logging = (sql, queryOptions) =>
+      statements.push({ sql: sql.replace(/^Executing \([^)]*\): /, ''), bind: queryOptions?.bind });
     await listStudies(lab, listStudiesQuerySchema.parse(raw));
     options.logging = false;
-    const pageQuery = statements.find((sql) => !/count\(/i.test(sql))!;
-    const [plan] = (await sequelize.query(`EXPLAIN ${pageQuery}`)) as [Array<{ 'QUERY PLAN': string }>, unknown];
+    const pageQuery = statements.find((statement) => !/count\(/i.test(statement.sql))!;
+    const [plan] = (await sequelize.query(`EXPLAIN ${pageQuery.sql}`, { bind: pageQuery.bind })) as [
+      Array<{ 'QUERY PLAN': string }>,
+      unknown,
+    ];
     const lines = plan.map((row) => row['QUERY PLAN']);
     const indexes = [
       ...new Set(
@@ -191,7 +215,7 @@ async function main() {
           role: 'admin',
           membershipId: lab.labId,
         };
-        const cases = casesFor(lab);
+        const cases = [...casesFor(lab), ...(await deepCases(context, lab === seeded.big ? BIG_LAB : PER_LAB))];
         await serviceTimes(context, cases);
         const client = await signedInClient(server.baseUrl, await createBenchMember(lab.labId, 'viewer'));
         await httpTimes(client, lab, cases);
