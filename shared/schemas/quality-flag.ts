@@ -2,7 +2,8 @@ import { z } from 'zod';
 
 /**
  * A warning (or a refusal) the engine attaches to a result — a Stern–Volmer fit, a titration plan:
- * a stable code, plain words for people and what to check. One schema for every result that has flags.
+ * a stable code, plain words for people, what to check and what to do next. One schema for every result
+ * that has flags (results stored before `whatToDo` existed, and decay flags, have none).
  */
 export const qualityFlagSchema = z
   .object({
@@ -11,6 +12,7 @@ export const qualityFlagSchema = z
     title: z.string(),
     explanation: z.string(),
     whatToCheck: z.array(z.string()),
+    whatToDo: z.string().optional().describe('the next step in one sentence; every Stern–Volmer flag has one'),
     detail: z.string().optional(),
   })
   .meta({ id: 'QualityFlag' });

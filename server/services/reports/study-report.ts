@@ -82,6 +82,7 @@ function results(doc: Pdf, study: StudyDetail) {
       .text(`${flag.title}${flag.detail ? ` (${flag.detail})` : ''}`)
       .font('Lato')
       .text(flag.explanation);
+    if (flag.whatToDo) doc.text(`What to do: ${flag.whatToDo}`);
     doc.text(`Check: ${flag.whatToCheck.join('; ')}.`).moveDown(0.3);
   }
 }

@@ -6,7 +6,7 @@ import {
   requirePositiveArray,
   requireSameLength,
 } from '../core/validate';
-import { qualityFlag, type QualityFlag } from '../flags/quality-flag';
+import { KSV_RELATIVE_SE_FLAG_ABOVE, qualityFlag, R_SQUARED_FLAG_BELOW, type QualityFlag } from '../flags/quality-flag';
 import { fitLineWithCurvature } from '../stats/fit-line-with-curvature';
 import { makeEstimate, type ParameterEstimate } from '../stats/parameter-estimate';
 import { residualRunsTest } from '../stats/runs-test';
@@ -36,6 +36,12 @@ export interface SternVolmerFit {
   /** 'centred' with a free intercept; 'uncentred' (1 - SS_res / sum w (ratio-1)^2) with it fixed */
   rSquared: number;
   rSquaredDefinition: 'centred' | 'uncentred';
+  /**
+   * centred R² of the fitted line, 1 - SS_res / sum w (ratio - weighted mean)^2: the same as
+   * rSquared with a free intercept; with the intercept fixed it says how well the line through 1
+   * fits compared with a flat line (it can be below 0), where the uncentred value stays near 1.
+   */
+  rSquaredCentred: number;
   /** ratio - fitted, in input order */
   residuals: number[];
   residualStandardDeviation: number;
@@ -115,12 +121,23 @@ export function fitSternVolmer(input: SternVolmerInput): SternVolmerFit {
     ? runsTestFromCounts(line.signRuns.runs, line.signRuns.positives, line.signRuns.negatives)
     : residualRunsTest(residualsInConcentrationOrder(concentrations, line.residuals));
   const diagnosis = classifyCurvature(line, line.quadratic, runs);
+  const rSquaredCentred = fixed ? centredRSquared(ratios, line.residualSumOfSquares, weights) : line.rSquared;
+  const kSv = makeEstimate(line.slope, line.slopeStandardError, df);
+  const pointFlags = ratioFlags(
+    concentrations,
+    ratios,
+    ratioUncertainties,
+    line.residualStandardDeviation,
+    kSv,
+    rSquaredCentred,
+  );
   return {
     intercept,
-    kSv: makeEstimate(line.slope, line.slopeStandardError, df),
+    kSv,
     fittedIntercept,
     rSquared: line.rSquared,
     rSquaredDefinition: fixed ? 'uncentred' : 'centred',
+    rSquaredCentred,
     residuals: line.residuals,
     residualStandardDeviation: line.residualStandardDeviation,
     residualSumOfSquares: line.residualSumOfSquares,
@@ -130,13 +147,60 @@ export function fitSternVolmer(input: SternVolmerInput): SternVolmerFit {
     weighted: weights !== undefined,
     points: { concentrations, ratios },
     diagnosis,
-    flags: sternVolmerFlags(distinctConcentrations, fittedIntercept, diagnosis),
+    flags: [...sternVolmerFlags(distinctConcentrations, fittedIntercept, diagnosis), ...pointFlags],
   };
 }
 
-// A departure from 1 is flagged when it is larger than 5 % and the 95 % interval of the
-// intercept does not reach 1: big enough to matter and not explained by noise.
-const INTERCEPT_TOLERANCE = 0.05;
+// An intercept more than this many standard errors from 1 is flagged (common practice: well beyond
+// the scatter a correct blank would give).
+const INTERCEPT_FLAG_STANDARD_ERRORS = 3;
+
+/** 1 - SS_res / sum w (y - ybar_w)^2 for a line whose residual sum of squares is known. */
+function centredRSquared(y: readonly number[], residualSumOfSquares: number, weights?: ArrayLike<number>): number {
+  let sumW = 0;
+  let sumWy = 0;
+  // weights (when given) has y.length entries (checked by the caller), so every index exists.
+  for (let i = 0; i < y.length; i++) {
+    const w = weights ? weights[i]! : 1;
+    sumW += w;
+    sumWy += w * y[i]!;
+  }
+  const mean = sumWy / sumW;
+  let total = 0;
+  for (let i = 0; i < y.length; i++) total += (weights ? weights[i]! : 1) * (y[i]! - mean) ** 2;
+  return total > 0 ? 1 - residualSumOfSquares / total : 1;
+}
+
+/**
+ * Flags on the series as a whole: centred R² below R_SQUARED_FLAG_BELOW, a relative SE of K_SV
+ * above KSV_RELATIVE_SE_FLAG_ABOVE, and ratios below 1 by more than their standard uncertainty
+ * (the point's own when given, else the residual standard deviation of the line).
+ */
+function ratioFlags(
+  concentrations: readonly number[],
+  ratios: readonly number[],
+  uncertainties: readonly number[] | undefined,
+  residualStandardDeviation: number,
+  kSv: ParameterEstimate,
+  rSquaredCentred: number,
+): QualityFlag[] {
+  const flags: QualityFlag[] = [];
+  if (rSquaredCentred < R_SQUARED_FLAG_BELOW)
+    flags.push(
+      qualityFlag('LOW_R_SQUARED', `centred R² ${rSquaredCentred.toFixed(3)} (below ${R_SQUARED_FLAG_BELOW})`),
+    );
+  const relative = kSv.standardError / Math.abs(kSv.value);
+  if (!(relative <= KSV_RELATIVE_SE_FLAG_ABOVE))
+    flags.push(qualityFlag('KSV_UNCERTAIN', `standard error ${(relative * 100).toFixed(0)} % of K_SV`));
+  const below = ratios.flatMap((ratio, i) => {
+    const u = uncertainties?.[i] ?? residualStandardDeviation;
+    return ratio + u < 1
+      ? [`point ${i + 1} ([Q] ${concentrations[i]!.toPrecision(3)} M): ${ratio.toFixed(3)} ± ${u.toPrecision(2)}`]
+      : [];
+  });
+  if (below.length > 0) flags.push(qualityFlag('RATIO_BELOW_ONE', below.join('; ')));
+  return flags;
+}
 
 function sternVolmerFlags(
   distinct: number,
@@ -148,12 +212,12 @@ function sternVolmerFlags(
     flags.push(qualityFlag('FEW_CONCENTRATIONS', `${distinct} distinct concentrations`));
   }
   if (intercept) {
-    const { value, interval95 } = intercept;
-    if (Math.abs(value - 1) > INTERCEPT_TOLERANCE && (interval95.lower > 1 || interval95.upper < 1)) {
+    const { value, standardError, interval95 } = intercept;
+    if (Math.abs(value - 1) > INTERCEPT_FLAG_STANDARD_ERRORS * standardError) {
       flags.push(
         qualityFlag(
           'INTERCEPT_FAR_FROM_ONE',
-          `intercept ${value.toPrecision(3)} (95 % interval ${interval95.lower.toPrecision(3)} to ${interval95.upper.toPrecision(3)})`,
+          `intercept ${value.toPrecision(3)}, ${(Math.abs(value - 1) / standardError).toFixed(1)} standard errors from 1 (95 % interval ${interval95.lower.toPrecision(3)} to ${interval95.upper.toPrecision(3)})`,
         ),
       );
     }

@@ -84,6 +84,11 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
                 {flag.detail && <span className="font-normal text-ink-500"> — {flag.detail}</span>}
               </p>
               <p>{flag.explanation}</p>
+              {flag.whatToDo && (
+                <p>
+                  <strong>What to do:</strong> {flag.whatToDo}
+                </p>
+              )}
               <p className="text-caption">Check: {flag.whatToCheck.join('; ')}.</p>
             </li>
           ))}
