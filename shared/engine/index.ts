@@ -49,6 +49,7 @@ export {
 } from './kinetics/diffusion-rate-constant';
 export { viscosityAt, type ViscosityAtTemperature, type ViscosityCorrelation } from './kinetics/viscosity-correlation';
 export { quenchingRateConstant, type QuenchingRateConstant } from './kinetics/quenching-rate-constant';
+export { kqFromLifetimes, type KqFromLifetimes } from './kinetics/kq-from-lifetimes';
 export { quenchingFractions, type QuenchingFractions, type QuenchingShare } from './kinetics/quenching-fractions';
 export { rehmWellerRateConstant, REHM_WELLER_KD_OVER_KZ } from './kinetics/rehm-weller-rate-constant';
 export { fitRehmWeller, type RehmWellerFit } from './kinetics/fit-rehm-weller';
