@@ -1,5 +1,6 @@
 import type { FitModel } from '../schemas/studies';
 import type { Estimate, FitResult } from '../schemas/study-fits';
+import { formatEstimate } from './format-estimate';
 import { UNITS } from './quantity-units';
 
 /** One fitted parameter as people read it: the same label, unit and numbers on screen, in CSV and PDF. */
@@ -69,4 +70,29 @@ export function fitParameterLines(
     return estimate ? [{ ...entry, estimate }] : [];
   });
   return { lines, note };
+}
+
+/**
+ * The R² values of a stored fit, labelled: a line through 1 reports its uncentred R² (about 1 even
+ * for a poor line, so labelled as such) and the centred R² of the same line beside it; other fits
+ * their centred R². Values to four decimals, as on screen, in the PDF and the CSV.
+ */
+export function rSquaredLines(
+  statistics: Pick<FitResult['statistics'], 'rSquared' | 'rSquaredDefinition' | 'rSquaredCentred'>,
+): Array<{ key: 'r_squared' | 'r_squared_uncentred' | 'r_squared_centred'; label: string; value: number }> {
+  const { rSquared, rSquaredDefinition, rSquaredCentred } = statistics;
+  if (rSquared === null) return [];
+  if (rSquaredDefinition !== 'uncentred') return [{ key: 'r_squared', label: 'R²', value: rSquared }];
+  return [
+    { key: 'r_squared_uncentred', label: 'R² about 1 (uncentred)', value: rSquared },
+    ...(rSquaredCentred === null || rSquaredCentred === undefined
+      ? []
+      : [{ key: 'r_squared_centred' as const, label: 'centred R² of the same line', value: rSquaredCentred }]),
+  ];
+}
+
+/** τ0 as used for kq, in words: "1.00 ± 0.05 µs (lifetime record of the emitter)" or "... without uncertainty". */
+export function tau0Text(tau0: NonNullable<FitResult['tau0']>): string {
+  const ns = tau0.standardError === null ? null : tau0.standardError * 1e9;
+  return `${formatEstimate(tau0.value * 1e9, ns, UNITS.nanosecond)} (${tau0.source})`;
 }

@@ -7,6 +7,10 @@ export const estimateSchema = z
     value: z.number(),
     standardError: z.number(),
     interval95: z.object({ lower: z.number(), upper: z.number() }),
+    includes: z
+      .string()
+      .optional()
+      .describe('what the standard error includes, e.g. "scatter of the points and I0 from 3 blanks"'),
   })
   .meta({ id: 'Estimate' });
 export type Estimate = z.infer<typeof estimateSchema>;
@@ -31,6 +35,16 @@ export const fitResultSchema = z
       n: z.number().int(),
       degreesOfFreedom: z.number(),
       rSquared: z.number().nullable(),
+      rSquaredDefinition: z
+        .enum(['centred', 'uncentred'])
+        .nullable()
+        .optional()
+        .describe('uncentred for a line through 1: 1 - SS_res / sum (ratio - 1)^2, near 1 even for a poor line'),
+      rSquaredCentred: z
+        .number()
+        .nullable()
+        .optional()
+        .describe('centred R² of the same fitted line, 1 - SS_res / sum (ratio - mean)^2'),
       residualStandardDeviation: z.number().nullable(),
       curvature: z.enum(['linear', 'upward', 'downward']).nullable(),
       curvaturePValue: z.number().nullable(),
@@ -39,7 +53,7 @@ export const fitResultSchema = z
     tau0: z
       .object({
         value: z.number(),
-        standardError: z.number(),
+        standardError: z.number().nullable().describe('s; null when τ0 has no uncertainty of its own'),
         kind: z.enum(['lifetime-record', 'entered', 'lifetime-series']),
         source: z.string(),
       })
@@ -51,6 +65,10 @@ export const fitResultSchema = z
     lifetime: z
       .object({
         kSv: estimateSchema,
+        intercept: z
+          .enum(['free', 'fixed-at-one'])
+          .optional()
+          .describe('treated like the intensity line it is compared with'),
         rSquared: z.number(),
         verdict: z.string().nullable(),
         points: z.array(plotPointSchema),

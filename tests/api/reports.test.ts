@@ -186,6 +186,31 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     expect(pages.reduce((sum, page) => sum + pixelsOfColour(page, chartInk.excluded, 12), 0)).toBeGreaterThan(10);
   });
 
+  it('when a line through 1 is reported, then the PDF labels its R² as uncentred beside the centred one and says what each SE includes', async () => {
+    const studies = await Study.findAll({ where: { labId, isCurrent: true } });
+    let fixedId: string | null = null;
+    for (const study of studies) {
+      const detail = (await client.get(`/api/labs/${labId}/studies/${study.id}`)).body;
+      if (detail.latestFit?.model === 'linear-fixed') fixedId = study.id;
+    }
+    expect(fixedId, 'the demo lab has a line through 1').not.toBeNull();
+    const detail = (await client.get(`/api/labs/${labId}/studies/${fixedId}`)).body;
+    const { statistics, parameters } = detail.latestFit.result;
+    expect(statistics.rSquaredDefinition).toBe('uncentred');
+    const text = (await pdfText(binary(await pdfOf(`/api/labs/${labId}/studies/${fixedId}/report.pdf`)))).replace(
+      /\s+/g,
+      ' ',
+    );
+    expect(text).toContain(`R² about 1 (uncentred): ${statistics.rSquared.toFixed(4)}`);
+    expect(text).toContain(`centred R² of the same line: ${statistics.rSquaredCentred.toFixed(4)}`);
+    expect(text).toContain(`SE includes ${parameters.kSv.includes}`);
+    const csv = await client.get(`/api/labs/${labId}/studies/${fixedId}/export.csv?part=fit`);
+    expect(csv.text).toContain('standard_error_includes');
+    expect(csv.text).toMatch(/r_squared_uncentred,[\d.]+,/);
+    expect(csv.text).toContain('R² about 1 (uncentred)');
+    expect(csv.text).toMatch(/r_squared_centred,-?[\d.]+/);
+  });
+
   it('when the study is unknown, then 404 in the one error shape', async () => {
     const response = await client.get(`/api/labs/${labId}/studies/00000000-0000-4000-8000-000000000000/report.pdf`);
     expect(response.status).toBe(404);

@@ -1,4 +1,12 @@
-import { fitParameterLines, formatEstimate, formatInterval, isoDateTime, UNITS } from '@shared/format';
+import {
+  fitParameterLines,
+  formatEstimate,
+  formatInterval,
+  isoDateTime,
+  rSquaredLines,
+  tau0Text,
+  UNITS,
+} from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { fitModelNames } from '@shared/schemas/studies';
 import type { LabContext } from '../../domain/lab-context';
@@ -51,11 +59,13 @@ function results(doc: Pdf, study: StudyDetail) {
       ({ label, unit, estimate }) =>
         [
           label,
-          `${formatEstimate(estimate.value, estimate.standardError, unit)} (95 % interval ${formatInterval(estimate.interval95.lower, estimate.interval95.upper, estimate.standardError, estimate.value)})`,
+          `${formatEstimate(estimate.value, estimate.standardError, unit)} (95 % interval ${formatInterval(estimate.interval95.lower, estimate.interval95.upper, estimate.standardError, estimate.value)})${estimate.includes ? `; SE includes ${estimate.includes}` : ''}`,
         ] as [string, string],
     ),
     ...(note ? [['Roots', note] as [string, string]] : []),
-    ['R², n', `${fixed(fit.result.statistics.rSquared, 6)}, ${fit.result.statistics.n} points`],
+    ...rSquaredLines(fit.result.statistics).map((line) => [line.label, line.value.toFixed(4)] as [string, string]),
+    ['n', `${fit.result.statistics.n} points`],
+    ...(fit.result.tau0 ? [['τ0 used', tau0Text(fit.result.tau0)] as [string, string]] : []),
     [
       'Diffusion limit',
       fit.result.diffusionLimit

@@ -1,4 +1,4 @@
-import { isoDateTime, titled, UNITS } from '@shared/format';
+import { isoDateTime, rSquaredLines, titled, UNITS } from '@shared/format';
 import { csvTable } from '../../lib/csv-cells';
 import type { LabContext } from '../../domain/lab-context';
 import { getStudyDetail } from './study.service';
@@ -47,7 +47,9 @@ export async function exportPointsCsv(lab: LabContext, studyId: string) {
 export async function exportFitCsv(lab: LabContext, studyId: string) {
   const study = await getStudyDetail(lab, studyId);
   const fit = study.latestFit;
-  const rows: unknown[][] = [['quantity', 'value', 'standard_error', 'interval95_lower', 'interval95_upper', 'unit']];
+  const rows: unknown[][] = [
+    ['quantity', 'value', 'standard_error', 'interval95_lower', 'interval95_upper', 'unit', 'standard_error_includes'],
+  ];
   const units: Record<string, string> = {
     kSv: UNITS.perMolar,
     kq: UNITS.perMolarPerSecond,
@@ -79,12 +81,22 @@ export async function exportFitCsv(lab: LabContext, studyId: string) {
         estimate.interval95.lower,
         estimate.interval95.upper,
         units[name] ?? '',
+        estimate.includes ?? '',
       ]);
     }
     const stats = fit.result.statistics;
-    rows.push(['n', stats.n, '', '', '', ''], ['r_squared', stats.rSquared, '', '', '', '']);
+    rows.push(['n', stats.n, '', '', '', '']);
+    for (const line of rSquaredLines(stats)) rows.push([line.key, line.value, '', '', '', '', line.label]);
     if (fit.result.tau0)
-      rows.push(['tau0', fit.result.tau0.value, fit.result.tau0.standardError, '', '', UNITS.second]);
+      rows.push([
+        'tau0',
+        fit.result.tau0.value,
+        fit.result.tau0.standardError ?? '',
+        '',
+        '',
+        UNITS.second,
+        fit.result.tau0.source,
+      ]);
     if (fit.result.diffusionLimit)
       rows.push(
         ['k_diff', fit.result.diffusionLimit.value, '', '', '', UNITS.perMolarPerSecond],

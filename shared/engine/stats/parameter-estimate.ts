@@ -6,6 +6,8 @@ export interface ParameterEstimate {
   standardError: number;
   /** value -+ t(0.975, df) * standardError */
   interval95: { lower: number; upper: number };
+  /** what the standard error includes, in words (set by the study-fit pipeline for the screen and reports) */
+  includes?: string;
 }
 
 /**

@@ -12,7 +12,7 @@ import { referenceFromBlanks } from '../stern-volmer/reference-from-blanks';
 import { screenSeries } from '../stern-volmer/screen-series';
 import { fixedLineBand, freeLineBand, quadraticBand, type BandPoint } from './bands';
 import { correctPoint, type CorrectionSettings } from './corrections';
-import { diffusionLimitFor, rateConstant, tau0For, type KineticsSettings } from './kinetics';
+import { diffusionLimitFor, kqIncludes, rateConstant, tau0For, type KineticsSettings } from './kinetics';
 import { lifetimeAnalysis } from './lifetimes';
 
 /** The study settings the pipeline reads (a study row or its plain settings). */
@@ -112,18 +112,37 @@ export function fitStudy(
           : {
               absorbancesExcitation: used.map((entry) => entry.point.absorbanceExcitation ?? 0),
               absorbancesEmission: used.map((entry) => entry.point.absorbanceEmission ?? 0),
+              innerFilterCorrection: false,
             }),
       });
   flags.push(...(screen?.flags.filter((flag) => flag.severity === 'warning') ?? []));
   const i0 = isRatio
-    ? { value: 1, source: 'ratios entered as I0/I' }
+    ? { value: 1, source: 'ratios entered as I0/I', replicates: 0 }
     : (() => {
         const reference = referenceFromBlanks(x, values, settings.i0 ?? undefined, { field: 'i0', code: 'MISSING_I0' });
         return {
           value: reference.value,
           source: reference.source === 'given' ? 'entered with the study' : `mean of ${reference.replicates} blank(s)`,
+          replicates: reference.source === 'given' ? 0 : reference.replicates,
         };
       })();
+  // What the SE of a constant fitted to I0/I includes: only the straight-line fits widen it by
+  // I0's own uncertainty (withReferenceUncertainty, from two blanks or more).
+  const scatter = sigmas ? "the points' own uncertainties" : 'the scatter of the points';
+  const lineIncludes = isRatio
+    ? `${scatter} (ratios entered)`
+    : settings.i0 !== null
+      ? `${scatter}; I0 entered, taken as exact`
+      : i0.replicates >= 2
+        ? `${scatter} and I0 from ${i0.replicates} blanks`
+        : `${scatter}; I0 from a single blank, without uncertainty`;
+  const otherIncludes =
+    isRatio || settings.i0 !== null
+      ? lineIncludes
+      : i0.replicates >= 2
+        ? `${scatter}; I0 from ${i0.replicates} blanks, taken as exact in this model`
+        : `${scatter}; I0 from a single blank, without uncertainty`;
+  const including = (estimate: ParameterEstimate, includes: string): ParameterEstimate => ({ ...estimate, includes });
   const ratios = isRatio ? values : values.map((value) => i0.value / value);
   const sigmaRatios = sigmas && (isRatio ? sigmas : sigmas.map((sigma, i) => (ratios[i]! * sigma) / values[i]!));
 
@@ -133,7 +152,13 @@ export function fitStudy(
     lifetime: entry.point.lifetime,
   }));
   const axes = axesFor(Math.max(0, ...corrected.map((entry) => entry.concentration)));
-  const lifetime = lifetimeAnalysis(lifetimeSeries, settings.tau0, notes);
+  // Like with like: with the intensity line fixed through 1, the lifetime line is fixed too.
+  const lifetime = lifetimeAnalysis(
+    lifetimeSeries,
+    settings.tau0,
+    notes,
+    model === 'linear-fixed' ? 'fixed-at-one' : 'free',
+  );
   const tau0 = tau0For(settings, lifetime?.tau0 ?? null);
   const limit = diffusionLimitFor(settings, notes);
   const parameters: Record<string, ParameterEstimate> = {};
@@ -169,10 +194,10 @@ export function fitStudy(
           ...(settings.i0 !== null ? { i0: settings.i0 } : {}),
           intercept,
         });
-    parameters.kSv = fit.kSv;
-    if (fit.fittedIntercept) parameters.intercept = fit.fittedIntercept;
+    parameters.kSv = including(fit.kSv, lineIncludes);
+    if (fit.fittedIntercept) parameters.intercept = including(fit.fittedIntercept, lineIncludes);
     flags.push(...fit.flags);
-    kForRate = fit.kSv;
+    kForRate = parameters.kSv;
     const a = fit.fittedIntercept?.value ?? 1;
     fitted = (xi) => a + fit.kSv.value * xi;
     band = fit.fittedIntercept
@@ -186,6 +211,8 @@ export function fitStudy(
       n: fit.n,
       degreesOfFreedom: fit.degreesOfFreedom,
       rSquared: fit.rSquared,
+      rSquaredDefinition: fit.rSquaredDefinition,
+      rSquaredCentred: fit.rSquaredCentred,
       residualStandardDeviation: fit.residualStandardDeviation,
       curvature: fit.diagnosis.shape,
       curvaturePValue: fit.diagnosis.fTest?.pValue ?? null,
@@ -200,14 +227,15 @@ export function fitStudy(
       ...(maxDynamic ? { maxDynamicConstant: maxDynamic } : {}),
     });
     Object.assign(parameters, {
-      sum: fit.sum,
-      product: fit.product,
-      largerRoot: fit.largerRoot,
-      smallerRoot: fit.smallerRoot,
+      sum: including(fit.sum, otherIncludes),
+      product: including(fit.product, otherIncludes),
+      largerRoot: including(fit.largerRoot, otherIncludes),
+      smallerRoot: including(fit.smallerRoot, otherIncludes),
     });
     if (fit.assignment.kind === 'resolved') {
-      Object.assign(parameters, { kD: fit.assignment.kD, kS: fit.assignment.kS });
-      kForRate = fit.assignment.kD;
+      const kD = including(fit.assignment.kD, otherIncludes);
+      Object.assign(parameters, { kD, kS: including(fit.assignment.kS, otherIncludes) });
+      kForRate = kD;
     } else notes.push(fit.assignment.rule);
     fitted = (xi) => 1 + fit.sum.value * xi + fit.product.value * xi * xi;
     band = quadraticBand(x, ratios);
@@ -225,8 +253,11 @@ export function fitStudy(
       intensities: isRatio ? ratios.map((r) => 1 / r) : values,
       ...(isRatio ? { i0: 1 } : settings.i0 !== null ? { i0: settings.i0 } : {}),
     });
-    Object.assign(parameters, { kSv: fit.kSv, accessibleFraction: fit.accessibleFraction });
-    kForRate = fit.kSv;
+    Object.assign(parameters, {
+      kSv: including(fit.kSv, otherIncludes),
+      accessibleFraction: including(fit.accessibleFraction, otherIncludes),
+    });
+    kForRate = parameters.kSv!;
     const quenched = used.flatMap((entry, i) => (entry.concentration > 0 ? [i] : []));
     // I0/(I0 − I), or from a ratio r = I0/I: 1/(1 − 1/r) (Lehrer 1971).
     const modifiedY = (value: number) => (isRatio ? 1 / (1 - 1 / value) : fit.i0.value / (fit.i0.value - value));
@@ -244,6 +275,8 @@ export function fitStudy(
       n: fit.n,
       degreesOfFreedom: fit.degreesOfFreedom,
       rSquared: fit.line.rSquared,
+      rSquaredDefinition: 'centred',
+      rSquaredCentred: fit.line.rSquared,
       residualStandardDeviation: null,
       curvature: null,
       curvaturePValue: null,
@@ -253,12 +286,16 @@ export function fitStudy(
   let ratioToLimit: number | null = null;
   if (kForRate && tau0) {
     const rate = rateConstant(kForRate, statistics.degreesOfFreedom, tau0, limit);
-    parameters.kq = rate.kq;
+    parameters.kq = including(rate.kq, kqIncludes(kForRate.includes ?? scatter, tau0));
     ratioToLimit = rate.ratio;
     flags.push(...rate.flags);
   } else if (!tau0) notes.push('Enter tau0 (or add lifetimes with a blank) to turn K_SV into kq.');
-  if (lifetime && tau0)
-    parameters.kqFromLifetimes = rateConstant(lifetime.fit.kSv, lifetime.fit.degreesOfFreedom, tau0, limit).kq;
+  // kq from the lifetimes alone: the slope of 1/τ against [Q], so τ0 (the intercept) is not counted twice.
+  if (lifetime?.kq)
+    parameters.kqFromLifetimes = including(
+      lifetime.kq.kq,
+      'kq is the slope of 1/τ against [Q], so τ0 does not enter; the scatter of 1/τ about that line',
+    );
 
   const unique = [...new Map(flags.map((flag) => [flag.code, flag])).values()];
   return {
@@ -275,6 +312,7 @@ export function fitStudy(
       lifetime: lifetime
         ? {
             kSv: lifetime.fit.kSv,
+            intercept: lifetime.intercept,
             rSquared: lifetime.fit.rSquared,
             verdict: lifetime.verdict,
             points: lifetime.points,

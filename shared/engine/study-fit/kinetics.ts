@@ -50,14 +50,14 @@ export function diffusionLimitFor(
 export function rateConstant(
   k: ParameterEstimate,
   degreesOfFreedom: number,
-  tau0: { value: number; standardError: number },
+  tau0: { value: number; standardError: number | null },
   limit: { value: number } | null,
 ): { kq: ParameterEstimate; ratio: number | null; flags: QualityFlag[] } {
   const result = quenchingRateConstant({
     kSv: k.value,
     kSvStandardError: k.standardError,
     tau0: tau0.value,
-    tau0StandardError: tau0.standardError,
+    tau0StandardError: tau0.standardError ?? 0,
     ...(limit ? { diffusionLimit: limit.value } : {}),
   });
   const half = studentTQuantile975(degreesOfFreedom) * result.standardError;
@@ -72,26 +72,52 @@ export function rateConstant(
   };
 }
 
-/** The tau0 used for kq: entered (or from a lifetime record), else from the lifetime series' blanks. */
+/**
+ * The tau0 used for kq: entered (or from a lifetime record), else from the lifetime series' blanks.
+ * Its standard error is null, and its source says "without uncertainty", when none is known (typed
+ * without one, a record without one, or a single lifetime blank): it is then not silently exact.
+ */
 export function tau0For(
   settings: KineticsSettings,
-  lifetimeTau0: { value: number; relativeStandardError: number | null } | null,
+  lifetimeTau0: { value: number; relativeStandardError: number | null; replicates: number } | null,
 ): FitResult['tau0'] {
+  const without = ', without uncertainty';
   if (settings.tau0 !== null) {
+    const standardError = settings.tau0Uncertainty ?? null;
+    const source = settings.tau0LifetimeId ? 'lifetime record of the emitter' : 'entered with the study';
     return {
       value: settings.tau0,
-      standardError: settings.tau0Uncertainty ?? 0,
+      standardError,
       kind: settings.tau0LifetimeId ? 'lifetime-record' : 'entered',
-      source: settings.tau0LifetimeId ? 'lifetime record of the emitter' : 'entered with the study',
+      source: standardError === null ? `${source}${without}` : source,
     };
   }
   if (lifetimeTau0) {
+    const relative = lifetimeTau0.relativeStandardError;
+    const blanks = `${lifetimeTau0.replicates} lifetime blank${lifetimeTau0.replicates === 1 ? '' : 's'}`;
     return {
       value: lifetimeTau0.value,
-      standardError: lifetimeTau0.value * (lifetimeTau0.relativeStandardError ?? 0),
+      standardError: relative === null ? null : lifetimeTau0.value * relative,
       kind: 'lifetime-series',
-      source: 'lifetime series at zero quencher',
+      source: relative === null ? `${blanks} at zero quencher${without}` : `mean of ${blanks} at zero quencher`,
     };
   }
   return null;
+}
+
+/** "50 ns", "1.2 µs": a time for the notes on standard errors (three figures). */
+const time = (seconds: number) =>
+  seconds < 1e-6 ? `${Number((seconds * 1e9).toPrecision(3))} ns` : `${Number((seconds * 1e6).toPrecision(3))} µs`;
+
+/** What the standard error of kq = K / tau0 includes, in words, for the result and the screen. */
+export function kqIncludes(kIncludes: string, tau0: NonNullable<FitResult['tau0']>): string {
+  if (tau0.standardError === null || tau0.standardError === 0)
+    return `${kIncludes}; τ0 without uncertainty, so this covers K only`;
+  const from =
+    tau0.kind === 'lifetime-record'
+      ? 'τ0 from a lifetime record'
+      : tau0.kind === 'entered'
+        ? 'τ0 as entered'
+        : 'τ0 from the lifetime blanks';
+  return `${kIncludes}; ${from} (SE ${time(tau0.standardError)})`;
 }

@@ -98,7 +98,12 @@ describe('points -> engine', () => {
     const both = exact.map((p) => ({ ...p, lifetime: 1e-6 / (1 + 500 * p.concentration) }));
     const fit = fitStudy({ ...settings, tau0: null }, both, 'linear-free');
     expect(fit.result.lifetime!.kSv.value).toBeCloseTo(500, 6);
-    expect(fit.result.tau0).toMatchObject({ value: 1e-6, source: 'lifetime series at zero quencher' });
+    // One lifetime blank gives τ0 without an uncertainty of its own: said, not taken as exact.
+    expect(fit.result.tau0).toMatchObject({
+      value: 1e-6,
+      standardError: null,
+      source: '1 lifetime blank at zero quencher, without uncertainty',
+    });
     expect(fit.result.lifetime!.verdict).toMatch(/dynamic quenching/);
   });
 });

@@ -2,6 +2,8 @@ import type { StudyFit } from '@shared/schemas/study-fits';
 import type { Estimate } from '@shared/schemas/study-fits';
 import {
   fitParameterLines,
+  rSquaredLines,
+  tau0Text,
   formatDateTime,
   formatEstimate,
   formatInterval,
@@ -29,6 +31,7 @@ function Row({ label, estimate, unit }: { label: string; estimate: Estimate | un
             unit,
           )}
         </span>
+        {estimate.includes && <span className="block text-caption text-ink-500">SE includes {estimate.includes}</span>}
       </dd>
     </div>
   );
@@ -51,14 +54,15 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
       {rootNote && <p className="text-caption text-ink-500">{rootNote}</p>}
       <p>
         n = {statistics.n}
-        {statistics.rSquared !== null && <> · R² = {statistics.rSquared.toFixed(4)}</>}
+        {rSquaredLines(statistics).map((line) => (
+          <span key={line.key}>
+            {' '}
+            · {line.label} = {line.value.toFixed(4)}
+          </span>
+        ))}
         {statistics.curvature && <> · shape: {statistics.curvature}</>}
       </p>
-      {tau0 && (
-        <p>
-          τ0 = {formatEstimate(tau0.value * 1e9, tau0.standardError * 1e9, UNITS.nanosecond)} ({tau0.source})
-        </p>
-      )}
+      {tau0 && <p>τ0 = {tau0Text(tau0)}</p>}
       {diffusionLimit && (
         <p>
           Diffusion limit k_diff = {formatQuantity(diffusionLimit.value, UNITS.perMolarPerSecond)}
