@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Study } from '../../server/models';
 import { apiClient, createLabWithMembers } from '../support/accounts';
 import { exactPoints, studyBody } from '../support/studies';
 import { createTestApp } from '../support/test-app';
@@ -151,5 +152,21 @@ describe('tau0 from a lifetime record: PATCH /api/labs/:labId/studies/:studyId',
     });
     expect(linked.status).toBe(200);
     expect(linked.body).toMatchObject({ tau0: 1.2e-6, tau0Uncertainty: 3e-8, tau0LifetimeId: ids.lifetime });
+  });
+});
+
+describe('tau0 at fit time', () => {
+  it('when a linked study holds another number than its record (an older client copy), then the fit takes the record’s value and SE', async () => {
+    const study = (await create({ tau0LifetimeId: ids.lifetime })).body;
+    // A copy written before the server resolved the record: value and SE that are not the record's.
+    await Study.update({ tau0: 9.9e-6, tau0Uncertainty: null }, { where: { id: study.id } });
+    const fitted = await researcher
+      .patch(`${base}/studies/${study.id}/points`, { version: study.version, points: exactPoints })
+      .expect(200);
+    expect(fitted.body.latestFit.result.tau0).toMatchObject({
+      value: 1.2e-6,
+      standardError: 3e-8,
+      kind: 'lifetime-record',
+    });
   });
 });

@@ -16,11 +16,17 @@ export async function computeForStudy(
   model: FitModel,
   transaction?: Transaction,
 ): Promise<StudyFitOutcome> {
-  // The record behind tau0 is checked on every refit too: same lab, same emitter.
-  if (study.tau0LifetimeId) await lifetimeOfEmitter(study.labId, study.tau0LifetimeId, study.emitterId, transaction);
+  // The record behind tau0 is checked on every refit too (same lab, same emitter), and its value
+  // and SE are the ones fitted: never a number stored beside the link.
+  const record = study.tau0LifetimeId
+    ? await lifetimeOfEmitter(study.labId, study.tau0LifetimeId, study.emitterId, transaction)
+    : null;
+  const settings = record
+    ? { ...study.get({ plain: true }), tau0: record.value, tau0Uncertainty: record.uncertainty ?? null }
+    : study;
   const points = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
   try {
-    return fitStudy(study, points, model);
+    return fitStudy(settings, points, model);
   } catch (error) {
     if (error instanceof EngineError) {
       throw new AppError('fit_failed', `The series cannot be fitted: ${error.message}`, 422, [
