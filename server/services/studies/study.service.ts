@@ -1,10 +1,10 @@
-import type { Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import type { CreateStudyInput, UpdateStudyInput } from '@shared/schemas/studies';
 import { studySettingsIssues } from '@shared/schemas/studies';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import { DecayFile, DecaySet, Study, StudyFit, StudyPoint, StudyReview, StudyUpload, User } from '../../models';
+import { Study, StudyFit, type StudyPoint, type StudyReview, type StudyUpload } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, loadStudyWithNames, requireChangeable } from './study-access';
@@ -181,42 +181,76 @@ async function refitLegacyFit(lab: LabContext, studyId: string): Promise<boolean
   }
 }
 
+/** A row PostgreSQL turned into JSON (snake_case keys, timestamps as text) in the shape a model row has. */
+function modelShaped<T>(row: Record<string, unknown>): T {
+  const shaped: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(row)) {
+    const name = key.replace(/_([a-z0-9])/g, (_, letter: string) => letter.toUpperCase());
+    shaped[name] =
+      (name === 'createdAt' || name === 'updatedAt') && typeof value === 'string' ? new Date(value) : value;
+  }
+  return shaped as T;
+}
+
+type Named = { name: string | null };
+const byName = (name: unknown): Named | null => (typeof name === 'string' ? { name } : null);
+
+/**
+ * Everything of a study's detail besides the study row, as JSON built by PostgreSQL in one round
+ * trip: the next revision, decay file names, points, latest fit, uploads (never their bytes) and
+ * reviews, each with the person's name. Every column of points, fits and reviews comes along, so a
+ * column added later reaches the serialisers without a change here.
+ */
+const detailPartsSql = `
+  SELECT
+    (SELECT n.id FROM studies n WHERE n.previous_revision_id = $1 AND n.lab_id = $2 LIMIT 1) AS next_id,
+    (SELECT coalesce(json_agg(json_build_object('id', d.id, 'fileName', f.file_name)), '[]')
+       FROM decay_sets d LEFT JOIN decay_files f ON f.id = d.file_id
+      WHERE d.study_id = $1 AND d.lab_id = $2) AS decay_sets,
+    (SELECT coalesce(json_agg(p ORDER BY p.position), '[]') FROM study_points p WHERE p.study_id = $1) AS points,
+    (SELECT row_to_json(x) FROM (
+       SELECT f.*, c.name AS created_by_name FROM study_fits f LEFT JOIN users c ON c.id = f.created_by_id
+        WHERE f.id = (SELECT s.latest_fit_id FROM studies s WHERE s.id = $1 AND s.lab_id = $2)) x) AS latest_fit,
+    (SELECT coalesce(json_agg(x ORDER BY x.created_at DESC), '[]') FROM (
+       SELECT u.id, u.file_name, u.media_type, u.size, u.sha256, u.parse_status, u.parse_report, u.created_at,
+              b.name AS uploaded_by_name
+         FROM study_uploads u LEFT JOIN users b ON b.id = u.uploaded_by_id WHERE u.study_id = $1) x) AS uploads,
+    (SELECT coalesce(json_agg(x ORDER BY x.created_at ASC), '[]') FROM (
+       SELECT r.*, a.name AS author_name FROM study_reviews r LEFT JOIN users a ON a.id = r.author_id
+        WHERE r.study_id = $1) x) AS reviews`;
+
+type DetailParts = {
+  next_id: string | null;
+  decay_sets: Array<{ id: string; fileName: string | null }>;
+  points: Array<Record<string, unknown>>;
+  latest_fit: Record<string, unknown> | null;
+  uploads: Array<Record<string, unknown>>;
+  reviews: Array<Record<string, unknown>>;
+};
+
 export async function getStudyDetail(lab: LabContext, studyId: string, refitted = false): Promise<StudyDetail> {
-  const study = await loadStudyWithNames(lab, studyId);
-  // Plain rows (raw, nested includes): the answer is built from their fields, so Sequelize need not
-  // make model instances of every point, upload and review (its largest cost per read).
-  const [points, latestFit, uploads, reviews, next, decaySets] = await Promise.all([
-    StudyPoint.findAll({ where: { studyId }, order: [['position', 'ASC']], raw: true }),
-    study.latestFitId
-      ? StudyFit.findOne({
-          where: { id: study.latestFitId },
-          include: [{ model: User, as: 'createdBy', attributes: ['name'] }],
-          raw: true,
-          nest: true,
-        })
-      : null,
-    StudyUpload.findAll({
-      where: { studyId },
-      attributes: { exclude: ['content'] },
-      include: [{ model: User, as: 'uploadedBy', attributes: ['name'] }],
-      order: [['createdAt', 'DESC']],
-      raw: true,
-      nest: true,
-    }),
-    StudyReview.findAll({
-      where: { studyId },
-      include: [{ model: User, as: 'author', attributes: ['name'] }],
-      order: [['createdAt', 'ASC']],
-      raw: true,
-      nest: true,
-    }),
-    Study.findOne({ where: { previousRevisionId: studyId, labId: lab.id }, attributes: ['id'], raw: true }),
-    DecaySet.findAll({
-      where: { studyId, labId: lab.id },
-      attributes: ['id'],
-      include: [{ model: DecayFile, as: 'file', attributes: ['fileName'] }],
-    }),
+  // The study (404 when it is not this lab's) and the rest in two round trips asked together; the
+  // rest is read only by study id and lab, and thrown away if the study turns out not to be there.
+  const [study, [parts]] = await Promise.all([
+    loadStudyWithNames(lab, studyId),
+    Study.sequelize!.query<DetailParts>(detailPartsSql, { bind: [studyId, lab.id], type: QueryTypes.SELECT }),
   ]);
+  const points = parts!.points.map((row) => modelShaped<StudyPoint>(row));
+  const fitRow = parts!.latest_fit;
+  const latestFit = fitRow
+    ? modelShaped<StudyFit>({ ...fitRow, created_by: byName(fitRow.created_by_name), created_by_name: undefined })
+    : null;
+  const uploads = parts!.uploads.map((row) =>
+    modelShaped<StudyUpload>({ ...row, uploaded_by: byName(row.uploaded_by_name), uploaded_by_name: undefined }),
+  );
+  const reviews = parts!.reviews.map((row) =>
+    modelShaped<StudyReview>({ ...row, author: byName(row.author_name), author_name: undefined }),
+  );
+  const next = parts!.next_id ? { id: parts!.next_id } : null;
+  const decaySets = parts!.decay_sets.map((set) => ({
+    id: set.id,
+    file: set.fileName === null ? null : { fileName: set.fileName },
+  }));
   if (!refitted && latestFit && isLegacyResult(latestFit.result) && (await refitLegacyFit(lab, studyId)))
     return getStudyDetail(lab, studyId, true);
   const sources = new Map(decaySets.map((set) => [set.id, set.file?.fileName ?? 'decay file']));
