@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Compound, Lab, Study, StudyFit } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
 import { demoCompoundFamilies } from '../../server/seed/demo-library';
+import { demoStudies } from '../../server/seed/demo-studies';
 import { analyseSeries, listTemperatureSeries } from '../../server/services/mechanism/temperature-series.service';
 import { apiClient } from '../support/accounts';
 import { createTestApp } from '../support/test-app';
@@ -14,7 +15,9 @@ let names = new Map<string, string>();
 beforeAll(async () => {
   await seedDemoData(testApp.sequelize);
   const lab = await Lab.findOne({ where: { slug: demoLabs[0].slug } });
-  studies = await Study.findAll({ where: { labId: lab!.id } });
+  // Other test files in the same run add their own studies to the demo lab: read the seeded ones only.
+  const seededTitles = new Set(demoStudies.map((study) => study.title));
+  studies = (await Study.findAll({ where: { labId: lab!.id } })).filter((study) => seededTitles.has(study.title));
   names = new Map((await Compound.findAll({ where: { labId: lab!.id } })).map((c) => [c.id, c.name]));
 });
 
