@@ -123,6 +123,8 @@ describe('accounts in Chromium', () => {
     await page.getByRole('alert').waitFor();
     await shot(page, 'sign-in-refused.png');
     await page.getByRole('link', { name: 'Get a link to choose a new password' }).click();
+    // The sign-in screen has an E-mail field too: wait for the new screen (its code loads on demand) before typing.
+    await page.getByRole('heading', { name: 'Choose a new password' }).waitFor();
     await page.getByLabel('E-mail').fill(newcomer.email);
     await page.getByRole('button', { name: 'Send me a link' }).click();
     await page.getByText('If that address belongs to a Halflight account').waitFor();
