@@ -7,7 +7,8 @@ import {
 } from '@shared/engine';
 import type { DrivingForceResult, MissingInput, Pathway } from '@shared/schemas/driving-force';
 import type { LabContext } from '../../domain/lab-context';
-import type { Compound, ExcitedStateEnergy, RedoxPotential } from '../../models';
+import { AppError } from '../../lib/app-error';
+import { Compound, type ExcitedStateEnergy, type RedoxPotential } from '../../models';
 import { pickPotential } from './display-potential.service';
 import { pickEnergy } from './excited-state.service';
 import { findCompound, labDisplaySettings } from './library-access.service';
@@ -77,6 +78,48 @@ export async function drivingForce(lab: LabContext, query: Query): Promise<Drivi
   const { displayReference: reference } = await labDisplaySettings(lab.id);
   const potentials = await measurementsOf<RedoxPotential>('potential', lab.id, [emitter.id, quencher.id]);
   const energies = await measurementsOf<ExcitedStateEnergy>('energy', lab.id, [emitter.id]);
+  return drivingForceFrom(
+    { reference, compounds: new Map([emitter, quencher].map((c) => [c.id, c])), potentials, energies },
+    query,
+  );
+}
+
+/** What the driving force of a pair reads from the library: loaded once for many pairs by the comparison. */
+export interface DrivingForceInputs {
+  reference: string;
+  compounds: ReadonlyMap<string, Compound>;
+  /** Every potential of the compounds, and the E00 values of the emitters, oldest first. */
+  potentials: RedoxPotential[];
+  energies: ExcitedStateEnergy[];
+}
+
+/** The inputs for every pair among these compounds (emitters: those whose E00 is needed), in four queries. */
+export async function loadDrivingForceInputs(
+  lab: LabContext,
+  compoundIds: string[],
+  emitterIds: string[],
+): Promise<DrivingForceInputs> {
+  const [compounds, { displayReference: reference }, potentials, energies] = await Promise.all([
+    Compound.findAll({ where: { id: compoundIds, labId: lab.id } }),
+    labDisplaySettings(lab.id),
+    measurementsOf<RedoxPotential>('potential', lab.id, compoundIds),
+    measurementsOf<ExcitedStateEnergy>('energy', lab.id, emitterIds),
+  ]);
+  return { reference, compounds: new Map(compounds.map((compound) => [compound.id, compound])), potentials, energies };
+}
+
+/** drivingForce from inputs already loaded (no database work). */
+export function drivingForceFrom(inputs: DrivingForceInputs, query: Query): DrivingForceResult {
+  const compound = (id: string) => {
+    const found = inputs.compounds.get(id);
+    if (!found) throw new AppError('not_found', 'No compound with this id in this lab.', 404);
+    return found;
+  };
+  const emitter = compound(query.emitterId);
+  const quencher = compound(query.quencherId);
+  const { reference } = inputs;
+  const potentials = inputs.potentials;
+  const energies = inputs.energies.filter((energy) => energy.compoundId === emitter.id);
   const of = (compound: Compound) => potentials.filter((potential) => potential.compoundId === compound.id);
   const used = {
     emitterOxidation: pickPotential(of(emitter), 'oxidation', reference),
@@ -202,13 +245,19 @@ export interface StudyPair {
  * electron-transfer pathway, so pinning it highlights the more favourable one.
  */
 export async function drivingForceOfStudy(lab: LabContext, study: StudyPair): Promise<DrivingForceResult | null> {
+  const query = studyQuery(study);
+  return query ? drivingForce(lab, query) : null;
+}
+
+/** drivingForceOfStudy from inputs already loaded (loadDrivingForceInputs). */
+export function drivingForceOfStudyFrom(inputs: DrivingForceInputs, study: StudyPair): DrivingForceResult | null {
+  const query = studyQuery(study);
+  return query ? drivingForceFrom(inputs, query) : null;
+}
+
+function studyQuery(study: StudyPair): Query | null {
   if (!study.solventId || !(study.solventId in SOLVENTS)) return null;
   const pinned =
     study.pinnedMechanism === 'oxidative' || study.pinnedMechanism === 'reductive' ? study.pinnedMechanism : undefined;
-  return drivingForce(lab, {
-    emitterId: study.emitterId,
-    quencherId: study.quencherId,
-    solvent: study.solventId,
-    pinned,
-  });
+  return { emitterId: study.emitterId, quencherId: study.quencherId, solvent: study.solventId, pinned };
 }
