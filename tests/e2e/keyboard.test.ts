@@ -1,8 +1,10 @@
+import path from 'node:path';
+import { AxeBuilder } from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createLabWithMembers } from '../support/accounts';
 import type { TestUser } from '../support/accounts';
-import { launchBrowser } from '../support/browser';
+import { launchBrowser, signInThroughPage } from '../support/browser';
 import { startLiveServer } from '../support/live-server';
 
 /*
@@ -120,5 +122,68 @@ describe('keyboard and phone paths, in Chromium', () => {
     await page.emulateMedia({ reducedMotion: 'reduce' });
     expect(await animation()).toBe('none');
     await page.close();
+  });
+
+  it('when a file is uploaded with the keyboard only, then focus goes to the preview and then to the result, each announced, and axe passes', async () => {
+    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const page = await context.newPage();
+    await signInThroughPage(page, server.baseUrl, researcher);
+    // Set-up (not the path under test): an empty study made through the one-screen form.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
+    await page.getByRole('link', { name: 'New study' }).click();
+    await page.getByLabel('Emitter (required)').selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('New emitter name').fill('Keyboard-Ir');
+    await page.getByLabel('Quencher (required)').selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('New quencher name').fill('Keyboard-amine');
+    await page.getByLabel('Title').fill('Keyboard upload');
+    await page.getByRole('button', { name: 'Create study' }).click();
+    await page.getByRole('heading', { name: 'Keyboard upload', level: 1 }).waitFor();
+
+    const tabTo = async (wanted: RegExp, most = 80) => {
+      for (let presses = 0; presses < most; presses++) {
+        if (wanted.test(await focused(page))) return;
+        await page.keyboard.press('Tab');
+      }
+      throw new Error(`Tab never reached ${wanted} (last: ${await focused(page)})`);
+    };
+    const axeSerious = async () =>
+      (
+        await new AxeBuilder({ page })
+          .withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'])
+          .options({ rules: { 'label-content-name-mismatch': { enabled: true } } })
+          .analyze()
+      ).violations
+        .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
+        .map((violation) => `${violation.id}: ${violation.nodes.map((node) => node.target.join(' ')).join(', ')}`);
+
+    // Step 1, pick: Tab to the file control and open the browser's file dialog with the space bar.
+    await tabTo(/^input: Pick a file/);
+    expect(await axeSerious()).toEqual([]);
+    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.keyboard.press('Space')]);
+    // Invented test data: I0/I = 1 + 500 [Q] (tests/fixtures/uploads/README.md).
+    await chooser.setFiles(path.join(import.meta.dirname, '../fixtures/uploads/series-comma-mM.csv'));
+
+    // Step 2, preview: focus on what the file gave, and the notice area says it.
+    await page.waitForFunction(() => document.activeElement?.tagName === 'H3');
+    expect(await focused(page)).toMatch(/^h3: series-comma-mM\.csv: /);
+    await page
+      .getByRole('region', { name: /Notices/ })
+      .getByText(/series-comma-mM\.csv read: 6 points/)
+      .waitFor();
+    expect(await axeSerious()).toEqual([]);
+
+    // Step 3, confirm: onward with Tab to the button, Enter.
+    await tabTo(/^button: Use these points/);
+    await page.keyboard.press('Enter');
+
+    // Step 4, result: focus on the fitted result, and the notice area gives K_SV.
+    await page.waitForFunction(() => document.activeElement?.getAttribute('aria-label') === 'Result');
+    expect(await focused(page)).toMatch(/^section: Result/);
+    await page
+      .getByRole('region', { name: /Notices/ })
+      .getByText(/^Fitted: K_SV = /)
+      .waitFor();
+    expect(await axeSerious()).toEqual([]);
+    await context.close();
   });
 });

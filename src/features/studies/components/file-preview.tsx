@@ -1,9 +1,10 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { FileReading } from '@shared/schemas/file-reading';
 import type { UploadMapping, UploadQuestionCode } from '@shared/schemas/study-uploads';
 import { formatNumber } from '@shared/format';
 import { concentrationDisplayUnit, fromSi, unitLabel, type ConcentrationUnit } from '@shared/units/units';
 import { FormAlert } from '@/components/form-alert';
+import { notify } from '@/lib/notify';
 import { MappingEditor } from './mapping-editor';
 
 type Reading = Omit<FileReading, 'fileName' | 'size'>;
@@ -70,11 +71,20 @@ export function FilePreview({
   const unit = fileUnit(reading, mapping);
   // A file that names no concentration unit opens the columns and units: the choice is needed first.
   const [mappingOpen, setMappingOpen] = useState(mapping.layout === 'series' && mapping.concentrationUnit === null);
+  // The next step of an upload: focus goes to what the file gave, and the notice area says it
+  // (once per file; a changed mapping re-reads the same file and leaves the focus where it is).
+  const heading = useRef<HTMLHeadingElement>(null);
+  const summary = `${fileName} read: ${reading.pointCount} points, ${reading.problems.length} problems`;
+  const announced = useRef(summary);
+  useEffect(() => {
+    heading.current?.focus();
+    notify.note(announced.current);
+  }, [fileName]);
   return (
     <div className="space-y-3 rounded-md border border-paper-300 p-3">
-      <p className="text-body">
+      <h3 ref={heading} tabIndex={-1} className="text-body font-normal">
         <strong>{fileName}</strong>: {reading.format}, {reading.rowCount} rows.
-      </p>
+      </h3>
       {/* contain:inline-size: a many-column spectrum matrix scrolls here instead of widening the page */}
       <div className="max-h-48 overflow-auto [contain:inline-size]">
         <table aria-label="Parsed table" className="text-caption">

@@ -40,7 +40,7 @@ export function FilesList({
             {upload.uploadedBy ?? 'former member'}, {formatDateTime(upload.createdAt)}
           </span>
           {upload.problem && <span className="block text-caption text-brick-700">{upload.problem}</span>}
-          <span className="block truncate text-caption text-ink-300" title="SHA-256">
+          <span className="block truncate text-caption text-ink-600" title="SHA-256">
             {upload.sha256}
           </span>
         </li>
