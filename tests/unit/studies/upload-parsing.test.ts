@@ -147,4 +147,16 @@ describe('ragged rows are found before the delimiter is chosen', () => {
     const text = 'c;I\n0;100\n1\n2;80;7\n3;70\n4\n';
     await expect(readUpload('x.csv', Buffer.from(text))).rejects.toThrow(/^Row 3 has 1 cell .* Rows 4, 6 differ too\./);
   });
+  it('when exactly two rows are ragged, then the second is named in the singular', async () => {
+    const text = 'c (mM),I\n0,1000\n1\n2\n3,700\n';
+    await expect(readUpload('x.csv', Buffer.from(text))).rejects.toThrow(
+      'Row 3 has 1 cell where the header has 2 columns. Row 4 differs too. The file was read as comma-separated, as most of its lines are.',
+    );
+  });
+  it('when a tab file has a short row and a decimal comma, then it stays tab-separated and names the row', async () => {
+    const text = 'c (mM)\tI\n0\t1000,5\n1\n2\t700,1\n3\t650,2\n';
+    await expect(readUpload('x.tsv', Buffer.from(text))).rejects.toThrow(
+      'Row 3 has 1 cell where the header has 2 columns. The file was read as tab-separated, as most of its lines are.',
+    );
+  });
 });

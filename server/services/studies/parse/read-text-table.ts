@@ -118,7 +118,8 @@ function checkRagged(rows: RawTable['rows'], columns: number, delimiter: Delimit
   const more = ragged.length > MAX_NAMED_ROWS ? ` and ${ragged.length - MAX_NAMED_ROWS} more` : '';
   throw new ParseProblem(
     `Row ${first.line} has ${first.cells.length} cell${first.cells.length === 1 ? '' : 's'} where the header has ${columns} columns.` +
-      (others.length > 0 ? ` Rows ${others.join(', ')}${more} differ too.` : '') +
+      (others.length === 1 && more === '' ? ` Row ${others[0]} differs too.` : '') +
+      (others.length > 1 || more !== '' ? ` Rows ${others.join(', ')}${more} differ too.` : '') +
       ` The file was read as ${DELIMITER_NAMES[delimiter]}-separated, as most of its lines are.`,
     first.line,
   );
