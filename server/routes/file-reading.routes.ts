@@ -1,4 +1,4 @@
-import { fileReadingSchema, fileReadingMappingSchema } from '@shared/schemas/file-reading';
+import { fileReadingFieldsSchema, fileReadingSchema, fileReadingMappingSchema } from '@shared/schemas/file-reading';
 import { labParamsSchema } from '@shared/schemas/members';
 import { defineRoute } from '../http/define-route';
 import { AppError } from '../lib/app-error';
@@ -11,7 +11,7 @@ export const fileReadingRoutes = [
     method: 'post',
     path: '/api/labs/:labId/file-readings',
     summary:
-      'Read an instrument export without keeping it (multipart field "file", optional field "mapping" as JSON): the preview of a new study. Nothing is stored',
+      'Read an instrument export without keeping it (multipart field "file"; optional fields "mapping" as JSON, and the new study\'s "windowStart", "windowEnd" or "emissionWavelength" in nm, the default reduction of spectra): the preview of a new study. Nothing is stored',
     tags: ['studies'],
     access: { lab: 'researcher' },
     request: { params: labParamsSchema },
@@ -30,7 +30,16 @@ export const fileReadingRoutes = [
           `"${file.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
           415,
         );
-      const raw = (req.body as { mapping?: unknown } | undefined)?.mapping;
+      const fields = fileReadingFieldsSchema.safeParse(req.body ?? {});
+      if (!fields.success)
+        throw new AppError(
+          'invalid_field',
+          `The field ${String(fields.error.issues[0]?.path[0])} ${fields.error.issues[0]?.message ?? 'is not understood'}.`,
+          400,
+          fields.error.issues.map((issue) => ({ path: `body.${issue.path.join('.')}`, message: issue.message })),
+        );
+      const { windowStart, windowEnd, emissionWavelength } = fields.data;
+      const raw = fields.data.mapping;
       let mapping = null;
       if (typeof raw === 'string' && raw !== '') {
         let json: unknown;
@@ -48,7 +57,13 @@ export const fileReadingRoutes = [
           ]);
         mapping = parsed.data;
       }
-      res.json(await readFileForPreview(req.app.locals.services, file, mapping));
+      res.json(
+        await readFileForPreview(req.app.locals.services, file, mapping, {
+          windowStart,
+          windowEnd,
+          emissionWavelength,
+        }),
+      );
     },
   }),
 ];

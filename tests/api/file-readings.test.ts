@@ -34,6 +34,24 @@ describe('POST /api/labs/:labId/file-readings', () => {
     expect(await StudyUpload.count()).toBe(before);
   });
 
+  it('when the new study names an emission window, then the spectra are proposed over it, not over the whole range', async () => {
+    // tests/fixtures/uploads/README.md: spectrum-matrix.csv covers 450-550 nm.
+    const spectra = fs.readFileSync(path.join(import.meta.dirname, '..', 'fixtures', 'uploads', 'spectrum-matrix.csv'));
+    const read = (fields: Record<string, string>) => {
+      const request = researcher.agent.post(`/api/labs/${labId}/file-readings`).set('x-csrf-token', csrf);
+      for (const [name, value] of Object.entries(fields)) void request.field(name, value);
+      return request.attach('file', spectra, 'spectrum-matrix.csv');
+    };
+    const windowed = await read({ windowStart: '460', windowEnd: '540' });
+    expect(windowed.status, JSON.stringify(windowed.body)).toBe(200);
+    expect(windowed.body.mapping.reduction).toEqual({ kind: 'window', start: 460, end: 540 });
+    const atOne = await read({ emissionWavelength: '505' });
+    expect(atOne.body.mapping.reduction).toEqual({ kind: 'wavelength', at: 505 });
+    const refused = await read({ windowStart: 'wide' });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.details[0].path).toBe('body.windowStart');
+  });
+
   it('when the file is not one Halflight reads, then 415 names it and nothing is kept', async () => {
     const response = await researcher.agent
       .post(`/api/labs/${labId}/file-readings`)

@@ -1,6 +1,7 @@
 import type { FileReading } from '@shared/schemas/file-reading';
 import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { AppError } from '../../lib/app-error';
+import type { StudyReading } from './parse/propose-mapping';
 import type { UploadServices } from './study-upload.service';
 
 const PREVIEW_POINTS = 200;
@@ -14,8 +15,10 @@ export async function readFileForPreview(
   services: Pick<UploadServices, 'uploadReader'>,
   file: { originalname: string; buffer: Buffer },
   mapping: UploadMapping | null,
+  /** the emission window or wavelength typed for the new study: the default reduction of spectra */
+  study?: StudyReading,
 ): Promise<FileReading> {
-  const outcome = await services.uploadReader.read(file.originalname, file.buffer, mapping);
+  const outcome = await services.uploadReader.read(file.originalname, file.buffer, mapping, study);
   if (outcome.kind === 'limit')
     throw new AppError('upload_limit', outcome.message, outcome.limit === 'seconds' ? 422 : 413, [
       { path: 'file', message: `over the ${outcome.limit} limit` },

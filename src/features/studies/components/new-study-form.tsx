@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useCallback, useEffect, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import type { StudyFormOptions } from '@shared/schemas/studies';
 import type { FileReading } from '@shared/schemas/file-reading';
@@ -82,21 +82,41 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
     if (!getFieldState('tau0LifetimeId').isDirty) setValue('tau0LifetimeId', fitting?.id ?? '');
   }, [fitting?.id, setValue, getFieldState]);
 
-  const read = async (next: File, nextMapping: UploadMapping | null) => {
-    setReadError(null);
-    setProgress(0);
-    try {
-      const result = await readFile(memory.labId, next, nextMapping, setProgress);
-      setReading(result);
-      setMapping(result.mapping);
-      setAcknowledged([]);
-    } catch (error) {
-      setReading(null);
-      setReadError(error);
-    } finally {
-      setProgress(null);
-    }
+  // Spectra are proposed over the emission window (or wavelength) typed here, as for a kept study.
+  const studyReading = {
+    windowStart: values.windowStart ?? '',
+    windowEnd: values.windowEnd ?? '',
+    emissionWavelength: values.emissionWavelength ?? '',
   };
+  const readingKey = JSON.stringify(studyReading);
+  const [readWith, setReadWith] = useState<string | null>(null);
+  const [mappingChosen, setMappingChosen] = useState(false);
+  const read = useCallback(
+    async (next: File, nextMapping: UploadMapping | null, key: string) => {
+      setReadError(null);
+      setProgress(0);
+      setReadWith(key);
+      try {
+        const result = await readFile(memory.labId, next, nextMapping, JSON.parse(key), setProgress);
+        setReading(result);
+        setMapping(result.mapping);
+        setAcknowledged([]);
+      } catch (error) {
+        setReading(null);
+        setReadError(error);
+      } finally {
+        setProgress(null);
+      }
+    },
+    [memory.labId],
+  );
+  // A window typed after the file was dropped reads the spectra again, unless the person chose the reduction.
+  const proposedSpectra = reading?.mapping?.layout === 'spectrum' && !mappingChosen;
+  useEffect(() => {
+    if (!file || !proposedSpectra || readWith === null || readWith === readingKey) return;
+    const timer = setTimeout(() => void read(file, null, readingKey), 600);
+    return () => clearTimeout(timer);
+  }, [file, proposedSpectra, readWith, readingKey, read]);
 
   const unitOpen = mapping?.layout === 'series' && mapping.concentrationUnit === null;
   const ready =
@@ -163,7 +183,8 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
         disabled={isSubmitting}
         onFile={(next) => {
           setFile(next);
-          void read(next, null);
+          setMappingChosen(false);
+          void read(next, null, readingKey);
         }}
       />
       {readError !== null && <FormAlert>{describeError(readError)}</FormAlert>}
@@ -174,7 +195,8 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
           mapping={mapping}
           onMapping={(next) => {
             setMapping(next);
-            void read(file, next);
+            setMappingChosen(true);
+            void read(file, next, readingKey);
           }}
           acknowledged={acknowledged}
           onAcknowledged={setAcknowledged}
@@ -204,7 +226,11 @@ export function NewStudyForm({ options, memory, preset, onSubmit }: Props) {
         <span className="text-caption text-ink-600">
           {ready
             ? 'Creates the study, keeps the file as received and fits its points.'
-            : 'Without a file, add points on the study’s screen (type, paste or upload).'}
+            : unitOpen
+              ? 'The file’s points wait for their concentration unit (under “Columns and units”).'
+              : reading && reading.points.length > 0 && !allAcknowledged(reading, acknowledged)
+                ? 'The file’s points wait for each check above to be ticked.'
+                : 'Without a file, add points on the study’s screen (type, paste or upload).'}
         </span>
       </div>
     </form>
