@@ -13,13 +13,13 @@ export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: Deca
     <figure aria-label="Lifetime Stern–Volmer plot" className="space-y-2">
       <dl className="flex flex-wrap gap-6 text-body">
         <div>
-          <dt className="text-caption uppercase text-ink-500">τ0 from the blank decay</dt>
+          <dt className="text-caption text-ink-500">τ0 from the blank decay</dt>
           <dd aria-label="Decay τ0" className="font-bold tabular-nums">
             {formatNumber(sternVolmer.tau0.value * 1e9, 4)} ± {formatNumber(sternVolmer.tau0.standardError * 1e9, 2)} ns
           </dd>
         </div>
         <div>
-          <dt className="text-caption uppercase text-ink-500">Lifetime K_SV</dt>
+          <dt className="text-caption text-ink-500">Lifetime K_SV</dt>
           <dd aria-label="Lifetime K_SV" className="font-bold tabular-nums">
             {formatNumber(sternVolmer.kSv.value, 4)} ± {formatNumber(sternVolmer.kSv.standardError, 2)} M⁻¹
           </dd>

@@ -41,7 +41,7 @@ function OutcomesTable({
   return (
     <table aria-label="Fitted decays" className="w-full text-body">
       <thead>
-        <tr className="text-left text-caption uppercase text-ink-500">
+        <tr className="text-left text-caption text-ink-500">
           <th className="pr-3">Decay</th>
           <th className="pr-3">[Q] (mM)</th>
           <th className="pr-3">τ (ns)</th>
