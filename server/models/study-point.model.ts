@@ -17,6 +17,8 @@ export class StudyPoint extends Model<InferAttributes<StudyPoint>, InferCreation
   declare excluded: boolean;
   declare exclusionReason: string | null;
   declare uploadId: string | null;
+  /** the titration run the reading belongs to (1, 2, …); each run has its own I0 */
+  declare series: CreationOptional<number>;
   /** s, one standard error; set when the lifetime came from a fitted decay */
   declare lifetimeUncertainty: CreationOptional<number | null>;
   /** the decay set the lifetime was fitted from */
@@ -38,6 +40,7 @@ export class StudyPoint extends Model<InferAttributes<StudyPoint>, InferCreation
         excluded: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         exclusionReason: { type: DataTypes.TEXT, allowNull: true },
         uploadId: { type: DataTypes.UUID, allowNull: true },
+        series: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         lifetimeUncertainty: double(),
         lifetimeDecaySetId: { type: DataTypes.UUID, allowNull: true },
       },

@@ -49,7 +49,39 @@ export const fitResultSchema = z
       curvature: z.enum(['linear', 'upward', 'downward']).nullable(),
       curvaturePValue: z.number().nullable(),
     }),
-    reference: z.object({ kind: z.enum(['i0', 'ratio-data']), value: z.number(), source: z.string() }),
+    reference: z.object({
+      kind: z.enum(['i0', 'ratio-data', 'replicate-runs']),
+      value: z.number(),
+      source: z.string(),
+    }),
+    replicates: z
+      .object({
+        runs: z.array(
+          z.object({
+            series: z.number().int(),
+            value: z.number().describe("the run's I0"),
+            standardError: z.number().nullable(),
+            blanks: z.number().int(),
+          }),
+        ),
+        summary: z
+          .array(
+            z.object({ concentration: z.number(), n: z.number().int(), mean: z.number(), sd: z.number().nullable() }),
+          )
+          .describe('per concentration: readings, mean I0/I and its sample SD'),
+        weighting: z
+          .object({
+            source: z.enum(['point-uncertainties', 'replicate-scatter']),
+            weighted: estimateSchema,
+            unweighted: estimateSchema,
+            shift: z.number().describe('K_SV weighted − unweighted, M⁻¹'),
+            beyondStandardError: z.boolean(),
+            pointsWeighted: z.number().int(),
+          })
+          .nullable(),
+      })
+      .nullish()
+      .describe('several titration runs pooled, each by its own I0 (absent for one run)'),
     tau0: z
       .object({
         value: z.number(),

@@ -22,6 +22,13 @@ export const studyPointInputSchema = z
       .describe('1-sigma of the intensity (or ratio)'),
     excluded: z.boolean().default(false),
     exclusionReason: z.string().trim().max(500).nullable().default(null),
+    series: z
+      .number()
+      .int('a whole number')
+      .min(1, 'runs are numbered from 1')
+      .max(99)
+      .default(1)
+      .describe('the titration run (replicate) the reading belongs to; each run is normalised by its own I0'),
   })
   .superRefine((point, context) => {
     if (point.excluded && !point.exclusionReason) {
@@ -32,7 +39,7 @@ export const studyPointInputSchema = z
 export type StudyPointInput = z.input<typeof studyPointInputSchema>;
 export type StudyPointValues = z.output<typeof studyPointInputSchema>;
 
-/** The nine values a point holds: the one list every service copies a point by. */
+/** The ten values a point holds: the one list every service copies a point by. */
 export const POINT_VALUE_KEYS = [
   'concentration',
   'intensity',
@@ -43,6 +50,7 @@ export const POINT_VALUE_KEYS = [
   'uncertainty',
   'excluded',
   'exclusionReason',
+  'series',
 ] as const satisfies ReadonlyArray<keyof StudyPointValues>;
 
 /** A point with only its concentration: every measured value empty, not left out. */
@@ -56,9 +64,10 @@ export const pointAt = (concentration: number): StudyPointValues => ({
   uncertainty: null,
   excluded: false,
   exclusionReason: null,
+  series: 1,
 });
 
-/** A point's nine values (from a model row, a plain row or an input), nothing else. */
+/** A point's ten values (from a model row, a plain row or an input), nothing else. */
 export function pointValues(point: Pick<StudyPointValues, (typeof POINT_VALUE_KEYS)[number]>): StudyPointValues {
   const values: Partial<Record<(typeof POINT_VALUE_KEYS)[number], unknown>> = {};
   for (const key of POINT_VALUE_KEYS) values[key] = point[key];
@@ -91,6 +100,7 @@ export const studyPointSchema = z
     uncertainty: z.number().nullable(),
     excluded: z.boolean(),
     exclusionReason: z.string().nullable(),
+    series: z.number().int().describe('the titration run (replicate) the reading belongs to'),
     uploadId: z.string().nullable(),
     lifetimeUncertainty: z.number().nullable().describe('s, one standard error (lifetimes fitted from a decay)'),
     lifetimeSource: decaySourceSchema.nullable().describe('the decay set the lifetime was fitted from'),

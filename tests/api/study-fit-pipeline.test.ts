@@ -78,4 +78,15 @@ describe('one study-fit pipeline (issue 13, findings 11 and 12)', () => {
     expect(fits[1].result.plot.xAxis.label).toBe('[Q] (mM)');
     expect(fits[1].result.plot.excluded).toEqual([]);
   });
+
+  it('when a study holds two runs, then each keeps its run number and is divided by its own I0 (K_SV = 500 M^-1 by construction)', async () => {
+    const study = await newStudy();
+    // run 2: the same line with the lamp at 80 %, so one I0 for both runs would bend the pooled points
+    const points = [...exactPoints, ...exactPoints.map((p) => ({ ...p, intensity: p.intensity! * 0.8, series: 2 }))];
+    const detail = (await client.patch(`${base(study.id)}/points`, { version: 0, points }).expect(200)).body;
+    expect(detail.points.map((p: { series: number }) => p.series)).toEqual([1, 1, 1, 1, 1, 1, 2, 2, 2, 2, 2, 2]);
+    expect(detail.latestFit.kSv).toBeCloseTo(500, 6);
+    expect(detail.latestFit.result.replicates.runs.map((run: { value: number }) => run.value)).toEqual([1000, 800]);
+    expect(detail.latestFit.result.replicates.summary).toHaveLength(6);
+  });
 });

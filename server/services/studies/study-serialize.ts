@@ -94,6 +94,7 @@ export const toPoint = (study: Study, point: StudyPoint, sources: DecaySources =
     uncertainty: point.uncertainty,
     excluded: point.excluded,
     exclusionReason: point.exclusionReason,
+    series: point.series,
     uploadId: point.uploadId,
     lifetimeUncertainty: point.lifetimeUncertainty ?? null,
     lifetimeSource: decaySource(sources, point.lifetimeDecaySetId ?? null),

@@ -2,6 +2,8 @@ import type { FitModel } from '../../schemas/studies';
 import type { FitResult, PlotAxis } from '../../schemas/study-fits';
 import type { StudyPointValues } from '../../schemas/study-points';
 import { CONCENTRATION_UNITS, concentrationDisplayUnit, unitLabel } from '../../units/units';
+import { formatNumber } from '../../format';
+import { EngineError } from '../core/engine-error';
 import { qualityFlag, type QualityFlag } from '../flags/quality-flag';
 import type { ParameterEstimate } from '../stats/parameter-estimate';
 import { fitIntensitySternVolmer } from '../stern-volmer/fit-intensity-stern-volmer';
@@ -14,6 +16,7 @@ import { fixedLineBand, freeLineBand, quadraticBand, type BandPoint } from './ba
 import { correctPoint, type CorrectionSettings } from './corrections';
 import { diffusionLimitFor, kqIncludes, rateConstant, tau0For, type KineticsSettings } from './kinetics';
 import { lifetimeAnalysis } from './lifetimes';
+import { compareWeighting, poolReplicates, type PooledReplicates } from './replicates';
 
 /** The study settings the pipeline reads (a study row or its plain settings). */
 export interface StudyFitSettings extends KineticsSettings, CorrectionSettings {
@@ -48,6 +51,39 @@ function axesFor(largestConcentration: number): { concentration: PlotAxis; recip
     concentration: { label: `[Q] (${label})`, unit: label, scale: 1 / factor },
     reciprocal: { label: `1/[Q] (${label}⁻¹)`, unit: `${label}⁻¹`, scale: factor },
   };
+}
+
+/**
+ * The runs, the per-concentration mean ± SD, and, when the readings give weights (their own σ or
+ * the replicate scatter) and the model is a line, the weighted fit beside the unweighted one.
+ */
+function replicatesOf(
+  pooled: PooledReplicates,
+  model: FitModel,
+  notes: string[],
+): NonNullable<FitResult['replicates']> {
+  let weighting: NonNullable<FitResult['replicates']>['weighting'] = null;
+  if (pooled.weightSource && (model === 'linear-free' || model === 'linear-fixed')) {
+    try {
+      const comparison = compareWeighting(pooled, model === 'linear-free' ? 'free' : 'fixed-at-one');
+      weighting = {
+        source: pooled.weightSource,
+        weighted: comparison.weighted.kSv,
+        unweighted: comparison.unweighted.kSv,
+        shift: comparison.shift,
+        beyondStandardError: comparison.beyondStandardError,
+        pointsWeighted: comparison.pointsWeighted,
+      };
+      if (comparison.beyondStandardError)
+        notes.push(
+          `Weighting by ${pooled.weightSource === 'point-uncertainties' ? 'the readings’ uncertainties' : 'the replicate scatter'} moves K_SV by ${formatNumber(comparison.shift)} M⁻¹, more than its standard error (${formatNumber(comparison.unweighted.kSv.standardError)} M⁻¹); say which fit you report.`,
+        );
+    } catch (error) {
+      if (!(error instanceof EngineError)) throw error;
+      notes.push(`No weighted fit: ${error.message}`);
+    }
+  }
+  return { runs: pooled.i0, summary: pooled.summary, weighting };
 }
 
 /**
@@ -116,35 +152,80 @@ export function fitStudy(
             }),
       });
   flags.push(...(screen?.flags.filter((flag) => flag.severity === 'warning') ?? []));
+  // Replicate runs (more than one series): each normalised by its own I0, then fitted as ratios.
+  const runs = new Set(used.map((entry) => entry.point.series));
+  const pooled =
+    !isRatio && runs.size > 1
+      ? poolReplicates(
+          used.map((entry) => ({
+            series: entry.point.series,
+            concentration: entry.concentration,
+            intensity: entry.value,
+            uncertainty: entry.point.uncertainty,
+          })),
+          settings.i0 !== null ? { i0: settings.i0 } : undefined,
+        )
+      : null;
+  const asRatios = isRatio || pooled !== null;
   const i0 = isRatio
     ? { value: 1, source: 'ratios entered as I0/I', replicates: 0 }
-    : (() => {
-        const reference = referenceFromBlanks(x, values, settings.i0 ?? undefined, { field: 'i0', code: 'MISSING_I0' });
-        return {
-          value: reference.value,
-          source: reference.source === 'given' ? 'entered with the study' : `mean of ${reference.replicates} blank(s)`,
-          replicates: reference.source === 'given' ? 0 : reference.replicates,
-        };
-      })();
+    : pooled
+      ? { value: 1, source: `each of ${pooled.i0.length} runs by its own I0`, replicates: 0 }
+      : (() => {
+          const reference = referenceFromBlanks(x, values, settings.i0 ?? undefined, {
+            field: 'i0',
+            code: 'MISSING_I0',
+          });
+          return {
+            value: reference.value,
+            source:
+              reference.source === 'given' ? 'entered with the study' : `mean of ${reference.replicates} blank(s)`,
+            replicates: reference.source === 'given' ? 0 : reference.replicates,
+          };
+        })();
   // What the SE of a constant fitted to I0/I includes: only the straight-line fits widen it by
   // I0's own uncertainty (withReferenceUncertainty, from two blanks or more).
   const scatter = sigmas ? "the points' own uncertainties" : 'the scatter of the points';
   const lineIncludes = isRatio
     ? `${scatter} (ratios entered)`
-    : settings.i0 !== null
-      ? `${scatter}; I0 entered, taken as exact`
-      : i0.replicates >= 2
-        ? `${scatter} and I0 from ${i0.replicates} blanks`
-        : `${scatter}; I0 from a single blank, without uncertainty`;
+    : pooled
+      ? `${scatter}; each of ${pooled.i0.length} runs divided by its own I0, taken as exact`
+      : settings.i0 !== null
+        ? `${scatter}; I0 entered, taken as exact`
+        : i0.replicates >= 2
+          ? `${scatter} and I0 from ${i0.replicates} blanks`
+          : `${scatter}; I0 from a single blank, without uncertainty`;
   const otherIncludes =
-    isRatio || settings.i0 !== null
+    isRatio || pooled || settings.i0 !== null
       ? lineIncludes
       : i0.replicates >= 2
         ? `${scatter}; I0 from ${i0.replicates} blanks, taken as exact in this model`
         : `${scatter}; I0 from a single blank, without uncertainty`;
   const including = (estimate: ParameterEstimate, includes: string): ParameterEstimate => ({ ...estimate, includes });
-  const ratios = isRatio ? values : values.map((value) => i0.value / value);
-  const sigmaRatios = sigmas && (isRatio ? sigmas : sigmas.map((sigma, i) => (ratios[i]! * sigma) / values[i]!));
+  const ratios = isRatio
+    ? values
+    : pooled
+      ? pooled.ratios.map((entry) => entry.ratio)
+      : values.map((value) => i0.value / value);
+  const sigmaRatios =
+    sigmas &&
+    (isRatio
+      ? sigmas
+      : pooled
+        ? pooled.ratios.map((entry) => entry.sigma!)
+        : sigmas.map((sigma, i) => (ratios[i]! * sigma) / values[i]!));
+  // What the models fit: ratios when the study holds ratios or pools runs, else the intensities.
+  const fitValues = pooled ? ratios : values;
+  const runI0 = new Map(pooled?.i0.map((run) => [run.series, run.value]));
+  /** I0/I of a (left-out) reading: entered, or with its run's I0, or with the study's I0; null when its run has none. */
+  const ratioOf = (entry: { point: StudyFitPoint; value: number | null }) =>
+    isRatio
+      ? entry.value!
+      : pooled
+        ? runI0.has(entry.point.series)
+          ? runI0.get(entry.point.series)! / entry.value!
+          : null
+        : i0.value / entry.value!;
 
   // Lifetimes need no intensity correction, but their [Q] is diluted like the intensities' (shared/engine/README.md, section 4).
   const lifetimeSeries = included.map((entry) => ({
@@ -172,15 +253,14 @@ export function fitStudy(
   let plotY = ratios;
   let plotPositions = used.map((entry) => entry.point.position);
   // Left-out points on the same axes as the fitted ones: I0/I from the corrected value.
-  let excluded = leftOut.map((entry) => ({
-    position: entry.point.position,
-    x: entry.concentration,
-    y: isRatio ? entry.value! : i0.value / entry.value!,
-  }));
+  let excluded = leftOut.flatMap((entry) => {
+    const y = ratioOf(entry);
+    return y === null ? [] : [{ position: entry.point.position, x: entry.concentration, y }];
+  });
 
   if (model === 'linear-free' || model === 'linear-fixed') {
     const intercept = model === 'linear-free' ? 'free' : 'fixed-at-one';
-    const fit = isRatio
+    const fit = asRatios
       ? fitSternVolmer({
           concentrations: x,
           ratios,
@@ -250,8 +330,8 @@ export function fitStudy(
   } else {
     const fit = fitModifiedSternVolmer({
       concentrations: x,
-      intensities: isRatio ? ratios.map((r) => 1 / r) : values,
-      ...(isRatio ? { i0: 1 } : settings.i0 !== null ? { i0: settings.i0 } : {}),
+      intensities: asRatios ? ratios.map((r) => 1 / r) : values,
+      ...(asRatios ? { i0: 1 } : settings.i0 !== null ? { i0: settings.i0 } : {}),
     });
     Object.assign(parameters, {
       kSv: including(fit.kSv, otherIncludes),
@@ -260,13 +340,16 @@ export function fitStudy(
     kForRate = parameters.kSv!;
     const quenched = used.flatMap((entry, i) => (entry.concentration > 0 ? [i] : []));
     // I0/(I0 − I), or from a ratio r = I0/I: 1/(1 − 1/r) (Lehrer 1971).
-    const modifiedY = (value: number) => (isRatio ? 1 / (1 - 1 / value) : fit.i0.value / (fit.i0.value - value));
+    const modifiedY = (value: number) => (asRatios ? 1 / (1 - 1 / value) : fit.i0.value / (fit.i0.value - value));
     plotX = quenched.map((i) => 1 / x[i]!);
-    plotY = quenched.map((i) => modifiedY(values[i]!));
+    plotY = quenched.map((i) => modifiedY(fitValues[i]!));
     plotPositions = quenched.map((i) => used[i]!.point.position);
-    excluded = leftOut
-      .filter((entry) => entry.concentration > 0)
-      .map((entry) => ({ position: entry.point.position, x: 1 / entry.concentration, y: modifiedY(entry.value!) }));
+    excluded = leftOut.flatMap((entry) => {
+      const ratio = pooled ? ratioOf(entry) : entry.value;
+      return entry.concentration > 0 && ratio !== null
+        ? [{ position: entry.point.position, x: 1 / entry.concentration, y: modifiedY(ratio) }]
+        : [];
+    });
     fitted = (xi) => fit.line.intercept.value + fit.line.slope.value * xi;
     band = freeLineBand(plotX, plotY, undefined, Math.min(...plotX));
     yLabel = 'I0/(I0 − I)';
@@ -306,7 +389,12 @@ export function fitStudy(
     result: {
       parameters,
       statistics,
-      reference: { kind: isRatio ? 'ratio-data' : 'i0', value: i0.value, source: i0.source },
+      reference: {
+        kind: isRatio ? 'ratio-data' : pooled ? 'replicate-runs' : 'i0',
+        value: i0.value,
+        source: i0.source,
+      },
+      replicates: pooled && replicatesOf(pooled, model, notes),
       tau0,
       diffusionLimit: limit ? { ...limit, ratio: ratioToLimit } : null,
       lifetime: lifetime

@@ -52,6 +52,7 @@ describe('one pass per point (issue 13, finding 12)', () => {
         volumeAdded: volume,
         uncertainty: null,
         excluded: position === 4,
+        series: 1,
       };
     });
     vi.mocked(correctDilution).mockClear();

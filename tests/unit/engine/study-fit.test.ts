@@ -238,3 +238,39 @@ describe('left-out points with the dilution correction on (issue 13, finding 11)
     );
   });
 });
+
+describe('replicate runs in one study', () => {
+  // Invented runs of one pair: I = I0 / (1 + 400 [Q]) with lamp output I0 = 1000 (run 1) and 800 (run 2).
+  const qs = [0, 1e-3, 2e-3, 3e-3, 4e-3];
+  const runs = [1, 2].flatMap((series) =>
+    qs.map((q, i) =>
+      point((series - 1) * qs.length + i, q, (series === 1 ? 1000 : 800) / (1 + 400 * q), {
+        series,
+        excluded: series === 2 && q === 3e-3,
+      }),
+    ),
+  );
+
+  it('when two runs had different lamp output, then each is normalised by its own I0 and K_SV = 400 M^-1 (constructed)', () => {
+    const fit = fitStudy(settings, runs, 'linear-free');
+    expect(fit.kSv).toBeCloseTo(400, 8);
+    expect(fit.result.reference.kind).toBe('replicate-runs');
+    expect(fit.result.replicates!.runs.map((run) => run.value)).toEqual([1000, 800]);
+    expect(fit.result.replicates!.summary.find((row) => row.concentration === 3e-3)).toMatchObject({ n: 1 });
+    // the left-out run-2 reading, with run 2's own I0: 800 / (800 / 2.2) = 1 + 400 × 0.003 = 2.2
+    expect(fit.result.plot.excluded).toEqual([{ position: 8, x: 3e-3, y: expect.closeTo(2.2, 12) }]);
+    expect(fit.result.replicates!.weighting).toBeNull(); // no σ and no scatter: no weights
+  });
+
+  it('when the runs scatter, then the weighted fit by the replicate scatter is shown beside the unweighted one', () => {
+    const noisy = runs.map((p, i) => ({
+      ...p,
+      excluded: false,
+      intensity: p.intensity! * (1 + 0.02 * Math.sin(1.7 * i)), // invented scatter of about 2 %
+    }));
+    const fit = fitStudy(settings, noisy, 'linear-fixed');
+    const weighting = fit.result.replicates!.weighting!;
+    expect(weighting.source).toBe('replicate-scatter');
+    expect(weighting.shift).toBeCloseTo(weighting.weighted.value - weighting.unweighted.value, 9);
+  });
+});

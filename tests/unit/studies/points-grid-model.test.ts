@@ -20,6 +20,7 @@ const saved = (id: string, position: number, concentration: number, intensity: n
   uncertainty: null,
   excluded: false,
   exclusionReason: null,
+  series: 1,
   uploadId: null,
   lifetimeUncertainty: null,
   lifetimeSource: null,

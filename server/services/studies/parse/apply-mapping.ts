@@ -79,6 +79,7 @@ function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParsePr
       uncertainty: values.uncertainty ?? null,
       excluded: false,
       exclusionReason: null,
+      series: 1,
     };
   });
 }

@@ -2,7 +2,7 @@ import type { StudyPoint } from '@shared/schemas/study-points';
 import type { StudyPointInput } from '@shared/schemas/study-points';
 import { CONCENTRATION_UNITS, TIME_UNITS, VOLUME_UNITS, type ConcentrationUnit } from '@shared/units/units';
 
-/** Grid columns in order; lifetimes are typed in ns and volumes in µL, converted at save. */
+/** Grid columns in order; lifetimes are typed in ns and volumes in µL, converted at save; Run numbers replicate titrations (empty = 1). */
 export const gridColumns = [
   { key: 'concentration', label: 'Concentration' },
   { key: 'intensity', label: 'Intensity' },
@@ -11,6 +11,7 @@ export const gridColumns = [
   { key: 'absorbanceEmission', label: 'A at λem' },
   { key: 'volumeAdded', label: 'Added (µL)' },
   { key: 'uncertainty', label: 'Uncertainty' },
+  { key: 'series', label: 'Run' },
 ] as const;
 export type GridKey = (typeof gridColumns)[number]['key'];
 /** pointId: the saved point the row was loaded from (null for a typed or pasted row not yet saved). */
@@ -24,6 +25,7 @@ const scale = (unit: ConcentrationUnit): Record<GridKey, number> => ({
   absorbanceEmission: 1,
   volumeAdded: VOLUME_UNITS.uL,
   uncertainty: 1,
+  series: 1,
 });
 
 const show = (value: number | null, factor: number) =>
@@ -37,6 +39,7 @@ export const emptyRow = (): GridRow => ({
   absorbanceEmission: '',
   volumeAdded: '',
   uncertainty: '',
+  series: '',
   excluded: false,
   exclusionReason: '',
   pointId: null,
@@ -101,6 +104,8 @@ export function pointsFromRows(
       return {
         ...values,
         concentration: values.concentration ?? 0,
+        // an empty run cell is run 1 (one titration)
+        series: values.series ?? 1,
         excluded: row.excluded,
         exclusionReason: row.excluded ? row.exclusionReason || null : null,
       };

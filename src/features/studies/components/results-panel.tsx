@@ -10,6 +10,7 @@ import {
   formatQuantity,
   UNITS,
 } from '@shared/format';
+import { concentrationDisplayUnit, fromSi, unitLabel } from '@shared/units/units';
 import { modelLabels } from './format';
 
 function Row({ label, estimate, unit }: { label: string; estimate: Estimate | undefined; unit: string }) {
@@ -34,6 +35,57 @@ function Row({ label, estimate, unit }: { label: string; estimate: Estimate | un
         {estimate.includes && <span className="block text-caption text-ink-500">SE includes {estimate.includes}</span>}
       </dd>
     </div>
+  );
+}
+
+/** Several runs pooled: each run's I0, mean ± SD per concentration, and the weighted fit beside the unweighted one. */
+function Replicates({ replicates }: { replicates: NonNullable<StudyFit['result']['replicates']> }) {
+  const { runs, summary, weighting } = replicates;
+  const unit = concentrationDisplayUnit(Math.max(...summary.map((row) => row.concentration)));
+  return (
+    <section aria-label="Replicate runs" className="space-y-1">
+      <p>
+        {runs.length} runs, each divided by its own I0:{' '}
+        {runs.map((run) => `run ${run.series} ${formatQuantity(run.value, '')}`.trim()).join(', ')}
+      </p>
+      <table className="text-caption">
+        <thead>
+          <tr>
+            <th scope="col" className="pr-3 text-left">
+              [Q] ({unitLabel(unit)})
+            </th>
+            <th scope="col" className="pr-3 text-left">
+              n
+            </th>
+            <th scope="col" className="text-left">
+              I0/I mean ± SD
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {summary.map((row) => (
+            <tr key={row.concentration}>
+              <td className="pr-3">{formatQuantity(fromSi(row.concentration, unit), '')}</td>
+              <td className="pr-3">{row.n}</td>
+              <td>{row.sd === null ? formatQuantity(row.mean, '') : formatEstimate(row.mean, row.sd, '')}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {weighting && (
+        <p aria-label="Weighted fit">
+          Weighted by the {weighting.source === 'point-uncertainties' ? 'readings’ uncertainties' : 'replicate scatter'}{' '}
+          (Bevington &amp; Robinson, ch. 6): K_SV ={' '}
+          {formatEstimate(weighting.weighted.value, weighting.weighted.standardError, UNITS.perMolar)}; unweighted{' '}
+          {formatEstimate(weighting.unweighted.value, weighting.unweighted.standardError, UNITS.perMolar)}.{' '}
+          <strong>
+            {weighting.beyondStandardError
+              ? 'Weighting moves K_SV by more than its standard error.'
+              : 'Weighting moves K_SV by less than its standard error.'}
+          </strong>
+        </p>
+      )}
+    </section>
   );
 }
 
@@ -75,6 +127,7 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
           <span className="block text-caption text-ink-500">8RT/(3η), {diffusionLimit.basis}</span>
         </p>
       )}
+      {fit.result.replicates && <Replicates replicates={fit.result.replicates} />}
       {fit.result.lifetime?.verdict && <p className="font-bold">{fit.result.lifetime.verdict}</p>}
       {flags.length > 0 && (
         <ul aria-label="Flags" className="space-y-2">
