@@ -146,8 +146,18 @@ describe('keyboard and phone paths, in Chromium', () => {
       }
       throw new Error(`Tab never reached ${wanted} (last: ${await focused(page)})`);
     };
-    const axeSerious = async () =>
-      (
+    const axeSerious = async () => {
+      // A notice fading in is mid-transition (partly transparent): audit its contrast once it has settled.
+      await page.waitForFunction(() =>
+        document
+          .getAnimations()
+          .filter((animation) => {
+            const target = (animation.effect as KeyframeEffect | null)?.target;
+            return target instanceof Element && target.closest('[data-sonner-toaster]') !== null;
+          })
+          .every((animation) => animation.playState !== 'running'),
+      );
+      return (
         await new AxeBuilder({ page })
           .withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'])
           .options({ rules: { 'label-content-name-mismatch': { enabled: true } } })
@@ -155,6 +165,7 @@ describe('keyboard and phone paths, in Chromium', () => {
       ).violations
         .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
         .map((violation) => `${violation.id}: ${violation.nodes.map((node) => node.target.join(' ')).join(', ')}`);
+    };
 
     // Step 1, pick: Tab to the file control and open the browser's file dialog with the space bar.
     await tabTo(/^input: Pick a file/);
