@@ -19,6 +19,8 @@ export { addedQuadraticTerm, type AddedQuadraticTerm } from './stats/added-quadr
 export { solveLeastSquares, type LeastSquaresSolution } from './stats/solve-least-squares';
 export { studentTQuantile975, studentTTwoSidedPValue } from './stats/student-t';
 export { normalCdf } from './stats/normal-cdf';
+export { chiSquareUpperTail } from './stats/chi-square-upper-tail';
+export { singularValues } from './stats/singular-values';
 export { residualRunsTest, type RunsTestResult } from './stats/runs-test';
 export { extraSumOfSquaresFTest, type FTestResult } from './stats/extra-sum-of-squares-f-test';
 export type { ParameterEstimate } from './stats/parameter-estimate';
@@ -105,5 +107,18 @@ export {
   type TemperatureSeriesAnalysis,
   type TemperatureVerdict,
 } from './mechanism/analyse-temperature-series';
+export { spectralBands, type SpectralBand } from './mechanism/spectral-bands';
+export { testKsvHomogeneity, type KsvHomogeneity } from './mechanism/ksv-homogeneity';
+export { spectralComponents, type SpectralComponents } from './mechanism/spectral-components';
+export {
+  analyseSpectrumMatrix,
+  HOMOGENEITY_LEVEL,
+  WEAK_BAND_SHARE,
+  type BandSternVolmer,
+  type SpectrumMatrixAnalysis,
+  type SpectrumMatrixFlag,
+  type SpectrumMatrixFlagCode,
+  type SpectrumMatrixInput,
+} from './mechanism/analyse-spectrum-matrix';
 
 export * from './study-fit';
