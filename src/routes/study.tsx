@@ -15,7 +15,6 @@ import { useStudy } from '@/features/studies/api/get-study';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
 import { studiesKeys } from '@/features/studies/api/studies-keys';
 import { useUpdateStudy } from '@/features/studies/api/update-study';
-import '@/features/studies/components/chart-setup';
 import { FilesList } from '@/features/studies/components/files-list';
 import { FitControls } from '@/features/studies/components/fit-controls';
 import { CautionsOnce } from '@/features/studies/components/cautions-once';

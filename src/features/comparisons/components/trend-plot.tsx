@@ -1,22 +1,10 @@
 import { formatEstimate, UNITS } from '@shared/format';
-import {
-  Chart as ChartJS,
-  Legend,
-  LinearScale,
-  LineController,
-  LineElement,
-  PointElement,
-  ScatterController,
-  Tooltip,
-} from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import { useNavigate } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
 import { chartColours } from '@/components/chart-theme';
+import '@/components/scatter-chart';
 import { paths } from '@/lib/paths';
-
-// Everything this plot draws, registered here: the screen is loaded on its own, without the study plots' set-up.
-ChartJS.register(ScatterController, LineController, LinearScale, PointElement, LineElement, Tooltip, Legend);
 
 // Halflight palette, one hue per solvent (tailwind.config.ts: glow, ink, moss, brick).
 const hues = chartColours.series;

@@ -1,15 +1,11 @@
 import { Scatter } from 'react-chartjs-2';
-import { formatNumber, titled, UNITS } from '@shared/format';
+import { titled, UNITS } from '@shared/format';
 import type { TemperatureSeriesAnalysis } from '@shared/schemas/temperature-series';
-import { seriesColours } from './chart-setup';
+import { chartColours } from '@/components/chart-theme';
+import { linearAxis as axis } from '@/components/scatter-chart';
 
-const tick = (value: number | string) => (typeof value === 'number' ? formatNumber(value) : value);
-const axis = (title: string) => ({
-  type: 'linear' as const,
-  title: { display: true, text: title },
-  grid: { color: seriesColours.grid },
-  ticks: { callback: tick },
-});
+// Measured values in glow, the diffusion reference in ink, the Arrhenius line in moss (tailwind.config.ts).
+const seriesColours = { measured: chartColours.points, reference: chartColours.line, second: chartColours.series[2] };
 
 /**
  * K_SV(T) beside T/η(T) scaled to meet K_SV at the lowest temperature (dynamic quenching

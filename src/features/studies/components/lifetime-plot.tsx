@@ -2,7 +2,8 @@ import { useRef } from 'react';
 import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { FitResult } from '@shared/schemas/study-fits';
-import { paperBackground, plotColours } from './chart-setup';
+import { chartColours as plotColours } from '@/components/chart-theme';
+import { paperBackground } from '@/components/scatter-chart';
 import { figureFileName } from './figure-file-name';
 import { SavePngButton } from './save-png-button';
 

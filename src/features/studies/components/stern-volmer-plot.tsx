@@ -1,9 +1,9 @@
 import { useRef } from 'react';
-import type { Chart } from 'chart.js';
+import { Chart, Filler } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
-import { formatNumber } from '@shared/format';
 import type { FitResult } from '@shared/schemas/study-fits';
-import { paperBackground, plotColours } from './chart-setup';
+import { chartColours as plotColours } from '@/components/chart-theme';
+import { linearAxis as axis, paperBackground } from '@/components/scatter-chart';
 import { figureFileName } from './figure-file-name';
 import { SavePngButton } from './save-png-button';
 
@@ -14,14 +14,8 @@ interface Props {
   studyTitle: string;
 }
 
-// Tick labels with at most 3 significant figures, so tiny residuals read 2 × 10⁻⁸, not 2.00000000E-8.
-const tick = (value: number | string) => (typeof value === 'number' ? formatNumber(value) : value);
-const axis = (title: string) => ({
-  type: 'linear' as const,
-  title: { display: true, text: title },
-  grid: { color: plotColours.grid },
-  ticks: { callback: tick },
-});
+// The 95 % band is the area between its upper and lower lines.
+Chart.register(Filler);
 
 /**
  * Stern–Volmer plot with the fit line and its 95 % band, and the residuals beneath, drawn from the
