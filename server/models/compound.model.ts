@@ -1,13 +1,11 @@
-import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
+import { DataTypes } from 'sequelize';
+import type { CreationOptional, ForeignKey, Sequelize } from 'sequelize';
 import { compoundRoleHints } from '@shared/schemas/compound-role';
 import type { CompoundRoleHint } from '@shared/schemas/compound-role';
-import type { Lab } from './lab.model';
 import type { User } from './user.model';
+import { LabRecord, recordColumns } from './record';
 
-export class Compound extends Model<InferAttributes<Compound>, InferCreationAttributes<Compound>> {
-  declare id: CreationOptional<string>;
-  declare labId: ForeignKey<Lab['id']>;
+export class Compound extends LabRecord<Compound> {
   declare name: string;
   declare roleHint: CompoundRoleHint;
   declare smiles: CreationOptional<string | null>;
@@ -22,13 +20,11 @@ export class Compound extends Model<InferAttributes<Compound>, InferCreationAttr
   declare createdById: ForeignKey<User['id']> | null;
   /** Optimistic-lock counter: a stale edit gets 409. */
   declare version: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): void {
     Compound.init(
       {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        ...recordColumns(),
         name: { type: DataTypes.STRING(160), allowNull: false },
         roleHint: { type: DataTypes.ENUM(...compoundRoleHints), allowNull: false },
         smiles: { type: DataTypes.TEXT, allowNull: true },
@@ -39,8 +35,6 @@ export class Compound extends Model<InferAttributes<Compound>, InferCreationAttr
         tripletEnergySource: { type: DataTypes.TEXT, allowNull: true },
         charge: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'compounds', version: true },
     );

@@ -1,20 +1,12 @@
-import { DataTypes, Model } from 'sequelize';
-import type {
-  CreationOptional,
-  ForeignKey,
-  InferAttributes,
-  InferCreationAttributes,
-  NonAttribute,
-  Sequelize,
-} from 'sequelize';
+import { DataTypes } from 'sequelize';
+import type { CreationOptional, ForeignKey, NonAttribute, Sequelize } from 'sequelize';
 import type { Role } from '@shared/schemas/roles';
 import { roles } from '@shared/schemas/roles';
 import type { Lab } from './lab.model';
 import type { User } from './user.model';
+import { LabRecord, recordColumns } from './record';
 
-export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
-  declare id: CreationOptional<string>;
-  declare labId: ForeignKey<Lab['id']>;
+export class Invitation extends LabRecord<Invitation> {
   declare invitedById: ForeignKey<User['id']>;
   declare email: string;
   declare role: Role;
@@ -23,23 +15,19 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare expiresAt: Date;
   declare acceptedAt: CreationOptional<Date | null>;
   declare revokedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare lab?: NonAttribute<Lab>;
   declare invitedBy?: NonAttribute<User>;
 
   static initModel(sequelize: Sequelize): void {
     Invitation.init(
       {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        ...recordColumns(),
         email: { type: DataTypes.STRING(254), allowNull: false },
         role: { type: DataTypes.ENUM(...roles), allowNull: false },
         tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         expiresAt: { type: DataTypes.DATE, allowNull: false },
         acceptedAt: { type: DataTypes.DATE, allowNull: true },
         revokedAt: { type: DataTypes.DATE, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'invitations' },
     );

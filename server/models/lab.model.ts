@@ -1,8 +1,8 @@
-import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
+import { DataTypes } from 'sequelize';
+import type { CreationOptional, Sequelize } from 'sequelize';
+import { TimestampedRecord, recordColumns } from './record';
 
-export class Lab extends Model<InferAttributes<Lab>, InferCreationAttributes<Lab>> {
-  declare id: CreationOptional<string>;
+export class Lab extends TimestampedRecord<Lab> {
   declare name: string;
   declare slug: string;
   declare isDemo: CreationOptional<boolean>;
@@ -11,21 +11,17 @@ export class Lab extends Model<InferAttributes<Lab>, InferCreationAttributes<Lab
   /** Reference electrode in which the lab reads potentials (engine id, e.g. 'SCE', 'Fc+/Fc'). */
   declare displayReference: CreationOptional<string>;
   declare displaySolvent: CreationOptional<string>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): void {
     Lab.init(
       {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        ...recordColumns(),
         name: { type: DataTypes.STRING(160), allowNull: false },
         slug: { type: DataTypes.STRING(80), allowNull: false, unique: true },
         isDemo: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         requireTwoFactor: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         displayReference: { type: DataTypes.STRING(40), allowNull: false, defaultValue: 'SCE' },
         displaySolvent: { type: DataTypes.STRING(80), allowNull: false, defaultValue: 'acetonitrile' },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'labs' },
     );

@@ -1,7 +1,7 @@
-import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes } from 'sequelize';
+import { DataTypes } from 'sequelize';
+import type { CreationOptional, ForeignKey, Model } from 'sequelize';
 import type { Compound } from './compound.model';
-import type { Lab } from './lab.model';
+import { LabRecord, recordColumns } from './record';
 import type { User } from './user.model';
 
 /**
@@ -9,24 +9,18 @@ import type { User } from './user.model';
  * and compound it belongs to, where it came from, free notes, who entered it, the optimistic-lock
  * version and the timestamps. Each measurement model extends this and declares only its own fields.
  */
-export abstract class MeasurementModel<M extends Model> extends Model<InferAttributes<M>, InferCreationAttributes<M>> {
-  declare id: CreationOptional<string>;
-  declare labId: ForeignKey<Lab['id']>;
+export abstract class MeasurementModel<M extends Model> extends LabRecord<M> {
   declare compoundId: ForeignKey<Compound['id']>;
   declare source: CreationOptional<string | null>;
   declare notes: CreationOptional<string>;
   declare createdById: ForeignKey<User['id']> | null;
   declare version: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 /** The columns of MeasurementModel that are not foreign keys. Matches migration 0004. */
 export const measurementTrailAttributes = {
-  id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+  ...recordColumns(),
   source: { type: DataTypes.TEXT, allowNull: true },
   notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
   version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-  createdAt: DataTypes.DATE,
-  updatedAt: DataTypes.DATE,
 };

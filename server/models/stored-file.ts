@@ -1,15 +1,13 @@
-import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes } from 'sequelize';
-import type { Lab } from './lab.model';
+import { DataTypes } from 'sequelize';
+import type { CreationOptional, ForeignKey, Model } from 'sequelize';
+import { LabRecord, recordColumns } from './record';
 import type { User } from './user.model';
 
 /**
  * What every file Halflight keeps exactly as received has: its name, type, size and SHA-256, and
  * where its bytes are. The study uploads and the decay files extend it with their own columns.
  */
-export abstract class StoredFile<M extends Model> extends Model<InferAttributes<M>, InferCreationAttributes<M>> {
-  declare id: CreationOptional<string>;
-  declare labId: ForeignKey<Lab['id']>;
+export abstract class StoredFile<M extends Model> extends LabRecord<M> {
   declare fileName: string;
   declare mediaType: string;
   declare size: number;
@@ -19,8 +17,6 @@ export abstract class StoredFile<M extends Model> extends Model<InferAttributes<
   declare storageKey: string | null;
   declare content: Buffer | null;
   declare uploadedById: ForeignKey<User['id']> | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 /**
@@ -28,7 +24,7 @@ export abstract class StoredFile<M extends Model> extends Model<InferAttributes<
  * A fresh object per call: Sequelize's init writes into each attribute it is given.
  */
 export const storedFileColumns = () => ({
-  id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+  ...recordColumns(),
   fileName: { type: DataTypes.STRING(255), allowNull: false },
   mediaType: { type: DataTypes.STRING(120), allowNull: false },
   size: { type: DataTypes.INTEGER, allowNull: false },
@@ -36,6 +32,4 @@ export const storedFileColumns = () => ({
   storage: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'database' },
   storageKey: { type: DataTypes.STRING(512), allowNull: true },
   content: { type: DataTypes.BLOB, allowNull: true },
-  createdAt: DataTypes.DATE,
-  updatedAt: DataTypes.DATE,
 });

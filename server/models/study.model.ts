@@ -1,21 +1,12 @@
-import { DataTypes, Model } from 'sequelize';
-import type {
-  CreationOptional,
-  ForeignKey,
-  InferAttributes,
-  InferCreationAttributes,
-  NonAttribute,
-  Sequelize,
-} from 'sequelize';
+import { DataTypes } from 'sequelize';
+import type { CreationOptional, ForeignKey, NonAttribute, Sequelize } from 'sequelize';
 import type { FitModel, StudyStatus } from '@shared/schemas/studies';
 import type { Compound } from './compound.model';
-import type { Lab } from './lab.model';
 import type { User } from './user.model';
+import { LabRecord, recordColumns } from './record';
 
 /** One emitter against one quencher in one solvent at one temperature (units: s, L, mol/L, Pa s, K, nm). */
-export class Study extends Model<InferAttributes<Study>, InferCreationAttributes<Study>> {
-  declare id: CreationOptional<string>;
-  declare labId: ForeignKey<Lab['id']>;
+export class Study extends LabRecord<Study> {
   declare emitterId: ForeignKey<Compound['id']>;
   declare quencherId: ForeignKey<Compound['id']>;
   declare title: string;
@@ -55,8 +46,6 @@ export class Study extends Model<InferAttributes<Study>, InferCreationAttributes
   declare fitProblem: CreationOptional<string | null>;
   declare latestFitId: CreationOptional<string | null>;
   declare version: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare emitter?: NonAttribute<Compound>;
   declare quencher?: NonAttribute<Compound>;
   declare owner?: NonAttribute<User | null>;
@@ -65,7 +54,7 @@ export class Study extends Model<InferAttributes<Study>, InferCreationAttributes
     const double = () => ({ type: DataTypes.DOUBLE, allowNull: true });
     Study.init(
       {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        ...recordColumns(),
         title: { type: DataTypes.STRING(200), allowNull: false },
         solventId: { type: DataTypes.STRING(40), allowNull: true },
         customSolventName: { type: DataTypes.STRING(80), allowNull: true },
@@ -105,8 +94,6 @@ export class Study extends Model<InferAttributes<Study>, InferCreationAttributes
         fitProblem: { type: DataTypes.TEXT, allowNull: true },
         latestFitId: { type: DataTypes.UUID, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'studies' },
     );

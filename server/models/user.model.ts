@@ -1,8 +1,8 @@
-import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
+import { DataTypes } from 'sequelize';
+import type { CreationOptional, Sequelize } from 'sequelize';
+import { TimestampedRecord, recordColumns } from './record';
 
-export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
-  declare id: CreationOptional<string>;
+export class User extends TimestampedRecord<User> {
   declare email: string;
   declare name: string;
   declare passwordHash: string;
@@ -12,13 +12,11 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare totpEnabledAt: CreationOptional<Date | null>;
   /** The RFC 6238 time step of the last accepted code, so a code never works twice. */
   declare totpLastStep: CreationOptional<number | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): void {
     User.init(
       {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        ...recordColumns(),
         email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
         name: { type: DataTypes.STRING(120), allowNull: false },
         passwordHash: { type: DataTypes.STRING(100), allowNull: false },
@@ -26,8 +24,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         totpSecret: { type: DataTypes.STRING(64), allowNull: true },
         totpEnabledAt: { type: DataTypes.DATE, allowNull: true },
         totpLastStep: { type: DataTypes.BIGINT, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'users' },
     );
