@@ -6,20 +6,18 @@ import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { TextLink } from '@/components/text-link';
 import { useRequestPasswordReset } from '@/features/auth/api/request-password-reset';
-import { showServerErrors } from '@/lib/form-errors';
 import { paths } from '@/lib/paths';
 import { PublicScreen } from './public-screen';
 import { fieldsOf } from '@/lib/form-field';
+import { formSubmission } from '@/lib/form-submission';
 
 /** Ask for a link to choose a new password. The answer never says whether the address has an account. */
 export function ForgotPasswordRoute() {
   const requestReset = useRequestPasswordReset();
   const form = useForm({ resolver: zodResolver(requestPasswordResetSchema), defaultValues: { email: '' } });
-  const { errors } = form.formState;
   const field = fieldsOf(form);
-
-  const onSubmit = form.handleSubmit((values) =>
-    requestReset.mutate(values, { onError: (error) => showServerErrors(error, form.setError, ['email']) }),
+  const submit = formSubmission(form, ['email'], requestReset.isPending, (values, onError) =>
+    requestReset.mutate(values, { onError }),
   );
 
   return (
@@ -38,14 +36,7 @@ export function ForgotPasswordRoute() {
           the spam folder if nothing arrives within a few minutes.
         </FormAlert>
       ) : (
-        <FormShell
-          onSubmit={onSubmit}
-          problem={errors.root?.server?.message}
-          submitLabel="Send me a link"
-          pendingLabel="Sending…"
-          pending={requestReset.isPending}
-          wide
-        >
+        <FormShell {...submit} submitLabel="Send me a link" pendingLabel="Sending…" wide>
           <TextField label="E-mail" type="email" autoComplete="email" {...field('email')} />
         </FormShell>
       )}

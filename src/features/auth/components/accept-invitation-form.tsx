@@ -8,9 +8,9 @@ import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { NewPasswordFields } from './new-password-fields';
 import { sameTwice } from './same-twice';
-import { showServerErrors } from '@/lib/form-errors';
 import { useAcceptInvitation } from '../api/accept-invitation';
 import { fieldsOf } from '@/lib/form-field';
+import { formSubmission } from '@/lib/form-submission';
 
 // A new account chooses a password under the same rules as a reset; the two entries must agree.
 const newAccountSchema = joinWithNewAccountSchema
@@ -40,23 +40,12 @@ function ExistingAccountForm({ token, onJoined }: FormProps) {
     resolver: zodResolver(joinWithAccountSchema),
     defaultValues: { password: '' },
   });
-  const { errors } = form.formState;
   const field = fieldsOf(form);
-  const onSubmit = form.handleSubmit(({ password }) =>
-    accept.mutate(
-      { token, password },
-      { onSuccess: onJoined, onError: (error) => showServerErrors(error, form.setError, ['password']) },
-    ),
+  const submit = formSubmission(form, ['password'], accept.isPending, ({ password }, onError) =>
+    accept.mutate({ token, password }, { onSuccess: onJoined, onError }),
   );
   return (
-    <FormShell
-      onSubmit={onSubmit}
-      problem={errors.root?.server?.message}
-      submitLabel="Join with my account"
-      pendingLabel="Joining…"
-      pending={accept.isPending}
-      wide
-    >
+    <FormShell {...submit} submitLabel="Join with my account" pendingLabel="Joining…" wide>
       <p className="text-body text-ink-700">This address already has a Halflight account. Join with its password.</p>
       <TextField label="Password" type="password" autoComplete="current-password" {...field('password')} />
     </FormShell>
@@ -71,21 +60,11 @@ function NewAccountForm({ token, onJoined }: FormProps) {
   });
   const { errors } = form.formState;
   const field = fieldsOf(form);
-  const onSubmit = form.handleSubmit(({ name, password }) =>
-    accept.mutate(
-      { token, name, password },
-      { onSuccess: onJoined, onError: (error) => showServerErrors(error, form.setError, ['name', 'password']) },
-    ),
+  const submit = formSubmission(form, ['name', 'password'], accept.isPending, ({ name, password }, onError) =>
+    accept.mutate({ token, name, password }, { onSuccess: onJoined, onError }),
   );
   return (
-    <FormShell
-      onSubmit={onSubmit}
-      problem={errors.root?.server?.message}
-      submitLabel="Create my account and join"
-      pendingLabel="Joining…"
-      pending={accept.isPending}
-      wide
-    >
+    <FormShell {...submit} submitLabel="Create my account and join" pendingLabel="Joining…" wide>
       <TextField label="Your name" autoComplete="name" hint="As your lab mates will see it." {...field('name')} />
       <NewPasswordFields
         label="Password"

@@ -7,9 +7,9 @@ import { TextField } from '@/components/text-field';
 import { NewPasswordFields } from './new-password-fields';
 import { sameTwice } from './same-twice';
 import { ApiError } from '@/lib/api-client';
-import { showServerErrors } from '@/lib/form-errors';
 import { useChangePassword } from '../api/change-password';
 import { fieldsOf } from '@/lib/form-field';
+import { formSubmission } from '@/lib/form-submission';
 
 const passwordChangeFormSchema = changePasswordSchema
   .extend({ confirm: z.string() })
@@ -24,7 +24,8 @@ export function PasswordForm() {
   const { errors } = form.formState;
   const field = fieldsOf(form);
 
-  const onSubmit = form.handleSubmit(({ currentPassword, newPassword }) =>
+  const fields = ['currentPassword', 'newPassword'] as const;
+  const submit = formSubmission(form, fields, change.isPending, ({ currentPassword, newPassword }, onError) =>
     change.mutate(
       { currentPassword, newPassword },
       {
@@ -32,19 +33,17 @@ export function PasswordForm() {
         onError: (error) =>
           error instanceof ApiError && error.code === 'wrong_password'
             ? form.setError('currentPassword', { type: 'server', message: error.message })
-            : showServerErrors(error, form.setError, ['currentPassword', 'newPassword']),
+            : onError(error),
       },
     ),
   );
 
   return (
     <FormShell
-      onSubmit={onSubmit}
-      problem={errors.root?.server?.message}
+      {...submit}
       done={change.isSuccess && 'Password changed. Use the new one next time you sign in.'}
       submitLabel="Change password"
       pendingLabel="Changing…"
-      pending={change.isPending}
     >
       <TextField
         label="Current password"

@@ -3,32 +3,26 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { updateProfileSchema } from '@shared/schemas/auth';
 import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
-import { showServerErrors } from '@/lib/form-errors';
 import { useUpdateAccount } from '../api/update-account';
 import { fieldsOf } from '@/lib/form-field';
+import { formSubmission } from '@/lib/form-submission';
 
 /** The name lab mates see beside one's studies and reviews. */
 export function ProfileForm({ name, email }: { name: string; email: string }) {
   const update = useUpdateAccount();
   const form = useForm({ resolver: zodResolver(updateProfileSchema), defaultValues: { name } });
-  const { errors, isDirty } = form.formState;
+  const { isDirty } = form.formState;
   const field = fieldsOf(form);
-
-  const onSubmit = form.handleSubmit((values) =>
-    update.mutate(values, {
-      onSuccess: (user) => form.reset({ name: user.name }),
-      onError: (error) => showServerErrors(error, form.setError, ['name']),
-    }),
+  const submit = formSubmission(form, ['name'], update.isPending, (values, onError) =>
+    update.mutate(values, { onSuccess: (user) => form.reset({ name: user.name }), onError }),
   );
 
   return (
     <FormShell
-      onSubmit={onSubmit}
-      problem={errors.root?.server?.message}
+      {...submit}
       done={update.isSuccess && !isDirty && 'Name saved.'}
       submitLabel="Save name"
       pendingLabel="Saving…"
-      pending={update.isPending}
       disabled={!isDirty}
     >
       <p className="text-body text-ink-700">

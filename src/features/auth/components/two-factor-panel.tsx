@@ -9,6 +9,7 @@ import { Signal } from '@/components/signal';
 import { TextField } from '@/components/text-field';
 import { showServerErrors } from '@/lib/form-errors';
 import { fieldsOf } from '@/lib/form-field';
+import { formSubmission } from '@/lib/form-submission';
 import { AppCodeField } from './app-code-field';
 import { useConfirmTwoFactor, useDisableTwoFactor, useRenewRecoveryCodes, useStartTwoFactor } from '../api/two-factor';
 
@@ -67,7 +68,6 @@ function TurnOnTwoFactor({ onCodes }: { onCodes: (codes: string[]) => void }) {
   const confirm = useConfirmTwoFactor();
   const [setup, setSetup] = useState<TwoFactorSetup | null>(null);
   const form = useForm({ defaultValues: { code: '' } });
-  const { errors } = form.formState;
 
   if (!setup) {
     return (
@@ -83,20 +83,11 @@ function TurnOnTwoFactor({ onCodes }: { onCodes: (codes: string[]) => void }) {
       </div>
     );
   }
-  const onSubmit = form.handleSubmit(({ code }) =>
-    confirm.mutate(code.trim(), {
-      onSuccess: (answer) => onCodes(answer.recoveryCodes),
-      onError: (error) => showServerErrors(error, form.setError, ['code']),
-    }),
+  const submit = formSubmission(form, ['code'], confirm.isPending, ({ code }, onError) =>
+    confirm.mutate(code.trim(), { onSuccess: (answer) => onCodes(answer.recoveryCodes), onError }),
   );
   return (
-    <FormShell
-      onSubmit={onSubmit}
-      problem={errors.root?.server?.message}
-      submitLabel="Confirm and turn on"
-      pendingLabel="Checking…"
-      pending={confirm.isPending}
-    >
+    <FormShell {...submit} submitLabel="Confirm and turn on" pendingLabel="Checking…">
       <p className="text-body text-ink-700">
         Scan this with an authenticator app on your phone (any app for time-based codes), or type the key by hand. Then
         enter the 6-digit code it shows.

@@ -5,11 +5,11 @@ import { roleDescriptions } from '@shared/schemas/roles';
 import { FormShell } from '@/components/form-shell';
 import { TextField } from '@/components/text-field';
 import { ApiError } from '@/lib/api-client';
-import { showServerErrors } from '@/lib/form-errors';
 import { roleOptions } from '@/lib/role-labels';
 import { useInviteMember } from '../api/invite-member';
 import { describeMemberProblem } from './member-problem';
 import { fieldsOf } from '@/lib/form-field';
+import { formSubmission } from '@/lib/form-submission';
 
 /** Send someone an e-mail link that brings them into this lab with the chosen role. */
 export function InviteForm({ labId }: { labId: string }) {
@@ -21,20 +21,19 @@ export function InviteForm({ labId }: { labId: string }) {
   const { errors } = form.formState;
   const field = fieldsOf(form);
 
-  const onSubmit = form.handleSubmit((values) =>
+  const submit = formSubmission(form, ['email', 'role'], invite.isPending, (values, onError) =>
     invite.mutate(values, {
       onSuccess: (invitation) => form.reset({ email: '', role: invitation.role }),
       onError: (error) =>
         error instanceof ApiError && error.status === 400
-          ? showServerErrors(error, form.setError, ['email', 'role'])
+          ? onError(error)
           : form.setError('root.server', { type: 'server', message: describeMemberProblem(error) }),
     }),
   );
 
   return (
     <FormShell
-      onSubmit={onSubmit}
-      problem={errors.root?.server?.message}
+      {...submit}
       done={
         invite.isSuccess &&
         !errors.root &&
@@ -42,7 +41,6 @@ export function InviteForm({ labId }: { labId: string }) {
       }
       submitLabel="Send invitation"
       pendingLabel="Sending…"
-      pending={invite.isPending}
     >
       <TextField label="E-mail of the person to invite" type="email" autoComplete="off" {...field('email')} />
       <fieldset className="space-y-2">
