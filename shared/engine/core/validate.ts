@@ -74,3 +74,17 @@ export function countDistinct(values: ArrayLike<number>): number {
   }
   return distinct;
 }
+
+/**
+ * The checks every least-squares fit makes of its data: y (and the weights, when given) have one
+ * entry per x, x and y are finite, and each weight is greater than zero.
+ */
+export function requireFitData(x: ArrayLike<number>, y: ArrayLike<number>, weights?: ArrayLike<number>): void {
+  requireSameLength(x, y, 'x', 'y');
+  requireFiniteArray(x, 'x');
+  requireFiniteArray(y, 'y');
+  if (weights) {
+    requireSameLength(x, weights, 'x', 'weights');
+    requirePositiveArray(weights, 'weights');
+  }
+}

@@ -1,16 +1,11 @@
 import { EngineError } from '../core/engine-error';
-import { requireFiniteArray, requirePositiveArray, requireSameLength } from '../core/validate';
+import { requireFitData, requireSameLength } from '../core/validate';
+import type { FitResiduals } from './fit-residuals';
 
 /** Least-squares line through the origin, y = slope * x. */
-export interface OriginLineFit {
+export interface OriginLineFit extends FitResiduals {
   slope: number;
   slopeStandardError: number;
-  residuals: number[];
-  residualSumOfSquares: number;
-  /** s = sqrt(SS_res / (n - 1)) */
-  residualStandardDeviation: number;
-  degreesOfFreedom: number;
-  n: number;
   /** uncentred, as NIST StRD uses without an intercept: 1 - SS_res / sum w_i y_i^2 */
   rSquared: number;
 }
@@ -35,12 +30,7 @@ export function fitLineThroughOrigin(
   requireSameLength(x, y, 'x', 'y');
   if (n < 2)
     throw new EngineError('TOO_FEW_POINTS', 'x', `a line through the origin needs at least 2 points, got ${n}`);
-  requireFiniteArray(x, 'x');
-  requireFiniteArray(y, 'y');
-  if (weights) {
-    requireSameLength(x, weights, 'x', 'weights');
-    requirePositiveArray(weights, 'weights');
-  }
+  requireFitData(x, y, weights);
   // Every index i below is < n = x.length; y and weights have n entries (checked just above).
   let sxx = 0;
   let sxy = 0;

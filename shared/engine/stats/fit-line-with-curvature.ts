@@ -1,23 +1,18 @@
 import { EngineError } from '../core/engine-error';
 import type { AddedQuadraticTerm } from './added-quadratic-term';
+import type { FitResiduals } from './fit-residuals';
 import { centredSums } from './centred-sums';
 import { residualSums } from './residual-sums';
 import type { PointScan } from './scan-points';
 
 /** A straight line, its residual sign runs and what an added x^2 term would change. */
-export interface LineWithCurvature {
+export interface LineWithCurvature extends FitResiduals {
   slope: number;
   /** 0 through the origin */
   intercept: number;
   slopeStandardError: number;
   /** 0 through the origin */
   interceptStandardError: number;
-  /** y - fitted, in input order (unweighted) */
-  residuals: number[];
-  residualSumOfSquares: number;
-  residualStandardDeviation: number;
-  degreesOfFreedom: number;
-  n: number;
   /** centred with an intercept, uncentred through the origin */
   rSquared: number;
   /** as addedQuadraticTerm; null when x^2 cannot be told apart from the line */

@@ -1,22 +1,15 @@
 import { EngineError } from '../core/engine-error';
-import { requireFiniteArray, requirePositiveArray, requireSameLength } from '../core/validate';
+import { requireFitData, requireSameLength } from '../core/validate';
+import type { FitResiduals } from './fit-residuals';
 
 /** Straight-line least-squares fit y = intercept + slope * x with its statistics. */
-export interface LineFit {
+export interface LineFit extends FitResiduals {
   slope: number;
   intercept: number;
   slopeStandardError: number;
   interceptStandardError: number;
   /** covariance of (slope, intercept), needed for quantities derived from both */
   slopeInterceptCovariance: number;
-  /** y - fitted, in the units of y (not weighted) */
-  residuals: number[];
-  /** sum of w_i r_i^2 (w_i = 1 unweighted) */
-  residualSumOfSquares: number;
-  /** s = sqrt(SS_res / (n - 2)) */
-  residualStandardDeviation: number;
-  degreesOfFreedom: number;
-  n: number;
   /** centred: 1 - SS_res / sum w_i (y_i - ybar_w)^2 */
   rSquared: number;
 }
@@ -41,12 +34,7 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, weights?: Ar
   requireSameLength(x, y, 'x', 'y');
   if (n < 3)
     throw new EngineError('TOO_FEW_POINTS', 'x', `a line with a free intercept needs at least 3 points, got ${n}`);
-  requireFiniteArray(x, 'x');
-  requireFiniteArray(y, 'y');
-  if (weights) {
-    requireSameLength(x, weights, 'x', 'weights');
-    requirePositiveArray(weights, 'weights');
-  }
+  requireFitData(x, y, weights);
   // Every index i below is < n = x.length; y and weights have n entries (checked just above).
   let sumW = 0;
   let sumWx = 0;

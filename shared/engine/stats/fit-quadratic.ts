@@ -1,20 +1,16 @@
 import { EngineError } from '../core/engine-error';
-import { requireFiniteArray, requirePositiveArray, requireSameLength } from '../core/validate';
+import { requireFitData } from '../core/validate';
+import type { FitResiduals } from './fit-residuals';
 import { solveLeastSquares } from './solve-least-squares';
 
 /** Quadratic least-squares fit y = b0 + b1 x + b2 x^2 (b0 = 0 when through the origin). */
-export interface QuadraticFit {
+export interface QuadraticFit extends FitResiduals {
   /** [b0, b1, b2]; b0 is exactly 0 for a fit through the origin */
   coefficients: [number, number, number];
   /** standard errors of [b0, b1, b2] (0 for a b0 that was not fitted) */
   standardErrors: [number, number, number];
   /** covariance of b1 and b2 */
   covarianceB1B2: number;
-  residuals: number[];
-  residualSumOfSquares: number;
-  residualStandardDeviation: number;
-  degreesOfFreedom: number;
-  n: number;
   /** centred with an intercept, uncentred through the origin (as NIST StRD) */
   rSquared: number;
 }
@@ -41,13 +37,7 @@ export function fitQuadratic(
 ): QuadraticFit {
   const { weights, throughOrigin = false } = options;
   const n = x.length;
-  requireSameLength(x, y, 'x', 'y');
-  requireFiniteArray(x, 'x');
-  requireFiniteArray(y, 'y');
-  if (weights) {
-    requireSameLength(x, weights, 'x', 'weights');
-    requirePositiveArray(weights, 'weights');
-  }
+  requireFitData(x, y, weights);
   const parameters = throughOrigin ? 2 : 3;
   if (n <= parameters) {
     throw new EngineError('TOO_FEW_POINTS', 'x', `a quadratic needs more than ${parameters} points, got ${n}`);
