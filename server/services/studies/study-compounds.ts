@@ -50,3 +50,27 @@ export async function resolveCompound(
   );
   return compound;
 }
+
+const sides = [
+  { idKey: 'emitterId', nameKey: 'newEmitterName', role: 'photocatalyst' },
+  { idKey: 'quencherId', nameKey: 'newQuencherName', role: 'quencher' },
+] as const;
+
+/**
+ * The emitter and quencher a study form names, each by id or by a new name (see resolveCompound),
+ * emitter first. A side the input does not name is left out of the answer (an update keeps it).
+ */
+export async function resolveStudyCompounds(
+  lab: LabContext,
+  input: { emitterId?: string | null; newEmitterName?: string; quencherId?: string | null; newQuencherName?: string },
+  actor: Actor,
+  transaction: Transaction,
+): Promise<{ emitterId?: string; quencherId?: string }> {
+  const chosen: { emitterId?: string; quencherId?: string } = {};
+  for (const { idKey, nameKey, role } of sides) {
+    const choice = { id: input[idKey], newName: input[nameKey] };
+    if (choice.id || choice.newName)
+      chosen[idKey] = (await resolveCompound(lab, choice, role, idKey, actor, transaction)).id;
+  }
+  return chosen;
+}

@@ -8,7 +8,7 @@ import { Study, StudyFit, type StudyPoint, type StudyReview, type StudyUpload } 
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, loadStudyWithNames, requireChangeable } from './study-access';
-import { resolveCompound } from './study-compounds';
+import { resolveStudyCompounds } from './study-compounds';
 import { refitStudy } from './study-fitting.service';
 import { resolveTau0 } from './study-tau0';
 import {
@@ -37,31 +37,18 @@ export async function createStudy(
   actor: SignedInActor,
 ) {
   const studyId = await sequelize.transaction(async (transaction) => {
-    const emitter = await resolveCompound(
-      lab,
-      { id: input.emitterId, newName: input.newEmitterName },
-      'photocatalyst',
-      'emitterId',
-      actor,
-      transaction,
-    );
-    const quencher = await resolveCompound(
-      lab,
-      { id: input.quencherId, newName: input.newQuencherName },
-      'quencher',
-      'quencherId',
-      actor,
-      transaction,
-    );
+    // The create schema requires an emitter and a quencher (by id or by a new name): both are found.
+    const compounds = await resolveStudyCompounds(lab, input, actor, transaction);
+    const emitterId = compounds.emitterId!;
     const { emitterId: _e, quencherId: _q, newEmitterName: _ne, newQuencherName: _nq, ...settings } = input;
-    const tau0 = await resolveTau0(lab, settings, null, emitter.id, transaction);
+    const tau0 = await resolveTau0(lab, settings, null, emitterId, transaction);
     const study = await Study.create(
       {
         ...settings,
         ...tau0,
         labId: lab.id,
-        emitterId: emitter.id,
-        quencherId: quencher.id,
+        emitterId,
+        quencherId: compounds.quencherId!,
         ownerId: actor.userId,
         previousRevisionId: null,
       },
@@ -94,34 +81,12 @@ export async function updateStudy(
     const study = await loadStudy(lab, studyId, transaction);
     requireChangeable(study, lab, actor.userId, input.version);
     const before = { ...settingsOf(study), emitterId: study.emitterId, quencherId: study.quencherId };
-    const { version: _v, emitterId, quencherId, newEmitterName, newQuencherName, ...changes } = input;
+    const { version: _v, emitterId: _e, quencherId: _q, newEmitterName: _ne, newQuencherName: _nq, ...changes } = input;
     const defined = Object.fromEntries(Object.entries(changes).filter(([, value]) => value !== undefined));
     const merged = { ...settingsOf(study), ...defined };
     const issues = studySettingsIssues(merged);
     if (issues.length) throw settingsIssuesError(issues);
-    const compounds: { emitterId?: string; quencherId?: string } = {};
-    if (emitterId || newEmitterName)
-      compounds.emitterId = (
-        await resolveCompound(
-          lab,
-          { id: emitterId, newName: newEmitterName },
-          'photocatalyst',
-          'emitterId',
-          actor,
-          transaction,
-        )
-      ).id;
-    if (quencherId || newQuencherName)
-      compounds.quencherId = (
-        await resolveCompound(
-          lab,
-          { id: quencherId, newName: newQuencherName },
-          'quencher',
-          'quencherId',
-          actor,
-          transaction,
-        )
-      ).id;
+    const compounds = await resolveStudyCompounds(lab, input, actor, transaction);
     const tau0 = await resolveTau0(
       lab,
       { tau0: changes.tau0, tau0Uncertainty: changes.tau0Uncertainty, tau0LifetimeId: changes.tau0LifetimeId },
