@@ -7,7 +7,7 @@ import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
 import { useSession } from '@/features/auth/api/get-session';
 import { useCompound } from '@/features/library/api/get-compound';
-import { useDeleteMeasurement } from '@/features/library/api/delete-measurement';
+import { useDeleteMeasurement, type MeasurementSegment } from '@/features/library/api/delete-measurement';
 import { useLabSettings } from '@/features/library/api/get-lab-settings';
 import { CompoundHeader } from '@/features/library/components/compound-header';
 import { EnergiesTable } from '@/features/library/components/energies-table';
@@ -44,6 +44,10 @@ export function CompoundDetailRoute() {
   const mayEdit = (record: { createdById: string | null }) => canCurate || (canAdd && record.createdById === user.id);
   const solvent = settings.data?.displaySolvent ?? 'acetonitrile';
   const isEmitter = data.roleHint !== 'quencher';
+  // What every measurement table of this compound is given; each adds its own records.
+  const table = { labId, compoundId: data.id, mayEdit, canCurate };
+  const deleteFrom = (segment: MeasurementSegment) => (record: { id: string; version: number }) =>
+    remove.mutate({ segment, id: record.id, version: record.version });
   return (
     <div className="max-w-6xl space-y-6">
       <CompoundHeader
@@ -65,14 +69,11 @@ export function CompoundDetailRoute() {
       {remove.isError && <FormAlert>{describeError(remove.error)}</FormAlert>}
       <Panel title="Redox potentials" aside={<Tag tone="neutral">{`shown vs ${data.displayReference}`}</Tag>}>
         <PotentialsTable
-          labId={labId}
-          compoundId={data.id}
+          {...table}
           defaultSolvent={solvent}
           potentials={data.potentials}
           displayReference={data.displayReference}
-          mayEdit={mayEdit}
-          canCurate={canCurate}
-          onDelete={(record) => remove.mutate({ segment: 'potentials', id: record.id, version: record.version })}
+          onDelete={deleteFrom('potentials')}
         />
         {canAdd && (
           <AddSection id="add-potential" title="Add a potential">
@@ -83,14 +84,7 @@ export function CompoundDetailRoute() {
       {isEmitter && <ExcitedStatePanel state={data.excitedState} />}
       {isEmitter && (
         <Panel title="E00 (excited-state energy)">
-          <EnergiesTable
-            labId={labId}
-            compoundId={data.id}
-            energies={data.energies}
-            mayEdit={mayEdit}
-            canCurate={canCurate}
-            onDelete={(record) => remove.mutate({ segment: 'energies', id: record.id, version: record.version })}
-          />
+          <EnergiesTable {...table} energies={data.energies} onDelete={deleteFrom('energies')} />
           {canAdd && (
             <AddSection id="add-e00" title="Add an E00 value">
               <EnergyForm labId={labId} compoundId={data.id} />
@@ -101,14 +95,11 @@ export function CompoundDetailRoute() {
       {isEmitter && (
         <Panel title="Excited-state lifetimes">
           <LifetimesTable
-            labId={labId}
-            compoundId={data.id}
+            {...table}
             userId={user.id}
             defaultSolvent={solvent}
             lifetimes={data.lifetimes}
-            mayEdit={mayEdit}
-            canCurate={canCurate}
-            onDelete={(record) => remove.mutate({ segment: 'lifetimes', id: record.id, version: record.version })}
+            onDelete={deleteFrom('lifetimes')}
             // A refit changes the study's fit and version, which the studies screens keep in their own cache.
             onStudyRefitted={() => void queryClient.invalidateQueries({ queryKey: studiesKeys.all })}
           />
