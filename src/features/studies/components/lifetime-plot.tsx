@@ -1,11 +1,7 @@
-import { useRef } from 'react';
-import type { Chart } from 'chart.js';
-import { Scatter } from 'react-chartjs-2';
 import type { FitResult } from '@shared/schemas/study-fits';
 import { chartColours as plotColours } from '@/components/chart-theme';
-import { paperBackground } from '@/components/scatter-chart';
 import { figureFileName } from './figure-file-name';
-import { SavePngButton } from './save-png-button';
+import { SavableScatter } from './savable-scatter';
 
 /** tau0/tau against [Q] with the line 1 + K_SV[Q] from the lifetime fit, on the stored series' axis. */
 export function LifetimePlot({
@@ -16,40 +12,33 @@ export function LifetimePlot({
   studyTitle: string;
 }) {
   const { label: xLabel, scale: xScale } = lifetime.xAxis;
-  const chart = useRef<Chart<'scatter'>>(null);
   const maxX = Math.max(...lifetime.points.map((p) => p.x));
   const line = [0, maxX].map((x) => ({ x: x * xScale, y: 1 + lifetime.kSv.value * x }));
   return (
     <figure aria-label="Lifetime plot" className="space-y-2">
-      <div className="flex justify-end">
-        <SavePngButton chart={chart} fileName={figureFileName(studyTitle, 'lifetimes')} what="lifetime plot" />
-      </div>
-      <div className="relative h-56">
-        <Scatter
-          ref={chart}
-          plugins={[paperBackground]}
-          aria-label={`Lifetime plot: τ0/τ against ${xLabel} with the fitted line; the lifetimes are in the points table`}
-          data={{
-            datasets: [
-              {
-                label: 'τ0/τ',
-                data: lifetime.points.map((p) => ({ x: p.x * xScale, y: p.y })),
-                backgroundColor: plotColours.points,
-                pointRadius: 5,
-              },
-              { showLine: true, label: 'Fit', data: line, borderColor: plotColours.line, pointRadius: 0 },
-            ],
-          }}
-          options={{
-            maintainAspectRatio: false,
-            animation: false,
-            scales: {
-              x: { type: 'linear', title: { display: true, text: xLabel } },
-              y: { title: { display: true, text: 'τ0/τ' } },
+      <SavableScatter
+        fileName={figureFileName(studyTitle, 'lifetimes')}
+        what="lifetime plot"
+        height="h-56"
+        label={`Lifetime plot: τ0/τ against ${xLabel} with the fitted line; the lifetimes are in the points table`}
+        data={{
+          datasets: [
+            {
+              label: 'τ0/τ',
+              data: lifetime.points.map((p) => ({ x: p.x * xScale, y: p.y })),
+              backgroundColor: plotColours.points,
+              pointRadius: 5,
             },
-          }}
-        />
-      </div>
+            { showLine: true, label: 'Fit', data: line, borderColor: plotColours.line, pointRadius: 0 },
+          ],
+        }}
+        options={{
+          scales: {
+            x: { type: 'linear', title: { display: true, text: xLabel } },
+            y: { title: { display: true, text: 'τ0/τ' } },
+          },
+        }}
+      />
     </figure>
   );
 }

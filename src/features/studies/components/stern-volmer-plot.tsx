@@ -1,11 +1,9 @@
-import { useRef } from 'react';
 import { Chart, Filler } from 'chart.js';
-import { Scatter } from 'react-chartjs-2';
 import type { FitResult } from '@shared/schemas/study-fits';
 import { chartColours as plotColours } from '@/components/chart-theme';
-import { linearAxis as axis, paperBackground } from '@/components/scatter-chart';
+import { linearAxis as axis } from '@/components/scatter-chart';
 import { figureFileName } from './figure-file-name';
-import { SavePngButton } from './save-png-button';
+import { SavableScatter } from './savable-scatter';
 
 interface Props {
   /** the stored plot series: points, line, left-out points and the axes with their units */
@@ -24,8 +22,6 @@ Chart.register(Filler);
 export function SternVolmerPlot({ plot, studyTitle }: Props) {
   const xLabel = plot.xAxis.label;
   const xScale = plot.xAxis.scale;
-  const main = useRef<Chart<'scatter'>>(null);
-  const residuals = useRef<Chart<'scatter'>>(null);
   const scaled = (points: Array<{ x: number; y: number }>) =>
     points.map((point) => ({ x: point.x * xScale, y: point.y }));
   const data = {
@@ -69,49 +65,31 @@ export function SternVolmerPlot({ plot, studyTitle }: Props) {
   const legend = { labels: { filter: (item: { text: string }) => item.text !== 'band lower' } };
   return (
     <figure aria-label="Stern–Volmer plot" className="space-y-2">
-      <div className="flex justify-end">
-        <SavePngButton chart={main} fileName={figureFileName(studyTitle, 'stern-volmer')} what="Stern–Volmer plot" />
-      </div>
-      <div className="relative h-72">
-        <Scatter
-          ref={main}
-          plugins={[paperBackground]}
-          aria-label={`Stern–Volmer plot: ${plot.yLabel} against ${xLabel}, the points used, the fitted line and its 95 % band; the values are in the points table`}
-          data={data}
-          options={{
-            maintainAspectRatio: false,
-            animation: false,
-            plugins: { legend },
-            scales: { x: axis(xLabel), y: axis(plot.yLabel) },
-          }}
-        />
-      </div>
-      <div className="flex justify-end">
-        <SavePngButton chart={residuals} fileName={figureFileName(studyTitle, 'residuals')} what="residual plot" />
-      </div>
-      <div className="relative h-32">
-        <Scatter
-          ref={residuals}
-          plugins={[paperBackground]}
-          aria-label={`Residuals of the fit against ${xLabel}`}
-          data={{
-            datasets: [
-              {
-                label: 'Residual',
-                data: scaled(plot.points.map((p) => ({ x: p.x, y: p.residual }))),
-                backgroundColor: plotColours.line,
-                pointRadius: 4,
-              },
-            ],
-          }}
-          options={{
-            maintainAspectRatio: false,
-            animation: false,
-            plugins: { legend: { display: false } },
-            scales: { x: axis(xLabel), y: axis('residual') },
-          }}
-        />
-      </div>
+      <SavableScatter
+        fileName={figureFileName(studyTitle, 'stern-volmer')}
+        what="Stern–Volmer plot"
+        height="h-72"
+        label={`Stern–Volmer plot: ${plot.yLabel} against ${xLabel}, the points used, the fitted line and its 95 % band; the values are in the points table`}
+        data={data}
+        options={{ plugins: { legend }, scales: { x: axis(xLabel), y: axis(plot.yLabel) } }}
+      />
+      <SavableScatter
+        fileName={figureFileName(studyTitle, 'residuals')}
+        what="residual plot"
+        height="h-32"
+        label={`Residuals of the fit against ${xLabel}`}
+        data={{
+          datasets: [
+            {
+              label: 'Residual',
+              data: scaled(plot.points.map((p) => ({ x: p.x, y: p.residual }))),
+              backgroundColor: plotColours.line,
+              pointRadius: 4,
+            },
+          ],
+        }}
+        options={{ plugins: { legend: { display: false } }, scales: { x: axis(xLabel), y: axis('residual') } }}
+      />
     </figure>
   );
 }

@@ -1,0 +1,41 @@
+import { useRef } from 'react';
+import type { Chart, ChartData, ChartOptions } from 'chart.js';
+import { Scatter } from 'react-chartjs-2';
+import { paperBackground } from '@/components/scatter-chart';
+import { SavePngButton } from './save-png-button';
+
+interface SavableScatterProps {
+  /** the saved file's name (see figureFileName) and what the plot is, for the buttons' labels */
+  fileName: string;
+  what: string;
+  /** the Tailwind height of the plot area, e.g. 'h-72' */
+  height: string;
+  /** what a screen reader says of the plot */
+  label: string;
+  data: ChartData<'scatter'>;
+  options: ChartOptions<'scatter'>;
+}
+
+/**
+ * A study plot with its save buttons above it: drawn on paper (so a saved PNG reads as on screen),
+ * without animation, filling the height it is given.
+ */
+export function SavableScatter({ fileName, what, height, label, data, options }: SavableScatterProps) {
+  const chart = useRef<Chart<'scatter'>>(null);
+  return (
+    <>
+      <div className="flex justify-end">
+        <SavePngButton chart={chart} fileName={fileName} what={what} />
+      </div>
+      <div className={`relative ${height}`}>
+        <Scatter
+          ref={chart}
+          plugins={[paperBackground]}
+          aria-label={label}
+          data={data}
+          options={{ maintainAspectRatio: false, animation: false, ...options }}
+        />
+      </div>
+    </>
+  );
+}
