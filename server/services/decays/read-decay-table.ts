@@ -1,12 +1,10 @@
 import path from 'node:path';
-import { convert, type Entry } from 'jcampconverter';
 import type { DecayColumn, DecayTimeUnit } from '@shared/schemas/decays';
 import { TIME_UNITS } from '@shared/units/units';
-import { checkJcamp } from '../studies/parse/check-jcamp';
+import { readJcampBlocks } from '../studies/parse/check-jcamp';
 import { concentrationInHeader, timeUnitOf } from '../studies/parse/header-units';
 import { parseCellNumber } from '../studies/parse/parse-number';
 import { cellProblem, ParseProblem } from '../studies/parse/parse-problem';
-import { decodeText } from '../studies/parse/read-text-table';
 import { JCAMP_EXTENSIONS, readUpload } from '../studies/parse/read-upload';
 import { limitMessage, UploadLimitExceeded, type UploadLimits } from '../studies/parse/upload-limits';
 
@@ -58,16 +56,7 @@ const JCAMP_TIME_UNITS: Record<string, DecayTimeUnit> = {
  * a text header.
  */
 function readJcampDecays(bytes: Buffer, limits: UploadLimits): DecayTable {
-  const text = decodeText(bytes).replace(/^\uFEFF/, '');
-  if (!text.trimStart().startsWith('##'))
-    throw new ParseProblem('This is not JCAMP-DX: the file should start with a ##TITLE= line.');
-  checkJcamp(bytes, text, limits);
-  let entries: Entry[];
-  try {
-    entries = convert(text, { keepRecordsRegExp: /.*/ }).flatten.filter((entry) => entry.spectra.length > 0);
-  } catch (error) {
-    throw new ParseProblem(`The JCAMP-DX file could not be read: ${(error as Error).message}`);
-  }
+  const entries = readJcampBlocks(bytes, limits);
   if (entries.length === 0) throw new ParseProblem('The JCAMP-DX file holds no data block (no ##XYDATA=).');
   let unit: DecayTimeUnit | null = null;
   let time: number[] = [];

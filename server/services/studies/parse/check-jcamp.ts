@@ -1,3 +1,6 @@
+import { convert, type Entry } from 'jcampconverter';
+import { ParseProblem } from './parse-problem';
+import { decodeText } from './read-text-table';
 import { checkLines } from './scan-lines';
 import { limitMessage, UploadLimitExceeded, type UploadLimits } from './upload-limits';
 
@@ -67,5 +70,22 @@ export function checkJcamp(bytes: Buffer, text: string, limits: UploadLimits): v
     filePoints += points;
     if (blockPoints > limits.spectrumPoints) refuse(blockPoints, false);
     if (filePoints > limits.cells) throw new UploadLimitExceeded('cells', limitMessage.cells(limits));
+  }
+}
+
+/**
+ * The data blocks of a JCAMP-DX file (IUPAC), read with jcampconverter once checkJcamp has let the
+ * file through: every block that holds at least one spectrum, in file order. The study reader
+ * takes spectra from them, the decay reader decays.
+ */
+export function readJcampBlocks(bytes: Buffer, limits: UploadLimits): Entry[] {
+  const text = decodeText(bytes).replace(/^\uFEFF/, '');
+  if (!text.trimStart().startsWith('##'))
+    throw new ParseProblem('This is not JCAMP-DX: the file should start with a ##TITLE= line.');
+  checkJcamp(bytes, text, limits);
+  try {
+    return convert(text, { keepRecordsRegExp: /.*/ }).flatten.filter((entry) => entry.spectra.length > 0);
+  } catch (error) {
+    throw new ParseProblem(`The JCAMP-DX file could not be read: ${(error as Error).message}`);
   }
 }

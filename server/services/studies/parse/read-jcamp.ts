@@ -1,8 +1,8 @@
-import { convert, type Entry } from 'jcampconverter';
-import { checkJcamp } from './check-jcamp';
+import type { Entry } from 'jcampconverter';
+import { readJcampBlocks } from './check-jcamp';
 import { concentrationInHeader } from './header-units';
 import { ParseProblem } from './parse-problem';
-import { decodeText, type RawTable } from './read-text-table';
+import type { RawTable } from './read-text-table';
 import { DEFAULT_UPLOAD_LIMITS, limitMessage, UploadLimitExceeded, type UploadLimits } from './upload-limits';
 
 /** ##XUNITS= values (JCAMP-DX 4.24 spells them out) -> wavelength in nm. */
@@ -90,17 +90,7 @@ function blockColumns(entry: Entry, index: number): Column[] {
  * grids share one wavelength column; a blank cell then means "not measured there".
  */
 export function readJcamp(bytes: Buffer, limits: UploadLimits = DEFAULT_UPLOAD_LIMITS): RawTable {
-  const text = decodeText(bytes).replace(/^\uFEFF/, '');
-  if (!text.trimStart().startsWith('##'))
-    throw new ParseProblem('This is not JCAMP-DX: the file should start with a ##TITLE= line.');
-  checkJcamp(bytes, text, limits);
-  let entries: Entry[];
-  try {
-    entries = convert(text, { keepRecordsRegExp: /.*/ }).flatten;
-  } catch (error) {
-    throw new ParseProblem(`The JCAMP-DX file could not be read: ${(error as Error).message}`);
-  }
-  const columns = entries.filter((entry) => entry.spectra.length > 0).flatMap(blockColumns);
+  const columns = readJcampBlocks(bytes, limits).flatMap(blockColumns);
   if (columns.length === 0)
     throw new ParseProblem('The JCAMP-DX file holds no spectrum (no ##XYDATA= or ##PEAK TABLE= block).');
   if (columns.length > limits.columns)
