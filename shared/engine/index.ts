@@ -25,7 +25,7 @@ export { residualRunsTest, type RunsTestResult } from './stats/runs-test';
 export { extraSumOfSquaresFTest, type FTestResult } from './stats/extra-sum-of-squares-f-test';
 export type { ParameterEstimate } from './stats/parameter-estimate';
 
-export { qualityFlag, type QualityFlag, type QualityFlagCode } from './flags/quality-flag';
+export { QUALITY_FLAG_CODES, qualityFlag, type QualityFlag, type QualityFlagCode } from './flags/quality-flag';
 
 export {
   fitSternVolmer,

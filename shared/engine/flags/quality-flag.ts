@@ -1,20 +1,22 @@
 /** The warnings the engine attaches to results. Codes are stable; texts are for people. */
-export type QualityFlagCode =
-  | 'KQ_ABOVE_DIFFUSION_LIMIT'
-  | 'INTERCEPT_FAR_FROM_ONE'
-  | 'FEW_CONCENTRATIONS'
-  | 'UPWARD_CURVATURE'
-  | 'DOWNWARD_CURVATURE'
-  | 'RESIDUAL_PATTERN'
-  | 'NON_POSITIVE_INTENSITY'
-  | 'NO_I0'
-  | 'INNER_FILTER_LARGE'
-  | 'LARGE_DILUTION'
-  | 'LIFETIME_STEEPER_THAN_INTENSITY'
-  | 'LOW_R_SQUARED'
-  | 'KSV_UNCERTAIN'
-  | 'RATIO_BELOW_ONE'
-  | 'QUENCHER_ABSORBS_UNCORRECTED';
+export const QUALITY_FLAG_CODES = [
+  'KQ_ABOVE_DIFFUSION_LIMIT',
+  'INTERCEPT_FAR_FROM_ONE',
+  'FEW_CONCENTRATIONS',
+  'UPWARD_CURVATURE',
+  'DOWNWARD_CURVATURE',
+  'RESIDUAL_PATTERN',
+  'NON_POSITIVE_INTENSITY',
+  'NO_I0',
+  'INNER_FILTER_LARGE',
+  'LARGE_DILUTION',
+  'LIFETIME_STEEPER_THAN_INTENSITY',
+  'LOW_R_SQUARED',
+  'KSV_UNCERTAIN',
+  'RATIO_BELOW_ONE',
+  'QUENCHER_ABSORBS_UNCORRECTED',
+] as const;
+export type QualityFlagCode = (typeof QUALITY_FLAG_CODES)[number];
 
 export interface QualityFlag {
   code: QualityFlagCode;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { linearRegression, rSquared } from 'simple-statistics';
-import { fitSternVolmer, qualityFlag, screenSeries, type QualityFlagCode } from '@shared/engine';
+import { fitSternVolmer, QUALITY_FLAG_CODES, qualityFlag, screenSeries } from '@shared/engine';
 import { qualityFlagSchema } from '@shared/schemas/quality-flag';
 import { expectClose } from './support/expect-close';
 
@@ -119,24 +119,7 @@ describe('quality flags on a poor series', () => {
   });
 
   it('when any flag is made, then it says what to do and fits the shared schema', () => {
-    const every: QualityFlagCode[] = [
-      'KQ_ABOVE_DIFFUSION_LIMIT',
-      'INTERCEPT_FAR_FROM_ONE',
-      'FEW_CONCENTRATIONS',
-      'UPWARD_CURVATURE',
-      'DOWNWARD_CURVATURE',
-      'RESIDUAL_PATTERN',
-      'NON_POSITIVE_INTENSITY',
-      'NO_I0',
-      'INNER_FILTER_LARGE',
-      'LARGE_DILUTION',
-      'LIFETIME_STEEPER_THAN_INTENSITY',
-      'LOW_R_SQUARED',
-      'KSV_UNCERTAIN',
-      'RATIO_BELOW_ONE',
-      'QUENCHER_ABSORBS_UNCORRECTED',
-    ];
-    for (const code of every) {
+    for (const code of QUALITY_FLAG_CODES) {
       const flag = qualityFlag(code);
       expect(flag.whatToDo.length, code).toBeGreaterThan(10);
       expect(qualityFlagSchema.parse(flag).whatToDo).toBe(flag.whatToDo);
