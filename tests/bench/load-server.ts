@@ -88,6 +88,25 @@ export async function startProductionServer(options: {
   };
 }
 
+/**
+ * The demo lab (slug demo-marram, from server/seed/demo.ts) and, first by name, one of its
+ * photocatalysts and one of its quenchers: what a benchmark's own study is made of.
+ */
+export async function demoLabPicks(server: {
+  query<T extends pg.QueryResultRow>(sql: string, values?: unknown[]): Promise<T[]>;
+}) {
+  const [lab] = await server.query<{ id: string }>("SELECT id FROM labs WHERE slug = 'demo-marram'");
+  const labId = lab!.id;
+  const firstOf = async (role: 'photocatalyst' | 'quencher') => {
+    const [compound] = await server.query<{ id: string }>(
+      'SELECT id FROM compounds WHERE lab_id = $1 AND role_hint = $2 ORDER BY name LIMIT 1',
+      [labId, role],
+    );
+    return compound!.id;
+  };
+  return { labId, emitterId: await firstOf('photocatalyst'), quencherId: await firstOf('quencher') };
+}
+
 /** Signs in through POST /api/session and returns the headers a browser would send. */
 export async function signIn(baseUrl: string, account: { email: string; password: string }) {
   const cookies = new Map<string, string>();

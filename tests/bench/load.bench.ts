@@ -27,7 +27,7 @@ import autocannon from 'autocannon';
 import { projectRoot } from '../../server/config/env';
 import { freePort } from '../support/free-port';
 import { generatedStudiesSql } from './load-data';
-import { signIn, startProductionServer } from './load-server';
+import { demoLabPicks, signIn, startProductionServer } from './load-server';
 
 const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 30);
 const connections = Number(process.env.BENCH_LOAD_CONNECTIONS ?? 200);
@@ -99,8 +99,7 @@ async function main() {
     nodeArgs: cpuProfileDir ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(cpuProfileDir)}`] : [],
   });
   try {
-    const [lab] = await server.query<{ id: string }>("SELECT id FROM labs WHERE slug = 'demo-marram'");
-    const labId = lab!.id;
+    const { labId, emitterId, quencherId } = await demoLabPicks(server);
     const t0 = performance.now();
     await server.query(generatedStudiesSql(), [labId, generated]);
     await server.query('ANALYZE');
@@ -115,21 +114,13 @@ async function main() {
       'SELECT id FROM studies WHERE lab_id = $1 AND latest_fit_id IS NOT NULL ORDER BY title LIMIT 2',
       [labId],
     );
-    const [emitter] = await server.query<{ id: string }>(
-      "SELECT id FROM compounds WHERE lab_id = $1 AND role_hint = 'photocatalyst' ORDER BY name LIMIT 1",
-      [labId],
-    );
-    const [quencher] = await server.query<{ id: string }>(
-      "SELECT id FROM compounds WHERE lab_id = $1 AND role_hint = 'quencher' ORDER BY name LIMIT 1",
-      [labId],
-    );
     const signedIn = await signIn(server.baseUrl, researcher);
     const lab_ = `/api/labs/${labId}`;
     const readMix: autocannon.Request[] = [
       { path: `${lab_}/studies` },
       { path: `${lab_}/studies?status=approved&sort=kq&pageSize=25` },
       { path: `${lab_}/studies/${demoStudies[0]!.id}` },
-      { path: `${lab_}/studies?emitterId=${emitter!.id}&solventId=acetonitrile` },
+      { path: `${lab_}/studies?emitterId=${emitterId}&solventId=acetonitrile` },
       { path: `${lab_}/compounds` },
       { path: `${lab_}/studies/${demoStudies[1]!.id}` },
       { path: `${lab_}/dashboard` },
@@ -163,8 +154,8 @@ async function main() {
             headers: { ...writeHeaders, 'content-type': 'application/json' },
             body: JSON.stringify({
               title: `Load bench study ${context.seed} (invented)`,
-              emitterId: emitter!.id,
-              quencherId: quencher!.id,
+              emitterId,
+              quencherId,
               solventId: 'acetonitrile',
               atmosphere: 'argon',
               degassingMethod: 'sparging',

@@ -18,7 +18,7 @@ import { pointAt } from '@shared/schemas/study-points';
 import { projectRoot } from '../../server/config/env';
 import { launchBrowser, signInThroughPage } from '../support/browser';
 import { freePort } from '../support/free-port';
-import { signIn, startProductionServer } from './load-server';
+import { demoLabPicks, signIn, startProductionServer } from './load-server';
 
 const runs = Number(process.env.BENCH_SCREEN_RUNS ?? 5);
 const pointCount = Number(process.env.BENCH_SCREEN_POINTS ?? 400);
@@ -59,16 +59,7 @@ async function main() {
   });
   const browser = await launchBrowser();
   try {
-    const [lab] = await server.query<{ id: string }>("SELECT id FROM labs WHERE slug = 'demo-marram'");
-    const labId = lab!.id;
-    const [emitter] = await server.query<{ id: string }>(
-      "SELECT id FROM compounds WHERE lab_id = $1 AND role_hint = 'photocatalyst' ORDER BY name LIMIT 1",
-      [labId],
-    );
-    const [quencher] = await server.query<{ id: string }>(
-      "SELECT id FROM compounds WHERE lab_id = $1 AND role_hint = 'quencher' ORDER BY name LIMIT 1",
-      [labId],
-    );
+    const { labId, emitterId, quencherId } = await demoLabPicks(server);
     const headers = { ...(await signIn(server.baseUrl, researcher)), 'content-type': 'application/json' };
     const api = `${server.baseUrl}/api/labs/${labId}/studies`;
     const created = await fetch(api, {
@@ -76,8 +67,8 @@ async function main() {
       headers,
       body: JSON.stringify({
         title: `Screen bench study, ${pointCount} points (invented)`,
-        emitterId: emitter!.id,
-        quencherId: quencher!.id,
+        emitterId,
+        quencherId,
         solventId: 'acetonitrile',
         atmosphere: 'argon',
         degassingMethod: 'sparging',
