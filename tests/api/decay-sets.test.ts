@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { pointAt } from '@shared/schemas/study-points';
 import { signedInResearcher, type ApiClient } from '../support/accounts';
 import { createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
@@ -236,15 +237,8 @@ describe('POST /api/labs/:labId/studies/:studyId/decay-sets', () => {
 
 /** Intensity points at the decays' concentrations, on the same invented K_SV (I0/I = 1 + 200 [Q]). */
 const intensityPoints = concentrationsMm.map((mM) => ({
-  concentration: mM * 1e-3,
+  ...pointAt(mM * 1e-3),
   intensity: 1000 / (1 + K_SV * mM * 1e-3),
-  lifetime: null,
-  absorbanceExcitation: null,
-  absorbanceEmission: null,
-  volumeAdded: null,
-  uncertainty: null,
-  excluded: false,
-  exclusionReason: null,
 }));
 
 interface PointAnswer {
