@@ -3,6 +3,8 @@ import type { Actor } from '../domain/actor';
 import {
   AuditEvent,
   Compound,
+  DecayFile,
+  DecaySet,
   ExcitedStateEnergy,
   ExcitedStateLifetime,
   RedoxPotential,
@@ -60,6 +62,8 @@ interface Hookable {
 const timestamped: Hookable[] = [
   AuditEvent,
   Compound,
+  DecayFile,
+  DecaySet,
   ExcitedStateEnergy,
   ExcitedStateLifetime,
   RedoxPotential,

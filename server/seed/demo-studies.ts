@@ -4,6 +4,7 @@ import type { FitModel } from '@shared/schemas/studies';
 import { Study, StudyPoint, StudyReview, type Lab, type User } from '../models';
 import { refitStudy } from '../services/studies/study-fitting.service';
 import type { DemoClock } from './demo-clock';
+import { demoDecayConcentrations, seedDemoDecays } from './demo-decays';
 import type { DemoLibrary } from './demo-library';
 
 /*
@@ -236,6 +237,20 @@ export const demoStudies: DemoStudy[] = [
     reviewer: 'tomasz',
   },
   {
+    key: 'ir-alkene-decays',
+    title: 'Demo: HL-Ir-7 (iridium) with the alkene Q-ene-6, lifetimes from decays',
+    emitter: 'HL-Ir-7',
+    quencher: 'Q-ene-6',
+    solventId: 'acetonitrile',
+    owner: 'priya',
+    tau0: 'record',
+    model: 'linear-free',
+    // Lifetimes and tau0 come from the demo decay set (demo-decays.ts), kept with the study a day later.
+    series: { concentrations: demoDecayConcentrations, ratio: line(700) },
+    notes: 'Demo data. Lifetimes and tau0 fitted from the invented TCSPC titration kept with the study.',
+    story: { started: 2 },
+  },
+  {
     key: 'ru-alkene-blocks',
     title: 'Demo: HL-Ru-4 (ruthenium) with the alkene Q-ene-6, residuals in blocks',
     emitter: 'HL-Ru-4',
@@ -380,6 +395,7 @@ export async function seedDemoStudies(
     if (!found) throw new Error(`The demo library has no compound named ${name}.`);
     return found;
   };
+  const created = new Map<string, Study>();
   for (const demo of [...demoStudies, ...temperatureSeries]) {
     const owner = people[demo.owner];
     const actor = { userId: owner.id, ip: null };
@@ -464,5 +480,8 @@ export async function seedDemoStudies(
     const lastChange = new Date(clock.now().getTime());
     await study.update({ status }, { transaction });
     await Study.update({ updatedAt: lastChange }, { where: { id: study.id }, silent: true, transaction });
+    created.set(demo.key, study);
   }
+  clock.set(1, 11);
+  await seedDemoDecays(transaction, lab, people.priya, created.get('ir-alkene-decays')!, clock);
 }

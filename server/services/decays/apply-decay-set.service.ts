@@ -1,9 +1,9 @@
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import { pointAt } from '@shared/schemas/study-points';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import type { SignedInActor } from '../../domain/actor';
-import { DecaySet, StudyPoint } from '../../models';
+import type { Actor, SignedInActor } from '../../domain/actor';
+import { DecaySet, StudyPoint, type Study } from '../../models';
 import { loadStudy, requireChangeable } from '../studies/study-access';
 import { storedSeriesPoint, writeSeries } from '../studies/study-points.service';
 import { fittedWithConcentration, tau0FromBlanks } from './decay-stern-volmer';
@@ -30,43 +30,61 @@ export async function applyDecaySet(
     requireChangeable(study, lab, actor.userId, input.version);
     const set = await DecaySet.findOne({ where: { id: setId, labId: lab.id, studyId }, transaction });
     if (!set) throw new AppError('not_found', 'No decay set with this id in this study.', 404);
-    const unplaced = set.outcomes.filter((outcome) => outcome.lifetime !== null && outcome.concentration === null);
-    if (unplaced.length > 0)
-      throw new AppError(
-        'concentration_needed',
-        `Nothing was saved: decay "${unplaced[0]!.label}" has no quencher concentration; keep the set again with the concentration given.`,
-        422,
-        unplaced.map((outcome) => ({ path: `decays.${outcome.index}.concentration`, message: 'missing' })),
-      );
-    const existing = await StudyPoint.findAll({ where: { studyId }, order: [['position', 'ASC']], transaction });
-    const points = existing.map(storedSeriesPoint);
-    const filled = new Set<number>();
-    for (const decay of fittedWithConcentration(set.outcomes)) {
-      const fromDecay = {
-        lifetime: decay.lifetime.value,
-        lifetimeUncertainty: decay.lifetime.standardError,
-        lifetimeDecaySetId: set.id,
-      };
-      const match = points.findIndex(
-        (point, i) => !filled.has(i) && sameConcentration(point.concentration, decay.concentration),
-      );
-      if (match !== -1) {
-        Object.assign(points[match]!, fromDecay);
-        filled.add(match);
-      } else {
-        filled.add(points.push({ ...pointAt(decay.concentration), uploadId: null, ...fromDecay }) - 1);
-      }
+    await placeDecaySet(study, set, actor, transaction);
+  });
+}
+
+/**
+ * The placing itself, inside the caller's transaction, for a study already checked as
+ * changeable (the demo seed uses it too): refused (422, nothing saved) when a fitted decay has
+ * no concentration.
+ */
+export async function placeDecaySet(
+  study: Study,
+  set: DecaySet,
+  actor: Actor,
+  transaction: Transaction,
+): Promise<void> {
+  const unplaced = set.outcomes.filter((outcome) => outcome.lifetime !== null && outcome.concentration === null);
+  if (unplaced.length > 0)
+    throw new AppError(
+      'concentration_needed',
+      `Nothing was saved: decay "${unplaced[0]!.label}" has no quencher concentration; keep the set again with the concentration given.`,
+      422,
+      unplaced.map((outcome) => ({ path: `decays.${outcome.index}.concentration`, message: 'missing' })),
+    );
+  const existing = await StudyPoint.findAll({
+    where: { studyId: study.id },
+    order: [['position', 'ASC']],
+    transaction,
+  });
+  const points = existing.map(storedSeriesPoint);
+  const filled = new Set<number>();
+  for (const decay of fittedWithConcentration(set.outcomes)) {
+    const fromDecay = {
+      lifetime: decay.lifetime.value,
+      lifetimeUncertainty: decay.lifetime.standardError,
+      lifetimeDecaySetId: set.id,
+    };
+    const match = points.findIndex(
+      (point, i) => !filled.has(i) && sameConcentration(point.concentration, decay.concentration),
+    );
+    if (match !== -1) {
+      Object.assign(points[match]!, fromDecay);
+      filled.add(match);
+    } else {
+      filled.add(points.push({ ...pointAt(decay.concentration), uploadId: null, ...fromDecay }) - 1);
     }
-    const tau0 = tau0FromBlanks(set.outcomes);
-    if (tau0)
-      await study.update(
-        { tau0: tau0.value, tau0Uncertainty: tau0.standardError, tau0LifetimeId: null, tau0DecaySetId: set.id },
-        { transaction },
-      );
-    await writeSeries(study, points, actor, transaction, {
-      action: 'study_lifetimes_from_decays',
-      decaySetId: set.id,
-      ...(tau0 ? { tau0 } : {}),
-    });
+  }
+  const tau0 = tau0FromBlanks(set.outcomes);
+  if (tau0)
+    await study.update(
+      { tau0: tau0.value, tau0Uncertainty: tau0.standardError, tau0LifetimeId: null, tau0DecaySetId: set.id },
+      { transaction },
+    );
+  await writeSeries(study, points, actor, transaction, {
+    action: 'study_lifetimes_from_decays',
+    decaySetId: set.id,
+    ...(tau0 ? { tau0 } : {}),
   });
 }

@@ -1,17 +1,10 @@
+import { seededRandom } from '../../../../server/lib/seeded-random';
+
 /**
- * Small seeded generators for synthetic test data: mulberry32 (a public-domain 32-bit
- * generator) and Box–Muller normal deviates. Same seed, same numbers, every run.
+ * Small seeded generators for synthetic test data: mulberry32 (one home, in server/lib, also
+ * used by the demo data) and Box–Muller normal deviates. Same seed, same numbers, every run.
  */
-export function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { seededRandom };
 
 export function seededNormal(seed: number): () => number {
   const uniform = seededRandom(seed);

@@ -1,0 +1,15 @@
+/**
+ * mulberry32, a small public-domain 32-bit generator: uniform numbers in [0, 1), the same for
+ * the same seed on every run. For invented data only (the demo's decays, synthetic test data);
+ * never for anything secret.
+ */
+export function seededRandom(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}

@@ -1,0 +1,138 @@
+import type { Transaction } from 'sequelize';
+import { ENGINE_VERSION } from '@shared/engine';
+import { decayReadOptionsSchema } from '@shared/schemas/decays';
+import { seededRandom } from '../lib/seeded-random';
+import { DecayFile, DecaySet, type Lab, type Study, type User } from '../models';
+import { placeDecaySet } from '../services/decays/apply-decay-set.service';
+import { fitDecaySet } from '../services/decays/fit-decay-set';
+import { readDecayTable } from '../services/decays/read-decay-table';
+import { sha256Of } from '../services/studies/files/raw-file-store';
+import { DEFAULT_UPLOAD_LIMITS } from '../services/studies/parse/upload-limits';
+import type { DemoClock } from './demo-clock';
+
+/*
+ * The demo's decay set: an INVENTED time-resolved titration, so a new person sees decays,
+ * their fits and the lifetime Stern–Volmer plot. Every number below is made up: a Gaussian
+ * instrument response, single exponentials tau = tau0 / (1 + K_SV [Q]) convolved with it,
+ * a few counts of background and Poisson-like noise from a fixed seed, so the file is the same
+ * on every load. Nothing here is a measurement.
+ */
+export const demoDecayFileName = 'demo-tcspc-titration.csv';
+const TAU0 = 1.9e-6; // s, as the emitter's demo lifetime record
+const K_SV = 700; // M^-1
+const CONCENTRATIONS_MM = [0, 0.5, 1, 2, 3, 4];
+const CHANNELS = 1024;
+const WIDTH = 10e-9; // s per channel
+const RESPONSE_CENTRE = 150e-9;
+const RESPONSE_FWHM = 25e-9;
+const PEAK = 10_000;
+const BACKGROUND = 3;
+
+/** A Poisson-like count: exact (Knuth) for small means, the normal approximation above 30. */
+function noisy(mean: number, random: () => number): number {
+  if (mean < 30) {
+    const limit = Math.exp(-mean);
+    let count = 0;
+    for (let product = random(); product > limit; product *= random()) count++;
+    return count;
+  }
+  const normal = Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
+  return Math.max(0, Math.round(mean + Math.sqrt(mean) * normal));
+}
+
+/** Steps per channel of the fine grid the invented curves are made on, then summed per channel. */
+const FINE = 16;
+
+/** Sums each channel's FINE steps: what a histogram channel collects. */
+const perChannel = (fine: number[]) =>
+  Array.from({ length: CHANNELS }, (_, i) => fine.slice(i * FINE, (i + 1) * FINE).reduce((sum, v) => sum + v, 0));
+
+/** The invented file: time (ns), the response, and one decay per concentration with [Q] in its header. */
+export function demoDecayFile(): Buffer {
+  const random = seededRandom(20261202);
+  const sigma = RESPONSE_FWHM / (2 * Math.sqrt(2 * Math.LN2));
+  const step = WIDTH / FINE;
+  const pulse = Array.from({ length: CHANNELS * FINE }, (_, i) =>
+    Math.exp(-(((i + 0.5) * step - RESPONSE_CENTRE) ** 2) / (2 * sigma ** 2)),
+  );
+  const response = perChannel(pulse);
+  const responseTop = Math.max(...response);
+  const columns = [
+    response.map((value) => noisy((5000 * value) / responseTop, random)),
+    ...CONCENTRATIONS_MM.map((mM) => {
+      const decay = Math.exp(-step / (TAU0 / (1 + K_SV * mM * 1e-3)));
+      // The pulse convolved with the exponential on the fine grid (recursive form), then per channel.
+      const fine: number[] = [];
+      pulse.forEach((value, i) => fine.push(value + (i > 0 ? fine[i - 1]! * decay : 0)));
+      const ideal = perChannel(fine);
+      const top = Math.max(...ideal);
+      return ideal.map((value) => noisy((PEAK * value) / top + BACKGROUND, random));
+    }),
+  ];
+  const headers = ['time (ns)', 'IRF', ...CONCENTRATIONS_MM.map((mM) => `[Q] ${mM} mM`)];
+  const rows = Array.from({ length: CHANNELS }, (_, i) =>
+    [(i * WIDTH * 1e9).toFixed(1), ...columns.map((column) => column[i]!)].join(','),
+  );
+  return Buffer.from(`${[headers.join(','), ...rows].join('\n')}\n`);
+}
+
+/** The [Q] of the demo's decays in mol/L, for the study they belong to. */
+export const demoDecayConcentrations = CONCENTRATIONS_MM.map((mM) => mM * 1e-3);
+
+/**
+ * Keeps the invented decay set with the study (the file on its row, as the default file store
+ * does) and puts its lifetimes and tau0 into the study, as "use these lifetimes" would.
+ */
+export async function seedDemoDecays(
+  transaction: Transaction,
+  lab: Lab,
+  owner: User,
+  study: Study,
+  clock: DemoClock,
+): Promise<void> {
+  const actor = { userId: owner.id, ip: null };
+  const bytes = demoDecayFile();
+  const options = decayReadOptionsSchema.parse({});
+  const reading = fitDecaySet(await readDecayTable(demoDecayFileName, bytes, DEFAULT_UPLOAD_LIMITS), null, options);
+  const failed = reading.outcomes.find((outcome) => outcome.problem !== null);
+  if (reading.questions.length > 0 || failed)
+    throw new Error(`The demo decay set does not fit: ${reading.questions[0] ?? failed?.problem}`);
+  const sha256 = await sha256Of(bytes);
+  const file = await DecayFile.create(
+    {
+      labId: lab.id,
+      fileName: demoDecayFileName,
+      mediaType: 'text/csv',
+      size: bytes.length,
+      sha256,
+      storage: 'database',
+      storageKey: null,
+      content: bytes,
+      uploadedById: owner.id,
+    },
+    { transaction },
+  );
+  const set = await DecaySet.create(
+    {
+      labId: lab.id,
+      studyId: study.id,
+      compoundId: null,
+      lifetimeId: null,
+      title: demoDecayFileName,
+      fileId: file.id,
+      responseFileId: null,
+      reading: reading.summary,
+      options: { ...options, model: reading.model, show: 0 },
+      outcomes: reading.outcomes,
+      engineVersion: ENGINE_VERSION,
+      createdById: owner.id,
+    },
+    { transaction },
+  );
+  clock.record(actor, 'decay_set_kept', lab.id, study.id, {
+    decaySetId: set.id,
+    files: [{ id: file.id, fileName: demoDecayFileName, size: bytes.length, sha256 }],
+    decays: reading.outcomes.length,
+  });
+  await placeDecaySet(study, set, actor, transaction);
+}
