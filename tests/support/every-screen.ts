@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { Op } from 'sequelize';
 import { Compound, Lab, Membership, Study, User } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
+import { listTemperatureSeries } from '../../server/services/mechanism/temperature-series.service';
 import { createScenario } from '../../server/services/scenarios/scenario.service';
 
 /** One screen of the app at an address, and the page heading that says it has arrived. */
@@ -29,7 +30,8 @@ export const publicScreens: Screen[] = [
 /**
  * Loads the demo data (and a saved scenario, which the demo has none of) and lists every
  * signed-in screen with a record to show: two studies (one approved with lifetimes, one still
- * open), an emitter's library page, a comparison with a trend plot and a scenario with shares.
+ * open), an emitter's library page, a comparison with a trend plot, a scenario with shares and a
+ * temperature series with its two plots.
  */
 export async function signedInScreens(sequelize: Sequelize): Promise<Screen[]> {
   await seedDemoData(sequelize);
@@ -44,9 +46,11 @@ export async function signedInScreens(sequelize: Sequelize): Promise<Screen[]> {
   }))!;
   const emitter = (await Compound.findByPk(approved.emitterId))!;
   const quencher = (await Compound.findByPk(approved.quencherId))!;
+  const labContext = { id: lab.id, name: lab.name, isDemo: true, role: 'admin' as const, membershipId: membership.id };
+  const series = (await listTemperatureSeries(labContext)).items.find((group) => group.ready)!;
   const scenario = await createScenario(
     sequelize,
-    { id: lab.id, name: lab.name, isDemo: true, role: 'admin', membershipId: membership.id },
+    labContext,
     { userId: admin.id, ip: null },
     {
       name: 'Demo coupling at reaction strength',
@@ -80,6 +84,12 @@ export async function signedInScreens(sequelize: Sequelize): Promise<Screen[]> {
     { name: 'scenarios', path: inLab('scenarios'), heading: 'Who quenches?' },
     { name: 'scenario-new', path: inLab('scenarios/new'), heading: 'New reaction scenario' },
     { name: 'scenario', path: inLab(`scenarios/${scenario.id}`), heading: scenario.name },
+    { name: 'temperature', path: inLab('temperature'), heading: 'Temperature series' },
+    {
+      name: 'temperature-series',
+      path: inLab(`temperature?studies=${series.studyIds.join(',')}`),
+      heading: 'Temperature series',
+    },
     { name: 'not-found', path: '/no/such/screen', heading: 'Nothing here' },
   ];
 }

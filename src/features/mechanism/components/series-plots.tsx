@@ -29,6 +29,7 @@ export function SeriesPlots({ analysis }: { analysis: TemperatureSeriesAnalysis 
     <div className="grid gap-4 md:grid-cols-2">
       <figure aria-label="K_SV against temperature" className="relative h-64">
         <Scatter
+          aria-label="Plot of K_SV against temperature beside T/η scaled to meet it at the lowest temperature; the values are in the table below"
           data={{
             datasets: [
               {
@@ -59,6 +60,7 @@ export function SeriesPlots({ analysis }: { analysis: TemperatureSeriesAnalysis 
           <p className="text-body text-ink-600">No kq: give τ0 at each temperature for the Arrhenius plot.</p>
         ) : (
           <Scatter
+            aria-label="Arrhenius plot of ln kq against 1000 K / T with the fitted line; the values are in the table below"
             data={{
               datasets: [
                 {
