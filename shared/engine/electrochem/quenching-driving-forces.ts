@@ -44,26 +44,20 @@ export function quenchingDrivingForces(input: {
   pinned?: QuenchingPathway;
 }): QuenchingDrivingForces {
   const { catalyst, quencher, coulomb, pinned } = input;
-  const work = (donorCharge: number, acceptorCharge: number) =>
-    coulomb ? coulombWorkTerm({ donorCharge, acceptorCharge, ...coulomb }) : 0;
-  const oxidative =
-    catalyst.oxidation !== undefined && quencher.reduction !== undefined
+  // One electron from donor to acceptor, the catalyst excited either way; null without both potentials.
+  const transfer = (donor: Partner, acceptor: Partner) =>
+    donor.oxidation !== undefined && acceptor.reduction !== undefined
       ? electronTransferDrivingForce({
-          donorOxidation: catalyst.oxidation,
-          acceptorReduction: quencher.reduction,
+          donorOxidation: donor.oxidation,
+          acceptorReduction: acceptor.reduction,
           e00: catalyst.e00,
-          workTerm: work(catalyst.charge ?? 0, quencher.charge ?? 0),
+          workTerm: coulomb
+            ? coulombWorkTerm({ donorCharge: donor.charge ?? 0, acceptorCharge: acceptor.charge ?? 0, ...coulomb })
+            : 0,
         })
       : null;
-  const reductive =
-    quencher.oxidation !== undefined && catalyst.reduction !== undefined
-      ? electronTransferDrivingForce({
-          donorOxidation: quencher.oxidation,
-          acceptorReduction: catalyst.reduction,
-          e00: catalyst.e00,
-          workTerm: work(quencher.charge ?? 0, catalyst.charge ?? 0),
-        })
-      : null;
+  const oxidative = transfer(catalyst, quencher);
+  const reductive = transfer(quencher, catalyst);
   if (!oxidative && !reductive) {
     throw new EngineError(
       'MISSING_POTENTIAL',
