@@ -1,3 +1,5 @@
+import { quadraticTermFromProjection } from './quadratic-term-from-projection';
+
 export interface AddedQuadraticTerm {
   /** coefficient of x^2 in the quadratic fit (units of y per x^2) */
   coefficient: number;
@@ -74,15 +76,5 @@ export function addedQuadraticTerm(
     zr += w * z * r[i]!;
   }
   if (!(zz > 1e-12 * s4)) return null;
-  const extraSumOfSquares = Math.min(line.residualSumOfSquares, (zr * zr) / zz);
-  const residualSumOfSquares = line.residualSumOfSquares - extraSumOfSquares;
-  const degreesOfFreedom = line.degreesOfFreedom - 1;
-  const scaleSquared = scale * scale;
-  return {
-    coefficient: zr / zz / scaleSquared,
-    standardError: Math.sqrt(residualSumOfSquares / degreesOfFreedom / zz) / scaleSquared,
-    extraSumOfSquares,
-    residualSumOfSquares,
-    degreesOfFreedom,
-  };
+  return quadraticTermFromProjection(zz, zr, line, scale);
 }

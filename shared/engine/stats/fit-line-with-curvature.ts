@@ -2,6 +2,7 @@ import { EngineError } from '../core/engine-error';
 import type { AddedQuadraticTerm } from './added-quadratic-term';
 import type { FitResiduals } from './fit-residuals';
 import { centredSums } from './centred-sums';
+import { quadraticTermFromProjection } from './quadratic-term-from-projection';
 import { residualSums } from './residual-sums';
 import type { PointScan } from './scan-points';
 
@@ -105,15 +106,10 @@ function quadraticFromMoments(
   // Same cut-off as addedQuadraticTerm: x^2 indistinguishable from 1 and x (< 3 distinct x).
   if (!(zz > 1e-12 * m.s4)) return null;
   const zr = m.su2r - c0 * m.sr - c1 * m.sur;
-  const extraSumOfSquares = Math.min(lineResidualSumOfSquares, (zr * zr) / zz);
-  const residualSumOfSquares = lineResidualSumOfSquares - extraSumOfSquares;
-  const degreesOfFreedom = lineDegreesOfFreedom - 1;
-  const spreadSquared = spread * spread;
-  return {
-    coefficient: zr / zz / spreadSquared,
-    standardError: Math.sqrt(residualSumOfSquares / degreesOfFreedom / zz) / spreadSquared,
-    extraSumOfSquares,
-    residualSumOfSquares,
-    degreesOfFreedom,
-  };
+  return quadraticTermFromProjection(
+    zz,
+    zr,
+    { residualSumOfSquares: lineResidualSumOfSquares, degreesOfFreedom: lineDegreesOfFreedom },
+    spread,
+  );
 }
