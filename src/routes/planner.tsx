@@ -1,5 +1,4 @@
 import { useState } from 'react';
-import { Link } from 'react-router-dom';
 import type { TitrationPlanInput, TitrationPlanResult } from '@shared/schemas/planner';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
@@ -15,6 +14,7 @@ import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
 import { ScreenHeader } from '@/components/screen-header';
+import { LinkButton } from '@/components/link-button';
 
 /** The new-study form, pre-filled with the plan's volumes and stock and the dilution correction switched on. */
 function studyFromPlan(labId: string, input: TitrationPlanInput): string {
@@ -77,12 +77,7 @@ export function PlannerRoute() {
                 Print
               </Button>
               {can(lab.role, 'studies:write') && (
-                <Link
-                  className="rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300"
-                  to={studyFromPlan(labId, planned.input)}
-                >
-                  Start a study from this plan
-                </Link>
+                <LinkButton to={studyFromPlan(labId, planned.input)}>Start a study from this plan</LinkButton>
               )}
             </div>
           }

@@ -1,6 +1,8 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { EmptyState } from '@/components/empty-state';
+import { LinkButton } from '@/components/link-button';
+import { ScreenHeader } from '@/components/screen-header';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { useScenarios } from '@/features/scenarios/api/get-scenarios';
@@ -16,21 +18,12 @@ export function ScenariosRoute() {
   const pages = Math.max(1, Math.ceil((scenarios.data?.total ?? 0) / 25));
   return (
     <div className="max-w-5xl space-y-6">
-      <header className="flex items-end justify-between gap-4">
-        <div>
-          <h1 className="text-display font-black text-ink-950">Who quenches?</h1>
-          <p className="mt-1 max-w-3xl text-lead text-ink-700">
-            Put in a reaction as you run it, and see which share of the excited catalyst each component takes, using the
-            rate constants your lab has measured.
-          </p>
-        </div>
-        <Link
-          to={paths.newScenario(labId)}
-          className="shrink-0 rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300"
-        >
-          New scenario
-        </Link>
-      </header>
+      <ScreenHeader title="Who quenches?" action={<LinkButton to={paths.newScenario(labId)}>New scenario</LinkButton>}>
+        <p className="mt-1 max-w-3xl text-lead text-ink-700">
+          Put in a reaction as you run it, and see which share of the excited catalyst each component takes, using the
+          rate constants your lab has measured.
+        </p>
+      </ScreenHeader>
       <Panel title="Scenarios">
         {scenarios.isError && <ErrorNotice error={scenarios.error} what="the scenarios" />}
         {scenarios.data?.items.length === 0 && (

@@ -6,7 +6,8 @@ import { EmptyState } from '@/components/empty-state';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { SelectField } from '@/components/select-field';
-import { Tag } from '@/components/tag';
+import { LinkButton } from '@/components/link-button';
+import { ScreenHeader } from '@/components/screen-header';
 import { TextField } from '@/components/text-field';
 import { useStudies } from '@/features/studies/api/get-studies';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
@@ -92,22 +93,11 @@ export function StudiesRoute() {
     : '';
   return (
     <div className="max-w-6xl space-y-6">
-      <header className="flex items-end justify-between">
-        <div>
-          <p className="flex items-center gap-2 text-caption tracking-wide text-ink-500">
-            {lab.labName} {lab.isDemo && <Tag tone="demo">Demo</Tag>}
-          </p>
-          <h1 className="text-display font-black text-ink-950">Studies</h1>
-        </div>
-        {can(lab.role, 'studies:write') && (
-          <Link
-            to={paths.newStudy(labId)}
-            className="rounded-md bg-glow-400 px-4 py-2 font-bold text-ink-950 hover:bg-glow-300"
-          >
-            New study
-          </Link>
-        )}
-      </header>
+      <ScreenHeader
+        lab={lab}
+        title="Studies"
+        action={can(lab.role, 'studies:write') && <LinkButton to={paths.newStudy(labId)}>New study</LinkButton>}
+      />
       <Panel title="Find">
         <form
           className="grid grid-cols-2 gap-3 md:grid-cols-4"
