@@ -2,12 +2,12 @@ import { useState } from 'react';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
-import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
 import { notify } from '@/lib/notify';
 import { useReplacePoints } from '../api/replace-points';
 import { CONCENTRATION_UNITS, fromSi, unitLabel } from '@shared/units/units';
-import { formatNumber, gridConcentrationUnits, type GridConcentrationUnit } from './format';
+import { ConcentrationUnitField } from './concentration-unit-field';
+import { formatNumber, type GridConcentrationUnit } from './format';
 import { TableScroll } from '@/components/table-scroll';
 import {
   emptyRow,
@@ -137,12 +137,7 @@ function EditablePointsGrid({ labId, study }: Omit<Props, 'editable'>) {
   return (
     <div className="space-y-3">
       <div className="flex items-end gap-4">
-        <SelectField
-          label="Concentration unit"
-          value={unit}
-          onChange={(event) => changeUnit(event.target.value as GridConcentrationUnit)}
-          options={gridConcentrationUnits.map((value) => ({ value, label: unitLabel(value) }))}
-        />
+        <ConcentrationUnitField label="Concentration unit" value={unit} onChange={changeUnit} />
         <p className="pb-2 text-caption text-ink-500">
           {study.dataKind === 'ratio'
             ? 'The intensity column holds I0/I ratios.'

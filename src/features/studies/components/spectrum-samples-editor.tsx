@@ -1,8 +1,8 @@
 import { useState } from 'react';
 import type { SpectrumMapping } from '@shared/schemas/study-uploads';
-import { SelectField } from '@/components/select-field';
 import { CONCENTRATION_UNITS, unitLabel } from '@shared/units/units';
-import { gridConcentrationUnits, type GridConcentrationUnit } from './format';
+import { ConcentrationUnitField } from './concentration-unit-field';
+import type { GridConcentrationUnit } from './format';
 
 interface Props {
   headers: string[];
@@ -41,12 +41,10 @@ export function SpectrumSamplesEditor({ headers, mapping, onChange }: Props) {
   return (
     <div className="w-full space-y-2">
       <div className="flex items-end gap-3">
-        <SelectField
+        <ConcentrationUnitField
           label="Typed concentrations in"
           value={unit}
-          options={gridConcentrationUnits.map((value) => ({ value, label: unitLabel(value) }))}
-          onChange={(event) => {
-            const next = event.target.value as GridConcentrationUnit;
+          onChange={(next) => {
             setUnit(next);
             publish(texts, next);
           }}
