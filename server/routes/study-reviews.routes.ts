@@ -1,6 +1,6 @@
 import { studyParamsSchema } from '@shared/schemas/studies';
 import { returnStudySchema, reviewCommentSchema, studyDetailSchema } from '@shared/schemas/study-detail';
-import { defineRoute } from '../http/define-route';
+import { defineRoute, type RouteContext } from '../http/define-route';
 import { labOf, signedInActor } from '../http/request-context';
 import { addComment, reviewStep, startRevision } from '../services/studies/study-review.service';
 
@@ -11,6 +11,15 @@ const stepResponses = {
   409: { description: 'The study is not in a status that allows this step' },
 };
 
+/** Moves the study one review step on (mailing whom the step concerns) and answers with it. */
+const takeStep =
+  (step: 'submit' | 'approve' | 'return') =>
+  async ({ req, res, params, body }: RouteContext<{ studyId: string }, unknown, { comment: string }>) => {
+    const { sequelize, jobs, publicUrl } = req.app.locals.services;
+    const context = { actor: signedInActor(req), jobs, publicUrl };
+    res.json(await reviewStep(sequelize, labOf(req), params.studyId, step, body.comment, context));
+  };
+
 export const studyReviewRoutes = [
   defineRoute({
     method: 'post',
@@ -20,16 +29,7 @@ export const studyReviewRoutes = [
     access: { lab: 'researcher' },
     request: { params: studyParamsSchema, body: reviewCommentSchema },
     responses: stepResponses,
-    handler: async ({ req, res, params, body }) => {
-      const { sequelize, jobs, publicUrl } = req.app.locals.services;
-      res.json(
-        await reviewStep(sequelize, labOf(req), params.studyId, 'submit', body.comment, {
-          actor: signedInActor(req),
-          jobs,
-          publicUrl,
-        }),
-      );
-    },
+    handler: takeStep('submit'),
   }),
   defineRoute({
     method: 'post',
@@ -39,16 +39,7 @@ export const studyReviewRoutes = [
     access: { lab: 'reviewer' },
     request: { params: studyParamsSchema, body: reviewCommentSchema },
     responses: stepResponses,
-    handler: async ({ req, res, params, body }) => {
-      const { sequelize, jobs, publicUrl } = req.app.locals.services;
-      res.json(
-        await reviewStep(sequelize, labOf(req), params.studyId, 'approve', body.comment, {
-          actor: signedInActor(req),
-          jobs,
-          publicUrl,
-        }),
-      );
-    },
+    handler: takeStep('approve'),
   }),
   defineRoute({
     method: 'post',
@@ -58,16 +49,7 @@ export const studyReviewRoutes = [
     access: { lab: 'reviewer' },
     request: { params: studyParamsSchema, body: returnStudySchema },
     responses: { ...stepResponses, 400: { description: 'A comment is required' } },
-    handler: async ({ req, res, params, body }) => {
-      const { sequelize, jobs, publicUrl } = req.app.locals.services;
-      res.json(
-        await reviewStep(sequelize, labOf(req), params.studyId, 'return', body.comment, {
-          actor: signedInActor(req),
-          jobs,
-          publicUrl,
-        }),
-      );
-    },
+    handler: takeStep('return'),
   }),
   defineRoute({
     method: 'post',
