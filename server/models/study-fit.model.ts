@@ -7,7 +7,7 @@ import type {
   NonAttribute,
   Sequelize,
 } from 'sequelize';
-import type { FitModel } from '@shared/schemas/studies';
+import type { FitModel, FitWeighting } from '@shared/schemas/studies';
 import type { FitResult, StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
 import type { Study } from './study.model';
 import type { User } from './user.model';
@@ -17,6 +17,8 @@ export class StudyFit extends Model<InferAttributes<StudyFit>, InferCreationAttr
   declare id: CreationOptional<string>;
   declare studyId: ForeignKey<Study['id']>;
   declare model: FitModel;
+  /** the weighting chosen for this fit; null for fits made before the choice existed */
+  declare weighting: FitWeighting | null;
   declare trigger: 'auto' | 'manual';
   declare kSv: number | null;
   declare kq: number | null;
@@ -32,6 +34,7 @@ export class StudyFit extends Model<InferAttributes<StudyFit>, InferCreationAttr
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         model: { type: DataTypes.STRING(20), allowNull: false },
+        weighting: { type: DataTypes.STRING(20), allowNull: true },
         trigger: { type: DataTypes.STRING(20), allowNull: false },
         kSv: { type: DataTypes.DOUBLE, allowNull: true },
         kq: { type: DataTypes.DOUBLE, allowNull: true },

@@ -1,6 +1,6 @@
 import { DataTypes } from 'sequelize';
 import type { CreationOptional, ForeignKey, NonAttribute, Sequelize } from 'sequelize';
-import type { FitModel, StudyStatus } from '@shared/schemas/studies';
+import type { FitModel, FitWeighting, StudyStatus } from '@shared/schemas/studies';
 import type { Compound } from './compound.model';
 import type { User } from './user.model';
 import { LabRecord, recordColumns } from './record';
@@ -28,6 +28,7 @@ export class Study extends LabRecord<Study> {
   declare i0: number | null;
   declare dataKind: 'intensity' | 'ratio';
   declare fitModel: FitModel;
+  declare fitWeighting: CreationOptional<FitWeighting>;
   declare dilutionCorrection: boolean;
   declare initialVolume: number | null;
   declare stockConcentration: number | null;
@@ -73,6 +74,7 @@ export class Study extends LabRecord<Study> {
         i0: double(),
         dataKind: { type: DataTypes.STRING(20), allowNull: false },
         fitModel: { type: DataTypes.STRING(20), allowNull: false },
+        fitWeighting: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'unweighted' },
         dilutionCorrection: { type: DataTypes.BOOLEAN, allowNull: false },
         initialVolume: double(),
         stockConcentration: double(),

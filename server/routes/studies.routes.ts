@@ -133,7 +133,7 @@ export const studyRoutes = [
   defineRoute({
     method: 'post',
     path: '/api/labs/:labId/studies/:studyId/fits',
-    summary: "Fit now with a chosen model (owner); stored as a new fit and made the study's model",
+    summary: "Fit now with a chosen model and weighting (owner); stored as a new fit and made the study's",
     tags: ['studies'],
     access: { lab: 'researcher' },
     request: { params: studyParamsSchema, body: runFitSchema },
@@ -145,9 +145,7 @@ export const studyRoutes = [
     handler: async ({ req, res, params, body }) => {
       res
         .status(201)
-        .json(
-          await runFit(req.app.locals.services.sequelize, labOf(req), params.studyId, body.model, signedInActor(req)),
-        );
+        .json(await runFit(req.app.locals.services.sequelize, labOf(req), params.studyId, body, signedInActor(req)));
     },
   }),
   defineRoute({

@@ -96,3 +96,19 @@ export function tau0Text(tau0: NonNullable<FitResult['tau0']>): string {
   const ns = tau0.standardError === null ? null : tau0.standardError * 1e9;
   return `${formatEstimate(tau0.value * 1e9, ns, UNITS.nanosecond)} (${tau0.source})`;
 }
+
+/**
+ * Which weighting gave the reported constants, in words: the same on screen, in the CSV and the PDF.
+ * A fit stored before the weighting was a choice has none recorded.
+ */
+export function weightingText(weighting: FitResult['weighting']): string {
+  if (!weighting) return 'not recorded (fitted before the weighting was a choice)';
+  const points = `${weighting.pointsWeighted} points`;
+  if (weighting.applied === 'point-uncertainties')
+    return `weighted least squares, w = 1/σ² from the readings’ own uncertainties (${points})`;
+  if (weighting.applied === 'replicate-scatter')
+    return `weighted least squares, w = 1/σ² from the replicate scatter at each [Q] (${points})`;
+  return weighting.chosen === 'weighted'
+    ? `unweighted least squares (weighted chosen, but ${weighting.reason ?? 'the points give no weights'})`
+    : 'unweighted least squares';
+}

@@ -23,6 +23,23 @@ export const fitModelNames = {
   'static-dynamic': 'Static + dynamic (quadratic)',
   modified: 'Accessible fraction (modified plot)',
 } as const satisfies Record<FitModel, string>;
+/**
+ * How the straight-line fits weigh the points: unweighted least squares, or weighted by 1/σ² of
+ * each I0/I, σ from the readings' own uncertainties, else (replicate runs) from the scatter of the
+ * runs at each concentration (Bevington & Robinson, Data Reduction and Error Analysis, ch. 6).
+ */
+export const fitWeightings = ['unweighted', 'weighted'] as const;
+export const fitWeightingSchema = z.enum(fitWeightings).meta({
+  id: 'FitWeighting',
+  description:
+    "unweighted least squares, or weights 1/σ² from the readings' uncertainties (else the replicate scatter); straight-line models only",
+});
+export type FitWeighting = z.infer<typeof fitWeightingSchema>;
+/** Each weighting in words, for the fit controls. */
+export const fitWeightingNames = {
+  unweighted: 'Unweighted',
+  weighted: 'Weighted by 1/σ²',
+} as const satisfies Record<FitWeighting, string>;
 export const pinnedMechanisms = ['oxidative', 'reductive', 'energy-transfer'] as const;
 export const solventIds = Object.keys(SOLVENTS) as [string, ...string[]];
 
@@ -47,6 +64,7 @@ export const studySettingsSchema = z.object({
   i0: positive('intensity units').nullable().describe('unquenched intensity when the series has no blank'),
   dataKind: z.enum(['intensity', 'ratio']).describe('whether the series holds intensities or I0/I ratios'),
   fitModel: fitModelSchema,
+  fitWeighting: fitWeightingSchema,
   dilutionCorrection: z.boolean(),
   initialVolume: positive('L').nullable().describe('V0, L'),
   stockConcentration: positive('mol/L').nullable().describe('quencher stock, mol/L'),
@@ -113,6 +131,7 @@ const createDefaults = {
   i0: shape.i0.default(null),
   dataKind: shape.dataKind.default('intensity'),
   fitModel: shape.fitModel.default('linear-free'),
+  fitWeighting: shape.fitWeighting.default('unweighted'),
   dilutionCorrection: shape.dilutionCorrection.default(false),
   initialVolume: shape.initialVolume.default(null),
   stockConcentration: shape.stockConcentration.default(null),

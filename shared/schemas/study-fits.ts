@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { qualityFlagSchema } from './quality-flag';
-import { fitModelSchema } from './studies';
+import { fitModelSchema, fitWeightingSchema } from './studies';
 
 export const estimateSchema = z
   .object({
@@ -82,6 +82,17 @@ export const fitResultSchema = z
       })
       .nullish()
       .describe('several titration runs pooled, each by its own I0 (absent for one run)'),
+    weighting: z
+      .object({
+        chosen: fitWeightingSchema,
+        applied: z
+          .enum(['unweighted', 'point-uncertainties', 'replicate-scatter'])
+          .describe('what the reported fit used: no weights, or 1/σ² from the readings or the replicate scatter'),
+        pointsWeighted: z.number().int().nullable().describe('points in the weighted fit (null when unweighted)'),
+        reason: z.string().nullable().describe('why a weighted fit was chosen but not made'),
+      })
+      .nullish()
+      .describe('the weighting of the reported K_SV (absent in fits made before the choice existed)'),
     tau0: z
       .object({
         value: z.number(),
@@ -128,6 +139,9 @@ export const studyFitSchema = z
   .object({
     id: z.string().uuid(),
     model: fitModelSchema,
+    weighting: fitWeightingSchema
+      .nullable()
+      .describe('the weighting chosen for this fit; null before the choice existed'),
     trigger: z.enum(['auto', 'manual']),
     kSv: z.number().nullable(),
     kq: z.number().nullable(),
@@ -140,5 +154,11 @@ export const studyFitSchema = z
   .meta({ id: 'StudyFit' });
 export type StudyFit = z.infer<typeof studyFitSchema>;
 
-export const runFitSchema = z.object({ model: fitModelSchema }).meta({ id: 'RunFit' });
+export const runFitSchema = z
+  .object({
+    model: fitModelSchema,
+    weighting: fitWeightingSchema.optional().describe("default: the study's current weighting"),
+  })
+  .meta({ id: 'RunFit' });
+export type RunFitBody = z.input<typeof runFitSchema>;
 export const fitListSchema = z.object({ items: z.array(studyFitSchema) }).meta({ id: 'FitList' });

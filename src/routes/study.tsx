@@ -197,7 +197,13 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
           {fit ? <ResultsPanel fit={fit} /> : <p className="text-body text-ink-500">No fit yet.</p>}
           {editable && fit && (
             <div className="mt-3">
-              <FitControls key={study.fitModel} labId={labId} studyId={study.id} model={study.fitModel} />
+              <FitControls
+                key={`${study.fitModel} ${study.fitWeighting}`}
+                labId={labId}
+                studyId={study.id}
+                model={study.fitModel}
+                weighting={study.fitWeighting}
+              />
             </div>
           )}
         </Panel>

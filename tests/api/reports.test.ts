@@ -2,7 +2,7 @@ import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Lab, Study } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
-import { formatEstimate } from '@shared/format';
+import { formatEstimate, weightingText } from '@shared/format';
 import { fitModelNames, type FitModel } from '@shared/schemas/studies';
 import { chartInk } from '../../server/services/reports/report-charts';
 import { apiClient } from '../support/accounts';
@@ -138,6 +138,8 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     // The model in words as on screen, never its stored key ("linear-free").
     expect(text).toContain(`Model: ${fitModelNames[detail.latestFit.model as FitModel]}`);
     expect(text).not.toContain(detail.latestFit.model);
+    // Which weighting gave K_SV, in the words of the screen and the CSV (shared/format weightingText).
+    expect(text).toContain(`Weighting: ${weightingText(detail.latestFit.result.weighting)}`);
     // Negative numbers with the true minus sign U+2212 (typeset practice, as in shared/format), never "-0.6 eV".
     expect(text).not.toMatch(/(?<![\w.])-\d/);
     expect(text).toMatch(/−\d/);

@@ -1,11 +1,13 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import crypto from 'node:crypto';
+import { linearRegression } from 'simple-statistics';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { fitStudy } from '@shared/engine/study-fit/fit-study';
 import type * as FitStudyModule from '@shared/engine/study-fit/fit-study';
 import { StudyFit } from '../../server/models';
 import { apiClient, createLabWithMembers } from '../support/accounts';
+import { pointAt } from '@shared/schemas/study-points';
 import { createStudy, exactPoints } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
@@ -88,5 +90,56 @@ describe('one study-fit pipeline (issue 13, findings 11 and 12)', () => {
     expect(detail.latestFit.kSv).toBeCloseTo(500, 6);
     expect(detail.latestFit.result.replicates.runs.map((run: { value: number }) => run.value)).toEqual([1000, 800]);
     expect(detail.latestFit.result.replicates.summary).toHaveLength(6);
+  });
+});
+
+describe('POST /api/labs/:labId/studies/:studyId/fits with a weighting', () => {
+  // Invented ratios near 1 + 500 [Q]; σ = 1/√k gives whole-number weights k = 1, 2, 3, 4, 3, 2.
+  const qs = [0, 1e-3, 2e-3, 3e-3, 4e-3, 5e-3];
+  const ratios = qs.map((q, i) => 1 + 500 * q + [0, 0.03, -0.02, 0.025, -0.03, 0.02][i]!);
+  const weights = [1, 2, 3, 4, 3, 2];
+  const points = qs.map((q, i) => ({ ...pointAt(q), intensity: ratios[i]!, uncertainty: 1 / Math.sqrt(weights[i]!) }));
+  // simple-statistics 7.x linearRegression: unweighted on the points, weighted = on each point taken k times
+  const unweighted = linearRegression(qs.map((q, i) => [q, ratios[i]!])).m;
+  const weighted = linearRegression(qs.flatMap((q, i) => Array.from({ length: weights[i]! }, () => [q, ratios[i]!]))).m;
+
+  it('when weighted is chosen, then the reported K_SV is the weighted one, stored with the fit and kept for later fits', async () => {
+    const study = await createStudy(client, labId, crypto.randomBytes(3).toString('hex'), { dataKind: 'ratio' });
+    const first = (await client.patch(`${base(study.id)}/points`, { version: 0, points }).expect(200)).body;
+    expect(first.fitWeighting).toBe('unweighted');
+    expect(first.latestFit.weighting).toBe('unweighted');
+    expect(first.latestFit.kSv).toBeCloseTo(unweighted, 9);
+
+    const fit = await client.post(`${base(study.id)}/fits`, { model: 'linear-free', weighting: 'weighted' });
+    expect(fit.status, JSON.stringify(fit.body)).toBe(201);
+    expect(fit.body.weighting).toBe('weighted');
+    expect(fit.body.kSv).toBeCloseTo(weighted, 9);
+    expect(fit.body.result.weighting).toEqual({
+      chosen: 'weighted',
+      applied: 'point-uncertainties',
+      pointsWeighted: 6,
+      reason: null,
+    });
+    const detail = (await client.get(base(study.id)).expect(200)).body;
+    expect(detail.fitWeighting).toBe('weighted');
+    expect(detail.latestFit.kSv).toBeCloseTo(weighted, 9);
+
+    // the next automatic fit (points saved again) keeps the weighting
+    const again = (await client.patch(`${base(study.id)}/points`, { version: detail.version, points }).expect(200))
+      .body;
+    expect(again.latestFit.weighting).toBe('weighted');
+    expect(again.latestFit.kSv).toBeCloseTo(weighted, 9);
+
+    const csv = (await client.get(`${base(study.id)}/export.csv?part=fit`).expect(200)).text;
+    expect(csv).toMatch(
+      /^weighting,point-uncertainties,.*w = 1\/σ² from the readings’ own uncertainties \(6 points\)/m,
+    );
+  });
+
+  it('when the weighting is not one of the two, then 400 names the field', async () => {
+    const study = await newStudy();
+    const response = await client.post(`${base(study.id)}/fits`, { model: 'linear-free', weighting: 'heavy' });
+    expect(response.status).toBe(400);
+    expect(JSON.stringify(response.body)).toMatch(/weighting/);
   });
 });

@@ -80,6 +80,7 @@ export async function seedBenchStudies(
         i0: null,
         dataKind: 'intensity' as const,
         fitModel: 'linear-free' as const,
+        fitWeighting: 'unweighted' as const,
         dilutionCorrection: false,
         initialVolume: null,
         stockConcentration: null,

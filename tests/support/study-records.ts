@@ -43,6 +43,7 @@ export function createStudyRecord(input: {
     i0: null,
     dataKind: 'intensity',
     fitModel: 'linear-free',
+    fitWeighting: 'unweighted',
     dilutionCorrection: false,
     initialVolume: null,
     stockConcentration: null,

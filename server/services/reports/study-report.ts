@@ -6,6 +6,7 @@ import {
   rSquaredLines,
   tau0Text,
   UNITS,
+  weightingText,
 } from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { fitModelNames } from '@shared/schemas/studies';
@@ -55,6 +56,7 @@ function results(doc: Pdf, study: StudyDetail) {
   const { lines, note } = fitParameterLines(fit.model, fit.result);
   facts(doc, [
     ['Model', fitModelNames[fit.model]],
+    ['Weighting', weightingText(fit.result.weighting)],
     ...lines.map(
       ({ label, unit, estimate }) =>
         [

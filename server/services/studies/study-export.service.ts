@@ -1,4 +1,4 @@
-import { isoDateTime, rSquaredLines, titled, UNITS } from '@shared/format';
+import { isoDateTime, rSquaredLines, titled, UNITS, weightingText } from '@shared/format';
 import { csvTable } from '../../lib/csv-cells';
 import type { LabContext } from '../../domain/lab-context';
 import { getStudyDetail } from './study.service';
@@ -70,6 +70,7 @@ export async function exportFitCsv(lab: LabContext, studyId: string) {
   if (fit) {
     rows.push(
       ['model', fit.model, '', '', '', ''],
+      ['weighting', fit.result.weighting?.applied ?? '', '', '', '', '', weightingText(fit.result.weighting)],
       ['engine_version', fit.engineVersion, '', '', '', ''],
       ['fitted_at', isoDateTime(fit.createdAt), '', '', '', ''],
     );

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import { ENGINE_VERSION, EngineError, fitStudy, type StudyFitOutcome } from '@shared/engine';
-import type { FitModel } from '@shared/schemas/studies';
+import type { FitModel, FitWeighting } from '@shared/schemas/studies';
 import { AppError } from '../../lib/app-error';
 import { StudyFit, StudyPoint, type Study } from '../../models';
 import { recordAudit } from '../audit.service';
@@ -15,15 +15,18 @@ export async function computeForStudy(
   study: Study,
   model: FitModel,
   transaction?: Transaction,
+  weighting: FitWeighting = study.fitWeighting,
 ): Promise<StudyFitOutcome> {
   // The record behind tau0 is checked on every refit too (same lab, same emitter), and its value
   // and SE are the ones fitted: never a number stored beside the link.
   const record = study.tau0LifetimeId
     ? await lifetimeOfEmitter(study.labId, study.tau0LifetimeId, study.emitterId, transaction)
     : null;
-  const settings = record
-    ? { ...study.get({ plain: true }), tau0: record.value, tau0Uncertainty: record.uncertainty ?? null }
-    : study;
+  const settings = {
+    ...study.get({ plain: true }),
+    fitWeighting: weighting,
+    ...(record ? { tau0: record.value, tau0Uncertainty: record.uncertainty ?? null } : {}),
+  };
   const points = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
   try {
     return fitStudy(settings, points, model);
@@ -47,6 +50,7 @@ export async function refitStudy(
   study: Study,
   options: {
     model?: FitModel;
+    weighting?: FitWeighting;
     trigger: 'auto' | 'manual';
     actor: Actor;
     transaction: Transaction;
@@ -54,10 +58,11 @@ export async function refitStudy(
   },
 ): Promise<StudyFit | null> {
   const model = options.model ?? study.fitModel;
+  const weighting = options.weighting ?? study.fitWeighting;
   const { transaction } = options;
   let computed: StudyFitOutcome;
   try {
-    computed = await computeForStudy(study, model, transaction);
+    computed = await computeForStudy(study, model, transaction, weighting);
   } catch (error) {
     if (options.trigger === 'manual' || options.refuseUnfittable || !(error instanceof AppError)) throw error;
     await study.update(
@@ -70,6 +75,7 @@ export async function refitStudy(
     {
       studyId: study.id,
       model,
+      weighting,
       trigger: options.trigger,
       kSv: computed.kSv,
       kq: computed.kq,
@@ -87,7 +93,7 @@ export async function refitStudy(
       flagged: computed.result.flags.length > 0,
       fitProblem: null,
       latestFitId: fit.id,
-      ...(options.trigger === 'manual' ? { fitModel: model } : {}),
+      ...(options.trigger === 'manual' ? { fitModel: model, fitWeighting: weighting } : {}),
     },
     { transaction },
   );
@@ -101,6 +107,8 @@ export async function refitStudy(
       details: {
         fitId: fit.id,
         model,
+        weighting,
+        applied: computed.result.weighting?.applied ?? null,
         trigger: options.trigger,
         kSv: computed.kSv,
         kq: computed.kq,

@@ -30,6 +30,7 @@ export const settingsOf = (study: Study): StudySettings => ({
   i0: study.i0,
   dataKind: study.dataKind,
   fitModel: study.fitModel,
+  fitWeighting: study.fitWeighting,
   dilutionCorrection: study.dilutionCorrection,
   initialVolume: study.initialVolume,
   stockConcentration: study.stockConcentration,
@@ -135,6 +136,7 @@ function withPlotAxes(fit: Pick<StudyFit, 'model' | 'result' | 'pointsUsed'>): F
 export const toFit = (fit: StudyFit): StudyFitRecord => ({
   id: fit.id,
   model: fit.model,
+  weighting: fit.weighting ?? null,
   trigger: fit.trigger,
   kSv: fit.kSv,
   kq: fit.kq,

@@ -1,4 +1,4 @@
-import type { FitModel } from '../../schemas/studies';
+import type { FitModel, FitWeighting } from '../../schemas/studies';
 import type { FitResult, PlotAxis } from '../../schemas/study-fits';
 import type { StudyPointValues } from '../../schemas/study-points';
 import { CONCENTRATION_UNITS, concentrationDisplayUnit, unitLabel } from '../../units/units';
@@ -22,7 +22,11 @@ import { compareWeighting, poolReplicates, type PooledReplicates } from './repli
 export interface StudyFitSettings extends KineticsSettings, CorrectionSettings {
   dataKind: 'intensity' | 'ratio';
   i0: number | null;
+  /** 'weighted' fits the straight lines with weights 1/σ² of I0/I when the readings give them; default unweighted */
+  fitWeighting?: FitWeighting;
 }
+
+type AppliedWeighting = NonNullable<FitResult['weighting']>['applied'];
 
 /** A point as the pipeline reads it: its place in the series and its values (SI units). */
 export type StudyFitPoint = Omit<StudyPointValues, 'exclusionReason'> & { position: number };
@@ -60,6 +64,7 @@ function axesFor(largestConcentration: number): { concentration: PlotAxis; recip
 function replicatesOf(
   pooled: PooledReplicates,
   model: FitModel,
+  applied: AppliedWeighting,
   notes: string[],
 ): NonNullable<FitResult['replicates']> {
   let weighting: NonNullable<FitResult['replicates']>['weighting'] = null;
@@ -76,7 +81,7 @@ function replicatesOf(
       };
       if (comparison.beyondStandardError)
         notes.push(
-          `Weighting by ${pooled.weightSource === 'point-uncertainties' ? 'the readings’ uncertainties' : 'the replicate scatter'} moves K_SV by ${formatNumber(comparison.shift)} M⁻¹, more than its standard error (${formatNumber(comparison.unweighted.kSv.standardError)} M⁻¹); say which fit you report.`,
+          `Weighting by ${pooled.weightSource === 'point-uncertainties' ? 'the readings’ uncertainties' : 'the replicate scatter'} moves K_SV by ${formatNumber(comparison.shift)} M⁻¹, more than its standard error (${formatNumber(comparison.unweighted.kSv.standardError)} M⁻¹); the reported K_SV is the ${applied === 'unweighted' ? 'unweighted' : 'weighted'} one.`,
         );
     } catch (error) {
       if (!(error instanceof EngineError)) throw error;
@@ -133,9 +138,6 @@ export function fitStudy(
   const x = used.map((entry) => entry.concentration);
   const values = used.map((entry) => entry.value);
   const everyUncertainty = used.length > 0 && used.every((entry) => entry.point.uncertainty !== null);
-  const sigmas = everyUncertainty ? used.map((entry) => entry.point.uncertainty!) : undefined;
-  if (!everyUncertainty && used.some((entry) => entry.point.uncertainty !== null))
-    notes.push('Only some points have an uncertainty, so the fit is unweighted.');
 
   const screen = isRatio
     ? null
@@ -167,6 +169,23 @@ export function fitStudy(
         )
       : null;
   const asRatios = isRatio || pooled !== null;
+  const lineModel = model === 'linear-free' || model === 'linear-fixed';
+  const chosen = settings.fitWeighting ?? 'unweighted';
+  let applied: AppliedWeighting = 'unweighted';
+  let unweightedBecause: string | null = null;
+  if (chosen === 'weighted') {
+    if (!lineModel) unweightedBecause = 'weights apply to the straight-line models only';
+    else if (pooled?.weightSource) applied = pooled.weightSource;
+    else if (pooled)
+      unweightedBecause = 'not every reading has an uncertainty, nor every concentration two differing replicates';
+    else if (everyUncertainty) applied = 'point-uncertainties';
+    else unweightedBecause = 'not every point has an uncertainty, and a single run has no replicate scatter';
+    if (unweightedBecause) notes.push(`A weighted fit was chosen, but this one is unweighted: ${unweightedBecause}.`);
+  } else if (lineModel && everyUncertainty && !pooled)
+    notes.push('Every point has an uncertainty: choose the weighted fit to weigh them by 1/σ².');
+  // The readings' own σ, when the single-run fit is weighted by them.
+  const sigmas =
+    applied === 'point-uncertainties' && !pooled ? used.map((entry) => entry.point.uncertainty!) : undefined;
   const i0 = isRatio
     ? { value: 1, source: 'ratios entered as I0/I', replicates: 0 }
     : pooled
@@ -185,7 +204,12 @@ export function fitStudy(
         })();
   // What the SE of a constant fitted to I0/I includes: only the straight-line fits widen it by
   // I0's own uncertainty (withReferenceUncertainty, from two blanks or more).
-  const scatter = sigmas ? "the points' own uncertainties" : 'the scatter of the points';
+  const scatter =
+    applied === 'point-uncertainties'
+      ? "the points' own uncertainties"
+      : applied === 'replicate-scatter'
+        ? 'the replicate scatter at each [Q]'
+        : 'the scatter of the points';
   const lineIncludes = isRatio
     ? `${scatter} (ratios entered)`
     : pooled
@@ -207,13 +231,21 @@ export function fitStudy(
     : pooled
       ? pooled.ratios.map((entry) => entry.ratio)
       : values.map((value) => i0.value / value);
-  const sigmaRatios =
-    sigmas &&
-    (isRatio
-      ? sigmas
-      : pooled
-        ? pooled.ratios.map((entry) => entry.sigma!)
-        : sigmas.map((sigma, i) => (ratios[i]! * sigma) / values[i]!));
+  // σ of each I0/I when the fit is weighted; null for a pooled blank without one (left out of the fit).
+  const sigmaRatios: Array<number | null> | undefined = pooled
+    ? applied !== 'unweighted'
+      ? pooled.ratios.map((entry) => (entry.sigma !== null && entry.sigma > 0 ? entry.sigma : null))
+      : undefined
+    : sigmas && (isRatio ? sigmas : sigmas.map((sigma, i) => (ratios[i]! * sigma) / values[i]!));
+  // The points the straight line is fitted to: all of them, or those with a σ when pooled runs are weighted.
+  const lineIndex = used.flatMap((_, i) => (sigmaRatios && sigmaRatios[i] === null ? [] : [i]));
+  if (lineIndex.length < used.length)
+    notes.push(
+      `${used.length - lineIndex.length} blank(s) without an uncertainty of their own (each sets its run's I0) are left out of the weighted fit.`,
+    );
+  const lineX = lineIndex.map((i) => x[i]!);
+  const lineRatios = lineIndex.map((i) => ratios[i]!);
+  const lineSigmas = sigmaRatios && lineIndex.map((i) => sigmaRatios[i]!);
   // What the models fit: ratios when the study holds ratios or pools runs, else the intensities.
   const fitValues = pooled ? ratios : values;
   const runI0 = new Map(pooled?.i0.map((run) => [run.series, run.value]));
@@ -262,9 +294,9 @@ export function fitStudy(
     const intercept = model === 'linear-free' ? 'free' : 'fixed-at-one';
     const fit = asRatios
       ? fitSternVolmer({
-          concentrations: x,
-          ratios,
-          ...(sigmaRatios ? { ratioUncertainties: sigmaRatios } : {}),
+          concentrations: lineX,
+          ratios: lineRatios,
+          ...(lineSigmas ? { ratioUncertainties: lineSigmas } : {}),
           intercept,
         })
       : fitIntensitySternVolmer({
@@ -282,9 +314,9 @@ export function fitStudy(
     fitted = (xi) => a + fit.kSv.value * xi;
     band = fit.fittedIntercept
       ? freeLineBand(
-          x,
-          ratios,
-          sigmaRatios?.map((s) => 1 / (s * s)),
+          lineX,
+          lineRatios,
+          lineSigmas?.map((s) => 1 / (s * s)),
         )
       : fixedLineBand(x, fit.kSv.value, fit.kSv.standardError, fit.degreesOfFreedom);
     statistics = {
@@ -394,7 +426,13 @@ export function fitStudy(
         value: i0.value,
         source: i0.source,
       },
-      replicates: pooled && replicatesOf(pooled, model, notes),
+      replicates: pooled && replicatesOf(pooled, model, applied, notes),
+      weighting: {
+        chosen,
+        applied,
+        pointsWeighted: applied === 'unweighted' ? null : statistics.n,
+        reason: unweightedBecause,
+      },
       tau0,
       diffusionLimit: limit ? { ...limit, ratio: ratioToLimit } : null,
       lifetime: lifetime

@@ -37,6 +37,7 @@ export function studyDetail(changes: Partial<StudyDetail> = {}): StudyDetail {
     i0: null,
     dataKind: 'intensity',
     fitModel: 'linear-free',
+    fitWeighting: 'unweighted',
     dilutionCorrection: false,
     initialVolume: null,
     stockConcentration: null,

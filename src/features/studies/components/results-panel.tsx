@@ -4,6 +4,7 @@ import {
   fitParameterLines,
   rSquaredLines,
   tau0Text,
+  weightingText,
   formatDateTime,
   formatEstimate,
   formatInterval,
@@ -98,6 +99,7 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
       <p className="text-caption text-ink-500">
         {modelLabels[fit.model]} · engine {fit.engineVersion} · {formatDateTime(fit.createdAt)}
       </p>
+      <p aria-label="Weighting">Weighting: {weightingText(fit.result.weighting)}</p>
       <dl>
         {lines.map((line) => (
           <Row key={line.key} label={line.label} estimate={line.estimate} unit={line.unit} />
