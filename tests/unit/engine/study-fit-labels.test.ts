@@ -1,31 +1,11 @@
 import { linearRegression, rSquared } from 'simple-statistics';
-import { pointAt } from '@shared/schemas/study-points';
 import { describe, expect, it } from 'vitest';
-import { fitStudy, type StudyFitPoint, type StudyFitSettings } from '@shared/engine';
+import { fitStudy } from '@shared/engine';
 import { expectClose } from './support/expect-close';
+import { fitPoint, fitSettings } from './support/study-fit-fixture';
 
-const settings: StudyFitSettings = {
-  solventId: 'acetonitrile',
-  customSolventName: null,
-  customViscosity: null,
-  temperature: 298.15,
-  tau0: null,
-  tau0Uncertainty: null,
-  tau0LifetimeId: null,
-  dataKind: 'intensity',
-  i0: null,
-  dilutionCorrection: false,
-  initialVolume: null,
-  stockConcentration: null,
-  stockContainsEmitter: false,
-  innerFilterCorrection: false,
-};
-const point = (
-  position: number,
-  concentration: number,
-  intensity: number | null,
-  extra: Partial<StudyFitPoint> = {},
-): StudyFitPoint => ({ ...pointAt(concentration), position, intensity, ...extra });
+const settings = fitSettings();
+const point = fitPoint;
 
 // Invented series bending upward, (1 + 30 [Q])(1 + 20 [Q]), with three blanks that scatter.
 const qs = [0, 0, 0, 0.01, 0.02, 0.03, 0.04, 0.05];

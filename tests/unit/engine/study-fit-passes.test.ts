@@ -1,9 +1,10 @@
 import { describe, expect, it, vi } from 'vitest';
-import { fitLine, fitStudy, type StudyFitSettings } from '@shared/engine';
+import { fitLine, fitStudy } from '@shared/engine';
 import { correctDilution } from '@shared/engine/corrections/correct-dilution';
 import type * as CorrectDilutionModule from '@shared/engine/corrections/correct-dilution';
 import { readCertified, readNistSeries } from './support/nist-fixture';
 import { expectClose } from './support/expect-close';
+import { fitPoint, fitSettings } from './support/study-fit-fixture';
 
 // The engine's own modules, wrapped so the test can count how often the pipeline calls them.
 vi.mock('@shared/engine/corrections/correct-dilution', async (original) => {
@@ -20,40 +21,18 @@ vi.mock('ml-regression-simple-linear', () => ({
   },
 }));
 
-const settings: StudyFitSettings = {
-  solventId: 'acetonitrile',
-  customSolventName: null,
-  customViscosity: null,
-  temperature: 298.15,
-  tau0: null,
-  tau0Uncertainty: null,
-  tau0LifetimeId: null,
-  dataKind: 'intensity',
-  i0: null,
-  dilutionCorrection: true,
-  initialVolume: 2e-3,
-  stockConcentration: 0.1,
-  stockContainsEmitter: false,
-  innerFilterCorrection: false,
-};
+const settings = fitSettings({ dilutionCorrection: true, initialVolume: 2e-3, stockConcentration: 0.1 });
 
 describe('one pass per point (issue 13, finding 12)', () => {
   it('when dilution-corrected points also carry lifetimes, then each point is corrected once', () => {
     // Invented titration: 0-80 µL of 0.1 M stock into 2 mL, lifetimes 1 µs / (1 + 500 [Q]).
     const points = [0, 20e-6, 40e-6, 60e-6, 80e-6].map((volume, position) => {
       const q = (0.1 * volume) / (2e-3 + volume);
-      return {
-        position,
-        concentration: (0.1 * volume) / 2e-3,
-        intensity: ((1000 / (1 + 500 * q)) * 2e-3) / (2e-3 + volume),
+      return fitPoint(position, (0.1 * volume) / 2e-3, ((1000 / (1 + 500 * q)) * 2e-3) / (2e-3 + volume), {
         lifetime: 1e-6 / (1 + 500 * q),
-        absorbanceExcitation: null,
-        absorbanceEmission: null,
         volumeAdded: volume,
-        uncertainty: null,
         excluded: position === 4,
-        series: 1,
-      };
+      });
     });
     vi.mocked(correctDilution).mockClear();
     const fit = fitStudy(settings, points, 'linear-free');

@@ -1,35 +1,10 @@
 import { linearRegression } from 'simple-statistics';
-import { pointAt } from '@shared/schemas/study-points';
 import { describe, expect, it } from 'vitest';
-import {
-  correctPoint,
-  fitStudy,
-  type StudyFitPoint as SeriesPoint,
-  type StudyFitSettings as FitSettings,
-} from '@shared/engine';
+import { correctPoint, fitStudy } from '@shared/engine';
+import { fitPoint, fitSettings } from './support/study-fit-fixture';
 
-const settings: FitSettings = {
-  solventId: 'acetonitrile',
-  customSolventName: null,
-  customViscosity: null,
-  temperature: 298.15,
-  tau0: 1e-6,
-  tau0Uncertainty: null,
-  tau0LifetimeId: null,
-  dataKind: 'intensity',
-  i0: null,
-  dilutionCorrection: false,
-  initialVolume: null,
-  stockConcentration: null,
-  stockContainsEmitter: false,
-  innerFilterCorrection: false,
-};
-const point = (
-  position: number,
-  concentration: number,
-  intensity: number | null,
-  extra: Partial<SeriesPoint> = {},
-): SeriesPoint => ({ ...pointAt(concentration), position, intensity, ...extra });
+const settings = fitSettings({ tau0: 1e-6 });
+const point = fitPoint;
 // Exact line I0/I = 1 + 500 [Q] (constructed, so K_SV = 500 M^-1 by hand).
 const exact = [0, 1e-3, 2e-3, 3e-3, 4e-3, 5e-3].map((q, i) => point(i, q, 1000 / (1 + 500 * q)));
 
