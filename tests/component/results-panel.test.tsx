@@ -2,7 +2,7 @@ import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { ENGINE_VERSION } from '@shared/engine';
 import { fitStudy } from '@shared/engine/study-fit';
-import { fitParameterLines, formatEstimate, rSquaredLines } from '@shared/format';
+import { fitParameterLines, formatEstimate, rSquaredLines, weightingText } from '@shared/format';
 import { pointAt } from '@shared/schemas/study-points';
 import type { StudyFit } from '@shared/schemas/study-fits';
 import { ResultsPanel } from '@/features/studies/components/results-panel';
@@ -27,6 +27,7 @@ function storedFit(): StudyFit {
   return {
     id: '3e1f0a2b-5c6d-4e7f-8a9b-0c1d2e3f4a5b',
     ...fitStudy(studyDetail(), points, 'linear-free'),
+    weighting: 'unweighted',
     trigger: 'manual',
     engineVersion: ENGINE_VERSION,
     createdBy: 'Ada Example',
@@ -49,6 +50,9 @@ describe('ResultsPanel', () => {
       expect(screen.getByText(`${line.label} = ${line.value.toFixed(4)}`, { exact: false })).toBeTruthy();
     }
     expect(screen.getByText(`engine ${ENGINE_VERSION}`, { exact: false })).toBeTruthy();
+    expect(screen.getByLabelText('Weighting').textContent).toBe(
+      `Weighting: ${weightingText(fit.result.weighting)}`, // 'unweighted least squares'
+    );
   });
 
   it('when the engine raised flags, then each one shows its title, what to do and what to check', () => {
