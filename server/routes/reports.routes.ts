@@ -25,7 +25,7 @@ export const reportRoutes = [
     request: { params: studyParams },
     responses: { 200: { description: 'application/pdf' }, 404: { description: 'No such study' } },
     handler: async ({ req, res, params }) => {
-      sendPdf(res, await studyReport(labOf(req), params.studyId));
+      sendPdf(res, await studyReport(req.app.locals.services, labOf(req), params.studyId));
     },
   }),
   defineRoute({

@@ -1,4 +1,5 @@
 import { PDFParse } from 'pdf-parse';
+import { Op } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Lab, Study } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
@@ -171,6 +172,31 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     expect(text).toContain(
       `K_SV from lifetimes: ${formatEstimate(withLifetimes!.kSv.value, withLifetimes!.kSv.standardError, 'M⁻¹')}`,
     );
+  });
+
+  it("when a study has a kept decay set, then the report lists each decay with its τ and SE, the set's τ0 and lifetime K_SV, and draws the decays from the kept file", async () => {
+    const study = (await Study.findOne({
+      where: { labId, isCurrent: true, title: { [Op.like]: '%lifetimes from decays' } },
+    }))!;
+    const [set] = (await client.get(`/api/labs/${labId}/studies/${study.id}/decay-sets`).expect(200)).body.items;
+    const pdf = binary(await pdfOf(`/api/labs/${labId}/studies/${study.id}/report.pdf`));
+    const text = (await pdfText(pdf)).replace(/\s+/g, ' ');
+    expect(text).toContain(`Decays: ${set.title}`);
+    expect(text).toContain(set.file.sha256);
+    // The same numbers the screen shows, through the shared formatter (tests/unit/format).
+    const { tau0, kSv } = set.sternVolmer;
+    expect(text).toContain(`τ0 from the blank: ${formatEstimate(tau0.value * 1e9, tau0.standardError * 1e9, 'ns')}`);
+    expect(text).toContain(`Lifetime K_SV: ${formatEstimate(kSv.value, kSv.standardError, 'M⁻¹')}`);
+    for (const outcome of set.outcomes) {
+      expect(text).toContain(`Decay ${outcome.label}`);
+      expect(text).toContain(formatEstimate(outcome.lifetime.value * 1e9, outcome.lifetime.standardError * 1e9, ''));
+    }
+    expect(text).toContain('Lifetime Stern–Volmer plot of the set');
+    expect(text).toContain('weighted residual');
+    // Drawn: the response in violet and the weighted residuals in brick, as on screen (decay-chart-setup.ts).
+    const pages = renderPdfPages(pdf, reportShots, 'study-decays', 100);
+    expect(pages.reduce((sum, page) => sum + pixelsOfColour(page, chartInk.band, 12), 0)).toBeGreaterThan(50);
+    expect(pages.reduce((sum, page) => sum + pixelsOfColour(page, chartInk.excluded, 12), 0)).toBeGreaterThan(200);
   });
 
   it('when a modified fit with a left-out point is reported, then the x axis reads 1/[Q] with its unit and the cross is drawn (issue 13, finding 11)', async () => {

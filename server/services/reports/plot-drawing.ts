@@ -3,7 +3,7 @@ import type { Pdf } from './pdf-document';
 import { chartInk, drawAxes, niceScale, plotArea, type Box } from './report-charts';
 
 /** Round-valued axes around the data (niceScale), drawn as on screen; returns where a value lands. */
-function axes(doc: Pdf, box: Box, xValues: number[], yValues: number[], xLabel: string, yLabel: string) {
+export function axes(doc: Pdf, box: Box, xValues: number[], yValues: number[], xLabel: string, yLabel: string) {
   const x = niceScale(Math.min(0, ...xValues), Math.max(...xValues));
   const y = niceScale(Math.min(...yValues), Math.max(...yValues));
   drawAxes(doc, box, x, y, xLabel, yLabel);
@@ -77,8 +77,15 @@ export function drawSternVolmer(doc: Pdf, result: FitResult): void {
   doc.y = residualBox.y + residualBox.height + 34;
 }
 
+/** What a lifetime Stern–Volmer plot needs: a study fit's lifetime part, or a decay set's own line. */
+export interface LifetimeLine {
+  xAxis: { label: string; scale: number };
+  points: ReadonlyArray<{ x: number; y: number }>;
+  kSv: { value: number };
+}
+
 /** τ0/τ against [Q] with the line 1 + K_SV(τ)[Q] (Lakowicz, 3rd ed., ch. 8), when lifetimes were measured. */
-export function drawLifetime(doc: Pdf, lifetime: NonNullable<FitResult['lifetime']>): void {
+export function drawLifetime(doc: Pdf, lifetime: LifetimeLine): void {
   const { label: xLabel, scale: concentrationScale } = lifetime.xAxis;
   if (doc.y > doc.page.height - 260) doc.addPage();
   const box: Box = { x: 100, y: doc.y + 20, width: 380, height: 150 };

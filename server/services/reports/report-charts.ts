@@ -88,9 +88,18 @@ export function plotArea(box: Box, x: NiceScale, y: NiceScale) {
 
 /**
  * A frame with grid lines at the nice ticks, tick labels through the shared number formatter
- * (3 significant figures, × 10ⁿ beyond 10 000) and axis titles with their units.
+ * (3 significant figures, × 10ⁿ beyond 10 000) and axis titles with their units. A log axis
+ * passes its decades as ticks (log₁₀ of the value) and `yTickLabel` writes the value itself.
  */
-export function drawAxes(doc: Pdf, box: Box, x: NiceScale, y: NiceScale, xTitle: string, yTitle: string): void {
+export function drawAxes(
+  doc: Pdf,
+  box: Box,
+  x: NiceScale,
+  y: NiceScale,
+  xTitle: string,
+  yTitle: string,
+  yTickLabel: (tick: number) => string = formatNumber,
+): void {
   doc.save();
   doc.lineWidth(0.4).strokeColor(chartInk.grid);
   for (const tick of x.ticks) {
@@ -118,7 +127,7 @@ export function drawAxes(doc: Pdf, box: Box, x: NiceScale, y: NiceScale, xTitle:
     });
   }
   for (const tick of y.ticks) {
-    doc.text(formatNumber(tick), box.x - 48, box.y + box.height - place(tick, y, 0, box.height) - 4, {
+    doc.text(yTickLabel(tick), box.x - 48, box.y + box.height - place(tick, y, 0, box.height) - 4, {
       width: 44,
       align: 'right',
       lineBreak: false,

@@ -16,6 +16,8 @@ import { getStudyDetail } from '../studies/study.service';
 import { createReport, facts, finish, fixed, heading, sci, table } from './pdf-document';
 import type { Pdf } from './pdf-document';
 import { drawLifetime, drawSternVolmer } from './plot-drawing';
+import { decaysSection } from './decay-report';
+import type { UploadServices } from '../studies/study-upload.service';
 
 const date = isoDateTime;
 
@@ -34,7 +36,7 @@ function conditions(doc: Pdf, study: StudyDetail) {
     [
       'τ0',
       study.tau0
-        ? `${formatEstimate(study.tau0 * 1e9, study.tau0Uncertainty === null ? null : study.tau0Uncertainty * 1e9, UNITS.nanosecond)}${study.tau0LifetimeId ? ' (from a lifetime record)' : ''}`
+        ? `${formatEstimate(study.tau0 * 1e9, study.tau0Uncertainty === null ? null : study.tau0Uncertainty * 1e9, UNITS.nanosecond)}${study.tau0LifetimeId ? ' (from a lifetime record)' : study.tau0Source ? ` (from decay ${study.tau0Source.fileName})` : ''}`
         : 'not given',
     ],
     [
@@ -188,8 +190,15 @@ function review(doc: Pdf, study: StudyDetail) {
   doc.fontSize(10);
 }
 
-/** The PDF report of one study: identification, conditions, points, plots, fit, flags, driving force, review, files. */
-export async function studyReport(lab: LabContext, studyId: string): Promise<{ pdf: Buffer; filename: string }> {
+/**
+ * The PDF report of one study: identification, conditions, points, plots, fit, flags, decays
+ * (their fits and plots, drawn from the kept files), driving force, review, files.
+ */
+export async function studyReport(
+  services: UploadServices,
+  lab: LabContext,
+  studyId: string,
+): Promise<{ pdf: Buffer; filename: string }> {
   const study = await getStudyDetail(lab, studyId);
   const doc = createReport(
     study.title,
@@ -198,6 +207,7 @@ export async function studyReport(lab: LabContext, studyId: string): Promise<{ p
   conditions(doc, study);
   results(doc, study);
   points(doc, study);
+  await decaysSection(doc, services, lab, study.id);
   await drivingForceSection(doc, lab, study);
   review(doc, study);
   if (study.notes) {
