@@ -14,7 +14,7 @@
  * Settings (environment): BENCH_LOAD_SECONDS (each phase, default 30), BENCH_LOAD_CONNECTIONS
  * (read and baseline connections, default 200), BENCH_LOAD_WRITE_RATE (writes/s, default 20),
  * BENCH_LOAD_STUDIES (generated studies, default 5000), BENCH_LOAD_ROUTES=1 (also each read route
- * alone at 50 connections), BENCH_LOAD_CPU_PROF=<folder> (the server runs with --cpu-prof and
+ * alone at 50 connections; =only for those alone, to compare two builds route by route), BENCH_LOAD_CPU_PROF=<folder> (the server runs with --cpu-prof and
  * writes one .cpuprofile per process there), BENCH_LOAD_PROJECT=<folder> (serve another checkout's
  * build, e.g. a worktree of an older commit, with this benchmark). HALFLIGHT_WORKERS and LOG_LEVEL
  * reach the server; BENCH_LOAD_SERVER_LOG=<file> keeps
@@ -28,6 +28,7 @@ import { projectRoot } from '../../server/config/env';
 import { freePort } from '../support/free-port';
 import { generatedStudiesSql } from './load-data';
 import { demoLabPicks, signIn, startProductionServer } from './load-server';
+import { serverCpuMs } from './process-cpu';
 
 const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 30);
 const connections = Number(process.env.BENCH_LOAD_CONNECTIONS ?? 200);
@@ -44,7 +45,9 @@ const loadAverage = () =>
     .map((value) => value.toFixed(2))
     .join(' / ');
 
-type Phase = { name: string; connections: number; result: autocannon.Result; load: string };
+/** CPU ms per request of the server's node processes and of PostgreSQL during a phase. */
+type Cpu = { node: number; postgres: number };
+type Phase = { name: string; connections: number; result: autocannon.Result; load: string; cpu?: Cpu };
 
 function run(options: autocannon.Options): Promise<autocannon.Result> {
   return new Promise((resolve, reject) => {
@@ -202,37 +205,65 @@ async function main() {
     await run({ ...readOptions(50, readMix), duration: 5 });
 
     const phases: Phase[] = [];
-    const bare = await run({
-      url: `${server.baseUrl}/api/health`,
-      connections,
-      duration: seconds,
-      timeout: 20,
-    });
-    phases.push({ name: '/api/health (bare route)', connections, result: bare, load: loadAverage() });
-    const read = await run(readOptions(connections, readMix));
-    phases.push({ name: 'read mix', connections, result: read, load: loadAverage() });
-    const writeConnections = Math.max(4, writeRate);
-    const [readUnderWrites, writes] = await Promise.all([
-      run(readOptions(connections, readMix)),
-      run({
-        url: server.baseUrl,
-        connections: writeConnections,
-        overallRate: writeRate,
+    /** Runs phases together and gives the server's CPU per request over all of them. */
+    const measured = async <T extends autocannon.Result[]>(runs: () => Promise<T>): Promise<[T, Cpu]> => {
+      const before = serverCpuMs(server.pid, dataDir);
+      const results = await runs();
+      const after = serverCpuMs(server.pid, dataDir);
+      const requests = results.reduce((sum, result) => sum + result.requests.total, 0) || 1;
+      return [
+        results,
+        { node: (after.node - before.node) / requests, postgres: (after.postgres - before.postgres) / requests },
+      ];
+    };
+    const routesOnly = process.env.BENCH_LOAD_ROUTES === 'only';
+    const [[bare], bareCpu] = await measured(async () => [
+      await run({
+        url: `${server.baseUrl}/api/health`,
+        connections,
         duration: seconds,
-        requests: writeMix,
         timeout: 20,
+        ...(routesOnly ? { connections: 50, duration: Math.min(seconds, 15) } : {}),
       }),
     ]);
-    const loadNow = loadAverage();
-    phases.push({ name: 'read mix, with writes', connections, result: readUnderWrites, load: loadNow });
     phases.push({
-      name: `writes (${writeRate}/s asked)`,
-      connections: writeConnections,
-      result: writes,
-      load: loadNow,
+      name: '/api/health (bare route)',
+      connections: routesOnly ? 50 : connections,
+      result: bare,
+      load: loadAverage(),
+      cpu: bareCpu,
     });
+    let read = bare;
+    if (!routesOnly) {
+      const [[readMixResult], readCpu] = await measured(async () => [await run(readOptions(connections, readMix))]);
+      read = readMixResult;
+      phases.push({ name: 'read mix', connections, result: read, load: loadAverage(), cpu: readCpu });
+      const writeConnections = Math.max(4, writeRate);
+      const [[readUnderWrites, writes], bothCpu] = await measured(() =>
+        Promise.all([
+          run(readOptions(connections, readMix)),
+          run({
+            url: server.baseUrl,
+            connections: writeConnections,
+            overallRate: writeRate,
+            duration: seconds,
+            requests: writeMix,
+            timeout: 20,
+          }),
+        ]),
+      );
+      const loadNow = loadAverage();
+      // The CPU of this phase is shared by reads and writes: per request of both together.
+      phases.push({ name: 'read mix, with writes', connections, result: readUnderWrites, load: loadNow, cpu: bothCpu });
+      phases.push({
+        name: `writes (${writeRate}/s asked)`,
+        connections: writeConnections,
+        result: writes,
+        load: loadNow,
+      });
+    }
 
-    if (process.env.BENCH_LOAD_ROUTES === '1') {
+    if (process.env.BENCH_LOAD_ROUTES === '1' || routesOnly) {
       const routes: Array<[string, string]> = [
         ['GET /api/session', '/api/session'],
         ['studies list', `${lab_}/studies`],
@@ -242,8 +273,10 @@ async function main() {
         ['dashboard', `${lab_}/dashboard`],
       ];
       for (const [name, route] of routes) {
-        const result = await run({ ...readOptions(50, [{ path: route }]), duration: Math.min(seconds, 15) });
-        phases.push({ name: `  ${name}`, connections: 50, result, load: loadAverage() });
+        const [[result], cpu] = await measured(async () => [
+          await run({ ...readOptions(50, [{ path: route }]), duration: Math.min(seconds, 15) }),
+        ]);
+        phases.push({ name: `  ${name}`, connections: 50, result, load: loadAverage(), cpu });
       }
     }
 
@@ -253,12 +286,12 @@ async function main() {
       `\n${seconds} s per phase on 127.0.0.1, signed in as the demo researcher; HALFLIGHT_WORKERS=${process.env.HALFLIGHT_WORKERS ?? '(default)'}`,
     );
     console.log(
-      `${'phase'.padEnd(30)} ${'conns'.padStart(5)} ${'req/s'.padStart(8)} ${'p50 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'non-2xx'.padStart(8)} ${'errors'.padStart(7)}   load avg 1/5/15 at end`,
+      `${'phase'.padEnd(30)} ${'conns'.padStart(5)} ${'req/s'.padStart(8)} ${'p50 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'non-2xx'.padStart(8)} ${'errors'.padStart(7)} ${'node ms/req'.padStart(12)} ${'pg ms/req'.padStart(10)}   load avg 1/5/15 at end`,
     );
     for (const phase of phases) {
       const { result } = phase;
       console.log(
-        `${phase.name.padEnd(30)} ${String(phase.connections).padStart(5)} ${perSecond(result).padStart(8)} ${String(result.latency.p50).padStart(7)} ${String(result.latency.p99).padStart(7)} ${String(result.non2xx).padStart(8)} ${String(result.errors).padStart(7)}   ${phase.load}`,
+        `${phase.name.padEnd(30)} ${String(phase.connections).padStart(5)} ${perSecond(result).padStart(8)} ${String(result.latency.p50).padStart(7)} ${String(result.latency.p99).padStart(7)} ${String(result.non2xx).padStart(8)} ${String(result.errors).padStart(7)} ${(phase.cpu?.node.toFixed(2) ?? '').padStart(12)} ${(phase.cpu?.postgres.toFixed(2) ?? '').padStart(10)}   ${phase.load}`,
       );
     }
     if (debug) {
@@ -268,11 +301,12 @@ async function main() {
         );
     }
     const failed = [...writesByKind.failed].map(([key, n]) => `${key}: ${n}`).join(', ');
-    console.log(
-      `writes done: ${writesByKind.create} studies created, ${writesByKind.points} point replacements, ${writesByKind.upload} uploads${failed ? `; refused: ${failed}` : ''}`,
-    );
+    if (!routesOnly)
+      console.log(
+        `writes done: ${writesByKind.create} studies created, ${writesByKind.points} point replacements, ${writesByKind.upload} uploads${failed ? `; refused: ${failed}` : ''}`,
+      );
     const ratio = read.requests.total / read.duration / (bare.requests.total / bare.duration);
-    console.log(`ratio read mix / bare route: ${ratio.toFixed(2)}`);
+    if (!routesOnly) console.log(`ratio read mix / bare route: ${ratio.toFixed(2)}`);
   } finally {
     const code = await server.stop().catch((error: Error) => {
       console.error(error.message);
