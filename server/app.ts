@@ -114,6 +114,34 @@ const staticCacheHeaders = (clientDir: string) => (res: ServerResponse, filePath
   res.setHeader('Cache-Control', immutable ? 'public, max-age=31536000, immutable' : 'no-cache');
 };
 
+/**
+ * One line per request at info level (pino-http). pino-http serialises and redacts each request
+ * into a child logger as it arrives, whatever the level, so with LOG_LEVEL=warn or higher it is
+ * left out: req.log becomes a child logger naming the request only when something is logged.
+ */
+function requestLogging(logger: Logger, logDatabaseTime: boolean): RequestHandler {
+  if (!logger.isLevelEnabled('info')) {
+    return (req, _res, next) => {
+      let log: Logger | undefined;
+      // Made only when something is logged: a warning or an error names the request it came from.
+      Object.defineProperty(req, 'log', {
+        configurable: true,
+        get: () => (log ??= logger.child({ req: { method: req.method, url: redactUrl(req.originalUrl) } })),
+      });
+      next();
+    };
+  }
+  return pinoHttp({
+    logger,
+    autoLogging: { ignore: (req) => req.url === '/api/health' },
+    serializers: { req: (req: { url: string }) => Object.assign(req, { url: redactUrl(req.url) }) },
+    // At debug level each request's line says how many database round trips it made and their time.
+    ...(logDatabaseTime && {
+      customProps: (_req, res) => (res.locals?.databaseTime ? { database: res.locals.databaseTime } : {}),
+    }),
+  });
+}
+
 function accessGuards(access: RouteAccess): RequestHandler[] {
   if (access === 'public') return [];
   if (access === 'signed-in') return [requireAuth];
@@ -173,16 +201,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   };
 
   const logDatabaseTime = logger.isLevelEnabled('debug');
-  app.use(
-    pinoHttp({
-      logger,
-      autoLogging: { ignore: (req) => req.url === '/api/health' },
-      serializers: { req: (req: { url: string }) => Object.assign(req, { url: redactUrl(req.url) }) },
-      // At debug level each request's line says how many database round trips it made and their time.
-      customProps: (_req, res) =>
-        logDatabaseTime && res.locals?.databaseTime ? { database: res.locals.databaseTime } : {},
-    }),
-  );
+  app.use(requestLogging(logger, logDatabaseTime));
   if (logDatabaseTime) app.use(countDatabaseTime);
   app.use(securityHeaders(secure));
   // API answers: gzip or brotli (fast settings) above 1 KB when the client accepts it. Each answer

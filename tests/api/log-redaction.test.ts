@@ -1,6 +1,8 @@
 import { Writable } from 'node:stream';
 import { pino } from 'pino';
 import { afterAll, describe, expect, it } from 'vitest';
+import { defineRoute } from '../../server/http/define-route';
+import { apiRoutes } from '../../server/routes';
 import { apiClient, createLabWithMembers, latestMailTo } from '../support/accounts';
 import { createTestApp } from '../support/test-app';
 
@@ -14,6 +16,32 @@ const sink = new Writable({
 });
 const testApp = await createTestApp({ logger: pino({ level: 'info' }, sink) });
 afterAll(testApp.close);
+
+// The same app logging warnings and errors only (LOG_LEVEL=warn), with a route that fails.
+const warnLines: string[] = [];
+const warnSink = new Writable({
+  write(chunk: Buffer, _encoding, done) {
+    warnLines.push(chunk.toString('utf8'));
+    done();
+  },
+});
+const failing = defineRoute({
+  method: 'get',
+  path: '/api/log-test/failure',
+  summary: 'Fails on purpose (log test)',
+  tags: ['system'],
+  access: 'public',
+  responses: { 500: { description: 'always' } },
+  handler: () => {
+    throw new Error('failed on purpose');
+  },
+});
+const warnApp = await createTestApp({
+  sequelize: testApp.sequelize,
+  logger: pino({ level: 'warn' }, warnSink),
+  routes: [...apiRoutes, failing],
+});
+afterAll(warnApp.close);
 
 const cookieValues = (header: string[] | string | undefined) =>
   ([] as string[]).concat(header ?? []).map((cookie) => cookie.split(';')[0]!.split('=')[1]!);
@@ -54,5 +82,17 @@ describe('the request log', () => {
       expect(secret.length).toBeGreaterThan(8);
       expect(log.includes(secret), `the log holds a secret: ${secret.slice(0, 6)}…`).toBe(false);
     }
+  });
+});
+
+describe('the log at warn level', () => {
+  it('when requests succeed and one fails, then only the failure is written, naming its method and redacted address', async () => {
+    const client = await apiClient(warnApp.app);
+    expect((await client.get('/api/csrf-token')).status).toBe(200);
+    expect((await client.get('/api/log-test/failure?token=secret-link-token')).status).toBe(500);
+    const entries = warnLines.map((line) => JSON.parse(line) as { msg: string; req?: { method: string; url: string } });
+    expect(entries.map((entry) => entry.msg)).toEqual(['unhandled error']);
+    expect(entries[0]!.req).toMatchObject({ method: 'GET', url: '/api/log-test/failure?token=[Redacted]' });
+    expect(warnLines.join('')).not.toContain('secret-link-token');
   });
 });
