@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Button } from '@/components/button';
+import { PageNav } from '@/components/page-nav';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
@@ -46,19 +46,7 @@ function CaughtMailScreen() {
           {mail.isPending && <Signal tone="waiting">Loading messages</Signal>}
           {mail.isError && <ErrorNotice error={mail.error} what="the caught mail" />}
           {mail.data && <MailList items={mail.data.items} selectedId={selectedId} onSelect={setSelectedId} />}
-          {pages > 1 && (
-            <nav aria-label="Pages of messages" className="mt-3 flex items-center justify-between">
-              <Button variant="quiet" disabled={page <= 1} onClick={() => setPage(page - 1)}>
-                Newer
-              </Button>
-              <span className="text-caption text-ink-600">
-                Page {page} of {pages}
-              </span>
-              <Button variant="quiet" disabled={page >= pages} onClick={() => setPage(page + 1)}>
-                Older
-              </Button>
-            </nav>
-          )}
+          <PageNav page={page} pages={pages} onPage={setPage} label="Pages of messages" back="Newer" forward="Older" />
         </Panel>
         <Panel title="Reading">
           {selected ? <MailReader mail={selected} /> : <EmptyState title="Choose a message to read it." />}

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import type { CompoundRoleHint } from '@shared/schemas/compound-role';
-import { Button } from '@/components/button';
+import { PageNav } from '@/components/page-nav';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
 import { SelectField } from '@/components/select-field';
@@ -92,19 +92,7 @@ function LibraryScreen({
         {compounds.data && (
           <CompoundTable labId={labId} compounds={compounds.data.items} filtered={Boolean(search || roleHint)} />
         )}
-        {pages > 1 && (
-          <nav aria-label="Pages" className="mt-3 flex items-center gap-3 text-body">
-            <Button variant="quiet" disabled={page <= 1} onClick={() => setPage(page - 1)}>
-              Previous
-            </Button>
-            <span>
-              Page {page} of {pages}
-            </span>
-            <Button variant="quiet" disabled={page >= pages} onClick={() => setPage(page + 1)}>
-              Next
-            </Button>
-          </nav>
-        )}
+        <PageNav page={page} pages={pages} onPage={setPage} />
       </Panel>
       {canAdd && (
         <Panel title="Add a compound">

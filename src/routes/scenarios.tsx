@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { EmptyState } from '@/components/empty-state';
 import { LinkButton } from '@/components/link-button';
+import { PageNav } from '@/components/page-nav';
 import { ScreenHeader } from '@/components/screen-header';
 import { ErrorNotice } from '@/components/error-notice';
 import { Panel } from '@/components/panel';
@@ -46,19 +47,7 @@ export function ScenariosRoute() {
             ))}
           </ul>
         )}
-        {pages > 1 && (
-          <nav aria-label="Pages" className="mt-3 flex gap-2 text-body">
-            <button type="button" disabled={page <= 1} onClick={() => setPage(page - 1)}>
-              Previous
-            </button>
-            <span>
-              Page {page} of {pages}
-            </span>
-            <button type="button" disabled={page >= pages} onClick={() => setPage(page + 1)}>
-              Next
-            </button>
-          </nav>
-        )}
+        <PageNav page={page} pages={pages} onPage={setPage} />
       </Panel>
     </div>
   );
