@@ -12,46 +12,55 @@ function Source({ used }: { used: UsedPotential }) {
   );
 }
 
+const row = 'grid gap-x-4 sm:grid-cols-[minmax(10rem,auto)_1fr] border-t border-paper-200 py-2';
+
+/** One excited-state potential (a dash when it cannot be worked out) and the sum it comes from. */
+function ExcitedPotential({
+  label,
+  value,
+  reference,
+  from,
+}: {
+  label: string;
+  value: number | null;
+  reference: string;
+  from: string | false | null;
+}) {
+  return (
+    <div className={row}>
+      <span className="font-bold text-ink-900">{label}</span>
+      <span>
+        {value === null ? (
+          '—'
+        ) : (
+          <strong>
+            {formatVolts(value)} vs {reference}
+          </strong>
+        )}
+        {from && <span className="block text-caption text-ink-600">= {from}</span>}
+      </span>
+    </div>
+  );
+}
+
 /** E*(PC+/PC*) = E(PC+/PC) − E00 and E*(PC* / PC−) = E(PC/PC−) + E00, each beside the numbers it comes from. */
 export function ExcitedStatePanel({ state }: { state: ExcitedState }) {
-  const row = 'grid gap-x-4 sm:grid-cols-[minmax(10rem,auto)_1fr] border-t border-paper-200 py-2';
+  const e00 = state.e00 && formatElectronvolts(state.e00.value, false);
   return (
     <Panel title="Excited-state potentials">
       <div className="text-body">
-        <div className={row}>
-          <span className="font-bold text-ink-900">E*(PC+/PC*)</span>
-          <span>
-            {state.excitedOxidation === null ? (
-              '—'
-            ) : (
-              <strong>
-                {formatVolts(state.excitedOxidation)} vs {state.reference}
-              </strong>
-            )}
-            {state.oxidation && state.e00 && (
-              <span className="block text-caption text-ink-600">
-                = E(PC+/PC) {formatVolts(state.oxidation.value)} − E00 {formatElectronvolts(state.e00.value, false)}
-              </span>
-            )}
-          </span>
-        </div>
-        <div className={row}>
-          <span className="font-bold text-ink-900">E*(PC*/PC−)</span>
-          <span>
-            {state.excitedReduction === null ? (
-              '—'
-            ) : (
-              <strong>
-                {formatVolts(state.excitedReduction)} vs {state.reference}
-              </strong>
-            )}
-            {state.reduction && state.e00 && (
-              <span className="block text-caption text-ink-600">
-                = E(PC/PC−) {formatVolts(state.reduction.value)} + E00 {formatElectronvolts(state.e00.value, false)}
-              </span>
-            )}
-          </span>
-        </div>
+        <ExcitedPotential
+          label="E*(PC+/PC*)"
+          value={state.excitedOxidation}
+          reference={state.reference}
+          from={state.oxidation && e00 && `E(PC+/PC) ${formatVolts(state.oxidation.value)} − E00 ${e00}`}
+        />
+        <ExcitedPotential
+          label="E*(PC*/PC−)"
+          value={state.excitedReduction}
+          reference={state.reference}
+          from={state.reduction && e00 && `E(PC/PC−) ${formatVolts(state.reduction.value)} + E00 ${e00}`}
+        />
         <div className={row}>
           <span className="text-ink-700">From</span>
           <span className="space-y-1">
@@ -69,7 +78,7 @@ export function ExcitedStatePanel({ state }: { state: ExcitedState }) {
             )}
             {state.e00 && (
               <span className="block">
-                E00 {formatElectronvolts(state.e00.value, false)}
+                E00 {e00}
                 <span className="block text-caption text-ink-500">
                   {state.e00.wavelength ? `from ${state.e00.wavelength} nm, ` : ''}
                   {state.e00.method}
