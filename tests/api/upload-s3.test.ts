@@ -2,7 +2,8 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { StudyUpload } from '../../server/models';
+import { DecayFile, StudyUpload } from '../../server/models';
+import { demoDecayFile } from '../../server/seed/demo-decays';
 import { moveFilesToS3 } from '../../server/services/studies/files/move-files-to-s3';
 import { createRawFileStore } from '../../server/services/studies/files/raw-file-store';
 import { createS3Objects } from '../../server/services/studies/files/s3-objects';
@@ -61,7 +62,7 @@ async function signedIn(app: Awaited<ReturnType<typeof createTestApp>>) {
         res.on('data', (chunk: Buffer) => chunks.push(chunk));
         res.on('end', () => done(null, Buffer.concat(chunks)));
       });
-  return { client, study, base, send, download };
+  return { client, csrf, study, base, send, download };
 }
 
 describe('POST /api/labs/:labId/studies/:studyId/uploads with object storage', () => {
@@ -136,5 +137,29 @@ describe('npm run files:move-to-s3 (moveFilesToS3)', () => {
     // The app that writes to the database still reads the moved file from the bucket.
     const again = await download(row!.id);
     expect(Buffer.compare(again.body as Buffer, bytes)).toBe(0);
+  });
+
+  it('when decay files kept in the database are moved, then each lives in the bucket with the same SHA-256 and the set is drawn from there', async () => {
+    const { client, csrf, base } = await signedIn(inDatabase);
+    // The demo's invented titration (a response column and six decays) as a kept decay set.
+    const bytes = demoDecayFile();
+    const kept = await client.agent
+      .post(`${base}/decay-sets`)
+      .set('x-csrf-token', csrf)
+      .attach('file', bytes, 'titration.csv');
+    expect(kept.status, JSON.stringify(kept.body)).toBe(201);
+    expect(await DecayFile.findByPk(kept.body.file.id)).toMatchObject({ storage: 'database' });
+    const lines: string[] = [];
+    const result = await moveFilesToS3(s3, (line) => lines.push(line), { labId });
+    expect(result.refused).toBe(0);
+    expect(await DecayFile.count({ where: { storage: 'database', labId } })).toBe(0);
+    const row = await DecayFile.findByPk(kept.body.file.id);
+    expect(row).toMatchObject({ storage: 's3', content: null });
+    expect(sha256(await s3.get(row!.storageKey!))).toBe(row!.sha256);
+    expect(lines.some((line) => line.includes(`decay file ${row!.id}`) && line.includes('SHA-256 checked'))).toBe(true);
+    // The app that writes to the database draws the set's curves from the bucket.
+    const curves = await client.get(`/api/labs/${labId}/decay-sets/${kept.body.id}/decays/0/curves`);
+    expect(curves.status, JSON.stringify(curves.body)).toBe(200);
+    expect(curves.body.counts).toHaveLength(1024);
   });
 });
