@@ -1,6 +1,7 @@
 import type { FitModel } from '../schemas/studies';
 import type { Estimate, FitResult } from '../schemas/study-fits';
 import { formatEstimate } from './format-estimate';
+import { formatNumber } from './format-number';
 import { UNITS } from './quantity-units';
 
 /** One fitted parameter as people read it: the same label, unit and numbers on screen, in CSV and PDF. */
@@ -111,4 +112,19 @@ export function weightingText(weighting: FitResult['weighting']): string {
   return weighting.chosen === 'weighted'
     ? `unweighted least squares (weighted chosen, but ${weighting.reason ?? 'the points give no weights'})`
     : 'unweighted least squares';
+}
+
+type Replicates = NonNullable<FitResult['replicates']>;
+
+/** The pooled runs in words: "2 runs, each divided by its own I0: run 1 1000, run 2 800". */
+export function replicateRunsText(replicates: Replicates): string {
+  const runs = replicates.runs.map((run) => `run ${run.series} ${formatNumber(run.value)}`);
+  return `${replicates.runs.length} runs, each divided by its own I0: ${runs.join(', ')}`;
+}
+
+/** The weighted fit of pooled runs beside the unweighted one, and whether weighting moves K_SV beyond its SE. */
+export function weightingComparisonText(weighting: NonNullable<Replicates['weighting']>): string {
+  const source = weighting.source === 'point-uncertainties' ? 'readings’ uncertainties' : 'replicate scatter';
+  const estimate = (value: Estimate) => formatEstimate(value.value, value.standardError, UNITS.perMolar);
+  return `Weighted by the ${source} (Bevington & Robinson, ch. 6): K_SV = ${estimate(weighting.weighted)}; unweighted ${estimate(weighting.unweighted)}. Weighting moves K_SV by ${weighting.beyondStandardError ? 'more' : 'less'} than its standard error.`;
 }

@@ -12,5 +12,13 @@ export {
 export { estimateParts, formatEstimate, formatInterval, uncertaintyDigit, type EstimateParts } from './format-estimate';
 export { titled, UNITS, type UnitText } from './quantity-units';
 export { formatDate, formatDateTime, isoDate, isoDateTime } from './format-date';
-export { fitParameterLines, rSquaredLines, tau0Text, weightingText, type ParameterLine } from './fit-parameters';
+export {
+  fitParameterLines,
+  replicateRunsText,
+  rSquaredLines,
+  tau0Text,
+  weightingComparisonText,
+  weightingText,
+  type ParameterLine,
+} from './fit-parameters';
 export { describeUploadReading } from './upload-reading';

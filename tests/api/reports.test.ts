@@ -3,7 +3,7 @@ import { Op } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Lab, Study } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
-import { formatEstimate, weightingText } from '@shared/format';
+import { formatEstimate, replicateRunsText, weightingText } from '@shared/format';
 import { fitModelNames, type FitModel } from '@shared/schemas/studies';
 import { chartInk } from '../../server/services/reports/report-charts';
 import { apiClient } from '../support/accounts';
@@ -213,6 +213,37 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     // 150 dpi: the cross is two 1.2 pt strokes, thinner than a pixel at the default 60 dpi
     const pages = renderPdfPages(pdf, reportShots, 'study-modified', 150);
     expect(pages.reduce((sum, page) => sum + pixelsOfColour(page, chartInk.excluded, 12), 0)).toBeGreaterThan(10);
+  });
+
+  it('when a study pools replicate runs, then the PDF and the CSVs carry each run, the mean ± SD per [Q] and the weighting', async () => {
+    const study = await createStudy(client, labId, 'report-runs');
+    // Two runs of the constructed line 1 + 500 [Q], run 2 with the lamp at 80 % and a 2 % scatter (invented).
+    const run2 = exactPoints.map((p, i) => ({
+      ...p,
+      series: 2,
+      intensity: p.intensity! * 0.8 * (1 + [0, 0.02, -0.02, 0.02, -0.02, 0.02][i]!),
+    }));
+    const points = [...exactPoints, ...run2];
+    const base = `/api/labs/${labId}/studies/${study.id}`;
+    expect((await client.patch(`${base}/points`, { version: 0, points })).status).toBe(200);
+    const fit = (await client.post(`${base}/fits`, { model: 'linear-free', weighting: 'weighted' })).body;
+    const { replicates } = fit.result;
+    const text = (await pdfText(binary(await pdfOf(`${base}/report.pdf`)))).replace(/\s+/g, ' ');
+    expect(text).toContain(`${replicateRunsText(replicates)}.`);
+    expect(text).toContain(`Weighting: ${weightingText(fit.result.weighting)}`);
+    expect(text).toContain('I0/I mean ± SD');
+    // 1 mM: run 1 gives 1.5, run 2 1.5/1.02; mean ± sample SD as the shared formatter writes them
+    const atOne = replicates.summary.find((row: { concentration: number }) => row.concentration === 1e-3);
+    expect(text).toContain(formatEstimate(atOne.mean, atOne.sd, ''));
+
+    const pointsCsv = (await client.get(`${base}/export.csv?part=points`).expect(200)).text.split('\n');
+    expect(pointsCsv[0]).toMatch(/^\ufeff?position,run,/); // after the UTF-8 byte-order mark
+    expect(pointsCsv[7]).toMatch(/^7,2,/); // the first reading of run 2
+    const fitCsv = (await client.get(`${base}/export.csv?part=fit`).expect(200)).text;
+    expect(fitCsv).toMatch(/^run_2_i0,800,/m); // run 2's blank: 1000 × 0.8
+    expect(fitCsv).toMatch(/^kSv_weighted,/m);
+    expect(fitCsv).toMatch(/^kSv_unweighted,/m);
+    expect(fitCsv).toMatch(/^ratio_mean_at_0.001_M,/m);
   });
 
   it('when a line through 1 is reported, then the PDF labels its R² as uncentred beside the centred one and says what each SE includes', async () => {

@@ -2,13 +2,17 @@ import {
   fitParameterLines,
   formatEstimate,
   formatInterval,
+  formatNumber,
   isoDateTime,
   rSquaredLines,
+  replicateRunsText,
   tau0Text,
   UNITS,
+  weightingComparisonText,
   weightingText,
 } from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
+import type { FitResult } from '@shared/schemas/study-fits';
 import { fitModelNames } from '@shared/schemas/studies';
 import type { LabContext } from '../../domain/lab-context';
 import { drivingForceOfStudy } from '../library/driving-force.service';
@@ -80,6 +84,7 @@ function results(doc: Pdf, study: StudyDetail) {
     ['Fitted', `${date(fit.createdAt)} by ${fit.createdBy ?? 'Halflight'}, engine ${fit.engineVersion}`],
   ]);
   drawSternVolmer(doc, fit.result);
+  if (fit.result.replicates) replicates(doc, fit.result.replicates);
   if (fit.result.lifetime) {
     heading(doc, 'Lifetimes');
     const { kSv, rSquared, verdict } = fit.result.lifetime;
@@ -101,12 +106,31 @@ function results(doc: Pdf, study: StudyDetail) {
   }
 }
 
+/** Pooled runs: each run's I0, mean ± SD of I0/I per [Q], and the weighted fit beside the unweighted one. */
+function replicates(doc: Pdf, pooled: NonNullable<FitResult['replicates']>) {
+  heading(doc, 'Replicate runs');
+  doc.text(`${replicateRunsText(pooled)}.`);
+  if (pooled.weighting) doc.text(weightingComparisonText(pooled.weighting));
+  doc.moveDown(0.3);
+  table(
+    doc,
+    [`[Q] (${UNITS.millimolar})`, 'Readings', 'I0/I mean ± SD'],
+    pooled.summary.map((row) => [
+      fixed(row.concentration * 1e3, 5),
+      String(row.n),
+      row.sd === null ? formatNumber(row.mean, 4) : formatEstimate(row.mean, row.sd, ''),
+    ]),
+    [80, 60, 140],
+  );
+}
+
 function points(doc: Pdf, study: StudyDetail) {
   heading(doc, 'Points');
   table(
     doc,
     [
       '#',
+      'Run',
       `[Q] (${UNITS.millimolar})`,
       study.dataKind === 'ratio' ? 'I0/I' : 'Intensity',
       `τ (${UNITS.nanosecond})`,
@@ -117,6 +141,7 @@ function points(doc: Pdf, study: StudyDetail) {
     ],
     study.points.map((point) => [
       String(point.position + 1),
+      String(point.series),
       fixed(point.concentration * 1e3, 5),
       fixed(point.intensity, 5),
       point.lifetime ? fixed(point.lifetime * 1e9, 4) : '—',
@@ -125,7 +150,7 @@ function points(doc: Pdf, study: StudyDetail) {
       point.excluded ? 'no' : 'yes',
       point.exclusionReason ?? '',
     ]),
-    [25, 60, 70, 55, 45, 45, 35, 160],
+    [25, 25, 60, 70, 55, 45, 45, 35, 135],
   );
 }
 

@@ -1,4 +1,5 @@
 import { isoDateTime, rSquaredLines, titled, UNITS, weightingText } from '@shared/format';
+import type { Estimate, FitResult } from '@shared/schemas/study-fits';
 import { csvTable } from '../../lib/csv-cells';
 import type { LabContext } from '../../domain/lab-context';
 import { getStudyDetail } from './study.service';
@@ -10,6 +11,7 @@ export async function exportPointsCsv(lab: LabContext, studyId: string) {
   const residuals = new Map(study.latestFit?.result.plot.points.map((point) => [point.position, point.residual]) ?? []);
   const header = [
     'position',
+    'run',
     titled('[Q]', UNITS.molar),
     study.dataKind === 'ratio' ? 'I0/I' : 'intensity',
     titled('lifetime', UNITS.second),
@@ -26,6 +28,7 @@ export async function exportPointsCsv(lab: LabContext, studyId: string) {
   ];
   const rows = study.points.map((point) => [
     point.position + 1,
+    point.series,
     point.concentration,
     point.intensity,
     point.lifetime,
@@ -74,17 +77,8 @@ export async function exportFitCsv(lab: LabContext, studyId: string) {
       ['engine_version', fit.engineVersion, '', '', '', ''],
       ['fitted_at', isoDateTime(fit.createdAt), '', '', '', ''],
     );
-    for (const [name, estimate] of Object.entries(fit.result.parameters)) {
-      rows.push([
-        name,
-        estimate.value,
-        estimate.standardError,
-        estimate.interval95.lower,
-        estimate.interval95.upper,
-        units[name] ?? '',
-        estimate.includes ?? '',
-      ]);
-    }
+    for (const [name, estimate] of Object.entries(fit.result.parameters))
+      rows.push(estimateRow(name, estimate, units[name] ?? '', estimate.includes ?? ''));
     const stats = fit.result.statistics;
     rows.push(['n', stats.n, '', '', '', '']);
     for (const line of rSquaredLines(stats)) rows.push([line.key, line.value, '', '', '', '', line.label]);
@@ -104,8 +98,55 @@ export async function exportFitCsv(lab: LabContext, studyId: string) {
         ['kq_over_k_diff', fit.result.diffusionLimit.ratio, '', '', '', '1'],
       );
     for (const flag of fit.result.flags) rows.push(['flag', flag.title, flag.detail ?? '', '', '', '']);
+    rows.push(...replicateRows(fit.result.replicates));
   } else rows.push(['fit', study.fitProblem ?? 'no fit yet', '', '', '', '']);
   return { fileName: `${slug(study.title)}-fit.csv`, body: csvTable(rows) };
+}
+
+/** One estimate as a row: name, value, SE, 95 % interval, unit and what the SE includes. */
+const estimateRow = (name: string, estimate: Estimate, unit: string, includes: string): unknown[] => [
+  name,
+  estimate.value,
+  estimate.standardError,
+  estimate.interval95.lower,
+  estimate.interval95.upper,
+  unit,
+  includes,
+];
+
+/**
+ * Pooled runs in the fit CSV: each run's I0 (SE of its blank mean), the weighted and unweighted
+ * K_SV of the pooled ratios, and one row per [Q] with the mean I0/I, its sample SD in the
+ * standard_error column and the number of readings in the last.
+ */
+function replicateRows(replicates: FitResult['replicates']): unknown[][] {
+  if (!replicates) return [];
+  const rows: unknown[][] = replicates.runs.map((run) => [
+    `run_${run.series}_i0`,
+    run.value,
+    run.standardError ?? '',
+    '',
+    '',
+    '',
+    `mean of ${run.blanks} blank(s)`,
+  ]);
+  const { weighting } = replicates;
+  if (weighting)
+    rows.push(
+      estimateRow('kSv_weighted', weighting.weighted, UNITS.perMolar, `weights 1/σ² from the ${weighting.source}`),
+      estimateRow('kSv_unweighted', weighting.unweighted, UNITS.perMolar, 'the same points unweighted'),
+    );
+  for (const row of replicates.summary)
+    rows.push([
+      `ratio_mean_at_${row.concentration}_M`,
+      row.mean,
+      row.sd ?? '',
+      '',
+      '',
+      '1',
+      `I0/I mean ± sample SD of ${row.n} reading(s) at [Q] = ${row.concentration} M`,
+    ]);
+  return rows;
 }
 
 const slug = (title: string) =>

@@ -5,6 +5,8 @@ import {
   rSquaredLines,
   tau0Text,
   weightingText,
+  replicateRunsText,
+  weightingComparisonText,
   formatDateTime,
   formatEstimate,
   formatInterval,
@@ -41,14 +43,11 @@ function Row({ label, estimate, unit }: { label: string; estimate: Estimate | un
 
 /** Several runs pooled: each run's I0, mean ± SD per concentration, and the weighted fit beside the unweighted one. */
 function Replicates({ replicates }: { replicates: NonNullable<StudyFit['result']['replicates']> }) {
-  const { runs, summary, weighting } = replicates;
+  const { summary, weighting } = replicates;
   const unit = concentrationDisplayUnit(Math.max(...summary.map((row) => row.concentration)));
   return (
     <section aria-label="Replicate runs" className="space-y-1">
-      <p>
-        {runs.length} runs, each divided by its own I0:{' '}
-        {runs.map((run) => `run ${run.series} ${formatQuantity(run.value, '')}`.trim()).join(', ')}
-      </p>
+      <p>{replicateRunsText(replicates)}</p>
       <table className="text-caption">
         <thead>
           <tr>
@@ -74,16 +73,8 @@ function Replicates({ replicates }: { replicates: NonNullable<StudyFit['result']
         </tbody>
       </table>
       {weighting && (
-        <p aria-label="Weighted fit">
-          Weighted by the {weighting.source === 'point-uncertainties' ? 'readings’ uncertainties' : 'replicate scatter'}{' '}
-          (Bevington &amp; Robinson, ch. 6): K_SV ={' '}
-          {formatEstimate(weighting.weighted.value, weighting.weighted.standardError, UNITS.perMolar)}; unweighted{' '}
-          {formatEstimate(weighting.unweighted.value, weighting.unweighted.standardError, UNITS.perMolar)}.{' '}
-          <strong>
-            {weighting.beyondStandardError
-              ? 'Weighting moves K_SV by more than its standard error.'
-              : 'Weighting moves K_SV by less than its standard error.'}
-          </strong>
+        <p aria-label="Weighted fit" className={weighting.beyondStandardError ? 'font-bold' : undefined}>
+          {weightingComparisonText(weighting)}
         </p>
       )}
     </section>
