@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
-import { QueryTypes } from 'sequelize';
 import type { Role } from '@shared/schemas/roles';
 import { roleAtLeast } from '@shared/schemas/roles';
+import { selectRows } from '../db/select-rows';
 import { AppError } from '../lib/app-error';
 import { Membership } from '../models';
 
@@ -37,10 +37,7 @@ export function requireLabRole(needed: Role): RequestHandler {
     if (!req.user) throw new AppError('not_signed_in', 'Sign in to use this part of Halflight.', 401);
     if (!uuidPattern.test(labId)) throw labNotFound();
     // Every lab request asks this: one fixed statement, no query building or model instances.
-    const [membership] = await Membership.sequelize!.query<MembershipRow>(membershipSql, {
-      bind: [labId, req.user.id],
-      type: QueryTypes.SELECT,
-    });
+    const [membership] = await selectRows<MembershipRow>(Membership.sequelize!, membershipSql, [labId, req.user.id]);
     if (!membership) throw labNotFound();
     if (!roleAtLeast(membership.role, needed)) {
       throw new AppError(

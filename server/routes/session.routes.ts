@@ -1,5 +1,4 @@
 import type { Request, Response } from 'express';
-import { Op } from 'sequelize';
 import { csrfTokenSchema, sessionSchema, signInSchema } from '@shared/schemas/auth';
 import type { Session } from '@shared/schemas/auth';
 import { secondStepNeededSchema, secondStepSchema } from '@shared/schemas/two-factor';
@@ -9,8 +8,8 @@ import { actorOf, signedInActor } from '../http/request-context';
 import { AppError } from '../lib/app-error';
 import { User } from '../models';
 import { recordAudit } from '../services/audit.service';
-import { loadSessionUser } from '../services/session-user.service';
-import { checkSecondStep, unusedRecoveryCodes } from '../services/two-factor.service';
+import { loadSessionState } from '../services/session-user.service';
+import { checkSecondStep } from '../services/two-factor.service';
 
 function authenticate(req: Request, res: Response): Promise<Express.User | false> {
   return new Promise((resolve, reject) => {
@@ -30,17 +29,16 @@ export async function sessionResponse(
   options: { newSession: boolean },
 ): Promise<Session> {
   const { generateCsrfToken, mailCatcher } = req.app.locals.services;
-  const user = await loadSessionUser(userId);
-  const enabled = await User.count({ where: { id: userId, totpEnabledAt: { [Op.ne]: null } } });
+  const { user, twoFactorEnabled, recoveryCodesLeft } = await loadSessionState(userId);
   return {
     user,
     // A new session (just signed in) needs a new token; otherwise the current one stays valid.
     csrfToken: generateCsrfToken(req, res, { overwrite: options.newSession }),
     mailCatcher,
     twoFactor: {
-      enabled: enabled > 0,
+      enabled: twoFactorEnabled,
       verified: req.session.twoFactorVerified === true,
-      recoveryCodesLeft: enabled ? await unusedRecoveryCodes(userId) : 0,
+      recoveryCodesLeft,
     },
   };
 }

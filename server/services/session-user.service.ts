@@ -1,26 +1,52 @@
 import type { SessionUser } from '@shared/schemas/auth';
+import { selectRows } from '../db/select-rows';
 import { AppError } from '../lib/app-error';
-import { Lab, Membership, User } from '../models';
+import { User } from '../models';
+
+export interface SessionState {
+  user: SessionUser;
+  twoFactorEnabled: boolean;
+  /** Unused recovery codes (0 while two-step sign-in is off). */
+  recoveryCodesLeft: number;
+}
+
+type StateRow = {
+  id: string;
+  email: string;
+  name: string;
+  two_factor_enabled: boolean;
+  recovery_codes_left: number;
+  labs: SessionUser['labs'];
+};
+
+// Every screen asks for the session first: the person, their labs (by name) and their two-step
+// state in one statement, the labs as JSON built by PostgreSQL.
+const stateSql = `
+  SELECT u.id, u.email, u.name, u.totp_enabled_at IS NOT NULL AS two_factor_enabled,
+         CASE WHEN u.totp_enabled_at IS NULL THEN 0 ELSE
+           (SELECT count(*)::int FROM recovery_codes r WHERE r.user_id = u.id AND r.used_at IS NULL) END
+           AS recovery_codes_left,
+         COALESCE((
+           SELECT json_agg(json_build_object('labId', l.id, 'labName', l.name, 'isDemo', l.is_demo,
+                                             'role', m.role, 'requireTwoFactor', l.require_two_factor)
+                           ORDER BY l.name, l.id)
+           FROM memberships m JOIN labs l ON l.id = m.lab_id
+           WHERE m.user_id = u.id), '[]'::json) AS labs
+  FROM users u
+  WHERE u.id = $1`;
+
+/** The signed-in person with every lab they belong to, their role there and their two-step state. */
+export async function loadSessionState(userId: string): Promise<SessionState> {
+  const [row] = await selectRows<StateRow>(User.sequelize!, stateSql, [userId]);
+  if (!row) throw new AppError('not_signed_in', 'Sign in to use this part of Halflight.', 401);
+  return {
+    user: { id: row.id, email: row.email, name: row.name, labs: row.labs },
+    twoFactorEnabled: row.two_factor_enabled,
+    recoveryCodesLeft: row.recovery_codes_left,
+  };
+}
 
 /** The signed-in person with every lab they belong to and their role there. */
 export async function loadSessionUser(userId: string): Promise<SessionUser> {
-  const user = await User.findByPk(userId);
-  if (!user) throw new AppError('not_signed_in', 'Sign in to use this part of Halflight.', 401);
-  const memberships = await Membership.findAll({
-    where: { userId },
-    include: [{ model: Lab, as: 'lab' }],
-    order: [[{ model: Lab, as: 'lab' }, 'name', 'ASC']],
-  });
-  return {
-    id: user.id,
-    email: user.email,
-    name: user.name,
-    labs: memberships.map((membership) => ({
-      labId: membership.lab!.id,
-      labName: membership.lab!.name,
-      isDemo: membership.lab!.isDemo,
-      role: membership.role,
-      requireTwoFactor: membership.lab!.requireTwoFactor,
-    })),
-  };
+  return (await loadSessionState(userId)).user;
 }

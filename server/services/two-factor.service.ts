@@ -1,7 +1,6 @@
 import crypto from 'node:crypto';
 import { generateSecret, generateURI, verify } from 'otplib';
 import QRCode from 'qrcode';
-import { Op } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
 import { roleAtLeast } from '@shared/schemas/roles';
 import type { TwoFactorSetup } from '@shared/schemas/two-factor';
@@ -171,8 +170,4 @@ export async function renewRecoveryCodes(sequelize: Sequelize, actor: SignedInAc
     await recordAudit(actor, { action: 'recovery_codes_renewed', targetType: 'user', targetId: user.id }, transaction);
     return codes;
   });
-}
-
-export async function unusedRecoveryCodes(userId: string): Promise<number> {
-  return RecoveryCode.count({ where: { userId, usedAt: { [Op.is]: null } } });
 }

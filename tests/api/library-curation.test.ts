@@ -33,6 +33,12 @@ describe('GET /api/labs/:labId/compounds', () => {
     expect(searched.body).toMatchObject({ total: 1, items: [{ name: 'Q-amine-a' }] });
     const paged = await viewer.get(`/api/labs/${labId}/compounds?page=2&pageSize=2`);
     expect(paged.body).toMatchObject({ total: 3, page: 2, pageSize: 2, items: [{ name: 'Q-amine-a' }] });
+    const pastTheEnd = await viewer.get(`/api/labs/${labId}/compounds?page=5&pageSize=2`);
+    expect(pastTheEnd.body).toMatchObject({ total: 3, page: 5, items: [] });
+    // A list item says what the compound's own page says about it (the list reads plain rows).
+    const [listed] = searched.body.items;
+    expect(listed.createdByName).toBeTruthy();
+    expect((await viewer.get(`/api/labs/${labId}/compounds/${listed.id}`)).body).toMatchObject(listed);
     const again = await researcher.post(`/api/labs/${labId}/compounds`, { name: 'hl-ir-A', roleHint: 'quencher' });
     expect(again.status).toBe(409);
     expect(again.body.error.details[0].path).toBe('body.name');

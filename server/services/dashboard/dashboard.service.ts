@@ -1,6 +1,6 @@
-import { QueryTypes } from 'sequelize';
 import type { Dashboard, DashboardStudy } from '@shared/schemas/dashboard';
 import { roleAtLeast } from '@shared/schemas/roles';
+import { selectRows } from '../../db/select-rows';
 import type { LabContext } from '../../domain/lab-context';
 import { Study } from '../../models';
 import { describeActivity } from './describe-activity';
@@ -78,8 +78,8 @@ export async function getDashboard(lab: LabContext, userId: string): Promise<Das
   ];
   // Two round trips, asked together: the screen waits for the slower one only.
   const [listRows, events] = await Promise.all([
-    sequelize.query<ListRow>(parts.join('\nUNION ALL\n'), { bind: [lab.id, userId], type: QueryTypes.SELECT }),
-    sequelize.query<EventRow>(eventsSql, { bind: [lab.id], type: QueryTypes.SELECT }),
+    selectRows<ListRow>(sequelize, parts.join('\nUNION ALL\n'), [lab.id, userId]),
+    selectRows<EventRow>(sequelize, eventsSql, [lab.id]),
   ]);
   const lists: Record<ListName, DashboardStudy[]> = {
     waitingForMyReview: [],

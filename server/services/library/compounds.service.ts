@@ -1,5 +1,5 @@
 import { ForeignKeyConstraintError, literal, Op } from 'sequelize';
-import type { Sequelize, WhereOptions } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type {
   CompoundChanges,
   CompoundList,
@@ -8,6 +8,7 @@ import type {
   CompoundValues,
 } from '@shared/schemas/library';
 import type { CompoundDetail } from '@shared/schemas/library-views';
+import { selectRows } from '../../db/select-rows';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Compound, User } from '../../models';
@@ -70,23 +71,61 @@ const roleFilter = {
   both: ['both'],
 } as const;
 
+type SummaryRow = Omit<CompoundSummary, 'counts' | 'createdAt' | 'updatedAt'> & {
+  potentials: number;
+  lifetimes: number;
+  energies: number;
+  createdAt: Date;
+  updatedAt: Date;
+  total: number;
+};
+
+// The library's list in one statement of plain rows (no model instances): the page, each
+// compound's measurement counts and author, and the number of matches beside each row.
+const listSql = (where: string, binds: number) => `
+  SELECT c.id, c.name, c.role_hint AS "roleHint", c.smiles, c.formula, c.notes, c.emissive_state AS "emissiveState",
+         c.triplet_energy AS "tripletEnergy", c.triplet_energy_source AS "tripletEnergySource", c.charge,
+         (SELECT count(*)::int FROM redox_potentials m WHERE m.compound_id = c.id) AS potentials,
+         (SELECT count(*)::int FROM excited_state_lifetimes m WHERE m.compound_id = c.id) AS lifetimes,
+         (SELECT count(*)::int FROM excited_state_energies m WHERE m.compound_id = c.id) AS energies,
+         c.created_by_id AS "createdById", u.name AS "createdByName", c.version,
+         c.created_at AS "createdAt", c.updated_at AS "updatedAt", c.total
+  FROM (SELECT *, count(*) OVER ()::int AS total FROM compounds WHERE ${where}
+        ORDER BY name ASC, id ASC LIMIT $${binds + 1} OFFSET $${binds + 2}) c
+  LEFT JOIN users u ON u.id = c.created_by_id
+  ORDER BY c.name ASC, c.id ASC`;
+
 export async function listCompounds(
   lab: LabContext,
   query: CompoundListQuery & { page: number; pageSize: number },
 ): Promise<CompoundList> {
-  const where: WhereOptions<Compound>[] = [{ labId: lab.id }];
-  if (query.search) where.push({ name: { [Op.iLike]: `%${query.search.replace(/[\\%_]/g, '\\$&')}%` } });
-  if (query.roleHint) where.push({ roleHint: [...roleFilter[query.roleHint]] });
-  const { rows, count: total } = await Compound.findAndCountAll({
-    where: { [Op.and]: where },
-    attributes: summaryAttributes,
-    include: withAuthor,
-    order: [['name', 'ASC']],
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
-    distinct: true,
-  });
-  return { items: rows.map(toSummary), total, page: query.page, pageSize: query.pageSize };
+  const values: unknown[] = [lab.id];
+  const where = ['lab_id = $1'];
+  if (query.search) {
+    values.push(`%${query.search.replace(/[\\%_]/g, '\\$&')}%`);
+    where.push(`name ILIKE $${values.length}`);
+  }
+  if (query.roleHint) {
+    values.push([...roleFilter[query.roleHint]]);
+    where.push(`role_hint::text = ANY($${values.length}::text[])`);
+  }
+  const sequelize = Compound.sequelize!;
+  const sql = listSql(where.join(' AND '), values.length);
+  const offset = (query.page - 1) * query.pageSize;
+  const rows = await selectRows<SummaryRow>(sequelize, sql, [...values, query.pageSize, offset]);
+  // A page past the end has no row to carry the number of matches: the first row tells it.
+  const [counted] = rows.length || !offset ? rows : await selectRows<SummaryRow>(sequelize, sql, [...values, 1, 0]);
+  return {
+    items: rows.map(({ potentials, lifetimes, energies, total: _total, createdAt, updatedAt, ...compound }) => ({
+      ...compound,
+      counts: { potentials, lifetimes, energies },
+      createdAt: createdAt.toISOString(),
+      updatedAt: updatedAt.toISOString(),
+    })),
+    total: counted?.total ?? 0,
+    page: query.page,
+    pageSize: query.pageSize,
+  };
 }
 
 export async function getCompound(lab: LabContext, compoundId: string): Promise<CompoundDetail> {

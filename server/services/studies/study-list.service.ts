@@ -1,7 +1,7 @@
-import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
 import type { ListStudiesQuery, StudyList } from '@shared/schemas/studies';
 import type { LabContext } from '../../domain/lab-context';
+import { selectRows } from '../../db/select-rows';
 import { AppError } from '../../lib/app-error';
 import { Study } from '../../models';
 import { toSummary, type SummaryRow } from './study-serialize';
@@ -157,8 +157,8 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
     LIMIT ${limit}`;
   const countSql = `SELECT count(*)::int AS n FROM (SELECT 1 FROM studies s WHERE ${where.join(' AND ')} LIMIT ${STUDY_COUNT_CAP + 1}) c`;
   const [rows, [counted]] = await Promise.all([
-    sequelize.query<Row>(pageSql, { bind: binds.values, type: QueryTypes.SELECT }),
-    sequelize.query<{ n: number }>(countSql, { bind: binds.values.slice(0, filterBinds), type: QueryTypes.SELECT }),
+    selectRows<Row>(sequelize, pageSql, binds.values),
+    selectRows<{ n: number }>(sequelize, countSql, binds.values.slice(0, filterBinds)),
   ]);
   const more = rows.length > query.pageSize;
   const page = rows.slice(0, query.pageSize);

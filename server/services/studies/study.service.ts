@@ -1,7 +1,8 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { CreateStudyInput, UpdateStudyInput } from '@shared/schemas/studies';
 import { studySettingsIssues } from '@shared/schemas/studies';
 import type { StudyDetail } from '@shared/schemas/study-detail';
+import { selectRows } from '../../db/select-rows';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Study, StudyFit, type StudyPoint, type StudyReview, type StudyUpload } from '../../models';
@@ -198,7 +199,7 @@ export async function getStudyDetail(lab: LabContext, studyId: string, refitted 
   // rest is read only by study id and lab, and thrown away if the study turns out not to be there.
   const [study, [parts]] = await Promise.all([
     loadStudyWithNames(lab, studyId),
-    Study.sequelize!.query<DetailParts>(detailPartsSql, { bind: [studyId, lab.id], type: QueryTypes.SELECT }),
+    selectRows<DetailParts>(Study.sequelize!, detailPartsSql, [studyId, lab.id]),
   ]);
   const points = parts!.points.map((row) => modelShaped<StudyPoint>(row));
   const fitRow = parts!.latest_fit;

@@ -1,0 +1,67 @@
+import { Writable } from 'node:stream';
+import { pino } from 'pino';
+import { QueryTypes } from 'sequelize';
+import { afterAll, describe, expect, it } from 'vitest';
+import { inject } from 'vitest';
+import { createSequelize } from '../../server/db/sequelize';
+import { initModels } from '../../server/models';
+import { apiClient, createLabWithMembers } from '../support/accounts';
+import { createTestApp } from '../support/test-app';
+
+// At debug level each request's log line counts its database round trips (Sequelize's, the plain
+// reads' and the session store's): what a read costs besides its answer, checked route by route.
+const lines: string[] = [];
+const sink = new Writable({
+  write(chunk: Buffer, _encoding, done) {
+    lines.push(chunk.toString('utf8'));
+    done();
+  },
+});
+const sequelize = createSequelize(inject('databaseUrl'), { timeQueries: true });
+initModels(sequelize);
+const testApp = await createTestApp({ sequelize, logger: pino({ level: 'debug' }, sink) });
+afterAll(async () => {
+  await testApp.close();
+  await sequelize.close();
+});
+
+type Line = { req?: { method: string; url: string }; res?: { statusCode: number }; database?: { queries: number } };
+
+/** The round trips of the last request to `url`, read from its log line. */
+async function roundTripsOf(send: () => Promise<{ status: number }>, url: string): Promise<number> {
+  lines.length = 0;
+  expect((await send()).status).toBe(200);
+  // The line is written when the answer has gone out; give the stream a turn.
+  await new Promise((resolve) => setImmediate(resolve));
+  const line = lines
+    .map((text) => JSON.parse(text) as Line)
+    .find((entry) => entry.req?.url === url && entry.res?.statusCode === 200);
+  expect(line, `no log line for ${url}`).toBeDefined();
+  return line!.database?.queries ?? 0;
+}
+
+describe('round trips of the reads every screen makes', () => {
+  it('when a signed-in person asks for the session, then it costs the session row and one statement', async () => {
+    const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+    const client = await apiClient(testApp.app);
+    await client.signIn(users.researcher);
+    const session = await client.get('/api/session');
+    expect(session.body.user.labs).toHaveLength(1);
+    expect(session.body.twoFactor).toEqual({ enabled: false, verified: false, recoveryCodesLeft: 0 });
+    expect(await roundTripsOf(() => client.get('/api/session'), '/api/session')).toBe(2);
+  });
+
+  it('when a signed-in person reads, then the session row is not written again', async () => {
+    const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+    const client = await apiClient(testApp.app);
+    await client.signIn(users.researcher);
+    const expiry = () =>
+      sequelize.query<{ expire: Date }>(`SELECT expire FROM sessions WHERE sess #>> '{passport,user}' = $1`, {
+        bind: [users.researcher.id],
+        type: QueryTypes.SELECT,
+      });
+    const before = await expiry();
+    for (let i = 0; i < 3; i++) expect((await client.get(`/api/labs/${lab.id}/studies`)).status).toBe(200);
+    expect(await expiry()).toEqual(before);
+  });
+});
