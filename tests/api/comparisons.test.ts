@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { rehmWellerRateConstant, solventDiffusionLimit } from '../../shared/engine';
-import { ExcitedStateEnergy, RedoxPotential } from '../../server/models';
+import { ExcitedStateEnergy, RedoxPotential, Study, StudyFit } from '../../server/models';
 import { apiClient, createLabWithMembers } from '../support/accounts';
 import { createCompound, createStudyRecord } from '../support/study-records';
 import { createTestApp } from '../support/test-app';
@@ -118,6 +118,38 @@ describe('GET /api/labs/:labId/comparisons/:side/:compoundId', () => {
       'Pt-row',
       'Pt-row',
     ]);
+  });
+
+  it('when a study has a fit, then its row carries the standard errors and the flags of that fit only', async () => {
+    const study = await Study.findOne({ where: { labId, title: 'in DMF' } });
+    // Test inputs, not measurements: a stored fit result reduced to the parts a comparison reads.
+    const fit = await StudyFit.create({
+      studyId: study!.id,
+      model: 'linear-free',
+      trigger: 'manual',
+      kSv: 1e3,
+      kq: 1e9,
+      result: {
+        parameters: { kq: { value: 1e9, standardError: 4e7 }, kSv: { value: 1e3, standardError: 40 } },
+        flags: [
+          { code: 'few_points', title: 'Few points', severity: 'warning', whatToDo: 'Measure more.' },
+          { code: 'curvature', title: 'Curved', severity: 'info', whatToDo: 'Look at the residuals.' },
+        ],
+      } as never,
+      pointsUsed: [],
+      engineVersion: 'test',
+    });
+    await study!.update({ latestFitId: fit.id });
+    const response = await viewer.get(`/api/labs/${labId}/comparisons/emitter/${emitterId}`);
+    const row = response.body.rows.find((item: { title: string }) => item.title === 'in DMF');
+    expect(row.kq).toEqual({ value: 1e9, standardError: 4e7 });
+    expect(row.kSv).toEqual({ value: 1000, standardError: 40 }); // the study's own K_SV (createStudyRecord: kq x tau0)
+    expect(row.flags).toEqual([
+      { code: 'few_points', title: 'Few points' },
+      { code: 'curvature', title: 'Curved' },
+    ]);
+    const others = response.body.rows.filter((item: { title: string }) => item.title !== 'in DMF');
+    expect(others.every((item: { flags: unknown[]; kq: { standardError: null } }) => !item.flags.length)).toBe(true);
   });
 
   it('when exported, then the CSV carries the same rows with an approved column', async () => {

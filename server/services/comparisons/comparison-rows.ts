@@ -1,17 +1,18 @@
-import { Op } from 'sequelize';
 import type { ComparisonRow } from '@shared/schemas/comparisons';
 import type { LabContext } from '../../domain/lab-context';
-import { Compound, Study, StudyFit } from '../../models';
+import { selectRows } from '../../db/select-rows';
+import { Study } from '../../models';
 import {
   drivingForceOfStudyFrom,
   loadDrivingForceInputs,
   type DrivingForceInputs,
+  type StudyPair,
 } from '../library/driving-force.service';
 
 type RowDrivingForce = Pick<ComparisonRow, 'drivingForce' | 'drivingForceMissing'>;
 
 /** The highlighted driving force of a study's pair in its solvent, or why there is none. */
-function rowDrivingForce(inputs: DrivingForceInputs, study: Study): RowDrivingForce {
+function rowDrivingForce(inputs: DrivingForceInputs, study: StudyPair): RowDrivingForce {
   const result = drivingForceOfStudyFrom(inputs, study);
   if (!result)
     return { drivingForce: null, drivingForceMissing: 'custom solvent: no permittivity in the solvent table' };
@@ -29,6 +30,47 @@ function rowDrivingForce(inputs: DrivingForceInputs, study: Study): RowDrivingFo
   };
 }
 
+type StudyRow = {
+  id: string;
+  title: string;
+  emitterId: string;
+  quencherId: string;
+  solventId: string | null;
+  customSolventName: string | null;
+  pinnedMechanism: string | null;
+  status: ComparisonRow['status'];
+  kq: number | null;
+  kSv: number | null;
+  partnerId: string | null;
+  partnerName: string | null;
+  kqStandardError: number | null;
+  kSvStandardError: number | null;
+  flags: ComparisonRow['flags'] | null;
+};
+
+/**
+ * The newest 500 current studies of the compound on one side, as plain rows with only what a
+ * row shows: the partner's name, and from the newest fit only the two standard errors and the
+ * flags' codes and titles (picked out of the stored result by PostgreSQL, not the whole result).
+ */
+const studiesSql = (side: 'emitter' | 'quencher') => {
+  const [own, partner] = side === 'emitter' ? ['emitter_id', 'quencher_id'] : ['quencher_id', 'emitter_id'];
+  return `
+  SELECT s.id, s.title, s.emitter_id AS "emitterId", s.quencher_id AS "quencherId", s.solvent_id AS "solventId",
+         s.custom_solvent_name AS "customSolventName", s.pinned_mechanism AS "pinnedMechanism", s.status,
+         s.kq, s.k_sv AS "kSv", p.id AS "partnerId", p.name AS "partnerName",
+         (f.result #>> '{parameters,kq,standardError}')::float8 AS "kqStandardError",
+         (f.result #>> '{parameters,kSv,standardError}')::float8 AS "kSvStandardError",
+         (SELECT json_agg(json_build_object('code', flag ->> 'code', 'title', flag ->> 'title') ORDER BY n)
+            FROM jsonb_array_elements(f.result -> 'flags') WITH ORDINALITY AS x(flag, n)) AS flags
+  FROM (SELECT * FROM studies
+        WHERE lab_id = $1 AND is_current AND ${own} = $2
+        ORDER BY updated_at DESC, id ASC LIMIT 500) s
+  LEFT JOIN compounds p ON p.id = s.${partner}
+  LEFT JOIN study_fits f ON f.id = s.latest_fit_id
+  ORDER BY s.updated_at DESC, s.id ASC`;
+};
+
 /**
  * One row per current study of the compound (as emitter: each quencher; as quencher: each
  * emitter), with kq and K_SV and their standard errors from the newest fit, flags, status and
@@ -39,19 +81,7 @@ export async function comparisonRows(
   side: 'emitter' | 'quencher',
   compoundId: string,
 ): Promise<ComparisonRow[]> {
-  const studies = await Study.findAll({
-    where: { labId: lab.id, isCurrent: true, [side === 'emitter' ? 'emitterId' : 'quencherId']: compoundId },
-    include: [{ model: Compound, as: side === 'emitter' ? 'quencher' : 'emitter' }],
-    order: [['updatedAt', 'DESC']],
-    limit: 500,
-  });
-  const fitIds = studies.map((study) => study.latestFitId).filter((id): id is string => id !== null);
-  const fits = new Map(
-    (await StudyFit.findAll({ where: { id: { [Op.in]: fitIds } }, attributes: ['id', 'result'] })).map((fit) => [
-      fit.id,
-      fit,
-    ]),
-  );
+  const studies = await selectRows<StudyRow>(Study.sequelize!, studiesSql(side), [lab.id, compoundId]);
   // The library's numbers for every compound on the page are read once (four queries, not five per
   // pair); replicates and revisions of one pair share a driving force: computed once per pair,
   // solvent and pin.
@@ -61,27 +91,20 @@ export async function comparisonRows(
     [...new Set(studies.map((study) => study.emitterId))],
   );
   const forces = new Map<string, RowDrivingForce>();
-  const forceOf = (study: Study) => {
+  const forceOf = (study: StudyRow) => {
     const key = [study.emitterId, study.quencherId, study.solventId, study.pinnedMechanism].join('|');
     if (!forces.has(key)) forces.set(key, rowDrivingForce(inputs, study));
     return forces.get(key)!;
   };
-  const rows: ComparisonRow[] = [];
-  for (const study of studies) {
-    const result = study.latestFitId ? fits.get(study.latestFitId)?.result : undefined;
-    const partner = side === 'emitter' ? study.quencher : study.emitter;
-    rows.push({
-      studyId: study.id,
-      title: study.title,
-      partner: { id: partner?.id ?? '', name: partner?.name ?? '' },
-      solvent: study.solventId ?? study.customSolventName ?? '',
-      status: study.status,
-      kq: study.kq === null ? null : { value: study.kq, standardError: result?.parameters.kq?.standardError ?? null },
-      kSv:
-        study.kSv === null ? null : { value: study.kSv, standardError: result?.parameters.kSv?.standardError ?? null },
-      flags: (result?.flags ?? []).map((flag) => ({ code: flag.code, title: flag.title })),
-      ...forceOf(study),
-    });
-  }
-  return rows;
+  return studies.map((study) => ({
+    studyId: study.id,
+    title: study.title,
+    partner: { id: study.partnerId ?? '', name: study.partnerName ?? '' },
+    solvent: study.solventId ?? study.customSolventName ?? '',
+    status: study.status,
+    kq: study.kq === null ? null : { value: study.kq, standardError: study.kqStandardError },
+    kSv: study.kSv === null ? null : { value: study.kSv, standardError: study.kSvStandardError },
+    flags: study.flags ?? [],
+    ...forceOf(study),
+  }));
 }
