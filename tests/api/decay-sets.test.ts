@@ -1,6 +1,7 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { pointAt } from '@shared/schemas/study-points';
+import { Study } from '../../server/models';
 import { signedInResearcher, type ApiClient } from '../support/accounts';
 import { createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
@@ -248,6 +249,31 @@ interface PointAnswer {
   lifetimeUncertainty: number | null;
   lifetimeSource: { fileName: string } | null;
 }
+
+describe('POST /api/labs/:labId/studies/:studyId/revisions with a decay set', () => {
+  it('when an approved study with applied decays gets a new revision, then the revision carries the set, its lifetimes keep their source and tau0 its decay', async () => {
+    const study = await newStudy();
+    await client.patch(`${base(study.id)}/points`, { version: 0, points: intensityPoints }).expect(200);
+    const kept = await send(`${base(study.id)}/decay-sets`, titrationFile()).expect(201);
+    await client.post(`${base(study.id)}/decay-sets/${kept.body.id}/apply`, { version: 1 }).expect(200);
+    // Approval is the reviewers' (tests/api/studies.test.ts walks it); here the state is set directly.
+    await Study.update({ status: 'approved' }, { where: { id: study.id } });
+    const revision = await client.post(`${base(study.id)}/revisions`, {});
+    expect(revision.status, JSON.stringify(revision.body)).toBe(201);
+    const sets = (await client.get(`${base(revision.body.id)}/decay-sets`).expect(200)).body.items;
+    expect(sets).toHaveLength(1);
+    expect(sets[0]).toMatchObject({ studyId: revision.body.id, outcomes: kept.body.outcomes });
+    expect(sets[0].file.sha256).toBe(kept.body.file.sha256);
+    for (const point of revision.body.points as PointAnswer[])
+      expect(point.lifetimeSource).toMatchObject({ decaySetId: sets[0].id, fileName: 'titration.csv' });
+    expect(revision.body.tau0Source).toMatchObject({ decaySetId: sets[0].id, fileName: 'titration.csv' });
+    // The approved revision keeps its own set, untouched.
+    const before = (await client.get(`${base(study.id)}/decay-sets`).expect(200)).body.items;
+    expect(before.map((set: { id: string }) => set.id)).toEqual([kept.body.id]);
+    // The copy's curves are drawn from the same kept file.
+    await client.get(`/api/labs/${labId}/decay-sets/${sets[0].id}/decays/1/curves`).expect(200);
+  });
+});
 
 describe('POST /api/labs/:labId/studies/:studyId/decay-sets/:setId/apply', () => {
   it('when a kept set is applied, then the points carry its lifetimes with SE and source, tau0 comes from the blank, and the lifetime K_SV is fitted', async () => {

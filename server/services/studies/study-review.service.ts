@@ -7,6 +7,7 @@ import { Study, StudyPoint, StudyReview } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, requireOwner } from './study-access';
+import { copyDecaySets } from '../decays/copy-decay-sets';
 import { refitStudy } from './study-fitting.service';
 import { notifyReview } from './study-mail';
 import { getStudyDetail } from './study.service';
@@ -124,11 +125,15 @@ export async function startRevision(sequelize: Sequelize, lab: LabContext, study
       { transaction },
     );
     await old.update({ isCurrent: false }, { transaction, silent: true });
+    // The decay sets come along, and the copied links point at the copies.
+    const decaySets = await copyDecaySets(old.id, fresh.id, transaction);
+    const copiedSet = (setId: string | null | undefined) => (setId ? (decaySets.get(setId) ?? null) : null);
+    if (old.tau0DecaySetId) await fresh.update({ tau0DecaySetId: copiedSet(old.tau0DecaySetId) }, { transaction });
     const points = await StudyPoint.findAll({ where: { studyId: old.id }, order: [['position', 'ASC']], transaction });
     await StudyPoint.bulkCreate(
       points.map((point) => {
         const { id: _p, ...values } = point.get({ plain: true });
-        return { ...values, studyId: fresh.id };
+        return { ...values, studyId: fresh.id, lifetimeDecaySetId: copiedSet(values.lifetimeDecaySetId) };
       }),
       { transaction },
     );
