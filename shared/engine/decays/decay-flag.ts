@@ -17,6 +17,8 @@ export interface DecayFlag {
   title: string;
   explanation: string;
   whatToCheck: string[];
+  /** the next step in one sentence, as every Stern–Volmer flag has */
+  whatToDo: string;
   detail?: string;
 }
 
@@ -30,6 +32,8 @@ const TEXTS: Record<DecayFlagCode, Omit<DecayFlag, 'code' | 'detail' | 'severity
       'whether the file holds raw counts (not normalised, smoothed or background-subtracted data)',
       'the instrument response: same wavelength setting, same count rate, same time range',
     ],
+    whatToDo:
+      'Refit with one more exponential or another fit range, and use the raw counts if the file holds processed data.',
   },
   STRUCTURED_RESIDUALS: {
     title: 'Residuals are not random',
@@ -40,6 +44,8 @@ const TEXTS: Record<DecayFlagCode, Omit<DecayFlag, 'code' | 'detail' | 'severity
       'one more exponential, a shift of the response, or a later start channel',
       'scattered excitation light or a rising component near the start',
     ],
+    whatToDo:
+      'Try one more exponential, a response shift or a later start channel, and keep the fit whose residuals scatter evenly.',
   },
   RESPONSE_TOO_WIDE: {
     title: 'Response too wide for this lifetime',
@@ -50,42 +56,50 @@ const TEXTS: Record<DecayFlagCode, Omit<DecayFlag, 'code' | 'detail' | 'severity
       'a response recorded under the same conditions as the decay (wavelength, count rate)',
       'a faster excitation source or detector for lifetimes this short',
     ],
+    whatToDo:
+      'Fit by reconvolution with a response recorded under the same conditions, or measure with a faster source or detector.',
   },
   FEW_PEAK_COUNTS: {
     title: 'Few counts in the peak',
     explanation:
       'The decay holds few counts, so the lifetimes carry large errors and extra exponentials cannot be told apart. Common practice collects about 10,000 counts in the peak channel for multi-exponential work.',
     whatToCheck: ['collect for longer, or at a higher count rate while staying below the pile-up limit'],
+    whatToDo: 'Collect the decay again for longer, aiming at about 10,000 counts in the peak channel.',
   },
   PILE_UP_RISK: {
     title: 'Count rate near pile-up',
     explanation:
       'Above a few per cent of the repetition rate, a single-photon counter misses the later photon of a pulse often enough to shorten the measured decay (pulse pile-up).',
     whatToCheck: ['lower the count rate (neutral density filter, slit) to about 1-2 % of the repetition rate'],
+    whatToDo: 'Measure again at about 1-2 % of the repetition rate, with a neutral density filter or narrower slits.',
   },
   LIFETIME_WITHIN_FEW_CHANNELS: {
     title: 'Lifetime within a few channels',
     explanation:
       'The shortest lifetime spans only a few channels of the histogram, so the time axis cannot resolve it well.',
     whatToCheck: ['a shorter time range (narrower channels) for this sample'],
+    whatToDo: 'Measure again over a shorter time range so the decay spans more channels.',
   },
   COMPONENT_NOT_SUPPORTED: {
     title: 'A component went to zero',
     explanation:
       'The fit drove the amplitude of one exponential to zero: the data do not support this many exponentials.',
     whatToCheck: ['fit with one exponential fewer'],
+    whatToDo: 'Fit again with one exponential fewer.',
   },
   NOT_CONVERGED: {
     title: 'Fit did not settle',
     explanation:
       'The fit stopped at its iteration limit before the parameters stopped changing; the numbers may not be the best ones.',
     whatToCheck: ['fewer exponentials', 'another start channel or fit range'],
+    whatToDo: 'Fit again with fewer exponentials or another start channel or range before using the numbers.',
   },
   COUNTS_NOT_WHOLE: {
     title: 'Counts are not whole numbers',
     explanation:
       'Photon counts are whole numbers. Fractions suggest the file holds scaled, averaged or background-subtracted data, for which Poisson statistics and the standard errors do not hold.',
     whatToCheck: ['export the raw histogram from the instrument program'],
+    whatToDo: 'Export the raw photon-count histogram from the instrument and upload that file instead.',
   },
 };
 

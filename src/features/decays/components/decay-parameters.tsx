@@ -69,6 +69,11 @@ export function DecayParameters({ outcome }: { outcome: DecayOutcome }) {
         <div key={flag.code} role="note" className="rounded-md border border-glow-300 bg-glow-50 px-3 py-2 text-body">
           <p className="font-bold">{flag.title}</p>
           <p>{flag.explanation}</p>
+          {flag.whatToDo && (
+            <p>
+              <strong>What to do:</strong> {flag.whatToDo}
+            </p>
+          )}
           {flag.detail && <p className="text-caption">{flag.detail}</p>}
         </div>
       ))}

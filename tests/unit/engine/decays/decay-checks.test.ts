@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EngineError, fitDecay, type DecayFlagCode } from '@shared/engine';
+import { decayFlag, EngineError, fitDecay, type DecayFlagCode } from '@shared/engine';
 import { syntheticDecay } from '../support/synthetic-decay';
 
 const TCSPC = { channels: 512, channelWidth: 50e-12, responseCentre: 3e-9, responseFwhm: 200e-12 } as const;
@@ -117,5 +117,24 @@ describe('fitDecay flags', () => {
     const { counts, response } = mono(4e-9, 10);
     const fit = fitDecay({ counts, channelWidth: 50e-12, response }, { components: 2 });
     expect(codes(fit.flags)).toContain('COMPONENT_NOT_SUPPORTED');
+  });
+});
+
+describe('decay flags say what to do, like the Stern–Volmer flags', () => {
+  const codes: DecayFlagCode[] = [
+    'CHI_SQUARED_FAR_FROM_ONE',
+    'STRUCTURED_RESIDUALS',
+    'RESPONSE_TOO_WIDE',
+    'FEW_PEAK_COUNTS',
+    'PILE_UP_RISK',
+    'LIFETIME_WITHIN_FEW_CHANNELS',
+    'COMPONENT_NOT_SUPPORTED',
+    'NOT_CONVERGED',
+    'COUNTS_NOT_WHOLE',
+  ];
+  it.each(codes)('when %s is raised, then it carries a next step in one sentence', (code) => {
+    const flag = decayFlag(code);
+    expect(flag.whatToDo).toMatch(/^[A-Z].+\.$/);
+    expect(flag.whatToDo).not.toContain('\n');
   });
 });
