@@ -8,11 +8,13 @@ import { ExcitedStateEnergy } from './excited-state-energy.model';
 import { ExcitedStateLifetime } from './excited-state-lifetime.model';
 import { Invitation } from './invitation.model';
 import { Lab } from './lab.model';
+import { MechanismFile } from './mechanism-file.model';
 import { Membership } from './membership.model';
 import { PasswordReset } from './password-reset.model';
 import { RecoveryCode } from './recovery-code.model';
 import { RedoxPotential } from './redox-potential.model';
 import { initScenarioModels } from './scenario-models';
+import { SpectrumMatrix } from './spectrum-matrix.model';
 import { initStudyModels, Study } from './study-models';
 import { User } from './user.model';
 
@@ -57,6 +59,14 @@ export function initModels(sequelize: Sequelize): void {
   DecaySet.belongsTo(ExcitedStateLifetime, { as: 'lifetime', foreignKey: 'lifetimeId' });
   DecayFile.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
   DecayFile.belongsTo(User, { as: 'uploadedBy', foreignKey: 'uploadedById' });
+  MechanismFile.initModel(sequelize);
+  SpectrumMatrix.initModel(sequelize);
+  MechanismFile.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
+  MechanismFile.belongsTo(User, { as: 'uploadedBy', foreignKey: 'uploadedById' });
+  SpectrumMatrix.belongsTo(MechanismFile, { as: 'file', foreignKey: 'fileId' });
+  SpectrumMatrix.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  SpectrumMatrix.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
+  SpectrumMatrix.belongsTo(Study, { as: 'study', foreignKey: 'studyId' });
 }
 
 export {
@@ -69,10 +79,12 @@ export {
   ExcitedStateLifetime,
   Invitation,
   Lab,
+  MechanismFile,
   Membership,
   PasswordReset,
   RecoveryCode,
   RedoxPotential,
+  SpectrumMatrix,
   User,
 };
 export { Study, StudyFit, StudyPoint, StudyReview, StudyUpload } from './study-models';

@@ -2,9 +2,8 @@ import { fileReadingFieldsSchema, fileReadingSchema, fileReadingMappingSchema } 
 import { labParamsSchema } from '@shared/schemas/members';
 import { defineRoute } from '../http/define-route';
 import { AppError } from '../lib/app-error';
-import { ACCEPTED_EXTENSIONS, isAcceptedFile } from '../services/studies/parse/read-upload';
 import { readFileForPreview } from '../services/studies/read-file.service';
-import { receiveFile } from './study-uploads.routes';
+import { receiveAcceptedFile } from './study-uploads.routes';
 
 export const fileReadingRoutes = [
   defineRoute({
@@ -23,13 +22,7 @@ export const fileReadingRoutes = [
       422: { description: 'Unreadable (details name row and column) or over the reading time' },
     },
     handler: async ({ req, res }) => {
-      const file = await receiveFile(req, res);
-      if (!isAcceptedFile(file.originalname))
-        throw new AppError(
-          'unsupported_type',
-          `"${file.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
-          415,
-        );
+      const file = await receiveAcceptedFile(req, res);
       const fields = fileReadingFieldsSchema.safeParse(req.body ?? {});
       if (!fields.success)
         throw new AppError(

@@ -4,9 +4,23 @@ import {
   temperatureSeriesListSchema,
   temperatureSeriesQuerySchema,
 } from '@shared/schemas/temperature-series';
-import { defineRoute } from '../http/define-route';
-import { labOf } from '../http/request-context';
+import {
+  mechanismFileParamsSchema,
+  spectrumMatrixListSchema,
+  spectrumMatrixOptionsSchema,
+  spectrumMatrixSchema,
+} from '@shared/schemas/spectrum-matrices';
+import { studyParamsSchema } from '@shared/schemas/studies';
+import { defineRoute, parsePart } from '../http/define-route';
+import { labOf, signedInActor } from '../http/request-context';
+import { sendDownload } from '../http/send-download';
+import {
+  downloadMechanismFile,
+  keepSpectrumMatrix,
+  listSpectrumMatrices,
+} from '../services/mechanism/spectrum-matrices.service';
 import { analyseSeries, listTemperatureSeries } from '../services/mechanism/temperature-series.service';
+import { receiveAcceptedFile } from './study-uploads.routes';
 
 export const mechanismRoutes = [
   defineRoute({
@@ -39,6 +53,76 @@ export const mechanismRoutes = [
     },
     handler: async ({ req, res, query }) => {
       res.json(await analyseSeries(labOf(req), query.studies));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/spectrum-matrices',
+    summary:
+      'Keep emission spectra of the study at several [Q] (multipart "file": wavelength in nm in the first column, one spectrum per column with its concentration in the header, all on one grid; or JCAMP-DX; 20 MB; optional field "bandWidth" in nm, default 10, 0 for one band per wavelength) and analyse them: K_SV per band with SE, χ² homogeneity, spectral components, flags',
+    tags: ['mechanism'],
+    access: { lab: 'researcher' },
+    request: { params: studyParamsSchema },
+    responses: {
+      201: { description: 'The kept matrix with its analysis', schema: spectrumMatrixSchema },
+      400: { description: 'No file, or a band width that is not valid (details name the field)' },
+      403: { description: 'Not the owner' },
+      404: { description: 'No such study' },
+      409: { description: 'The study is locked' },
+      413: { description: 'Larger than 20 MB or over a reading limit; nothing kept' },
+      415: { description: 'Not an accepted file type' },
+      422: {
+        description:
+          'Unreadable (a spectrum without a concentration in its header, spectra on different wavelength grids, a bad cell: details name it), no blank or fewer than 3 concentrations; nothing kept',
+      },
+      503: { description: 'Too many files are being read; send it again shortly' },
+    },
+    handler: async ({ req, res, params }) => {
+      const file = await receiveAcceptedFile(req, res);
+      const options = parsePart(spectrumMatrixOptionsSchema, req.body ?? {}, 'body');
+      res
+        .status(201)
+        .json(
+          await keepSpectrumMatrix(
+            req.app.locals.services,
+            labOf(req),
+            params.studyId,
+            { file, options },
+            signedInActor(req),
+          ),
+        );
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api/labs/:labId/studies/:studyId/spectrum-matrices',
+    summary: "A study's spectrum matrices with their wavelength-resolved K_SV, newest first",
+    tags: ['mechanism'],
+    access: { lab: 'viewer' },
+    request: { params: studyParamsSchema },
+    responses: {
+      200: { description: 'The matrices', schema: spectrumMatrixListSchema },
+      404: { description: 'No such study' },
+    },
+    handler: async ({ req, res, params }) => {
+      res.json({ items: await listSpectrumMatrices(labOf(req), params.studyId) });
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api/labs/:labId/mechanism-files/:fileId',
+    summary: 'Download a kept mechanism file (a spectrum matrix) exactly as received',
+    tags: ['mechanism'],
+    access: { lab: 'viewer' },
+    request: { params: mechanismFileParamsSchema },
+    responses: {
+      200: { description: 'The bytes' },
+      404: { description: 'No such file' },
+      503: { description: 'The object store holding the file did not answer' },
+    },
+    handler: async ({ req, res, params }) => {
+      const file = await downloadMechanismFile(req.app.locals.services, labOf(req), params.fileId);
+      sendDownload(res, { fileName: file.fileName, type: 'application/octet-stream', body: file.content });
     },
   }),
 ];

@@ -55,6 +55,18 @@ export function receiveFile(req: Request, res: Response): Promise<Express.Multer
   });
 }
 
+/** receiveFile, then 415 unless the file is of a type Halflight reads (by its extension). */
+export async function receiveAcceptedFile(req: Request, res: Response): Promise<Express.Multer.File> {
+  const file = await receiveFile(req, res);
+  if (!isAcceptedFile(file.originalname))
+    throw new AppError(
+      'unsupported_type',
+      `"${file.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
+      415,
+    );
+  return file;
+}
+
 export const studyUploadRoutes = [
   defineRoute({
     method: 'post',
@@ -82,14 +94,7 @@ export const studyUploadRoutes = [
       503: { description: 'Too many files are being read; nothing kept, send it again shortly' },
     },
     handler: async ({ req, res, params }) => {
-      const file = await receiveFile(req, res);
-      if (!isAcceptedFile(file.originalname)) {
-        throw new AppError(
-          'unsupported_type',
-          `"${file.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
-          415,
-        );
-      }
+      const file = await receiveAcceptedFile(req, res);
       const lab = labOf(req);
       res.status(201).json(await receiveUpload(req.app.locals.services, lab, params.studyId, file, signedInActor(req)));
     },

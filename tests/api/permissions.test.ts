@@ -278,6 +278,19 @@ const matrix: Record<string, Row> = {
     path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/uploads/${unknownId}/file`,
     expected: labRoute('viewer', 404),
   },
+  'POST /api/labs/:labId/studies/:studyId/spectrum-matrices': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/spectrum-matrices`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'GET /api/labs/:labId/studies/:studyId/spectrum-matrices': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/spectrum-matrices`,
+    expected: labRoute('viewer', 404),
+  },
+  'GET /api/labs/:labId/mechanism-files/:fileId': {
+    path: ({ labId }) => `/api/labs/${labId}/mechanism-files/${unknownId}`,
+    expected: labRoute('viewer', 404),
+  },
   'POST /api/labs/:labId/studies/:studyId/decay-sets/preview': {
     path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/decay-sets/preview`,
     body: {},

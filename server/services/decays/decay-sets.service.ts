@@ -16,7 +16,7 @@ import { DecayFile, DecaySet, ExcitedStateLifetime, User } from '../../models';
 import type { Atmosphere } from '../../models/excited-state-lifetime.model';
 import { findCompound } from '../library/library-access.service';
 import { recordAudit } from '../audit.service';
-import { sha256Of, type StoredLocation } from '../studies/files/raw-file-store';
+import { downloadKeptFile, sha256Of, type StoredLocation } from '../studies/files/raw-file-store';
 import type { Problem } from '../studies/parse/read-and-map';
 import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
@@ -310,14 +310,8 @@ export async function decaySetCurves(
 }
 
 /** A kept decay file exactly as received (checked against its SHA-256). */
-export async function downloadDecayFile(services: UploadServices, lab: LabContext, fileId: string) {
-  const file = await DecayFile.findOne({ where: { id: fileId, labId: lab.id }, attributes: { exclude: ['content'] } });
-  if (!file) throw new AppError('not_found', 'No decay file with this id in this lab.', 404);
-  return {
-    fileName: file.fileName,
-    content: await services.files.read({ ...file.get({ plain: true }), kind: 'decay-file' }),
-  };
-}
+export const downloadDecayFile = (services: UploadServices, lab: LabContext, fileId: string) =>
+  downloadKeptFile(services.files, 'decay-file', lab.id, fileId);
 
 /** The method text a lifetime record from a decay carries, e.g. "TCSPC decay fit: 1 exponential by reconvolution, Poisson likelihood". */
 const methodOf = (model: DecayModel) =>

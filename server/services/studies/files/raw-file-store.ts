@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { AppError, unavailable } from '../../../lib/app-error';
-import { DecayFile, StudyUpload } from '../../../models';
+import { DecayFile, MechanismFile, StudyUpload } from '../../../models';
 import type { S3Objects } from './s3-objects';
 
 /** Where a kept upload's bytes are: on its own row, or under a key in object storage. */
@@ -13,8 +13,8 @@ export interface KeptFile {
   sha256: string;
   storage: 'database' | 's3';
   storageKey: string | null;
-  /** the table of the row: a study upload (default) or a decay file */
-  kind?: 'study-upload' | 'decay-file';
+  /** the table of the row: a study upload (default), a decay file or a mechanism file */
+  kind?: 'study-upload' | 'decay-file' | 'mechanism-file';
 }
 
 /**
@@ -81,10 +81,9 @@ export function createRawFileStore(options: { writeTo: 'database' | 's3'; s3: S3
       let bytes: Buffer | null;
       if (file.storage === 'database') {
         const options = { attributes: ['content'], rejectOnEmpty: true as const };
-        bytes =
-          file.kind === 'decay-file'
-            ? (await DecayFile.findByPk(file.id, options)).content
-            : (await StudyUpload.findByPk(file.id, options)).content;
+        const table =
+          file.kind === 'decay-file' ? DecayFile : file.kind === 'mechanism-file' ? MechanismFile : StudyUpload;
+        bytes = (await (table as typeof StudyUpload).findByPk(file.id, options)).content;
       } else {
         if (!s3) throw storeUnavailable('this upload lives in object storage, and none is configured');
         bytes = await s3.get(file.storageKey!);
@@ -93,4 +92,25 @@ export function createRawFileStore(options: { writeTo: 'database' | 's3'; s3: S3
       return bytes;
     },
   };
+}
+
+/**
+ * A kept decay or mechanism file of this lab exactly as received (checked against its SHA-256);
+ * 404 naming what was asked for when the lab has no such file.
+ */
+export async function downloadKeptFile(
+  files: RawFileStore,
+  kind: 'decay-file' | 'mechanism-file',
+  labId: string,
+  fileId: string,
+): Promise<{ fileName: string; content: Buffer }> {
+  const table = (kind === 'decay-file' ? DecayFile : MechanismFile) as typeof DecayFile;
+  const file = await table.findOne({ where: { id: fileId, labId }, attributes: { exclude: ['content'] } });
+  if (!file)
+    throw new AppError(
+      'not_found',
+      `No ${kind === 'decay-file' ? 'decay' : 'mechanism'} file with this id in this lab.`,
+      404,
+    );
+  return { fileName: file.fileName, content: await files.read({ ...file.get({ plain: true }), kind }) };
 }

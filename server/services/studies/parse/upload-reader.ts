@@ -3,6 +3,7 @@ import { Piscina } from 'piscina';
 import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { unavailable } from '../../../lib/app-error';
 import type { DecayReadOutcome, DecayReadTask } from '../../decays/read-decays';
+import type { SpectrumMatrixOutcome, SpectrumMatrixTask } from '../../mechanism/read-spectrum-matrix';
 import type { StudyReading } from './propose-mapping';
 import type { ReadOutcome, ReadTask } from './read-and-map';
 import { DEFAULT_UPLOAD_LIMITS, limitMessage, type UploadLimits } from './upload-limits';
@@ -13,6 +14,8 @@ export interface UploadReader {
   read(fileName: string, bytes: Uint8Array, mapping: UploadMapping | null, study?: StudyReading): Promise<ReadOutcome>;
   /** Reads and fits a decay set in the same threads, under the same limits. */
   readDecays(task: Omit<DecayReadTask, 'limits'>): Promise<DecayReadOutcome>;
+  /** Reads and analyses a spectrum matrix (wavelength-resolved K_SV) in the same threads. */
+  readSpectrumMatrix(task: Omit<SpectrumMatrixTask, 'limits'>): Promise<SpectrumMatrixOutcome>;
   close(): Promise<void>;
 }
 
@@ -52,7 +55,10 @@ const threadArguments = () =>
  */
 export function createUploadReader(options: UploadReaderOptions = {}): UploadReader {
   const limits: UploadLimits = { ...DEFAULT_UPLOAD_LIMITS, ...options.limits };
-  const pool = new Piscina<ReadTask | DecayReadTask, ReadOutcome | DecayReadOutcome>({
+  const pool = new Piscina<
+    ReadTask | DecayReadTask | SpectrumMatrixTask,
+    ReadOutcome | DecayReadOutcome | SpectrumMatrixOutcome
+  >({
     filename: workerFile.href,
     // One thread waits ready, so its start-up never falls inside a request.
     minThreads: 1,
@@ -65,7 +71,7 @@ export function createUploadReader(options: UploadReaderOptions = {}): UploadRea
   /** Runs one task in a thread; time and memory overruns become outcomes naming the limit. */
   async function run<T, O>(task: T, name?: string): Promise<O | Extract<ReadOutcome, { kind: 'limit' }>> {
     try {
-      return (await pool.run(task as ReadTask | DecayReadTask, {
+      return (await pool.run(task as ReadTask | DecayReadTask | SpectrumMatrixTask, {
         signal: AbortSignal.timeout(limits.seconds * 1000),
         ...(name ? { name } : {}),
       })) as O;
@@ -88,6 +94,8 @@ export function createUploadReader(options: UploadReaderOptions = {}): UploadRea
     limits,
     read: (fileName, bytes, mapping, study) => run<ReadTask, ReadOutcome>({ fileName, bytes, mapping, limits, study }),
     readDecays: (task) => run<DecayReadTask, DecayReadOutcome>({ ...task, limits }, 'readDecays'),
+    readSpectrumMatrix: (task) =>
+      run<SpectrumMatrixTask, SpectrumMatrixOutcome>({ ...task, limits }, 'readSpectrumMatrix'),
     close: () => pool.destroy(),
   };
 }

@@ -1,0 +1,142 @@
+import crypto from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { signedInResearcher, type ApiClient } from '../support/accounts';
+import { createStudy } from '../support/studies';
+import { createTestApp } from '../support/test-app';
+import { seededNormal } from '../unit/engine/support/seeded-random';
+
+const testApp = await createTestApp();
+let client: ApiClient, csrf: string, labId: string;
+beforeAll(async () => {
+  ({ client, csrf, labId } = await signedInResearcher(testApp));
+});
+afterAll(testApp.close);
+
+/*
+ * Emission spectra invented for the test: Gaussian bands on a 1 nm grid, 5 counts of noise.
+ * One emitter quenched with K_SV = 150 M^-1; or two emitters, 300 and 30 M^-1 (Lakowicz, 3rd ed.,
+ * ch. 8: only the second can give a K_SV that changes with wavelength).
+ */
+const wavelengths = Array.from({ length: 201 }, (_, i) => 400 + i);
+const concentrationsMm = [0, 0, 2, 4, 6, 8, 10];
+const band = (nm: number, centre: number, width: number) => 1000 * Math.exp(-(((nm - centre) / width) ** 2) / 2);
+const oneEmitter = (nm: number, mM: number) => band(nm, 450, 20) / (1 + 0.15 * mM);
+const twoEmitters = (nm: number, mM: number) =>
+  band(nm, 430, 15) / (1 + 0.3 * mM) + band(nm, 500, 15) / (1 + 0.03 * mM);
+
+function matrixFile(signal: (nm: number, mM: number) => number, edit?: (cells: string[][]) => void): Buffer {
+  const normal = seededNormal(42);
+  const rows = wavelengths.map((nm) => [
+    String(nm),
+    ...concentrationsMm.map((mM) => (signal(nm, mM) + 5 * normal()).toFixed(3)),
+  ]);
+  const headers = ['wavelength (nm)', ...concentrationsMm.map((mM, i) => `[Q] ${mM} mM rep ${i + 1}`)];
+  const cells = [headers, ...rows];
+  edit?.(cells);
+  return Buffer.from(`${cells.map((row) => row.join(',')).join('\n')}\n`);
+}
+
+const url = (studyId: string) => `/api/labs/${labId}/studies/${studyId}/spectrum-matrices`;
+const newStudy = () => createStudy(client, labId, crypto.randomBytes(3).toString('hex'));
+function send(studyId: string, file: Buffer, bandWidth?: string, name = 'spectra.csv') {
+  const request = client.agent.post(url(studyId)).set('x-csrf-token', csrf).attach('file', file, name);
+  return bandWidth === undefined ? request : request.field('bandWidth', bandWidth);
+}
+
+describe('POST /api/labs/:labId/studies/:studyId/spectrum-matrices', () => {
+  it('when two emitters are quenched differently, then K_SV varies across the bands and the file is kept with its SHA-256', async () => {
+    const study = await newStudy();
+    const file = matrixFile(twoEmitters);
+    const answer = await send(study.id, file, '10');
+    expect(answer.status, JSON.stringify(answer.body)).toBe(201);
+    expect(answer.body.reading).toMatchObject({ firstWavelength: 400, lastWavelength: 600, wavelengthCount: 201 });
+    expect(answer.body.reading.samples.map((s: { concentration: number }) => s.concentration)).toEqual(
+      concentrationsMm.map((mM) => mM / 1000),
+    );
+    expect(answer.body.analysis.bandWidth).toBe(10);
+    expect(answer.body.analysis.homogeneity.homogeneous).toBe(false);
+    expect(answer.body.analysis.flags.map((f: { code: string }) => f.code)).toEqual(['KSV_VARIES_WITH_WAVELENGTH']);
+    expect(answer.body.analysis.components.significant).toBe(2);
+    expect(answer.body.plot.spectra).toHaveLength(concentrationsMm.length);
+    // SHA-256 by node:crypto over the bytes sent.
+    expect(answer.body.file.sha256).toBe(crypto.createHash('sha256').update(file).digest('hex'));
+
+    const list = await client.agent.get(url(study.id));
+    expect(list.status).toBe(200);
+    expect(list.body.items.map((m: { id: string }) => m.id)).toEqual([answer.body.id]);
+    const download = await client.agent
+      .get(`/api/labs/${labId}/mechanism-files/${answer.body.file.id}`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(download.status).toBe(200);
+    expect(Buffer.compare(download.body as Buffer, file)).toBe(0);
+  });
+
+  it('when one emitter is quenched and no width is given, then 10 nm bands agree on K_SV = 150 M^-1', async () => {
+    const study = await newStudy();
+    const answer = await send(study.id, matrixFile(oneEmitter));
+    expect(answer.status, JSON.stringify(answer.body)).toBe(201);
+    const { analysis } = answer.body;
+    expect(analysis.bandWidth).toBe(10);
+    expect(analysis.flags).toEqual([]);
+    expect(analysis.homogeneity.homogeneous).toBe(true);
+    // The K_SV the spectra were made with (invented): 150 M^-1, within 3 SE of the weighted mean.
+    expect(Math.abs(analysis.homogeneity.weightedMean - 150)).toBeLessThan(
+      3 * analysis.homogeneity.weightedMeanStandardError,
+    );
+  });
+
+  it('when the spectra are on different wavelength grids, then 422 names the spectrum and keeps nothing', async () => {
+    const study = await newStudy();
+    const file = matrixFile(oneEmitter, (cells) => {
+      cells[51]![3] = '';
+    });
+    const answer = await send(study.id, file);
+    expect(answer.status).toBe(422);
+    expect(answer.body.error.message).toMatch(
+      /"\[Q\] 2 mM rep 3" has no reading at 450 nm .*different wavelength grids/,
+    );
+    expect(answer.body.error.details[0].path).toBe('file.column [Q] 2 mM rep 3');
+    expect((await client.agent.get(url(study.id))).body.items).toEqual([]);
+  });
+
+  it('when a header names no concentration, or there is no blank, then 422 says which', async () => {
+    const study = await newStudy();
+    const noConcentration = await send(
+      study.id,
+      matrixFile(oneEmitter, (cells) => {
+        cells[0]![2] = 'second blank';
+      }),
+    );
+    expect(noConcentration.status).toBe(422);
+    expect(noConcentration.body.error.message).toMatch(/"second blank" names no quencher concentration/);
+    const noBlank = await send(
+      study.id,
+      matrixFile(oneEmitter, (cells) => {
+        cells[0]![1] = '1 mM';
+        cells[0]![2] = '1.5 mM';
+      }),
+    );
+    expect(noBlank.status).toBe(422);
+    expect(noBlank.body.error.message).toMatch(/no spectrum at \[Q\] = 0/);
+  });
+
+  it('when the band width is negative, then 400 names the field', async () => {
+    const study = await newStudy();
+    const answer = await send(study.id, matrixFile(oneEmitter), '-1');
+    expect(answer.status).toBe(400);
+    expect(answer.body.error.details).toEqual([
+      { path: 'body.bandWidth', message: expect.stringMatching(/0 .* or more/) },
+    ]);
+  });
+
+  it('when the file type is not one Halflight reads, then 415', async () => {
+    const study = await newStudy();
+    const answer = await send(study.id, matrixFile(oneEmitter), undefined, 'spectra.pdf');
+    expect(answer.status).toBe(415);
+  });
+});
