@@ -11,6 +11,7 @@ import { Tag } from '@/components/tag';
 import { useSession } from '@/features/auth/api/get-session';
 import { DecaysPanel } from '@/features/decays/components/decays-panel';
 import { DrivingForcePanel } from '@/features/library/components/driving-force-panel';
+import { SpectrumMatrixPanel } from '@/features/mechanism/components/spectrum-matrix-panel';
 import { useStudy } from '@/features/studies/api/get-study';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
 import { studiesKeys } from '@/features/studies/api/studies-keys';
@@ -228,6 +229,9 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
             void queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) });
           }}
         />
+      </Panel>
+      <Panel title="Emission by wavelength">
+        <SpectrumMatrixPanel labId={labId} studyId={study.id} editable={editable} />
       </Panel>
       {editable && (
         <Panel title="Upload an instrument file">

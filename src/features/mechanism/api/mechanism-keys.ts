@@ -3,4 +3,6 @@ export const mechanismKeys = {
   seriesList: (labId: string) => [...mechanismKeys.all(labId), 'temperature-series'] as const,
   seriesAnalysis: (labId: string, studyIds: string[]) =>
     [...mechanismKeys.all(labId), 'temperature-series', 'analysis', studyIds.join(',')] as const,
+  spectrumMatrices: (labId: string, studyId: string) =>
+    [...mechanismKeys.all(labId), 'spectrum-matrices', studyId] as const,
 };
