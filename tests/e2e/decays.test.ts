@@ -3,7 +3,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createLabWithMembers } from '../support/accounts';
-import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
+import { createStudyThroughPage, launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
 import { startLiveServer } from '../support/live-server';
 import { syntheticDecay } from '../unit/engine/support/synthetic-decay';
 
@@ -57,15 +57,11 @@ describe('decays in Chromium', () => {
   it('when a decay set is uploaded to a study, fitted, kept and used, then tau0 and the lifetime K_SV are on screen', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     await signInThroughPage(page, server.baseUrl, people.researcher);
-    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
-    await page.getByRole('link', { name: 'New study' }).click();
-    await page.getByLabel('Emitter (required)').selectOption({ label: '+ a new compound…' });
-    await page.getByLabel('New emitter name').fill('E2E-Ir-decay');
-    await page.getByLabel('Quencher (required)').selectOption({ label: '+ a new compound…' });
-    await page.getByLabel('New quencher name').fill('E2E-amine-decay');
-    await page.getByLabel('Title').fill('E2E decays: Ir/amine');
-    await page.getByRole('button', { name: 'Create study' }).click();
-    await page.getByRole('heading', { name: 'E2E decays: Ir/amine', level: 1 }).waitFor();
+    await createStudyThroughPage(page, {
+      emitter: 'E2E-Ir-decay',
+      quencher: 'E2E-amine-decay',
+      title: 'E2E decays: Ir/amine',
+    });
 
     await page.getByLabel(/Decay file/).setInputFiles(titrationFile());
     await page.getByRole('table', { name: 'Fitted decays' }).waitFor();

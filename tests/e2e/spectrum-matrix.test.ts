@@ -4,7 +4,7 @@ import { AxeBuilder } from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createLabWithMembers } from '../support/accounts';
-import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
+import { createStudyThroughPage, launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
 import { startLiveServer } from '../support/live-server';
 import { seededNormal } from '../unit/engine/support/seeded-random';
 
@@ -57,15 +57,11 @@ describe('emission by wavelength in Chromium', () => {
     const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
     await signInThroughPage(page, server.baseUrl, people.researcher);
-    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
-    await page.getByRole('link', { name: 'New study' }).click();
-    await page.getByLabel('Emitter (required)').selectOption({ label: '+ a new compound…' });
-    await page.getByLabel('New emitter name').fill('E2E-pyrene-spectra');
-    await page.getByLabel('Quencher (required)').selectOption({ label: '+ a new compound…' });
-    await page.getByLabel('New quencher name').fill('E2E-aniline-spectra');
-    await page.getByLabel('Title').fill('E2E spectra: pyrene/aniline');
-    await page.getByRole('button', { name: 'Create study' }).click();
-    await page.getByRole('heading', { name: 'E2E spectra: pyrene/aniline', level: 1 }).waitFor();
+    await createStudyThroughPage(page, {
+      emitter: 'E2E-pyrene-spectra',
+      quencher: 'E2E-aniline-spectra',
+      title: 'E2E spectra: pyrene/aniline',
+    });
 
     await page.getByLabel('Spectra file').setInputFiles(exciplexFile());
     await page.getByRole('button', { name: 'Keep and analyse the spectra' }).click();

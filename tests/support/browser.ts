@@ -46,3 +46,19 @@ export async function signInThroughPage(page: Page, baseUrl: string, person: { e
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
 }
+
+/**
+ * From any signed-in screen: Studies, New study, two new compounds typed in, Create; waits for
+ * the new study's heading.
+ */
+export async function createStudyThroughPage(page: Page, study: { emitter: string; quencher: string; title: string }) {
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
+  await page.getByRole('link', { name: 'New study' }).click();
+  await page.getByLabel('Emitter (required)').selectOption({ label: '+ a new compound…' });
+  await page.getByLabel('New emitter name').fill(study.emitter);
+  await page.getByLabel('Quencher (required)').selectOption({ label: '+ a new compound…' });
+  await page.getByLabel('New quencher name').fill(study.quencher);
+  await page.getByLabel('Title').fill(study.title);
+  await page.getByRole('button', { name: 'Create study' }).click();
+  await page.getByRole('heading', { name: study.title, level: 1 }).waitFor();
+}
