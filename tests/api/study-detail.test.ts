@@ -65,6 +65,7 @@ describe('GET /api/labs/:labId/studies/:studyId', () => {
       result: fit.result,
       pointsUsed: fit.pointsUsed,
       engineVersion: fit.engineVersion,
+      weighting: fit.weighting,
       createdBy: names.researcher,
       createdAt: fit.createdAt.toISOString(),
     });
