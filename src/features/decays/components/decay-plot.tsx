@@ -2,7 +2,8 @@ import { useRef } from 'react';
 import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { DecayCurves } from '@shared/schemas/decays';
-import { decayColours, paperUnderPlot, saveChartPng, saveChartSvg } from './decay-chart-setup';
+import { decayColours, paperUnderPlot } from './decay-chart-setup';
+import { SaveChartButtons } from './save-chart-buttons';
 
 const NS = 1e9;
 
@@ -23,34 +24,8 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
   return (
     <figure aria-label={`Decay plot of ${curves.label}`} className="space-y-2">
       <div className="flex justify-end gap-3">
-        <button
-          type="button"
-          className="text-caption underline"
-          onClick={() => saveChartPng(main.current, `${title} decay`)}
-        >
-          Decay as PNG
-        </button>
-        <button
-          type="button"
-          className="text-caption underline"
-          onClick={() => saveChartSvg(main.current, `${title} decay`)}
-        >
-          Decay as SVG
-        </button>
-        <button
-          type="button"
-          className="text-caption underline"
-          onClick={() => saveChartPng(residualChart.current, `${title} residuals`)}
-        >
-          Residuals as PNG
-        </button>
-        <button
-          type="button"
-          className="text-caption underline"
-          onClick={() => saveChartSvg(residualChart.current, `${title} residuals`)}
-        >
-          Residuals as SVG
-        </button>
+        <SaveChartButtons chart={main} name={`${title} decay`} what="Decay" />
+        <SaveChartButtons chart={residualChart} name={`${title} residuals`} what="Residuals" />
       </div>
       <div className="relative h-64">
         <Scatter

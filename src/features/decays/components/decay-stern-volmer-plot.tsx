@@ -3,7 +3,8 @@ import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { DecaySternVolmer } from '@shared/schemas/decays';
 import { formatNumber } from '@shared/format';
-import { decayColours, paperUnderPlot, saveChartPng, saveChartSvg } from './decay-chart-setup';
+import { decayColours, paperUnderPlot } from './decay-chart-setup';
+import { SaveChartButtons } from './save-chart-buttons';
 
 /** tau0/tau against [Q] from the fitted lifetimes, with tau0 and the lifetime K_SV. */
 export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: DecaySternVolmer; title: string }) {
@@ -24,20 +25,7 @@ export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: Deca
             {formatNumber(sternVolmer.kSv.value, 4)} ± {formatNumber(sternVolmer.kSv.standardError, 2)} M⁻¹
           </dd>
         </div>
-        <button
-          type="button"
-          className="text-caption underline"
-          onClick={() => saveChartPng(chart.current, `${title} lifetime Stern-Volmer`)}
-        >
-          Plot as PNG
-        </button>
-        <button
-          type="button"
-          className="text-caption underline"
-          onClick={() => saveChartSvg(chart.current, `${title} lifetime Stern-Volmer`)}
-        >
-          Plot as SVG
-        </button>
+        <SaveChartButtons chart={chart} name={`${title} lifetime Stern-Volmer`} what="Plot" />
       </dl>
       <div className="relative h-56">
         <Scatter
