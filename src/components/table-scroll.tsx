@@ -22,9 +22,10 @@ export function TableScroll({
   useEffect(() => {
     const element = box.current;
     if (!element || typeof ResizeObserver === 'undefined') return;
-    const measure = () => setScrolls(element.scrollWidth > element.clientWidth + 1);
-    measure();
-    const observer = new ResizeObserver(measure);
+    // No measuring here: reading scrollWidth inside the render's task forced a layout of the whole
+    // new screen there (250 ms of a 400-point study's opening, bench:study-screen); the observer
+    // reports every observed box once after the browser's own layout anyway.
+    const observer = new ResizeObserver(() => setScrolls(element.scrollWidth > element.clientWidth + 1));
     observer.observe(element);
     for (const child of element.children) observer.observe(child);
     return () => observer.disconnect();

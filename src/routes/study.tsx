@@ -31,6 +31,7 @@ import { StatusSignal } from '@/features/studies/components/status-signal';
 import { SternVolmerPlot } from '@/features/studies/components/stern-volmer-plot';
 import { StudyForm } from '@/features/studies/components/study-form';
 import { UploadPanel } from '@/features/studies/components/upload-panel';
+import { useAfterPaint } from '@/lib/after-paint';
 import { describeError } from '@/lib/form-errors';
 import { notify } from '@/lib/notify';
 import { paths } from '@/lib/paths';
@@ -109,6 +110,9 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
     isOwner && canWrite && (study.status === 'draft' || study.status === 'returned') && study.nextRevisionId === null;
   const fit = study.latestFit;
   const pinned = study.pinnedMechanism === 'energy-transfer' ? null : study.pinnedMechanism;
+  // The grid (a page of 50 rows of inputs) follows the plots after the first paint: rendered with
+  // the rest of the screen it made the opening of a 400-point study one long task.
+  const pointsShown = useAfterPaint();
 
   return (
     <div className="max-w-6xl space-y-6">
@@ -211,12 +215,16 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
       </div>
       <Panel title="Points">
         {/* keyed by the saved points: a file taken or an undo shows in the grid instead of stale rows */}
-        <PointsGrid
-          key={study.points.map((point) => point.id).join()}
-          labId={labId}
-          study={study}
-          editable={editable}
-        />
+        {pointsShown ? (
+          <PointsGrid
+            key={study.points.map((point) => point.id).join()}
+            labId={labId}
+            study={study}
+            editable={editable}
+          />
+        ) : (
+          <p className="text-body text-ink-500">Laying out the points…</p>
+        )}
       </Panel>
       <Panel title="Lifetimes from decays">
         <DecaysPanel

@@ -82,7 +82,7 @@ describe('studies in Chromium', () => {
     await expect
       .poll(async () => (await page.getByLabel('kq', { exact: true }).textContent()) ?? '')
       .toMatch(/^5\.00 × 10⁸ ± /);
-    await page.getByRole('figure', { name: 'Stern–Volmer plot' }).waitFor();
+    await page.getByRole('img', { name: /^Residuals of the fit/ }).waitFor(); // plots are drawn after the first paint
     await shot(page, 'study-fitted.png');
     await expectFitsWindow(page, 'study-fitted-1400x900.png');
     await page.getByRole('button', { name: 'Submit for review' }).click();

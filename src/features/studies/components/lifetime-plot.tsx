@@ -1,10 +1,11 @@
+import { memo } from 'react';
 import type { FitResult } from '@shared/schemas/study-fits';
 import { chartColours as plotColours } from '@/components/chart-theme';
 import { figureFileName } from './figure-file-name';
 import { SavableScatter } from './savable-scatter';
 
-/** tau0/tau against [Q] with the line 1 + K_SV[Q] from the lifetime fit, on the stored series' axis. */
-export function LifetimePlot({
+/** tau0/tau against [Q] with the line 1 + K_SV[Q] from the lifetime fit, on the stored series' axis (memoised like SternVolmerPlot). */
+export const LifetimePlot = memo(function LifetimePlot({
   lifetime,
   studyTitle,
 }: {
@@ -41,4 +42,4 @@ export function LifetimePlot({
       />
     </figure>
   );
-}
+});

@@ -25,10 +25,13 @@ export function SavePngButton({
   chart,
   fileName,
   what,
+  disabled = false,
 }: {
   chart: RefObject<Chart<'scatter'> | null>;
   fileName: string;
   what: string;
+  /** while the chart is not drawn yet */
+  disabled?: boolean;
 }) {
   const [busy, setBusy] = useState<FigureWidthCm | null>(null);
   async function save(widthCm: FigureWidthCm) {
@@ -55,13 +58,14 @@ export function SavePngButton({
           variant="quiet"
           pending={busy === widthCm}
           pendingLabel="Drawing…"
+          disabled={disabled}
           aria-label={`PNG ${widthCm} cm wide: the ${what}`}
           onClick={() => void save(widthCm)}
         >
           PNG {widthCm} cm
         </Button>
       ))}
-      <Button variant="quiet" aria-label={`SVG: the ${what}`} onClick={saveSvg}>
+      <Button variant="quiet" aria-label={`SVG: the ${what}`} disabled={disabled} onClick={saveSvg}>
         SVG
       </Button>
     </div>

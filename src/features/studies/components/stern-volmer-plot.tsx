@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import { Chart, Filler } from 'chart.js';
 import type { FitResult } from '@shared/schemas/study-fits';
 import { chartColours as plotColours } from '@/components/chart-theme';
@@ -18,8 +19,10 @@ Chart.register(Filler);
 /**
  * Stern–Volmer plot with the fit line and its 95 % band, and the residuals beneath, drawn from the
  * stored series exactly as the PDF draws them: x × plot.xAxis.scale on an axis titled plot.xAxis.label.
+ * Memoised: the screen re-renders as its other parts load, and each new data object made Chart.js
+ * lay out and draw every point again.
  */
-export function SternVolmerPlot({ plot, studyTitle }: Props) {
+export const SternVolmerPlot = memo(function SternVolmerPlot({ plot, studyTitle }: Props) {
   const xLabel = plot.xAxis.label;
   const xScale = plot.xAxis.scale;
   const scaled = (points: Array<{ x: number; y: number }>) =>
@@ -92,4 +95,4 @@ export function SternVolmerPlot({ plot, studyTitle }: Props) {
       />
     </figure>
   );
-}
+});
