@@ -71,16 +71,26 @@ export async function signedInResearcher(testApp: {
 }
 
 /**
- * Waits until the mail jobs are done (sent, or given up), so a test reads what the worker sent.
- * A retry that is waiting for a relay that is down counts as not done. The bound is generous: on a
- * busy machine a first send can time out and wait for its retry.
+ * When this test file loaded this module (vitest loads it afresh per file): the mail jobs a file
+ * waits for are its own. The api files share one database, and a job another file left behind
+ * (its app closed before the send, or its server process killed mid-send, so the job stays active
+ * until it expires) would otherwise hold every later file's wait to its bound.
+ */
+const fileStartedAt = new Date();
+
+/**
+ * Waits until the mail jobs this test file asked for are done (sent, or given up), so a test reads
+ * what the worker sent. A retry that is waiting for a relay that is down counts as not done. The
+ * bound is generous: on a busy machine a first send can time out and wait for its retry.
  */
 export async function settleMailQueue(timeoutMs = 60_000) {
   const { CaughtMail } = await import('../../server/models');
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const [rows] = await CaughtMail.sequelize!.query(
-      "SELECT count(*)::int AS count FROM pgboss.job WHERE (name LIKE 'mail-%' OR name LIKE 'password-reset-%') AND state < 'completed'",
+      `SELECT count(*)::int AS count FROM pgboss.job
+        WHERE (name LIKE 'mail-%' OR name LIKE 'password-reset-%') AND state < 'completed' AND created_on >= :since`,
+      { replacements: { since: fileStartedAt } },
     );
     if ((rows as Array<{ count: number }>)[0]!.count === 0) return;
     if (Date.now() > deadline) throw new Error(`the mail queue did not settle within ${timeoutMs} ms`);
