@@ -63,7 +63,16 @@ describe('decays in Chromium', () => {
       title: 'E2E decays: Ir/amine',
     });
 
+    // The pickers are the app's own buttons, not the browser's bare control (its text differs by browser
+    // and language): every file input is visually hidden behind a "Choose a file" label.
+    const bareInputs = await page
+      .locator('input[type="file"]')
+      .evaluateAll((inputs) => inputs.filter((input) => input.getBoundingClientRect().width > 1).length);
+    expect(bareInputs).toBe(0);
+    await page.getByText('Choose a file').first().waitFor();
     await page.getByLabel(/Decay file/).setInputFiles(titrationFile());
+    // The chosen file's name stands beside its button.
+    await page.getByText('e2e-decay-titration.csv', { exact: true }).waitFor();
     await page.getByRole('table', { name: 'Fitted decays' }).waitFor();
     await page.getByRole('figure', { name: 'Decay plot of [Q] 0 mM' }).waitFor();
     await expect.poll(() => page.getByRole('table', { name: 'Fitted decays' }).textContent()).toContain('[Q] 3 mM');

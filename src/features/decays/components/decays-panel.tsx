@@ -3,6 +3,7 @@ import type { DecayModel, DecayOutcome, DecayPreview, DecaySet, DecayTimeUnit } 
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { formatNumber } from '@shared/format';
 import { Button } from '@/components/button';
+import { FileField } from '@/components/file-field';
 import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
@@ -130,6 +131,9 @@ function KeptSet({
   );
 }
 
+/** The decay and response files the reader takes. */
+const DECAY_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
+
 /**
  * Decays of the study: choose the decay file (and a response file), look at the fits, keep the
  * set, and put its lifetimes and tau0 into the study. Nothing is kept before "Keep".
@@ -178,32 +182,39 @@ export function DecaysPanel({
       {editable && (
         <div className="space-y-3">
           <div className="grid gap-3 sm:grid-cols-2">
-            <label className="flex flex-col gap-1 text-body font-bold text-ink-900">
-              Decay file (time in the first column, one counts column per decay; .csv .txt .dat .xlsx .jdx)
-              <input
-                type="file"
-                accept=".csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp"
-                onChange={(event) => {
-                  const chosen = event.target.files?.[0];
-                  if (chosen) {
-                    setFile(chosen);
-                    look({ file: chosen });
-                  }
-                }}
-              />
-            </label>
-            <label className="flex flex-col gap-1 text-body font-bold text-ink-900">
-              Response file, if not a column of the decay file (optional)
-              <input
-                type="file"
-                accept=".csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp"
-                onChange={(event) => {
-                  const chosen = event.target.files?.[0] ?? null;
+            <FileField
+              label="Decay file"
+              hint="Time in the first column, one counts column per decay (.csv .txt .dat .xlsx .jdx)."
+              accept={DECAY_FILES}
+              fileName={file?.name}
+              onFile={(chosen) => {
+                setFile(chosen);
+                look({ file: chosen });
+              }}
+            />
+            <div className="space-y-1">
+              <FileField
+                label="Response file (optional)"
+                hint="Only when the instrument response is not a column of the decay file."
+                accept={DECAY_FILES}
+                fileName={response?.name}
+                onFile={(chosen) => {
                   setResponse(chosen);
                   look({ response: chosen });
                 }}
               />
-            </label>
+              {response && (
+                <Button
+                  variant="quiet"
+                  onClick={() => {
+                    setResponse(null);
+                    look({ response: null });
+                  }}
+                >
+                  Use no response file
+                </Button>
+              )}
+            </div>
           </div>
           <DecayModelPicker model={model} onChange={setModel} />
           <div className="flex flex-wrap items-end gap-3">
