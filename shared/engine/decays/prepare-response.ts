@@ -13,9 +13,12 @@ export interface PreparedResponse {
 /**
  * The measured instrument response made ready for reconvolution: its own background
  * (estimateDecayBackground) taken off, channels that are then within three standard deviations
- * of zero set to zero (so dark counts far from the pulse do not feed a long lifetime), and the
- * rest normalised to sum 1, so fitted amplitudes are counts per channel (O'Connor & Phillips,
- * Time-Correlated Single Photon Counting, 1984, ch. 6; common practice).
+ * of zero set to zero (so dark counts far from the pulse do not feed a long lifetime), only the
+ * run of channels above that threshold around the maximum kept (an isolated spike in the
+ * background, a cosmic or electronic count, would otherwise be convolved as a second pulse and
+ * leave a ghost decay in the fit), and that run normalised to sum 1, so fitted amplitudes are
+ * counts per channel (O'Connor & Phillips, Time-Correlated Single Photon Counting, 1984, ch. 6;
+ * common practice).
  *
  * @param response - counts per channel (>= 0, validated by the caller)
  * @throws EngineError DEGENERATE_DATA when nothing of the response stands above its background
@@ -26,14 +29,21 @@ export function prepareResponse(response: ArrayLike<number>): PreparedResponse {
   const background = estimateDecayBackground(response);
   const noise = background > 0 ? 3 * Math.sqrt(background) : 0;
   const cleaned = new Float64Array(n);
-  let sum = 0;
   let peakChannel = 0;
   for (let i = 0; i < n; i++) {
     const above = response[i]! - background;
     cleaned[i] = above > noise ? above : 0;
-    sum += cleaned[i]!;
     if (cleaned[i]! > cleaned[peakChannel]!) peakChannel = i;
   }
+  // The pulse is the run above the threshold that holds the maximum; everything else is zeroed.
+  let first = peakChannel;
+  while (first > 0 && cleaned[first - 1]! > 0) first--;
+  let last = peakChannel;
+  while (last < n - 1 && cleaned[last + 1]! > 0) last++;
+  cleaned.fill(0, 0, first);
+  cleaned.fill(0, last + 1);
+  let sum = 0;
+  for (let i = first; i <= last; i++) sum += cleaned[i]!;
   if (!(sum > 0)) {
     throw new EngineError(
       'DEGENERATE_DATA',
