@@ -5,6 +5,7 @@ import { startEmbeddedPostgres } from '../db/embedded-postgres';
 import { migrateToLatest } from '../db/migrator';
 import { seedDemoData } from '../seed/demo';
 import { ensureFirstAdmin } from '../services/first-admin.service';
+import { refitOutdatedFits } from '../services/studies/refit-outdated-fits';
 
 export interface DatabaseHandle {
   url: string;
@@ -38,13 +39,16 @@ export async function startDatabase(config: AppConfig, logger: Logger): Promise<
 }
 
 /**
- * Migrations, then the demo data and the first admin, all under the migration lock so that
+ * Migrations, then the refit of outdated stored fits, the demo data and the first admin, all under
+ * the migration lock so that
  * instances starting together neither collide nor seed twice. Models must be initialised.
  */
 export async function prepareSchema(sequelize: Sequelize, config: AppConfig, logger: Logger): Promise<void> {
   const applied = await migrateToLatest(sequelize, {
     onWait: () => logger.info('Another Halflight instance is migrating this database; waiting for it ...'),
     whileLocked: async () => {
+      const refitted = await refitOutdatedFits(sequelize);
+      if (refitted) logger.info(`Fitted ${refitted} studies again whose latest fit an older engine stored.`);
       if (config.demoData && (await seedDemoData(sequelize)).created) {
         logger.info('Loaded the invented demo scenario (demo data only; sign-ins in README.md).');
       }

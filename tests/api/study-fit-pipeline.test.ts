@@ -5,7 +5,12 @@ import { linearRegression } from 'simple-statistics';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { fitStudy } from '@shared/engine/study-fit/fit-study';
 import type * as FitStudyModule from '@shared/engine/study-fit/fit-study';
-import { StudyFit } from '../../server/models';
+import { ENGINE_VERSION } from '@shared/engine';
+import { Study, StudyFit } from '../../server/models';
+import { pino } from 'pino';
+import { prepareSchema } from '../../server/boot/database';
+import type { AppConfig } from '../../server/config/env';
+import { refitOutdatedFits } from '../../server/services/studies/refit-outdated-fits';
 import { apiClient, createLabWithMembers } from '../support/accounts';
 import { pointAt } from '@shared/schemas/study-points';
 import { createStudy, exactPoints } from '../support/studies';
@@ -61,24 +66,43 @@ describe('one study-fit pipeline (issue 13, findings 11 and 12)', () => {
     expect(detail.latestFit.result.plot.excluded).toEqual([{ position: 2, x: 2e-3, y: expect.closeTo(2, 9) }]);
   });
 
-  it('when the latest stored fit predates the axes, then the first read fits again once and keeps the old record', async () => {
+  it('when the latest stored fit is from an engine before 1.1.0, then a read writes nothing and the start-up refit fits it again once', async () => {
     const study = await newStudy();
     const points = exactPoints.map((p, i) => (i === 4 ? { ...p, excluded: true, exclusionReason: 'lamp drift' } : p));
     const first = (await client.patch(`${base(study.id)}/points`, { version: 0, points }).expect(200)).body.latestFit;
     const stored = (await StudyFit.findByPk(first.id))!;
     const { xAxis: _x, excluded: _e, ...oldPlot } = stored.result.plot;
-    await stored.update({ result: { ...stored.result, plot: oldPlot as typeof stored.result.plot } });
+    await stored.update({
+      engineVersion: '1.0.0',
+      result: { ...stored.result, plot: oldPlot as typeof stored.result.plot },
+    });
+    const before = (await Study.findByPk(study.id))!;
+    const fitCount = () => StudyFit.count({ where: { studyId: study.id } });
+    const countBefore = await fitCount();
 
-    const read = (await client.get(base(study.id)).expect(200)).body.latestFit;
-    expect(read.id).not.toBe(first.id);
-    expect(read.kSv).toBeCloseTo(500, 9); // K_SV = 500 M^-1 by construction
-    expect(read.result.plot.excluded).toEqual([{ position: 4, x: 4e-3, y: expect.closeTo(3, 9) }]);
-    expect((await client.get(base(study.id)).expect(200)).body.latestFit.id).toBe(read.id);
+    // a GET shows the old record as it was drawn ([Q] in mM, no left-out markers) and changes nothing
+    const read = (await client.get(base(study.id)).expect(200)).body;
+    expect(read.latestFit.id).toBe(first.id);
+    expect(read.latestFit.result.plot.xAxis.label).toBe('[Q] (mM)');
+    expect(read.latestFit.result.plot.excluded).toEqual([]);
+    const after = (await Study.findByPk(study.id))!;
+    expect(after.updatedAt.toISOString()).toBe(before.updatedAt.toISOString());
+    expect(after.latestFitId).toBe(first.id);
+    expect(await fitCount()).toBe(countBefore);
+
+    // the start-up step, run as a start runs it (under the migration lock, nothing left to migrate)
+    await prepareSchema(testApp.sequelize, { demoData: false } as AppConfig, pino({ level: 'silent' }));
+    const refitted = (await client.get(base(study.id)).expect(200)).body.latestFit;
+    expect(refitted.id).not.toBe(first.id);
+    expect(refitted.engineVersion).toBe(ENGINE_VERSION);
+    expect(refitted.kSv).toBeCloseTo(500, 9); // K_SV = 500 M^-1 by construction
+    expect(refitted.result.plot.excluded).toEqual([{ position: 4, x: 4e-3, y: expect.closeTo(3, 9) }]);
     const fits = (await client.get(`${base(study.id)}/fits`).expect(200)).body.items;
-    expect(fits.map((fit: { id: string }) => fit.id)).toEqual([read.id, first.id]);
-    // the old record as it was drawn: [Q] in mM, no left-out markers
-    expect(fits[1].result.plot.xAxis.label).toBe('[Q] (mM)');
-    expect(fits[1].result.plot.excluded).toEqual([]);
+    expect(fits.map((fit: { id: string }) => fit.id)).toEqual([refitted.id, first.id]);
+
+    // a second start finds nothing of this study to fit again
+    await refitOutdatedFits(testApp.sequelize);
+    expect((await client.get(base(study.id)).expect(200)).body.latestFit.id).toBe(refitted.id);
   });
 
   it('when a study holds two runs, then each keeps its run number and is divided by its own I0 (K_SV = 500 M^-1 by construction)', async () => {

@@ -109,12 +109,12 @@ export const toPoint = (study: Study, point: StudyPoint, sources: DecaySources =
 };
 
 /** A result stored before the plot series named their axes and carried the left-out points. */
-export const isLegacyResult = (result: FitResult) => !(result.plot as Partial<FitResult['plot']>).xAxis;
+const isLegacyResult = (result: FitResult) => !(result.plot as Partial<FitResult['plot']>).xAxis;
 
 /**
  * An older fit record as the screen and the PDF drew it then: [Q] in mM (1/[Q] in mM⁻¹ for the
  * modified model), no left-out markers, positions from the points used. The record itself is
- * never changed; a study's latest such fit is fitted again on read (study.service.ts).
+ * never changed here; a study's latest such fit is fitted again at start (refit-outdated-fits.ts).
  */
 function withPlotAxes(fit: Pick<StudyFit, 'model' | 'result' | 'pointsUsed'>): FitResult {
   const { result } = fit;

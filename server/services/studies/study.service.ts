@@ -5,23 +5,14 @@ import type { StudyDetail } from '@shared/schemas/study-detail';
 import { selectRows } from '../../db/select-rows';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import { Study, StudyFit, type StudyPoint, type StudyReview, type StudyUpload } from '../../models';
+import { Study, type StudyFit, type StudyPoint, type StudyReview, type StudyUpload } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, loadStudyWithNames, requireChangeable } from './study-access';
 import { resolveStudyCompounds } from './study-compounds';
 import { refitStudy } from './study-fitting.service';
 import { resolveTau0 } from './study-tau0';
-import {
-  isLegacyResult,
-  settingsOf,
-  solventLabel,
-  toFit,
-  toPoint,
-  toReview,
-  toTau0Source,
-  toUpload,
-} from './study-serialize';
+import { settingsOf, solventLabel, toFit, toPoint, toReview, toTau0Source, toUpload } from './study-serialize';
 
 const settingsIssuesError = (issues: { path: string; message: string }[]) =>
   new AppError(
@@ -120,33 +111,6 @@ export async function updateStudy(
   return getStudyDetail(lab, studyId);
 }
 
-/**
- * A latest fit stored before the plot series carried their axes and left-out points is fitted
- * again once, on first read, with the same model (a new fit record; the old one is kept). When it
- * cannot be fitted now, nothing changes and the old record is shown as it was.
- */
-async function refitLegacyFit(lab: LabContext, studyId: string): Promise<boolean> {
-  try {
-    return await Study.sequelize!.transaction(async (transaction) => {
-      const study = await Study.findOne({
-        where: { id: studyId, labId: lab.id },
-        transaction,
-        lock: transaction.LOCK.UPDATE,
-      });
-      const fit = study?.latestFitId
-        ? await StudyFit.findByPk(study.latestFitId, { attributes: ['id', 'model', 'result'], transaction })
-        : null;
-      if (!study || !fit || !isLegacyResult(fit.result)) return false;
-      const actor = { userId: null, ip: null };
-      await refitStudy(study, { model: fit.model, trigger: 'auto', actor, transaction, refuseUnfittable: true });
-      return true;
-    });
-  } catch (error) {
-    if (error instanceof AppError) return false;
-    throw error;
-  }
-}
-
 /** A row PostgreSQL turned into JSON (snake_case keys, timestamps as text) in the shape a model row has. */
 function modelShaped<T>(row: Record<string, unknown>): T {
   const shaped: Record<string, unknown> = {};
@@ -194,7 +158,8 @@ type DetailParts = {
   reviews: Array<Record<string, unknown>>;
 };
 
-export async function getStudyDetail(lab: LabContext, studyId: string, refitted = false): Promise<StudyDetail> {
+/** A study's detail. A read never writes: outdated stored fits are fitted again at start (refit-outdated-fits.ts). */
+export async function getStudyDetail(lab: LabContext, studyId: string): Promise<StudyDetail> {
   // The study (404 when it is not this lab's) and the rest in two round trips asked together; the
   // rest is read only by study id and lab, and thrown away if the study turns out not to be there.
   const [study, [parts]] = await Promise.all([
@@ -217,8 +182,6 @@ export async function getStudyDetail(lab: LabContext, studyId: string, refitted 
     id: set.id,
     file: set.fileName === null ? null : { fileName: set.fileName },
   }));
-  if (!refitted && latestFit && isLegacyResult(latestFit.result) && (await refitLegacyFit(lab, studyId)))
-    return getStudyDetail(lab, studyId, true);
   const sources = new Map(decaySets.map((set) => [set.id, set.file?.fileName ?? 'decay file']));
   return {
     ...settingsOf(study),
