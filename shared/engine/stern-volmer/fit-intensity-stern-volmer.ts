@@ -51,5 +51,5 @@ export function fitIntensitySternVolmer(input: {
     ...(ratioUncertainties ? { ratioUncertainties } : {}),
     ...(intercept ? { intercept } : {}),
   });
-  return { ...withReferenceUncertainty(fit, i0), i0 };
+  return { ...withReferenceUncertainty(fit, i0, ratioUncertainties), i0 };
 }

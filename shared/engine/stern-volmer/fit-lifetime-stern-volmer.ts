@@ -46,5 +46,5 @@ export function fitLifetimeSternVolmer(input: {
     ...(ratioUncertainties ? { ratioUncertainties } : {}),
     ...(intercept ? { intercept } : {}),
   });
-  return { ...withReferenceUncertainty(fit, tau0), tau0 };
+  return { ...withReferenceUncertainty(fit, tau0, ratioUncertainties), tau0 };
 }

@@ -60,14 +60,44 @@ export function referenceFromBlanks(
 }
 
 /**
- * Every ratio I0/I shares the same I0, so an error in I0 scales K_SV (and the intercept)
- * as a whole and never shows in the residuals. Adds that relative error in quadrature
- * (first-order propagation) to the fit's own standard errors.
+ * Every ratio I0/I shares the same I0, so an error in I0 moves every ratio by the same factor and
+ * never shows in the residuals. Adds it to the fit's own standard errors by first-order
+ * propagation (Bevington & Robinson, Data Reduction and Error Analysis, 3rd ed., ch. 3):
+ * SE² = SE_fit² + (dK/d ln I0 · SE(I0)/I0)². With ∂y/∂I0 = y/I0 for each ratio y (the weights
+ * 1/σ², σ ∝ y, scale together and cancel):
+ * - intercept free: K and the intercept are linear in y, so dK/d ln I0 = K (and a for the intercept);
+ * - intercept fixed at 1: K = Σw q (y − 1)/Σw q², so dK/d ln I0 = Σw q y / Σw q² = K + Σw q/Σw q²
+ *   (the 1 the line is pinned to does not scale with I0).
+ * Derived by hand and checked against a finite difference of K in reference-uncertainty.test.ts.
+ *
+ * @param ratioUncertainties - the 1-sigma of each ratio the fit was weighted by, if it was
  */
-export function withReferenceUncertainty<T extends SternVolmerFit>(fit: T, reference: ReferenceValue): T {
+export function withReferenceUncertainty<T extends SternVolmerFit>(
+  fit: T,
+  reference: ReferenceValue,
+  ratioUncertainties?: readonly number[],
+): T {
   const relative = reference.relativeStandardError;
   if (relative === null || relative === 0) return fit;
-  const widen = (estimate: ParameterEstimate) =>
-    makeEstimate(estimate.value, Math.hypot(estimate.standardError, estimate.value * relative), fit.degreesOfFreedom);
-  return { ...fit, kSv: widen(fit.kSv), fittedIntercept: fit.fittedIntercept ? widen(fit.fittedIntercept) : null };
+  const widen = (estimate: ParameterEstimate, sensitivity: number) =>
+    makeEstimate(estimate.value, Math.hypot(estimate.standardError, sensitivity * relative), fit.degreesOfFreedom);
+  let kSensitivity = fit.kSv.value;
+  if (fit.intercept === 'fixed-at-one') {
+    const { concentrations, ratios } = fit.points;
+    let sumQY = 0;
+    let sumQQ = 0;
+    // points holds the fit's own arrays (same length; ratioUncertainties too, checked by the fit).
+    for (let i = 0; i < concentrations.length; i++) {
+      const q = concentrations[i]!;
+      const w = ratioUncertainties ? 1 / ratioUncertainties[i]! ** 2 : 1;
+      sumQY += w * q * ratios[i]!;
+      sumQQ += w * q * q;
+    }
+    kSensitivity = sumQY / sumQQ;
+  }
+  return {
+    ...fit,
+    kSv: widen(fit.kSv, kSensitivity),
+    fittedIntercept: fit.fittedIntercept ? widen(fit.fittedIntercept, fit.fittedIntercept.value) : null,
+  };
 }
