@@ -19,6 +19,8 @@ export { addedQuadraticTerm, type AddedQuadraticTerm } from './stats/added-quadr
 export { solveLeastSquares, type LeastSquaresSolution } from './stats/solve-least-squares';
 export { studentTQuantile975, studentTTwoSidedPValue } from './stats/student-t';
 export { normalCdf } from './stats/normal-cdf';
+export { normalUpperQuantile } from './stats/normal-upper-quantile';
+export { secondDifferenceNoise } from './stats/second-difference-noise';
 export { chiSquareUpperTail } from './stats/chi-square-upper-tail';
 export { singularValues } from './stats/singular-values';
 export { residualRunsTest, type RunsTestResult } from './stats/runs-test';
@@ -139,5 +141,31 @@ export {
   type TemperatureEvidence,
   type WavelengthEvidence,
 } from './mechanism/mechanism-evidence';
+export {
+  absorptionDifferences,
+  type AbsorptionDifferenceInput,
+  type AbsorptionDifferences,
+  type QuencherAbsorbance,
+} from './mechanism/absorption-differences';
+export { fitBenesiHildebrand, type BenesiHildebrandFit } from './mechanism/fit-benesi-hildebrand';
+export { fitBindingIsotherm, type BindingIsothermFit } from './mechanism/fit-binding-isotherm';
+export {
+  compareAssociationConstants,
+  AGREEMENT_Z,
+  type AssociationAgreement,
+} from './mechanism/compare-association-constants';
+export {
+  analyseAbsorptionTitration,
+  ABSORPTION_FAMILY_LEVEL,
+  BENESI_HILDEBRAND_EXCESS,
+  type AbsorptionBand,
+  type AbsorptionBinding,
+  type AbsorptionComparison,
+  type AbsorptionFlag,
+  type AbsorptionFlagCode,
+  type AbsorptionTitrationAnalysis,
+  type AbsorptionTitrationInput,
+  type Attempt,
+} from './mechanism/analyse-absorption-titration';
 
 export * from './study-fit';

@@ -1,5 +1,6 @@
 import { EngineError } from '../core/engine-error';
 import { requirePositive } from '../core/validate';
+import { secondDifferenceNoise } from '../stats/second-difference-noise';
 import { singularValues } from '../stats/singular-values';
 
 export interface SpectralComponents {
@@ -13,23 +14,8 @@ export interface SpectralComponents {
   significant: number;
 }
 
-/** 1.4826 turns a median absolute value into a normal SD (Hampel, JASA 1974; common practice). */
-const MAD_TO_SD = 1.4826;
 /** Numerical rank floor relative to the largest singular value (Golub & Van Loan, 4th ed., sect. 5.4.1). */
 const RANK_TOLERANCE = 1e-9;
-
-/** Noise SD of a spectrum from its second differences: Var(y[i-1] - 2y[i] + y[i+1]) = 6σ² for white noise. */
-function noiseOf(spectrum: readonly number[]): number {
-  const differences: number[] = [];
-  // 1 <= i < length - 1: i - 1, i and i + 1 index elements.
-  for (let i = 1; i < spectrum.length - 1; i++)
-    differences.push(Math.abs(spectrum[i - 1]! - 2 * spectrum[i]! + spectrum[i + 1]!));
-  differences.sort((a, b) => a - b);
-  const middle = differences.length >> 1;
-  const median =
-    differences.length % 2 === 1 ? differences[middle]! : (differences[middle - 1]! + differences[middle]!) / 2;
-  return (MAD_TO_SD * median) / Math.sqrt(6);
-}
 
 /**
  * How many spectrally distinct emitters a set of emission spectra holds: the singular values
@@ -54,7 +40,7 @@ export function spectralComponents(spectra: readonly (readonly number[])[], nois
   if (readings < 3)
     throw new EngineError('TOO_FEW_POINTS', 'spectra[0]', `a spectrum needs at least 3 readings, got ${readings}`);
   if (noiseLevel !== undefined) requirePositive(noiseLevel, 'noiseLevel');
-  const noiseLevels = spectra.map((spectrum) => noiseLevel ?? noiseOf(spectrum));
+  const noiseLevels = spectra.map((spectrum) => noiseLevel ?? secondDifferenceNoise(spectrum));
   const norms = spectra.map((spectrum, j) => {
     const norm = Math.sqrt(spectrum.reduce((sum, value) => sum + value * value, 0));
     if (!(norm > 0))
