@@ -1,3 +1,5 @@
+import { engineFlag, type EngineFlag, type FlagText } from '../flags/engine-flag';
+
 /** The warnings a decay fit carries. Codes are stable; texts are for people. */
 export type DecayFlagCode =
   | 'CHI_SQUARED_FAR_FROM_ONE'
@@ -11,18 +13,9 @@ export type DecayFlagCode =
   | 'COUNTS_NOT_WHOLE';
 
 /** Same shape as the Stern–Volmer flags (QualityFlag), with the decay codes. */
-export interface DecayFlag {
-  code: DecayFlagCode;
-  severity: 'warning' | 'error';
-  title: string;
-  explanation: string;
-  whatToCheck: string[];
-  /** the next step in one sentence, as every Stern–Volmer flag has */
-  whatToDo: string;
-  detail?: string;
-}
+export type DecayFlag = EngineFlag<DecayFlagCode>;
 
-const TEXTS: Record<DecayFlagCode, Omit<DecayFlag, 'code' | 'detail' | 'severity'>> = {
+const TEXTS: Record<DecayFlagCode, FlagText> = {
   CHI_SQUARED_FAR_FROM_ONE: {
     title: 'Reduced chi-squared far from 1',
     explanation:
@@ -108,5 +101,5 @@ const TEXTS: Record<DecayFlagCode, Omit<DecayFlag, 'code' | 'detail' | 'severity
  * @example decayFlag('FEW_PEAK_COUNTS', 'peak 1,200 counts').title // 'Few counts in the peak'
  */
 export function decayFlag(code: DecayFlagCode, detail?: string, severity: 'warning' | 'error' = 'warning'): DecayFlag {
-  return { code, severity, ...TEXTS[code], ...(detail ? { detail } : {}) };
+  return engineFlag(TEXTS, code, detail, severity);
 }

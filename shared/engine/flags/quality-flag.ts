@@ -1,3 +1,5 @@
+import { engineFlag, type EngineFlag, type FlagText } from './engine-flag';
+
 /** The warnings the engine attaches to results. Codes are stable; texts are for people. */
 export const QUALITY_FLAG_CODES = [
   'KQ_ABOVE_DIFFUSION_LIMIT',
@@ -18,27 +20,12 @@ export const QUALITY_FLAG_CODES = [
 ] as const;
 export type QualityFlagCode = (typeof QUALITY_FLAG_CODES)[number];
 
-export interface QualityFlag {
-  code: QualityFlagCode;
-  /** 'error' when the result cannot be used as it stands, else 'warning' */
-  severity: 'warning' | 'error';
-  title: string;
-  /** what the flag means, in plain words */
-  explanation: string;
-  /** what to look at before trusting the number */
-  whatToCheck: string[];
-  /** the next step, in one sentence */
-  whatToDo: string;
-  /** the numbers that raised the flag, e.g. "kq 2.4e10 vs limit 1.9e10 M^-1 s^-1" */
-  detail?: string;
-}
+export type QualityFlag = EngineFlag<QualityFlagCode>;
 
 /** A centred R² below this is flagged (a stated threshold of common practice for a Stern–Volmer line, not a test). */
 export const R_SQUARED_FLAG_BELOW = 0.98;
 /** A relative standard error of K_SV above this (10 %) is flagged (common practice). */
 export const KSV_RELATIVE_SE_FLAG_ABOVE = 0.1;
-
-type FlagText = Pick<QualityFlag, 'title' | 'explanation' | 'whatToCheck' | 'whatToDo'>;
 
 const FLAG_TEXTS: Record<QualityFlagCode, FlagText> = {
   KQ_ABOVE_DIFFUSION_LIMIT: {
@@ -208,6 +195,5 @@ export function qualityFlag(
   detail?: string,
   severity: 'warning' | 'error' = 'warning',
 ): QualityFlag {
-  const text = FLAG_TEXTS[code];
-  return { code, severity, ...text, whatToCheck: [...text.whatToCheck], ...(detail === undefined ? {} : { detail }) };
+  return engineFlag(FLAG_TEXTS, code, detail, severity);
 }

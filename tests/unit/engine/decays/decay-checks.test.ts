@@ -137,4 +137,10 @@ describe('decay flags say what to do, like the Stern–Volmer flags', () => {
     expect(flag.whatToDo).toMatch(/^[A-Z].+\.$/);
     expect(flag.whatToDo).not.toContain('\n');
   });
+  it('when a caller changes one flag’s check-list, then the next flag of that code keeps the standard list', () => {
+    // common practice: a result's flags are values, never views into the shared table of words
+    const first = decayFlag('NOT_CONVERGED');
+    first.whatToCheck.push('added by a caller');
+    expect(decayFlag('NOT_CONVERGED').whatToCheck).not.toContain('added by a caller');
+  });
 });
