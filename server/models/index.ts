@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { belongsToEach } from './associations';
 import { AuditEvent } from './audit-event.model';
 import { CaughtMail } from './caught-mail.model';
 import { Compound } from './compound.model';
@@ -24,49 +25,34 @@ export function initModels(sequelize: Sequelize): void {
   for (const model of [...models, RedoxPotential, ExcitedStateLifetime, ExcitedStateEnergy]) {
     model.initModel(sequelize);
   }
-  Membership.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  Membership.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  belongsToEach(Membership, { lab: Lab, user: User });
+  belongsToEach(Invitation, { lab: Lab, invitedBy: User });
+  belongsToEach(PasswordReset, { user: User });
+  belongsToEach(Compound, { lab: Lab, createdBy: User });
+  for (const measurement of [RedoxPotential, ExcitedStateLifetime, ExcitedStateEnergy]) {
+    belongsToEach(measurement, { lab: Lab, createdBy: User, compound: Compound });
+  }
   Lab.hasMany(Membership, { as: 'memberships', foreignKey: 'labId' });
   User.hasMany(Membership, { as: 'memberships', foreignKey: 'userId' });
-  Invitation.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  Invitation.belongsTo(User, { as: 'invitedBy', foreignKey: 'invitedById' });
-  PasswordReset.belongsTo(User, { as: 'user', foreignKey: 'userId' });
-  Compound.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  Compound.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
   Lab.hasMany(Compound, { as: 'compounds', foreignKey: 'labId' });
-  RedoxPotential.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  ExcitedStateLifetime.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  ExcitedStateEnergy.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  RedoxPotential.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
-  ExcitedStateLifetime.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
-  ExcitedStateEnergy.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
-  RedoxPotential.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
-  ExcitedStateLifetime.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
-  ExcitedStateEnergy.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
   Compound.hasMany(RedoxPotential, { as: 'potentials', foreignKey: 'compoundId' });
   Compound.hasMany(ExcitedStateLifetime, { as: 'lifetimes', foreignKey: 'compoundId' });
   Compound.hasMany(ExcitedStateEnergy, { as: 'energies', foreignKey: 'compoundId' });
   initStudyModels(sequelize);
   initScenarioModels(sequelize);
-  DecayFile.initModel(sequelize);
-  DecaySet.initModel(sequelize);
-  DecaySet.belongsTo(DecayFile, { as: 'file', foreignKey: 'fileId' });
-  DecaySet.belongsTo(DecayFile, { as: 'responseFile', foreignKey: 'responseFileId' });
-  DecaySet.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
-  DecaySet.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  DecaySet.belongsTo(Study, { as: 'study', foreignKey: 'studyId' });
-  DecaySet.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
-  DecaySet.belongsTo(ExcitedStateLifetime, { as: 'lifetime', foreignKey: 'lifetimeId' });
-  DecayFile.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  DecayFile.belongsTo(User, { as: 'uploadedBy', foreignKey: 'uploadedById' });
-  MechanismFile.initModel(sequelize);
-  SpectrumMatrix.initModel(sequelize);
-  MechanismFile.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  MechanismFile.belongsTo(User, { as: 'uploadedBy', foreignKey: 'uploadedById' });
-  SpectrumMatrix.belongsTo(MechanismFile, { as: 'file', foreignKey: 'fileId' });
-  SpectrumMatrix.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
-  SpectrumMatrix.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  SpectrumMatrix.belongsTo(Study, { as: 'study', foreignKey: 'studyId' });
+  for (const model of [DecayFile, DecaySet, MechanismFile, SpectrumMatrix]) model.initModel(sequelize);
+  belongsToEach(DecayFile, { lab: Lab, uploadedBy: User });
+  belongsToEach(MechanismFile, { lab: Lab, uploadedBy: User });
+  belongsToEach(DecaySet, {
+    lab: Lab,
+    createdBy: User,
+    study: Study,
+    file: DecayFile,
+    responseFile: DecayFile,
+    compound: Compound,
+    lifetime: ExcitedStateLifetime,
+  });
+  belongsToEach(SpectrumMatrix, { lab: Lab, createdBy: User, study: Study, file: MechanismFile });
 }
 
 export {

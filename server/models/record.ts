@@ -2,12 +2,16 @@ import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes } from 'sequelize';
 import type { Lab } from './lab.model';
 
+/** A record with a UUID key and no timestamps (the model passes `timestamps: false`); columns from keyColumns(). */
+export abstract class KeyedRecord<M extends Model> extends Model<InferAttributes<M>, InferCreationAttributes<M>> {
+  declare id: CreationOptional<string>;
+}
+
 /**
  * A record written once: a UUID key and when it was made (its table has no updated_at, so the model
  * passes `updatedAt: false`). Its columns start with createdRecordColumns().
  */
-export abstract class CreatedRecord<M extends Model> extends Model<InferAttributes<M>, InferCreationAttributes<M>> {
-  declare id: CreationOptional<string>;
+export abstract class CreatedRecord<M extends Model> extends KeyedRecord<M> {
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -24,11 +28,13 @@ export abstract class LabRecord<M extends Model> extends TimestampedRecord<M> {
   declare labId: ForeignKey<Lab['id']>;
 }
 
-/** The columns of CreatedRecord. A fresh object per call: Sequelize's init writes into each attribute. */
-export const createdRecordColumns = () => ({
+/** The column of KeyedRecord. A fresh object per call: Sequelize's init writes into each attribute. */
+export const keyColumns = () => ({
   id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-  createdAt: DataTypes.DATE,
 });
+
+/** The columns of CreatedRecord, likewise fresh per call. */
+export const createdRecordColumns = () => ({ ...keyColumns(), createdAt: DataTypes.DATE });
 
 /** The columns of TimestampedRecord (and LabRecord), likewise fresh per call. */
 export const recordColumns = () => ({ ...createdRecordColumns(), updatedAt: DataTypes.DATE });

@@ -1,21 +1,11 @@
-import { DataTypes, Model } from 'sequelize';
-import type {
-  CreationOptional,
-  ForeignKey,
-  InferAttributes,
-  InferCreationAttributes,
-  NonAttribute,
-  Sequelize,
-} from 'sequelize';
+import { DataTypes } from 'sequelize';
+import type { ForeignKey, NonAttribute, Sequelize } from 'sequelize';
 import type { Compound } from './compound.model';
 import type { ReactionScenario } from './reaction-scenario.model';
+import { KeyedRecord, keyColumns } from './record';
 
 /** One component of a scenario at its concentration (mol/L); kq comes from a study or, for O2, by hand. */
-export class ScenarioComponent extends Model<
-  InferAttributes<ScenarioComponent>,
-  InferCreationAttributes<ScenarioComponent>
-> {
-  declare id: CreationOptional<string>;
+export class ScenarioComponent extends KeyedRecord<ScenarioComponent> {
   declare scenarioId: ForeignKey<ReactionScenario['id']>;
   declare position: number;
   declare kind: 'compound' | 'oxygen';
@@ -32,7 +22,7 @@ export class ScenarioComponent extends Model<
   static initModel(sequelize: Sequelize): void {
     ScenarioComponent.init(
       {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        ...keyColumns(),
         position: { type: DataTypes.INTEGER, allowNull: false },
         kind: { type: DataTypes.ENUM('compound', 'oxygen'), allowNull: false },
         concentration: { type: DataTypes.DOUBLE, allowNull: false },

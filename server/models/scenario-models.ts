@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { belongsToEach } from './associations';
 import { Compound } from './compound.model';
 import { Lab } from './lab.model';
 import { ReactionScenario } from './reaction-scenario.model';
@@ -9,12 +10,9 @@ import { User } from './user.model';
 export function initScenarioModels(sequelize: Sequelize): void {
   ReactionScenario.initModel(sequelize);
   ScenarioComponent.initModel(sequelize);
-  ReactionScenario.belongsTo(Lab, { as: 'lab', foreignKey: 'labId' });
-  ReactionScenario.belongsTo(Compound, { as: 'emitter', foreignKey: 'emitterId' });
-  ReactionScenario.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  belongsToEach(ReactionScenario, { lab: Lab, emitter: Compound, createdBy: User });
+  belongsToEach(ScenarioComponent, { scenario: ReactionScenario, compound: Compound });
   ReactionScenario.hasMany(ScenarioComponent, { as: 'components', foreignKey: 'scenarioId' });
-  ScenarioComponent.belongsTo(ReactionScenario, { as: 'scenario', foreignKey: 'scenarioId' });
-  ScenarioComponent.belongsTo(Compound, { as: 'compound', foreignKey: 'compoundId' });
 }
 
 export { ReactionScenario, ScenarioComponent };

@@ -1,26 +1,17 @@
-import { DataTypes, Model } from 'sequelize';
-import type {
-  CreationOptional,
-  ForeignKey,
-  InferAttributes,
-  InferCreationAttributes,
-  NonAttribute,
-  Sequelize,
-} from 'sequelize';
+import { DataTypes } from 'sequelize';
+import type { ForeignKey, NonAttribute, Sequelize } from 'sequelize';
 import type {
   SpectrumMatrixAnalysisAnswer,
   SpectrumMatrixReading,
   SpectrumPlot,
 } from '@shared/schemas/spectrum-matrices';
-import type { Lab } from './lab.model';
 import type { MechanismFile } from './mechanism-file.model';
 import type { Study } from './study.model';
 import type { User } from './user.model';
+import { LabRecord, recordColumns } from './record';
 
 /** Emission spectra of a study at several [Q], read from one kept file and analysed band by band. */
-export class SpectrumMatrix extends Model<InferAttributes<SpectrumMatrix>, InferCreationAttributes<SpectrumMatrix>> {
-  declare id: CreationOptional<string>;
-  declare labId: ForeignKey<Lab['id']>;
+export class SpectrumMatrix extends LabRecord<SpectrumMatrix> {
   declare studyId: ForeignKey<Study['id']>;
   declare fileId: ForeignKey<MechanismFile['id']>;
   declare title: string;
@@ -31,23 +22,19 @@ export class SpectrumMatrix extends Model<InferAttributes<SpectrumMatrix>, Infer
   declare plot: SpectrumPlot;
   declare engineVersion: string;
   declare createdById: ForeignKey<User['id']> | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare file?: NonAttribute<MechanismFile>;
   declare createdBy?: NonAttribute<User | null>;
 
   static initModel(sequelize: Sequelize): void {
     SpectrumMatrix.init(
       {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        ...recordColumns(),
         title: { type: DataTypes.STRING(255), allowNull: false },
         bandWidth: { type: DataTypes.DOUBLE, allowNull: false },
         reading: { type: DataTypes.JSONB, allowNull: false },
         analysis: { type: DataTypes.JSONB, allowNull: false },
         plot: { type: DataTypes.JSONB, allowNull: false },
         engineVersion: { type: DataTypes.STRING(20), allowNull: false },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'spectrum_matrices' },
     );

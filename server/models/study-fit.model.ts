@@ -1,20 +1,13 @@
-import { DataTypes, Model } from 'sequelize';
-import type {
-  CreationOptional,
-  ForeignKey,
-  InferAttributes,
-  InferCreationAttributes,
-  NonAttribute,
-  Sequelize,
-} from 'sequelize';
+import { DataTypes } from 'sequelize';
+import type { ForeignKey, NonAttribute, Sequelize } from 'sequelize';
 import type { FitModel, FitWeighting } from '@shared/schemas/studies';
 import type { FitResult, StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
 import type { Study } from './study.model';
 import type { User } from './user.model';
+import { CreatedRecord, createdRecordColumns } from './record';
 
 /** One fit as it was made; never updated (a refit is a new row). */
-export class StudyFit extends Model<InferAttributes<StudyFit>, InferCreationAttributes<StudyFit>> {
-  declare id: CreationOptional<string>;
+export class StudyFit extends CreatedRecord<StudyFit> {
   declare studyId: ForeignKey<Study['id']>;
   declare model: FitModel;
   /** the weighting chosen for this fit; null for fits made before the choice existed */
@@ -26,13 +19,12 @@ export class StudyFit extends Model<InferAttributes<StudyFit>, InferCreationAttr
   declare pointsUsed: StudyFitRecord['pointsUsed'];
   declare engineVersion: string;
   declare createdById: ForeignKey<User['id']> | null;
-  declare createdAt: CreationOptional<Date>;
   declare createdBy?: NonAttribute<User | null>;
 
   static initModel(sequelize: Sequelize): void {
     StudyFit.init(
       {
-        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        ...createdRecordColumns(),
         model: { type: DataTypes.STRING(20), allowNull: false },
         weighting: { type: DataTypes.STRING(20), allowNull: true },
         trigger: { type: DataTypes.STRING(20), allowNull: false },
@@ -41,7 +33,6 @@ export class StudyFit extends Model<InferAttributes<StudyFit>, InferCreationAttr
         result: { type: DataTypes.JSONB, allowNull: false },
         pointsUsed: { type: DataTypes.JSONB, allowNull: false },
         engineVersion: { type: DataTypes.STRING(20), allowNull: false },
-        createdAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'study_fits', updatedAt: false },
     );
