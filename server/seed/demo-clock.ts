@@ -1,17 +1,6 @@
 import type { Transaction } from 'sequelize';
 import type { Actor } from '../domain/actor';
-import {
-  AuditEvent,
-  Compound,
-  DecayFile,
-  DecaySet,
-  ExcitedStateEnergy,
-  ExcitedStateLifetime,
-  RedoxPotential,
-  Study,
-  StudyFit,
-  StudyReview,
-} from '../models';
+import * as models from '../models';
 
 /*
  * The demo scenario happened over the weeks before it was loaded: studies were started,
@@ -60,16 +49,16 @@ interface Hookable {
   removeHook(kind: 'beforeCreate' | 'beforeUpdate', name: string): void;
 }
 const timestamped: Hookable[] = [
-  AuditEvent,
-  Compound,
-  DecayFile,
-  DecaySet,
-  ExcitedStateEnergy,
-  ExcitedStateLifetime,
-  RedoxPotential,
-  Study,
-  StudyFit,
-  StudyReview,
+  models.AuditEvent,
+  models.Compound,
+  models.DecayFile,
+  models.DecaySet,
+  models.ExcitedStateEnergy,
+  models.ExcitedStateLifetime,
+  models.RedoxPotential,
+  models.Study,
+  models.StudyFit,
+  models.StudyReview,
 ] as unknown as Hookable[];
 
 /** A clock for the seeding transaction: records made in it take the clock's time. */
@@ -108,7 +97,7 @@ export function startDemoClock(transaction: Transaction, loadedAt = new Date()):
       pending.sort((a, b) => a.at.getTime() - b.at.getTime());
       for (const event of pending) {
         current = event.at;
-        await AuditEvent.create(
+        await models.AuditEvent.create(
           {
             labId: event.labId,
             actorId: event.actor.userId,

@@ -40,15 +40,17 @@ export interface DemoStudy {
   title: string;
   emitter: string;
   quencher: string;
-  solventId: string;
+  /** default 'acetonitrile' (most demo studies) */
+  solventId?: string;
   /** K, default 298.15 */
   temperature?: number;
   owner: Person;
-  /** the lifetime record of the emitter, or a tau0 typed in s (e.g. measured in another solvent) */
-  tau0: 'record' | { value: number; uncertainty: number };
+  /** the lifetime record of the emitter (the default), or a tau0 typed in s (e.g. measured in another solvent) */
+  tau0?: 'record' | { value: number; uncertainty: number };
   /** I0 typed with the study (no blank in the series) */
   i0?: number;
-  model: FitModel;
+  /** default 'linear-free' */
+  model?: FitModel;
   series: Series;
   innerFilterCorrection?: boolean;
   notes: string;
@@ -73,10 +75,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ir-7 (iridium) with the amine Q-amine-3 in MeCN',
     emitter: 'HL-Ir-7',
     quencher: 'Q-amine-3',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
-    model: 'linear-free',
     series: { concentrations: evenly(4e-3, 7), ratio: line(1600), lifetimeRatio: line(1600) },
     notes: 'Demo data. Intensities integrated 470–640 nm; lifetimes from invented TCSPC runs at each addition.',
     story: { started: 19, submitted: 16, decided: { days: 15, status: 'approved' } },
@@ -88,10 +87,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ir-7 (iridium) with the bipyridinium salt Q-viol-5, faster than diffusion',
     emitter: 'HL-Ir-7',
     quencher: 'Q-viol-5',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
-    model: 'linear-free',
     // A static share (an ion pair) on top of collisions: the line is too steep and bends upward.
     series: { concentrations: evenly(6e-5, 7), ratio: combined(40000, 30000) },
     notes:
@@ -107,7 +103,6 @@ export const demoStudies: DemoStudy[] = [
     owner: 'priya',
     // The library's lifetime is in MeCN; this one was measured in DMF for the study.
     tau0: { value: 4.2e-6, uncertainty: 0.15e-6 },
-    model: 'linear-free',
     series: { concentrations: [0, 0.01, 0.02, 0.03], ratio: line(45) },
     notes: 'Demo data. τ0 measured in DMF under argon (invented).',
     story: { started: 9, submitted: 7, decided: { days: 6, status: 'returned' } },
@@ -119,9 +114,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Cz-2 (carbazole) with the alkene Q-ene-6, static and dynamic',
     emitter: 'HL-Cz-2',
     quencher: 'Q-ene-6',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
     model: 'static-dynamic',
     // Lifetimes see only the dynamic part, so the fit can tell K_D from K_S.
     series: { concentrations: evenly(8e-3, 7), ratio: combined(300, 150), lifetimeRatio: line(300) },
@@ -133,9 +126,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ru-4 (ruthenium) with the thiol Q-thiol-8, part of the emission out of reach',
     emitter: 'HL-Ru-4',
     quencher: 'Q-thiol-8',
-    solventId: 'acetonitrile',
     owner: 'ines',
-    tau0: 'record',
     model: 'modified',
     series: { concentrations: evenly(5e-3, 8), ratio: partlyAccessible(0.65, 900) },
     notes: 'Demo data. The plot levels off: about a third of the emission is not reached by the thiol.',
@@ -146,10 +137,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ir-7 (iridium) with the thiol Q-thiol-8, plot levels off',
     emitter: 'HL-Ir-7',
     quencher: 'Q-thiol-8',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
-    model: 'linear-free',
     series: { concentrations: evenly(4e-3, 7), ratio: partlyAccessible(0.7, 1500) },
     notes: 'Demo data. Still fitted with a straight line; the flag suggests the accessible-fraction model.',
     story: { started: 1 },
@@ -159,9 +147,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ru-4 (ruthenium) with the borate salt Q-borate-9, line through 1',
     emitter: 'HL-Ru-4',
     quencher: 'Q-borate-9',
-    solventId: 'acetonitrile',
     owner: 'tomasz',
-    tau0: 'record',
     model: 'linear-fixed',
     series: { concentrations: evenly(5e-3, 7), ratio: line(700) },
     notes: 'Demo data. Reductive quenching expected from the borate’s oxidation potential.',
@@ -174,10 +160,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ir-7 (iridium) with the aryl bromide Q-aryl-Br-1, quencher absorbs',
     emitter: 'HL-Ir-7',
     quencher: 'Q-aryl-Br-1',
-    solventId: 'acetonitrile',
     owner: 'tomasz',
-    tau0: 'record',
-    model: 'linear-free',
     series: {
       concentrations: evenly(0.04, 7),
       ratio: line(12),
@@ -193,10 +176,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ir-7 (iridium) with the amine Q-amine-3, stock without emitter',
     emitter: 'HL-Ir-7',
     quencher: 'Q-amine-3',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
-    model: 'linear-free',
     series: {
       concentrations: evenly(4e-3, 7),
       ratio: line(1600),
@@ -210,12 +190,9 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ru-4 (ruthenium) with the amine Q-amine-3, I0 typed from another day',
     emitter: 'HL-Ru-4',
     quencher: 'Q-amine-3',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
     // I0 typed from another day's blank, 12 % above this series' own: the intercept moves off 1.
     i0: I0 * 1.12,
-    model: 'linear-free',
     series: { concentrations: evenly(5e-3, 7).slice(1), ratio: line(400) },
     notes: 'Demo data. No blank in this series; I0 was copied from the previous day.',
     story: { started: 5 },
@@ -225,10 +202,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Cz-2 (carbazole) with the amine Q-amine-3, lifetimes fall faster',
     emitter: 'HL-Cz-2',
     quencher: 'Q-amine-3',
-    solventId: 'acetonitrile',
     owner: 'ines',
-    tau0: 'record',
-    model: 'linear-free',
     series: { concentrations: evenly(2e-3, 7), ratio: line(900), lifetimeRatio: line(1500) },
     notes: 'Demo data. Lifetimes drop faster than intensities.',
     story: { started: 7, submitted: 5, decided: { days: 3, status: 'returned' } },
@@ -241,10 +215,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ir-7 (iridium) with the alkene Q-ene-6, lifetimes from decays',
     emitter: 'HL-Ir-7',
     quencher: 'Q-ene-6',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
-    model: 'linear-free',
     // Lifetimes and tau0 come from the demo decay set (demo-decays.ts), kept with the study a day later.
     series: { concentrations: demoDecayConcentrations, ratio: line(700) },
     notes: 'Demo data. Lifetimes and tau0 fitted from the invented TCSPC titration kept with the study.',
@@ -255,10 +226,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ru-4 (ruthenium) with the alkene Q-ene-6, residuals in blocks',
     emitter: 'HL-Ru-4',
     quencher: 'Q-ene-6',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
-    model: 'linear-free',
     series: {
       concentrations: evenly(0.011, 15),
       ratio: line(60),
@@ -276,10 +244,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Ir-7 (iridium) with the borate salt Q-borate-9, one reading of zero',
     emitter: 'HL-Ir-7',
     quencher: 'Q-borate-9',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
-    model: 'linear-free',
     series: { concentrations: evenly(3e-3, 7), ratio: line(500), faults: { 4: 0 } },
     notes: 'Demo data. The detector shutter stayed closed for one reading: leave that point out or measure it again.',
     story: { started: 1 },
@@ -289,10 +254,7 @@ export const demoStudies: DemoStudy[] = [
     title: 'Demo: HL-Cz-2 (carbazole) with the thiol Q-thiol-8, no blank yet',
     emitter: 'HL-Cz-2',
     quencher: 'Q-thiol-8',
-    solventId: 'acetonitrile',
     owner: 'priya',
-    tau0: 'record',
-    model: 'linear-free',
     series: { concentrations: evenly(6e-3, 6).slice(1), ratio: line(350) },
     notes: 'Demo data. The blank of this series still has to be measured.',
     story: { started: 0 },
@@ -320,11 +282,8 @@ const temperatureSeries: DemoStudy[] = [
     title: `Demo: HL-Ir-7 (iridium) with the amine Q-amine-3 at ${celsius(temperature)} °C`,
     emitter: 'HL-Ir-7',
     quencher: 'Q-amine-3',
-    solventId: 'acetonitrile',
     temperature,
     owner: 'ines',
-    tau0: 'record',
-    model: 'linear-free',
     series: { concentrations: evenly(4e-3, 7), ratio: line(1600 * diffusionScale(temperature)) },
     notes: 'Demo data: temperature series in a thermostatted cell, ±0.1 K (invented).',
     story: { started: 8 - i },
@@ -334,11 +293,8 @@ const temperatureSeries: DemoStudy[] = [
     title: `Demo: HL-Ru-4 (ruthenium) with the aryl bromide Q-aryl-Br-1 at ${celsius(temperature)} °C`,
     emitter: 'HL-Ru-4',
     quencher: 'Q-aryl-Br-1',
-    solventId: 'acetonitrile',
     temperature,
     owner: 'ines',
-    tau0: 'record',
-    model: 'linear-free',
     series: {
       concentrations: evenly(5e-3, 7),
       ratio: line(
@@ -399,9 +355,11 @@ export async function seedDemoStudies(
   for (const demo of [...demoStudies, ...temperatureSeries]) {
     const owner = people[demo.owner];
     const actor = { userId: owner.id, ip: null };
-    const record = demo.tau0 === 'record' ? library.lifetimes[demo.emitter] : null;
-    if (demo.tau0 === 'record' && !record) throw new Error(`The demo library has no lifetime of ${demo.emitter}.`);
-    const tau0 = record ?? (demo.tau0 as { value: number; uncertainty: number });
+    const typedTau0 = typeof demo.tau0 === 'object' ? demo.tau0 : undefined;
+    const record = typedTau0 ? undefined : library.lifetimes[demo.emitter];
+    const tau0 = typedTau0 ?? record;
+    if (!tau0) throw new Error(`The demo library has no lifetime of ${demo.emitter}.`);
+    const model = demo.model ?? 'linear-free';
     clock.set(demo.story.started, 10);
     const study = await Study.create(
       {
@@ -409,7 +367,7 @@ export async function seedDemoStudies(
         emitterId: id(demo.emitter),
         quencherId: id(demo.quencher),
         title: demo.title,
-        solventId: demo.solventId,
+        solventId: demo.solventId ?? 'acetonitrile',
         customSolventName: null,
         customViscosity: null,
         temperature: demo.temperature ?? 298.15,
@@ -424,7 +382,7 @@ export async function seedDemoStudies(
         tau0LifetimeId: record?.id ?? null,
         i0: demo.i0 ?? null,
         dataKind: 'intensity',
-        fitModel: demo.model,
+        fitModel: model,
         dilutionCorrection: demo.series.dilution !== undefined,
         initialVolume: demo.series.dilution?.initialVolume ?? null,
         stockConcentration: demo.series.dilution?.stock ?? null,
@@ -445,8 +403,7 @@ export async function seedDemoStudies(
     await StudyPoint.bulkCreate(series, { transaction });
     clock.record(actor, 'study_points_replaced', lab.id, study.id, { count: series.length });
     await refitStudy(study, { trigger: 'auto', actor, transaction });
-    if (demo.model !== 'linear-free')
-      clock.record(actor, 'study_fitted', lab.id, study.id, { model: demo.model, trigger: 'manual' });
+    if (model !== 'linear-free') clock.record(actor, 'study_fitted', lab.id, study.id, { model, trigger: 'manual' });
     if (demo.story.submitted !== undefined) {
       clock.set(demo.story.submitted, 11);
       await StudyReview.create(
