@@ -1,4 +1,5 @@
 import { labParamsSchema } from '@shared/schemas/members';
+import { mechanismEvidenceSchema } from '@shared/schemas/mechanism-evidence';
 import {
   temperatureSeriesAnalysisSchema,
   temperatureSeriesListSchema,
@@ -19,6 +20,7 @@ import {
   keepSpectrumMatrix,
   listSpectrumMatrices,
 } from '../services/mechanism/spectrum-matrices.service';
+import { mechanismEvidence } from '../services/mechanism/mechanism-evidence.service';
 import { analyseSeries, listTemperatureSeries } from '../services/mechanism/temperature-series.service';
 import { receiveAcceptedFile } from './study-uploads.routes';
 
@@ -53,6 +55,22 @@ export const mechanismRoutes = [
     },
     handler: async ({ req, res, query }) => {
       res.json(await analyseSeries(labOf(req), query.studies));
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api/labs/:labId/studies/:studyId/mechanism',
+    summary:
+      "A study's mechanism evidence: lifetime against intensity, the temperature trend of its series, K_SV across the emission, absorption change and kq against the diffusion limit at its temperature, each with what it says and its numbers; the combined verdict with reasons; the missing pieces",
+    tags: ['mechanism'],
+    access: { lab: 'viewer' },
+    request: { params: studyParamsSchema },
+    responses: {
+      200: { description: 'The evidence and the verdict', schema: mechanismEvidenceSchema },
+      404: { description: 'No such study in this lab' },
+    },
+    handler: async ({ req, res, params }) => {
+      res.json(await mechanismEvidence(labOf(req), params.studyId));
     },
   }),
   defineRoute({

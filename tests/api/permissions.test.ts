@@ -209,6 +209,10 @@ const matrix: Record<string, Row> = {
     path: ({ labId }) => `/api/labs/${labId}/temperature-series/analysis?studies=${unknownId}`,
     expected: labRoute('viewer', 404),
   },
+  'GET /api/labs/:labId/studies/:studyId/mechanism': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/mechanism`,
+    expected: labRoute('viewer', 404),
+  },
   // Studies (issue 5): unknown study ids end in 404, incomplete bodies in 400.
   'GET /api/labs/:labId/studies': {
     path: ({ labId }) => `/api/labs/${labId}/studies`,

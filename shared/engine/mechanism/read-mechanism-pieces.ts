@@ -248,7 +248,7 @@ function readDiffusion(evidence: DiffusionEvidence): MechanismPiece {
     throw new EngineError('NON_POSITIVE_VALUE', 'diffusion.diffusionLimit', 'the diffusion limit must be positive');
   const ratio = evidence.kq.value / evidence.diffusionLimit;
   const kq = formatEstimate(evidence.kq.value, evidence.kq.standardError, UNITS.perMolarPerSecond);
-  const limit = `${formatNumber(evidence.diffusionLimit)} ${UNITS.perMolarPerSecond} at ${formatNumber(evidence.temperature, 4)} K`;
+  const limit = `${formatNumber(evidence.diffusionLimit)} ${UNITS.perMolarPerSecond} at ${formatNumber(evidence.temperature, 5)} K`;
   const above = evidence.kq.interval95.lower > evidence.diffusionLimit;
   return {
     kind: 'diffusion',
