@@ -10,7 +10,6 @@ import {
   Tooltip,
   type Plugin,
 } from 'chart.js';
-import { chartAsSvg } from '@/components/chart-svg';
 
 // The decay plots add the log counts axis to what the other plots register (chart.js keeps one registry).
 Chart.register(
@@ -45,25 +44,3 @@ export const paperUnderPlot: Plugin<'scatter'> = {
     ctx.restore();
   },
 };
-
-const fileStem = (name: string) => name.replace(/[^\p{L}\p{N}]+/gu, '-').replace(/^-|-$/g, '');
-
-function saveAs(href: string, fileName: string) {
-  const link = document.createElement('a');
-  link.href = href;
-  link.download = fileName;
-  link.click();
-}
-
-/** Saves a chart's canvas as PNG under a file name made from its parts. */
-export function saveChartPng(chart: Chart | null, name: string) {
-  if (chart) saveAs(chart.toBase64Image('image/png', 1), `${fileStem(name)}.png`);
-}
-
-/** Saves the same figure as SVG (vectors; the marks carry their plotted values). */
-export function saveChartSvg(chart: Chart | null, name: string) {
-  if (!chart) return;
-  const url = URL.createObjectURL(new Blob([chartAsSvg(chart, name)], { type: 'image/svg+xml' }));
-  saveAs(url, `${fileStem(name)}.svg`);
-  window.setTimeout(() => URL.revokeObjectURL(url), 10_000);
-}

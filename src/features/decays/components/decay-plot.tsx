@@ -3,7 +3,7 @@ import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { DecayCurves } from '@shared/schemas/decays';
 import { decayColours, paperUnderPlot } from './decay-chart-setup';
-import { SaveChartButtons } from './save-chart-buttons';
+import { SaveChartButtons } from '@/components/save-chart-buttons';
 
 const NS = 1e9;
 

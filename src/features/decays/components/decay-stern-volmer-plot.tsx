@@ -4,7 +4,7 @@ import { Scatter } from 'react-chartjs-2';
 import type { DecaySternVolmer } from '@shared/schemas/decays';
 import { formatNumber } from '@shared/format';
 import { decayColours, paperUnderPlot } from './decay-chart-setup';
-import { SaveChartButtons } from './save-chart-buttons';
+import { SaveChartButtons } from '@/components/save-chart-buttons';
 
 /** tau0/tau against [Q] from the fitted lifetimes, with tau0 and the lifetime K_SV. */
 export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: DecaySternVolmer; title: string }) {

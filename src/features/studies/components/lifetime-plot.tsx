@@ -1,8 +1,8 @@
 import { memo } from 'react';
 import type { FitResult } from '@shared/schemas/study-fits';
 import { chartColours as plotColours } from '@/components/chart-theme';
-import { figureFileName } from './figure-file-name';
-import { SavableScatter } from './savable-scatter';
+import { figureFileName } from '@/components/figure-file-name';
+import { SavableScatter } from '@/components/savable-scatter';
 
 /** tau0/tau against [Q] with the line 1 + K_SV[Q] from the lifetime fit, on the stored series' axis (memoised like SternVolmerPlot). */
 export const LifetimePlot = memo(function LifetimePlot({

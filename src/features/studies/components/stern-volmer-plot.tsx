@@ -3,8 +3,8 @@ import { Chart, Filler } from 'chart.js';
 import type { FitResult } from '@shared/schemas/study-fits';
 import { chartColours as plotColours } from '@/components/chart-theme';
 import { linearAxis as axis } from '@/components/scatter-chart';
-import { figureFileName } from './figure-file-name';
-import { SavableScatter } from './savable-scatter';
+import { figureFileName } from '@/components/figure-file-name';
+import { SavableScatter } from '@/components/savable-scatter';
 
 interface Props {
   /** the stored plot series: points, line, left-out points and the axes with their units */
