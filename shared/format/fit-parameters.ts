@@ -3,6 +3,7 @@ import type { Estimate, FitResult } from '../schemas/study-fits';
 import { formatEstimate } from './format-estimate';
 import { formatNumber } from './format-number';
 import { UNITS } from './quantity-units';
+import { toNanoseconds } from '../units/units';
 
 /** One fitted parameter as people read it: the same label, unit and numbers on screen, in CSV and PDF. */
 export interface ParameterLine {
@@ -94,8 +95,8 @@ export function rSquaredLines(
 
 /** τ0 as used for kq, in words: "1.00 ± 0.05 µs (lifetime record of the emitter)" or "... without uncertainty". */
 export function tau0Text(tau0: NonNullable<FitResult['tau0']>): string {
-  const ns = tau0.standardError === null ? null : tau0.standardError * 1e9;
-  return `${formatEstimate(tau0.value * 1e9, ns, UNITS.nanosecond)} (${tau0.source})`;
+  const ns = tau0.standardError === null ? null : toNanoseconds(tau0.standardError);
+  return `${formatEstimate(toNanoseconds(tau0.value), ns, UNITS.nanosecond)} (${tau0.source})`;
 }
 
 /**

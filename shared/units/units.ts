@@ -71,14 +71,23 @@ export function timeDisplayUnit(largest: number): TimeUnit {
   return 'ns';
 }
 
+/** J/mol per unit (molar energies: activation enthalpies, driving forces). */
+export const MOLAR_ENERGY_UNITS = { 'J/mol': 1, 'kJ/mol': 1e3 } as const;
+
 /** Millimolar to mol/L. @example fromMillimolar(2.5) // 0.0025 */
 export const fromMillimolar = (value: number): number => toSi(value, 'mM');
 /** Micromolar to mol/L. @example fromMicromolar(10) // 1e-5 */
 export const fromMicromolar = (value: number): number => toSi(value, 'uM');
+/** mol/L to millimolar. @example toMillimolar(0.0025) // 2.5 */
+export const toMillimolar = (molar: number): number => fromSi(molar, 'mM');
+/** mol/L to micromolar. @example toMicromolar(1e-5) // 10 */
+export const toMicromolar = (molar: number): number => fromSi(molar, 'uM');
 /** Nanomolar to mol/L. */
 export const fromNanomolar = (value: number): number => toSi(value, 'nM');
 /** Nanoseconds to seconds. @example fromNanoseconds(1100) // 1.1e-6 */
 export const fromNanoseconds = (value: number): number => toSi(value, 'ns');
+/** Seconds to microseconds. */
+export const toMicroseconds = (seconds: number): number => fromSi(seconds, 'us');
 /** Microseconds to seconds. */
 export const fromMicroseconds = (value: number): number => toSi(value, 'us');
 /** Seconds to nanoseconds. */
@@ -87,10 +96,16 @@ export const toNanoseconds = (seconds: number): number => fromSi(seconds, 'ns');
 export const fromMicrolitres = (value: number): number => toSi(value, 'uL');
 /** Litres to microlitres. */
 export const toMicrolitres = (litres: number): number => fromSi(litres, 'uL');
+/** Litres to millilitres. */
+export const toMillilitres = (litres: number): number => fromSi(litres, 'mL');
 /** Millilitres to litres. */
 export const fromMillilitres = (value: number): number => toSi(value, 'mL');
 /** mPa s (= cP) to Pa s. @example fromMillipascalSeconds(0.89) // 0.00089 */
 export const fromMillipascalSeconds = (value: number): number => toSi(value, 'mPa s');
+/** Pa s to mPa s (= cP). @example toMillipascalSeconds(0.00089) // 0.89 */
+export const toMillipascalSeconds = (pascalSeconds: number): number => fromSi(pascalSeconds, 'mPa s');
+/** J/mol to kJ/mol. @example toKilojoulesPerMole(41000) // 41 */
+export const toKilojoulesPerMole = (joulesPerMole: number): number => joulesPerMole / MOLAR_ENERGY_UNITS['kJ/mol'];
 /** Degrees Celsius to kelvin. @example fromCelsius(25) // 298.15 */
 export const fromCelsius = (value: number): number => value + 273.15;
 /** Electronvolts (per particle) to kJ/mol, 1 eV = 96.48533212 kJ/mol. */

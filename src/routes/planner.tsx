@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import type { TitrationPlanInput, TitrationPlanResult } from '@shared/schemas/planner';
+import { toMicromolar, toMillilitres, toMillimolar } from '@shared/units/units';
 import { Button } from '@/components/button';
 import { FormAlert } from '@/components/form-alert';
 import { Panel } from '@/components/panel';
@@ -19,8 +20,8 @@ import { LinkButton } from '@/components/link-button';
 /** The new-study form, pre-filled with the plan's volumes and stock and the dilution correction switched on. */
 function studyFromPlan(labId: string, input: TitrationPlanInput): string {
   return paths.newStudy(labId, {
-    initialVolumeMilli: String(input.initialVolume * 1e3),
-    stockMilli: String(input.stockConcentration * 1e3),
+    initialVolumeMilli: String(toMillilitres(input.initialVolume)),
+    stockMilli: String(toMillimolar(input.stockConcentration)),
     dilutionCorrection: 'true',
     stockContainsEmitter: String(Boolean(input.stockContainsEmitter)),
     title: input.quencherName ? `Titration with ${input.quencherName}` : undefined,
@@ -83,8 +84,9 @@ export function PlannerRoute() {
           }
         >
           <p className="mb-3 text-body text-ink-700">
-            Start with {planned.input.initialVolume * 1e3} mL of {planned.input.emitterConcentration * 1e6} µM emitter
-            and a {planned.input.stockConcentration * 1e3} mM quencher stock
+            Start with {toMillilitres(planned.input.initialVolume)} mL of{' '}
+            {toMicromolar(planned.input.emitterConcentration)} µM emitter and a{' '}
+            {toMillimolar(planned.input.stockConcentration)} mM quencher stock
             {planned.input.quencherName ? ` (${planned.input.quencherName})` : ''}. In total the sample grows by{' '}
             <strong>{(planned.plan.totalDilution * 100).toFixed(1)} %</strong>.
           </p>

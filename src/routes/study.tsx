@@ -3,6 +3,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
 import { formatEstimate, UNITS } from '@shared/format';
 import type { StudyDetail } from '@shared/schemas/study-detail';
+import { toNanoseconds } from '@shared/units/units';
 import { ErrorNotice } from '@/components/error-notice';
 import { FormAlert } from '@/components/form-alert';
 import { Panel } from '@/components/panel';
@@ -317,7 +318,7 @@ function SetupSummary({ study }: { study: StudyDetail }) {
     [
       'τ0',
       study.tau0 !== null
-        ? `${(study.tau0 * 1e9).toPrecision(4)} ns${
+        ? `${toNanoseconds(study.tau0).toPrecision(4)} ns${
             study.tau0LifetimeId
               ? ' (lifetime record)'
               : study.tau0Source

@@ -14,6 +14,7 @@ import {
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import type { FitResult } from '@shared/schemas/study-fits';
 import { fitModelNames } from '@shared/schemas/studies';
+import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import type { LabContext } from '../../domain/lab-context';
 import { drivingForceOfStudy } from '../library/driving-force.service';
 import { getStudyDetail } from '../studies/study.service';
@@ -40,7 +41,7 @@ function conditions(doc: Pdf, study: StudyDetail) {
     [
       'τ0',
       study.tau0
-        ? `${formatEstimate(study.tau0 * 1e9, study.tau0Uncertainty === null ? null : study.tau0Uncertainty * 1e9, UNITS.nanosecond)}${study.tau0LifetimeId ? ' (from a lifetime record)' : study.tau0Source ? ` (from decay ${study.tau0Source.fileName})` : ''}`
+        ? `${formatEstimate(toNanoseconds(study.tau0), study.tau0Uncertainty === null ? null : toNanoseconds(study.tau0Uncertainty), UNITS.nanosecond)}${study.tau0LifetimeId ? ' (from a lifetime record)' : study.tau0Source ? ` (from decay ${study.tau0Source.fileName})` : ''}`
         : 'not given',
     ],
     [
@@ -116,7 +117,7 @@ function replicates(doc: Pdf, pooled: NonNullable<FitResult['replicates']>) {
     doc,
     [`[Q] (${UNITS.millimolar})`, 'Readings', 'I0/I mean ± SD'],
     pooled.summary.map((row) => [
-      fixed(row.concentration * 1e3, 5),
+      fixed(toMillimolar(row.concentration), 5),
       String(row.n),
       row.sd === null ? formatNumber(row.mean, 4) : formatEstimate(row.mean, row.sd, ''),
     ]),
@@ -142,9 +143,9 @@ function points(doc: Pdf, study: StudyDetail) {
     study.points.map((point) => [
       String(point.position + 1),
       String(point.series),
-      fixed(point.concentration * 1e3, 5),
+      fixed(toMillimolar(point.concentration), 5),
       fixed(point.intensity, 5),
-      point.lifetime ? fixed(point.lifetime * 1e9, 4) : '—',
+      point.lifetime ? fixed(toNanoseconds(point.lifetime), 4) : '—',
       fixed(point.absorbanceExcitation),
       fixed(point.absorbanceEmission),
       point.excluded ? 'no' : 'yes',

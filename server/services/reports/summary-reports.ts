@@ -1,4 +1,5 @@
 import { formatEstimate, formatFixed, formatNumber, isoDateTime, titled, UNITS } from '@shared/format';
+import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import type { LabContext } from '../../domain/lab-context';
 import { compare } from '../comparisons/comparison.service';
 import { getScenario } from '../scenarios/scenario.service';
@@ -19,7 +20,7 @@ export async function scenarioReport(lab: LabContext, scenarioId: string) {
     ['Solvent', scenario.solvent],
     [
       'τ0',
-      `${formatNumber(scenario.tau0 * 1e9, 4)} ${UNITS.nanosecond}${scenario.tau0Source ? ` (${scenario.tau0Source})` : ''}`,
+      `${formatNumber(toNanoseconds(scenario.tau0), 4)} ${UNITS.nanosecond}${scenario.tau0Source ? ` (${scenario.tau0Source})` : ''}`,
     ],
   ]);
   heading(doc, 'Share of excited emitter intercepted');
@@ -30,7 +31,7 @@ export async function scenarioReport(lab: LabContext, scenarioId: string) {
     [
       ...scenario.shares.map((share) => [
         share.label,
-        formatNumber(share.concentration * 1e3, 4),
+        formatNumber(toMillimolar(share.concentration), 4),
         share.kq === null ? 'none' : formatEstimate(share.kq, share.kqStandardError),
         share.kqSource?.kind === 'study'
           ? `${share.kqSource.title} (${share.kqSource.status}${share.kqSource.solvent !== scenario.solvent ? `, in ${share.kqSource.solvent}` : ''})`

@@ -5,6 +5,13 @@ import {
   fromSi,
   TIME_UNITS,
   timeDisplayUnit,
+  toKilojoulesPerMole,
+  toMicromolar,
+  toMicroseconds,
+  toMillilitres,
+  toMillimolar,
+  toMillipascalSeconds,
+  toNanoseconds,
   toSi,
   unitFromText,
   unitLabel,
@@ -35,5 +42,26 @@ describe('units module', () => {
     expect(concentrationDisplayUnit(5e-5)).toBe('uM');
     expect(timeDisplayUnit(1.1e-6)).toBe('us');
     expect(timeDisplayUnit(8e-9)).toBe('ns');
+  });
+
+  it('when an SI value is shown in a prefixed unit, then it is divided by the prefix (common practice)', () => {
+    // mM = 1e-3 mol/L, µM = 1e-6 mol/L, mL = 1e-3 L, µs = 1e-6 s, ns = 1e-9 s (SI brochure, table 7);
+    // 1 cP = 1 mPa s = 1e-3 Pa s; 1 kJ = 1e3 J (SI brochure, tables 4 and 7).
+    expect(toMillimolar(0.0025)).toBeCloseTo(2.5, 12);
+    expect(toMicromolar(1e-5)).toBeCloseTo(10, 12);
+    expect(toMillilitres(0.003)).toBeCloseTo(3, 12);
+    expect(toMicroseconds(1.9e-6)).toBeCloseTo(1.9, 12);
+    expect(toNanoseconds(8.5e-7)).toBeCloseTo(850, 9);
+    expect(toMillipascalSeconds(0.00089)).toBeCloseTo(0.89, 12);
+    expect(toKilojoulesPerMole(41_000)).toBe(41);
+  });
+
+  it('when a value goes to SI and back through the helpers, then it comes back unchanged (to 1e-12)', () => {
+    for (const value of [0.37, 2.5, 1100, 7e4]) {
+      expect(toMillimolar(toSi(value, 'mM')) / value).toBeCloseTo(1, 12);
+      expect(toNanoseconds(toSi(value, 'ns')) / value).toBeCloseTo(1, 12);
+      expect(toMillilitres(toSi(value, 'mL')) / value).toBeCloseTo(1, 12);
+      expect(toMillipascalSeconds(toSi(value, 'mPa s')) / value).toBeCloseTo(1, 12);
+    }
   });
 });

@@ -1,6 +1,7 @@
 import { REFERENCE_ELECTRODES } from '@shared/engine/electrochem/reference-electrodes';
 import { SOLVENTS } from '@shared/engine/kinetics/solvents';
 import { formatFixed, formatNumber, UNITS } from '@shared/format';
+import { TIME_UNITS, toMicroseconds, toNanoseconds } from '@shared/units/units';
 
 /** Potentials with sign and two decimals, as papers report them: "+1.21 V". */
 export const formatVolts = (value: number) => `${formatFixed(value, 2, { signed: true })} ${UNITS.volt}`;
@@ -17,8 +18,9 @@ export const formatKilojoules = (value: number) =>
 export function formatLifetime(seconds: number, scaleOf?: number): string {
   // Three significant figures for a value, two for its uncertainty (common practice).
   const digits = scaleOf === undefined ? 3 : 2;
-  const [factor, unit] = (scaleOf ?? seconds) < 1e-6 ? [1e9, UNITS.nanosecond] : [1e6, UNITS.microsecond];
-  return `${formatNumber(seconds * factor, digits, { trailingZeros: true })} ${unit}`;
+  const [inUnit, unit] =
+    (scaleOf ?? seconds) < TIME_UNITS.us ? [toNanoseconds, UNITS.nanosecond] : [toMicroseconds, UNITS.microsecond];
+  return `${formatNumber(inUnit(seconds), digits, { trailingZeros: true })} ${unit}`;
 }
 
 export const referenceOptions = REFERENCE_ELECTRODES.map((reference) => ({ value: reference, label: reference }));

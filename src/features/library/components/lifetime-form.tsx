@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
 import { z } from 'zod';
-import { fromMicroseconds, fromNanoseconds } from '@shared/units/units';
+import { fromMicroseconds, fromNanoseconds, TIME_UNITS, toMicroseconds, toNanoseconds } from '@shared/units/units';
 import { atmospheres, lifetimeInputSchema } from '@shared/schemas/library-measurements';
 import type { LifetimeRecord, LifetimeValues } from '@shared/schemas/library-measurements';
 import { useSaveMeasurement } from '../api/save-measurement';
@@ -60,9 +60,9 @@ const lifetimeForm: MeasurementFormSpec<LifetimeFormValues, LifetimeValues> = {
 
 // A record opens in the unit it reads best in (ns below 1 µs), with the same numbers the table shows.
 function valuesOf(record: LifetimeRecord) {
-  const unit = record.value < 1e-6 ? ('ns' as const) : ('µs' as const);
-  const scale = unit === 'ns' ? 1e9 : 1e6;
-  const inUnit = (seconds: number) => Number((seconds * scale).toPrecision(6));
+  const unit = record.value < TIME_UNITS.us ? ('ns' as const) : ('µs' as const);
+  const inUnit = (seconds: number) =>
+    Number((unit === 'ns' ? toNanoseconds(seconds) : toMicroseconds(seconds)).toPrecision(6));
   return {
     amount: inUnit(record.value),
     spread: record.uncertainty === null ? undefined : inUnit(record.uncertainty),

@@ -1,4 +1,5 @@
 import type { TitrationPlanResult } from '@shared/schemas/planner';
+import { fromMicrolitres, toMicromolar, toMillilitres, toMillimolar } from '@shared/units/units';
 import { TableHead } from '@/components/table-head';
 import { TableScroll } from '@/components/table-scroll';
 
@@ -27,12 +28,12 @@ export function PlanTable({ plan }: { plan: TitrationPlanResult }) {
           {plan.steps.map((step, index) => (
             <tr key={index} className="border-b border-paper-200 tabular-nums">
               <td className="py-1.5 pr-3 font-bold">{index + 1}</td>
-              <td className="pr-3">{format(step.target * 1e3)}</td>
+              <td className="pr-3">{format(toMillimolar(step.target))}</td>
               <td className="pr-3 font-bold text-ink-950">{format(step.additionMicrolitres)}</td>
               <td className="pr-3">{format(step.cumulativeAddedMicrolitres)}</td>
-              <td className="pr-3">{format(step.totalVolumeMicrolitres / 1000)}</td>
-              <td className="pr-3">{format(step.concentration * 1e3)}</td>
-              <td>{format(step.emitterConcentration * 1e6)}</td>
+              <td className="pr-3">{format(toMillilitres(fromMicrolitres(step.totalVolumeMicrolitres)))}</td>
+              <td className="pr-3">{format(toMillimolar(step.concentration))}</td>
+              <td>{format(toMicromolar(step.emitterConcentration))}</td>
             </tr>
           ))}
         </tbody>

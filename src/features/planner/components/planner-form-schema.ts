@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { TitrationPlanInput } from '@shared/schemas/planner';
+import { fromMicrolitres, fromMicromolar, fromMillilitres, fromMillimolar } from '@shared/units/units';
 
 const amount = (what: string) =>
   z
@@ -81,13 +82,13 @@ export function parseTargets(text: string): number[] {
 export function toPlanInput(form: PlannerFormValues): TitrationPlanInput {
   const number = (text: string) => Number(text.replace(',', '.'));
   return {
-    initialVolume: form.initialVolumeMl * 1e-3,
-    emitterConcentration: form.emitterMicromolar * 1e-6,
-    stockConcentration: form.stockMillimolar * 1e-3,
+    initialVolume: fromMillilitres(form.initialVolumeMl),
+    emitterConcentration: fromMicromolar(form.emitterMicromolar),
+    stockConcentration: fromMillimolar(form.stockMillimolar),
     ...(form.mode === 'even'
-      ? { maximum: number(form.maximumMillimolar) * 1e-3, count: Number(form.count) }
-      : { targets: parseTargets(form.targetsMillimolar).map((value) => value * 1e-3) }),
-    ...(form.pipetteStepMicrolitres ? { volumeStep: number(form.pipetteStepMicrolitres) * 1e-6 } : {}),
+      ? { maximum: fromMillimolar(number(form.maximumMillimolar)), count: Number(form.count) }
+      : { targets: parseTargets(form.targetsMillimolar).map(fromMillimolar) }),
+    ...(form.pipetteStepMicrolitres ? { volumeStep: fromMicrolitres(number(form.pipetteStepMicrolitres)) } : {}),
     stockContainsEmitter: form.stockContainsEmitter,
     ...(form.quencherName ? { quencherName: form.quencherName } : {}),
   };

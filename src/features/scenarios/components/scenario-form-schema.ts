@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { Scenario, ScenarioInput } from '@shared/schemas/scenarios';
+import { fromMillimolar, fromNanoseconds, toMillimolar, toNanoseconds } from '@shared/units/units';
 
 const decimal = (text: string) => Number(text.trim().replace(',', '.'));
 const positiveText = z
@@ -55,14 +56,14 @@ export function toScenarioInput(form: ScenarioFormValues, version?: number): Sce
     name: form.name,
     emitterId: form.emitterId,
     solvent: form.solvent,
-    tau0: decimal(form.tau0Nanoseconds) * 1e-9,
+    tau0: fromNanoseconds(decimal(form.tau0Nanoseconds)),
     tau0Source: form.tau0Source,
     notes: form.notes,
     version,
     components: form.components.map((row) => ({
       kind: row.kind,
       compoundId: row.kind === 'compound' ? row.compoundId : null,
-      concentration: decimal(row.concentrationMillimolar) * 1e-3,
+      concentration: fromMillimolar(decimal(row.concentrationMillimolar)),
       studyId: row.kind === 'compound' && row.studyId ? row.studyId : null,
       manualKq: row.kind === 'oxygen' ? decimal(row.manualKq) : null,
       manualKqSource: row.kind === 'oxygen' ? row.manualKqSource : null,
@@ -77,13 +78,13 @@ export function toScenarioForm(scenario: Scenario): ScenarioFormValues {
     name: scenario.name,
     emitterId: scenario.emitter.id,
     solvent: scenario.solvent,
-    tau0Nanoseconds: trim(scenario.tau0 * 1e9),
+    tau0Nanoseconds: trim(toNanoseconds(scenario.tau0)),
     tau0Source: scenario.tau0Source,
     notes: scenario.notes,
     components: scenario.shares.map((share) => ({
       kind: share.kind,
       compoundId: share.compoundId ?? '',
-      concentrationMillimolar: trim(share.concentration * 1e3),
+      concentrationMillimolar: trim(toMillimolar(share.concentration)),
       studyId: share.kqSource?.kind === 'study' && share.kqSource.chosen === 'by-you' ? share.kqSource.studyId : '',
       manualKq: share.kqSource?.kind === 'manual' && share.kq ? String(share.kq) : '',
       manualKqSource: share.kqSource?.kind === 'manual' ? share.kqSource.note : '',

@@ -1,6 +1,7 @@
 import { Link } from 'react-router-dom';
 import type { Scenario } from '@shared/schemas/scenarios';
 import { formatEstimate, formatNumber, UNITS } from '@shared/format';
+import { toMillimolar } from '@shared/units/units';
 import { paths } from '@/lib/paths';
 import { TableHead } from '@/components/table-head';
 import { TableScroll } from '@/components/table-scroll';
@@ -30,7 +31,7 @@ export function ShareTable({ scenario, labId }: { scenario: Scenario; labId: str
               <th scope="row" className="py-1.5 pr-3 font-bold text-ink-900">
                 {share.label}
               </th>
-              <td className="pr-3">{formatNumber(share.concentration * 1e3, 4)}</td>
+              <td className="pr-3">{formatNumber(toMillimolar(share.concentration), 4)}</td>
               <td className="pr-3">{share.kq === null ? '—' : formatEstimate(share.kq, share.kqStandardError)}</td>
               <td className="pr-3 text-caption">
                 {share.kqSource?.kind === 'study' && (

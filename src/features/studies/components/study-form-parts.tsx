@@ -1,5 +1,6 @@
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
 import { degassingMethods, studyAtmospheres, type StudyFormOptions } from '@shared/schemas/studies';
+import { toNanoseconds } from '@shared/units/units';
 import { SelectField } from '@/components/select-field';
 import { TextField } from '@/components/text-field';
 import type { StudyFormValues } from './study-form-values';
@@ -68,7 +69,7 @@ export function StudyConditionsFields({
           { value: '', label: 'enter τ0 by hand' },
           ...lifetimes.map((l) => ({
             value: l.id,
-            label: `${(l.value * 1e9).toPrecision(4)} ns, ${l.solvent}, ${l.atmosphere}, ${l.temperature} K`,
+            label: `${toNanoseconds(l.value).toPrecision(4)} ns, ${l.solvent}, ${l.atmosphere}, ${l.temperature} K`,
           })),
         ]}
         error={e('tau0LifetimeId')}

@@ -1,5 +1,6 @@
 import type { CreateStudyBody, StudyFormOptions } from '@shared/schemas/studies';
 import type { StudyDetail } from '@shared/schemas/study-detail';
+import { fromSi, toSi, type Unit } from '@shared/units/units';
 
 /** The form keeps text as typed, in the units chemists type (ns, mPa s, mL, mM); SI at submit. */
 export interface StudyFormValues {
@@ -33,9 +34,15 @@ export interface StudyFormValues {
 
 export const NEW = '__new__';
 export const CUSTOM = '__custom__';
-const text = (value: number | null | undefined, factor = 1) =>
-  value === null || value === undefined ? '' : String(Number((value / factor).toPrecision(8)));
-const num = (value: string, factor = 1) => (value.trim() === '' ? null : Number(value.replace(',', '.')) * factor);
+/** A stored SI value as form text in `unit` (none: as stored). */
+const text = (value: number | null | undefined, unit?: Unit) =>
+  value === null || value === undefined ? '' : String(Number((unit ? fromSi(value, unit) : value).toPrecision(8)));
+/** Form text in `unit` (none: already SI) as the SI value; empty is null. */
+const num = (value: string, unit?: Unit) => {
+  if (value.trim() === '') return null;
+  const typed = Number(value.replace(',', '.'));
+  return unit ? toSi(typed, unit) : typed;
+};
 
 export function initialValues(study?: StudyDetail): StudyFormValues {
   return {
@@ -46,7 +53,7 @@ export function initialValues(study?: StudyDetail): StudyFormValues {
     newQuencherName: '',
     solventId: study ? (study.solventId ?? CUSTOM) : 'acetonitrile',
     customSolventName: study?.customSolventName ?? '',
-    customViscosityMilli: text(study?.customViscosity, 1e-3),
+    customViscosityMilli: text(study?.customViscosity, 'mPa s'),
     temperature: text(study?.temperature ?? 298.15),
     excitationWavelength: text(study?.excitationWavelength),
     emissionWavelength: text(study?.emissionWavelength),
@@ -54,14 +61,14 @@ export function initialValues(study?: StudyDetail): StudyFormValues {
     windowEnd: text(study?.windowEnd),
     atmosphere: study?.atmosphere ?? 'argon',
     degassingMethod: study?.degassingMethod ?? 'sparging',
-    tau0Nano: text(study?.tau0, 1e-9),
-    tau0UncertaintyNano: text(study?.tau0Uncertainty, 1e-9),
+    tau0Nano: text(study?.tau0, 'ns'),
+    tau0UncertaintyNano: text(study?.tau0Uncertainty, 'ns'),
     tau0LifetimeId: study?.tau0LifetimeId ?? '',
     i0: text(study?.i0),
     dataKind: study?.dataKind ?? 'intensity',
     dilutionCorrection: study?.dilutionCorrection ?? false,
-    initialVolumeMilli: text(study?.initialVolume, 1e-3),
-    stockMilli: text(study?.stockConcentration, 1e-3),
+    initialVolumeMilli: text(study?.initialVolume, 'mL'),
+    stockMilli: text(study?.stockConcentration, 'mM'),
     stockContainsEmitter: study?.stockContainsEmitter ?? false,
     innerFilterCorrection: study?.innerFilterCorrection ?? false,
     notes: study?.notes ?? '',
@@ -80,7 +87,7 @@ export function toBody(values: StudyFormValues, options: StudyFormOptions | unde
       : { quencherId: values.quencherId || null }),
     solventId: custom ? null : values.solventId,
     customSolventName: custom ? values.customSolventName || null : null,
-    customViscosity: num(values.customViscosityMilli, 1e-3),
+    customViscosity: num(values.customViscosityMilli, 'mPa s'),
     temperature: num(values.temperature) ?? 298.15,
     excitationWavelength: num(values.excitationWavelength),
     emissionWavelength: num(values.emissionWavelength),
@@ -89,14 +96,14 @@ export function toBody(values: StudyFormValues, options: StudyFormOptions | unde
     atmosphere: values.atmosphere as CreateStudyBody['atmosphere'],
     degassingMethod: values.degassingMethod as CreateStudyBody['degassingMethod'],
     // With a lifetime record the server copies its value and uncertainty; only a typed tau0 is sent.
-    tau0: lifetime ? null : num(values.tau0Nano, 1e-9),
-    tau0Uncertainty: lifetime ? null : num(values.tau0UncertaintyNano, 1e-9),
+    tau0: lifetime ? null : num(values.tau0Nano, 'ns'),
+    tau0Uncertainty: lifetime ? null : num(values.tau0UncertaintyNano, 'ns'),
     tau0LifetimeId: lifetime?.id ?? null,
     i0: num(values.i0),
     dataKind: values.dataKind,
     dilutionCorrection: values.dilutionCorrection,
-    initialVolume: num(values.initialVolumeMilli, 1e-3),
-    stockConcentration: num(values.stockMilli, 1e-3),
+    initialVolume: num(values.initialVolumeMilli, 'mL'),
+    stockConcentration: num(values.stockMilli, 'mM'),
     stockContainsEmitter: values.stockContainsEmitter,
     innerFilterCorrection: values.innerFilterCorrection,
     notes: values.notes,
