@@ -13,7 +13,10 @@ import {
   decayPreviewSchema,
   decayReadOptionsSchema,
   decaySetListSchema,
+  decaySetParamsSchema,
+  decaySetRefitSchema,
   decaySetSchema,
+  refitDecaySetSchema,
 } from '@shared/schemas/decays';
 import { studyParamsSchema } from '@shared/schemas/studies';
 import { studyDetailSchema } from '@shared/schemas/study-detail';
@@ -31,6 +34,7 @@ import {
   type DecayUpload,
 } from '../services/decays/decay-sets.service';
 import { applyDecaySet } from '../services/decays/apply-decay-set.service';
+import { refitDecaySet } from '../services/decays/refit-decay-set.service';
 import { getStudyDetail } from '../services/studies/study.service';
 import { ACCEPTED_EXTENSIONS, isAcceptedFile, MAX_UPLOAD_BYTES } from '../services/studies/parse/read-upload';
 
@@ -230,6 +234,26 @@ export const decaySetRoutes = [
         signedInActor(req),
       );
       res.json(await getStudyDetail(lab, params.studyId));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/decay-sets/:setId/refit',
+    summary:
+      "Fit a kept decay set again with another model (exponentials, tail or reconvolution, estimator, start channel) from its kept files; the study's lifetimes and tau0 that came from it and the library lifetime record it feeds take the new values, each change in the history",
+    tags: ['decays'],
+    access: { lab: 'researcher' },
+    request: { params: decaySetParamsSchema, body: refitDecaySetSchema },
+    responses: {
+      200: { description: 'The refitted set and what else changed', schema: decaySetRefitSchema },
+      403: { description: "Not the study's owner, or not the person who kept a library set (nor a reviewer or admin)" },
+      404: { description: 'No such decay set' },
+      409: { description: 'Stale set version, or the study is locked' },
+      422: { description: 'A decay cannot be fitted with this model; nothing changed' },
+      503: { description: 'The object store holding the files did not answer' },
+    },
+    handler: async ({ req, res, params, body }) => {
+      res.json(await refitDecaySet(req.app.locals.services, labOf(req), params.setId, body, signedInActor(req)));
     },
   }),
   defineRoute({

@@ -264,3 +264,42 @@ export const compoundDecayParamsSchema = z.object({
   labId: z.string().uuid('must be a lab id'),
   compoundId: z.string().uuid('must be a compound id'),
 });
+
+/** A kept set fitted again with another model: its files and column choices stay as they were kept. */
+export const refitDecaySetSchema = z
+  .object({
+    model: decayModelSchema,
+    version: z.number().int().min(0).describe('the decay set version you looked at; a stale one gets 409'),
+  })
+  .meta({ id: 'RefitDecaySet' });
+export type RefitDecaySetInput = z.input<typeof refitDecaySetSchema>;
+
+/** What a refit changed besides the set itself, so nothing changes unsaid. */
+export const decaySetRefitSchema = z
+  .object({
+    set: decaySetSchema,
+    study: z
+      .object({
+        studyId: z.string().uuid(),
+        points: z.number().int().describe('points whose lifetime came from this set and now holds the new one'),
+        tau0: z.boolean().describe("whether the study's tau0 came from this set and was replaced"),
+      })
+      .nullable()
+      .describe('null: the set was never put into its study, so the study is unchanged'),
+    lifetime: z
+      .object({
+        lifetimeId: z.string().uuid(),
+        value: z.number().describe('s'),
+        uncertainty: z.number().nullable().describe('s'),
+        outdatedStudies: z
+          .number()
+          .int()
+          .describe(
+            'studies whose tau0 comes from the record and still hold the older value: each is refitted by choice',
+          ),
+      })
+      .nullable()
+      .describe('the library lifetime record the set feeds, changed to the new fit; null when it feeds none'),
+  })
+  .meta({ id: 'DecaySetRefit' });
+export type DecaySetRefit = z.infer<typeof decaySetRefitSchema>;

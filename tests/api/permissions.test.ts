@@ -318,6 +318,11 @@ const matrix: Record<string, Row> = {
     body: {},
     expected: labRoute('researcher', 400),
   },
+  'POST /api/labs/:labId/decay-sets/:setId/refit': {
+    path: ({ labId }) => `/api/labs/${labId}/decay-sets/${unknownId}/refit`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
   'POST /api/labs/:labId/compounds/:compoundId/decay-lifetimes': {
     path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}/decay-lifetimes`,
     body: {},

@@ -37,14 +37,17 @@ export async function applyDecaySet(
 /**
  * The placing itself, inside the caller's transaction, for a study already checked as
  * changeable (the demo seed uses it too): refused (422, nothing saved) when a fitted decay has
- * no concentration.
+ * no concentration. `refit` places a set fitted again: only into the points whose lifetime still
+ * comes from it (one the person typed over stays theirs), no point is added, and tau0 only when
+ * it still comes from the set; the history names the refit. Answers what it changed.
  */
 export async function placeDecaySet(
   study: Study,
   set: DecaySet,
   actor: Actor,
   transaction: Transaction,
-): Promise<void> {
+  mode: 'apply' | 'refit' = 'apply',
+): Promise<{ points: number; tau0: boolean }> {
   const unplaced = set.outcomes.filter((outcome) => outcome.lifetime !== null && outcome.concentration === null);
   if (unplaced.length > 0)
     throw new AppError(
@@ -59,32 +62,41 @@ export async function placeDecaySet(
     transaction,
   });
   const points = existing.map(storedSeriesPoint);
+  const refit = mode === 'refit';
   const filled = new Set<number>();
+  // A point already fed by this set is its decay's first choice, so placing again lands where it did before.
+  const candidates = (concentration: number) =>
+    points
+      .map((point, i) => ({ point, i }))
+      .filter(({ point, i }) => !filled.has(i) && sameConcentration(point.concentration, concentration))
+      .filter(({ point }) => !refit || point.lifetimeDecaySetId === set.id)
+      .sort((a, b) => Number(b.point.lifetimeDecaySetId === set.id) - Number(a.point.lifetimeDecaySetId === set.id));
   for (const decay of fittedWithConcentration(set.outcomes)) {
     const fromDecay = {
       lifetime: decay.lifetime.value,
       lifetimeUncertainty: decay.lifetime.standardError,
       lifetimeDecaySetId: set.id,
     };
-    const match = points.findIndex(
-      (point, i) => !filled.has(i) && sameConcentration(point.concentration, decay.concentration),
-    );
-    if (match !== -1) {
+    const match = candidates(decay.concentration)[0]?.i;
+    if (match !== undefined) {
       Object.assign(points[match]!, fromDecay);
       filled.add(match);
-    } else {
+    } else if (!refit) {
       filled.add(points.push({ ...pointAt(decay.concentration), uploadId: null, ...fromDecay }) - 1);
     }
   }
-  const tau0 = tau0FromBlanks(set.outcomes);
+  const blanks = tau0FromBlanks(set.outcomes);
+  const tau0 = blanks && (!refit || study.tau0DecaySetId === set.id) ? blanks : null;
+  if (refit && filled.size === 0 && !tau0) return { points: 0, tau0: false };
   if (tau0)
     await study.update(
       { tau0: tau0.value, tau0Uncertainty: tau0.standardError, tau0LifetimeId: null, tau0DecaySetId: set.id },
       { transaction },
     );
   await writeSeries(study, points, actor, transaction, {
-    action: 'study_lifetimes_from_decays',
+    action: refit ? 'study_lifetimes_refitted' : 'study_lifetimes_from_decays',
     decaySetId: set.id,
     ...(tau0 ? { tau0 } : {}),
   });
+  return { points: filled.size, tau0: tau0 !== null };
 }

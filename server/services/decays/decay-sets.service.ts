@@ -3,6 +3,7 @@ import type { Transaction } from 'sequelize';
 import { ENGINE_VERSION } from '@shared/engine';
 import type {
   DecayCurves,
+  DecayLifetime,
   DecayModel,
   DecayOutcome,
   DecayPreview,
@@ -58,7 +59,7 @@ function refuse(outcome: Exclude<DecayReadOutcome, { kind: 'read' }>): never {
   );
 }
 
-interface ReadRequest {
+export interface ReadRequest {
   file: { fileName: string; bytes: Buffer };
   response: { fileName: string; bytes: Buffer } | null;
   options: DecayReadOptions;
@@ -78,6 +79,39 @@ async function read(services: UploadServices, request: ReadRequest) {
 }
 
 const asFile = (file: ReceivedFile) => ({ fileName: file.originalname, bytes: file.buffer });
+
+/**
+ * Reads and fits a set that is to be kept: only when every decay is read and fitted and nothing
+ * is left to choose (else 422 naming the decay; the caller keeps nothing).
+ */
+export async function readToKeep(services: UploadServices, request: ReadRequest) {
+  const outcome = await read(services, request);
+  if (outcome.questions.length > 0)
+    throw new AppError(
+      'decay_choice_needed',
+      `Nothing was kept: ${outcome.questions[0]}`,
+      422,
+      outcome.questions.map((question) => ({ path: 'body.options', message: question })),
+    );
+  const failed = outcome.outcomes.filter((decay) => decay.problem !== null);
+  if (failed.length > 0)
+    throw new AppError(
+      'decay_not_fittable',
+      `Nothing was kept: decay "${failed[0]!.label}" cannot be fitted: ${failed[0]!.problem} Mark it "ignore" or change the model.`,
+      422,
+      failed.map((decay) => ({ path: `file.column ${decay.label}`, message: decay.problem! })),
+    );
+  return outcome;
+}
+
+/** A kept set's files as read again from the file store. */
+export async function keptFilesOf(services: UploadServices, set: DecaySet) {
+  const bytes = async (file: DecayFile) => ({
+    fileName: file.fileName,
+    bytes: await services.files.read({ ...file.get({ plain: true }), kind: 'decay-file' }),
+  });
+  return { file: await bytes(set.file!), response: set.responseFile ? await bytes(set.responseFile) : null };
+}
 
 /**
  * Reads and fits a decay file (and its response file) as chosen and answers what it found;
@@ -165,26 +199,11 @@ export async function keepDecaySet(
   actor: SignedInActor,
   extra: (set: DecaySet, transaction: Transaction) => Promise<void> = async () => {},
 ): Promise<DecaySet> {
-  const outcome = await read(services, {
+  const outcome = await readToKeep(services, {
     file: asFile(upload.file),
     response: upload.response ? asFile(upload.response) : null,
     options: upload.options,
   });
-  if (outcome.questions.length > 0)
-    throw new AppError(
-      'decay_choice_needed',
-      `Nothing was kept: ${outcome.questions[0]}`,
-      422,
-      outcome.questions.map((question) => ({ path: 'body.options', message: question })),
-    );
-  const failed = outcome.outcomes.filter((decay) => decay.problem !== null);
-  if (failed.length > 0)
-    throw new AppError(
-      'decay_not_fittable',
-      `Nothing was kept: decay "${failed[0]!.label}" cannot be fitted: ${failed[0]!.problem} Mark it "ignore" or change the model.`,
-      422,
-      failed.map((decay) => ({ path: `file.column ${decay.label}`, message: decay.problem! })),
-    );
   const received = [upload.file, ...(upload.response ? [upload.response] : [])];
   const kept: Array<{ id: string; file: ReceivedFile; sha256: string; location: StoredLocation }> = [];
   try {
@@ -295,13 +314,8 @@ export async function decaySetCurves(
   const set = await findDecaySet(lab, setId);
   if (index >= set.outcomes.length)
     throw new AppError('not_found', `The set holds decays 0 to ${set.outcomes.length - 1}.`, 404);
-  const bytes = async (file: DecayFile) => ({
-    fileName: file.fileName,
-    bytes: await services.files.read({ ...file.get({ plain: true }), kind: 'decay-file' }),
-  });
   const outcome = await read(services, {
-    file: await bytes(set.file!),
-    response: set.responseFile ? await bytes(set.responseFile) : null,
+    ...(await keptFilesOf(services, set)),
     options: { ...set.options, show: index },
     stored: set.outcomes,
   });
@@ -314,10 +328,16 @@ export const downloadDecayFile = (services: UploadServices, lab: LabContext, fil
   downloadKeptFile(services.files, 'decay-file', lab.id, fileId);
 
 /** The method text a lifetime record from a decay carries, e.g. "TCSPC decay fit: 1 exponential by reconvolution, Poisson likelihood". */
-const methodOf = (model: DecayModel) =>
+export const methodOf = (model: DecayModel) =>
   `TCSPC decay fit: ${model.components} exponential${model.components === 1 ? '' : 's'} ${
     model.method === 'tail' ? 'as a tail fit' : 'by reconvolution'
   }, ${model.estimator === 'poisson' ? 'Poisson likelihood' : 'weighted least squares'}`;
+
+const MEAN_NOTE = 'Amplitude-weighted mean lifetime of the fit.';
+
+/** A lifetime record's notes, opening with the sentence that says when its value is a mean of several exponentials. */
+export const notesWithBasis = (notes: string, basis: DecayLifetime['basis']) =>
+  [basis === 'amplitude-weighted-mean' ? MEAN_NOTE : '', notes.replace(MEAN_NOTE, '').trim()].filter(Boolean).join(' ');
 
 /**
  * Keeps a single decay of an emitter and makes it a lifetime record of the library with the
@@ -360,12 +380,7 @@ export async function keepLibraryDecay(
           temperature: conditions.temperature,
           method: methodOf(kept.options.model),
           source: `from decay ${upload.file.originalname}`.slice(0, 400),
-          notes: [
-            lifetime.basis === 'amplitude-weighted-mean' ? 'Amplitude-weighted mean lifetime of the fit.' : '',
-            conditions.notes,
-          ]
-            .filter(Boolean)
-            .join(' '),
+          notes: notesWithBasis(conditions.notes, lifetime.basis),
           createdById: actor.userId,
         },
         { transaction },

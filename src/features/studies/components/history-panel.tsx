@@ -14,6 +14,10 @@ const words: Record<string, string> = {
   study_returned: 'returned',
   study_commented: 'commented',
   study_revision_started: 'started this revision',
+  decay_set_kept: 'kept a decay set',
+  study_lifetimes_from_decays: 'took lifetimes from decays',
+  decay_set_refitted: 'refitted a decay set',
+  study_lifetimes_refitted: 'took lifetimes from a refitted decay set',
 };
 
 /** Every change to the study with who and when; before/after values open on demand. */
