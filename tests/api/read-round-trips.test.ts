@@ -6,6 +6,7 @@ import { inject } from 'vitest';
 import { createSequelize } from '../../server/db/sequelize';
 import { initModels } from '../../server/models';
 import { apiClient, createLabWithMembers } from '../support/accounts';
+import { createStudy, exactPoints } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
 // At debug level each request's log line counts its database round trips (Sequelize's, the plain
@@ -49,6 +50,17 @@ describe('round trips of the reads every screen makes', () => {
     expect(session.body.user.labs).toHaveLength(1);
     expect(session.body.twoFactor).toEqual({ enabled: false, verified: false, recoveryCodesLeft: 0 });
     expect(await roundTripsOf(() => client.get('/api/session'), '/api/session')).toBe(2);
+  });
+
+  it('when a signed-in person opens one study, then it costs the session row, the membership and one statement', async () => {
+    const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+    const client = await apiClient(testApp.app);
+    await client.signIn(users.researcher);
+    const study = await createStudy(client, lab.id, 'round-trips');
+    await client.patch(`/api/labs/${lab.id}/studies/${study.id}/points`, { version: 0, points: exactPoints });
+    const url = `/api/labs/${lab.id}/studies/${study.id}`;
+    expect((await client.get(url)).body.points).toHaveLength(exactPoints.length);
+    expect(await roundTripsOf(() => client.get(url), url)).toBe(3);
   });
 
   it('when a signed-in person reads, then the session row is not written again', async () => {

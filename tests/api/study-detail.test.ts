@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { settingsOf, solventLabel } from '../../server/services/studies/study-serialize';
 import { apiClient, createLabWithMembers } from '../support/accounts';
 import { createStudy, exactPoints } from '../support/studies';
 import { createTestApp } from '../support/test-app';
@@ -43,13 +44,35 @@ describe('GET /api/labs/:labId/studies/:studyId', () => {
     const detail = (await researcher.get(url(study.id)).expect(200)).body;
 
     // The same records read through the models, the way the rest of the server reads them.
-    const { Study, StudyFit, StudyPoint, StudyReview, StudyUpload } = await import('../../server/models');
+    const { Compound, Study, StudyFit, StudyPoint, StudyReview, StudyUpload } = await import('../../server/models');
     const stored = (await Study.findByPk(study.id))!;
     const points = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']] });
     const fit = (await StudyFit.findByPk(stored.latestFitId!))!;
     const uploads = await StudyUpload.findAll({ where: { studyId: study.id }, attributes: { exclude: ['content'] } });
     const reviews = await StudyReview.findAll({ where: { studyId: study.id }, order: [['createdAt', 'ASC']] });
 
+    // The study's own fields (read as plain rows) as the model gives them, names and times included.
+    const emitter = (await Compound.findByPk(stored.emitterId))!;
+    const quencher = (await Compound.findByPk(stored.quencherId))!;
+    const { points: _p, latestFit: _f, uploads: _u, reviews: _r, ...own } = detail;
+    expect(own).toEqual({
+      ...settingsOf(stored),
+      id: stored.id,
+      emitter: { id: emitter.id, name: emitter.name },
+      quencher: { id: quencher.id, name: quencher.name },
+      solventLabel: solventLabel(stored),
+      status: 'returned',
+      revision: stored.revision,
+      previousRevisionId: null,
+      nextRevisionId: null,
+      ownerId: stored.ownerId,
+      ownerName: names.researcher,
+      version: stored.version,
+      createdAt: stored.createdAt.toISOString(),
+      updatedAt: stored.updatedAt.toISOString(),
+      fitProblem: stored.fitProblem,
+      tau0Source: null,
+    });
     expect(
       detail.points.map((point: Record<string, unknown>) => [point.id, point.position, point.concentration]),
     ).toEqual(points.map((point) => [point.id, point.position, point.concentration]));

@@ -2,9 +2,10 @@ import type { Transaction } from 'sequelize';
 import { roleAtLeast } from '@shared/schemas/roles';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import { Compound, Study, User } from '../../models';
+import { Study } from '../../models';
 
-const notFound = () => new AppError('not_found', 'No study with this id in this lab.', 404);
+/** 404 for a study id that is not in this lab. */
+export const studyNotFound = () => new AppError('not_found', 'No study with this id in this lab.', 404);
 
 /** The study in this lab (404 for another lab's id); locked FOR UPDATE inside a transaction. */
 export async function loadStudy(lab: LabContext, studyId: string, transaction?: Transaction): Promise<Study> {
@@ -12,22 +13,7 @@ export async function loadStudy(lab: LabContext, studyId: string, transaction?: 
     where: { id: studyId, labId: lab.id },
     ...(transaction ? { transaction, lock: transaction.LOCK.UPDATE } : {}),
   });
-  if (!study) throw notFound();
-  return study;
-}
-
-/** With emitter, quencher and owner, for answers. */
-export async function loadStudyWithNames(lab: LabContext, studyId: string, transaction?: Transaction): Promise<Study> {
-  const study = await Study.findOne({
-    where: { id: studyId, labId: lab.id },
-    include: [
-      { model: Compound, as: 'emitter', attributes: ['id', 'name'] },
-      { model: Compound, as: 'quencher', attributes: ['id', 'name'] },
-      { model: User, as: 'owner', attributes: ['id', 'name'] },
-    ],
-    ...(transaction ? { transaction } : {}),
-  });
-  if (!study) throw notFound();
+  if (!study) throw studyNotFound();
   return study;
 }
 

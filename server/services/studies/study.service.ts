@@ -8,7 +8,7 @@ import type { LabContext } from '../../domain/lab-context';
 import { Study, type StudyFit, type StudyPoint, type StudyReview, type StudyUpload } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
-import { loadStudy, loadStudyWithNames, requireChangeable } from './study-access';
+import { loadStudy, requireChangeable, studyNotFound } from './study-access';
 import { resolveStudyCompounds } from './study-compounds';
 import { refitStudy } from './study-fitting.service';
 import { resolveTau0 } from './study-tau0';
@@ -126,13 +126,20 @@ type Named = { name: string | null };
 const byName = (name: unknown): Named | null => (typeof name === 'string' ? { name } : null);
 
 /**
- * Everything of a study's detail besides the study row, as JSON built by PostgreSQL in one round
- * trip: the next revision, decay file names, points, latest fit, uploads (never their bytes) and
- * reviews, each with the person's name. Every column of points, fits and reviews comes along, so a
- * column added later reaches the serialisers without a change here.
+ * A study's detail as JSON built by PostgreSQL in one round trip: the study row with its emitter,
+ * quencher and owner names, the next revision, decay file names, points, latest fit, uploads
+ * (never their bytes) and reviews, each with the person's name. Every column of the study, points,
+ * fits and reviews comes along, so a column added later reaches the serialisers without a change here.
  */
-const detailPartsSql = `
+const detailSql = `
   SELECT
+    (SELECT row_to_json(x) FROM (
+       SELECT s.*, e.name AS emitter_name, q.name AS quencher_name, o.name AS owner_name
+         FROM studies s
+         LEFT JOIN compounds e ON e.id = s.emitter_id
+         LEFT JOIN compounds q ON q.id = s.quencher_id
+         LEFT JOIN users o ON o.id = s.owner_id
+        WHERE s.id = $1 AND s.lab_id = $2) x) AS study,
     (SELECT n.id FROM studies n WHERE n.previous_revision_id = $1 AND n.lab_id = $2 LIMIT 1) AS next_id,
     (SELECT coalesce(json_agg(json_build_object('id', d.id, 'fileName', f.file_name)), '[]')
        FROM decay_sets d LEFT JOIN decay_files f ON f.id = d.file_id
@@ -149,7 +156,8 @@ const detailPartsSql = `
        SELECT r.*, a.name AS author_name FROM study_reviews r LEFT JOIN users a ON a.id = r.author_id
         WHERE r.study_id = $1) x) AS reviews`;
 
-type DetailParts = {
+type DetailRow = {
+  study: Record<string, unknown> | null;
   next_id: string | null;
   decay_sets: Array<{ id: string; fileName: string | null }>;
   points: Array<Record<string, unknown>>;
@@ -160,12 +168,20 @@ type DetailParts = {
 
 /** A study's detail. A read never writes: outdated stored fits are fitted again at start (refit-outdated-fits.ts). */
 export async function getStudyDetail(lab: LabContext, studyId: string): Promise<StudyDetail> {
-  // The study (404 when it is not this lab's) and the rest in two round trips asked together; the
-  // rest is read only by study id and lab, and thrown away if the study turns out not to be there.
-  const [study, [parts]] = await Promise.all([
-    loadStudyWithNames(lab, studyId),
-    selectRows<DetailParts>(Study.sequelize!, detailPartsSql, [studyId, lab.id]),
-  ]);
+  // The study (404 when it is not this lab's) with its names and everything shown beside it, in
+  // one round trip as plain rows: no Sequelize query building or model instances on this read.
+  const [parts] = await selectRows<DetailRow>(Study.sequelize!, detailSql, [studyId, lab.id]);
+  const studyRow = parts!.study;
+  if (!studyRow) throw studyNotFound();
+  const study = modelShaped<Study>({
+    ...studyRow,
+    emitter: byName(studyRow.emitter_name),
+    quencher: byName(studyRow.quencher_name),
+    owner: byName(studyRow.owner_name),
+    emitter_name: undefined,
+    quencher_name: undefined,
+    owner_name: undefined,
+  });
   const points = parts!.points.map((row) => modelShaped<StudyPoint>(row));
   const fitRow = parts!.latest_fit;
   const latestFit = fitRow
