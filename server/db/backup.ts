@@ -9,6 +9,7 @@ import { appVersion } from '../lib/version';
 import { s3SettingsOf } from '../services/studies/files/file-store-config';
 import { sha256Of } from '../services/studies/files/raw-file-store';
 import { createS3Objects } from '../services/studies/files/s3-objects';
+import { storedFileTables, type StoredFileTable } from '../services/studies/files/stored-file-tables';
 import { clusterFolder, startEmbeddedPostgres } from './embedded-postgres';
 import { folderLockOwner } from './folder-lock';
 import { ensurePostgresBinaries } from './postgres-binaries';
@@ -24,7 +25,7 @@ export interface BackupManifest {
   migrations: string[];
   counts: Record<string, number>;
   sessionSecret: boolean;
-  /** Raw files kept in object storage, copied into the backup (files/<upload id>). */
+  /** Kept files (uploads, decay files, mechanism files) in object storage, copied into the backup (files/<row id>). */
   objectFiles: number;
 }
 
@@ -66,14 +67,19 @@ async function query<T extends pg.QueryResultRow>(url: string, sql: string, valu
 }
 
 interface ObjectFile {
+  table: StoredFileTable;
   id: string;
   sha256: string;
   storage_key: string;
 }
 
-const objectFilesSql = "SELECT id, sha256, storage_key FROM study_uploads WHERE storage = 's3' ORDER BY id";
+// Every table of kept files; their ids are random UUIDs, so one flat folder holds them all.
+const objectFilesSql = storedFileTables
+  .map((table) => `SELECT '${table}' AS "table", id, sha256, storage_key FROM ${table} WHERE storage = 's3'`)
+  .join(' UNION ALL ')
+  .concat(' ORDER BY "table", id');
 
-/** Uploads whose bytes live in object storage (their rows hold only the key). */
+/** Kept files whose bytes live in object storage (their rows hold only the key). */
 const objectFilesOf = (url: string) => query<ObjectFile>(url, objectFilesSql);
 
 const objectStoreOf = (config: AppConfig, count: number) => {
@@ -137,7 +143,8 @@ async function returnObjectFiles(config: AppConfig, url: string, folder: string,
   if (!files.length) return;
   const bytesOf = async (file: ObjectFile) => {
     const bytes = fs.readFileSync(path.join(folder, file.id));
-    if ((await sha256Of(bytes)) !== file.sha256) throw new Error(`The backup's copy of upload ${file.id} is damaged.`);
+    if ((await sha256Of(bytes)) !== file.sha256)
+      throw new Error(`The backup's copy of ${file.table} row ${file.id} is damaged.`);
     return bytes;
   };
   const settings = s3SettingsOf(config);
@@ -158,7 +165,7 @@ async function returnObjectFiles(config: AppConfig, url: string, folder: string,
     await client.query('BEGIN');
     for (const file of files) {
       await client.query(
-        "UPDATE study_uploads SET storage = 'database', storage_key = NULL, content = $2 WHERE id = $1",
+        `UPDATE ${file.table} SET storage = 'database', storage_key = NULL, content = $2 WHERE id = $1`,
         [file.id, await bytesOf(file)],
       );
     }

@@ -1,5 +1,5 @@
 /**
- * `npm run files:move-to-s3`: moves every raw upload and decay file kept in PostgreSQL into the configured
+ * `npm run files:move-to-s3`: moves every raw upload, decay file and mechanism file kept in PostgreSQL into the configured
  * S3-compatible bucket (HALFLIGHT_S3_* variables), checking each file's SHA-256 before and
  * after. Run it with Halflight stopped when it uses its built-in database (the cluster's folder
  * is locked while the app runs), or at any time against DATABASE_URL. Then set

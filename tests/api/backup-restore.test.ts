@@ -9,7 +9,9 @@ import { loadConfig, projectRoot } from '../../server/config/env';
 import { createBackup, restoreBackup } from '../../server/db/backup';
 import { createSequelize } from '../../server/db/sequelize';
 import { initModels } from '../../server/models';
+import { demoDecayFile } from '../../server/seed/demo-decays';
 import { createRawFileStore } from '../../server/services/studies/files/raw-file-store';
+import { storedFileTables } from '../../server/services/studies/files/stored-file-tables';
 import { createS3Objects } from '../../server/services/studies/files/s3-objects';
 import { apiClient, createLabWithMembers } from '../support/accounts';
 import { startFakeS3 } from '../support/fake-s3';
@@ -186,6 +188,27 @@ describe('npm run backup and npm run restore', { timeout: 360_000 }, () => {
         .attach('file', bytes, 'series.csv');
       expect(upload.status, JSON.stringify(upload.body)).toBe(201);
       const uploadId = upload.body.upload.id as string;
+      // A decay set (the demo's invented titration) and a spectrum matrix: their files go to the bucket too.
+      const decaySet = await client.agent
+        .post(`/api/labs/${lab.id}/studies/${study.id}/decay-sets`)
+        .set('x-csrf-token', csrf)
+        .attach('file', demoDecayFile(), 'titration.csv');
+      expect(decaySet.status, JSON.stringify(decaySet.body).slice(0, 300)).toBe(201);
+      const matrix = await client.agent
+        .post(`/api/labs/${lab.id}/studies/${study.id}/spectrum-matrices`)
+        .set('x-csrf-token', csrf)
+        .attach('file', fs.readFileSync(path.join(projectRoot, 'tests/fixtures/uploads/spectrum-matrix.csv')), 'm.csv');
+      expect(matrix.status, JSON.stringify(matrix.body).slice(0, 300)).toBe(201);
+      const kept = [
+        { table: 'study_uploads', id: uploadId },
+        { table: 'decay_files', id: decaySet.body.file.id as string },
+        { table: 'mechanism_files', id: matrix.body.file.id as string },
+      ];
+      // The one list of tables that keep files is every table with a storage_key column.
+      const withKeys = await source.query<{ table_name: string }>(
+        "SELECT table_name FROM information_schema.columns WHERE column_name = 'storage_key' AND table_schema = 'public' ORDER BY table_name",
+      );
+      expect(withKeys.map((row) => row.table_name)).toEqual([...storedFileTables].sort());
       const s3Env = {
         HALFLIGHT_S3_BUCKET: fakeS3.settings.bucket,
         HALFLIGHT_S3_ENDPOINT: fakeS3.settings.endpoint!,
@@ -197,7 +220,7 @@ describe('npm run backup and npm run restore', { timeout: 360_000 }, () => {
       const { file, manifest } = await createBackup(
         loadConfig({ DATABASE_URL: source.url, HALFLIGHT_DATA_DIR: dataDir, ...s3Env }),
       );
-      expect(manifest.objectFiles).toBe(1);
+      expect(manifest.objectFiles).toBe(kept.length);
 
       // No bucket where it is restored: the file comes back onto its row in PostgreSQL.
       await restoreBackup(
@@ -206,12 +229,14 @@ describe('npm run backup and npm run restore', { timeout: 360_000 }, () => {
       );
       const restored = new pg.Client({ connectionString: databaseUrl('without_bucket') });
       await restored.connect();
-      const { rows: kept } = await restored.query<{ storage: string; same: boolean }>(
-        "SELECT storage, encode(sha256(content), 'hex') = sha256 AS same FROM study_uploads WHERE id = $1",
-        [uploadId],
-      );
+      for (const { table, id } of kept) {
+        const { rows } = await restored.query<{ storage: string; same: boolean }>(
+          `SELECT storage, encode(sha256(content), 'hex') = sha256 AS same FROM ${table} WHERE id = $1`,
+          [id],
+        );
+        expect(rows, table).toEqual([{ storage: 'database', same: true }]);
+      }
       await restored.end();
-      expect(kept).toEqual([{ storage: 'database', same: true }]);
 
       // A bucket where it is restored: the object is put back under its key.
       const withBucket = databaseUrl('with_bucket');
@@ -222,6 +247,14 @@ describe('npm run backup and npm run restore', { timeout: 360_000 }, () => {
         uploadId,
       ]);
       expect((await restoredS3.get(row!.storage_key)).equals(bytes)).toBe(true);
+      for (const { table, id } of kept) {
+        const [file] = await source.query<{ storage_key: string; sha256: string }>(
+          `SELECT storage_key, sha256 FROM ${table} WHERE id = $1`,
+          [id],
+        );
+        const copy = await restoredS3.get(file!.storage_key);
+        expect(crypto.createHash('sha256').update(copy).digest('hex'), table).toBe(file!.sha256);
+      }
       restoredS3.close();
     } finally {
       await app.close();

@@ -2,7 +2,7 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DecayFile, StudyUpload } from '../../server/models';
+import { DecayFile, MechanismFile, StudyUpload } from '../../server/models';
 import { demoDecayFile } from '../../server/seed/demo-decays';
 import { moveFilesToS3 } from '../../server/services/studies/files/move-files-to-s3';
 import { createRawFileStore } from '../../server/services/studies/files/raw-file-store';
@@ -161,5 +161,21 @@ describe('npm run files:move-to-s3 (moveFilesToS3)', () => {
     const curves = await client.get(`/api/labs/${labId}/decay-sets/${kept.body.id}/decays/0/curves`);
     expect(curves.status, JSON.stringify(curves.body)).toBe(200);
     expect(curves.body.counts).toHaveLength(1024);
+  });
+
+  it('when spectrum-matrix files kept in the database are moved, then each lives in the bucket with the same SHA-256', async () => {
+    const { client, csrf, base } = await signedIn(inDatabase);
+    const kept = await client.agent
+      .post(`${base}/spectrum-matrices`)
+      .set('x-csrf-token', csrf)
+      .attach('file', fixture('spectrum-matrix.csv'), 'spectra.csv');
+    expect(kept.status, JSON.stringify(kept.body).slice(0, 300)).toBe(201);
+    expect(await MechanismFile.findByPk(kept.body.file.id)).toMatchObject({ storage: 'database' });
+    const lines: string[] = [];
+    expect((await moveFilesToS3(s3, (line) => lines.push(line), { labId })).refused).toBe(0);
+    const row = await MechanismFile.findByPk(kept.body.file.id);
+    expect(row).toMatchObject({ storage: 's3', content: null });
+    expect(sha256(await s3.get(row!.storageKey!))).toBe(sha256(fixture('spectrum-matrix.csv')));
+    expect(lines.some((line) => line.includes(`mechanism file ${row!.id}`))).toBe(true);
   });
 });

@@ -1,18 +1,20 @@
 import { Op } from 'sequelize';
-import { DecayFile, StudyUpload } from '../../../models';
+import { DecayFile, MechanismFile, StudyUpload } from '../../../models';
 import { objectKey, sha256Of } from './raw-file-store';
 import type { S3Objects } from './s3-objects';
+import { storedFileTables, type StoredFileTable } from './stored-file-tables';
 
 const BATCH = 50;
 
-/** The tables whose rows keep a file exactly as received: a study's uploads and the decay files. */
-const keptFileTables = [
-  { name: 'upload', model: StudyUpload },
-  { name: 'decay file', model: DecayFile },
-] as const;
+/** The model and the words of each table of kept files (stored-file-tables.ts lists them; a new one must be named here). */
+const keptFileTables: Record<StoredFileTable, { name: string; model: unknown }> = {
+  study_uploads: { name: 'upload', model: StudyUpload },
+  decay_files: { name: 'decay file', model: DecayFile },
+  mechanism_files: { name: 'mechanism file', model: MechanismFile },
+};
 
 /**
- * Moves every file kept in the database (study uploads and decay files) into object storage,
+ * Moves every file kept in the database (study uploads, decay files, mechanism files) into object storage,
  * one at a time: the bytes are checked against their SHA-256, written, read back and checked
  * again, and only then does the row point at the object and drop its copy (one UPDATE, so a
  * stop half-way leaves each file either moved or where it was). A file that fails a check stays
@@ -22,8 +24,8 @@ const keptFileTables = [
 export async function moveFilesToS3(s3: S3Objects, log: (line: string) => void, options: { labId?: string } = {}) {
   let moved = 0;
   let refused = 0;
-  for (const { name, model } of keptFileTables) {
-    // The two classes share StoredFile's columns; Sequelize's static methods do not take a union of classes.
+  for (const { name, model } of storedFileTables.map((table) => keptFileTables[table])) {
+    // The classes share StoredFile's columns; Sequelize's static methods do not take a union of classes.
     const table = model as unknown as typeof StudyUpload;
     let after = '00000000-0000-0000-0000-000000000000';
     for (;;) {
