@@ -1,8 +1,8 @@
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DecayFile, MechanismFile, StudyUpload } from '../../server/models';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { DecayFile, DecaySet, MechanismFile, StudyUpload } from '../../server/models';
 import { demoDecayFile } from '../../server/seed/demo-decays';
 import { moveFilesToS3 } from '../../server/services/studies/files/move-files-to-s3';
 import { createRawFileStore } from '../../server/services/studies/files/raw-file-store';
@@ -116,6 +116,28 @@ describe('POST /api/labs/:labId/studies/:studyId/uploads with object storage', (
     expect(unread.status).toBe(503);
     expect(unread.body.error.code).toBe('file_store_unavailable');
     expect(unread.headers['retry-after']).toMatch(/^[1-9]\d*$/);
+  });
+});
+
+describe('POST /api/labs/:labId/studies/:studyId/decay-sets with object storage', () => {
+  it('when reading the kept set back fails after its rows committed, then its files stay in the bucket', async () => {
+    const { client, csrf, base } = await signedIn(inS3);
+    const bytes = demoDecayFile();
+    // The one DecaySet.findOne of the request is the read after the commit.
+    const readBack = vi.spyOn(DecaySet, 'findOne').mockRejectedValueOnce(new Error('read after commit failed'));
+    try {
+      const kept = await client.agent
+        .post(`${base}/decay-sets`)
+        .set('x-csrf-token', csrf)
+        .attach('file', bytes, 'after-commit.csv');
+      expect(kept.status).toBe(500);
+    } finally {
+      readBack.mockRestore();
+    }
+    const row = await DecayFile.findOne({ where: { labId, fileName: 'after-commit.csv' } });
+    expect(row).toMatchObject({ storage: 's3', content: null });
+    // common practice: bytes a committed row points to are never removed by the request that wrote it
+    expect(sha256(await s3.get(row!.storageKey!))).toBe(sha256(bytes));
   });
 });
 

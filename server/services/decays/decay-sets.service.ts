@@ -1,4 +1,3 @@
-import crypto from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import { ENGINE_VERSION } from '@shared/engine';
 import type {
@@ -17,46 +16,16 @@ import { DecayFile, DecaySet, ExcitedStateLifetime, User } from '../../models';
 import type { Atmosphere } from '../../models/excited-state-lifetime.model';
 import { findCompound } from '../library/library-access.service';
 import { recordAudit } from '../audit.service';
-import { downloadKeptFile, sha256Of, type StoredLocation } from '../studies/files/raw-file-store';
-import type { Problem } from '../studies/parse/read-and-map';
-import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
+import * as attached from '../studies/files/attached-files';
+import { downloadKeptFile } from '../studies/files/raw-file-store';
+import { loadStudy, loadStudyToChange } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
 import { decaySternVolmer } from './decay-stern-volmer';
-import type { DecayReadOutcome } from './read-decays';
 
-/** A file as multer hands it over. */
-export interface ReceivedFile {
-  originalname: string;
-  mimetype: string;
-  buffer: Buffer;
-}
 export interface DecayUpload {
-  file: ReceivedFile;
-  response: ReceivedFile | null;
+  file: attached.ReceivedFile;
+  response: attached.ReceivedFile | null;
   options: DecayReadOptions;
-}
-
-const problemDetails = (problems: Problem[]) =>
-  problems.map((problem) => ({
-    path: problem.column ? `file.column ${problem.column}` : problem.row ? `file.row ${problem.row}` : 'file',
-    message: problem.message,
-  }));
-
-/** Unreadable or over a limit: 422 or 413 naming what is wrong; nothing was kept. */
-function refuse(outcome: Exclude<DecayReadOutcome, { kind: 'read' }>): never {
-  if (outcome.kind === 'limit')
-    throw new AppError(
-      'upload_limit',
-      `${outcome.message} Nothing was kept.`,
-      outcome.limit === 'seconds' ? 422 : 413,
-      [{ path: 'file', message: `over the ${outcome.limit} limit` }],
-    );
-  throw new AppError(
-    'decay_unreadable',
-    `${outcome.problems[0]!.message} Nothing was kept.`,
-    422,
-    problemDetails(outcome.problems),
-  );
 }
 
 export interface ReadRequest {
@@ -74,11 +43,11 @@ async function read(services: UploadServices, request: ReadRequest) {
     options: request.options,
     stored: request.stored ?? null,
   });
-  if (outcome.kind !== 'read') refuse(outcome);
+  if (outcome.kind !== 'read') attached.refuseUnread(outcome, 'decay_unreadable');
   return outcome;
 }
 
-const asFile = (file: ReceivedFile) => ({ fileName: file.originalname, bytes: file.buffer });
+const asFile = (file: attached.ReceivedFile) => ({ fileName: file.originalname, bytes: file.buffer });
 
 /**
  * Reads and fits a set that is to be kept: only when every decay is read and fitted and nothing
@@ -142,13 +111,6 @@ export async function previewDecaySet(
 
 /** The answer for a kept set, with its files' names and hashes. */
 export function toDecaySet(set: DecaySet): DecaySetAnswer {
-  const file = (row: DecayFile) => ({
-    id: row.id,
-    fileName: row.fileName,
-    size: row.size,
-    sha256: row.sha256,
-    createdAt: row.createdAt.toISOString(),
-  });
   const { sternVolmer, problem } = decaySternVolmer(set.outcomes);
   return {
     ...set.reading,
@@ -157,8 +119,8 @@ export function toDecaySet(set: DecaySet): DecaySetAnswer {
     studyId: set.studyId,
     compoundId: set.compoundId,
     lifetimeId: set.lifetimeId,
-    file: file(set.file!),
-    responseFile: set.responseFile ? file(set.responseFile) : null,
+    file: attached.keptFileAnswer(set.file!),
+    responseFile: set.responseFile ? attached.keptFileAnswer(set.responseFile) : null,
     model: set.options.model,
     countRate: set.options.countRate,
     repetitionRate: set.options.repetitionRate,
@@ -173,8 +135,8 @@ export function toDecaySet(set: DecaySet): DecaySetAnswer {
 }
 
 const withFiles = [
-  { model: DecayFile, as: 'file', attributes: { exclude: ['content'] } },
-  { model: DecayFile, as: 'responseFile', attributes: { exclude: ['content'] } },
+  attached.fileRowWithoutBytes(DecayFile, 'file'),
+  attached.fileRowWithoutBytes(DecayFile, 'responseFile'),
   { model: User, as: 'createdBy', attributes: ['name'] },
 ];
 
@@ -205,89 +167,44 @@ export async function keepDecaySet(
     options: upload.options,
   });
   const received = [upload.file, ...(upload.response ? [upload.response] : [])];
-  const kept: Array<{ id: string; file: ReceivedFile; sha256: string; location: StoredLocation }> = [];
-  try {
-    for (const file of received) {
-      const id = crypto.randomUUID();
-      const sha256 = await sha256Of(file.buffer);
-      kept.push({
-        id,
-        file,
-        sha256,
-        location: await services.files.put({ uploadId: id, labId: lab.id, bytes: file.buffer }),
-      });
-    }
-    const setId = await services.sequelize.transaction(async (transaction) => {
-      for (const { id, file, sha256, location } of kept)
-        await DecayFile.create(
-          {
-            ...location,
-            id,
-            labId: lab.id,
-            fileName: file.originalname.slice(0, 255),
-            mediaType: file.mimetype || 'application/octet-stream',
-            size: file.buffer.length,
-            sha256,
-            uploadedById: actor.userId,
-          },
-          { transaction },
-        );
-      const set = await DecaySet.create(
-        {
-          labId: lab.id,
-          studyId: target.studyId,
-          compoundId: target.compoundId,
-          lifetimeId: null,
-          title: upload.file.originalname.slice(0, 255),
-          fileId: kept[0]!.id,
-          responseFileId: kept[1]?.id ?? null,
-          reading: outcome.summary,
-          options: { ...upload.options, model: outcome.model, show: 0 },
-          outcomes: outcome.outcomes,
-          engineVersion: ENGINE_VERSION,
-          createdById: actor.userId,
-        },
-        { transaction },
-      );
-      await recordAudit(
-        actor,
-        {
-          action: 'decay_set_kept',
-          labId: lab.id,
-          targetType: target.studyId ? 'study' : 'compound',
-          targetId: (target.studyId ?? target.compoundId)!,
-          details: {
-            decaySetId: set.id,
-            files: kept.map(({ id, file, sha256 }) => ({
-              id,
-              fileName: file.originalname,
-              size: file.buffer.length,
-              sha256,
-            })),
-            decays: outcome.outcomes.length,
-          },
-        },
-        transaction,
-      );
-      await extra(set, transaction);
-      return set.id;
-    });
-    return await findDecaySet(lab, setId);
-  } catch (error) {
-    for (const { location } of kept) await services.files.discard(location);
-    throw error;
-  }
+  const setId = await attached.keepWithFiles(services, lab, actor, DecayFile, received, async (kept, transaction) => {
+    const set = await DecaySet.create(
+      {
+        labId: lab.id,
+        studyId: target.studyId,
+        compoundId: target.compoundId,
+        lifetimeId: null,
+        title: upload.file.originalname.slice(0, 255),
+        fileId: kept[0]!.id,
+        responseFileId: kept[1]?.id ?? null,
+        reading: outcome.summary,
+        options: { ...upload.options, model: outcome.model, show: 0 },
+        outcomes: outcome.outcomes,
+        engineVersion: ENGINE_VERSION,
+        createdById: actor.userId,
+      },
+      { transaction },
+    );
+    await recordAudit(
+      actor,
+      {
+        action: 'decay_set_kept',
+        labId: lab.id,
+        targetType: target.studyId ? 'study' : 'compound',
+        targetId: (target.studyId ?? target.compoundId)!,
+        details: { decaySetId: set.id, files: kept.map(attached.keptFileDetails), decays: outcome.outcomes.length },
+      },
+      transaction,
+    );
+    await extra(set, transaction);
+    return set.id;
+  });
+  return findDecaySet(lab, setId);
 }
 
 /** A study's decay sets, newest first. */
 export async function listStudyDecaySets(lab: LabContext, studyId: string): Promise<DecaySetAnswer[]> {
-  await loadStudy(lab, studyId);
-  const sets = await DecaySet.findAll({
-    where: { labId: lab.id, studyId },
-    include: withFiles,
-    order: [['createdAt', 'DESC']],
-  });
-  return sets.map(toDecaySet);
+  return (await attached.listOfStudy(DecaySet, lab, studyId, withFiles)).map(toDecaySet);
 }
 
 /** Keeps a decay set of a study: the owner, while the study may change. */
@@ -298,9 +215,7 @@ export async function keepStudyDecaySet(
   upload: DecayUpload,
   actor: SignedInActor,
 ): Promise<DecaySetAnswer> {
-  const study = await loadStudy(lab, studyId);
-  requireOwner(study, lab, actor.userId);
-  requireEditable(study);
+  await loadStudyToChange(lab, studyId, actor.userId);
   return toDecaySet(await keepDecaySet(services, lab, { studyId, compoundId: null }, upload, actor));
 }
 

@@ -1,34 +1,25 @@
-import crypto from 'node:crypto';
 import { ENGINE_VERSION } from '@shared/engine';
 import type { SpectrumMatrix as SpectrumMatrixAnswer, SpectrumMatrixOptions } from '@shared/schemas/spectrum-matrices';
 import type { SignedInActor } from '../../domain/actor';
 import type { LabContext } from '../../domain/lab-context';
-import { AppError } from '../../lib/app-error';
 import { MechanismFile, SpectrumMatrix, User } from '../../models';
 import { recordAudit } from '../audit.service';
-import type { ReceivedFile } from '../decays/decay-sets.service';
-import { downloadKeptFile, sha256Of } from '../studies/files/raw-file-store';
-import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
+import * as attached from '../studies/files/attached-files';
+import { downloadKeptFile } from '../studies/files/raw-file-store';
+import { loadStudyToChange } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
 
 const withFile = [
-  { model: MechanismFile, as: 'file', attributes: { exclude: ['content'] } },
+  attached.fileRowWithoutBytes(MechanismFile, 'file'),
   { model: User, as: 'createdBy', attributes: ['name'] },
 ];
 
 export function toSpectrumMatrix(row: SpectrumMatrix): SpectrumMatrixAnswer {
-  const file = row.file!;
   return {
     id: row.id,
     studyId: row.studyId,
     title: row.title,
-    file: {
-      id: file.id,
-      fileName: file.fileName,
-      size: file.size,
-      sha256: file.sha256,
-      createdAt: file.createdAt.toISOString(),
-    },
+    file: attached.keptFileAnswer(row.file!),
     reading: row.reading,
     analysis: row.analysis,
     plot: row.plot,
@@ -48,58 +39,29 @@ export async function keepSpectrumMatrix(
   services: UploadServices,
   lab: LabContext,
   studyId: string,
-  upload: { file: ReceivedFile; options: SpectrumMatrixOptions },
+  upload: { file: attached.ReceivedFile; options: SpectrumMatrixOptions },
   actor: SignedInActor,
 ): Promise<SpectrumMatrixAnswer> {
-  const study = await loadStudy(lab, studyId);
-  requireOwner(study, lab, actor.userId);
-  requireEditable(study);
+  await loadStudyToChange(lab, studyId, actor.userId);
   const { file, options } = upload;
   const outcome = await services.uploadReader.readSpectrumMatrix({
     fileName: file.originalname,
     bytes: file.buffer,
     options,
   });
-  if (outcome.kind === 'limit')
-    throw new AppError(
-      'upload_limit',
-      `${outcome.message} Nothing was kept.`,
-      outcome.limit === 'seconds' ? 422 : 413,
-      [{ path: 'file', message: `over the ${outcome.limit} limit` }],
-    );
-  if (outcome.kind === 'unreadable')
-    throw new AppError(
-      'spectrum_matrix_unreadable',
-      `${outcome.problems[0]!.message} Nothing was kept.`,
-      422,
-      outcome.problems.map((problem) => ({
-        path: problem.column ? `file.column ${problem.column}` : problem.row ? `file.row ${problem.row}` : 'file',
-        message: problem.message,
-      })),
-    );
-  const fileId = crypto.randomUUID();
-  const sha256 = await sha256Of(file.buffer);
-  const location = await services.files.put({ uploadId: fileId, labId: lab.id, bytes: file.buffer });
-  try {
-    const matrixId = await services.sequelize.transaction(async (transaction) => {
-      await MechanismFile.create(
-        {
-          ...location,
-          id: fileId,
-          labId: lab.id,
-          fileName: file.originalname.slice(0, 255),
-          mediaType: file.mimetype || 'application/octet-stream',
-          size: file.buffer.length,
-          sha256,
-          uploadedById: actor.userId,
-        },
-        { transaction },
-      );
+  if (outcome.kind !== 'read') attached.refuseUnread(outcome, 'spectrum_matrix_unreadable');
+  const matrixId = await attached.keepWithFiles(
+    services,
+    lab,
+    actor,
+    MechanismFile,
+    [file],
+    async ([kept], transaction) => {
       const matrix = await SpectrumMatrix.create(
         {
           labId: lab.id,
           studyId,
-          fileId,
+          fileId: kept!.id,
           title: file.originalname.slice(0, 255),
           bandWidth: options.bandWidth,
           reading: outcome.reading,
@@ -119,7 +81,7 @@ export async function keepSpectrumMatrix(
           targetId: studyId,
           details: {
             spectrumMatrixId: matrix.id,
-            file: { id: fileId, fileName: file.originalname, size: file.buffer.length, sha256 },
+            file: attached.keptFileDetails(kept!),
             bandWidth: options.bandWidth,
             flags: outcome.analysis.flags.map((flag) => flag.code),
           },
@@ -127,24 +89,15 @@ export async function keepSpectrumMatrix(
         transaction,
       );
       return matrix.id;
-    });
-    const kept = await SpectrumMatrix.findOne({ where: { id: matrixId, labId: lab.id }, include: withFile });
-    return toSpectrumMatrix(kept!);
-  } catch (error) {
-    await services.files.discard(location);
-    throw error;
-  }
+    },
+  );
+  const kept = await SpectrumMatrix.findOne({ where: { id: matrixId, labId: lab.id }, include: withFile });
+  return toSpectrumMatrix(kept!);
 }
 
 /** A study's spectrum matrices, newest first. */
 export async function listSpectrumMatrices(lab: LabContext, studyId: string): Promise<SpectrumMatrixAnswer[]> {
-  await loadStudy(lab, studyId);
-  const rows = await SpectrumMatrix.findAll({
-    where: { labId: lab.id, studyId },
-    include: withFile,
-    order: [['createdAt', 'DESC']],
-  });
-  return rows.map(toSpectrumMatrix);
+  return (await attached.listOfStudy(SpectrumMatrix, lab, studyId, withFile)).map(toSpectrumMatrix);
 }
 
 /** A kept mechanism file exactly as received (checked against its SHA-256). */

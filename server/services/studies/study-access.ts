@@ -25,6 +25,19 @@ export function requireOwner(study: Study, lab: LabContext, userId: string): voi
   if (!roleAtLeast(lab.role, 'researcher')) throw new AppError('forbidden', 'Your role cannot change studies.', 403);
 }
 
+/** The study a person is about to change: theirs, and open to change (else 403 or 409); locked inside a transaction. */
+export async function loadStudyToChange(
+  lab: LabContext,
+  studyId: string,
+  userId: string,
+  transaction?: Transaction,
+): Promise<Study> {
+  const study = await loadStudy(lab, studyId, transaction);
+  requireOwner(study, lab, userId);
+  requireEditable(study);
+  return study;
+}
+
 /** A study under review or approved does not change; approved ones change through a new revision. */
 export function requireEditable(study: Study): void {
   if (study.status === 'approved') {
