@@ -1,4 +1,5 @@
 import { UNITS } from '@shared/format';
+import { toMicroseconds, toNanoseconds } from '@shared/units/units';
 import type { DecayCurves } from '@shared/schemas/decays';
 import type { Pdf } from './pdf-document';
 import { axes } from './plot-drawing';
@@ -6,7 +7,9 @@ import { chartInk, drawAxes, niceScale, plotArea, type Box } from './report-char
 
 /** ns up to a few µs, then µs: tick labels stay short either way. */
 const timeUnitFor = (seconds: number) =>
-  seconds > 5e-6 ? { factor: 1e6, label: UNITS.microsecond } : { factor: 1e9, label: UNITS.nanosecond };
+  seconds > 5e-6
+    ? { convert: toMicroseconds, label: UNITS.microsecond }
+    : { convert: toNanoseconds, label: UNITS.nanosecond };
 
 /** A polyline through the points that exist (a null or non-positive count leaves a gap on the log axis). */
 function polyline(doc: Pdf, points: Array<readonly [number, number] | null>, colour: string, width: number) {
@@ -35,7 +38,7 @@ export function drawDecay(doc: Pdf, title: string, curves: DecayCurves): void {
   const main: Box = { x: 100, y: top, width: 380, height: 150 };
   const residualBox: Box = { x: 100, y: top + 200, width: 380, height: 50 };
   const unit = timeUnitFor(curves.time.at(-1) ?? 0);
-  const times = curves.time.map((t) => t * unit.factor);
+  const times = curves.time.map(unit.convert);
   const xTitle = `time (${unit.label})`;
   const x = niceScale(Math.min(0, ...times), Math.max(...times));
   const highest = Math.max(1, ...curves.counts, ...(curves.response ?? []), ...(curves.model ?? []).map((m) => m ?? 0));

@@ -1,4 +1,5 @@
 import { formatEstimate, UNITS } from '@shared/format';
+import { fromSi, toMillimolar, toNanoseconds } from '@shared/units/units';
 import type { DecayModel, DecaySet } from '@shared/schemas/decays';
 import type { LabContext } from '../../domain/lab-context';
 import { decaySetCurves, listStudyDecaySets } from '../decays/decay-sets.service';
@@ -17,7 +18,7 @@ const modelText = (model: DecayModel) =>
       : 'reconvolution with the response'
   }, ${model.estimator === 'poisson' ? 'Poisson maximum likelihood' : 'least squares weighted by 1/max(counts, 1)'}`;
 
-const ns = (seconds: number) => seconds * 1e9;
+const ns = toNanoseconds;
 
 function setFacts(doc: Pdf, set: DecaySet) {
   facts(doc, [
@@ -57,7 +58,7 @@ function outcomeTable(doc: Pdf, set: DecaySet) {
     ['Decay', `[Q] (${UNITS.millimolar})`, `τ (${UNITS.nanosecond})`, 'χ²/ν', 'Flags or problem'],
     set.outcomes.map((outcome) => [
       outcome.label,
-      outcome.concentration === null ? '—' : fixed(outcome.concentration * 1e3, 4),
+      outcome.concentration === null ? '—' : fixed(toMillimolar(outcome.concentration), 4),
       outcome.lifetime
         ? `${formatEstimate(ns(outcome.lifetime.value), ns(outcome.lifetime.standardError), '')}${
             outcome.lifetime.basis === 'amplitude-weighted-mean' ? ' (mean)' : ''
@@ -90,7 +91,7 @@ export async function decaysSection(doc: Pdf, services: UploadServices, lab: Lab
     if (set.sternVolmer) {
       doc.font('Lato-Bold').text('Lifetime Stern–Volmer plot of the set').font('Lato');
       drawLifetime(doc, {
-        xAxis: { label: `[Q] (${UNITS.millimolar})`, scale: 1e3 },
+        xAxis: { label: `[Q] (${UNITS.millimolar})`, scale: fromSi(1, 'mM') },
         points: set.sternVolmer.points.map((point) => ({ x: point.concentration, y: point.ratio })),
         kSv: set.sternVolmer.kSv,
       });

@@ -1,8 +1,9 @@
 import type { DecayOutcome } from '@shared/schemas/decays';
 import { formatNumber } from '@shared/format';
+import { toNanoseconds } from '@shared/units/units';
 
-const ns = (seconds: number) => formatNumber(seconds * 1e9, 4);
-const nsSe = (seconds: number) => formatNumber(seconds * 1e9, 2);
+const ns = (seconds: number) => formatNumber(toNanoseconds(seconds), 4);
+const nsSe = (seconds: number) => formatNumber(toNanoseconds(seconds), 2);
 
 /** The fitted parameters of one decay with their standard errors, and its flags. */
 export function DecayParameters({ outcome }: { outcome: DecayOutcome }) {

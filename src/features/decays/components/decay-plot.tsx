@@ -2,10 +2,9 @@ import { useRef } from 'react';
 import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { DecayCurves } from '@shared/schemas/decays';
+import { toNanoseconds } from '@shared/units/units';
 import { decayColours, paperUnderPlot } from './decay-chart-setup';
 import { SaveChartButtons } from '@/components/save-chart-buttons';
-
-const NS = 1e9;
 
 /**
  * One decay: counts on a log axis with the measured response and the fitted curve; below,
@@ -15,7 +14,7 @@ const NS = 1e9;
 export function DecayPlot({ curves, title }: { curves: DecayCurves; title: string }) {
   const main = useRef<Chart<'scatter'>>(null);
   const residualChart = useRef<Chart<'scatter'>>(null);
-  const timeNs = curves.time.map((t) => t * NS);
+  const timeNs = curves.time.map(toNanoseconds);
   const positive = (values: ReadonlyArray<number | null>) =>
     values.flatMap((value, i) => (value !== null && value > 0 ? [{ x: timeNs[i]!, y: value }] : []));
   const start = curves.startChannel ?? 0;

@@ -3,6 +3,7 @@ import type { Chart } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { DecaySternVolmer } from '@shared/schemas/decays';
 import { formatNumber } from '@shared/format';
+import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import { decayColours, paperUnderPlot } from './decay-chart-setup';
 import { SaveChartButtons } from '@/components/save-chart-buttons';
 
@@ -16,7 +17,8 @@ export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: Deca
         <div>
           <dt className="text-caption text-ink-500">τ0 from the blank decay</dt>
           <dd aria-label="Decay τ0" className="font-bold tabular-nums">
-            {formatNumber(sternVolmer.tau0.value * 1e9, 4)} ± {formatNumber(sternVolmer.tau0.standardError * 1e9, 2)} ns
+            {formatNumber(toNanoseconds(sternVolmer.tau0.value), 4)} ±{' '}
+            {formatNumber(toNanoseconds(sternVolmer.tau0.standardError), 2)} ns
           </dd>
         </div>
         <div>
@@ -35,13 +37,13 @@ export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: Deca
             datasets: [
               {
                 label: 'τ0/τ',
-                data: sternVolmer.points.map((point) => ({ x: point.concentration * 1e3, y: point.ratio })),
+                data: sternVolmer.points.map((point) => ({ x: toMillimolar(point.concentration), y: point.ratio })),
                 backgroundColor: decayColours.counts.replace('0.55', '1'),
                 pointRadius: 5,
               },
               {
                 label: '1 + K_SV[Q]',
-                data: [0, maxQ].map((q) => ({ x: q * 1e3, y: 1 + sternVolmer.kSv.value * q })),
+                data: [0, maxQ].map((q) => ({ x: toMillimolar(q), y: 1 + sternVolmer.kSv.value * q })),
                 borderColor: decayColours.fit,
                 showLine: true,
                 pointRadius: 0,

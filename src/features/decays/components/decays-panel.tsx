@@ -2,6 +2,7 @@ import { useState } from 'react';
 import type { DecayModel, DecayOutcome, DecayPreview, DecaySet, DecayTimeUnit } from '@shared/schemas/decays';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { formatNumber } from '@shared/format';
+import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import { Button } from '@/components/button';
 import { FileField } from '@/components/file-field';
 import { FormAlert } from '@/components/form-alert';
@@ -26,7 +27,7 @@ const DEFAULT_MODEL: DecayModel = {
 };
 const lifetimeText = (outcome: DecayOutcome) =>
   outcome.lifetime
-    ? `${formatNumber(outcome.lifetime.value * 1e9, 4)} ± ${formatNumber(outcome.lifetime.standardError * 1e9, 2)}`
+    ? `${formatNumber(toNanoseconds(outcome.lifetime.value), 4)} ± ${formatNumber(toNanoseconds(outcome.lifetime.standardError), 2)}`
     : (outcome.problem ?? '—');
 
 /** The decays of a set: [Q], lifetime, chi-squared, flags; a row button shows that decay. */
@@ -58,7 +59,7 @@ function OutcomesTable({
           >
             <td className="pr-3">{outcome.label}</td>
             <td className="pr-3 tabular-nums">
-              {outcome.concentration === null ? 'not given' : formatNumber(outcome.concentration * 1e3, 4)}
+              {outcome.concentration === null ? 'not given' : formatNumber(toMillimolar(outcome.concentration), 4)}
             </td>
             <td className="pr-3 tabular-nums">{lifetimeText(outcome)}</td>
             <td className="pr-3 tabular-nums">

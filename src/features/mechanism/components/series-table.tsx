@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
 import { formatEstimate, formatNumber, titled, UNITS } from '@shared/format';
+import { toMillipascalSeconds } from '@shared/units/units';
 import type { TemperatureSeriesAnalysis } from '@shared/schemas/temperature-series';
 
 /** One row per study: temperature, K_SV, kq, η(T) and k_diff(T), each study linked. */
@@ -33,7 +34,7 @@ export function SeriesTable({
             <td>{formatNumber(point.temperature, 5)}</td>
             <td>{formatEstimate(point.kSv.value, point.kSv.standardError)}</td>
             <td>{point.kq ? formatEstimate(point.kq.value, point.kq.standardError) : '—'}</td>
-            <td title={point.viscositySource}>{formatNumber(point.viscosity * 1000)}</td>
+            <td title={point.viscositySource}>{formatNumber(toMillipascalSeconds(point.viscosity))}</td>
             <td>{formatNumber(point.diffusionLimit)}</td>
           </tr>
         ))}

@@ -1,4 +1,5 @@
 import { formatEstimate, formatNumber, UNITS } from '@shared/format';
+import { toKilojoulesPerMole } from '@shared/units/units';
 import type { TemperatureSeriesAnalysis } from '@shared/schemas/temperature-series';
 
 const verdictWords: Record<TemperatureSeriesAnalysis['verdict'], { title: string; tone: string }> = {
@@ -7,7 +8,7 @@ const verdictWords: Record<TemperatureSeriesAnalysis['verdict'], { title: string
   'mixed-or-unclear': { title: 'Mixed or unclear', tone: 'border-glow-400 bg-glow-50' },
 };
 
-const kj = (joules: number) => joules / 1000;
+const kj = toKilojoulesPerMole;
 
 /** The verdict in words with its reasons, and the activation parameters with their SEs. */
 export function SeriesVerdict({ analysis }: { analysis: TemperatureSeriesAnalysis }) {

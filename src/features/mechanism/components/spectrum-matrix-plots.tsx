@@ -1,5 +1,6 @@
 import { Scatter } from 'react-chartjs-2';
 import { formatNumber, titled, UNITS } from '@shared/format';
+import { toMillimolar } from '@shared/units/units';
 import type { SpectrumMatrix } from '@shared/schemas/spectrum-matrices';
 import { chartColours } from '@/components/chart-theme';
 import { linearAxis as axis } from '@/components/scatter-chart';
@@ -33,7 +34,7 @@ export function SpectrumMatrixPlots({ matrix }: { matrix: SpectrumMatrix }) {
           aria-label="Spectra: intensity against wavelength, one line per [Q]"
           data={{
             datasets: plot.spectra.map((spectrum) => ({
-              label: `${formatNumber(spectrum.concentration * 1e3, 3)} ${UNITS.millimolar}`,
+              label: `${formatNumber(toMillimolar(spectrum.concentration), 3)} ${UNITS.millimolar}`,
               data: plot.wavelengths.map((x, k) => ({ x, y: spectrum.values[k]! })),
               borderColor: colourAt(spectrum.concentration / highest),
               backgroundColor: colourAt(spectrum.concentration / highest),
