@@ -5,7 +5,7 @@
  */
 
 /** Recorded with every stored fit. */
-export const ENGINE_VERSION = '1.4.0';
+export const ENGINE_VERSION = '1.5.0';
 
 export { EngineError, type EngineErrorCode } from './core/engine-error';
 export { approxEqual, relativeDifference } from './core/approx-equal';

@@ -120,6 +120,20 @@ export const fitResultSchema = z
       .nullable(),
     flags: z.array(qualityFlagSchema),
     notes: z.array(z.string()),
+    corrections: z
+      .array(
+        z.object({
+          position: z.number().int(),
+          concentration: z.number().describe('mol/L after the dilution correction'),
+          intensity: z.number().nullable().describe('intensity (or I0/I) after the switched-on corrections'),
+          dilutionFactor: z.number().nullable(),
+          innerFilterFactor: z.number().nullable(),
+        }),
+      )
+      .nullish()
+      .describe(
+        "each point's values after the switched-on corrections, left-out points too; null when none is on (absent before engine 1.5.0)",
+      ),
     plot: z
       .object({
         xAxis: plotAxisSchema,

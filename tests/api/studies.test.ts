@@ -86,7 +86,7 @@ describe('PATCH /api/labs/:labId/studies/:studyId/points', () => {
     expect(response.body.version).toBe(1);
     expect(response.body.latestFit.kSv).toBeCloseTo(500, 6);
     expect(response.body.latestFit.kq).toBeCloseTo(5e8, -1);
-    expect(response.body.latestFit.engineVersion).toBe('1.4.0');
+    expect(response.body.latestFit.engineVersion).toBe('1.5.0');
     const fits = await clients.viewer.get(`${url(study.id)}/fits`);
     expect(fits.body.items).toHaveLength(1);
   });

@@ -5,6 +5,8 @@ import { linearRegression } from 'simple-statistics';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { fitStudy } from '@shared/engine/study-fit/fit-study';
 import type * as FitStudyModule from '@shared/engine/study-fit/fit-study';
+import { correctPoint } from '@shared/engine/study-fit/corrections';
+import type * as CorrectionsModule from '@shared/engine/study-fit/corrections';
 import { ENGINE_VERSION } from '@shared/engine';
 import { Study, StudyFit } from '../../server/models';
 import { pino } from 'pino';
@@ -16,7 +18,11 @@ import { pointAt } from '@shared/schemas/study-points';
 import { createStudy, exactPoints } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
-// The pipeline, wrapped so the test can count the fits a request runs.
+// The pipeline and its corrections, wrapped so the test can count what a request runs.
+vi.mock('@shared/engine/study-fit/corrections', async (original) => {
+  const actual = await original<typeof CorrectionsModule>();
+  return { ...actual, correctPoint: vi.fn(actual.correctPoint) };
+});
 vi.mock('@shared/engine/study-fit/fit-study', async (original) => {
   const actual = await original<typeof FitStudyModule>();
   return { ...actual, fitStudy: vi.fn(actual.fitStudy) };
@@ -103,6 +109,45 @@ describe('one study-fit pipeline (issue 13, findings 11 and 12)', () => {
     // a second start finds nothing of this study to fit again
     await refitOutdatedFits(testApp.sequelize);
     expect((await client.get(base(study.id)).expect(200)).body.latestFit.id).toBe(refitted.id);
+  });
+
+  it('when corrections are on, then a read shows the corrected values the fit stored and corrects nothing again', async () => {
+    const study = await createStudy(client, labId, crypto.randomBytes(3).toString('hex'), {
+      dilutionCorrection: true,
+      initialVolume: 2e-3,
+      stockConcentration: 0.1,
+    });
+    // invented: 0-100 µL of 0.1 M stock into 2 mL; the fourth point left out
+    const points = [0, 20e-6, 40e-6, 60e-6, 80e-6, 100e-6].map((volume, i) => ({
+      ...pointAt((0.1 * volume) / 2e-3),
+      intensity: 1000 / (1 + 0.5 * i),
+      volumeAdded: volume,
+      ...(i === 3 ? { excluded: true, exclusionReason: 'bubble' } : {}),
+    }));
+    const saved = (await client.patch(`${base(study.id)}/points`, { version: 0, points }).expect(200)).body;
+    vi.mocked(correctPoint).mockClear();
+    const read = (await client.get(base(study.id)).expect(200)).body;
+    expect(vi.mocked(correctPoint)).not.toHaveBeenCalled();
+    const stored = saved.latestFit.result.corrections;
+    expect(read.points.map((p: { corrected: unknown }) => p.corrected)).toEqual(
+      stored.map(({ position: _p, ...values }: { position: number }) => values),
+    );
+    // by hand (mass balance): the left-out point at 60 µL, [Q] = 0.1 × 60/2060 M, I × 2060/2000
+    expect(read.points[3].corrected.concentration).toBeCloseTo((0.1 * 60e-6) / 2.06e-3, 15);
+    expect(read.points[3].corrected.intensity).toBeCloseTo((400 * 2.06e-3) / 2e-3, 9);
+
+    // a fit stored before engine 1.5.0 holds none: nothing is shown until the start-up refit
+    const fit = (await StudyFit.findByPk(saved.latestFit.id))!;
+    const { corrections: _c, ...older } = fit.result;
+    await fit.update({ engineVersion: '1.4.0', result: older as typeof fit.result });
+    const before = (await client.get(base(study.id)).expect(200)).body;
+    expect(before.points.every((p: { corrected: unknown }) => p.corrected === null)).toBe(true);
+    await refitOutdatedFits(testApp.sequelize);
+    const after = (await client.get(base(study.id)).expect(200)).body;
+    expect(after.latestFit.id).not.toBe(saved.latestFit.id);
+    expect(after.points.map((p: { corrected: unknown }) => p.corrected)).toEqual(
+      read.points.map((p: { corrected: unknown }) => p.corrected),
+    );
   });
 
   it('when a study holds two runs, then each keeps its run number and is divided by its own I0 (K_SV = 500 M^-1 by construction)', async () => {

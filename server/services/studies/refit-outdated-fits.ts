@@ -10,14 +10,22 @@ import { refitStudy } from './study-fitting.service';
  * read; a plain ENGINE_VERSION bump leaves stored fits as they were fitted.
  */
 export const OLDEST_CURRENT_FIT_ENGINE = '1.1.0';
+/**
+ * With a correction switched on, the points grid shows the corrected values the latest fit stored
+ * (engine 1.5.0 on); a study whose latest fit is older is fitted again at start to get them.
+ */
+export const OLDEST_FIT_WITH_CORRECTIONS = '1.5.0';
 
 // Versions compared as integer arrays in PostgreSQL ("1.10.0" after "1.9.0"); a version that is
-// not three numbers counts as outdated.
+// not numbers and dots counts as outdated.
+const olderThan = (version: string) => `
+  CASE WHEN f.engine_version ~ '^[0-9]+(\\.[0-9]+)*$'
+       THEN string_to_array(f.engine_version, '.')::int[] < string_to_array(${version}, '.')::int[]
+       ELSE true END`;
 const outdatedSql = `
   SELECT s.id FROM studies s JOIN study_fits f ON f.id = s.latest_fit_id
-   WHERE CASE WHEN f.engine_version ~ '^[0-9]+(\\.[0-9]+)*$'
-              THEN string_to_array(f.engine_version, '.')::int[] < string_to_array($1, '.')::int[]
-              ELSE true END
+   WHERE ${olderThan('$1')}
+      OR ((s.dilution_correction OR s.inner_filter_correction) AND ${olderThan('$2')})
    ORDER BY s.id`;
 
 /**
@@ -29,7 +37,7 @@ const outdatedSql = `
  */
 export async function refitOutdatedFits(sequelize: Sequelize): Promise<number> {
   const outdated = await sequelize.query<{ id: string }>(outdatedSql, {
-    bind: [OLDEST_CURRENT_FIT_ENGINE],
+    bind: [OLDEST_CURRENT_FIT_ENGINE, OLDEST_FIT_WITH_CORRECTIONS],
     type: QueryTypes.SELECT,
   });
   let refitted = 0;

@@ -1,4 +1,4 @@
-import { correctPoint, fromSi, SOLVENTS, toSi, type SolventId } from '@shared/engine';
+import { fromSi, SOLVENTS, toSi, type SolventId } from '@shared/engine';
 import { describeUploadReading } from '@shared/format';
 import type { StudySettings, StudySummary } from '@shared/schemas/studies';
 import type { FitResult, StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
@@ -81,8 +81,21 @@ const decaySource = (sources: DecaySources, setId: string | null) =>
 
 export const toTau0Source = (study: Study, sources: DecaySources) => decaySource(sources, study.tau0DecaySetId ?? null);
 
-export const toPoint = (study: Study, point: StudyPoint, sources: DecaySources = new Map()): StudyPointRecord => {
-  const corrected = correctPoint(study, point, study.dataKind === 'ratio');
+/** A latest fit's corrected values by point position (the pipeline corrected each point once). */
+export type StoredCorrections = ReadonlyMap<number, NonNullable<FitResult['corrections']>[number]>;
+export const correctionsOf = (fit: Pick<StudyFit, 'result'> | null): StoredCorrections =>
+  new Map((fit?.result.corrections ?? []).map((entry) => [entry.position, entry]));
+
+/**
+ * A point as the API shows it, with its corrected values as the latest fit stored them (never
+ * corrected again here); null when no correction is on, or no fit of engine 1.5.0 or later holds them.
+ */
+export const toPoint = (
+  point: StudyPoint,
+  corrections: StoredCorrections,
+  sources: DecaySources = new Map(),
+): StudyPointRecord => {
+  const corrected = corrections.get(point.position) ?? null;
   return {
     id: point.id,
     position: point.position,

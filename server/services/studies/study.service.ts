@@ -12,7 +12,16 @@ import { loadStudy, requireChangeable, studyNotFound } from './study-access';
 import { resolveStudyCompounds } from './study-compounds';
 import { refitStudy } from './study-fitting.service';
 import { resolveTau0 } from './study-tau0';
-import { settingsOf, solventLabel, toFit, toPoint, toReview, toTau0Source, toUpload } from './study-serialize';
+import {
+  correctionsOf,
+  settingsOf,
+  solventLabel,
+  toFit,
+  toPoint,
+  toReview,
+  toTau0Source,
+  toUpload,
+} from './study-serialize';
 
 const settingsIssuesError = (issues: { path: string; message: string }[]) =>
   new AppError(
@@ -199,6 +208,7 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
     file: set.fileName === null ? null : { fileName: set.fileName },
   }));
   const sources = new Map(decaySets.map((set) => [set.id, set.file?.fileName ?? 'decay file']));
+  const corrections = study.dilutionCorrection || study.innerFilterCorrection ? correctionsOf(latestFit) : new Map();
   return {
     ...settingsOf(study),
     id: study.id,
@@ -214,7 +224,7 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
     version: study.version,
     createdAt: study.createdAt.toISOString(),
     updatedAt: study.updatedAt.toISOString(),
-    points: points.map((point) => toPoint(study, point, sources)),
+    points: points.map((point) => toPoint(point, corrections, sources)),
     latestFit: latestFit ? toFit(latestFit) : null,
     fitProblem: study.fitProblem,
     tau0Source: toTau0Source(study, sources),

@@ -116,6 +116,8 @@ export function fitStudy(
       concentration: values?.concentration ?? point.concentration,
       value: values ? values.intensity : point.intensity,
       dilutionFactor: values?.dilutionFactor ?? null,
+      innerFilterFactor: values?.innerFilterFactor ?? null,
+      corrected: values !== null,
       missing: values?.missing ?? [],
     };
   });
@@ -447,6 +449,16 @@ export function fitStudy(
         : null,
       flags: unique,
       notes,
+      // Every point's corrected values (left-out ones too), kept so a read never corrects again.
+      corrections: corrected.some((entry) => entry.corrected)
+        ? corrected.map((entry) => ({
+            position: entry.point.position,
+            concentration: entry.concentration,
+            intensity: entry.value,
+            dilutionFactor: entry.dilutionFactor,
+            innerFilterFactor: entry.innerFilterFactor,
+          }))
+        : null,
       plot: {
         xAxis,
         yLabel,
