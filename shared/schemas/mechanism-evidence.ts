@@ -60,3 +60,14 @@ export const MECHANISM_VERDICT_WORDS: Record<MechanismVerdictValue, string> = {
   'two-emitters': 'Two emitters or an exciplex',
   unclear: 'Unclear',
 };
+
+/** What one piece says, in a word or three. */
+export const MECHANISM_READING_WORDS: Record<MechanismPieceAnswer['reading'], string> = {
+  dynamic: 'Dynamic',
+  static: 'Static',
+  both: 'Static and dynamic',
+  'two-emitters': 'Two emitters',
+  'static-or-long-range': 'Static or long range',
+  neutral: 'Fits either',
+  unclear: 'Unclear',
+};

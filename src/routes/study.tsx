@@ -12,6 +12,7 @@ import { Tag } from '@/components/tag';
 import { useSession } from '@/features/auth/api/get-session';
 import { DecaysPanel } from '@/features/decays/components/decays-panel';
 import { DrivingForcePanel } from '@/features/library/components/driving-force-panel';
+import { MechanismPanel, type EvidenceAnchors } from '@/features/mechanism/components/mechanism-panel';
 import { SpectrumMatrixPanel } from '@/features/mechanism/components/spectrum-matrix-panel';
 import { useStudy } from '@/features/studies/api/get-study';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
@@ -39,6 +40,13 @@ import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
 import type { StudyArrival } from '@/routes/new-study';
+
+/** Where the mechanism panel sends a person to add each missing piece of evidence. */
+const EVIDENCE_ANCHORS: EvidenceAnchors = {
+  lifetime: { href: '#lifetimes-from-decays', label: 'Lifetimes from decays' },
+  wavelength: { href: '#emission-by-wavelength', label: 'Emission by wavelength' },
+  diffusion: { href: '#set-up', label: 'Set-up' },
+};
 
 /** One study: the plot and results up top, then the points, files, set-up, review and history. */
 export function StudyRoute() {
@@ -214,6 +222,9 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
           )}
         </Panel>
       </div>
+      <Panel title="Mechanism">
+        <MechanismPanel labId={labId} studyId={study.id} fitId={fit?.id ?? null} anchors={EVIDENCE_ANCHORS} />
+      </Panel>
       <Panel title="Points">
         {/* keyed by the saved points: a file taken or an undo shows in the grid instead of stale rows */}
         {pointsShown ? (
@@ -227,7 +238,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
           <p className="text-body text-ink-500">Laying out the points…</p>
         )}
       </Panel>
-      <Panel title="Lifetimes from decays">
+      <Panel title="Lifetimes from decays" id="lifetimes-from-decays">
         <DecaysPanel
           labId={labId}
           study={study}
@@ -239,7 +250,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
           }}
         />
       </Panel>
-      <Panel title="Emission by wavelength">
+      <Panel title="Emission by wavelength" id="emission-by-wavelength">
         <SpectrumMatrixPanel labId={labId} studyId={study.id} editable={editable} />
       </Panel>
       {editable && (
@@ -261,6 +272,7 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
       />
       <Panel
         title="Set-up"
+        id="set-up"
         aside={
           editable && (
             <button type="button" className="text-caption underline" onClick={() => setEditing(!editing)}>

@@ -21,6 +21,9 @@ export function useKeepSpectrumMatrix(labId: string, studyId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: SpectrumMatrixInput) => keepSpectrumMatrix(labId, studyId, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: mechanismKeys.spectrumMatrices(labId, studyId) }),
+    onSuccess: async () => {
+      await queryClient.invalidateQueries({ queryKey: mechanismKeys.spectrumMatrices(labId, studyId) });
+      await queryClient.invalidateQueries({ queryKey: mechanismKeys.evidenceOf(labId, studyId) });
+    },
   });
 }
