@@ -248,6 +248,11 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
             void queryClient.invalidateQueries({ queryKey: studiesKeys.history(labId, study.id) });
             void queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) });
           }}
+          onRefitted={() => {
+            void queryClient.invalidateQueries({ queryKey: studiesKeys.detail(labId, study.id) });
+            void queryClient.invalidateQueries({ queryKey: studiesKeys.history(labId, study.id) });
+            void queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) });
+          }}
         />
       </Panel>
       <Panel title="Emission by wavelength" id="emission-by-wavelength">

@@ -17,6 +17,7 @@ import { DecayModelPicker } from './decay-model-picker';
 import { DecayParameters } from './decay-parameters';
 import { DecayPlot } from './decay-plot';
 import { DecaySternVolmerPlot } from './decay-stern-volmer-plot';
+import { RefitDecaySet } from './refit-decay-set';
 
 const DEFAULT_MODEL: DecayModel = {
   components: 1,
@@ -85,12 +86,14 @@ function KeptSet({
   study,
   editable,
   onApplied,
+  onRefitted,
 }: {
   labId: string;
   set: DecaySet;
   study: StudyDetail;
   editable: boolean;
   onApplied: (study: StudyDetail) => void;
+  onRefitted: () => void;
 }) {
   const [shown, setShown] = useState(0);
   const curves = useDecayCurves(labId, set.id, shown);
@@ -128,6 +131,7 @@ function KeptSet({
       ) : (
         <p className="text-caption text-ink-500">No lifetime Stern–Volmer plot: {set.sternVolmerProblem}</p>
       )}
+      {editable && <RefitDecaySet labId={labId} studyId={study.id} set={set} inUse={inUse} onRefitted={onRefitted} />}
     </article>
   );
 }
@@ -144,11 +148,14 @@ export function DecaysPanel({
   study,
   editable,
   onApplied,
+  onRefitted,
 }: {
   labId: string;
   study: StudyDetail;
   editable: boolean;
   onApplied: (study: StudyDetail) => void;
+  /** a kept set was fitted again: the study may have new lifetimes, tau0, fit and history */
+  onRefitted: () => void;
 }) {
   const [file, setFile] = useState<File | null>(null);
   const [response, setResponse] = useState<File | null>(null);
@@ -280,7 +287,15 @@ export function DecaysPanel({
         <p className="text-body text-ink-500">No decays kept for this study.</p>
       )}
       {sets.data?.items.map((set) => (
-        <KeptSet key={set.id} labId={labId} set={set} study={study} editable={editable} onApplied={onApplied} />
+        <KeptSet
+          key={set.id}
+          labId={labId}
+          set={set}
+          study={study}
+          editable={editable}
+          onApplied={onApplied}
+          onRefitted={onRefitted}
+        />
       ))}
     </div>
   );
