@@ -1,5 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import { belongsToEach } from './associations';
+import { AbsorptionTitration } from './absorption-titration.model';
 import { AuditEvent } from './audit-event.model';
 import { CaughtMail } from './caught-mail.model';
 import { Compound } from './compound.model';
@@ -40,7 +41,8 @@ export function initModels(sequelize: Sequelize): void {
   Compound.hasMany(ExcitedStateEnergy, { as: 'energies', foreignKey: 'compoundId' });
   initStudyModels(sequelize);
   initScenarioModels(sequelize);
-  for (const model of [DecayFile, DecaySet, MechanismFile, SpectrumMatrix]) model.initModel(sequelize);
+  for (const model of [DecayFile, DecaySet, MechanismFile, SpectrumMatrix, AbsorptionTitration])
+    model.initModel(sequelize);
   belongsToEach(DecayFile, { lab: Lab, uploadedBy: User });
   belongsToEach(MechanismFile, { lab: Lab, uploadedBy: User });
   belongsToEach(DecaySet, {
@@ -53,9 +55,17 @@ export function initModels(sequelize: Sequelize): void {
     lifetime: ExcitedStateLifetime,
   });
   belongsToEach(SpectrumMatrix, { lab: Lab, createdBy: User, study: Study, file: MechanismFile });
+  belongsToEach(AbsorptionTitration, {
+    lab: Lab,
+    createdBy: User,
+    study: Study,
+    file: MechanismFile,
+    quencherFile: MechanismFile,
+  });
 }
 
 export {
+  AbsorptionTitration,
   AuditEvent,
   CaughtMail,
   Compound,

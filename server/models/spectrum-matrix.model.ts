@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { ForeignKey, NonAttribute, Sequelize } from 'sequelize';
+import type { CreationOptional, ForeignKey, NonAttribute, Sequelize } from 'sequelize';
 import type {
   SpectrumMatrixAnalysisAnswer,
   SpectrumMatrixReading,
@@ -14,6 +14,7 @@ import { LabRecord, recordColumns } from './record';
 export class SpectrumMatrix extends LabRecord<SpectrumMatrix> {
   declare studyId: ForeignKey<Study['id']>;
   declare fileId: ForeignKey<MechanismFile['id']>;
+  declare kind: CreationOptional<'emission'>;
   declare title: string;
   /** nm; 0 means one band per wavelength */
   declare bandWidth: number;
@@ -29,6 +30,7 @@ export class SpectrumMatrix extends LabRecord<SpectrumMatrix> {
     SpectrumMatrix.init(
       {
         ...recordColumns(),
+        kind: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'emission' },
         title: { type: DataTypes.STRING(255), allowNull: false },
         bandWidth: { type: DataTypes.DOUBLE, allowNull: false },
         reading: { type: DataTypes.JSONB, allowNull: false },
@@ -36,7 +38,8 @@ export class SpectrumMatrix extends LabRecord<SpectrumMatrix> {
         plot: { type: DataTypes.JSONB, allowNull: false },
         engineVersion: { type: DataTypes.STRING(20), allowNull: false },
       },
-      { sequelize, tableName: 'spectrum_matrices' },
+      // Absorption titrations share the table (kind 'absorption', AbsorptionTitration); the column's default is 'emission'.
+      { sequelize, tableName: 'spectrum_matrices', defaultScope: { where: { kind: 'emission' } } },
     );
   }
 }

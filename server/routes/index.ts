@@ -1,4 +1,5 @@
 import type { AnyRouteSpec } from '../http/define-route';
+import { absorptionTitrationRoutes } from './absorption-titrations.routes';
 import { accountRoutes } from './account.routes';
 import { accountSessionRoutes } from './account-sessions.routes';
 import { caughtMailRoutes } from './caught-mail.routes';
@@ -41,6 +42,7 @@ export const apiRoutes: AnyRouteSpec[] = [
   ...scenarioRoutes,
   ...comparisonRoutes,
   ...mechanismRoutes,
+  ...absorptionTitrationRoutes,
   ...dashboardRoutes,
   ...reportRoutes,
   ...compoundRoutes,

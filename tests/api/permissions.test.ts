@@ -291,6 +291,24 @@ const matrix: Record<string, Row> = {
     path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/spectrum-matrices`,
     expected: labRoute('viewer', 404),
   },
+  'POST /api/labs/:labId/studies/:studyId/absorption-titrations/preview': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/absorption-titrations/preview`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'POST /api/labs/:labId/studies/:studyId/absorption-titrations': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/absorption-titrations`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'GET /api/labs/:labId/studies/:studyId/absorption-titrations': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/absorption-titrations`,
+    expected: labRoute('viewer', 404),
+  },
+  'DELETE /api/labs/:labId/studies/:studyId/absorption-titrations/:titrationId': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/absorption-titrations/${unknownId}`,
+    expected: labRoute('researcher', 404),
+  },
   'GET /api/labs/:labId/mechanism-files/:fileId': {
     path: ({ labId }) => `/api/labs/${labId}/mechanism-files/${unknownId}`,
     expected: labRoute('viewer', 404),

@@ -23,9 +23,9 @@ export type SpectrumMatrixOutcome =
 /** The plot keeps every k-th wavelength so that at most this many remain (the analysis uses all). */
 export const PLOT_POINTS = 400;
 
-const asBuffer = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+export const asBuffer = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 
-interface Matrix {
+export interface Matrix {
   format: string;
   wavelengthHeader: string;
   wavelengths: number[];
@@ -37,7 +37,7 @@ interface Matrix {
  * with its quencher concentration in the header ("0 mM", "[Q] = 2 uM"), every spectrum read at
  * every wavelength (one grid); descending wavelengths are turned round.
  */
-async function readMatrix(fileName: string, bytes: Buffer, limits: UploadLimits): Promise<Matrix> {
+export async function readMatrix(fileName: string, bytes: Buffer, limits: UploadLimits): Promise<Matrix> {
   const table = await readUpload(fileName, bytes, limits);
   const [wavelengthHeader, ...sampleHeaders] = table.headers;
   if (!wavelengthHeader || sampleHeaders.length < 3)

@@ -3,6 +3,7 @@ import { Piscina } from 'piscina';
 import type { UploadMapping } from '@shared/schemas/study-uploads';
 import { unavailable } from '../../../lib/app-error';
 import type { DecayReadOutcome, DecayReadTask } from '../../decays/read-decays';
+import type { AbsorptionTitrationOutcome, AbsorptionTitrationTask } from '../../mechanism/read-absorption-titration';
 import type { SpectrumMatrixOutcome, SpectrumMatrixTask } from '../../mechanism/read-spectrum-matrix';
 import type { StudyReading } from './propose-mapping';
 import type { ReadOutcome, ReadTask } from './read-and-map';
@@ -16,6 +17,8 @@ export interface UploadReader {
   readDecays(task: Omit<DecayReadTask, 'limits'>): Promise<DecayReadOutcome>;
   /** Reads and analyses a spectrum matrix (wavelength-resolved K_SV) in the same threads. */
   readSpectrumMatrix(task: Omit<SpectrumMatrixTask, 'limits'>): Promise<SpectrumMatrixOutcome>;
+  /** Reads and analyses an absorption titration (ground-state complex evidence) in the same threads. */
+  readAbsorptionTitration(task: Omit<AbsorptionTitrationTask, 'limits'>): Promise<AbsorptionTitrationOutcome>;
   close(): Promise<void>;
 }
 
@@ -56,8 +59,8 @@ const threadArguments = () =>
 export function createUploadReader(options: UploadReaderOptions = {}): UploadReader {
   const limits: UploadLimits = { ...DEFAULT_UPLOAD_LIMITS, ...options.limits };
   const pool = new Piscina<
-    ReadTask | DecayReadTask | SpectrumMatrixTask,
-    ReadOutcome | DecayReadOutcome | SpectrumMatrixOutcome
+    ReadTask | DecayReadTask | SpectrumMatrixTask | AbsorptionTitrationTask,
+    ReadOutcome | DecayReadOutcome | SpectrumMatrixOutcome | AbsorptionTitrationOutcome
   >({
     filename: workerFile.href,
     // One thread waits ready, so its start-up never falls inside a request.
@@ -71,7 +74,7 @@ export function createUploadReader(options: UploadReaderOptions = {}): UploadRea
   /** Runs one task in a thread; time and memory overruns become outcomes naming the limit. */
   async function run<T, O>(task: T, name?: string): Promise<O | Extract<ReadOutcome, { kind: 'limit' }>> {
     try {
-      return (await pool.run(task as ReadTask | DecayReadTask | SpectrumMatrixTask, {
+      return (await pool.run(task as ReadTask | DecayReadTask | SpectrumMatrixTask | AbsorptionTitrationTask, {
         signal: AbortSignal.timeout(limits.seconds * 1000),
         ...(name ? { name } : {}),
       })) as O;
@@ -96,6 +99,8 @@ export function createUploadReader(options: UploadReaderOptions = {}): UploadRea
     readDecays: (task) => run<DecayReadTask, DecayReadOutcome>({ ...task, limits }, 'readDecays'),
     readSpectrumMatrix: (task) =>
       run<SpectrumMatrixTask, SpectrumMatrixOutcome>({ ...task, limits }, 'readSpectrumMatrix'),
+    readAbsorptionTitration: (task) =>
+      run<AbsorptionTitrationTask, AbsorptionTitrationOutcome>({ ...task, limits }, 'readAbsorptionTitration'),
     close: () => pool.destroy(),
   };
 }

@@ -1,0 +1,182 @@
+import type { Request, Response } from 'express';
+import multer from 'multer';
+import {
+  absorptionOptionsSchema,
+  absorptionPreviewSchema,
+  absorptionTitrationListSchema,
+  absorptionTitrationParamsSchema,
+  absorptionTitrationSchema,
+} from '@shared/schemas/absorption-titrations';
+import { studyParamsSchema } from '@shared/schemas/studies';
+import { defineRoute, parsePart } from '../http/define-route';
+import { labOf, signedInActor } from '../http/request-context';
+import { AppError } from '../lib/app-error';
+import {
+  discardAbsorptionTitration,
+  keepAbsorptionTitration,
+  listAbsorptionTitrations,
+  previewAbsorptionTitration,
+  type AbsorptionUpload,
+} from '../services/mechanism/absorption-titrations.service';
+import { ACCEPTED_EXTENSIONS, isAcceptedFile, MAX_UPLOAD_BYTES } from '../services/studies/parse/read-upload';
+
+const twoFiles = multer({
+  storage: multer.memoryStorage(),
+  defParamCharset: 'utf8',
+  limits: { fileSize: MAX_UPLOAD_BYTES, files: 2, fields: 3, fieldSize: 1024 },
+}).fields([
+  { name: 'file', maxCount: 1 },
+  { name: 'quencher', maxCount: 1 },
+]);
+
+const FIELDS =
+  'multipart fields: "file" (UV-vis spectra of the emitter: wavelength in nm in the first column, one absorbance spectrum per column with its [Q] in the header, a blank at 0 and 3 or more concentrations above it, all on one grid; or JCAMP-DX), optional "quencher" (the quencher alone on the same grid: wavelength and one column, headed with its concentration for a spectrum or starting "ε"/"epsilon" for ε in M^-1 cm^-1), optional "bandWidth" (nm, default 5, 0 for one band per wavelength), "pathLength" (cm, default 1), "emitterConcentration" (mol/L, for the exact isotherm); 20 MB per file';
+
+/** Runs multer inside the handler, checks the files' types and the options (400 naming the field). */
+function receiveTitration(req: Request, res: Response): Promise<AbsorptionUpload> {
+  if (!req.is('multipart/form-data'))
+    return Promise.reject(
+      new AppError('no_file', 'Send the spectra as multipart/form-data in a field named "file".', 400, [
+        { path: 'body.file', message: 'missing' },
+      ]),
+    );
+  return new Promise((resolve, reject) => {
+    twoFiles(req, res, (error: unknown) => {
+      if (error instanceof multer.MulterError && error.code === 'LIMIT_FILE_SIZE') {
+        req.resume();
+        return reject(
+          new AppError('file_too_large', `A file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit.`, 413),
+        );
+      }
+      if (error) return reject(new AppError('bad_upload', (error as Error).message, 400));
+      const files = (req.files ?? {}) as Record<string, Express.Multer.File[] | undefined>;
+      const file = files.file?.[0];
+      if (!file)
+        return reject(
+          new AppError('no_file', 'No spectra arrived; send them in a field named "file".', 400, [
+            { path: 'body.file', message: 'missing' },
+          ]),
+        );
+      const quencher = files.quencher?.[0] ?? null;
+      for (const sent of [file, quencher])
+        if (sent && !isAcceptedFile(sent.originalname))
+          return reject(
+            new AppError(
+              'unsupported_type',
+              `"${sent.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
+              415,
+            ),
+          );
+      try {
+        resolve({ file, quencher, options: parsePart(absorptionOptionsSchema, req.body ?? {}, 'body') });
+      } catch (problem) {
+        reject(problem as Error);
+      }
+    });
+  });
+}
+
+const readResponses = {
+  400: {
+    description: 'No file, or options that are not valid (a path length of 0 or less...: details name the field)',
+  },
+  404: { description: 'No such study' },
+  413: { description: 'Larger than 20 MB or over a reading limit; nothing kept' },
+  415: { description: 'Not an accepted file type' },
+  422: {
+    description:
+      "Unreadable (a spectrum without a concentration in its header, spectra or the quencher's spectrum on another wavelength grid, a bad cell: details name it), no blank or fewer than 3 concentrations above 0; nothing kept",
+  },
+  503: { description: 'Too many files are being read; send them again shortly' },
+};
+
+export const absorptionTitrationRoutes = [
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/absorption-titrations/preview',
+    summary: `Read and analyse UV-vis spectra of the emitter with increasing quencher and answer what was found; keeps nothing (${FIELDS})`,
+    tags: ['mechanism'],
+    access: { lab: 'researcher' },
+    request: { params: studyParamsSchema },
+    responses: {
+      200: {
+        description:
+          'The file as read, the difference spectra, the change flag, K_a both ways and the comparison with K_S',
+        schema: absorptionPreviewSchema,
+      },
+      ...readResponses,
+    },
+    handler: async ({ req, res, params }) => {
+      const upload = await receiveTitration(req, res);
+      res.json(await previewAbsorptionTitration(req.app.locals.services, labOf(req), params.studyId, upload));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/absorption-titrations',
+    summary: `Keep an absorption titration with the study, analysed as in the preview (${FIELDS})`,
+    tags: ['mechanism'],
+    access: { lab: 'researcher' },
+    request: { params: studyParamsSchema },
+    responses: {
+      201: { description: 'The kept titration with its analysis', schema: absorptionTitrationSchema },
+      ...readResponses,
+      403: { description: 'Not the owner' },
+      409: { description: 'The study is locked' },
+    },
+    handler: async ({ req, res, params }) => {
+      const upload = await receiveTitration(req, res);
+      res
+        .status(201)
+        .json(
+          await keepAbsorptionTitration(
+            req.app.locals.services,
+            labOf(req),
+            params.studyId,
+            upload,
+            signedInActor(req),
+          ),
+        );
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api/labs/:labId/studies/:studyId/absorption-titrations',
+    summary: "A study's absorption titrations, newest first, each with K_a compared with the study's current K_S",
+    tags: ['mechanism'],
+    access: { lab: 'viewer' },
+    request: { params: studyParamsSchema },
+    responses: {
+      200: { description: 'The titrations', schema: absorptionTitrationListSchema },
+      404: { description: 'No such study' },
+    },
+    handler: async ({ req, res, params }) => {
+      res.json({ items: await listAbsorptionTitrations(labOf(req), params.studyId) });
+    },
+  }),
+  defineRoute({
+    method: 'delete',
+    path: '/api/labs/:labId/studies/:studyId/absorption-titrations/:titrationId',
+    summary: 'Discard a kept absorption titration and its files (the audit log keeps their names and SHA-256)',
+    tags: ['mechanism'],
+    access: { lab: 'researcher' },
+    request: { params: absorptionTitrationParamsSchema },
+    responses: {
+      204: { description: 'Discarded' },
+      400: { description: 'Not a titration id' },
+      403: { description: 'Not the owner' },
+      404: { description: 'No such study or titration' },
+      409: { description: 'The study is locked' },
+    },
+    handler: async ({ req, res, params }) => {
+      await discardAbsorptionTitration(
+        req.app.locals.services,
+        labOf(req),
+        params.studyId,
+        params.titrationId,
+        signedInActor(req),
+      );
+      res.status(204).end();
+    },
+  }),
+];

@@ -1,0 +1,316 @@
+import crypto from 'node:crypto';
+import { compareAssociationConstants, ENGINE_VERSION, type AbsorptionEvidence } from '@shared/engine';
+import type {
+  AbsorptionAnalysisAnswer,
+  AbsorptionComparisonAnswer,
+  AbsorptionOptions,
+  AbsorptionPreview,
+  AbsorptionTitration as AbsorptionTitrationAnswer,
+} from '@shared/schemas/absorption-titrations';
+import type { SignedInActor } from '../../domain/actor';
+import type { LabContext } from '../../domain/lab-context';
+import { AppError } from '../../lib/app-error';
+import { AbsorptionTitration, MechanismFile, StudyFit, User, type Study } from '../../models';
+import { recordAudit } from '../audit.service';
+import type { ReceivedFile } from '../decays/decay-sets.service';
+import type { StoredLocation } from '../studies/files/raw-file-store';
+import { sha256Of } from '../studies/files/raw-file-store';
+import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
+import type { UploadServices } from '../studies/study-upload.service';
+import type { AbsorptionTitrationOutcome } from './read-absorption-titration';
+
+export interface AbsorptionUpload {
+  file: ReceivedFile;
+  quencher: ReceivedFile | null;
+  options: AbsorptionOptions;
+}
+
+type ReadOutcome = Extract<AbsorptionTitrationOutcome, { kind: 'read' }>;
+
+const fileAttributes = { attributes: { exclude: ['content'] } };
+const withFiles = [
+  { model: MechanismFile, as: 'file', ...fileAttributes },
+  { model: MechanismFile, as: 'quencherFile', ...fileAttributes },
+  { model: User, as: 'createdBy', attributes: ['name'] },
+];
+
+/** Reads in a reading thread; a limit is 413 (422 for time), an unreadable file or analysis 422 naming it; nothing kept. */
+async function readOrRefuse(services: UploadServices, upload: AbsorptionUpload): Promise<ReadOutcome> {
+  const outcome = await services.uploadReader.readAbsorptionTitration({
+    fileName: upload.file.originalname,
+    bytes: upload.file.buffer,
+    quencher: upload.quencher ? { fileName: upload.quencher.originalname, bytes: upload.quencher.buffer } : null,
+    options: upload.options,
+  });
+  if (outcome.kind === 'limit')
+    throw new AppError(
+      'upload_limit',
+      `${outcome.message} Nothing was kept.`,
+      outcome.limit === 'seconds' ? 422 : 413,
+      [{ path: 'file', message: `over the ${outcome.limit} limit` }],
+    );
+  if (outcome.kind === 'unreadable')
+    throw new AppError(
+      'absorption_titration_unreadable',
+      `${outcome.problems[0]!.message} Nothing was kept.`,
+      422,
+      outcome.problems.map((problem) => ({
+        path: problem.row ? `file.row ${problem.row}` : problem.column ? `file.column ${problem.column}` : 'file',
+        message: problem.message,
+      })),
+    );
+  return outcome;
+}
+
+/**
+ * K_a against K_S of the study's latest combined static+dynamic fit, worked out when read (the
+ * fit may change after the titration is kept). A fit that could not tell K_S from K_D offers its
+ * two roots: the one nearer K_a is taken, and the source says so.
+ */
+async function comparisonFor(study: Study, analysis: AbsorptionAnalysisAnswer): Promise<AbsorptionComparisonAnswer> {
+  const none = (source: string): AbsorptionComparisonAnswer => ({
+    kS: null,
+    source,
+    benesiHildebrand: null,
+    isotherm: null,
+  });
+  const fit = study.latestFitId ? await StudyFit.findByPk(study.latestFitId) : null;
+  if (!fit || fit.model !== 'static-dynamic')
+    return none('No K_S: fit the study with the combined static and dynamic model to compare.');
+  const kA = analysis.binding?.isotherm.fit?.kA ?? analysis.binding?.benesiHildebrand.fit?.kA ?? null;
+  const parameters = fit.result.parameters;
+  let kS = parameters.kS ?? null;
+  let source = "K_S of the study's combined static and dynamic fit.";
+  if (!kS && parameters.largerRoot && parameters.smallerRoot && kA) {
+    const [larger, smaller] = [parameters.largerRoot, parameters.smallerRoot];
+    kS = Math.abs(larger.value - kA.value) <= Math.abs(smaller.value - kA.value) ? larger : smaller;
+    source = `The combined fit could not tell K_S from K_D; its root nearer K_a (${kS === larger ? 'the larger' : 'the smaller'}) is taken as K_S.`;
+  }
+  if (!kS) return none('No K_S: the combined fit gave no static constant.');
+  if (!analysis.binding) return { ...none('No K_a: the absorption does not change, so nothing to compare.'), kS };
+  const { benesiHildebrand, isotherm } = analysis.binding;
+  return {
+    kS,
+    source,
+    benesiHildebrand: benesiHildebrand.fit ? compareAssociationConstants(benesiHildebrand.fit.kA, kS) : null,
+    isotherm: isotherm.fit ? compareAssociationConstants(isotherm.fit.kA, kS) : null,
+  };
+}
+
+/** Reads and analyses a titration as chosen and answers what was found; keeps nothing. */
+export async function previewAbsorptionTitration(
+  services: UploadServices,
+  lab: LabContext,
+  studyId: string,
+  upload: AbsorptionUpload,
+): Promise<AbsorptionPreview> {
+  const study = await loadStudy(lab, studyId);
+  const outcome = await readOrRefuse(services, upload);
+  const { quencher, ...reading } = outcome.reading;
+  return {
+    reading,
+    quencher,
+    analysis: outcome.analysis,
+    plot: outcome.plot,
+    comparison: await comparisonFor(study, outcome.analysis),
+  };
+}
+
+const fileAnswer = (file: MechanismFile) => ({
+  id: file.id,
+  fileName: file.fileName,
+  size: file.size,
+  sha256: file.sha256,
+  createdAt: file.createdAt.toISOString(),
+});
+
+async function toAnswer(row: AbsorptionTitration, study: Study): Promise<AbsorptionTitrationAnswer> {
+  const { quencher, ...reading } = row.reading;
+  return {
+    id: row.id,
+    studyId: row.studyId,
+    title: row.title,
+    file: fileAnswer(row.file!),
+    quencherFile: row.quencherFile ? fileAnswer(row.quencherFile) : null,
+    options: row.options,
+    reading,
+    quencher,
+    analysis: row.analysis,
+    plot: row.plot,
+    comparison: await comparisonFor(study, row.analysis),
+    engineVersion: row.engineVersion,
+    createdBy: row.createdBy?.name ?? null,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+/**
+ * Reads an absorption titration in a reading thread and keeps it with a study: the owner, while
+ * the study may change. The bytes go to the file store first; the rows and the audit entry follow
+ * in one transaction, and the stored bytes are removed again if it does not commit.
+ */
+export async function keepAbsorptionTitration(
+  services: UploadServices,
+  lab: LabContext,
+  studyId: string,
+  upload: AbsorptionUpload,
+  actor: SignedInActor,
+): Promise<AbsorptionTitrationAnswer> {
+  const study = await loadStudy(lab, studyId);
+  requireOwner(study, lab, actor.userId);
+  requireEditable(study);
+  const outcome = await readOrRefuse(services, upload);
+  const sent = [upload.file, ...(upload.quencher ? [upload.quencher] : [])].map((file) => ({
+    file,
+    id: crypto.randomUUID(),
+  }));
+  const locations: StoredLocation[] = [];
+  try {
+    for (const { file, id } of sent)
+      locations.push(await services.files.put({ uploadId: id, labId: lab.id, bytes: file.buffer }));
+    const titrationId = await services.sequelize.transaction(async (transaction) => {
+      const kept = [];
+      for (const [i, { file, id }] of sent.entries()) {
+        const sha256 = await sha256Of(file.buffer);
+        await MechanismFile.create(
+          {
+            ...locations[i]!,
+            id,
+            labId: lab.id,
+            fileName: file.originalname.slice(0, 255),
+            mediaType: file.mimetype || 'application/octet-stream',
+            size: file.buffer.length,
+            sha256,
+            uploadedById: actor.userId,
+          },
+          { transaction },
+        );
+        kept.push({ id, fileName: file.originalname, size: file.buffer.length, sha256 });
+      }
+      const titration = await AbsorptionTitration.create(
+        {
+          labId: lab.id,
+          studyId,
+          fileId: sent[0]!.id,
+          quencherFileId: sent[1]?.id ?? null,
+          kind: 'absorption',
+          title: upload.file.originalname.slice(0, 255),
+          bandWidth: upload.options.bandWidth,
+          options: upload.options,
+          reading: outcome.reading,
+          analysis: outcome.analysis,
+          plot: outcome.plot,
+          engineVersion: ENGINE_VERSION,
+          createdById: actor.userId,
+        },
+        { transaction },
+      );
+      await recordAudit(
+        actor,
+        {
+          action: 'absorption_titration_kept',
+          labId: lab.id,
+          targetType: 'study',
+          targetId: studyId,
+          details: {
+            absorptionTitrationId: titration.id,
+            files: kept,
+            options: upload.options,
+            flags: outcome.analysis.flags.map((flag) => flag.code),
+          },
+        },
+        transaction,
+      );
+      return titration.id;
+    });
+    const row = await AbsorptionTitration.findOne({ where: { id: titrationId, labId: lab.id }, include: withFiles });
+    return await toAnswer(row!, study);
+  } catch (error) {
+    for (const location of locations) await services.files.discard(location);
+    throw error;
+  }
+}
+
+/** A study's absorption titrations, newest first, each compared with the study's current K_S. */
+export async function listAbsorptionTitrations(lab: LabContext, studyId: string): Promise<AbsorptionTitrationAnswer[]> {
+  const study = await loadStudy(lab, studyId);
+  const rows = await AbsorptionTitration.findAll({
+    where: { labId: lab.id, studyId },
+    include: withFiles,
+    order: [['createdAt', 'DESC']],
+  });
+  return Promise.all(rows.map((row) => toAnswer(row, study)));
+}
+
+/**
+ * Removes a kept titration and its files (the owner, while the study may change); the audit
+ * entry keeps the files' names and SHA-256. Bytes in object storage are removed after the commit.
+ */
+export async function discardAbsorptionTitration(
+  services: UploadServices,
+  lab: LabContext,
+  studyId: string,
+  titrationId: string,
+  actor: SignedInActor,
+): Promise<void> {
+  const study = await loadStudy(lab, studyId);
+  requireOwner(study, lab, actor.userId);
+  requireEditable(study);
+  const locations = await services.sequelize.transaction(async (transaction) => {
+    const row = await AbsorptionTitration.findOne({
+      where: { id: titrationId, labId: lab.id, studyId },
+      include: withFiles.slice(0, 2),
+      transaction,
+    });
+    if (!row) throw new AppError('absorption_titration_not_found', 'No such absorption titration in this study.', 404);
+    const files = [row.file!, ...(row.quencherFile ? [row.quencherFile] : [])];
+    await row.destroy({ transaction });
+    await MechanismFile.destroy({ where: { id: files.map((file) => file.id), labId: lab.id }, transaction });
+    await recordAudit(
+      actor,
+      {
+        action: 'absorption_titration_discarded',
+        labId: lab.id,
+        targetType: 'study',
+        targetId: studyId,
+        details: {
+          absorptionTitrationId: row.id,
+          files: files.map((file) => ({ id: file.id, fileName: file.fileName, sha256: file.sha256 })),
+        },
+      },
+      transaction,
+    );
+    // Bytes on the rows went with them; only object storage has something left to remove.
+    return files.flatMap((file): StoredLocation[] =>
+      file.storage === 's3' && file.storageKey ? [{ storage: 's3', storageKey: file.storageKey, content: null }] : [],
+    );
+  });
+  for (const location of locations) await services.files.discard(location);
+}
+
+/**
+ * What the study's newest absorption titration says, for the combined mechanism verdict
+ * (readMechanismPieces): whether the absorption changes beyond the sum of the parts, in words,
+ * and K_a (the isotherm's, else Benesi–Hildebrand's) where one was fitted. Null without a titration.
+ */
+export async function absorptionEvidenceForStudy(lab: LabContext, studyId: string): Promise<AbsorptionEvidence | null> {
+  await loadStudy(lab, studyId);
+  const row = await AbsorptionTitration.findOne({
+    where: { labId: lab.id, studyId },
+    attributes: ['analysis'],
+    order: [['createdAt', 'DESC']],
+  });
+  if (!row) return null;
+  const { analysis } = row;
+  const binding = analysis.binding;
+  const fit = binding?.isotherm.fit ?? binding?.benesiHildebrand.fit ?? null;
+  const flag = analysis.flags[0];
+  const detail = flag
+    ? `${flag.title}. ${flag.detail}`
+    : `The absorption is the sum of emitter and quencher within the noise: the largest change, ΔA = ${analysis.largestChange.change.toPrecision(2)} at ${analysis.largestChange.centre} nm, is ${analysis.largestChange.z.toPrecision(2)} noise SDs against a bound of ${analysis.threshold.z.toPrecision(3)}.`;
+  return {
+    changed: analysis.flags.length > 0,
+    detail,
+    associationConstant: fit ? { value: fit.kA.value, standardError: fit.kA.standardError } : null,
+  };
+}
