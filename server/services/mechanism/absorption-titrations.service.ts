@@ -12,7 +12,7 @@ import type { LabContext } from '../../domain/lab-context';
 import { AppError } from '../../lib/app-error';
 import { AbsorptionTitration, MechanismFile, StudyFit, User, type Study } from '../../models';
 import { recordAudit } from '../audit.service';
-import type { ReceivedFile } from '../decays/decay-sets.service';
+import type { ReceivedFile } from '../studies/files/attached-files';
 import type { StoredLocation } from '../studies/files/raw-file-store';
 import { sha256Of } from '../studies/files/raw-file-store';
 import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
