@@ -41,3 +41,23 @@ export const linearAxis = (title: string) => ({
   grid: { color: chartColours.grid },
   ticks: { callback: tick },
 });
+
+type Point = { x: number; y: number };
+
+/** Measured points: filled marks of one colour, no line. */
+export const pointSeries = (label: string, data: Point[], colour: string, pointRadius = 5) => ({
+  label,
+  data,
+  backgroundColor: colour,
+  pointRadius,
+});
+
+/** A curve (a fit, a spectrum, a response): a line through the data without marks; chart.js's width unless given. */
+export const lineSeries = (label: string, data: Point[], colour: string, borderWidth?: number) => ({
+  label,
+  data,
+  borderColor: colour,
+  showLine: true,
+  pointRadius: 0,
+  ...(borderWidth === undefined ? {} : { borderWidth }),
+});

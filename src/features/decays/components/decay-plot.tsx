@@ -5,6 +5,7 @@ import type { DecayCurves } from '@shared/schemas/decays';
 import { toNanoseconds } from '@shared/units/units';
 import { decayColours, paperUnderPlot } from './decay-chart-setup';
 import { SaveChartButtons } from '@/components/save-chart-buttons';
+import { lineSeries, pointSeries } from '@/components/scatter-chart';
 
 /**
  * One decay: counts on a log axis with the measured response and the fitted curve; below,
@@ -32,36 +33,11 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
           plugins={[paperUnderPlot]}
           data={{
             datasets: [
-              {
-                label: 'Counts',
-                data: positive(curves.counts),
-                backgroundColor: decayColours.counts,
-                pointRadius: 1.2,
-              },
+              pointSeries('Counts', positive(curves.counts), decayColours.counts, 1.2),
               ...(curves.response
-                ? [
-                    {
-                      label: 'Response (IRF)',
-                      data: positive(curves.response),
-                      borderColor: decayColours.response,
-                      showLine: true,
-                      pointRadius: 0,
-                      borderWidth: 1,
-                    },
-                  ]
+                ? [lineSeries('Response (IRF)', positive(curves.response), decayColours.response, 1)]
                 : []),
-              ...(curves.model
-                ? [
-                    {
-                      label: 'Fit',
-                      data: positive(curves.model),
-                      borderColor: decayColours.fit,
-                      showLine: true,
-                      pointRadius: 0,
-                      borderWidth: 1.5,
-                    },
-                  ]
-                : []),
+              ...(curves.model ? [lineSeries('Fit', positive(curves.model), decayColours.fit, 1.5)] : []),
             ],
           }}
           options={{
@@ -105,16 +81,7 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
             <Scatter
               plugins={[paperUnderPlot]}
               data={{
-                datasets: [
-                  {
-                    label: 'Autocorrelation',
-                    data: autocorrelation,
-                    borderColor: decayColours.fit,
-                    showLine: true,
-                    pointRadius: 0,
-                    borderWidth: 1,
-                  },
-                ],
+                datasets: [lineSeries('Autocorrelation', autocorrelation, decayColours.fit, 1)],
               }}
               options={{
                 maintainAspectRatio: false,

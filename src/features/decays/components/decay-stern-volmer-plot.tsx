@@ -6,6 +6,7 @@ import { formatNumber } from '@shared/format';
 import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import { decayColours, paperUnderPlot } from './decay-chart-setup';
 import { SaveChartButtons } from '@/components/save-chart-buttons';
+import { lineSeries, pointSeries } from '@/components/scatter-chart';
 
 /** tau0/tau against [Q] from the fitted lifetimes, with tau0 and the lifetime K_SV. */
 export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: DecaySternVolmer; title: string }) {
@@ -35,19 +36,16 @@ export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: Deca
           plugins={[paperUnderPlot]}
           data={{
             datasets: [
-              {
-                label: 'τ0/τ',
-                data: sternVolmer.points.map((point) => ({ x: toMillimolar(point.concentration), y: point.ratio })),
-                backgroundColor: decayColours.counts.replace('0.55', '1'),
-                pointRadius: 5,
-              },
-              {
-                label: '1 + K_SV[Q]',
-                data: [0, maxQ].map((q) => ({ x: toMillimolar(q), y: 1 + sternVolmer.kSv.value * q })),
-                borderColor: decayColours.fit,
-                showLine: true,
-                pointRadius: 0,
-              },
+              pointSeries(
+                'τ0/τ',
+                sternVolmer.points.map((point) => ({ x: toMillimolar(point.concentration), y: point.ratio })),
+                decayColours.counts.replace('0.55', '1'),
+              ),
+              lineSeries(
+                '1 + K_SV[Q]',
+                [0, maxQ].map((q) => ({ x: toMillimolar(q), y: 1 + sternVolmer.kSv.value * q })),
+                decayColours.fit,
+              ),
             ],
           }}
           options={{

@@ -2,7 +2,7 @@ import { Scatter } from 'react-chartjs-2';
 import { titled, UNITS } from '@shared/format';
 import type { TemperatureSeriesAnalysis } from '@shared/schemas/temperature-series';
 import { chartColours } from '@/components/chart-theme';
-import { linearAxis as axis } from '@/components/scatter-chart';
+import { linearAxis as axis, lineSeries, pointSeries } from '@/components/scatter-chart';
 
 // Measured values in glow, the diffusion reference in ink, the Arrhenius line in moss (tailwind.config.ts).
 const seriesColours = { measured: chartColours.points, reference: chartColours.line, second: chartColours.series[2] };
@@ -32,12 +32,11 @@ export function SeriesPlots({ analysis }: { analysis: TemperatureSeriesAnalysis 
           aria-label="Plot of K_SV against temperature beside T/η scaled to meet it at the lowest temperature; the values are in the table below"
           data={{
             datasets: [
-              {
-                label: 'K_SV',
-                data: analysis.points.map((p) => ({ x: p.temperature, y: p.kSv.value })),
-                backgroundColor: seriesColours.measured,
-                pointRadius: 5,
-              },
+              pointSeries(
+                'K_SV',
+                analysis.points.map((p) => ({ x: p.temperature, y: p.kSv.value })),
+                seriesColours.measured,
+              ),
               {
                 label: 'T/η, scaled (diffusion)',
                 data: analysis.points.map((p) => ({ x: p.temperature, y: p.temperatureOverViscosity * scale })),
@@ -63,19 +62,12 @@ export function SeriesPlots({ analysis }: { analysis: TemperatureSeriesAnalysis 
             aria-label="Arrhenius plot of ln kq against 1000 K / T with the fitted line; the values are in the table below"
             data={{
               datasets: [
-                {
-                  label: 'ln kq',
-                  data: withKq.map((p) => ({ x: 1000 / p.temperature, y: Math.log(p.kq!.value) })),
-                  backgroundColor: seriesColours.measured,
-                  pointRadius: 5,
-                },
-                {
-                  label: 'Arrhenius fit',
-                  data: line,
-                  borderColor: seriesColours.second,
-                  showLine: true,
-                  pointRadius: 0,
-                },
+                pointSeries(
+                  'ln kq',
+                  withKq.map((p) => ({ x: 1000 / p.temperature, y: Math.log(p.kq!.value) })),
+                  seriesColours.measured,
+                ),
+                lineSeries('Arrhenius fit', line, seriesColours.second),
               ],
             }}
             options={{

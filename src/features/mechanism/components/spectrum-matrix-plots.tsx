@@ -3,7 +3,7 @@ import { formatNumber, titled, UNITS } from '@shared/format';
 import { toMillimolar } from '@shared/units/units';
 import type { SpectrumMatrix } from '@shared/schemas/spectrum-matrices';
 import { chartColours } from '@/components/chart-theme';
-import { linearAxis as axis } from '@/components/scatter-chart';
+import { linearAxis as axis, lineSeries, pointSeries } from '@/components/scatter-chart';
 
 /** From glow (no quencher) to ink (the most), so the eye reads [Q] from the colour: hex #rrggbb mixed channel by channel. */
 function colourAt(share: number): string {
@@ -34,13 +34,13 @@ export function SpectrumMatrixPlots({ matrix }: { matrix: SpectrumMatrix }) {
           aria-label="Spectra: intensity against wavelength, one line per [Q]"
           data={{
             datasets: plot.spectra.map((spectrum) => ({
-              label: `${formatNumber(toMillimolar(spectrum.concentration), 3)} ${UNITS.millimolar}`,
-              data: plot.wavelengths.map((x, k) => ({ x, y: spectrum.values[k]! })),
-              borderColor: colourAt(spectrum.concentration / highest),
+              ...lineSeries(
+                `${formatNumber(toMillimolar(spectrum.concentration), 3)} ${UNITS.millimolar}`,
+                plot.wavelengths.map((x, k) => ({ x, y: spectrum.values[k]! })),
+                colourAt(spectrum.concentration / highest),
+                1.5,
+              ),
               backgroundColor: colourAt(spectrum.concentration / highest),
-              showLine: true,
-              pointRadius: 0,
-              borderWidth: 1.5,
             })),
           }}
           options={{
@@ -55,12 +55,12 @@ export function SpectrumMatrixPlots({ matrix }: { matrix: SpectrumMatrix }) {
           aria-label="K_SV of each band against its wavelength, with the weighted mean"
           data={{
             datasets: [
-              {
-                label: 'K_SV of the band',
-                data: bands.map((band) => ({ x: band.centre, y: band.kSv!.value })),
-                backgroundColor: chartColours.points,
-                pointRadius: 4,
-              },
+              pointSeries(
+                'K_SV of the band',
+                bands.map((band) => ({ x: band.centre, y: band.kSv!.value })),
+                chartColours.points,
+                4,
+              ),
               {
                 label: '± SE',
                 data: [...errorBar(1), ...errorBar(-1)],
@@ -73,15 +73,15 @@ export function SpectrumMatrixPlots({ matrix }: { matrix: SpectrumMatrix }) {
                 ? []
                 : [
                     {
-                      label: 'Weighted mean',
-                      data: [
-                        { x: range.min, y: mean },
-                        { x: range.max, y: mean },
-                      ],
-                      borderColor: chartColours.line,
-                      showLine: true,
-                      pointRadius: 0,
-                      borderWidth: 1,
+                      ...lineSeries(
+                        'Weighted mean',
+                        [
+                          { x: range.min, y: mean },
+                          { x: range.max, y: mean },
+                        ],
+                        chartColours.line,
+                        1,
+                      ),
                       borderDash: [4, 4],
                     },
                   ]),

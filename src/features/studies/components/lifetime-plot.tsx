@@ -3,6 +3,7 @@ import type { FitResult } from '@shared/schemas/study-fits';
 import { chartColours as plotColours } from '@/components/chart-theme';
 import { figureFileName } from '@/components/figure-file-name';
 import { SavableScatter } from '@/components/savable-scatter';
+import { lineSeries, pointSeries } from '@/components/scatter-chart';
 
 /** tau0/tau against [Q] with the line 1 + K_SV[Q] from the lifetime fit, on the stored series' axis (memoised like SternVolmerPlot). */
 export const LifetimePlot = memo(function LifetimePlot({
@@ -24,13 +25,12 @@ export const LifetimePlot = memo(function LifetimePlot({
         label={`Lifetime plot: τ0/τ against ${xLabel} with the fitted line; the lifetimes are in the points table`}
         data={{
           datasets: [
-            {
-              label: 'τ0/τ',
-              data: lifetime.points.map((p) => ({ x: p.x * xScale, y: p.y })),
-              backgroundColor: plotColours.points,
-              pointRadius: 5,
-            },
-            { showLine: true, label: 'Fit', data: line, borderColor: plotColours.line, pointRadius: 0 },
+            pointSeries(
+              'τ0/τ',
+              lifetime.points.map((p) => ({ x: p.x * xScale, y: p.y })),
+              plotColours.points,
+            ),
+            lineSeries('Fit', line, plotColours.line),
           ],
         }}
         options={{
