@@ -18,6 +18,7 @@ import type { AnyRouteSpec, RouteAccess } from './http/define-route';
 import { logRedactPaths, redactUrl } from './http/log-redaction';
 import { buildOpenApiDocument } from './http/openapi';
 import { countDatabaseTime } from './db/database-time';
+import { markWriteRequests } from './db/request-kind';
 import { createJobQueue } from './jobs/job-queue';
 import type { JobQueue } from './jobs/job-queue';
 import { appVersion } from './lib/version';
@@ -89,6 +90,8 @@ export interface CreateAppOptions {
   uploadLimits?: Partial<UploadLimits>;
   /** Where raw upload files go; the default keeps them in the database. */
   files?: RawFileStore;
+  /** Session store connections: for read requests, and kept for requests that write (default 5 and 2). */
+  sessionPools?: { read: number; write: number };
 }
 
 export interface HalflightApp extends express.Express {
@@ -162,6 +165,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     secret: options.sessionSecret,
     secure,
     logger: options.logger,
+    pools: options.sessionPools,
   });
   const passport = createPassport();
   const csrf = csrfProtection(options.sessionSecret, secure);
@@ -201,6 +205,8 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   };
 
   const logDatabaseTime = logger.isLevelEnabled('debug');
+  // First, so every round trip of a request that writes takes the connections kept for writes.
+  app.use(markWriteRequests);
   app.use(requestLogging(logger, logDatabaseTime));
   if (logDatabaseTime) app.use(countDatabaseTime);
   app.use(securityHeaders(secure));

@@ -33,6 +33,7 @@ const reportStartError = (error: NodeJS.ErrnoException) => {
     logger.error(error.message);
   }
 };
+const databasePools = { read: config.HALFLIGHT_DB_POOL_READ, write: config.HALFLIGHT_DB_POOL_WRITE };
 const announceReady = () => console.log(`\n  Halflight is ready: open ${config.publicUrl}\n  Press Ctrl-C to stop.\n`);
 
 // Kept as promises so that a signal during start waits for what is still starting, then stops it.
@@ -45,7 +46,10 @@ let sequelize: ReturnType<typeof createSequelize> | undefined;
 async function prepareDatabase(keepOpen: boolean): Promise<DatabaseHandle> {
   databaseStarting = startDatabase(config, logger);
   const database = await databaseStarting;
-  sequelize = createSequelize(database.url, { timeQueries: keepOpen && logger.isLevelEnabled('debug') });
+  sequelize = createSequelize(database.url, {
+    timeQueries: keepOpen && logger.isLevelEnabled('debug'),
+    pools: databasePools,
+  });
   initModels(sequelize);
   await prepareSchema(sequelize, config, logger);
   if (!keepOpen) {
@@ -110,7 +114,7 @@ async function runWorker(): Promise<void> {
     process.on('message', (message: WorkerBoot) => message?.type === 'boot' && resolve(message));
     process.send!({ type: 'hello' } satisfies WorkerMessage);
   });
-  sequelize = createSequelize(boot.databaseUrl, { timeQueries: logger.isLevelEnabled('debug') });
+  sequelize = createSequelize(boot.databaseUrl, { timeQueries: logger.isLevelEnabled('debug'), pools: databasePools });
   initModels(sequelize);
   webStarting = startWeb({
     config,

@@ -4,6 +4,7 @@ import session from 'express-session';
 import pg from 'pg';
 import type { Logger } from 'pino';
 import { addDatabaseTime } from '../db/database-time';
+import { inWriteRequest } from '../db/request-kind';
 
 declare module 'express-session' {
   interface SessionData {
@@ -41,6 +42,9 @@ export function enforceSessionLifetime(absoluteMs = sessionAbsoluteMs): RequestH
     next();
   };
 }
+
+/** Session store connections per process: for read requests, and kept for requests that write. */
+export const defaultSessionPools = { read: 5, write: 2 };
 
 /** How often a session in active use has its expiry moved in the store (the idle timeout is 12 hours). */
 const touchEveryMs = 5 * 60_000;
@@ -86,24 +90,35 @@ export function createSessionMiddleware(options: {
   secret: string;
   secure: boolean;
   logger: Logger;
+  /** Connections for the session rows of read requests, and of requests that write (default 5 and 2). */
+  pools?: { read: number; write: number };
 }) {
   const PgStore = connectPgSimple(session);
-  const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 6, connectionTimeoutMillis: 10_000 });
-  // An idle connection cut by a database restart or pg_terminate_backend is reported here; without
-  // a listener it would end the process. The pool drops that client and connects anew next time.
-  pool.on('error', (error) => options.logger.warn({ err: error }, 'session store lost a database connection'));
-  if (options.logger.isLevelEnabled('debug')) {
-    // The store's reads and writes count into the request's database time, like Sequelize's queries.
-    const query = pool.query.bind(pool) as (...args: unknown[]) => Promise<unknown>;
-    (pool as unknown as { query: typeof query }).query = async (...args: unknown[]) => {
+  const sizes = options.pools ?? defaultSessionPools;
+  const pools = [sizes.read, sizes.write].map((max) => {
+    const pool = new pg.Pool({ connectionString: options.databaseUrl, max, connectionTimeoutMillis: 10_000 });
+    // An idle connection cut by a database restart or pg_terminate_backend is reported here; without
+    // a listener it would end the process. The pool drops that client and connects anew next time.
+    pool.on('error', (error) => options.logger.warn({ err: error }, 'session store lost a database connection'));
+    return pool;
+  }) as [pg.Pool, pg.Pool];
+  const timed = options.logger.isLevelEnabled('debug');
+  // The store only calls query(); a request that writes (server/db/request-kind.ts) gets its own
+  // small pool, so its session row is not read behind a queue of reads.
+  const pool = {
+    async query(...args: unknown[]) {
+      const chosen = inWriteRequest() ? pools[1] : pools[0];
+      const query = chosen.query.bind(chosen) as (...args: unknown[]) => Promise<unknown>;
+      if (!timed) return query(...args);
+      // The store's reads and writes count into the request's database time, like Sequelize's queries.
       const started = performance.now();
       try {
         return await query(...args);
       } finally {
         addDatabaseTime(performance.now() - started);
       }
-    };
-  }
+    },
+  } as unknown as pg.Pool;
   const cookieName = options.secure ? '__Host-halflight.sid' : 'halflight.sid';
   const store = new PgStore({
     pool,
@@ -127,7 +142,7 @@ export function createSessionMiddleware(options: {
     cookieName,
     async close() {
       store.close();
-      await pool.end();
+      await Promise.all(pools.map((each) => each.end()));
     },
   };
 }

@@ -69,6 +69,7 @@ export async function startWeb(options: {
     trustProxy: config.trustProxy,
     jobWorker: runsJobs,
     files: fileStoreFromConfig(config).files,
+    sessionPools: { read: config.HALFLIGHT_SESSION_POOL_READ, write: config.HALFLIGHT_SESSION_POOL_WRITE },
   });
   let server: Server | undefined;
   const closeRest = async () => {

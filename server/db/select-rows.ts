@@ -16,7 +16,9 @@ type PgConnection = {
  */
 export async function selectRows<T>(sequelize: Sequelize, sql: string, values: unknown[] = []): Promise<T[]> {
   const manager = sequelize.connectionManager;
-  const connection = (await manager.getConnection({ type: 'read' })) as PgConnection;
+  // 'SELECT' as Sequelize's own queries pass it: the read pool, unless the request writes
+  // (createSequelize). Its typings say 'read', which the pool takes for a write.
+  const connection = (await manager.getConnection({ type: 'SELECT' as 'read' })) as PgConnection;
   const started = performance.now();
   try {
     return (await connection.query(sql, values)).rows as T[];
