@@ -115,6 +115,10 @@ export const fitResultSchema = z
         rSquared: z.number(),
         verdict: z.string().nullable(),
         points: z.array(plotPointSchema),
+        excluded: z
+          .array(plotPointSchema.extend({ position: z.number().int() }))
+          .optional()
+          .describe('left-out lifetimes at their plotted coordinates (absent before engine 1.5.0)'),
         xAxis: plotAxisSchema,
       })
       .nullable(),

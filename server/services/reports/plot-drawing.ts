@@ -1,13 +1,28 @@
 import type { FitResult } from '@shared/schemas/study-fits';
 import type { Pdf } from './pdf-document';
-import { chartInk, drawAxes, niceScale, plotArea, type Box } from './report-charts';
+import { chartInk, drawAxes, MIN_TICK_GAP, niceScaleWithin, plotArea, type Box } from './report-charts';
 
-/** Round-valued axes around the data (niceScale), drawn as on screen; returns where a value lands. */
+/**
+ * Round-valued axes around the data (niceScale), with no more ticks than the box has room for
+ * (a 55 pt residual strip gets three), drawn as on screen; returns where a value lands.
+ */
 export function axes(doc: Pdf, box: Box, xValues: number[], yValues: number[], xLabel: string, yLabel: string) {
-  const x = niceScale(Math.min(0, ...xValues), Math.max(...xValues));
-  const y = niceScale(Math.min(...yValues), Math.max(...yValues));
+  const x = niceScaleWithin(Math.min(0, ...xValues), Math.max(...xValues), box.width, MIN_TICK_GAP.x);
+  const y = niceScaleWithin(Math.min(...yValues), Math.max(...yValues), box.height, MIN_TICK_GAP.y);
   drawAxes(doc, box, x, y, xLabel, yLabel);
   return plotArea(box, x, y);
+}
+
+/** A left-out point: an unfilled cross in the excluded colour, as on screen. */
+function leftOutMark(doc: Pdf, cx: number, cy: number): void {
+  doc
+    .moveTo(cx - 3.5, cy - 3.5)
+    .lineTo(cx + 3.5, cy + 3.5)
+    .moveTo(cx - 3.5, cy + 3.5)
+    .lineTo(cx + 3.5, cy - 3.5)
+    .lineWidth(1.2)
+    .strokeColor(chartInk.excluded)
+    .stroke();
 }
 
 /**
@@ -48,17 +63,7 @@ export function drawSternVolmer(doc: Pdf, result: FitResult): void {
   );
   doc.lineWidth(1.2).strokeColor(chartInk.line).stroke();
   result.plot.points.forEach((p) => doc.circle(...onMain(p.x, p.y), 2.6).fill(chartInk.points));
-  result.plot.excluded.forEach((p) => {
-    const [cx, cy] = onMain(p.x, p.y);
-    doc
-      .moveTo(cx - 3.5, cy - 3.5)
-      .lineTo(cx + 3.5, cy + 3.5)
-      .moveTo(cx - 3.5, cy + 3.5)
-      .lineTo(cx + 3.5, cy - 3.5)
-      .lineWidth(1.2)
-      .strokeColor(chartInk.excluded)
-      .stroke();
-  });
+  result.plot.excluded.forEach((p) => leftOutMark(doc, ...onMain(p.x, p.y)));
 
   const residuals = result.plot.points.map((p) => p.residual);
   const extent = Math.max(1e-12, ...residuals.map(Math.abs));
@@ -81,19 +86,23 @@ export function drawSternVolmer(doc: Pdf, result: FitResult): void {
 export interface LifetimeLine {
   xAxis: { label: string; scale: number };
   points: ReadonlyArray<{ x: number; y: number }>;
+  /** lifetimes the chemist left out, at their plotted coordinates (drawn hollow) */
+  excluded?: ReadonlyArray<{ x: number; y: number }> | undefined;
   kSv: { value: number };
 }
 
-/** τ0/τ against [Q] with the line 1 + K_SV(τ)[Q] (Lakowicz, 3rd ed., ch. 8), when lifetimes were measured. */
+/** τ0/τ against [Q] with the line 1 + K_SV(τ)[Q] (Lakowicz, 3rd ed., ch. 8), when lifetimes were measured; left-out lifetimes as crosses. */
 export function drawLifetime(doc: Pdf, lifetime: LifetimeLine): void {
   const { label: xLabel, scale: concentrationScale } = lifetime.xAxis;
   if (doc.y > doc.page.height - 260) doc.addPage();
   const box: Box = { x: 100, y: doc.y + 20, width: 380, height: 150 };
-  const xs = lifetime.points.map((p) => p.x * concentrationScale);
+  const excluded = lifetime.excluded ?? [];
+  const xs = [...lifetime.points, ...excluded].map((p) => p.x * concentrationScale);
   const line = (x: number) => 1 + lifetime.kSv.value * (x / concentrationScale);
   const low = Math.min(0, ...xs);
   const high = Math.max(...xs);
-  const at = axes(doc, box, xs, [...lifetime.points.map((p) => p.y), line(low), line(high)], xLabel, 'τ0/τ');
+  const ys = [...lifetime.points, ...excluded].map((p) => p.y);
+  const at = axes(doc, box, xs, [...ys, line(low), line(high)], xLabel, 'τ0/τ');
   doc
     .moveTo(...at(low, line(low)))
     .lineTo(...at(high, line(high)))
@@ -101,6 +110,7 @@ export function drawLifetime(doc: Pdf, lifetime: LifetimeLine): void {
     .strokeColor(chartInk.line)
     .stroke();
   lifetime.points.forEach((p) => doc.circle(...at(p.x * concentrationScale, p.y), 2.6).fill(chartInk.points));
+  excluded.forEach((p) => leftOutMark(doc, ...at(p.x * concentrationScale, p.y)));
   doc.x = 50;
   doc.y = box.y + box.height + 34;
 }

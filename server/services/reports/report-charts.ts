@@ -77,6 +77,20 @@ export function niceScale(low: number, high: number, tickCount = 5): NiceScale {
   return { min: ticks[0]!, max: ticks.at(-1)!, step, ticks };
 }
 
+/** Closest two tick labels may sit on an axis, in points: 7.5 pt labels with a gap (common practice). */
+export const MIN_TICK_GAP = { x: 48, y: 12 } as const;
+
+/**
+ * niceScale with as many ticks as fit `length` points at `minGap` apart: fewer asked until they
+ * fit (a short residual strip gets three ticks, a full plot five or six), never fewer than two.
+ */
+export function niceScaleWithin(low: number, high: number, length: number, minGap: number): NiceScale {
+  let scale = niceScale(low, high);
+  for (let tickCount = 4; tickCount >= 2 && length / Math.max(1, scale.ticks.length - 1) < minGap; tickCount--)
+    scale = niceScale(low, high, tickCount);
+  return scale;
+}
+
 const place = (value: number, scale: NiceScale, from: number, size: number) =>
   from + ((value - scale.min) / (scale.max - scale.min || 1)) * size;
 

@@ -444,6 +444,14 @@ export function fitStudy(
             rSquared: lifetime.fit.rSquared,
             verdict: lifetime.verdict,
             points: lifetime.points,
+            // left-out lifetimes at their plotted place: τ0/τ with the fitted τ0, [Q] corrected
+            excluded: corrected
+              .filter((entry) => entry.point.excluded && entry.point.lifetime !== null)
+              .map((entry) => ({
+                position: entry.point.position,
+                x: entry.concentration,
+                y: lifetime.tau0.value / entry.point.lifetime!,
+              })),
             xAxis: axes.concentration,
           }
         : null,

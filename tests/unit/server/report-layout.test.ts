@@ -1,7 +1,10 @@
 import { PDFParse } from 'pdf-parse';
 import { describe, expect, it } from 'vitest';
 import { createReport, finish, table } from '../../../server/services/reports/pdf-document';
+import { fitStudy } from '@shared/engine';
 import { niceScale } from '../../../server/services/reports/report-charts';
+import { drawLifetime, drawSternVolmer } from '../../../server/services/reports/plot-drawing';
+import { fitPoint, fitSettings } from '../engine/support/study-fit-fixture';
 
 async function pageTexts(pdf: Buffer): Promise<string[]> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
@@ -62,5 +65,49 @@ describe('nice axis scales', () => {
       expect(scale.max).toBeGreaterThanOrEqual(Math.max(low, high));
       expect(scale.ticks.length).toBeLessThanOrEqual(12);
     }
+  });
+});
+
+describe('plot tick labels in the study PDF', () => {
+  // Invented series with ±2 % scatter: its residuals span about ±0.05, which asked seven ticks of
+  // the 55 pt residual strip (9 pt apart, for 7.5 pt labels) before the tick count followed the box.
+  const scatter = [0, 0.013, -0.021, 0.017, -0.009, 0.024, -0.016, 0.011];
+  const points = [0, 0.5e-3, 1e-3, 1.5e-3, 2e-3, 3e-3, 4e-3, 5e-3].map((q, i) =>
+    fitPoint(i, q, (1000 / (1 + 480 * q)) * (1 + scatter[i]!), {
+      lifetime: (1e-6 / (1 + 450 * q)) * (1 - scatter[i]!),
+      excluded: i === 5,
+    }),
+  );
+  const result = fitStudy(fitSettings({ tau0: 1e-6 }), points, 'linear-free').result;
+
+  /** Where the PDF writes each text: pdfkit's text(), watched. */
+  function drawnTexts(draw: (doc: ReturnType<typeof createReport>) => void) {
+    const doc = createReport('Ticks', 'check');
+    const written: Array<{ text: string; x: number; y: number }> = [];
+    const text = doc.text.bind(doc);
+    doc.text = ((value: string, x?: number, y?: number, options?: object) => {
+      if (typeof x === 'number' && typeof y === 'number') written.push({ text: String(value), x, y });
+      return text(value, x, y, options);
+    }) as typeof doc.text;
+    draw(doc);
+    return written;
+  }
+
+  it('when the residual strip is drawn, then no two y tick labels are closer than 12 pt (7.5 pt type, common practice)', () => {
+    const written = drawnTexts((doc) => drawSternVolmer(doc, result));
+    // y tick labels are numbers written right-aligned in a 44 pt column 48 pt left of the plot (x = 52)
+    const yTicks = written.filter((entry) => entry.x === 52 && /^[−-]?\d/.test(entry.text)).map((entry) => entry.y);
+    expect(yTicks.length).toBeGreaterThan(6);
+    const sorted = [...yTicks].sort((a, b) => a - b);
+    const gaps = sorted.slice(1).map((y, i) => y - sorted[i]!);
+    expect(Math.min(...gaps)).toBeGreaterThanOrEqual(12);
+  });
+
+  it('when a lifetime was left out, then the lifetime plot keeps room for it at τ0/τ', () => {
+    const lifetime = result.lifetime!;
+    // τ0 = 1 µs from the blank; the left-out point at 3 mM: τ0/τ = (1 + 450 × 0.003)/(1 − 0.024) by construction
+    expect(lifetime.excluded).toEqual([{ position: 5, x: 3e-3, y: expect.closeTo((1 + 450 * 3e-3) / (1 - 0.024), 9) }]);
+    expect(lifetime.points).toHaveLength(7);
+    expect(() => drawnTexts((doc) => drawLifetime(doc, lifetime))).not.toThrow();
   });
 });

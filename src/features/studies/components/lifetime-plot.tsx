@@ -14,7 +14,8 @@ export const LifetimePlot = memo(function LifetimePlot({
   studyTitle: string;
 }) {
   const { label: xLabel, scale: xScale } = lifetime.xAxis;
-  const maxX = Math.max(...lifetime.points.map((p) => p.x));
+  const excluded = lifetime.excluded ?? [];
+  const maxX = Math.max(...lifetime.points.map((p) => p.x), ...excluded.map((p) => p.x));
   const line = [0, maxX].map((x) => ({ x: x * xScale, y: 1 + lifetime.kSv.value * x }));
   return (
     <figure aria-label="Lifetime plot" className="space-y-2">
@@ -31,6 +32,20 @@ export const LifetimePlot = memo(function LifetimePlot({
               plotColours.points,
             ),
             lineSeries('Fit', line, plotColours.line),
+            // left out by the chemist: unfilled crosses at their plotted place, as on the Stern–Volmer plot
+            ...(excluded.length
+              ? [
+                  {
+                    label: 'Left out',
+                    data: excluded.map((p) => ({ x: p.x * xScale, y: p.y })),
+                    backgroundColor: 'transparent',
+                    borderColor: plotColours.excluded,
+                    pointStyle: 'crossRot' as const,
+                    pointRadius: 7,
+                    borderWidth: 2,
+                  },
+                ]
+              : []),
           ],
         }}
         options={{
