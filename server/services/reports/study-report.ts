@@ -22,6 +22,7 @@ import { createReport, facts, finish, fixed, heading, sci, table } from './pdf-d
 import type { Pdf } from './pdf-document';
 import { drawLifetime, drawSternVolmer } from './plot-drawing';
 import { decaysSection } from './decay-report';
+import { mechanismSection } from './mechanism-report';
 import type { UploadServices } from '../studies/study-upload.service';
 
 const date = isoDateTime;
@@ -218,7 +219,7 @@ function review(doc: Pdf, study: StudyDetail) {
 
 /**
  * The PDF report of one study: identification, conditions, points, plots, fit, flags, decays
- * (their fits and plots, drawn from the kept files), driving force, review, files.
+ * (their fits and plots, drawn from the kept files), mechanism evidence, driving force, review, files.
  */
 export async function studyReport(
   services: UploadServices,
@@ -234,6 +235,7 @@ export async function studyReport(
   results(doc, study);
   points(doc, study);
   await decaysSection(doc, services, lab, study.id);
+  await mechanismSection(doc, lab, study.id);
   await drivingForceSection(doc, lab, study);
   review(doc, study);
   if (study.notes) {
