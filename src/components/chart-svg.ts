@@ -13,6 +13,12 @@ const escape = (text: string) =>
 const num = (value: number) => String(Math.round(value * 100) / 100);
 const colour = (value: unknown, fallback = 'none') => (typeof value === 'string' ? value : fallback);
 
+/** A dashed line's pattern (the diffusion limit, for one) as stroke-dasharray. */
+const dash = (dataset: { borderDash?: unknown }) =>
+  Array.isArray(dataset.borderDash) && dataset.borderDash.length > 0
+    ? ` stroke-dasharray="${dataset.borderDash.map(Number).join(' ')}"`
+    : '';
+
 interface Placed {
   x: number;
   y: number;
@@ -35,6 +41,19 @@ function mark(point: Placed, series: string, value: { x: number; y: number }): s
     return `<path ${data} d="M${num(point.x - +dx)} ${num(point.y - +dy)}L${num(point.x + +dx)} ${num(point.y + +dy)}M${num(point.x + +dx)} ${num(point.y - +dy)}L${num(point.x - +dx)} ${num(point.y + +dy)}" fill="none" ${stroke}/>`;
   }
   return `<circle ${data} cx="${num(point.x)}" cy="${num(point.y)}" r="${num(radius)}" fill="${colour(backgroundColor)}" ${stroke}/>`;
+}
+
+/** A bar as Chart.js placed it: horizontal bars run from `base` to `x`, vertical ones from `base` to `y`. */
+function bar(element: unknown, series: string, label: string, value: unknown): string {
+  const props = (
+    element as { getProps: (keys: string[], final: boolean) => Record<string, number | boolean> }
+  ).getProps(['x', 'y', 'base', 'width', 'height', 'horizontal'], true);
+  const { x, y, base, width, height } = props as Record<string, number>;
+  const options = (element as Placed).options;
+  const box = props.horizontal
+    ? { left: Math.min(base!, x!), top: y! - height! / 2, w: Math.abs(x! - base!), h: height! }
+    : { left: x! - width! / 2, top: Math.min(base!, y!), w: width!, h: Math.abs(y! - base!) };
+  return `<rect data-series="${escape(series)}" data-label="${escape(label)}" data-value="${escape(String(value))}" x="${num(box.left)}" y="${num(box.top)}" width="${num(box.w)}" height="${num(box.h)}" fill="${colour(options.backgroundColor)}"/>`;
 }
 
 function axis(scale: Scale, area: Chart['chartArea'], vertical: boolean): string[] {
@@ -62,8 +81,12 @@ function axis(scale: Scale, area: Chart['chartArea'], vertical: boolean): string
   return parts;
 }
 
-/** The chart as it stands, as an SVG document named by `title` (its accessible name). */
-export function chartAsSvg(chart: Chart, title: string): string {
+/**
+ * The chart as it stands, as an SVG document named by `title` (its accessible name). With
+ * `widthCm` the width and height attributes are in centimetres (the viewBox stays in the chart's
+ * CSS pixels), so the file is placed at that printed size.
+ */
+export function chartAsSvg(chart: Chart, title: string, { widthCm }: { widthCm?: number } = {}): string {
   const { width, height, chartArea: area } = chart;
   const body: string[] = [`<rect width="${num(width)}" height="${num(height)}" fill="${chartColours.surface}"/>`];
   const { x, y } = chart.scales;
@@ -74,6 +97,13 @@ export function chartAsSvg(chart: Chart, title: string): string {
   datasets.forEach((dataset, index) => {
     if (!chart.isDatasetVisible(index)) return;
     const points = placed[index]!;
+    if (chart.getDatasetMeta(index).type === 'bar') {
+      const labels = chart.data.labels ?? [];
+      points.forEach((element, at) =>
+        body.push(bar(element, dataset.label ?? '', String(labels[at] ?? ''), dataset.data[at])),
+      );
+      return;
+    }
     const path = (list: Placed[]) => list.map((p) => `${num(p.x)},${num(p.y)}`).join(' ');
     if (dataset.fill === '+1' && placed[index + 1]) {
       const lower = [...placed[index + 1]!].reverse();
@@ -83,7 +113,7 @@ export function chartAsSvg(chart: Chart, title: string): string {
     }
     if (dataset.showLine && (dataset.borderWidth ?? 1) !== 0 && points.length > 1)
       body.push(
-        `<polyline data-series="${escape(dataset.label ?? '')}" points="${path(points)}" fill="none" stroke="${colour(dataset.borderColor, chartColours.line)}" stroke-width="${num(Number(dataset.borderWidth ?? 1))}"/>`,
+        `<polyline data-series="${escape(dataset.label ?? '')}" points="${path(points)}" fill="none" stroke="${colour(dataset.borderColor, chartColours.line)}" stroke-width="${num(Number(dataset.borderWidth ?? 1))}"${dash(dataset)}/>`,
       );
     if (!dataset.showLine || Number(dataset.pointRadius ?? 3) > 0)
       points.forEach((point, at) => {
@@ -106,9 +136,12 @@ export function chartAsSvg(chart: Chart, title: string): string {
         `<text x="${num(box.left + 14)}" y="${num(middle)}" dominant-baseline="middle">${escape(item.text)}</text>`,
     );
   });
+  const size = widthCm
+    ? `width="${num(widthCm)}cm" height="${num((widthCm * height) / width)}cm"`
+    : `width="${num(width)}" height="${num(height)}"`;
   return [
     `<?xml version="1.0" encoding="UTF-8"?>`,
-    `<svg xmlns="http://www.w3.org/2000/svg" width="${num(width)}" height="${num(height)}" viewBox="0 0 ${num(width)} ${num(height)}" role="img" aria-label="${escape(title)}" font-family="${escape(chartFont)}" font-size="12" fill="${chartColours.text}">`,
+    `<svg xmlns="http://www.w3.org/2000/svg" ${size} viewBox="0 0 ${num(width)} ${num(height)}" role="img" aria-label="${escape(title)}" font-family="${escape(chartFont)}" font-size="12" fill="${chartColours.text}">`,
     `<title>${escape(title)}</title>`,
     ...body,
     `</svg>`,

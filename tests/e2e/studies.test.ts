@@ -4,6 +4,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createLabWithMembers } from '../support/accounts';
 import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
+import { pngFacts, saveFigure, svgFacts } from '../support/figures';
 import { startLiveServer } from '../support/live-server';
 
 let browser: Browser;
@@ -104,7 +105,7 @@ describe('studies in Chromium', () => {
     await reviewerPage.close();
   });
 
-  it('when the plots are saved as PNG and SVG, then each PNG is 300 dpi one or two columns wide and each SVG holds the points, named after the study', async () => {
+  it('when the plots are saved as PNG and SVG, then each PNG is one or two columns wide at 300 or 600 dpi and each SVG is sized in cm and holds the points, named after the study', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     await signIn(page, people.researcher);
     await page.goto(`${server.baseUrl}/labs/${labId}/studies`);
@@ -123,59 +124,32 @@ describe('studies in Chromium', () => {
       ['lifetime plot', 'lifetimes'],
     ];
     for (const [what, suffix] of figures) {
-      for (const [widthCm, pixels] of [
-        [8.5, 1004],
-        [17, 2008],
+      for (const [widthCm, dpi, pixels] of [
+        [8.5, 300, 1004],
+        [17, 300, 2008],
+        [8.5, 600, 2008],
       ] as const) {
-        const [download] = await Promise.all([
-          page.waitForEvent('download'),
-          page.getByRole('button', { name: `PNG ${widthCm} cm wide: the ${what}` }).click(),
-        ]);
+        const { download, file } = await saveFigure(page, what, { kind: 'png', widthCm, dpi }, screenshotDir);
         const millimetres = Math.round(widthCm * 10);
-        expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}-${millimetres}mm.png`);
-        const saved = path.join(screenshotDir, `figure-${suffix}-${millimetres}mm.png`);
-        await download.saveAs(saved);
-        const bytes = fs.readFileSync(saved);
+        expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}-${millimetres}mm-${dpi}dpi.png`);
+        const png = pngFacts(file);
         // PNG signature (PNG specification, ISO/IEC 15948, section 5.2): 89 50 4E 47 0D 0A 1A 0A
-        expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
-        // IHDR width (bytes 16-19): the column width at 300 dpi, 8.5 cm / 2.54 × 300 = 1004 px
-        expect(bytes.readUInt32BE(16)).toBe(pixels);
-        // pHYs right after IHDR: 300 dpi = 11 811 pixels per metre (ISO/IEC 15948, 11.3.5.3)
-        expect(bytes.toString('latin1', 37, 41)).toBe('pHYs');
-        expect(bytes.readUInt32BE(41)).toBe(11811);
-        expect(bytes.length).toBeGreaterThan(8000); // a drawn chart, not an empty canvas
+        expect(png.signature).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+        // IHDR width: the column width at the resolution, 8.5 cm / 2.54 × 300 = 1004 px (common practice: 1 in = 2.54 cm)
+        expect(png.width).toBe(pixels);
+        // pHYs right after IHDR: 300 dpi = 11 811 pixels per metre, 600 dpi = 23 622 (ISO/IEC 15948, 11.3.5.3)
+        expect(png.pixelsPerMetre).toBe(dpi === 300 ? 11811 : 23622);
+        expect(png.size).toBeGreaterThan(8000); // a drawn chart, not an empty canvas
       }
     }
-    // The same figures as SVG: each file parses as XML and holds the plotted points with their values.
-    const svgs: Record<string, string> = {};
+    // The same figures as SVG: each file parses as XML, is 8.5 cm wide and holds the plotted points with their values.
+    const parsed: Record<string, Awaited<ReturnType<typeof svgFacts>>> = {};
     for (const [what, suffix] of figures) {
-      const [download] = await Promise.all([
-        page.waitForEvent('download'),
-        page.getByRole('button', { name: `SVG: the ${what}` }).click(),
-      ]);
-      expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}.svg`);
-      const saved = path.join(screenshotDir, `figure-${suffix}.svg`);
-      await download.saveAs(saved);
-      svgs[suffix] = fs.readFileSync(saved, 'utf8');
+      const { download, file } = await saveFigure(page, what, { kind: 'svg', widthCm: 8.5 }, screenshotDir);
+      expect(download.suggestedFilename()).toBe(`e2e-figures-ir-amine-${suffix}-85mm.svg`);
+      parsed[suffix] = await svgFacts(page, file);
+      expect(parsed[suffix]!.width).toBe('8.5cm');
     }
-    const parsed = await page.evaluate((files) => {
-      const read = (text: string) => {
-        const doc = new DOMParser().parseFromString(text, 'image/svg+xml');
-        const marks = [...doc.querySelectorAll('[data-series][data-x]')].map((mark) => ({
-          series: mark.getAttribute('data-series'),
-          x: Number(mark.getAttribute('data-x')),
-          y: Number(mark.getAttribute('data-y')),
-        }));
-        return {
-          error: doc.querySelector('parsererror')?.textContent ?? null,
-          root: doc.documentElement.localName,
-          title: doc.querySelector('title')?.textContent ?? '',
-          marks,
-          lines: doc.querySelectorAll('polyline').length,
-        };
-      };
-      return Object.fromEntries(Object.entries(files).map(([name, text]) => [name, read(text)]));
-    }, svgs);
     for (const [, suffix] of figures) {
       expect(parsed[suffix]!.error, suffix).toBeNull();
       expect(parsed[suffix]!.root).toBe('svg');

@@ -24,6 +24,12 @@ describe('figures for print', () => {
     expect(figurePixels(17)).toBe(2008);
   });
 
+  it('when 600 dpi is asked for, then the pixels are width / 2.54 × 600', () => {
+    // 8.5 cm / 2.54 × 600 = 2007.9 px; 17 cm / 2.54 × 600 = 4015.7 px (common practice: 1 in = 2.54 cm)
+    expect(figurePixels(8.5, 600)).toBe(2008);
+    expect(figurePixels(17, 600)).toBe(4016);
+  });
+
   it('when the resolution is written, then a pHYs chunk after IHDR says 300 dpi with a CRC Node agrees with', () => {
     const png = withResolution(tinyPng(), 300);
     const bytes = Buffer.from(png);
