@@ -17,11 +17,11 @@ Chart.register(LinearScale, PointElement, LineElement, ScatterController, LineCo
 
 /**
  * Paints the canvas paper-white under the plot (chart.js leaves it transparent), so a figure saved as
- * PNG reads the same in a report as on screen. Passed to a chart's `plugins`.
+ * PNG reads the same in a report as on screen. Passed to a chart's `plugins` (scatter or bar).
  */
-export const paperBackground: Plugin<'scatter'> = {
+export const paperBackground = {
   id: 'halflightPaperBackground',
-  beforeDraw(chart) {
+  beforeDraw(chart: Chart) {
     const { ctx, width, height } = chart;
     ctx.save();
     ctx.globalCompositeOperation = 'destination-over';
@@ -29,7 +29,7 @@ export const paperBackground: Plugin<'scatter'> = {
     ctx.fillRect(0, 0, width, height);
     ctx.restore();
   },
-};
+} satisfies Plugin;
 
 // Tick labels with at most 3 significant figures, so tiny residuals read 2 × 10⁻⁸, not 2.00000000E-8.
 const tick = (value: number | string) => (typeof value === 'number' ? formatNumber(value) : value);

@@ -1,9 +1,10 @@
 import { formatEstimate, UNITS } from '@shared/format';
-import { Scatter } from 'react-chartjs-2';
 import { useNavigate } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
 import { chartColours } from '@/components/chart-theme';
-import '@/components/scatter-chart';
+import { figureFileName } from '@/components/figure-file-name';
+import { SavableScatter } from '@/components/savable-scatter';
+import { linearAxis } from '@/components/scatter-chart';
 import { paths } from '@/lib/paths';
 
 // Halflight palette, one hue per solvent (tailwind.config.ts: glow, ink, moss, brick).
@@ -34,6 +35,7 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
         data: trend.fit.curve.map((point) => ({ x: point.drivingForce, y: point.log10Kq })),
         borderColor: hue,
         pointRadius: 0,
+        pointStyle: 'line',
         borderWidth: 2,
         showLine: true,
       });
@@ -50,6 +52,7 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
         borderColor: hue,
         borderDash: [6, 4],
         pointRadius: 0,
+        pointStyle: 'line',
         borderWidth: 1,
         showLine: true,
       });
@@ -57,26 +60,24 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
     return sets;
   });
   return (
-    <div className="h-80">
-      <Scatter
-        aria-label="Plot of log kq against the driving force, one series per solvent; the values are in the table"
-
-        data={{ datasets: datasets as never }}
-        options={{
-          maintainAspectRatio: false,
-          animation: false,
-          scales: {
-            x: { title: { display: true, text: 'ΔG_ET (eV)' } },
-            y: { title: { display: true, text: 'log₁₀ kq (M⁻¹ s⁻¹)' } },
-          },
-          onClick: (_event, elements, chart) => {
-            const element = elements[0];
-            const point =
-              element && (chart.data.datasets[element.datasetIndex]?.data[element.index] as { studyId?: string });
-            if (point?.studyId) void navigate(paths.study(labId, point.studyId));
-          },
-        }}
-      />
-    </div>
+    <SavableScatter
+      fileName={figureFileName(`${comparison.compound.name} comparison`, 'kq-driving-force')}
+      what="plot of log kq against driving force"
+      height="h-80"
+      label="Plot of log kq against the driving force, one series per solvent; the values are in the table"
+      data={{ datasets: datasets as never }}
+      options={{
+        scales: {
+          x: linearAxis(`ΔG_ET (${UNITS.electronvolt})`),
+          y: linearAxis(`log₁₀ kq (${UNITS.perMolarPerSecond})`),
+        },
+        onClick: (_event, elements, chart) => {
+          const element = elements[0];
+          const point =
+            element && (chart.data.datasets[element.datasetIndex]?.data[element.index] as { studyId?: string });
+          if (point?.studyId) void navigate(paths.study(labId, point.studyId));
+        },
+      }}
+    />
   );
 }
