@@ -1,4 +1,3 @@
-import crypto from 'node:crypto';
 import { compareAssociationConstants, ENGINE_VERSION, type AbsorptionEvidence } from '@shared/engine';
 import type {
   AbsorptionAnalysisAnswer,
@@ -12,25 +11,23 @@ import type { LabContext } from '../../domain/lab-context';
 import { AppError } from '../../lib/app-error';
 import { AbsorptionTitration, MechanismFile, StudyFit, User, type Study } from '../../models';
 import { recordAudit } from '../audit.service';
-import type { ReceivedFile } from '../studies/files/attached-files';
+import * as attached from '../studies/files/attached-files';
 import type { StoredLocation } from '../studies/files/raw-file-store';
-import { sha256Of } from '../studies/files/raw-file-store';
-import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
+import { loadStudy, loadStudyToChange } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
 import type { AbsorptionTitrationOutcome } from './read-absorption-titration';
 
 export interface AbsorptionUpload {
-  file: ReceivedFile;
-  quencher: ReceivedFile | null;
+  file: attached.ReceivedFile;
+  quencher: attached.ReceivedFile | null;
   options: AbsorptionOptions;
 }
 
 type ReadOutcome = Extract<AbsorptionTitrationOutcome, { kind: 'read' }>;
 
-const fileAttributes = { attributes: { exclude: ['content'] } };
 const withFiles = [
-  { model: MechanismFile, as: 'file', ...fileAttributes },
-  { model: MechanismFile, as: 'quencherFile', ...fileAttributes },
+  attached.fileRowWithoutBytes(MechanismFile, 'file'),
+  attached.fileRowWithoutBytes(MechanismFile, 'quencherFile'),
   { model: User, as: 'createdBy', attributes: ['name'] },
 ];
 
@@ -42,13 +39,7 @@ async function readOrRefuse(services: UploadServices, upload: AbsorptionUpload):
     quencher: upload.quencher ? { fileName: upload.quencher.originalname, bytes: upload.quencher.buffer } : null,
     options: upload.options,
   });
-  if (outcome.kind === 'limit')
-    throw new AppError(
-      'upload_limit',
-      `${outcome.message} Nothing was kept.`,
-      outcome.limit === 'seconds' ? 422 : 413,
-      [{ path: 'file', message: `over the ${outcome.limit} limit` }],
-    );
+  if (outcome.kind === 'limit') attached.refuseOverLimit(outcome);
   if (outcome.kind === 'unreadable')
     throw new AppError(
       'absorption_titration_unreadable',
@@ -116,22 +107,14 @@ export async function previewAbsorptionTitration(
   };
 }
 
-const fileAnswer = (file: MechanismFile) => ({
-  id: file.id,
-  fileName: file.fileName,
-  size: file.size,
-  sha256: file.sha256,
-  createdAt: file.createdAt.toISOString(),
-});
-
 async function toAnswer(row: AbsorptionTitration, study: Study): Promise<AbsorptionTitrationAnswer> {
   const { quencher, ...reading } = row.reading;
   return {
     id: row.id,
     studyId: row.studyId,
     title: row.title,
-    file: fileAnswer(row.file!),
-    quencherFile: row.quencherFile ? fileAnswer(row.quencherFile) : null,
+    file: attached.keptFileAnswer(row.file!),
+    quencherFile: row.quencherFile ? attached.keptFileAnswer(row.quencherFile) : null,
     options: row.options,
     reading,
     quencher,
@@ -156,43 +139,22 @@ export async function keepAbsorptionTitration(
   upload: AbsorptionUpload,
   actor: SignedInActor,
 ): Promise<AbsorptionTitrationAnswer> {
-  const study = await loadStudy(lab, studyId);
-  requireOwner(study, lab, actor.userId);
-  requireEditable(study);
+  const study = await loadStudyToChange(lab, studyId, actor.userId);
   const outcome = await readOrRefuse(services, upload);
-  const sent = [upload.file, ...(upload.quencher ? [upload.quencher] : [])].map((file) => ({
-    file,
-    id: crypto.randomUUID(),
-  }));
-  const locations: StoredLocation[] = [];
-  try {
-    for (const { file, id } of sent)
-      locations.push(await services.files.put({ uploadId: id, labId: lab.id, bytes: file.buffer }));
-    const titrationId = await services.sequelize.transaction(async (transaction) => {
-      const kept = [];
-      for (const [i, { file, id }] of sent.entries()) {
-        const sha256 = await sha256Of(file.buffer);
-        await MechanismFile.create(
-          {
-            ...locations[i]!,
-            id,
-            labId: lab.id,
-            fileName: file.originalname.slice(0, 255),
-            mediaType: file.mimetype || 'application/octet-stream',
-            size: file.buffer.length,
-            sha256,
-            uploadedById: actor.userId,
-          },
-          { transaction },
-        );
-        kept.push({ id, fileName: file.originalname, size: file.buffer.length, sha256 });
-      }
+  const received = [upload.file, ...(upload.quencher ? [upload.quencher] : [])];
+  const titrationId = await attached.keepWithFiles(
+    services,
+    lab,
+    actor,
+    MechanismFile,
+    received,
+    async (kept, transaction) => {
       const titration = await AbsorptionTitration.create(
         {
           labId: lab.id,
           studyId,
-          fileId: sent[0]!.id,
-          quencherFileId: sent[1]?.id ?? null,
+          fileId: kept[0]!.id,
+          quencherFileId: kept[1]?.id ?? null,
           kind: 'absorption',
           title: upload.file.originalname.slice(0, 255),
           bandWidth: upload.options.bandWidth,
@@ -214,7 +176,7 @@ export async function keepAbsorptionTitration(
           targetId: studyId,
           details: {
             absorptionTitrationId: titration.id,
-            files: kept,
+            files: kept.map(attached.keptFileDetails),
             options: upload.options,
             flags: outcome.analysis.flags.map((flag) => flag.code),
           },
@@ -222,23 +184,16 @@ export async function keepAbsorptionTitration(
         transaction,
       );
       return titration.id;
-    });
-    const row = await AbsorptionTitration.findOne({ where: { id: titrationId, labId: lab.id }, include: withFiles });
-    return await toAnswer(row!, study);
-  } catch (error) {
-    for (const location of locations) await services.files.discard(location);
-    throw error;
-  }
+    },
+  );
+  const row = await AbsorptionTitration.findOne({ where: { id: titrationId, labId: lab.id }, include: withFiles });
+  return toAnswer(row!, study);
 }
 
 /** A study's absorption titrations, newest first, each compared with the study's current K_S. */
 export async function listAbsorptionTitrations(lab: LabContext, studyId: string): Promise<AbsorptionTitrationAnswer[]> {
   const study = await loadStudy(lab, studyId);
-  const rows = await AbsorptionTitration.findAll({
-    where: { labId: lab.id, studyId },
-    include: withFiles,
-    order: [['createdAt', 'DESC']],
-  });
+  const rows = await attached.listOfStudy(AbsorptionTitration, lab, studyId, withFiles);
   return Promise.all(rows.map((row) => toAnswer(row, study)));
 }
 
@@ -253,9 +208,7 @@ export async function discardAbsorptionTitration(
   titrationId: string,
   actor: SignedInActor,
 ): Promise<void> {
-  const study = await loadStudy(lab, studyId);
-  requireOwner(study, lab, actor.userId);
-  requireEditable(study);
+  await loadStudyToChange(lab, studyId, actor.userId);
   const locations = await services.sequelize.transaction(async (transaction) => {
     const row = await AbsorptionTitration.findOne({
       where: { id: titrationId, labId: lab.id, studyId },

@@ -38,15 +38,16 @@ type FileTable = typeof DecayFile | typeof MechanismFile;
 export type NotRead =
   { kind: 'unreadable'; problems: Problem[] } | { kind: 'limit'; limit: keyof UploadLimits; message: string };
 
-/** Unreadable (422 with `code`, naming each row or column) or over a limit (413; 422 for time); nothing was kept. */
+/** Over an upload limit: 413 (422 for the time limit) naming the limit; nothing was kept. */
+export function refuseOverLimit(outcome: Extract<NotRead, { kind: 'limit' }>): never {
+  throw new AppError('upload_limit', `${outcome.message} Nothing was kept.`, outcome.limit === 'seconds' ? 422 : 413, [
+    { path: 'file', message: `over the ${outcome.limit} limit` },
+  ]);
+}
+
+/** Unreadable (422 with `code`, naming each cell's column, else its row) or over a limit; nothing was kept. */
 export function refuseUnread(outcome: NotRead, code: string): never {
-  if (outcome.kind === 'limit')
-    throw new AppError(
-      'upload_limit',
-      `${outcome.message} Nothing was kept.`,
-      outcome.limit === 'seconds' ? 422 : 413,
-      [{ path: 'file', message: `over the ${outcome.limit} limit` }],
-    );
+  if (outcome.kind === 'limit') refuseOverLimit(outcome);
   throw new AppError(
     code,
     `${outcome.problems[0]!.message} Nothing was kept.`,
