@@ -12,6 +12,7 @@ import { Tag } from '@/components/tag';
 import { useSession } from '@/features/auth/api/get-session';
 import { DecaysPanel } from '@/features/decays/components/decays-panel';
 import { DrivingForcePanel } from '@/features/library/components/driving-force-panel';
+import { AbsorptionPanel } from '@/features/mechanism/components/absorption-panel';
 import { MechanismPanel, type EvidenceAnchors } from '@/features/mechanism/components/mechanism-panel';
 import { SpectrumMatrixPanel } from '@/features/mechanism/components/spectrum-matrix-panel';
 import { useStudy } from '@/features/studies/api/get-study';
@@ -45,6 +46,7 @@ import type { StudyArrival } from '@/routes/new-study';
 const EVIDENCE_ANCHORS: EvidenceAnchors = {
   lifetime: { href: '#lifetimes-from-decays', label: 'Lifetimes from decays' },
   wavelength: { href: '#emission-by-wavelength', label: 'Emission by wavelength' },
+  absorption: { href: '#absorption', label: 'Absorption' },
   diffusion: { href: '#set-up', label: 'Set-up' },
 };
 
@@ -257,6 +259,9 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
       </Panel>
       <Panel title="Emission by wavelength" id="emission-by-wavelength">
         <SpectrumMatrixPanel labId={labId} studyId={study.id} editable={editable} />
+      </Panel>
+      <Panel title="Absorption" id="absorption">
+        <AbsorptionPanel labId={labId} studyId={study.id} editable={editable} />
       </Panel>
       {editable && (
         <Panel title="Upload an instrument file">

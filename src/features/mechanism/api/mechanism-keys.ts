@@ -5,6 +5,8 @@ export const mechanismKeys = {
     [...mechanismKeys.all(labId), 'temperature-series', 'analysis', studyIds.join(',')] as const,
   spectrumMatrices: (labId: string, studyId: string) =>
     [...mechanismKeys.all(labId), 'spectrum-matrices', studyId] as const,
+  absorptionTitrations: (labId: string, studyId: string) =>
+    [...mechanismKeys.all(labId), 'absorption-titrations', studyId] as const,
   /** every answer of the study's evidence; `fitId` keys one answer to the fit it read */
   evidenceOf: (labId: string, studyId: string) => [...mechanismKeys.all(labId), 'evidence', studyId] as const,
   evidence: (labId: string, studyId: string, fitId: string | null) =>
