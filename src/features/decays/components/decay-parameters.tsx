@@ -1,9 +1,12 @@
 import type { DecayOutcome } from '@shared/schemas/decays';
-import { formatNumber } from '@shared/format';
-import { toNanoseconds } from '@shared/units/units';
+import { formatEstimate, formatNumber } from '@shared/format';
+import { fromSi, toNanoseconds } from '@shared/units/units';
 
-const ns = (seconds: number) => formatNumber(toNanoseconds(seconds), 4);
-const nsSe = (seconds: number) => formatNumber(toNanoseconds(seconds), 2);
+// Each value to the decimal of its standard error, as printed in a paper (5.996 ± 0.005, not 5.996 ± 4.8 × 10⁻³).
+const estimate = ({ value, standardError }: { value: number; standardError: number }, scale: (x: number) => number) =>
+  formatEstimate(scale(value), scale(standardError));
+const ns = (lifetime: { value: number; standardError: number }) => estimate(lifetime, toNanoseconds);
+const plain = (x: number) => x;
 
 /** The fitted parameters of one decay with their standard errors, and its flags. */
 export function DecayParameters({ outcome }: { outcome: DecayOutcome }) {
@@ -11,36 +14,19 @@ export function DecayParameters({ outcome }: { outcome: DecayOutcome }) {
   if (!fit) return <p className="text-body text-brick-700">{outcome.problem ?? 'Not fitted yet.'}</p>;
   const rows: Array<[string, string]> = [
     ...fit.components.flatMap((component, i): Array<[string, string]> => [
-      [`τ${i + 1} (ns)`, `${ns(component.lifetime.value)} ± ${nsSe(component.lifetime.standardError)}`],
-      [
-        `α${i + 1} (share of amplitude)`,
-        `${formatNumber(component.fractionalAmplitude.value, 3)} ± ${formatNumber(component.fractionalAmplitude.standardError, 2)}`,
-      ],
+      [`τ${i + 1} (ns)`, ns(component.lifetime)],
+      [`α${i + 1} (share of amplitude)`, estimate(component.fractionalAmplitude, plain)],
       [`f${i + 1} (share of photons)`, formatNumber(component.fractionalIntensity, 3)],
     ]),
     ...(fit.components.length > 1
       ? ([
-          [
-            '⟨τ⟩ amplitude-weighted (ns)',
-            `${ns(fit.amplitudeWeightedLifetime.value)} ± ${nsSe(fit.amplitudeWeightedLifetime.standardError)}`,
-          ],
-          [
-            '⟨τ⟩ intensity-weighted (ns)',
-            `${ns(fit.intensityWeightedLifetime.value)} ± ${nsSe(fit.intensityWeightedLifetime.standardError)}`,
-          ],
+          ['⟨τ⟩ amplitude-weighted (ns)', ns(fit.amplitudeWeightedLifetime)],
+          ['⟨τ⟩ intensity-weighted (ns)', ns(fit.intensityWeightedLifetime)],
         ] as Array<[string, string]>)
       : []),
-    [
-      'Background (counts/channel)',
-      `${formatNumber(fit.background.value, 3)} ± ${formatNumber(fit.background.standardError, 2)}`,
-    ],
+    ['Background (counts/channel)', estimate(fit.background, plain)],
     ...(fit.shift
-      ? ([
-          [
-            'Response shift (ps)',
-            `${formatNumber(fit.shift.value * 1e12, 3)} ± ${formatNumber(fit.shift.standardError * 1e12, 2)}`,
-          ],
-        ] as Array<[string, string]>)
+      ? ([['Response shift (ps)', estimate(fit.shift, (seconds) => fromSi(seconds, 'ps'))]] as Array<[string, string]>)
       : []),
     ['Reduced χ² (Pearson)', formatNumber(fit.reducedChiSquared, 3)],
     ['Channels fitted', `${fit.startChannel}–${fit.endChannel}`],
@@ -55,7 +41,7 @@ export function DecayParameters({ outcome }: { outcome: DecayOutcome }) {
               <th scope="row" className="py-1 pr-3 text-left font-normal text-ink-700">
                 {name}
               </th>
-              <td className="py-1 font-bold tabular-nums">{value}</td>
+              <td className="whitespace-nowrap py-1 font-bold tabular-nums">{value}</td>
             </tr>
           ))}
         </tbody>

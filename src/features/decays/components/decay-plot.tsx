@@ -23,7 +23,7 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
   const autocorrelation = (curves.autocorrelation ?? []).map((value, lag) => ({ x: lag, y: value }));
   return (
     <figure aria-label={`Decay plot of ${curves.label}`} className="space-y-2">
-      <div className="flex justify-end gap-3">
+      <div className="flex flex-wrap justify-end gap-x-3 gap-y-1">
         <SaveChartButtons chart={main} name={`${title} decay`} what="Decay" />
         <SaveChartButtons chart={residualChart} name={`${title} residuals`} what="Residuals" />
       </div>

@@ -1,12 +1,14 @@
 import { useState } from 'react';
 import type { DecayModel, DecayOutcome, DecayPreview, DecaySet, DecayTimeUnit } from '@shared/schemas/decays';
 import type { StudyDetail } from '@shared/schemas/study-detail';
-import { formatNumber } from '@shared/format';
+import { formatEstimate, formatNumber } from '@shared/format';
 import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import { Button } from '@/components/button';
 import { FileField } from '@/components/file-field';
 import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
+import { TableHead } from '@/components/table-head';
+import { TableScroll } from '@/components/table-scroll';
 import { describeError } from '@/lib/form-errors';
 import { useApplyDecaySet } from '../api/apply-decay-set';
 import { useDecayCurves } from '../api/get-decay-curves';
@@ -28,7 +30,7 @@ const DEFAULT_MODEL: DecayModel = {
 };
 const lifetimeText = (outcome: DecayOutcome) =>
   outcome.lifetime
-    ? `${formatNumber(toNanoseconds(outcome.lifetime.value), 4)} ± ${formatNumber(toNanoseconds(outcome.lifetime.standardError), 2)}`
+    ? formatEstimate(toNanoseconds(outcome.lifetime.value), toNanoseconds(outcome.lifetime.standardError))
     : (outcome.problem ?? '—');
 
 /** The decays of a set: [Q], lifetime, chi-squared, flags; a row button shows that decay. */
@@ -42,40 +44,49 @@ function OutcomesTable({
   onShow: (i: number) => void;
 }) {
   return (
-    <table aria-label="Fitted decays" className="w-full text-body">
-      <thead>
-        <tr className="text-left text-caption text-ink-500">
-          <th className="pr-3">Decay</th>
-          <th className="pr-3">[Q] (mM)</th>
-          <th className="pr-3">τ (ns)</th>
-          <th className="pr-3">χ²</th>
-          <th />
-        </tr>
-      </thead>
-      <tbody>
-        {outcomes.map((outcome) => (
-          <tr
-            key={outcome.index}
-            className={`border-b border-paper-200 ${outcome.index === shown ? 'bg-glow-50' : ''}`}
-          >
-            <td className="pr-3">{outcome.label}</td>
-            <td className="pr-3 tabular-nums">
-              {outcome.concentration === null ? 'not given' : formatNumber(toMillimolar(outcome.concentration), 4)}
-            </td>
-            <td className="pr-3 tabular-nums">{lifetimeText(outcome)}</td>
-            <td className="pr-3 tabular-nums">
-              {outcome.fit ? formatNumber(outcome.fit.reducedChiSquared, 3) : ''}
-              {outcome.fit && outcome.fit.flags.length > 0 ? ` · ${outcome.fit.flags.length} to check` : ''}
-            </td>
-            <td>
-              <button type="button" className="text-caption underline" onClick={() => onShow(outcome.index)}>
-                Show
-              </button>
-            </td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <TableScroll label="Fitted decays, scroll sideways">
+      <table aria-label="Fitted decays" className="w-full text-left text-body">
+        <TableHead
+          look="ruled"
+          columns={[
+            'Decay',
+            '[Q] (mM)',
+            { label: 'τ (ns)', className: 'whitespace-nowrap' },
+            { label: 'reduced χ²', className: 'whitespace-nowrap' },
+            <span className="sr-only">Plot</span>,
+          ]}
+        />
+        <tbody>
+          {outcomes.map((outcome) => (
+            <tr
+              key={outcome.index}
+              className={`border-b border-paper-200 ${outcome.index === shown ? 'bg-glow-50' : ''}`}
+            >
+              <td className="whitespace-nowrap py-1 pr-3">{outcome.label}</td>
+              <td className="pr-3 tabular-nums">
+                {outcome.concentration === null ? 'not given' : formatNumber(toMillimolar(outcome.concentration), 4)}
+              </td>
+              <td className="whitespace-nowrap pr-3 tabular-nums">{lifetimeText(outcome)}</td>
+              <td className="pr-3 tabular-nums">
+                {outcome.fit ? formatNumber(outcome.fit.reducedChiSquared, 3) : ''}
+                {outcome.fit && outcome.fit.flags.length > 0 ? ` · ${outcome.fit.flags.length} to check` : ''}
+              </td>
+              <td>
+                <button
+                  type="button"
+                  className="text-caption underline"
+                  aria-label={`Plot ${outcome.label}`}
+                  aria-pressed={outcome.index === shown}
+                  onClick={() => onShow(outcome.index)}
+                >
+                  {outcome.index === shown ? 'Plotted' : 'Plot'}
+                </button>
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </TableScroll>
   );
 }
 
@@ -122,7 +133,7 @@ function KeptSet({
       </header>
       {apply.isError && <FormAlert>{describeError(apply.error)}</FormAlert>}
       <OutcomesTable outcomes={set.outcomes} shown={shown} onShow={setShown} />
-      <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         {curves.data ? <DecayPlot curves={curves.data} title={study.title} /> : <p className="text-body">Drawing…</p>}
         {set.outcomes[shown] && <DecayParameters outcome={set.outcomes[shown]} />}
       </div>
@@ -263,7 +274,7 @@ export function DecaysPanel({
                 onShow={(index) => look({ show: index })}
               />
               {preview.shown && (
-                <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+                <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
                   <DecayPlot curves={preview.shown} title={study.title} />
                   {preview.outcomes[preview.shown.index] && (
                     <DecayParameters outcome={preview.outcomes[preview.shown.index]!} />
