@@ -14,7 +14,7 @@ import { cellProblem, ParseProblem } from '../studies/parse/parse-problem';
 import type { Problem } from '../studies/parse/read-and-map';
 import { readUpload } from '../studies/parse/read-upload';
 import { UploadLimitExceeded, type UploadLimits } from '../studies/parse/upload-limits';
-import { asBuffer, PLOT_POINTS, readMatrix, type Matrix } from './read-spectrum-matrix';
+import { asBuffer, PLOT_POINTS, readingOf, readMatrix, type Matrix } from './read-spectrum-matrix';
 
 /** What a reading thread is asked for an absorption titration. */
 export interface AbsorptionTitrationTask {
@@ -118,15 +118,7 @@ export async function readAbsorptionTitration(task: AbsorptionTitrationTask): Pr
     const keep = <T>(values: readonly T[]) => values.filter((_, i) => i % step === 0);
     return {
       kind: 'read',
-      reading: {
-        format: matrix.format,
-        wavelengthHeader: matrix.wavelengthHeader,
-        firstWavelength: matrix.wavelengths[0]!,
-        lastWavelength: matrix.wavelengths.at(-1)!,
-        wavelengthCount: matrix.wavelengths.length,
-        samples: matrix.samples.map(({ header, concentration }) => ({ header, concentration })),
-        quencher: quencher?.reading ?? null,
-      },
+      reading: { ...readingOf(matrix), quencher: quencher?.reading ?? null },
       analysis,
       plot: {
         wavelengths: keep(matrix.wavelengths),

@@ -88,6 +88,16 @@ export async function readMatrix(fileName: string, bytes: Buffer, limits: Upload
   return { format: table.format, wavelengthHeader, wavelengths, samples };
 }
 
+/** What a read matrix holds, as kept with its record: the grid and each sample's header and [Q]. */
+export const readingOf = (matrix: Matrix): SpectrumMatrixReading => ({
+  format: matrix.format,
+  wavelengthHeader: matrix.wavelengthHeader,
+  firstWavelength: matrix.wavelengths[0]!,
+  lastWavelength: matrix.wavelengths.at(-1)!,
+  wavelengthCount: matrix.wavelengths.length,
+  samples: matrix.samples.map(({ header, concentration }) => ({ header, concentration })),
+});
+
 function plotOf(matrix: Matrix): SpectrumPlot {
   const step = Math.max(1, Math.ceil(matrix.wavelengths.length / PLOT_POINTS));
   const keep = <T>(values: readonly T[]) => values.filter((_, i) => i % step === 0);
@@ -113,14 +123,7 @@ export async function readSpectrumMatrix(task: SpectrumMatrixTask): Promise<Spec
     });
     return {
       kind: 'read',
-      reading: {
-        format: matrix.format,
-        wavelengthHeader: matrix.wavelengthHeader,
-        firstWavelength: matrix.wavelengths[0]!,
-        lastWavelength: matrix.wavelengths.at(-1)!,
-        wavelengthCount: matrix.wavelengths.length,
-        samples: matrix.samples.map(({ header, concentration }) => ({ header, concentration })),
-      },
+      reading: readingOf(matrix),
       analysis,
       plot: plotOf(matrix),
     };
