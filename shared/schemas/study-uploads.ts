@@ -26,6 +26,19 @@ export const seriesMappingSchema = z.object({
   volumeAdded: column.nullable(),
   volumeUnit: z.enum(volumeUnits),
   uncertainty: column.nullable(),
+  run: column
+    .nullable()
+    .default(null)
+    .describe(
+      'a column naming the titration run of each row (replicate runs of the study): whole numbers 1, 2, … kept, other labels numbered in the order they first appear',
+    ),
+  moreIntensities: z
+    .array(column)
+    .max(20)
+    .default([])
+    .describe(
+      'further intensity (or I0/I) columns, one per replicate run: the intensity column is run 1, these runs 2, 3, … at the same concentrations',
+    ),
 });
 
 /** A spectrum matrix (a CSV or a JCAMP-DX file): a wavelength column and one column per sample, its concentration from the header or typed. */

@@ -21,6 +21,8 @@ const mapping: SeriesMapping = {
   volumeAdded: null,
   volumeUnit: 'L',
   uncertainty: null,
+  run: null,
+  moreIntensities: [],
 };
 // Invented reading: [Q] 0-8 read as M, the two questions the server asks of it.
 const reading: Omit<FileReading, 'fileName' | 'size'> = {

@@ -18,6 +18,8 @@ const series: SeriesMapping = {
   volumeAdded: null,
   volumeUnit: 'uL',
   uncertainty: null,
+  run: null,
+  moreIntensities: [],
 };
 
 /** Holds the mapping as the upload panel does, so each change shows on screen; `seen` gets every change. */

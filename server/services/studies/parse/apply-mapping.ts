@@ -32,6 +32,13 @@ function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParsePr
     ['uncertainty', mapping.uncertainty, 'an uncertainty above zero'],
   ];
   for (const [name, index] of roles) requireColumn(table, index, name);
+  requireColumn(table, mapping.run, 'the run');
+  for (const index of mapping.moreIntensities) requireColumn(table, index, 'a further run');
+  if (mapping.run !== null && mapping.moreIntensities.length > 0)
+    throw new ParseProblem('Map either a run column or one intensity column per run, not both.');
+  if (mapping.moreIntensities.length > 0 && mapping.intensity === null)
+    throw new ParseProblem('Map the intensity column of run 1 before the columns of further runs.');
+  const runOf = runNumbers(table, mapping.run, problems);
   if (mapping.intensity === null && mapping.lifetime === null)
     throw new ParseProblem('Map an intensity (or I0/I) column or a lifetime column.');
   if (mapping.concentrationUnit === null)
@@ -45,7 +52,7 @@ function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParsePr
     lifetime: TIME_FACTORS[mapping.lifetimeUnit],
     volumeAdded: VOLUME_FACTORS[mapping.volumeUnit],
   };
-  return table.rows.map((row) => {
+  return table.rows.flatMap((row, rowIndex) => {
     const values: Record<string, number | null> = {};
     for (const [name, index, expected] of roles) {
       if (index === null) {
@@ -69,7 +76,7 @@ function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParsePr
       }
       values[name] = value === null || value === undefined ? null : value * (scale[name] ?? 1);
     }
-    return {
+    const point: StudyPointValues = {
       concentration: values.concentration ?? 0,
       intensity: values.intensity ?? null,
       lifetime: values.lifetime ?? null,
@@ -79,9 +86,49 @@ function seriesPoints(table: RawTable, mapping: SeriesMapping, problems: ParsePr
       uncertainty: values.uncertainty ?? null,
       excluded: false,
       exclusionReason: null,
-      series: 1,
+      series: runOf(rowIndex),
     };
+    // One intensity column per further run: the same sample, another reading (lifetime and σ stay with run 1).
+    const further = mapping.moreIntensities.map((index, k) => {
+      const text = row.cells[index] ?? '';
+      const value = parseCellNumber(text, table.decimalComma);
+      if (value === undefined && problems.length < MAX_PROBLEMS)
+        problems.push(
+          cellProblem(
+            row.line,
+            columnName(table, index),
+            mapping.intensityIsRatio ? 'an I0/I ratio' : 'an intensity',
+            text,
+          ),
+        );
+      return {
+        ...point,
+        intensity: value ?? null,
+        lifetime: null,
+        uncertainty: null,
+        series: k + 2,
+      };
+    });
+    return [point, ...further.filter((reading) => reading.intensity !== null)];
   });
+}
+
+/**
+ * Each row's run: 1 without a run column; with one, whole numbers ≥ 1 as written, and otherwise the
+ * labels numbered 1, 2, … in the order they first appear ("A", "B" or "day 1", "day 2").
+ */
+function runNumbers(table: RawTable, index: number | null, problems: ParseProblem[]): (row: number) => number {
+  if (index === null) return () => 1;
+  const labels = table.rows.map((row) => (row.cells[index] ?? '').trim());
+  table.rows.forEach((row, i) => {
+    if (labels[i] === '' && problems.length < MAX_PROBLEMS)
+      problems.push(cellProblem(row.line, columnName(table, index), 'a run (a number or a name)', ''));
+  });
+  if (labels.every((label) => label === '' || /^[1-9]\d{0,5}$/.test(label)))
+    return (row) => (labels[row] === '' ? 1 : Number(labels[row]));
+  const order = new Map<string, number>();
+  for (const label of labels) if (label !== '' && !order.has(label)) order.set(label, order.size + 1);
+  return (row) => order.get(labels[row]!) ?? 1;
 }
 
 function spectrumPoints(table: RawTable, mapping: SpectrumMapping, problems: ParseProblem[]): StudyPointValues[] {

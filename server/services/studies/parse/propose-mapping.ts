@@ -119,6 +119,7 @@ export function proposeWithNotes(table: RawTable, study: StudyReading): { mappin
   const absorbanceEmission = find(headers, /a.?em|abs.*em/i, taken);
   const volumeAdded = find(headers, /vol|added/i, taken);
   const uncertainty = find(headers, /sd|sigma|σ|err|uncert/i, taken);
+  const run = find(headers, /^(run|series|replicate|repeat)\b/i, taken);
   const free = headers.map((_, i) => i).filter((i) => !taken.has(i));
   const byPosition = intensity ?? free.shift() ?? null;
   const concentrationHeader = headers[concentration]!;
@@ -136,6 +137,8 @@ export function proposeWithNotes(table: RawTable, study: StudyReading): { mappin
     volumeAdded,
     volumeUnit: volumeAdded !== null ? (volumeUnitOf(headers[volumeAdded]!) ?? 'L') : 'L',
     uncertainty,
+    run,
+    moreIntensities: [],
   };
   return { mapping, notes: [] };
 }
