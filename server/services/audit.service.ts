@@ -10,18 +10,27 @@ export interface AuditEntry {
   details?: Record<string, unknown>;
 }
 
+const auditRow = (actor: Actor, entry: AuditEntry) => ({
+  labId: entry.labId ?? null,
+  actorId: actor.userId,
+  action: entry.action,
+  targetType: entry.targetType ?? null,
+  targetId: entry.targetId ?? null,
+  details: entry.details ?? {},
+  ipAddress: actor.ip,
+});
+
 /** Appends one event to the audit log: who, what, when, from which address. */
 export async function recordAudit(actor: Actor, entry: AuditEntry, transaction?: Transaction): Promise<void> {
-  await AuditEvent.create(
-    {
-      labId: entry.labId ?? null,
-      actorId: actor.userId,
-      action: entry.action,
-      targetType: entry.targetType ?? null,
-      targetId: entry.targetId ?? null,
-      details: entry.details ?? {},
-      ipAddress: actor.ip,
-    },
-    { transaction },
-  );
+  await AuditEvent.create(auditRow(actor, entry), { transaction });
+}
+
+/** Appends several events of one change in one statement, in their order. */
+export async function recordAudits(actor: Actor, entries: AuditEntry[], transaction?: Transaction): Promise<void> {
+  if (entries.length === 1) return recordAudit(actor, entries[0]!, transaction);
+  if (entries.length > 0)
+    await AuditEvent.bulkCreate(
+      entries.map((entry) => auditRow(actor, entry)),
+      { transaction },
+    );
 }

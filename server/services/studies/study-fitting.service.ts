@@ -3,7 +3,7 @@ import { ENGINE_VERSION, EngineError, fitStudy, type StudyFitOutcome } from '@sh
 import type { FitModel, FitWeighting } from '@shared/schemas/studies';
 import { AppError } from '../../lib/app-error';
 import { StudyFit, StudyPoint, type Study } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordAudits, type AuditEntry } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 import { lifetimeOfEmitter } from './study-tau0';
 
@@ -16,6 +16,8 @@ export async function computeForStudy(
   model: FitModel,
   transaction?: Transaction,
   weighting: FitWeighting = study.fitWeighting,
+  /** the series as just written in this transaction, in position order (read from the table otherwise) */
+  written?: StudyPoint[],
 ): Promise<StudyFitOutcome> {
   // The record behind tau0 is checked on every refit too (same lab, same emitter), and its value
   // and SE are the ones fitted: never a number stored beside the link.
@@ -27,7 +29,8 @@ export async function computeForStudy(
     fitWeighting: weighting,
     ...(record ? { tau0: record.value, tau0Uncertainty: record.uncertainty ?? null } : {}),
   };
-  const points = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
+  const points =
+    written ?? (await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction }));
   try {
     return fitStudy(settings, points, model);
   } catch (error) {
@@ -55,20 +58,29 @@ export async function refitStudy(
     actor: Actor;
     transaction: Transaction;
     refuseUnfittable?: boolean;
+    /** the series as just written in this transaction (saves reading it back) */
+    points?: StudyPoint[];
+    /** more changes to the study, saved in the same UPDATE as the fit's (e.g. the version) */
+    studyChanges?: { version?: number };
+    /** audit entries of the same change, written in the same INSERT as the fit's, before it */
+    audits?: AuditEntry[];
   },
 ): Promise<StudyFit | null> {
+  const also = options.studyChanges ?? {};
+  const audits = options.audits ?? [];
   const model = options.model ?? study.fitModel;
   const weighting = options.weighting ?? study.fitWeighting;
   const { transaction } = options;
   let computed: StudyFitOutcome;
   try {
-    computed = await computeForStudy(study, model, transaction, weighting);
+    computed = await computeForStudy(study, model, transaction, weighting, options.points);
   } catch (error) {
     if (options.trigger === 'manual' || options.refuseUnfittable || !(error instanceof AppError)) throw error;
     await study.update(
-      { kSv: null, kq: null, flagged: false, fitProblem: error.message, latestFitId: null },
+      { ...also, kSv: null, kq: null, flagged: false, fitProblem: error.message, latestFitId: null },
       { transaction },
     );
+    await recordAudits(options.actor, audits, transaction);
     return null;
   }
   const fit = await StudyFit.create(
@@ -88,6 +100,7 @@ export async function refitStudy(
   );
   await study.update(
     {
+      ...also,
       kSv: computed.kSv,
       kq: computed.kq,
       flagged: computed.result.flags.length > 0,
@@ -97,25 +110,28 @@ export async function refitStudy(
     },
     { transaction },
   );
-  await recordAudit(
+  await recordAudits(
     options.actor,
-    {
-      action: 'study_fitted',
-      labId: study.labId,
-      targetType: 'study',
-      targetId: study.id,
-      details: {
-        fitId: fit.id,
-        model,
-        weighting,
-        applied: computed.result.weighting?.applied ?? null,
-        trigger: options.trigger,
-        kSv: computed.kSv,
-        kq: computed.kq,
-        flags: computed.result.flags.map((flag) => flag.code),
-        engineVersion: ENGINE_VERSION,
+    [
+      ...audits,
+      {
+        action: 'study_fitted',
+        labId: study.labId,
+        targetType: 'study',
+        targetId: study.id,
+        details: {
+          fitId: fit.id,
+          model,
+          weighting,
+          applied: computed.result.weighting?.applied ?? null,
+          trigger: options.trigger,
+          kSv: computed.kSv,
+          kq: computed.kq,
+          flags: computed.result.flags.map((flag) => flag.code),
+          engineVersion: ENGINE_VERSION,
+        },
       },
-    },
+    ],
     transaction,
   );
   return fit;

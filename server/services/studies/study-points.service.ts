@@ -1,8 +1,7 @@
-import type { Sequelize, Transaction } from 'sequelize';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { pointValues, type StudyPointValues } from '@shared/schemas/study-points';
 import type { LabContext } from '../../domain/lab-context';
 import { StudyPoint, type Study } from '../../models';
-import { recordAudit } from '../audit.service';
 import type { Actor, SignedInActor } from '../../domain/actor';
 import { loadStudy, requireChangeable } from './study-access';
 import { refitStudy } from './study-fitting.service';
@@ -65,10 +64,17 @@ export async function writeSeries(
     refuseUnfittable?: boolean;
   },
 ): Promise<void> {
-  const before = await StudyPoint.findAll({ where: { studyId: study.id }, order: [['position', 'ASC']], transaction });
+  // The old series comes back from its DELETE (no separate read), in position order.
+  const removed = await StudyPoint.sequelize!.query('DELETE FROM study_points WHERE study_id = $1 RETURNING *', {
+    bind: [study.id],
+    type: QueryTypes.SELECT,
+    model: StudyPoint,
+    mapToModel: true,
+    transaction,
+  });
+  const before = [...removed].sort((a, b) => a.position - b.position);
   const sources = lifetimeSources(before, points);
-  await StudyPoint.destroy({ where: { studyId: study.id }, transaction });
-  await StudyPoint.bulkCreate(
+  const written = await StudyPoint.bulkCreate(
     points.map((point, position) => ({
       ...plain(point),
       ...sources[position]!,
@@ -79,26 +85,31 @@ export async function writeSeries(
     })),
     { transaction },
   );
-  await study.update({ version: study.version + 1 }, { transaction });
-  await recordAudit(
+  // The version, the fit's numbers and both audit entries go in the refit's own statements.
+  await refitStudy(study, {
+    trigger: 'auto',
     actor,
-    {
-      action: reason.action,
-      labId: study.labId,
-      targetType: 'study',
-      targetId: study.id,
-      details: {
-        before: before.map(plain),
-        after: points.map(plain),
-        ...(reason.uploadId ? { uploadId: reason.uploadId } : {}),
-        ...reason.reading,
-        ...(reason.decaySetId ? { decaySetId: reason.decaySetId } : {}),
-        ...(reason.tau0 ? { tau0: reason.tau0 } : {}),
-      },
-    },
     transaction,
-  );
-  await refitStudy(study, { trigger: 'auto', actor, transaction, refuseUnfittable: reason.refuseUnfittable ?? false });
+    refuseUnfittable: reason.refuseUnfittable ?? false,
+    points: written,
+    studyChanges: { version: study.version + 1 },
+    audits: [
+      {
+        action: reason.action,
+        labId: study.labId,
+        targetType: 'study',
+        targetId: study.id,
+        details: {
+          before: before.map(plain),
+          after: points.map(plain),
+          ...(reason.uploadId ? { uploadId: reason.uploadId } : {}),
+          ...reason.reading,
+          ...(reason.decaySetId ? { decaySetId: reason.decaySetId } : {}),
+          ...(reason.tau0 ? { tau0: reason.tau0 } : {}),
+        },
+      },
+    ],
+  });
 }
 
 export async function replacePoints(

@@ -1,0 +1,86 @@
+import { Writable } from 'node:stream';
+import { pino } from 'pino';
+import { afterAll, describe, expect, it } from 'vitest';
+import { inject } from 'vitest';
+import { createSequelize } from '../../server/db/sequelize';
+import { initModels } from '../../server/models';
+import { signedInResearcher } from '../support/accounts';
+import { createStudy, exactPoints, studyBody } from '../support/studies';
+import { createTestApp } from '../support/test-app';
+
+// At debug level each request's log line counts its database round trips (Sequelize's, the plain
+// reads' and the session store's): the writes of bench:load's write mix, checked one by one.
+const lines: string[] = [];
+const sink = new Writable({
+  write(chunk: Buffer, _encoding, done) {
+    lines.push(chunk.toString('utf8'));
+    done();
+  },
+});
+const sequelize = createSequelize(inject('databaseUrl'), { timeQueries: true });
+initModels(sequelize);
+const testApp = await createTestApp({ sequelize, logger: pino({ level: 'debug' }, sink) });
+afterAll(async () => {
+  await testApp.close();
+  await sequelize.close();
+});
+
+type Line = { req?: { method: string; url: string }; res?: { statusCode: number }; database?: { queries: number } };
+
+/** The round trips of the request to `url` answered with `status`, read from its log line. */
+async function roundTripsOf(send: () => PromiseLike<{ status: number }>, url: string, status: number) {
+  lines.length = 0;
+  expect((await send()).status).toBe(status);
+  await new Promise((resolve) => setImmediate(resolve));
+  const line = lines
+    .map((text) => JSON.parse(text) as Line)
+    .find((entry) => entry.req?.url === url && entry.res?.statusCode === status);
+  expect(line, `no log line for ${url}`).toBeDefined();
+  return line!.database?.queries ?? 0;
+}
+
+describe('round trips of the writes people make most', () => {
+  it('when a study is created, its points replaced and a small file uploaded, then each takes only the steps it needs', async () => {
+    const { client, csrf, labId } = await signedInResearcher(testApp);
+    const first = await createStudy(client, labId, 'write-round-trips');
+    const studies = `/api/labs/${labId}/studies`;
+    const body = {
+      ...studyBody('write-round-trips-2', { emitterId: first.emitter.id, quencherId: first.quencher.id }),
+      newEmitterName: undefined,
+      newQuencherName: undefined,
+    };
+    let created = { id: '', version: 0 };
+    // Session row, membership; BEGIN, emitter, quencher, the study, its audit entry, COMMIT; the answer.
+    expect(
+      await roundTripsOf(
+        async () => {
+          const response = await client.post(studies, body);
+          created = response.body;
+          return response;
+        },
+        studies,
+        201,
+      ),
+    ).toBe(9);
+    const study = `${studies}/${created.id}`;
+    // Session row, membership; BEGIN, the study (locked), the old points (from their DELETE), the new
+    // points, the fit, the study's version and numbers, both audit entries, COMMIT; the answer.
+    expect(
+      await roundTripsOf(
+        () => client.patch(`${study}/points`, { version: created.version, points: exactPoints }),
+        `${study}/points`,
+        200,
+      ),
+    ).toBe(11);
+    // Session row, membership, the study, an earlier upload of the same bytes; BEGIN, the upload with
+    // its bytes, its audit entry, COMMIT. A small series (invented numbers).
+    const csv = Buffer.from('quencher (mM),intensity\n0,1000\n1,800\n2,660\n3,570\n');
+    expect(
+      await roundTripsOf(
+        () => client.agent.post(`${study}/uploads`).set('x-csrf-token', csrf).attach('file', csv, 'series.csv'),
+        `${study}/uploads`,
+        201,
+      ),
+    ).toBe(8);
+  });
+});
