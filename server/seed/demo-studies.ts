@@ -4,6 +4,7 @@ import type { FitModel } from '@shared/schemas/studies';
 import { Study, StudyPoint, StudyReview, type Lab, type User } from '../models';
 import { refitStudy } from '../services/studies/study-fitting.service';
 import type { DemoClock } from './demo-clock';
+import { seedDemoAbsorption } from './demo-absorption';
 import { demoDecayConcentrations, seedDemoDecays } from './demo-decays';
 import type { DemoLibrary } from './demo-library';
 
@@ -441,4 +442,5 @@ export async function seedDemoStudies(
   }
   clock.set(1, 11);
   await seedDemoDecays(transaction, lab, people.priya, created.get('ir-alkene-decays')!, clock);
+  await seedDemoAbsorption(transaction, lab, people.priya, created.get('cz-alkene')!, clock);
 }

@@ -3,6 +3,7 @@ import { QUALITY_FLAG_CODES, type QualityFlagCode } from '@shared/engine';
 import { AuditEvent, Compound, DecaySet, Lab, Study, StudyFit, StudyPoint } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
 import { demoCompoundFamilies } from '../../server/seed/demo-library';
+import { demoAbsorptionFileName } from '../../server/seed/demo-absorption';
 import { demoDecayFileName } from '../../server/seed/demo-decays';
 import { demoStudies } from '../../server/seed/demo-studies';
 import { analyseSeries, listTemperatureSeries } from '../../server/services/mechanism/temperature-series.service';
@@ -126,5 +127,25 @@ describe('seedDemoStudies', () => {
       ready.map(async (group) => (await analyseSeries(context, group.studyIds)).verdict),
     );
     expect(verdicts.sort()).toEqual(['dynamic', 'static']);
+  });
+
+  it('when the demo is loaded, then the static and dynamic carbazole study holds an absorption titration whose K_a agrees with its K_S', async () => {
+    const study = studies.find(
+      (candidate) => candidate.title.includes('HL-Cz-2') && candidate.fitModel === 'static-dynamic',
+    )!;
+    const priya = demoPeople.find((person) => person.key === 'priya')!;
+    const client = await apiClient(testApp.app);
+    await client.signIn({ email: priya.email, password: demoPassword });
+    const { items } = (
+      await client.get(`/api/labs/${study.labId}/studies/${study.id}/absorption-titrations`).expect(200)
+    ).body;
+    expect(items.map((item: { title: string }) => item.title)).toEqual([demoAbsorptionFileName]);
+    const [titration] = items;
+    expect(titration.analysis.flags.map((flag: { code: string }) => flag.code)).toEqual(['ABSORPTION_CHANGES']);
+    expect(titration.quencher.kind).toBe('absorptivity');
+    // Demo data, not a check of the engine: the files are made with K_a = 150 M^-1 and the study's
+    // series with K_S = 150 M^-1 (demo-absorption.ts, demo-studies.ts, invented); the demo story needs them to agree.
+    expect(titration.comparison.kS).not.toBeNull();
+    expect(titration.comparison.isotherm.agree).toBe(true);
   });
 });
