@@ -62,6 +62,18 @@ function Preview({ start }: { start: typeof reading }) {
 }
 
 describe('FilePreview', () => {
+  it('when the points come in two runs, then the preview says so and names each point’s run', () => {
+    const twoRuns = {
+      ...reading,
+      questions: [],
+      points: [point(0, 0, 1000), { ...point(1, 0, 800), series: 2 }],
+    };
+    render(<Preview start={twoRuns} />);
+    expect(screen.getByLabelText('Points from the file').textContent).toMatch(
+      /2 points in 2 runs.*run 1: 0 → 1000.*run 2: 0 → 800/,
+    );
+  });
+
   it('when the points raise questions, then each is a tick box and the points are ready only when both are ticked', async () => {
     render(<Preview start={reading} />);
     expect(screen.getByRole('group', { name: 'Check before using these points' })).toBeTruthy();

@@ -48,6 +48,19 @@ function Editor({
 describe('MappingEditor', () => {
   const headers = ['[Q] / mM', 'I (counts)', 'tau / ns'];
 
+  it('when a table holds several runs, then the chemist names a run column or ticks one intensity column per further run', async () => {
+    const seen = vi.fn();
+    render(<Editor headers={[...headers, 'I run 2', 'run']} start={series} seen={seen} />);
+    await userEvent.selectOptions(screen.getByLabelText('Run column (replicate runs)'), '5: run');
+    expect(seen).toHaveBeenLastCalledWith({ ...series, run: 4 });
+    await userEvent.selectOptions(screen.getByLabelText('Run column (replicate runs)'), '— none —');
+    await userEvent.click(screen.getByRole('checkbox', { name: '4: I run 2' }));
+    expect(seen).toHaveBeenLastCalledWith({ ...series, run: null, moreIntensities: [3] });
+    expect(screen.getByText(/\(run 2\)/)).toBeTruthy();
+    // the concentration and run-1 intensity columns cannot also be further runs
+    expect(screen.getByRole<HTMLInputElement>('checkbox', { name: '2: I (counts)' }).disabled).toBe(true);
+  });
+
   it('when a series file is mapped, then each role offers the file’s columns and the concentration cannot be left out', () => {
     render(<Editor headers={headers} start={series} seen={vi.fn()} />);
     const options = (label: string) =>

@@ -70,6 +70,7 @@ export function FilePreview({
 }) {
   const unit = fileUnit(reading, mapping);
   // A file that names no concentration unit opens the columns and units: the choice is needed first.
+  const runs = new Set(reading.points.map((point) => point.series)).size;
   const [mappingOpen, setMappingOpen] = useState(mapping.layout === 'series' && mapping.concentrationUnit === null);
   // The next step of an upload: focus goes to what the file gave, and the notice area says it
   // (once per file; a changed mapping re-reads the same file and leaves the focus where it is).
@@ -135,11 +136,13 @@ export function FilePreview({
       )}
       {reading.points.length > 0 && (
         <p aria-label="Points from the file" className="text-body">
-          {reading.pointCount} points, [Q] in {unitLabel(unit)}:{' '}
+          {reading.pointCount} points
+          {runs > 1 ? ` in ${runs} runs` : ''}, [Q] in {unitLabel(unit)}:{' '}
           {reading.points
             .slice(0, 8)
             .map(
-              (point) => `${formatNumber(fromSi(point.concentration, unit), 4)} → ${formatNumber(point.intensity, 4)}`,
+              (point) =>
+                `${runs > 1 ? `run ${point.series}: ` : ''}${formatNumber(fromSi(point.concentration, unit), 4)} → ${formatNumber(point.intensity, 4)}`,
             )
             .join(' · ')}
           {reading.pointCount > 8 ? ' …' : ''}

@@ -14,6 +14,7 @@ const ROLES: Array<[keyof Series & string, string]> = [
   ['absorbanceEmission', 'A at λem column'],
   ['volumeAdded', 'Volume added column'],
   ['uncertainty', 'Uncertainty column'],
+  ['run', 'Run column (replicate runs)'],
 ];
 
 /** Which column holds what, in which unit; or, for a spectrum matrix, how each sample is reduced to one intensity. */
@@ -130,6 +131,36 @@ export function MappingEditor({
         />
         Column holds I0/I ratios
       </label>
+      <fieldset className="col-span-2 md:col-span-4">
+        <legend className="text-body font-bold text-ink-900">
+          Further runs: one intensity column each (the intensity column above is run 1)
+        </legend>
+        <div className="flex flex-wrap gap-x-4 gap-y-1">
+          {headers.map((header, i) => {
+            const chosen = mapping.moreIntensities.includes(i);
+            const run = chosen ? mapping.moreIntensities.indexOf(i) + 2 : null;
+            return (
+              <label key={i} className="flex items-center gap-2 text-body text-ink-900">
+                <input
+                  type="checkbox"
+                  checked={chosen}
+                  disabled={i === mapping.concentration || i === mapping.intensity}
+                  onChange={(event) =>
+                    onChange({
+                      ...mapping,
+                      moreIntensities: event.target.checked
+                        ? [...mapping.moreIntensities, i]
+                        : mapping.moreIntensities.filter((column) => column !== i),
+                    })
+                  }
+                />
+                {`${i + 1}: ${header}`}
+                {run !== null && ` (run ${run})`}
+              </label>
+            );
+          })}
+        </div>
+      </fieldset>
     </div>
   );
 }
