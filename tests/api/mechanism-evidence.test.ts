@@ -122,6 +122,42 @@ describe('GET /api/labs/:labId/studies/:studyId/mechanism', () => {
     );
   });
 
+  it('when equal slopes meet an absorption titration that shows a complex, then the verdict is unclear and names the conflict', async () => {
+    const study = await fittedStudy(true);
+    // Invented UV-vis titration: [E]0 = 20 µM, a 1:1 complex with K_a = 150 M⁻¹ absorbing to the red
+    // (exact 1:1 mass balance; Beer–Lambert, 1 cm); the quencher itself does not absorb.
+    const e0 = 2e-5;
+    const complex = (q: number) => {
+      const s = e0 + q + 1 / 150;
+      return (2 * e0 * q) / (s + Math.sqrt(s * s - 4 * e0 * q));
+    };
+    const g = (nm: number, centre: number, width: number) => Math.exp(-(((nm - centre) / width) ** 2) / 2);
+    const mM = [0, 2, 4, 6, 8, 12, 16, 20];
+    const rows = Array.from({ length: 201 }, (_, i) => 350 + i).map((nm, k) => [
+      nm,
+      ...mM.map((c, j) =>
+        (
+          14000 * g(nm, 450, 25) * e0 +
+          9000 * g(nm, 480, 30) * complex(c / 1000) +
+          (((k * 7 + j * 3) % 5) - 2) * 4e-4
+        ).toFixed(5),
+      ),
+    ]);
+    const file = [['nm', ...mM.map((c) => `${c} mM`)], ...rows].map((row) => row.join(',')).join('\n');
+    const kept = await client.agent
+      .post(`/api/labs/${labId}/studies/${study.id}/absorption-titrations`)
+      .set('x-csrf-token', csrf)
+      .attach('file', Buffer.from(`${file}\n`), 'uv-vis.csv')
+      .field('emitterConcentration', '2e-5');
+    expect(kept.status, JSON.stringify(kept.body)).toBe(201);
+    const response = await evidence(study.id);
+    const absorption = response.body.pieces.find((piece: { kind: string }) => piece.kind === 'absorption');
+    expect(absorption.reading).toBe('static');
+    expect(response.body.verdict).toBe('unclear');
+    expect(response.body.reasons.some((reason: string) => reason.startsWith('But '))).toBe(true);
+    expect(response.body.missing.map((piece: { kind: string }) => piece.kind)).not.toContain('absorption');
+  });
+
   it('when asked, then nothing is written: the study keeps its version and its fits', async () => {
     const study = await fittedStudy(true);
     const before = await client.get(`/api/labs/${labId}/studies/${study.id}`);

@@ -12,6 +12,7 @@ import type { LabContext } from '../../domain/lab-context';
 import { AppError } from '../../lib/app-error';
 import { SpectrumMatrix, Study, StudyFit } from '../../models';
 import { loadStudy } from '../studies/study-access';
+import { absorptionEvidenceForStudy } from './absorption-titrations.service';
 import { analyseSeries } from './temperature-series.service';
 
 type Missing = Partial<Record<MechanismPieceKind, string>>;
@@ -140,20 +141,23 @@ async function wavelengthOf(
 /**
  * The mechanism evidence of a study (engine combineMechanismEvidence): what each piece that exists
  * says, the combined verdict with reasons, the missing pieces with what to add. Reads only: the
- * stored fit, the study's newest spectrum matrix, and the series of the same pair in the same solvent.
+ * stored fit, the study's newest spectrum matrix and absorption titration, and the series of the same pair in the same solvent.
  */
 export async function mechanismEvidence(lab: LabContext, studyId: string): Promise<MechanismEvidence> {
   const study = await loadStudy(lab, studyId);
   const fit = study.latestFitId ? await StudyFit.findOne({ where: { id: study.latestFitId, studyId } }) : null;
   const missing: Missing = {};
   if (!fit) missing.lifetime = 'Fit the study first; then add lifetimes at each [Q] to compare τ0/τ with I0/I.';
-  const [temperature, wavelength] = await Promise.all([temperatureOf(lab, study, missing), wavelengthOf(lab, studyId)]);
+  const [temperature, wavelength, absorption] = await Promise.all([
+    temperatureOf(lab, study, missing),
+    wavelengthOf(lab, studyId),
+    absorptionEvidenceForStudy(lab, studyId),
+  ]);
   const assessment = combineMechanismEvidence({
     lifetime: fit ? lifetimeOf(fit) : null,
     temperature: temperature.evidence,
     wavelength: wavelength.evidence,
-    // The absorption evidence is not kept yet: named as missing.
-    absorption: null,
+    absorption,
     diffusion: diffusionOf(study, fit, missing),
     missingBecause: missing,
   });
