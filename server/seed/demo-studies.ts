@@ -6,6 +6,7 @@ import { refitStudy } from '../services/studies/study-fitting.service';
 import type { DemoClock } from './demo-clock';
 import { seedDemoAbsorption } from './demo-absorption';
 import { demoDecayConcentrations, seedDemoDecays } from './demo-decays';
+import { seedDemoExciplex } from './demo-exciplex';
 import type { DemoLibrary } from './demo-library';
 
 /*
@@ -443,4 +444,5 @@ export async function seedDemoStudies(
   clock.set(1, 11);
   await seedDemoDecays(transaction, lab, people.priya, created.get('ir-alkene-decays')!, clock);
   await seedDemoAbsorption(transaction, lab, people.priya, created.get('cz-alkene')!, clock);
+  await seedDemoExciplex(transaction, lab, people.priya, created.get('ir-amine')!, clock);
 }

@@ -1,10 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QUALITY_FLAG_CODES, type QualityFlagCode } from '@shared/engine';
-import { AuditEvent, Compound, DecaySet, Lab, Study, StudyFit, StudyPoint } from '../../server/models';
+import { AuditEvent, Compound, DecaySet, Lab, SpectrumMatrix, Study, StudyFit, StudyPoint } from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
 import { demoCompoundFamilies } from '../../server/seed/demo-library';
 import { demoAbsorptionFileName } from '../../server/seed/demo-absorption';
 import { demoDecayFileName } from '../../server/seed/demo-decays';
+import { demoExciplexFileName } from '../../server/seed/demo-exciplex';
 import { demoStudies } from '../../server/seed/demo-studies';
 import { analyseSeries, listTemperatureSeries } from '../../server/services/mechanism/temperature-series.service';
 import { apiClient } from '../support/accounts';
@@ -147,5 +148,14 @@ describe('seedDemoStudies', () => {
     // series with K_S = 150 M^-1 (demo-absorption.ts, demo-studies.ts, invented); the demo story needs them to agree.
     expect(titration.comparison.kS).not.toBeNull();
     expect(titration.comparison.isotherm.agree).toBe(true);
+  });
+
+  it('when the demo is loaded, then the iridium/amine study holds an emission matrix with a growing exciplex band', async () => {
+    const study = studies.find((candidate) =>
+      candidate.title.startsWith('Demo: HL-Ir-7 (iridium) with the amine Q-amine-3 in MeCN'),
+    )!;
+    const matrices = await SpectrumMatrix.findAll({ where: { studyId: study.id } });
+    expect(matrices.map((matrix) => matrix.title)).toEqual([demoExciplexFileName]);
+    expect(matrices[0]!.analysis.flags.map((flag) => flag.code)).toContain('NEW_COMPONENT_GROWS');
   });
 });
