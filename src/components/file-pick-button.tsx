@@ -1,4 +1,4 @@
-import { useId } from 'react';
+import { useId, type Ref } from 'react';
 
 interface FilePickButtonProps {
   accept: string;
@@ -9,6 +9,8 @@ interface FilePickButtonProps {
   labelledBy?: string;
   label?: string;
   describedBy?: string;
+  /** the file input itself, for a panel that gives it focus (after "Set aside", say) */
+  inputRef?: Ref<HTMLInputElement>;
   onFile: (file: File) => void;
 }
 
@@ -24,12 +26,14 @@ export function FilePickButton({
   labelledBy,
   label,
   describedBy,
+  inputRef,
   onFile,
 }: FilePickButtonProps) {
   const id = useId();
   return (
     <>
       <input
+        ref={inputRef}
         id={id}
         type="file"
         accept={accept}

@@ -1,3 +1,4 @@
+import { useEffect, useRef } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/empty-state';
 import { ErrorNotice } from '@/components/error-notice';
@@ -9,6 +10,7 @@ import { SeriesTable } from '@/features/mechanism/components/series-table';
 import { SeriesVerdict } from '@/features/mechanism/components/series-verdict';
 import { formatNumber } from '@shared/format';
 import { paths } from '@/lib/paths';
+import { focusHeading } from '@/lib/screen-heading';
 import { useLab } from '@/routes/lab-context';
 
 /**
@@ -21,6 +23,23 @@ export function TemperatureSeriesRoute() {
   const chosen = (params.get('studies') ?? '').split(',').filter(Boolean);
   const groups = useTemperatureSeries(labId);
   const analysis = useSeriesAnalysis(labId, chosen);
+  // Picking a series changes only the address's query, so the screen's heading keeps focus where
+  // it was (on the link, further down): once the reading is in, focus moves to it, or to the
+  // message saying why there is none. Not on arrival: a screen opened at a series starts at its h1.
+  const reading = useRef<HTMLDivElement>(null);
+  const shownKey = useRef(chosen.join(','));
+  const focusWhenRead = useRef(false);
+  const key = chosen.join(',');
+  useEffect(() => {
+    if (key === shownKey.current) return;
+    shownKey.current = key;
+    focusWhenRead.current = key !== '';
+  }, [key]);
+  useEffect(() => {
+    if (!focusWhenRead.current || analysis.isPending || !reading.current) return;
+    focusWhenRead.current = false;
+    focusHeading(reading.current);
+  }, [key, analysis.isPending]);
   return (
     <div className="max-w-6xl space-y-6">
       <header>
@@ -33,9 +52,19 @@ export function TemperatureSeriesRoute() {
       {chosen.length > 0 && (
         <Panel title="Reading of the series">
           {analysis.isPending && <p className="text-body text-ink-600">Reading the series…</p>}
-          {analysis.isError && <ErrorNotice error={analysis.error} what="this series" />}
+          {analysis.isError && (
+            <div ref={reading} tabIndex={-1}>
+              <ErrorNotice error={analysis.error} what="this series" />
+            </div>
+          )}
           {analysis.data && (
-            <div className="space-y-5">
+            <div
+              ref={reading}
+              tabIndex={-1}
+              role="group"
+              aria-label={`Reading of ${analysis.data.emitter.name} with ${analysis.data.quencher.name}`}
+              className="space-y-5"
+            >
               <p className="text-body text-ink-700">
                 {analysis.data.emitter.name} with {analysis.data.quencher.name} in {analysis.data.solventName}
               </p>

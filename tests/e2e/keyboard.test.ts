@@ -2,6 +2,8 @@ import path from 'node:path';
 import { AxeBuilder } from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Lab } from '../../server/models';
+import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
 import { createLabWithMembers } from '../support/accounts';
 import type { TestUser } from '../support/accounts';
 import { launchBrowser, signInThroughPage } from '../support/browser';
@@ -201,4 +203,60 @@ describe('keyboard and phone paths, in Chromium', () => {
     await context.close();
     // Three full axe audits: at a load of 15 on two cores this took 45-55 s, so it gets a wider bound.
   }, 150_000);
+
+  it('when a file cannot be read, then focus goes to the reason; when a read file is set aside, to the file control', async () => {
+    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const page = await context.newPage();
+    await signInThroughPage(page, server.baseUrl, researcher);
+    // Set-up: an empty study made through the one-screen form.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Studies' }).click();
+    await page.getByRole('link', { name: 'New study' }).click();
+    await page.getByLabel('Emitter (required)').selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('New emitter name').fill('Keyboard-Ir-2');
+    await page.getByLabel('Quencher (required)').selectOption({ label: '+ a new compound…' });
+    await page.getByLabel('New quencher name').fill('Keyboard-amine-2');
+    await page.getByLabel('Title').fill('Keyboard set aside');
+    await page.getByRole('button', { name: 'Create study' }).click();
+    await page.getByRole('heading', { name: 'Keyboard set aside', level: 1 }).waitFor();
+    const fileControl = page.locator('input[type="file"][aria-label="Instrument file"]');
+
+    // A file with a header and no rows (tests/fixtures/uploads/README.md): refused, focus on why.
+    await fileControl.focus();
+    await fileControl.setInputFiles(path.join(import.meta.dirname, '../fixtures/uploads/bad-header-only.csv'));
+    await page
+      .getByRole('alert')
+      .filter({ hasText: /no data rows/ })
+      .waitFor();
+    await page.waitForFunction(() => document.activeElement?.querySelector('[role="alert"]') != null);
+    expect(await focused(page)).toMatch(/^div: .*no data rows/);
+
+    // A good file previewed, then set aside with the keyboard: focus back on the file control.
+    await fileControl.setInputFiles(path.join(import.meta.dirname, '../fixtures/uploads/series-comma-mM.csv'));
+    await page.waitForFunction(() => document.activeElement?.tagName === 'H3');
+    for (let presses = 0; presses < 60 && (await focused(page)) !== 'button: Set aside'; presses++)
+      await page.keyboard.press('Tab');
+    expect(await focused(page)).toBe('button: Set aside');
+    await page.keyboard.press('Enter');
+    await page.getByRole('button', { name: 'Set aside' }).waitFor({ state: 'detached' });
+    expect(await focused(page)).toBe('input: Pick a file');
+    await context.close();
+  }, 120_000);
+
+  it('when a temperature series is picked from the list, then focus goes to its reading, not the page', async () => {
+    await seedDemoData(server.sequelize);
+    const labId = (await Lab.findOne({ where: { slug: demoLabs[0].slug } }))!.id;
+    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const page = await context.newPage();
+    await signInThroughPage(page, server.baseUrl, { email: demoPeople[0]!.email, password: demoPassword });
+    await page.goto(`${server.baseUrl}/labs/${labId}/temperature`);
+    const list = page.getByRole('region', { name: 'Pairs measured at several temperatures' });
+    const first = list.getByRole('link').first();
+    await first.focus();
+    const pair = (await first.textContent())!.trim();
+    await page.keyboard.press('Enter');
+    await page.getByRole('status', { name: 'Temperature verdict' }).waitFor();
+    await page.waitForFunction(() => document.activeElement?.getAttribute('role') === 'group');
+    expect(await focused(page)).toBe(`div: Reading of ${pair}`);
+    await context.close();
+  }, 120_000);
 });

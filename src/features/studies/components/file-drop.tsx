@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type Ref } from 'react';
 import { FilePickButton } from '@/components/file-pick-button';
 
 export const ACCEPTED_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
@@ -10,11 +10,13 @@ interface Props {
   /** 0..1 while the file is being sent, else null */
   progress: number | null;
   disabled?: boolean;
+  /** the file input, for the panel to give focus back to */
+  inputRef?: Ref<HTMLInputElement>;
   onFile: (file: File) => void;
 }
 
 /** Drop an instrument export here or pick one; shows the chosen name and how much has been sent. */
-export function FileDrop({ label, fileName, progress, disabled = false, onFile }: Props) {
+export function FileDrop({ label, fileName, progress, disabled = false, inputRef, onFile }: Props) {
   const [over, setOver] = useState(false);
   return (
     <div
@@ -37,7 +39,14 @@ export function FileDrop({ label, fileName, progress, disabled = false, onFile }
         until you confirm.
       </p>
       <div className="mt-2 flex flex-wrap items-center gap-3">
-        <FilePickButton text="Pick a file" label={label} accept={ACCEPTED_FILES} disabled={disabled} onFile={onFile} />
+        <FilePickButton
+          text="Pick a file"
+          label={label}
+          accept={ACCEPTED_FILES}
+          disabled={disabled}
+          inputRef={inputRef}
+          onFile={onFile}
+        />
         <span className="text-ink-800" aria-live="polite">
           {fileName ? (
             <>

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { pointValues, type StudyPointInput } from '@shared/schemas/study-points';
 import type { UploadMapping, UploadPreview, UploadQuestionCode } from '@shared/schemas/study-uploads';
@@ -48,6 +48,18 @@ export function UploadPanel({
     // A tick answers the question about these points; points read another way ask afresh.
     setAcknowledged([]);
   };
+  // Focus never drops to the page: a refused file or fit puts it on the message saying why, and
+  // setting a file aside puts it back on the file control, the next step (WCAG 2.2, 2.4.3).
+  const fileInput = useRef<HTMLInputElement>(null);
+  const failure = useRef<HTMLDivElement>(null);
+  const failed = upload.error ?? apply.error;
+  useEffect(() => {
+    if (failed) failure.current?.focus();
+  }, [failed]);
+  const setAside = () => {
+    setPreview(null);
+    fileInput.current?.focus();
+  };
   const usable = preview !== null && preview.points.length > 0 && allAcknowledged(preview, acknowledged);
 
   const take = (mode: 'replace' | 'append') => {
@@ -81,10 +93,15 @@ export function UploadPanel({
         fileName={preview?.upload.fileName ?? (upload.isPending ? (upload.variables?.name ?? null) : null)}
         progress={upload.isPending ? (progress ?? 0) : null}
         disabled={upload.isPending}
+        inputRef={fileInput}
         onFile={(file) => upload.mutate(file, { onSuccess: show, onSettled: () => setProgress(null) })}
       />
       {upload.isPending && <p className="text-body">Reading the file…</p>}
-      {upload.isError && <FormAlert>{describeError(upload.error)}</FormAlert>}
+      {upload.isError && (
+        <div ref={failure} tabIndex={-1}>
+          <FormAlert>{describeError(upload.error)}</FormAlert>
+        </div>
+      )}
       {preview && mapping && (
         <div className="space-y-3">
           <FilePreview
@@ -98,7 +115,11 @@ export function UploadPanel({
             acknowledged={acknowledged}
             onAcknowledged={setAcknowledged}
           />
-          {apply.isError && <FormAlert>{describeError(apply.error)}</FormAlert>}
+          {apply.isError && (
+            <div ref={failure} tabIndex={-1}>
+              <FormAlert>{describeError(apply.error)}</FormAlert>
+            </div>
+          )}
           {preview.points.length > 0 && !allAcknowledged(preview, acknowledged) && (
             <p className="text-caption text-ink-600">Tick each check above to use these points.</p>
           )}
@@ -135,7 +156,7 @@ export function UploadPanel({
                   Add them to the present points
                 </Button>
               )}
-              <Button variant="quiet" onClick={() => setPreview(null)}>
+              <Button variant="quiet" onClick={setAside}>
                 Set aside
               </Button>
             </div>
