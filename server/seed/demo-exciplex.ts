@@ -10,7 +10,7 @@ import type { DemoClock } from './demo-clock';
 
 /*
  * The demo's emission spectrum matrix: INVENTED emission of the iridium emitter with the amine,
- * its band at 520 nm quenched with K_SV = 1600 M^-1 (as that study's series) and an exciplex band
+ * its band at 520 nm quenched with K_SV = 1600 M^-1 (as the series of the study it is kept with, the amine dilution study) and an exciplex band
  * at 610 nm growing as 1600[Q]/(1 + 1600[Q]), 2 nm grid from 470 to 680 nm, noise from a fixed
  * seed. Every number is made up; nothing here is a measurement.
  */

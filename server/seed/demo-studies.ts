@@ -444,5 +444,5 @@ export async function seedDemoStudies(
   clock.set(1, 11);
   await seedDemoDecays(transaction, lab, people.priya, created.get('ir-alkene-decays')!, clock);
   await seedDemoAbsorption(transaction, lab, people.priya, created.get('cz-alkene')!, clock);
-  await seedDemoExciplex(transaction, lab, people.priya, created.get('ir-amine')!, clock);
+  await seedDemoExciplex(transaction, lab, people.priya, created.get('ir-amine-dilution')!, clock);
 }

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
 import { formatEstimate, UNITS } from '@shared/format';
@@ -12,9 +12,7 @@ import { Tag } from '@/components/tag';
 import { useSession } from '@/features/auth/api/get-session';
 import { DecaysPanel } from '@/features/decays/components/decays-panel';
 import { DrivingForcePanel } from '@/features/library/components/driving-force-panel';
-import { AbsorptionPanel } from '@/features/mechanism/components/absorption-panel';
 import { MechanismPanel, type EvidenceAnchors } from '@/features/mechanism/components/mechanism-panel';
-import { SpectrumMatrixPanel } from '@/features/mechanism/components/spectrum-matrix-panel';
 import { useStudy } from '@/features/studies/api/get-study';
 import { useStudyFormOptions } from '@/features/studies/api/get-study-form-options';
 import { studiesKeys } from '@/features/studies/api/studies-keys';
@@ -40,6 +38,16 @@ import { notify } from '@/lib/notify';
 import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
+
+// The two spectra panels sit far below the fold and bring their own plots and readers: their code
+// loads after the study is on screen, keeping the study screen's first load within its budget.
+const SpectrumMatrixPanel = lazy(() =>
+  import('@/features/mechanism/components/spectrum-matrix-panel').then((m) => ({ default: m.SpectrumMatrixPanel })),
+);
+const AbsorptionPanel = lazy(() =>
+  import('@/features/mechanism/components/absorption-panel').then((m) => ({ default: m.AbsorptionPanel })),
+);
+const panelLoading = <p className="text-body">Loading…</p>;
 import type { StudyArrival } from '@/routes/new-study';
 
 /** Where the mechanism panel sends a person to add each missing piece of evidence. */
@@ -258,10 +266,14 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
         />
       </Panel>
       <Panel title="Emission by wavelength" id="emission-by-wavelength">
-        <SpectrumMatrixPanel labId={labId} studyId={study.id} editable={editable} />
+        <Suspense fallback={panelLoading}>
+          <SpectrumMatrixPanel labId={labId} studyId={study.id} editable={editable} />
+        </Suspense>
       </Panel>
       <Panel title="Absorption" id="absorption">
-        <AbsorptionPanel labId={labId} studyId={study.id} editable={editable} />
+        <Suspense fallback={panelLoading}>
+          <AbsorptionPanel labId={labId} studyId={study.id} editable={editable} />
+        </Suspense>
       </Panel>
       {editable && (
         <Panel title="Upload an instrument file">

@@ -150,9 +150,9 @@ describe('seedDemoStudies', () => {
     expect(titration.comparison.isotherm.agree).toBe(true);
   });
 
-  it('when the demo is loaded, then the iridium/amine study holds an emission matrix with a growing exciplex band', async () => {
+  it('when the demo is loaded, then the iridium/amine dilution study holds an emission matrix with a growing exciplex band', async () => {
     const study = studies.find((candidate) =>
-      candidate.title.startsWith('Demo: HL-Ir-7 (iridium) with the amine Q-amine-3 in MeCN'),
+      candidate.title.startsWith('Demo: HL-Ir-7 (iridium) with the amine Q-amine-3, stock without emitter'),
     )!;
     const matrices = await SpectrumMatrix.findAll({ where: { studyId: study.id } });
     expect(matrices.map((matrix) => matrix.title)).toEqual([demoExciplexFileName]);

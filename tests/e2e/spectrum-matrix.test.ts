@@ -63,7 +63,7 @@ describe('emission by wavelength in Chromium', () => {
       title: 'E2E spectra: pyrene/aniline',
     });
 
-    await page.getByLabel('Spectra file').setInputFiles(exciplexFile());
+    await page.getByLabel('Spectra file', { exact: true }).setInputFiles(exciplexFile());
     await page.getByRole('button', { name: 'Keep and analyse the spectra' }).click();
     const kept = page.getByRole('article', { name: 'Spectra e2e-exciplex-spectra.csv' });
     await kept.waitFor();
