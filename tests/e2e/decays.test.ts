@@ -4,6 +4,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createLabWithMembers } from '../support/accounts';
 import { createStudyThroughPage, launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
+import { pngFacts, saveFigure, svgFacts } from '../support/figures';
 import { startLiveServer } from '../support/live-server';
 import { syntheticDecay } from '../unit/engine/support/synthetic-decay';
 
@@ -54,7 +55,7 @@ afterAll(async () => {
 });
 
 describe('decays in Chromium', () => {
-  it('when a decay set is uploaded to a study, fitted, kept and used, then tau0 and the lifetime K_SV are on screen', async () => {
+  it('when a decay set is uploaded to a study, fitted, kept and used, then tau0 and the lifetime K_SV are on screen and the decay and lifetime plots save as figures', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     await signInThroughPage(page, server.baseUrl, people.researcher);
     await createStudyThroughPage(page, {
@@ -88,6 +89,39 @@ describe('decays in Chromium', () => {
     await expect.poll(() => page.getByText(/ns \(from decay e2e-decay-titration\.csv\)/).count()).toBe(1);
     await page.getByRole('figure', { name: 'Lifetime Stern–Volmer plot' }).scrollIntoViewIfNeeded();
     await shot(page, 'decays-used.png');
+
+    // The decay and the lifetime Stern–Volmer plot are saved like every other chart ("Save figure").
+    const decayPng = await saveFigure(
+      page,
+      'decay of [Q] 0 mM',
+      { kind: 'png', widthCm: 8.5, dpi: 600 },
+      screenshotDir,
+    );
+    expect(decayPng.download.suggestedFilename()).toBe('e2e-decays-ir-amine-q-0-mm-decay-85mm-600dpi.png');
+    const png = pngFacts(decayPng.file);
+    expect(png.signature).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]); // ISO/IEC 15948, 5.2
+    // 8.5 cm / 2.54 cm per inch × 600 dpi = 2008 px (common practice); 600 dpi = 23 622 pixels per metre (ISO/IEC 15948, 11.3.5.3)
+    expect(png.width).toBe(2008);
+    expect(png.pixelsPerMetre).toBe(23622);
+    expect(png.size).toBeGreaterThan(8000); // a drawn chart, not an empty canvas
+    const sternVolmerSvg = await saveFigure(
+      page,
+      'lifetime Stern–Volmer plot',
+      { kind: 'svg', widthCm: 8.5 },
+      screenshotDir,
+    );
+    expect(sternVolmerSvg.download.suggestedFilename()).toBe('e2e-decays-ir-amine-lifetime-stern-volmer-85mm.svg');
+    const svg = await svgFacts(page, sternVolmerSvg.file);
+    expect(svg.error).toBeNull();
+    expect(svg.width).toBe('8.5cm');
+    expect(svg.title).toBe('Lifetime Stern–Volmer plot');
+    expect(svg.lines).toBeGreaterThanOrEqual(1); // the line 1 + K_SV[Q]
+    // One mark per decay at its [Q] in mM, tau0/tau within 5 % of 1 + 250 M⁻¹ [Q] (the numbers the decays were made with)
+    const marks = svg.marks.filter((mark) => mark.series === 'τ0/τ');
+    expect(marks.map((mark) => mark.x)).toEqual(concentrationsMm.map((mM) => expect.closeTo(mM, 6)));
+    marks.forEach((mark, i) =>
+      expect(Math.abs(mark.y / (1 + K_SV * concentrationsMm[i]! * 1e-3) - 1)).toBeLessThan(0.05),
+    );
 
     // Refit the kept set as a tail fit from channel 160 (4 ns, 2 ns after the pulse): the study's
     // lifetimes and tau0 follow, and the screen says so. tau0 still within 1 % of 6.0 ns.

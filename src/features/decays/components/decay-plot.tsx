@@ -4,7 +4,8 @@ import { Scatter } from 'react-chartjs-2';
 import type { DecayCurves } from '@shared/schemas/decays';
 import { toNanoseconds } from '@shared/units/units';
 import { decayColours, paperUnderPlot } from './decay-chart-setup';
-import { SaveChartButtons } from '@/components/save-chart-buttons';
+import { figureFileName } from '@/components/figure-file-name';
+import { SavePngButton } from '@/components/save-png-button';
 import { lineSeries, pointSeries } from '@/components/scatter-chart';
 
 /**
@@ -23,9 +24,12 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
   const autocorrelation = (curves.autocorrelation ?? []).map((value, lag) => ({ x: lag, y: value }));
   return (
     <figure aria-label={`Decay plot of ${curves.label}`} className="space-y-2">
-      <div className="flex flex-wrap justify-end gap-x-3 gap-y-1">
-        <SaveChartButtons chart={main} name={`${title} decay`} what="Decay" />
-        <SaveChartButtons chart={residualChart} name={`${title} residuals`} what="Residuals" />
+      <div className="flex justify-end">
+        <SavePngButton
+          chart={main}
+          fileName={figureFileName(`${title} ${curves.label}`, 'decay')}
+          what={`decay of ${curves.label}`}
+        />
       </div>
       <div className="relative h-64">
         <Scatter
@@ -51,31 +55,40 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
         />
       </div>
       {residuals.length > 0 && (
-        <div className="grid gap-2 md:grid-cols-2">
-          <div className="relative h-36">
-            <Scatter
-              ref={residualChart}
-              plugins={[paperUnderPlot]}
-              data={{
-                datasets: [
-                  {
-                    label: 'Weighted residuals',
-                    data: residuals,
-                    backgroundColor: decayColours.residual,
-                    pointRadius: 1,
+        <div className="grid gap-2 md:grid-cols-2 md:items-end">
+          <div className="min-w-0 space-y-2">
+            <div className="flex justify-end">
+              <SavePngButton
+                chart={residualChart}
+                fileName={figureFileName(`${title} ${curves.label}`, 'decay-residuals')}
+                what={`weighted residuals of ${curves.label}`}
+              />
+            </div>
+            <div className="relative h-36">
+              <Scatter
+                ref={residualChart}
+                plugins={[paperUnderPlot]}
+                data={{
+                  datasets: [
+                    {
+                      label: 'Weighted residuals',
+                      data: residuals,
+                      backgroundColor: decayColours.residual,
+                      pointRadius: 1,
+                    },
+                  ],
+                }}
+                options={{
+                  maintainAspectRatio: false,
+                  animation: false,
+                  plugins: { legend: { display: false } },
+                  scales: {
+                    x: { type: 'linear', title: { display: true, text: 'time (ns)' } },
+                    y: { title: { display: true, text: '(c − m)/√m' } },
                   },
-                ],
-              }}
-              options={{
-                maintainAspectRatio: false,
-                animation: false,
-                plugins: { legend: { display: false } },
-                scales: {
-                  x: { type: 'linear', title: { display: true, text: 'time (ns)' } },
-                  y: { title: { display: true, text: '(c − m)/√m' } },
-                },
-              }}
-            />
+                }}
+              />
+            </div>
           </div>
           <div className="relative h-36">
             <Scatter

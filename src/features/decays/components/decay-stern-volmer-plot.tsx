@@ -5,7 +5,8 @@ import type { DecaySternVolmer } from '@shared/schemas/decays';
 import { formatNumber } from '@shared/format';
 import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import { decayColours, paperUnderPlot } from './decay-chart-setup';
-import { SaveChartButtons } from '@/components/save-chart-buttons';
+import { figureFileName } from '@/components/figure-file-name';
+import { SavePngButton } from '@/components/save-png-button';
 import { lineSeries, pointSeries } from '@/components/scatter-chart';
 
 /** tau0/tau against [Q] from the fitted lifetimes, with tau0 and the lifetime K_SV. */
@@ -28,8 +29,14 @@ export function DecaySternVolmerPlot({ sternVolmer, title }: { sternVolmer: Deca
             {formatNumber(sternVolmer.kSv.value, 4)} ± {formatNumber(sternVolmer.kSv.standardError, 2)} M⁻¹
           </dd>
         </div>
-        <SaveChartButtons chart={chart} name={`${title} lifetime Stern-Volmer`} what="Plot" />
       </dl>
+      <div className="flex justify-end">
+        <SavePngButton
+          chart={chart}
+          fileName={figureFileName(title, 'lifetime-stern-volmer')}
+          what="lifetime Stern–Volmer plot"
+        />
+      </div>
       <div className="relative h-56">
         <Scatter
           ref={chart}
