@@ -1,6 +1,7 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { pointAt } from '@shared/schemas/study-points';
+import { AuditEvent, Study } from '../../server/models';
 import { absorptionEvidenceForStudy } from '../../server/services/mechanism/absorption-titrations.service';
 import { signedInResearcher, type ApiClient } from '../support/accounts';
 import { createStudy } from '../support/studies';
@@ -202,5 +203,37 @@ describe('DELETE /api/labs/:labId/studies/:studyId/absorption-titrations/:titrat
     expect(file.status).toBe(404);
     const again = await client.agent.delete(`${url(study.id)}/${kept.body.id}`).set('x-csrf-token', csrf);
     expect(again.status).toBe(404);
+  });
+});
+
+describe('POST /api/labs/:labId/studies/:studyId/revisions with an absorption titration', () => {
+  it('when an approved study gets a new revision, then the revision carries the titration on the same files, and discarding it there leaves the approved one whole', async () => {
+    const study = await newStudy();
+    const kept = await send(url(study.id), titrationFile(), { emitterConcentration: '2e-5' });
+    expect(kept.status, JSON.stringify(kept.body).slice(0, 400)).toBe(201);
+    // Approval is the reviewers' (tests/api/studies.test.ts walks it); here the state is set directly.
+    await Study.update({ status: 'approved' }, { where: { id: study.id } });
+    const revision = await client.agent
+      .post(`/api/labs/${labId}/studies/${study.id}/revisions`)
+      .set('x-csrf-token', csrf);
+    expect(revision.status, JSON.stringify(revision.body).slice(0, 400)).toBe(201);
+    const copies = (await client.agent.get(url(revision.body.id))).body.items;
+    expect(copies).toHaveLength(1);
+    const { id: _keptId, studyId: _keptStudy, ...same } = kept.body;
+    expect(copies[0]).toMatchObject({ ...same, studyId: revision.body.id });
+    expect(copies[0].id).not.toBe(kept.body.id);
+    const audit = await AuditEvent.findOne({ where: { action: 'study_revision_started', targetId: revision.body.id } });
+    expect(audit!.details).toMatchObject({ copied: { decaySets: 0, spectrumMatrices: 0, absorptionTitrations: 1 } });
+
+    const gone = await client.agent.delete(`${url(revision.body.id)}/${copies[0].id}`).set('x-csrf-token', csrf);
+    expect(gone.status, JSON.stringify(gone.body)).toBe(204);
+    expect((await client.agent.get(url(revision.body.id))).body.items).toEqual([]);
+    // The approved revision still has its titration and both files, byte for byte.
+    const before = (await client.agent.get(url(study.id))).body.items;
+    expect(before.map((item: { id: string }) => item.id)).toEqual([kept.body.id]);
+    for (const file of [kept.body.file, kept.body.quencherFile]) {
+      const download = await client.agent.get(`/api/labs/${labId}/mechanism-files/${file.id}`);
+      expect(download.status).toBe(200);
+    }
   });
 });

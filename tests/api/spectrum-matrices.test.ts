@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Study } from '../../server/models';
 import { signedInResearcher, type ApiClient } from '../support/accounts';
 import { createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
@@ -138,5 +139,34 @@ describe('POST /api/labs/:labId/studies/:studyId/spectrum-matrices', () => {
     const study = await newStudy();
     const answer = await send(study.id, matrixFile(oneEmitter), undefined, 'spectra.pdf');
     expect(answer.status).toBe(415);
+  });
+});
+
+describe('POST /api/labs/:labId/studies/:studyId/revisions with a spectrum matrix', () => {
+  it('when an approved study gets a new revision, then the revision carries its matrices, newest first, on the same files', async () => {
+    const study = await newStudy();
+    const older = await send(study.id, matrixFile(oneEmitter), '10', 'one.csv');
+    expect(older.status).toBe(201);
+    const newer = await send(study.id, matrixFile(twoEmitters), '5', 'two.csv');
+    expect(newer.status).toBe(201);
+    // Approval is the reviewers' (tests/api/studies.test.ts walks it); here the state is set directly.
+    await Study.update({ status: 'approved' }, { where: { id: study.id } });
+    const revision = await client.agent
+      .post(`/api/labs/${labId}/studies/${study.id}/revisions`)
+      .set('x-csrf-token', csrf);
+    expect(revision.status, JSON.stringify(revision.body).slice(0, 400)).toBe(201);
+    const copies = (await client.agent.get(url(revision.body.id))).body.items;
+    expect(copies.map((m: { title: string }) => m.title)).toEqual(['two.csv', 'one.csv']);
+    for (const [copy, original] of [
+      [copies[0], newer.body],
+      [copies[1], older.body],
+    ]) {
+      const { id: _id, studyId: _studyId, ...same } = original;
+      expect(copy).toMatchObject({ ...same, studyId: revision.body.id });
+      expect(copy.id).not.toBe(original.id);
+    }
+    // The approved revision keeps its own two, untouched.
+    const before = (await client.agent.get(url(study.id))).body.items;
+    expect(before.map((m: { id: string }) => m.id)).toEqual([newer.body.id, older.body.id]);
   });
 });

@@ -12,10 +12,10 @@ import { AppError } from '../../lib/app-error';
 import { AbsorptionTitration, MechanismFile, StudyFit, User, type Study } from '../../models';
 import { recordAudit } from '../audit.service';
 import * as attached from '../studies/files/attached-files';
-import type { StoredLocation } from '../studies/files/raw-file-store';
 import { loadStudy, loadStudyToChange } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
 import type { AbsorptionTitrationOutcome } from './read-absorption-titration';
+import { releaseMechanismFiles } from './release-mechanism-files';
 
 export interface AbsorptionUpload {
   file: attached.ReceivedFile;
@@ -198,8 +198,9 @@ export async function listAbsorptionTitrations(lab: LabContext, studyId: string)
 }
 
 /**
- * Removes a kept titration and its files (the owner, while the study may change); the audit
- * entry keeps the files' names and SHA-256. Bytes in object storage are removed after the commit.
+ * Removes a kept titration and its files (the owner, while the study may change); a file another
+ * revision of the study still names stays. The audit entry keeps the files' names and SHA-256.
+ * Bytes in object storage are removed after the commit.
  */
 export async function discardAbsorptionTitration(
   services: UploadServices,
@@ -218,7 +219,7 @@ export async function discardAbsorptionTitration(
     if (!row) throw new AppError('absorption_titration_not_found', 'No such absorption titration in this study.', 404);
     const files = [row.file!, ...(row.quencherFile ? [row.quencherFile] : [])];
     await row.destroy({ transaction });
-    await MechanismFile.destroy({ where: { id: files.map((file) => file.id), labId: lab.id }, transaction });
+    const locations = await releaseMechanismFiles(lab.id, files, transaction);
     await recordAudit(
       actor,
       {
@@ -233,10 +234,7 @@ export async function discardAbsorptionTitration(
       },
       transaction,
     );
-    // Bytes on the rows went with them; only object storage has something left to remove.
-    return files.flatMap((file): StoredLocation[] =>
-      file.storage === 's3' && file.storageKey ? [{ storage: 's3', storageKey: file.storageKey, content: null }] : [],
-    );
+    return locations;
   });
   for (const location of locations) await services.files.discard(location);
 }

@@ -8,6 +8,7 @@ import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, requireOwner } from './study-access';
 import { copyDecaySets } from '../decays/copy-decay-sets';
+import { copySpectrumMatrices } from '../mechanism/copy-spectrum-matrices';
 import { refitStudy } from './study-fitting.service';
 import { notifyReview } from './study-mail';
 import { getStudyDetail } from './study.service';
@@ -129,6 +130,8 @@ export async function startRevision(sequelize: Sequelize, lab: LabContext, study
     const decaySets = await copyDecaySets(old.id, fresh.id, transaction);
     const copiedSet = (setId: string | null | undefined) => (setId ? (decaySets.get(setId) ?? null) : null);
     if (old.tau0DecaySetId) await fresh.update({ tau0DecaySetId: copiedSet(old.tau0DecaySetId) }, { transaction });
+    // So do the spectra behind the mechanism verdict (emission matrices and absorption titrations).
+    const spectra = await copySpectrumMatrices(old.id, fresh.id, transaction);
     const points = await StudyPoint.findAll({ where: { studyId: old.id }, order: [['position', 'ASC']], transaction });
     await StudyPoint.bulkCreate(
       points.map((point) => {
@@ -144,7 +147,15 @@ export async function startRevision(sequelize: Sequelize, lab: LabContext, study
         labId: lab.id,
         targetType: 'study',
         targetId: fresh.id,
-        details: { previousRevisionId: old.id, revision: fresh.revision },
+        details: {
+          previousRevisionId: old.id,
+          revision: fresh.revision,
+          copied: {
+            decaySets: decaySets.size,
+            spectrumMatrices: spectra.emission,
+            absorptionTitrations: spectra.absorption,
+          },
+        },
       },
       transaction,
     );
