@@ -12,7 +12,7 @@ interface PanelProps {
 export function Panel({ title, children, aside, id }: PanelProps) {
   return (
     <section id={id} aria-label={title} className="rounded-card border border-paper-200 bg-paper-50 p-5 shadow-card">
-      <header className="mb-3 flex items-baseline justify-between gap-4">
+      <header className="mb-3 flex flex-wrap items-baseline justify-between gap-x-4 gap-y-2">
         <h2 className="text-lead font-bold text-ink-900">{title}</h2>
         {aside}
       </header>

@@ -6,12 +6,17 @@ import { paths } from '@/lib/paths';
 import { TableHead } from '@/components/table-head';
 import { TableScroll } from '@/components/table-scroll';
 
-/** One row per study: the other compound, kq ± SE, K_SV, solvent, driving force, flags and review state. */
+/**
+ * One row per study: the other compound, kq ± SE, K_SV, solvent, driving force, flags and review
+ * state. Values and headings stay on one line (a number broken over four lines at 360 px reads as
+ * four numbers) and the table scrolls inside its card instead; only the flags, free text, wrap,
+ * at a readable width.
+ */
 export function ComparisonTable({ comparison, labId }: { comparison: Comparison; labId: string }) {
   const partner = comparison.side === 'emitter' ? 'Quencher' : 'Emitter';
   return (
     <TableScroll label="Comparison, scroll sideways">
-      <table className="w-full text-left text-body">
+      <table className="w-full whitespace-nowrap text-left text-body">
         <caption className="sr-only">Studies of {comparison.compound.name}</caption>
         <TableHead
           look="ruled"
@@ -44,7 +49,9 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
                   ? `${formatFixed(row.drivingForce.electronvolts, 2, { signed: true })} (${row.drivingForce.pathway === 'oxidative' ? 'ox.' : 'red.'})`
                   : 'missing'}
               </td>
-              <td className="pr-3 text-caption">{row.flags.map((flag) => flag.title).join('; ') || '—'}</td>
+              <td className="whitespace-normal py-1.5 pr-3 text-caption">
+                <div className="min-w-56">{row.flags.map((flag) => flag.title).join('; ') || '—'}</div>
+              </td>
               <td>
                 {row.status === 'approved' ? (
                   <Signal tone="good">approved</Signal>

@@ -1,0 +1,84 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
+import { demoAdmin, signedInScreens } from '../support/every-screen';
+import type { Screen } from '../support/every-screen';
+import { startLiveServer } from '../support/live-server';
+
+/*
+ * Close looks at the phone sizes that every-screen.test.ts only measures for overall width: the
+ * comparison screen at 360 px (the narrowest common Android width) with the demo data
+ * (server/seed/demo.ts). Screenshots under test-output/e2e/phone-layout/.
+ */
+let browser: Browser;
+let server: Awaited<ReturnType<typeof startLiveServer>>;
+let screens: Screen[];
+let page: Page;
+const folder = path.join(screenshotDir, 'phone-layout');
+
+beforeAll(async () => {
+  server = await startLiveServer();
+  screens = await signedInScreens(server.sequelize);
+  browser = await launchBrowser();
+  page = await browser.newPage({ viewport: { width: 360, height: 740 } });
+  await signInThroughPage(page, server.baseUrl, demoAdmin);
+  fs.mkdirSync(folder, { recursive: true });
+}, 120_000);
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+async function open(name: string) {
+  const screen = screens.find((entry) => entry.name === name)!;
+  await page.goto(server.baseUrl + screen.path);
+  await page.getByRole('heading', { name: screen.heading, level: 1 }).waitFor();
+  await page.waitForLoadState('networkidle');
+}
+
+const documentWidth = () => page.evaluate(() => document.documentElement.scrollWidth);
+
+describe('the comparison screen at 360 px', () => {
+  it('when the table is wider than the phone, then it scrolls inside its card and its values and headings stay on one line', async () => {
+    await page.setViewportSize({ width: 360, height: 740 });
+    await open('compare');
+    const card = page.getByRole('region', { name: /^Studies of / });
+    const table = card.getByRole('table');
+    await table.waitFor();
+    await page.screenshot({ path: path.join(folder, 'compare-360.png'), fullPage: true });
+    expect(await documentWidth()).toBe(360);
+    const facts = await table.evaluate((element) => {
+      const scroller = element.parentElement!;
+      const box = element.closest('section')!.getBoundingClientRect();
+      const lines = (cell: Element) => {
+        const range = document.createRange();
+        range.selectNodeContents(cell);
+        // rendered text height over the line height: 1 for one line (a pill's padding stays below 1.8)
+        return range.getBoundingClientRect().height / parseFloat(getComputedStyle(cell).lineHeight);
+      };
+      const cells = [...element.querySelectorAll('th, td')];
+      const flagColumn = [...element.querySelectorAll('thead th')].findIndex((th) => th.textContent === 'Flags');
+      const isFlag = (cell: Element) => (cell as HTMLTableCellElement).cellIndex === flagColumn;
+      return {
+        cardRight: box.right,
+        scrolls: scroller.scrollWidth > scroller.clientWidth,
+        scrollerRole: scroller.getAttribute('role'),
+        wrapped: cells.filter((cell) => !isFlag(cell) && lines(cell) >= 1.8).map((cell) => cell.textContent),
+        narrowestFlags: Math.min(
+          ...cells.filter((cell) => isFlag(cell) && cell.tagName === 'TD').map((cell) => cell.clientWidth),
+        ),
+        rows: element.querySelectorAll('tbody tr').length,
+      };
+    });
+    expect(facts.rows).toBeGreaterThanOrEqual(5); // the demo's studies of its first emitter
+    expect(facts.cardRight).toBeLessThanOrEqual(360);
+    expect(facts.scrolls).toBe(true);
+    expect(facts.scrollerRole).toBe('region'); // named and focusable, so the arrow keys scroll it
+    expect(facts.wrapped).toEqual([]);
+    // Free-text flags wrap, at 14rem (224 px) or more, not one word per line.
+    expect(facts.narrowestFlags).toBeGreaterThanOrEqual(224);
+  }, 60_000);
+});
