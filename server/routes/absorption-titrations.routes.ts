@@ -1,5 +1,4 @@
 import type { Request, Response } from 'express';
-import multer from 'multer';
 import {
   absorptionOptionsSchema,
   absorptionPreviewSchema,
@@ -9,8 +8,8 @@ import {
 } from '@shared/schemas/absorption-titrations';
 import { studyParamsSchema } from '@shared/schemas/studies';
 import { defineRoute, parsePart } from '../http/define-route';
+import { filesReceiver } from '../http/receive-files';
 import { labOf, signedInActor } from '../http/request-context';
-import { AppError } from '../lib/app-error';
 import {
   discardAbsorptionTitration,
   keepAbsorptionTitration,
@@ -18,62 +17,16 @@ import {
   previewAbsorptionTitration,
   type AbsorptionUpload,
 } from '../services/mechanism/absorption-titrations.service';
-import { ACCEPTED_EXTENSIONS, isAcceptedFile, MAX_UPLOAD_BYTES } from '../services/studies/parse/read-upload';
 
-const twoFiles = multer({
-  storage: multer.memoryStorage(),
-  defParamCharset: 'utf8',
-  limits: { fileSize: MAX_UPLOAD_BYTES, files: 2, fields: 3, fieldSize: 1024 },
-}).fields([
-  { name: 'file', maxCount: 1 },
-  { name: 'quencher', maxCount: 1 },
-]);
+const receiveSpectra = filesReceiver({ what: 'the spectra', second: 'quencher', fields: 3, fieldSize: 1024 });
 
 const FIELDS =
   'multipart fields: "file" (UV-vis spectra of the emitter: wavelength in nm in the first column, one absorbance spectrum per column with its [Q] in the header, a blank at 0 and 3 or more concentrations above it, all on one grid; or JCAMP-DX), optional "quencher" (the quencher alone on the same grid: wavelength and one column, headed with its concentration for a spectrum or starting "ε"/"epsilon" for ε in M^-1 cm^-1), optional "bandWidth" (nm, default 5, 0 for one band per wavelength), "pathLength" (cm, default 1), "emitterConcentration" (mol/L, for the exact isotherm); 20 MB per file';
 
-/** Runs multer inside the handler, checks the files' types and the options (400 naming the field). */
-function receiveTitration(req: Request, res: Response): Promise<AbsorptionUpload> {
-  if (!req.is('multipart/form-data'))
-    return Promise.reject(
-      new AppError('no_file', 'Send the spectra as multipart/form-data in a field named "file".', 400, [
-        { path: 'body.file', message: 'missing' },
-      ]),
-    );
-  return new Promise((resolve, reject) => {
-    twoFiles(req, res, (error: unknown) => {
-      if (error instanceof multer.MulterError && error.code === 'LIMIT_FILE_SIZE') {
-        req.resume();
-        return reject(
-          new AppError('file_too_large', `A file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit.`, 413),
-        );
-      }
-      if (error) return reject(new AppError('bad_upload', (error as Error).message, 400));
-      const files = (req.files ?? {}) as Record<string, Express.Multer.File[] | undefined>;
-      const file = files.file?.[0];
-      if (!file)
-        return reject(
-          new AppError('no_file', 'No spectra arrived; send them in a field named "file".', 400, [
-            { path: 'body.file', message: 'missing' },
-          ]),
-        );
-      const quencher = files.quencher?.[0] ?? null;
-      for (const sent of [file, quencher])
-        if (sent && !isAcceptedFile(sent.originalname))
-          return reject(
-            new AppError(
-              'unsupported_type',
-              `"${sent.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
-              415,
-            ),
-          );
-      try {
-        resolve({ file, quencher, options: parsePart(absorptionOptionsSchema, req.body ?? {}, 'body') });
-      } catch (problem) {
-        reject(problem as Error);
-      }
-    });
-  });
+/** The spectra, the quencher's spectrum if sent, and the options (400 naming the field). */
+async function receiveTitration(req: Request, res: Response): Promise<AbsorptionUpload> {
+  const { file, second, fields } = await receiveSpectra(req, res);
+  return { file, quencher: second, options: parsePart(absorptionOptionsSchema, fields, 'body') };
 }
 
 const readResponses = {

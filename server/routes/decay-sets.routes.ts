@@ -1,5 +1,4 @@
 import type { Request, Response } from 'express';
-import multer from 'multer';
 import type { z } from 'zod';
 import {
   applyDecaySetSchema,
@@ -22,8 +21,8 @@ import { studyParamsSchema } from '@shared/schemas/studies';
 import { studyDetailSchema } from '@shared/schemas/study-detail';
 import { defineRoute, parsePart } from '../http/define-route';
 import { sendDownload } from '../http/send-download';
+import { filesReceiver, jsonField } from '../http/receive-files';
 import { labOf, signedInActor } from '../http/request-context';
-import { AppError } from '../lib/app-error';
 import {
   decaySetCurves,
   downloadDecayFile,
@@ -36,82 +35,21 @@ import {
 import { applyDecaySet } from '../services/decays/apply-decay-set.service';
 import { refitDecaySet } from '../services/decays/refit-decay-set.service';
 import { getStudyDetail } from '../services/studies/study.service';
-import { ACCEPTED_EXTENSIONS, isAcceptedFile, MAX_UPLOAD_BYTES } from '../services/studies/parse/read-upload';
 
-const twoFiles = multer({
-  storage: multer.memoryStorage(),
-  defParamCharset: 'utf8',
-  limits: { fileSize: MAX_UPLOAD_BYTES, files: 2, fields: 2, fieldSize: 64 * 1024 },
-}).fields([
-  { name: 'file', maxCount: 1 },
-  { name: 'response', maxCount: 1 },
-]);
+const receiveDecayFiles = filesReceiver({ what: 'the decays', second: 'response', fields: 2, fieldSize: 64 * 1024 });
 
 const FIELDS =
   'multipart fields: "file" (the decays: time in the first column with its unit in the header, one counts column per decay, concentrations in the headers, a response column named IRF or response; or JCAMP-DX on a time axis), optional "response" (the instrument response as its own file), optional "options" (JSON, DecayReadOptions); 20 MB per file';
 
-/**
- * Runs multer inside the handler and checks what arrived: the decay file (and response file) of
- * an accepted type, and the options as JSON that DecayReadOptions accepts (400 naming the field).
- */
-function receiveDecays<O extends DecayReadOptions = DecayReadOptions>(
+/** The decay file (and response file) and the options as JSON that the schema accepts (400 naming the field). */
+async function receiveDecays<O extends DecayReadOptions = DecayReadOptions>(
   req: Request,
   res: Response,
   schema: z.ZodType<O> = decayReadOptionsSchema as unknown as z.ZodType<O>,
 ): Promise<Omit<DecayUpload, 'options'> & { options: O }> {
-  if (!req.is('multipart/form-data'))
-    return Promise.reject(
-      new AppError('no_file', 'Send the decays as multipart/form-data in a field named "file".', 400, [
-        { path: 'body.file', message: 'missing' },
-      ]),
-    );
-  return new Promise((resolve, reject) => {
-    twoFiles(req, res, (error: unknown) => {
-      if (error instanceof multer.MulterError && error.code === 'LIMIT_FILE_SIZE') {
-        req.resume();
-        return reject(
-          new AppError('file_too_large', `A file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit.`, 413),
-        );
-      }
-      if (error) return reject(new AppError('bad_upload', (error as Error).message, 400));
-      const files = (req.files ?? {}) as Record<string, Express.Multer.File[] | undefined>;
-      const file = files.file?.[0];
-      if (!file)
-        return reject(
-          new AppError('no_file', 'No decay file arrived; send it in a field named "file".', 400, [
-            { path: 'body.file', message: 'missing' },
-          ]),
-        );
-      const response = files.response?.[0] ?? null;
-      for (const sent of [file, response])
-        if (sent && !isAcceptedFile(sent.originalname))
-          return reject(
-            new AppError(
-              'unsupported_type',
-              `"${sent.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
-              415,
-            ),
-          );
-      const text = (req.body as Record<string, unknown> | undefined)?.options;
-      let options: unknown = {};
-      if (typeof text === 'string' && text.trim() !== '') {
-        try {
-          options = JSON.parse(text);
-        } catch {
-          return reject(
-            new AppError('validation_failed', 'The field "options" is not JSON.', 400, [
-              { path: 'body.options', message: 'not JSON' },
-            ]),
-          );
-        }
-      }
-      try {
-        resolve({ file, response, options: parsePart(schema, options, 'body.options') });
-      } catch (problem) {
-        reject(problem as Error);
-      }
-    });
-  });
+  const { file, second, fields } = await receiveDecayFiles(req, res);
+  const options = jsonField(fields, 'options') ?? {};
+  return { file, response: second, options: parsePart(schema, options, 'body.options') };
 }
 
 const readResponses = {

@@ -1,9 +1,9 @@
 import { fileReadingFieldsSchema, fileReadingSchema, fileReadingMappingSchema } from '@shared/schemas/file-reading';
 import { labParamsSchema } from '@shared/schemas/members';
+import { jsonField, receiveAcceptedFile } from '../http/receive-files';
 import { defineRoute } from '../http/define-route';
 import { AppError } from '../lib/app-error';
 import { readFileForPreview } from '../services/studies/read-file.service';
-import { receiveAcceptedFile } from './study-uploads.routes';
 
 export const fileReadingRoutes = [
   defineRoute({
@@ -32,17 +32,9 @@ export const fileReadingRoutes = [
           fields.error.issues.map((issue) => ({ path: `body.${issue.path.join('.')}`, message: issue.message })),
         );
       const { windowStart, windowEnd, emissionWavelength } = fields.data;
-      const raw = fields.data.mapping;
+      const json = jsonField(fields.data, 'mapping', 'invalid_mapping');
       let mapping = null;
-      if (typeof raw === 'string' && raw !== '') {
-        let json: unknown;
-        try {
-          json = JSON.parse(raw);
-        } catch {
-          throw new AppError('invalid_mapping', 'The mapping field is not JSON.', 400, [
-            { path: 'body.mapping', message: 'not JSON' },
-          ]);
-        }
+      if (json !== undefined) {
         const parsed = fileReadingMappingSchema.safeParse(json);
         if (!parsed.success)
           throw new AppError('invalid_mapping', 'The mapping is not one Halflight understands.', 400, [

@@ -12,6 +12,7 @@ import {
   spectrumMatrixSchema,
 } from '@shared/schemas/spectrum-matrices';
 import { studyParamsSchema } from '@shared/schemas/studies';
+import { receiveAcceptedFile } from '../http/receive-files';
 import { defineRoute, parsePart } from '../http/define-route';
 import { labOf, signedInActor } from '../http/request-context';
 import { sendDownload } from '../http/send-download';
@@ -22,7 +23,6 @@ import {
 } from '../services/mechanism/spectrum-matrices.service';
 import { mechanismEvidence } from '../services/mechanism/mechanism-evidence.service';
 import { analyseSeries, listTemperatureSeries } from '../services/mechanism/temperature-series.service';
-import { receiveAcceptedFile } from './study-uploads.routes';
 
 export const mechanismRoutes = [
   defineRoute({

@@ -1,5 +1,3 @@
-import type { Request, Response } from 'express';
-import multer from 'multer';
 import { studyParamsSchema } from '@shared/schemas/studies';
 import {
   applyUploadSchema,
@@ -10,62 +8,10 @@ import {
 import { studyDetailSchema } from '@shared/schemas/study-detail';
 import { defineRoute } from '../http/define-route';
 import { sendDownload } from '../http/send-download';
+import { receiveAcceptedFile } from '../http/receive-files';
 import { labOf, signedInActor } from '../http/request-context';
-import { AppError } from '../lib/app-error';
-import { ACCEPTED_EXTENSIONS, isAcceptedFile, MAX_UPLOAD_BYTES } from '../services/studies/parse/read-upload';
 import { applyUpload, downloadUpload, previewUpload, receiveUpload } from '../services/studies/study-upload.service';
 import { getStudyDetail } from '../services/studies/study.service';
-
-const single = multer({
-  storage: multer.memoryStorage(),
-  // Browsers send UTF-8 names without saying so; multer's default (latin1) turned "μM" into "Î¼M".
-  defParamCharset: 'utf8',
-  limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 },
-}).single('file');
-
-/** Runs multer inside the handler (memory storage, 20 MB), so the route stays one defineRoute spec. */
-export function receiveFile(req: Request, res: Response): Promise<Express.Multer.File> {
-  if (!req.is('multipart/form-data')) {
-    return Promise.reject(
-      new AppError('no_file', 'Send the file as multipart/form-data in a field named "file".', 400, [
-        { path: 'body.file', message: 'missing' },
-      ]),
-    );
-  }
-  return new Promise((resolve, reject) => {
-    single(req, res, (error: unknown) => {
-      if (error instanceof multer.MulterError && error.code === 'LIMIT_FILE_SIZE') {
-        req.resume(); // read the rest, so the client gets the answer rather than a reset connection
-        reject(
-          new AppError(
-            'file_too_large',
-            `The file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit.`,
-            413,
-          ),
-        );
-      } else if (error) reject(new AppError('bad_upload', (error as Error).message, 400));
-      else if (!req.file)
-        reject(
-          new AppError('no_file', 'No file arrived; send it in a field named "file".', 400, [
-            { path: 'body.file', message: 'missing' },
-          ]),
-        );
-      else resolve(req.file);
-    });
-  });
-}
-
-/** receiveFile, then 415 unless the file is of a type Halflight reads (by its extension). */
-export async function receiveAcceptedFile(req: Request, res: Response): Promise<Express.Multer.File> {
-  const file = await receiveFile(req, res);
-  if (!isAcceptedFile(file.originalname))
-    throw new AppError(
-      'unsupported_type',
-      `"${file.originalname}" is not a file type Halflight reads; send ${ACCEPTED_EXTENSIONS.join(', ')}.`,
-      415,
-    );
-  return file;
-}
 
 export const studyUploadRoutes = [
   defineRoute({
