@@ -19,10 +19,12 @@ declare module 'express-session' {
     twoFactorVerified?: boolean;
     /** A new authenticator secret waiting for its first code. */
     totpSetupSecret?: string;
+    /** When the idle expiry last moved (ms since the epoch); see slidingExpiry. */
+    activeAt?: number;
   }
 }
 
-/** Idle timeout (the cookie rolls with each request) and the absolute lifetime of a sign-in. */
+/** Idle timeout (it slides with use, see slidingExpiry) and the absolute lifetime of a sign-in. */
 export const sessionIdleMs = 12 * 60 * 60_000;
 export const sessionAbsoluteMs = 7 * 24 * 60 * 60_000;
 
@@ -46,38 +48,59 @@ export function enforceSessionLifetime(absoluteMs = sessionAbsoluteMs): RequestH
 /** Session store connections per process: for read requests, and kept for requests that write. */
 export const defaultSessionPools = { read: 5, write: 2 };
 
-/** How often a session in active use has its expiry moved in the store (the idle timeout is 12 hours). */
-const touchEveryMs = 5 * 60_000;
+/** How often a session in active use has its expiry moved (the idle timeout is 12 hours). */
+export const sessionSlideEveryMs = 5 * 60_000;
+
+type StoredSession = session.Session & Partial<session.SessionData>;
+
+/** The session's own fields, without its cookie and the slide mark: what a slide leaves alone. */
+const fieldsOf = (sess: StoredSession) => {
+  const { cookie: _cookie, activeAt: _activeAt, ...rest } = sess;
+  return JSON.stringify(rest);
+};
 
 /**
- * express-session touches the store after every request of a signed-in person to move the
- * expiry: an UPDATE (and a WAL flush) per request, the largest share of a read's database work.
- * This moves it at most every five minutes per session and process, so the idle timeout ends up
- * to five minutes early, never late. Sessions touched recently are remembered in this process only
- * (a bounded map; another instance touches on its own schedule), so nothing here is shared state.
+ * The idle timeout slides, but not on every request: a rolling cookie costs a Set-Cookie on every
+ * answer and (with express-session's touch) a store write per request, the largest share of a
+ * read's database work. Instead the expiry moves when the stored one (kept in the session's own
+ * cookie data, so every instance agrees) is more than five minutes old: the mark `activeAt`
+ * changes, so express-session saves the session and sends the cookie with the new expiry once.
+ * The idle timeout thus ends up to five minutes early, never late. A fresh session costs a read
+ * GET nothing beyond reading its row.
+ *
+ * Such a save only moves the expiry (an UPDATE of an existing row, never an insert, and none of
+ * the other fields), so a request that was already running when the session was signed out, ended
+ * from another browser or changed by another request cannot bring it back or undo the change.
  */
-function throttleTouches(store: session.Store): void {
-  const touchedAt = new Map<string, number>();
-  const remember = (sid: string) => {
-    if (touchedAt.size >= 50_000) touchedAt.clear();
-    touchedAt.set(sid, Date.now());
-  };
-  const touch = store.touch!.bind(store);
+function slidingExpiry(store: session.Store, pool: pg.Pool): RequestHandler {
+  const slideOnly = new WeakMap<object, string>();
   const set = store.set.bind(store);
-  const destroy = store.destroy.bind(store);
-  store.touch = (sid, data, callback) => {
-    const last = touchedAt.get(sid);
-    if (last !== undefined && Date.now() - last < touchEveryMs) return callback?.();
-    remember(sid);
-    touch(sid, data, callback);
-  };
   store.set = (sid, data, callback) => {
-    remember(sid);
-    set(sid, data, callback);
+    const sess = data as StoredSession;
+    const before = slideOnly.get(sess);
+    if (before === undefined || before !== fieldsOf(sess)) return set(sid, data, callback);
+    const expires = sess.cookie.expires ?? new Date(Date.now() + sessionIdleMs);
+    pool
+      .query(
+        `UPDATE sessions SET expire = $3,
+           sess = jsonb_set(jsonb_set(sess::jsonb, '{cookie}', $2::jsonb), '{activeAt}', to_jsonb($4::bigint))::json
+         WHERE sid = $1`,
+        [sid, JSON.stringify(sess.cookie), expires, sess.activeAt],
+      )
+      .then(
+        () => callback?.(),
+        (error: unknown) => callback?.(error),
+      );
   };
-  store.destroy = (sid, callback) => {
-    touchedAt.delete(sid);
-    destroy(sid, callback);
+  return (req, _res, next) => {
+    const sess = req.session as StoredSession | undefined;
+    const expires = sess?.cookie.expires;
+    // A session made by this request expires a whole idle timeout from now: nothing to move.
+    if (sess && expires && expires.getTime() - Date.now() < sessionIdleMs - sessionSlideEveryMs) {
+      slideOnly.set(sess, fieldsOf(sess));
+      sess.activeAt = Date.now();
+    }
+    next();
   };
 }
 
@@ -125,18 +148,22 @@ export function createSessionMiddleware(options: {
     tableName: 'sessions',
     createTableIfMissing: false,
     pruneSessionInterval: 15 * 60,
+    // The expiry moves with slidingExpiry, not with a write after every request.
+    disableTouch: true,
     errorLog: (message: string, error?: unknown) => options.logger.warn({ err: error }, message),
   });
-  throttleTouches(store);
-  const middleware = session({
-    name: cookieName,
-    secret: options.secret,
-    store,
-    resave: false,
-    saveUninitialized: false,
-    rolling: true,
-    cookie: { httpOnly: true, sameSite: 'lax', secure: options.secure, maxAge: sessionIdleMs, path: '/' },
-  });
+  const middleware = [
+    session({
+      name: cookieName,
+      secret: options.secret,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: false,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: options.secure, maxAge: sessionIdleMs, path: '/' },
+    }),
+    slidingExpiry(store, pool),
+  ];
   return {
     middleware,
     cookieName,

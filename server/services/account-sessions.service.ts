@@ -18,7 +18,8 @@ export async function listAccountSessions(
       id: publicSessionId(session.sid),
       current: session.sid === currentSid,
       signedInAt: session.signedInAt ? new Date(session.signedInAt).toISOString() : null,
-      // The cookie rolls: expiry minus the idle timeout is when the last request came.
+      // The expiry slides with use (at most five minutes behind): expiry minus the idle timeout is
+      // when the latest request came, to within those five minutes.
       lastActiveAt: new Date(session.expire.getTime() - sessionIdleMs).toISOString(),
       endsAt: new Date(
         Math.min(session.expire.getTime(), (session.signedInAt ?? Date.now()) + sessionAbsoluteMs),

@@ -107,7 +107,7 @@ export const accountSessionSchema = z
     id: z.string().describe('A public handle of the session (not its cookie)'),
     current: z.boolean().describe('True for the session making this request'),
     signedInAt: z.string().nullable().describe('ISO 8601 time of the sign-in'),
-    lastActiveAt: z.string().describe('ISO 8601 time of the latest request (within a minute or so)'),
+    lastActiveAt: z.string().describe('ISO 8601 time of the latest request (to within five minutes)'),
     endsAt: z.string().describe('ISO 8601 time the session ends at the latest (absolute lifetime)'),
     userAgent: z.string().nullable(),
     ip: z.string().nullable(),
