@@ -11,6 +11,7 @@ export {
 } from './format-number';
 export { estimateParts, formatEstimate, formatInterval, uncertaintyDigit, type EstimateParts } from './format-estimate';
 export { titled, UNITS, type UnitText } from './quantity-units';
+export { SYMBOLS, symbolPlain, symbolText, type SubscriptedSymbol } from './quantity-symbols';
 export { formatDate, formatDateTime, isoDate, isoDateTime } from './format-date';
 export {
   fitParameterLines,

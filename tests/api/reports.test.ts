@@ -73,6 +73,10 @@ describe('lab summary reports', () => {
     // Driving forces and axis ticks below zero with the true minus sign U+2212 (typeset practice).
     for (const text of [scenarioText, comparisonText]) expect(text).not.toMatch(/(?<![\w.])-\d/);
     expect(comparisonText).toMatch(/−\d/);
+    // The driving force in the table header and on the chart's axis as ΔG with subscript e and t
+    // (U+2091, U+209C, Unicode's subscript letters; there are no capital ones), never ΔG_ET.
+    expect(comparisonText).toContain('ΔG\u2091\u209c (eV)');
+    expect(comparisonText).not.toContain('ΔG_ET');
   });
 
   it('when a scenario and a comparison are reported, then each PDF draws its chart in the screen colours', async () => {

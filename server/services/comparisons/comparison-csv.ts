@@ -1,5 +1,5 @@
 import type { Comparison } from '@shared/schemas/comparisons';
-import { titled, UNITS } from '@shared/format';
+import { SYMBOLS, symbolPlain, titled, UNITS } from '@shared/format';
 import { csvTable } from '../../lib/csv-cells';
 
 /** The comparison table as CSV, SI units in the headers; approved results are marked in their own column. */
@@ -15,9 +15,9 @@ export function comparisonCsv(comparison: Comparison): string {
     titled('kq SE', UNITS.perMolarPerSecond),
     titled('K_SV', UNITS.perMolar),
     titled('K_SV SE', UNITS.perMolar),
-    titled('ΔG_ET', UNITS.electronvolt),
+    titled(symbolPlain(SYMBOLS.drivingForce), UNITS.electronvolt),
     'pathway',
-    titled('ΔG_ET with Coulomb term', UNITS.electronvolt),
+    titled(`${symbolPlain(SYMBOLS.drivingForce)} with Coulomb term`, UNITS.electronvolt),
     'flags',
   ];
   const rows = comparison.rows.map((row) => [

@@ -1,4 +1,4 @@
-import { formatNumber, UNITS } from '@shared/format';
+import { formatNumber, SYMBOLS, symbolText, UNITS } from '@shared/format';
 import type { Comparison } from '@shared/schemas/comparisons';
 import type { Scenario } from '@shared/schemas/scenarios';
 import type { Pdf } from './pdf-document';
@@ -195,7 +195,7 @@ function legend(
 }
 
 /**
- * log₁₀ kq against ΔG_ET, one hue per solvent as on screen: filled points for approved results,
+ * log₁₀ kq against ΔGₑₜ, one hue per solvent as on screen: filled points for approved results,
  * open ones for the rest, the fitted Rehm–Weller/Marcus curve and the diffusion limit dashed.
  */
 export function drawComparisonChart(doc: Pdf, comparison: Comparison): void {
@@ -214,7 +214,14 @@ export function drawComparisonChart(doc: Pdf, comparison: Comparison): void {
   ]);
   const x = niceScale(Math.min(...xs), Math.max(...xs));
   const y = niceScale(Math.min(...ys), Math.max(...ys));
-  drawAxes(doc, box, x, y, `ΔG_ET (${UNITS.electronvolt})`, `log₁₀ kq (kq in ${UNITS.perMolarPerSecond})`);
+  drawAxes(
+    doc,
+    box,
+    x,
+    y,
+    `${symbolText(SYMBOLS.drivingForce)} (${UNITS.electronvolt})`,
+    `log₁₀ kq (kq in ${UNITS.perMolarPerSecond})`,
+  );
   const at = plotArea(box, x, y);
   const keys: Array<{ label: string; colour: string; open?: boolean; dashed?: boolean }> = [];
   trends.forEach((trend, index) => {

@@ -1,4 +1,13 @@
-import { formatEstimate, formatFixed, formatNumber, isoDateTime, titled, UNITS } from '@shared/format';
+import {
+  formatEstimate,
+  formatFixed,
+  formatNumber,
+  isoDateTime,
+  SYMBOLS,
+  symbolText,
+  titled,
+  UNITS,
+} from '@shared/format';
 import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import type { LabContext } from '../../domain/lab-context';
 import { compare } from '../comparisons/comparison.service';
@@ -68,7 +77,7 @@ export async function comparisonReport(
       titled('kq', UNITS.perMolarPerSecond),
       titled('K_SV', UNITS.perMolar),
       'Solvent',
-      titled('ΔG_ET', UNITS.electronvolt),
+      titled(symbolText(SYMBOLS.drivingForce), UNITS.electronvolt),
       'Status',
       'Flags',
     ],

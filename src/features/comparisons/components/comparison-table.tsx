@@ -1,7 +1,8 @@
 import { Link } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
-import { formatEstimate, formatFixed, formatNumber, UNITS } from '@shared/format';
+import { formatEstimate, formatFixed, formatNumber, SYMBOLS, UNITS } from '@shared/format';
 import { Signal } from '@/components/signal';
+import { Subscripted } from '@/components/subscripted';
 import { paths } from '@/lib/paths';
 import { TableHead } from '@/components/table-head';
 import { TableScroll } from '@/components/table-scroll';
@@ -25,7 +26,9 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
             `kq (${UNITS.perMolarPerSecond})`,
             `K_SV (${UNITS.perMolar})`,
             'Solvent',
-            `ΔG_ET (${UNITS.electronvolt})`,
+            <>
+              <Subscripted symbol={SYMBOLS.drivingForce} /> ({UNITS.electronvolt})
+            </>,
             'Flags',
             'Review',
           ]}

@@ -1,4 +1,4 @@
-import { formatEstimate, UNITS } from '@shared/format';
+import { formatEstimate, SYMBOLS, symbolText, UNITS } from '@shared/format';
 import { useNavigate } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
 import { chartColours } from '@/components/chart-theme';
@@ -68,7 +68,7 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
       data={{ datasets: datasets as never }}
       options={{
         scales: {
-          x: linearAxis(`ΔG_ET (${UNITS.electronvolt})`),
+          x: linearAxis(`${symbolText(SYMBOLS.drivingForce)} (${UNITS.electronvolt})`),
           y: linearAxis(`log₁₀ kq (${UNITS.perMolarPerSecond})`),
         },
         onClick: (_event, elements, chart) => {
