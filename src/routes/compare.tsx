@@ -63,7 +63,7 @@ export function CompareRoute() {
         </p>
       </ScreenHeader>
       <Panel title="What to compare">
-        <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
+        <div className="grid grid-cols-1 gap-3 sm:grid-cols-2 lg:grid-cols-4">
           <SelectField
             label="Look at one"
             value={query.side}
@@ -85,7 +85,7 @@ export function CompareRoute() {
             onChange={(event) => set({ sort: event.target.value })}
             options={sorts}
           />
-          <label className="mt-7 flex items-center gap-2 text-body">
+          <label className="flex items-center gap-2 text-body sm:mt-7">
             <input
               type="checkbox"
               checked={query.approvedOnly}

@@ -81,4 +81,32 @@ describe('the comparison screen at 360 px', () => {
     // Free-text flags wrap, at 14rem (224 px) or more, not one word per line.
     expect(facts.narrowestFlags).toBeGreaterThanOrEqual(224);
   }, 60_000);
+
+  it('when the choices are drawn, then each drop-down is wide enough for the option it shows', async () => {
+    await page.setViewportSize({ width: 360, height: 740 });
+    await open('compare');
+    const choices = page.getByRole('region', { name: 'What to compare' });
+    for (const label of ['Look at one', 'Emitter', 'Order by']) {
+      const select = choices.getByLabel(label, { exact: true });
+      const fit = await select.evaluate((element: HTMLSelectElement) => {
+        const style = getComputedStyle(element);
+        const probe = document.createElement('span');
+        probe.style.cssText = `position:absolute;visibility:hidden;white-space:pre;font:${style.font}`;
+        probe.textContent = element.selectedOptions[0]!.text;
+        document.body.append(probe);
+        const text = probe.getBoundingClientRect().width;
+        probe.remove();
+        // the room for text: the box less its padding and the drop-down arrow (about 1em, common practice)
+        const room =
+          element.clientWidth -
+          parseFloat(style.paddingLeft) -
+          parseFloat(style.paddingRight) -
+          parseFloat(style.fontSize);
+        return { text, room, right: element.getBoundingClientRect().right };
+      });
+      expect(fit.text, label).toBeLessThanOrEqual(fit.room);
+      expect(fit.right, label).toBeLessThanOrEqual(360);
+    }
+    await choices.screenshot({ path: path.join(folder, 'compare-choices-360.png') });
+  }, 60_000);
 });
