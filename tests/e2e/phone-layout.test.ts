@@ -9,8 +9,9 @@ import { startLiveServer } from '../support/live-server';
 
 /*
  * Close looks at the phone sizes that every-screen.test.ts only measures for overall width: the
- * comparison screen at 360 px (the narrowest common Android width) with the demo data
- * (server/seed/demo.ts). Screenshots under test-output/e2e/phone-layout/.
+ * comparison screen at 360 px (the narrowest common Android width), and every screen with charts
+ * narrowed from 1440 to 390 px without a reload, with the demo data (server/seed/demo.ts).
+ * Screenshots under test-output/e2e/phone-layout/.
  */
 let browser: Browser;
 let server: Awaited<ReturnType<typeof startLiveServer>>;
@@ -109,4 +110,39 @@ describe('the comparison screen at 360 px', () => {
     }
     await choices.screenshot({ path: path.join(folder, 'compare-choices-360.png') });
   }, 60_000);
+});
+
+describe('charts when the window narrows', () => {
+  it('when a screen with charts goes from 1440 to 390 px wide without a reload, then every chart shrinks to the window', async () => {
+    const problems: string[] = [];
+    let checked = 0;
+    for (const screen of screens) {
+      await page.setViewportSize({ width: 1440, height: 900 });
+      await open(screen.name);
+      const canvases = page.locator('#main canvas');
+      // charts are drawn after the first paint and some panels load after the screen
+      await page.waitForTimeout(500);
+      const wide = await canvases.evaluateAll((all) => all.map((canvas) => canvas.getBoundingClientRect().width));
+      if (wide.length === 0) continue;
+      checked += 1;
+      await page.setViewportSize({ width: 390, height: 844 });
+      const settled = async () => {
+        const narrow = await canvases.evaluateAll((all) =>
+          all.map((canvas) => Math.round(canvas.getBoundingClientRect().right)),
+        );
+        return { page: await documentWidth(), widest: Math.max(...narrow) };
+      };
+      try {
+        await expect.poll(settled, { timeout: 5_000 }).toEqual({ page: 390, widest: expect.any(Number) });
+        const { widest } = await settled();
+        if (widest > 390) problems.push(`${screen.name}: a chart ends at ${widest} px`);
+      } catch {
+        const { page: width, widest } = await settled();
+        problems.push(`${screen.name}: page ${width} px wide, a chart ends at ${widest} px (wide: ${wide.join(', ')})`);
+        await page.screenshot({ path: path.join(folder, `narrowed-${screen.name}.png`), fullPage: true });
+      }
+    }
+    expect(checked).toBeGreaterThanOrEqual(4); // two studies, the comparison, the scenario, the temperature series
+    expect(problems).toEqual([]);
+  }, 240_000);
 });
