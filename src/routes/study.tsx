@@ -10,7 +10,6 @@ import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
 import { Tag } from '@/components/tag';
 import { useSession } from '@/features/auth/api/get-session';
-import { DecaysPanel } from '@/features/decays/components/decays-panel';
 import { DrivingForcePanel } from '@/features/library/components/driving-force-panel';
 import { MechanismPanel, type EvidenceAnchors } from '@/features/mechanism/components/mechanism-panel';
 import { useStudy } from '@/features/studies/api/get-study';
@@ -46,6 +45,11 @@ const SpectrumMatrixPanel = lazy(() =>
 );
 const AbsorptionPanel = lazy(() =>
   import('@/features/mechanism/components/absorption-panel').then((m) => ({ default: m.AbsorptionPanel })),
+);
+// The decays panel sits below the points and shares its plots with the library's decay flow: it
+// loads after the study too.
+const DecaysPanel = lazy(() =>
+  import('@/features/decays/components/decays-panel').then((m) => ({ default: m.DecaysPanel })),
 );
 const panelLoading = <p className="text-body">Loading…</p>;
 import type { StudyArrival } from '@/routes/new-study';
@@ -249,21 +253,23 @@ function StudyScreen({ labId, labName, isDemo, study, isOwner, userId, canWrite,
         )}
       </Panel>
       <Panel title="Lifetimes from decays" id="lifetimes-from-decays">
-        <DecaysPanel
-          labId={labId}
-          study={study}
-          editable={editable}
-          onApplied={(next) => {
-            queryClient.setQueryData(studiesKeys.detail(labId, study.id), next);
-            void queryClient.invalidateQueries({ queryKey: studiesKeys.history(labId, study.id) });
-            void queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) });
-          }}
-          onRefitted={() => {
-            void queryClient.invalidateQueries({ queryKey: studiesKeys.detail(labId, study.id) });
-            void queryClient.invalidateQueries({ queryKey: studiesKeys.history(labId, study.id) });
-            void queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) });
-          }}
-        />
+        <Suspense fallback={panelLoading}>
+          <DecaysPanel
+            labId={labId}
+            study={study}
+            editable={editable}
+            onApplied={(next) => {
+              queryClient.setQueryData(studiesKeys.detail(labId, study.id), next);
+              void queryClient.invalidateQueries({ queryKey: studiesKeys.history(labId, study.id) });
+              void queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) });
+            }}
+            onRefitted={() => {
+              void queryClient.invalidateQueries({ queryKey: studiesKeys.detail(labId, study.id) });
+              void queryClient.invalidateQueries({ queryKey: studiesKeys.history(labId, study.id) });
+              void queryClient.invalidateQueries({ queryKey: studiesKeys.lists(labId) });
+            }}
+          />
+        </Suspense>
       </Panel>
       <Panel title="Emission by wavelength" id="emission-by-wavelength">
         <Suspense fallback={panelLoading}>
