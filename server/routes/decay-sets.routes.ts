@@ -28,8 +28,10 @@ import {
   downloadDecayFile,
   keepLibraryDecay,
   keepStudyDecaySet,
+  listCompoundDecaySets,
   listStudyDecaySets,
   previewDecaySet,
+  previewLibraryDecay,
   type DecayUpload,
 } from '../services/decays/decay-sets.service';
 import { applyDecaySet } from '../services/decays/apply-decay-set.service';
@@ -192,6 +194,41 @@ export const decaySetRoutes = [
     },
     handler: async ({ req, res, params, body }) => {
       res.json(await refitDecaySet(req.app.locals.services, labOf(req), params.setId, body, signedInActor(req)));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/compounds/:compoundId/decay-lifetimes/preview',
+    summary: `Read and fit one decay of an emitter as chosen, before it becomes a library lifetime; keeps nothing (${FIELDS})`,
+    tags: ['decays'],
+    access: { lab: 'researcher' },
+    request: { params: compoundDecayParamsSchema },
+    responses: {
+      200: {
+        description: 'The file as read and its decay fitted; a file with other than one decay gets a question',
+        schema: decayPreviewSchema,
+      },
+      ...readResponses,
+      404: { description: 'No such compound' },
+    },
+    handler: async ({ req, res, params }) => {
+      const upload = await receiveDecays(req, res);
+      res.json(await previewLibraryDecay(req.app.locals.services, labOf(req), params.compoundId, upload));
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api/labs/:labId/compounds/:compoundId/decay-sets',
+    summary: "A compound's decay sets, newest first: each the decay a library lifetime record was fitted from",
+    tags: ['decays'],
+    access: { lab: 'viewer' },
+    request: { params: compoundDecayParamsSchema },
+    responses: {
+      200: { description: 'The sets', schema: decaySetListSchema },
+      404: { description: 'No such compound' },
+    },
+    handler: async ({ req, res, params }) => {
+      res.json({ items: await listCompoundDecaySets(labOf(req), params.compoundId) });
     },
   }),
   defineRoute({

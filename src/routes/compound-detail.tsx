@@ -1,5 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
-import type { ReactNode } from 'react';
+import { lazy, Suspense, type ReactNode } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import { ErrorNotice } from '@/components/error-notice';
 import { FormAlert } from '@/components/form-alert';
@@ -9,6 +9,7 @@ import { useSession } from '@/features/auth/api/get-session';
 import { useCompound } from '@/features/library/api/get-compound';
 import { useDeleteMeasurement, type MeasurementSegment } from '@/features/library/api/delete-measurement';
 import { useLabSettings } from '@/features/library/api/get-lab-settings';
+import { libraryKeys } from '@/features/library/api/library-keys';
 import { CompoundHeader } from '@/features/library/components/compound-header';
 import { EnergiesTable } from '@/features/library/components/energies-table';
 import { EnergyForm } from '@/features/library/components/energy-form';
@@ -24,6 +25,11 @@ import { paths } from '@/lib/paths';
 import { can } from '@/lib/policy';
 import { useLab } from '@/routes/lab-context';
 import { Tag } from '@/components/tag';
+
+// The decay flow brings its plots and model picker: its code loads only when a compound is opened.
+const LibraryDecays = lazy(() =>
+  import('@/features/decays/components/library-decays').then((m) => ({ default: m.LibraryDecays })),
+);
 
 /** One compound: potentials in the lab's reference with the originals, excited-state potentials, lifetimes, E00, driving force. */
 export function CompoundDetailRoute() {
@@ -108,6 +114,18 @@ export function CompoundDetailRoute() {
               <LifetimeForm labId={labId} compoundId={data.id} defaultSolvent={solvent} />
             </AddSection>
           )}
+          <AddSection id="lifetime-from-decay" title="Lifetimes from decay files">
+            <Suspense fallback={<p className="text-body">Loading…</p>}>
+              <LibraryDecays
+                labId={labId}
+                compoundId={data.id}
+                compoundName={data.name}
+                defaultSolvent={solvent}
+                canAdd={canAdd}
+                onKept={() => void queryClient.invalidateQueries({ queryKey: libraryKeys.detail(labId, data.id) })}
+              />
+            </Suspense>
+          </AddSection>
         </Panel>
       )}
       <Panel title="Driving force with a partner">

@@ -358,6 +358,54 @@ describe('POST /api/labs/:labId/compounds/:compoundId/decay-lifetimes', () => {
     expect(record.uncertainty).toBe(answer.body.outcomes[0].lifetime.standardError);
   });
 
+  it('when one decay is previewed for the library, then it is fitted, nothing is kept, and the compound lists the set only once kept', async () => {
+    const study = await newStudy();
+    const compound = `/api/labs/${labId}/compounds/${study.emitter.id}`;
+    const preview = await send(`${compound}/decay-lifetimes/preview`, single(), conditions);
+    expect(preview.status, JSON.stringify(preview.body).slice(0, 400)).toBe(200);
+    expect(preview.body.questions).toEqual([]);
+    expect(preview.body.outcomes).toHaveLength(1);
+    // The generator's 5.0 ns within 1 % (the tau the decay was made with).
+    expect(Math.abs(preview.body.outcomes[0].lifetime.value / TAU0 - 1)).toBeLessThan(0.01);
+    expect(preview.body.shown.counts).toHaveLength(CHANNELS);
+    expect((await client.get(`${compound}/decay-sets`).expect(200)).body.items).toEqual([]);
+    expect((await client.get(compound).expect(200)).body.lifetimes).toEqual([]);
+
+    const kept = await send(`${compound}/decay-lifetimes`, single(), conditions, { name: 'emitter-decay.csv' });
+    expect(kept.status).toBe(201);
+    const listed = (await client.get(`${compound}/decay-sets`).expect(200)).body.items;
+    expect(listed).toHaveLength(1);
+    expect(listed[0]).toMatchObject({
+      id: kept.body.id,
+      lifetimeId: kept.body.lifetimeId,
+      compoundId: study.emitter.id,
+      studyId: null,
+      file: { fileName: 'emitter-decay.csv', sha256: crypto.createHash('sha256').update(single()).digest('hex') },
+    });
+  });
+
+  it('when a file of several decays is previewed for the library, then the preview asks for one decay', async () => {
+    const study = await newStudy();
+    const preview = await send(
+      `/api/labs/${labId}/compounds/${study.emitter.id}/decay-lifetimes/preview`,
+      titrationFile(),
+      conditions,
+    );
+    expect(preview.status).toBe(200);
+    expect(preview.body.questions).toEqual([
+      'A library lifetime comes from one decay, and the file holds 4; mark the others "ignore".',
+    ]);
+  });
+
+  it('when the compound is of another lab or unknown, then the preview and the list answer 404', async () => {
+    const unknown = crypto.randomUUID();
+    expect(
+      (await send(`/api/labs/${labId}/compounds/${unknown}/decay-lifetimes/preview`, single()).expect(404)).body.error
+        .code,
+    ).toBe('not_found');
+    await client.get(`/api/labs/${labId}/compounds/${unknown}/decay-sets`).expect(404);
+  });
+
   it('when the file holds several decays, then 422 and neither a set nor a lifetime is kept', async () => {
     const study = await newStudy();
     const before = (await client.get(`/api/labs/${labId}/compounds/${study.emitter.id}`).expect(200)).body.lifetimes;

@@ -341,6 +341,15 @@ const matrix: Record<string, Row> = {
     body: {},
     expected: labRoute('researcher', 400),
   },
+  'POST /api/labs/:labId/compounds/:compoundId/decay-lifetimes/preview': {
+    path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}/decay-lifetimes/preview`,
+    body: {},
+    expected: labRoute('researcher', 400),
+  },
+  'GET /api/labs/:labId/compounds/:compoundId/decay-sets': {
+    path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}/decay-sets`,
+    expected: labRoute('viewer', 404),
+  },
   'POST /api/labs/:labId/compounds/:compoundId/decay-lifetimes': {
     path: ({ labId }) => `/api/labs/${labId}/compounds/${unknownId}/decay-lifetimes`,
     body: {},

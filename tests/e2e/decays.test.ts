@@ -1,3 +1,4 @@
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
@@ -138,6 +139,73 @@ describe('decays in Chromium', () => {
       .toMatch(/^(5\.9|6\.0)\d* ± /);
     await kept.getByRole('status').scrollIntoViewIfNeeded();
     await shot(page, 'decays-refitted.png');
+    await page.close();
+  });
+
+  it('when one decay of an emitter is fitted on its library page and kept, then its lifetime record is within 1 % of the generated tau and names its file', async () => {
+    // tau = 4.2 ns (invented), convolved with a 150 ps Gaussian response, Poisson noise, peak 10^4
+    // counts, made by the test's own generator with seed 5150, independent of the engine.
+    const tau = 4.2e-9;
+    const decay = syntheticDecay({
+      channels: CHANNELS,
+      channelWidth: WIDTH,
+      responseCentre: 2e-9,
+      responseFwhm: 150e-12,
+      components: [{ lifetime: tau, fraction: 1 }],
+      seed: 5150,
+    });
+    const lines = ['time (ns),IRF,emitter in MeCN'];
+    for (let c = 0; c < CHANNELS; c++)
+      lines.push(`${(c * WIDTH * 1e9).toFixed(4)},${decay.response[c]},${decay.counts[c]}`);
+    const file = path.join(screenshotDir, 'e2e-emitter-decay.csv');
+    fs.writeFileSync(file, `${lines.join('\n')}\n`);
+    const sha256 = crypto.createHash('sha256').update(fs.readFileSync(file)).digest('hex');
+
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signInThroughPage(page, server.baseUrl, people.researcher);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Library' }).click();
+    const add = page.getByRole('form', { name: 'Add compound' });
+    await add.getByLabel('Name or code').fill('E2E-Ir-lifetime');
+    await add.getByRole('button', { name: 'Add compound' }).click();
+    await page.getByRole('heading', { name: 'E2E-Ir-lifetime', level: 1 }).waitFor();
+
+    const lifetimes = page.getByRole('region', { name: 'Excited-state lifetimes' });
+    await lifetimes.getByLabel(/Decay file of the emitter/).setInputFiles(file);
+    const preview = lifetimes.getByLabel('Decay preview');
+    await preview.getByRole('figure', { name: 'Decay plot of emitter in MeCN' }).waitFor();
+    // The model picker refits the preview: one exponential by reconvolution with the response column.
+    await lifetimes.getByLabel('Fit', { exact: true }).selectOption('reconvolution');
+    await lifetimes.getByRole('button', { name: 'Fit again with these choices' }).click();
+    await preview.getByText('Reconvolution with the measured response').waitFor();
+    await preview.getByLabel('Atmosphere').selectOption('nitrogen');
+    await preview.getByLabel('Notes').fill('degassed by three freeze-pump-thaw cycles');
+    await shot(page, 'library-decay-preview.png');
+    await preview.getByRole('button', { name: 'Keep as a lifetime record' }).click();
+
+    const kept = lifetimes.getByRole('article', { name: 'Decay e2e-emitter-decay.csv' });
+    const shown = (await kept.getByLabel('Lifetime from e2e-emitter-decay.csv').textContent()) ?? '';
+    const keptTau = Number(shown.split(' ')[0]) * 1e-9;
+    // Within 1 % of the 4.2 ns the decay was made with.
+    expect(Math.abs(keptTau / tau - 1)).toBeLessThan(0.01);
+    expect(await kept.getByLabel('SHA-256 of e2e-emitter-decay.csv').textContent()).toBe(sha256);
+    const href = await kept.getByRole('link', { name: 'e2e-emitter-decay.csv' }).getAttribute('href');
+    const download = await page.request.get(`${server.baseUrl}${href}`);
+    expect(
+      crypto
+        .createHash('sha256')
+        .update(await download.body())
+        .digest('hex'),
+    ).toBe(sha256);
+    // The record itself, in the list of lifetimes, names its file and conditions.
+    const record = lifetimes.getByRole('list', { name: 'Lifetimes' }).getByRole('listitem');
+    await expect.poll(() => record.count()).toBe(1);
+    expect(await record.textContent()).toMatch(
+      /nitrogen.*TCSPC decay fit: 1 exponential by reconvolution.*from decay e2e-emitter-decay\.csv/,
+    );
+    await kept.getByRole('button', { name: 'Show the fit' }).click();
+    await kept.getByRole('figure', { name: 'Decay plot of emitter in MeCN' }).waitFor();
+    await kept.scrollIntoViewIfNeeded();
+    await shot(page, 'library-decay-kept.png');
     await page.close();
   });
 });

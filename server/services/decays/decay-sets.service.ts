@@ -82,17 +82,8 @@ export async function keptFilesOf(services: UploadServices, set: DecaySet) {
   return { file: await bytes(set.file!), response: set.responseFile ? await bytes(set.responseFile) : null };
 }
 
-/**
- * Reads and fits a decay file (and its response file) as chosen and answers what it found;
- * nothing is kept. Any member who may add data to the study may look.
- */
-export async function previewDecaySet(
-  services: UploadServices,
-  lab: LabContext,
-  studyId: string,
-  upload: DecayUpload,
-): Promise<DecayPreview> {
-  await loadStudy(lab, studyId);
+/** Reads and fits what was sent as chosen and answers what was found; keeps nothing. */
+async function previewOf(services: UploadServices, upload: DecayUpload): Promise<DecayPreview> {
   const outcome = await read(services, {
     file: asFile(upload.file),
     response: upload.response ? asFile(upload.response) : null,
@@ -107,6 +98,42 @@ export async function previewDecaySet(
     shown: outcome.shown,
     questions: outcome.questions,
   };
+}
+
+/**
+ * Reads and fits a decay file (and its response file) as chosen and answers what it found;
+ * nothing is kept. Any member who may add data to the study may look.
+ */
+export async function previewDecaySet(
+  services: UploadServices,
+  lab: LabContext,
+  studyId: string,
+  upload: DecayUpload,
+): Promise<DecayPreview> {
+  await loadStudy(lab, studyId);
+  return previewOf(services, upload);
+}
+
+/** What keepLibraryDecay refuses when a file does not hold exactly one decay. */
+const oneDecayNeeded = (count: number) =>
+  `a library lifetime comes from one decay, and the file holds ${count}; mark the others "ignore".`;
+
+/**
+ * The same look for one decay of an emitter on its way to the library: the compound must be in
+ * the lab, and a file that does not hold exactly one decay gets the question keeping would
+ * refuse it with, so the screen says so before the click.
+ */
+export async function previewLibraryDecay(
+  services: UploadServices,
+  lab: LabContext,
+  compoundId: string,
+  upload: DecayUpload,
+): Promise<DecayPreview> {
+  await findCompound(lab, compoundId);
+  const preview = await previewOf(services, upload);
+  if (preview.outcomes.length === 1) return preview;
+  const question = oneDecayNeeded(preview.outcomes.length);
+  return { ...preview, questions: [...preview.questions, `${question[0]!.toUpperCase()}${question.slice(1)}`] };
 }
 
 /** The answer for a kept set, with its files' names and hashes. */
@@ -207,6 +234,17 @@ export async function listStudyDecaySets(lab: LabContext, studyId: string): Prom
   return (await attached.listOfStudy(DecaySet, lab, studyId, withFiles)).map(toDecaySet);
 }
 
+/** A compound's decay sets (each a single decay that gave or gives a lifetime record), newest first; 404 for a compound of another lab. */
+export async function listCompoundDecaySets(lab: LabContext, compoundId: string): Promise<DecaySetAnswer[]> {
+  await findCompound(lab, compoundId);
+  const sets = await DecaySet.findAll({
+    where: { labId: lab.id, compoundId },
+    include: withFiles,
+    order: [['createdAt', 'DESC']],
+  });
+  return sets.map(toDecaySet);
+}
+
 /** Keeps a decay set of a study: the owner, while the study may change. */
 export async function keepStudyDecaySet(
   services: UploadServices,
@@ -276,12 +314,9 @@ export async function keepLibraryDecay(
     actor,
     async (kept, transaction) => {
       if (kept.outcomes.length !== 1)
-        throw new AppError(
-          'one_decay_needed',
-          `Nothing was kept: a library lifetime comes from one decay, and the file holds ${kept.outcomes.length}; mark the others "ignore".`,
-          422,
-          [{ path: 'body.options.columns', message: `${kept.outcomes.length} decays` }],
-        );
+        throw new AppError('one_decay_needed', `Nothing was kept: ${oneDecayNeeded(kept.outcomes.length)}`, 422, [
+          { path: 'body.options.columns', message: `${kept.outcomes.length} decays` },
+        ]);
       const lifetime = kept.outcomes[0]!.lifetime!;
       const { conditions } = upload;
       const record = await ExcitedStateLifetime.create(

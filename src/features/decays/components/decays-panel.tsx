@@ -15,19 +15,13 @@ import { useDecayCurves } from '../api/get-decay-curves';
 import { useStudyDecaySets } from '../api/get-study-decay-sets';
 import { useKeepDecaySet } from '../api/keep-decay-set';
 import { usePreviewDecays } from '../api/preview-decays';
+import { DECAY_FILES, DEFAULT_DECAY_MODEL, TIME_UNIT_OPTIONS } from './decay-file-choices';
 import { DecayModelPicker } from './decay-model-picker';
 import { DecayParameters } from './decay-parameters';
 import { DecayPlot } from './decay-plot';
 import { DecaySternVolmerPlot } from './decay-stern-volmer-plot';
 import { RefitDecaySet } from './refit-decay-set';
 
-const DEFAULT_MODEL: DecayModel = {
-  components: 1,
-  method: null,
-  estimator: 'poisson',
-  startChannel: null,
-  endChannel: null,
-};
 const lifetimeText = (outcome: DecayOutcome) =>
   outcome.lifetime
     ? formatEstimate(toNanoseconds(outcome.lifetime.value), toNanoseconds(outcome.lifetime.standardError))
@@ -147,9 +141,6 @@ function KeptSet({
   );
 }
 
-/** The decay and response files the reader takes. */
-const DECAY_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
-
 /**
  * Decays of the study: choose the decay file (and a response file), look at the fits, keep the
  * set, and put its lifetimes and tau0 into the study. Nothing is kept before "Keep".
@@ -170,7 +161,7 @@ export function DecaysPanel({
 }) {
   const [file, setFile] = useState<File | null>(null);
   const [response, setResponse] = useState<File | null>(null);
-  const [model, setModel] = useState<DecayModel>(DEFAULT_MODEL);
+  const [model, setModel] = useState<DecayModel>(DEFAULT_DECAY_MODEL);
   const [timeUnit, setTimeUnit] = useState<DecayTimeUnit | null>(null);
   const [preview, setPreview] = useState<DecayPreview | null>(null);
   const sets = useStudyDecaySets(labId, study.id);
@@ -240,12 +231,7 @@ export function DecaysPanel({
             <SelectField
               label="Time unit, when the header names none"
               value={timeUnit ?? ''}
-              options={[
-                { value: '', label: 'from the header' },
-                { value: 'ps', label: 'ps' },
-                { value: 'ns', label: 'ns' },
-                { value: 'us', label: 'µs' },
-              ]}
+              options={TIME_UNIT_OPTIONS}
               onChange={(event) =>
                 setTimeUnit(event.target.value === '' ? null : (event.target.value as DecayTimeUnit))
               }

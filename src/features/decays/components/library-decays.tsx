@@ -1,0 +1,335 @@
+import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
+import { atmospheres } from '@shared/schemas/library-measurements';
+import type { DecayModel, DecayPreview, DecaySet, DecayTimeUnit } from '@shared/schemas/decays';
+import { SOLVENTS } from '@shared/engine/kinetics/solvents';
+import { formatEstimate, formatNumber } from '@shared/format';
+import { toNanoseconds } from '@shared/units/units';
+import { Button } from '@/components/button';
+import { FileField } from '@/components/file-field';
+import { FormAlert } from '@/components/form-alert';
+import { SelectField } from '@/components/select-field';
+import { TextField } from '@/components/text-field';
+import { describeError } from '@/lib/form-errors';
+import { useCompoundDecaySets } from '../api/get-compound-decay-sets';
+import { getDecayCurvesQueryOptions } from '../api/get-decay-curves';
+import { useKeepLibraryDecay } from '../api/keep-library-decay';
+import { usePreviewLibraryDecay } from '../api/preview-library-decay';
+import { DECAY_FILES, DEFAULT_DECAY_MODEL, TIME_UNIT_OPTIONS } from './decay-file-choices';
+import { DecayModelPicker } from './decay-model-picker';
+import { DecayParameters } from './decay-parameters';
+import { DecayPlot } from './decay-plot';
+
+const solventOptions = Object.values(SOLVENTS).map((solvent) => ({ value: solvent.id, label: solvent.name }));
+const atmosphereOptions = atmospheres.map((value) => ({ value, label: value }));
+
+/** tau of a decay in ns, to the decimal of its standard error. */
+const lifetimeText = (lifetime: { value: number; standardError: number }) =>
+  `${formatEstimate(toNanoseconds(lifetime.value), toNanoseconds(lifetime.standardError))} ns`;
+
+/** A kept decay of the compound: its lifetime, its file (download and SHA-256), and its plot on demand. */
+function KeptDecay({ labId, set, compoundName }: { labId: string; set: DecaySet; compoundName: string }) {
+  const [plotted, setPlotted] = useState(false);
+  // Drawn only when asked: the server reads the kept file again to draw it.
+  const curves = useQuery({ ...getDecayCurvesQueryOptions(labId, set.id, 0), enabled: plotted });
+  const outcome = set.outcomes[0];
+  return (
+    <article aria-label={`Decay ${set.file.fileName}`} className="space-y-2 rounded-md border border-paper-300 p-3">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <dl className="grid grid-cols-[auto_minmax(0,1fr)] gap-x-3 gap-y-1 text-body">
+          <dt className="text-ink-600">τ</dt>
+          <dd aria-label={`Lifetime from ${set.file.fileName}`} className="font-bold tabular-nums">
+            {outcome?.lifetime ? lifetimeText(outcome.lifetime) : '—'}
+            {outcome?.lifetime?.basis === 'amplitude-weighted-mean' && ' (amplitude-weighted mean)'}
+          </dd>
+          <dt className="text-ink-600">Source file</dt>
+          <dd>
+            <a className="underline" href={`/api/labs/${labId}/decay-files/${set.file.id}`}>
+              {set.file.fileName}
+            </a>{' '}
+            ({formatNumber(set.file.size / 1024, 3)} kB)
+            {set.responseFile && (
+              <>
+                , response{' '}
+                <a className="underline" href={`/api/labs/${labId}/decay-files/${set.responseFile.id}`}>
+                  {set.responseFile.fileName}
+                </a>
+              </>
+            )}
+          </dd>
+          <dt className="text-ink-600">SHA-256</dt>
+          <dd aria-label={`SHA-256 of ${set.file.fileName}`} className="break-all font-mono text-caption">
+            {set.file.sha256}
+          </dd>
+          <dt className="text-ink-600">Record</dt>
+          <dd className="text-caption text-ink-600">
+            {set.lifetimeId ? 'in the list of lifetimes above' : 'removed from the library'}
+            {set.createdBy ? `; kept by ${set.createdBy}` : ''}
+          </dd>
+        </dl>
+        <Button variant="quiet" aria-expanded={plotted} onClick={() => setPlotted(!plotted)}>
+          {plotted ? 'Hide the fit' : 'Show the fit'}
+        </Button>
+      </div>
+      {plotted && (
+        <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+          {curves.data ? (
+            <DecayPlot curves={curves.data} title={compoundName} />
+          ) : curves.isError ? (
+            <FormAlert>{describeError(curves.error)}</FormAlert>
+          ) : (
+            <p className="text-body">Drawing…</p>
+          )}
+          {outcome && <DecayParameters outcome={outcome} />}
+        </div>
+      )}
+    </article>
+  );
+}
+
+interface Conditions {
+  solvent: string;
+  atmosphere: (typeof atmospheres)[number];
+  temperature: string;
+  notes: string;
+}
+
+/**
+ * One decay of the emitter becomes a lifetime record: choose the file (and a response file), look
+ * at the fit with the model picker, give the conditions, keep. Nothing is kept before "Keep".
+ */
+function DecayToLifetime({
+  labId,
+  compoundId,
+  compoundName,
+  defaultSolvent,
+  onKept,
+}: {
+  labId: string;
+  compoundId: string;
+  compoundName: string;
+  defaultSolvent: string;
+  onKept: () => void;
+}) {
+  const [file, setFile] = useState<File | null>(null);
+  const [response, setResponse] = useState<File | null>(null);
+  const [model, setModel] = useState<DecayModel>(DEFAULT_DECAY_MODEL);
+  const [timeUnit, setTimeUnit] = useState<DecayTimeUnit | null>(null);
+  const [conditions, setConditions] = useState<Conditions>({
+    solvent: defaultSolvent,
+    atmosphere: 'argon',
+    temperature: '298.15',
+    notes: '',
+  });
+  const [preview, setPreview] = useState<DecayPreview | null>(null);
+  const [kept, setKept] = useState<DecaySet | null>(null);
+  const read = usePreviewLibraryDecay(labId, compoundId);
+  const keep = useKeepLibraryDecay(labId, compoundId, onKept);
+  const readOptions = (next: { model?: DecayModel; timeUnit?: DecayTimeUnit | null }) => ({
+    model: next.model ?? model,
+    timeUnit: next.timeUnit !== undefined ? next.timeUnit : timeUnit,
+    show: 0,
+  });
+  const look = (next: { file?: File; response?: File | null; model?: DecayModel }) => {
+    const chosen = next.file ?? file;
+    if (!chosen) return;
+    setKept(null);
+    read.mutate(
+      {
+        file: chosen,
+        response: next.response !== undefined ? next.response : response,
+        options: readOptions(next),
+      },
+      { onSuccess: setPreview },
+    );
+  };
+  const temperature = Number(conditions.temperature);
+  const outcome = preview?.outcomes[0];
+  const set = (field: keyof Conditions) => (value: string) => setConditions({ ...conditions, [field]: value });
+
+  return (
+    <div className="space-y-3">
+      <div className="grid gap-3 sm:grid-cols-2">
+        <FileField
+          label="Decay file of the emitter"
+          hint="Time in the first column with its unit, one counts column, the response as a column named IRF (.csv .txt .dat .xlsx .jdx)."
+          accept={DECAY_FILES}
+          fileName={file?.name}
+          onFile={(chosen) => {
+            setFile(chosen);
+            look({ file: chosen });
+          }}
+        />
+        <div className="space-y-1">
+          <FileField
+            label="Response file (optional)"
+            hint="Only when the instrument response is not a column of the decay file."
+            accept={DECAY_FILES}
+            fileName={response?.name}
+            onFile={(chosen) => {
+              setResponse(chosen);
+              look({ response: chosen });
+            }}
+          />
+          {response && (
+            <Button
+              variant="quiet"
+              onClick={() => {
+                setResponse(null);
+                look({ response: null });
+              }}
+            >
+              Use no response file
+            </Button>
+          )}
+        </div>
+      </div>
+      <DecayModelPicker model={model} onChange={setModel} />
+      <div className="flex flex-wrap items-end gap-3">
+        <SelectField
+          label="Time unit, when the header names none"
+          value={timeUnit ?? ''}
+          options={TIME_UNIT_OPTIONS}
+          onChange={(event) => setTimeUnit(event.target.value === '' ? null : (event.target.value as DecayTimeUnit))}
+        />
+        <Button variant="quiet" disabled={!file} pending={read.isPending} onClick={() => look({})}>
+          Fit again with these choices
+        </Button>
+      </div>
+      {read.isPending && <p className="text-body">Reading and fitting…</p>}
+      {read.isError && <FormAlert>{describeError(read.error)}</FormAlert>}
+      {preview && (
+        <div aria-label="Decay preview" className="space-y-3 rounded-md border border-paper-300 p-3">
+          <p className="text-body">
+            <strong>{preview.fileName}</strong>: {preview.format}, {preview.channels} channels
+            {preview.channelWidth ? ` of ${formatNumber(preview.channelWidth * 1e12, 4)} ps` : ''}
+            {preview.responseSource ? `, response from the ${preview.responseSource}` : ', no response'}.
+            {outcome?.lifetime && (
+              <>
+                {' '}
+                τ <strong className="tabular-nums">{lifetimeText(outcome.lifetime)}</strong>
+              </>
+            )}
+          </p>
+          {[...preview.questions, ...preview.warnings].map((text) => (
+            <FormAlert key={text} tone="note">
+              {text}
+            </FormAlert>
+          ))}
+          {preview.shown && (
+            <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+              <DecayPlot curves={preview.shown} title={compoundName} />
+              {outcome && <DecayParameters outcome={outcome} />}
+            </div>
+          )}
+          <div className="grid gap-3 sm:grid-cols-3">
+            <SelectField
+              label="Solvent"
+              value={conditions.solvent}
+              options={solventOptions}
+              onChange={(event) => set('solvent')(event.target.value)}
+            />
+            <SelectField
+              label="Atmosphere"
+              value={conditions.atmosphere}
+              options={atmosphereOptions}
+              onChange={(event) => set('atmosphere')(event.target.value)}
+            />
+            <TextField
+              label="Temperature (K)"
+              type="number"
+              inputMode="decimal"
+              step="any"
+              value={conditions.temperature}
+              onChange={(event) => set('temperature')(event.target.value)}
+            />
+          </div>
+          <TextField
+            label="Notes"
+            hint="How the sample was prepared, e.g. degassed by freeze-pump-thaw."
+            value={conditions.notes}
+            onChange={(event) => set('notes')(event.target.value)}
+          />
+          {keep.isError && <FormAlert>{describeError(keep.error)}</FormAlert>}
+          <Button
+            pending={keep.isPending}
+            disabled={preview.questions.length > 0 || !file}
+            onClick={() =>
+              keep.mutate(
+                {
+                  file: file!,
+                  response,
+                  options: {
+                    ...readOptions({}),
+                    solvent: conditions.solvent,
+                    atmosphere: conditions.atmosphere,
+                    // An empty or unreadable field is sent as it is, so the server names it.
+                    temperature: conditions.temperature.trim() === '' ? Number.NaN : temperature,
+                    notes: conditions.notes,
+                  },
+                },
+                {
+                  onSuccess: (answer) => {
+                    setPreview(null);
+                    setKept(answer);
+                  },
+                },
+              )
+            }
+          >
+            Keep as a lifetime record
+          </Button>
+        </div>
+      )}
+      {kept?.outcomes[0]?.lifetime && (
+        <FormAlert tone="good">
+          Kept: a lifetime record of {lifetimeText(kept.outcomes[0].lifetime)} from decay {kept.file.fileName} is in the
+          list above.
+        </FormAlert>
+      )}
+    </div>
+  );
+}
+
+/**
+ * The compound's lifetimes fitted from decay files: each kept decay with its source file, and for
+ * those who may add to the library the flow that turns one more decay into a lifetime record.
+ */
+export function LibraryDecays({
+  labId,
+  compoundId,
+  compoundName,
+  defaultSolvent,
+  canAdd,
+  onKept,
+}: {
+  labId: string;
+  compoundId: string;
+  compoundName: string;
+  defaultSolvent: string;
+  canAdd: boolean;
+  /** a lifetime record was added: the route module refreshes the compound */
+  onKept: () => void;
+}) {
+  const sets = useCompoundDecaySets(labId, compoundId);
+  return (
+    <div className="space-y-3">
+      {sets.isError && <FormAlert>{describeError(sets.error)}</FormAlert>}
+      {sets.data?.items.length === 0 && !canAdd && (
+        <p className="text-body text-ink-500">No lifetime of this compound was fitted from a decay file.</p>
+      )}
+      {sets.data?.items.map((set) => (
+        <KeptDecay key={set.id} labId={labId} set={set} compoundName={compoundName} />
+      ))}
+      {canAdd && (
+        <DecayToLifetime
+          labId={labId}
+          compoundId={compoundId}
+          compoundName={compoundName}
+          defaultSolvent={defaultSolvent}
+          onKept={onKept}
+        />
+      )}
+    </div>
+  );
+}
