@@ -233,6 +233,11 @@ export const decaySetSchema = decayReadingSummarySchema
     sternVolmerProblem: z.string().nullable().describe('why the lifetime Stern–Volmer line cannot be drawn'),
     engineVersion: z.string(),
     createdBy: z.string().nullable(),
+    createdById: z
+      .string()
+      .uuid()
+      .nullable()
+      .describe('who kept the set: a library set may be refitted by them, or a reviewer or admin'),
     version: z.number().int(),
     createdAt: z.string(),
   })

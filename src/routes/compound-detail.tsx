@@ -122,7 +122,16 @@ export function CompoundDetailRoute() {
                 compoundName={data.name}
                 defaultSolvent={solvent}
                 canAdd={canAdd}
+                mayEdit={mayEdit}
                 onKept={() => void queryClient.invalidateQueries({ queryKey: libraryKeys.detail(labId, data.id) })}
+                onRefitted={(answer) => {
+                  // The record took the new value; the list of studies using it says which still hold the older one.
+                  void queryClient.invalidateQueries({ queryKey: libraryKeys.detail(labId, data.id) });
+                  if (answer.lifetime)
+                    void queryClient.invalidateQueries({
+                      queryKey: libraryKeys.dependents(labId, answer.lifetime.lifetimeId),
+                    });
+                }}
               />
             </Suspense>
           </AddSection>

@@ -156,6 +156,7 @@ export function toDecaySet(set: DecaySet): DecaySetAnswer {
     sternVolmerProblem: problem,
     engineVersion: set.engineVersion,
     createdBy: set.createdBy?.name ?? null,
+    createdById: set.createdById,
     version: set.version,
     createdAt: set.createdAt.toISOString(),
   };

@@ -7,16 +7,26 @@ import { decaysKeys } from './decays-keys';
 export const refitDecaySet = (labId: string, setId: string, model: DecayModel, version: number) =>
   apiClient.post<DecaySetRefit>(`/api/labs/${labId}/decay-sets/${setId}/refit`, { model, version });
 
-/** `onRefitted` lets the route module refresh what the studies feature keeps of the study. */
-export function useRefitDecaySet(labId: string, studyId: string, setId: string, onRefitted: () => void) {
+/** Where a set is listed: under its study, or under the compound whose library lifetime it gives. */
+export type DecaySetOwner = { studyId: string } | { compoundId: string };
+
+/** `onRefitted` lets the route module refresh what the studies or library feature keeps of what followed the set. */
+export function useRefitDecaySet(
+  labId: string,
+  owner: DecaySetOwner,
+  setId: string,
+  onRefitted: (answer: DecaySetRefit) => void,
+) {
   const queryClient = useQueryClient();
+  const listKey =
+    'studyId' in owner ? decaysKeys.studySets(labId, owner.studyId) : decaysKeys.compoundSets(labId, owner.compoundId);
   return useMutation({
     mutationFn: ({ model, version }: { model: DecayModel; version: number }) =>
       refitDecaySet(labId, setId, model, version),
-    onSuccess: async () => {
-      onRefitted();
+    onSuccess: async (answer) => {
+      onRefitted(answer);
       await Promise.all([
-        queryClient.invalidateQueries({ queryKey: decaysKeys.studySets(labId, studyId) }),
+        queryClient.invalidateQueries({ queryKey: listKey }),
         queryClient.invalidateQueries({ queryKey: decaysKeys.setCurves(labId, setId) }),
       ]);
     },

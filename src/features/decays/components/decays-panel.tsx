@@ -136,7 +136,9 @@ function KeptSet({
       ) : (
         <p className="text-caption text-ink-500">No lifetime Stern–Volmer plot: {set.sternVolmerProblem}</p>
       )}
-      {editable && <RefitDecaySet labId={labId} studyId={study.id} set={set} inUse={inUse} onRefitted={onRefitted} />}
+      {editable && (
+        <RefitDecaySet labId={labId} owner={{ studyId: study.id }} set={set} inUse={inUse} onRefitted={onRefitted} />
+      )}
     </article>
   );
 }

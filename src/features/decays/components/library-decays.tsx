@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { atmospheres } from '@shared/schemas/library-measurements';
-import type { DecayModel, DecayPreview, DecaySet, DecayTimeUnit } from '@shared/schemas/decays';
+import type { DecayModel, DecayPreview, DecaySet, DecaySetRefit, DecayTimeUnit } from '@shared/schemas/decays';
 import { SOLVENTS } from '@shared/engine/kinetics/solvents';
 import { formatEstimate, formatNumber } from '@shared/format';
 import { toNanoseconds } from '@shared/units/units';
@@ -19,6 +19,7 @@ import { DECAY_FILES, DEFAULT_DECAY_MODEL, TIME_UNIT_OPTIONS } from './decay-fil
 import { DecayModelPicker } from './decay-model-picker';
 import { DecayParameters } from './decay-parameters';
 import { DecayPlot } from './decay-plot';
+import { RefitDecaySet } from './refit-decay-set';
 
 const solventOptions = Object.values(SOLVENTS).map((solvent) => ({ value: solvent.id, label: solvent.name }));
 const atmosphereOptions = atmospheres.map((value) => ({ value, label: value }));
@@ -28,7 +29,19 @@ const lifetimeText = (lifetime: { value: number; standardError: number }) =>
   `${formatEstimate(toNanoseconds(lifetime.value), toNanoseconds(lifetime.standardError))} ns`;
 
 /** A kept decay of the compound: its lifetime, its file (download and SHA-256), and its plot on demand. */
-function KeptDecay({ labId, set, compoundName }: { labId: string; set: DecaySet; compoundName: string }) {
+function KeptDecay({
+  labId,
+  set,
+  compoundName,
+  mayRefit,
+  onRefitted,
+}: {
+  labId: string;
+  set: DecaySet;
+  compoundName: string;
+  mayRefit: boolean;
+  onRefitted: (answer: DecaySetRefit) => void;
+}) {
   const [plotted, setPlotted] = useState(false);
   // Drawn only when asked: the server reads the kept file again to draw it.
   const curves = useQuery({ ...getDecayCurvesQueryOptions(labId, set.id, 0), enabled: plotted });
@@ -82,6 +95,15 @@ function KeptDecay({ labId, set, compoundName }: { labId: string; set: DecaySet;
           )}
           {outcome && <DecayParameters outcome={outcome} />}
         </div>
+      )}
+      {mayRefit && set.compoundId && (
+        <RefitDecaySet
+          labId={labId}
+          owner={{ compoundId: set.compoundId }}
+          set={set}
+          inUse={set.lifetimeId !== null}
+          onRefitted={onRefitted}
+        />
       )}
     </article>
   );
@@ -301,15 +323,21 @@ export function LibraryDecays({
   compoundName,
   defaultSolvent,
   canAdd,
+  mayEdit,
   onKept,
+  onRefitted,
 }: {
   labId: string;
   compoundId: string;
   compoundName: string;
   defaultSolvent: string;
   canAdd: boolean;
+  /** who may refit a kept decay: as for its lifetime record, the person who kept it or a reviewer or admin */
+  mayEdit: (set: { createdById: string | null }) => boolean;
   /** a lifetime record was added: the route module refreshes the compound */
   onKept: () => void;
+  /** a kept decay was refitted: the route module refreshes the compound and the studies using its record */
+  onRefitted: (answer: DecaySetRefit) => void;
 }) {
   const sets = useCompoundDecaySets(labId, compoundId);
   return (
@@ -319,7 +347,14 @@ export function LibraryDecays({
         <p className="text-body text-ink-500">No lifetime of this compound was fitted from a decay file.</p>
       )}
       {sets.data?.items.map((set) => (
-        <KeptDecay key={set.id} labId={labId} set={set} compoundName={compoundName} />
+        <KeptDecay
+          key={set.id}
+          labId={labId}
+          set={set}
+          compoundName={compoundName}
+          mayRefit={mayEdit(set)}
+          onRefitted={onRefitted}
+        />
       ))}
       {canAdd && (
         <DecayToLifetime
