@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { mechanismVerdictSchema } from './mechanism-evidence';
 
 export const comparisonParamsSchema = z.object({
   labId: z.string().uuid('must be a lab id'),
@@ -31,6 +32,8 @@ export const comparisonRowSchema = z.object({
     .nullable()
     .describe('the highlighted pathway (pinned, else the more favourable), eV'),
   drivingForceMissing: z.string().nullable().describe('why there is no driving force, when there is none'),
+  // The combined verdict of the study's mechanism evidence (GET .../studies/:studyId/mechanism).
+  mechanism: mechanismVerdictSchema,
 });
 
 export const trendSchema = z.object({

@@ -20,6 +20,7 @@ const comparison: Comparison = {
       flags: [],
       drivingForce: { pathway: 'oxidative', electronvolts: -0.57, withWorkTerm: -0.63 },
       drivingForceMissing: null,
+      mechanism: 'static',
     },
   ],
   trends: [],
@@ -33,5 +34,16 @@ describe('ComparisonTable', () => {
     const heading = within(table).getByRole('columnheader', { name: /^ΔG\s*ET \(eV\)$/ });
     expect(heading.querySelector('sub')?.textContent).toBe('ET');
     expect(table.textContent).not.toContain('ΔG_ET');
+  });
+
+  it("when drawn, then each row names its study's mechanism verdict in words under a Mechanism heading", () => {
+    renderWithClient(<ComparisonTable comparison={comparison} labId="lab" />);
+    const table = screen.getByRole('table', { name: 'Studies of Test emitter' });
+    const headings = within(table).getAllByRole('columnheader');
+    const column = headings.findIndex((heading) => heading.textContent === 'Mechanism');
+    expect(column).toBeGreaterThan(0);
+    const row = within(table).getAllByRole('row')[1]!;
+    const cells = [within(row).getByRole('rowheader'), ...within(row).getAllByRole('cell')];
+    expect(cells[column]?.textContent).toBe('Static (ground-state complex)');
   });
 });

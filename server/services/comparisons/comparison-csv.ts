@@ -19,6 +19,7 @@ export function comparisonCsv(comparison: Comparison): string {
     'pathway',
     titled(`${symbolPlain(SYMBOLS.drivingForce)} with Coulomb term`, UNITS.electronvolt),
     'flags',
+    'mechanism',
   ];
   const rows = comparison.rows.map((row) => [
     row.partner.name,
@@ -34,6 +35,7 @@ export function comparisonCsv(comparison: Comparison): string {
     row.drivingForce?.pathway,
     row.drivingForce?.withWorkTerm,
     row.flags.map((flag) => flag.code).join(' '),
+    row.mechanism,
   ]);
   return csvTable([
     [`# ${comparison.side}`, comparison.compound.name],

@@ -2,6 +2,7 @@ import type { ComparisonRow } from '@shared/schemas/comparisons';
 import type { LabContext } from '../../domain/lab-context';
 import { selectRows } from '../../db/select-rows';
 import { Study } from '../../models';
+import { mechanismEvidenceOfStudies } from '../mechanism/mechanism-evidence.service';
 import {
   drivingForceOfStudyFrom,
   loadDrivingForceInputs,
@@ -73,8 +74,8 @@ const studiesSql = (side: 'emitter' | 'quencher') => {
 
 /**
  * One row per current study of the compound (as emitter: each quencher; as quencher: each
- * emitter), with kq and K_SV and their standard errors from the newest fit, flags, status and
- * the driving force.
+ * emitter), with kq and K_SV and their standard errors from the newest fit, flags, status, the
+ * driving force and the combined mechanism verdict.
  */
 export async function comparisonRows(
   lab: LabContext,
@@ -85,11 +86,18 @@ export async function comparisonRows(
   // The library's numbers for every compound on the page are read once (four queries, not five per
   // pair); replicates and revisions of one pair share a driving force: computed once per pair,
   // solvent and pin.
-  const inputs = await loadDrivingForceInputs(
-    lab,
-    [...new Set(studies.flatMap((study) => [study.emitterId, study.quencherId]))],
-    [...new Set(studies.map((study) => study.emitterId))],
-  );
+  // The mechanism verdicts of all rows come from a fixed number of statements too (not one per row).
+  const [inputs, mechanisms] = await Promise.all([
+    loadDrivingForceInputs(
+      lab,
+      [...new Set(studies.flatMap((study) => [study.emitterId, study.quencherId]))],
+      [...new Set(studies.map((study) => study.emitterId))],
+    ),
+    mechanismEvidenceOfStudies(
+      lab,
+      studies.map((study) => study.id),
+    ),
+  ]);
   const forces = new Map<string, RowDrivingForce>();
   const forceOf = (study: StudyRow) => {
     const key = [study.emitterId, study.quencherId, study.solventId, study.pinnedMechanism].join('|');
@@ -106,5 +114,6 @@ export async function comparisonRows(
     kSv: study.kSv === null ? null : { value: study.kSv, standardError: study.kSvStandardError },
     flags: study.flags ?? [],
     ...forceOf(study),
+    mechanism: mechanisms.get(study.id)?.verdict ?? 'unclear',
   }));
 }

@@ -241,8 +241,7 @@ export async function discardAbsorptionTitration(
 
 /**
  * What the study's newest absorption titration says, for the combined mechanism verdict
- * (readMechanismPieces): whether the absorption changes beyond the sum of the parts, in words,
- * and K_a (the isotherm's, else Benesi–Hildebrand's) where one was fitted. Null without a titration.
+ * (readMechanismPieces); null without a titration.
  */
 export async function absorptionEvidenceForStudy(lab: LabContext, studyId: string): Promise<AbsorptionEvidence | null> {
   await loadStudy(lab, studyId);
@@ -251,8 +250,16 @@ export async function absorptionEvidenceForStudy(lab: LabContext, studyId: strin
     attributes: ['analysis'],
     order: [['createdAt', 'DESC']],
   });
-  if (!row) return null;
-  const { analysis } = row;
+  return row ? absorptionEvidenceOf(row.analysis) : null;
+}
+
+/**
+ * What one absorption analysis says: whether the absorption changes beyond the sum of the parts,
+ * in words, and K_a (the isotherm's, else Benesi–Hildebrand's) where one was fitted.
+ */
+export function absorptionEvidenceOf(
+  analysis: Pick<AbsorptionAnalysisAnswer, 'binding' | 'flags' | 'largestChange' | 'threshold'>,
+): AbsorptionEvidence {
   const binding = analysis.binding;
   const fit = binding?.isotherm.fit ?? binding?.benesiHildebrand.fit ?? null;
   const flag = analysis.flags[0];

@@ -1,4 +1,3 @@
-import { Op } from 'sequelize';
 import {
   combineMechanismEvidence,
   type DiffusionEvidence,
@@ -10,29 +9,38 @@ import {
 import type { MechanismEvidence } from '@shared/schemas/mechanism-evidence';
 import type { LabContext } from '../../domain/lab-context';
 import { AppError } from '../../lib/app-error';
-import { SpectrumMatrix, Study, StudyFit } from '../../models';
-import { loadStudy } from '../studies/study-access';
-import { absorptionEvidenceForStudy } from './absorption-titrations.service';
-import { analyseSeries } from './temperature-series.service';
+import { Study } from '../../models';
+import { studyNotFound } from '../studies/study-access';
+import { absorptionEvidenceOf } from './absorption-titrations.service';
+import {
+  evidenceStudyRows,
+  newestMatrixRows,
+  type EvidenceStudyRow,
+  type NewestMatrixRow,
+} from './mechanism-evidence-rows';
+import { analyseSeriesMembers } from './temperature-series.service';
 
 type Missing = Partial<Record<MechanismPieceKind, string>>;
 
-/** The lifetime line beside the intensity line (or the combined fit) of the study's stored fit. */
-function lifetimeOf(fit: StudyFit): LifetimeEvidence | null {
-  const { result, model } = fit;
-  if (!result.lifetime) return null;
-  const intercept = result.lifetime.intercept ?? 'free';
-  const line = result.parameters.kSv;
-  const df = result.statistics.degreesOfFreedom;
-  const isLine = model === 'linear-free' || model === 'linear-fixed';
-  const { kD, kS } = result.parameters;
+/** The most studies of one pair in one solvent a series is read from (the coolest first). */
+const SERIES_LIMIT = 40;
+
+/** The lifetime line beside the intensity line (or the combined fit) of the study's newest fit. */
+function lifetimeOf(study: EvidenceStudyRow): LifetimeEvidence | null {
+  const { lifetime, parameters, fitModel } = study;
+  if (!lifetime || !parameters) return null;
+  const intercept = lifetime.intercept ?? 'free';
+  const line = parameters.kSv;
+  const df = study.degreesOfFreedom ?? 0;
+  const isLine = fitModel === 'linear-free' || fitModel === 'linear-fixed';
+  const { kD, kS } = parameters;
   return {
     intensityKsv:
       isLine && line ? { value: line.value, standardError: line.standardError, degreesOfFreedom: df } : null,
     lifetimeKsv: {
-      value: result.lifetime.kSv.value,
-      standardError: result.lifetime.kSv.standardError,
-      degreesOfFreedom: result.lifetime.points.length - (intercept === 'free' ? 2 : 1),
+      value: lifetime.kSv.value,
+      standardError: lifetime.kSv.standardError,
+      degreesOfFreedom: lifetime.pointCount - (intercept === 'free' ? 2 : 1),
     },
     intercept,
     combined:
@@ -45,10 +53,10 @@ function lifetimeOf(fit: StudyFit): LifetimeEvidence | null {
   };
 }
 
-/** kq of the stored fit against k_diff = 8RT/3eta(T) at the study's own temperature (study-fit kinetics). */
-function diffusionOf(study: Study, fit: StudyFit | null, missing: Missing): DiffusionEvidence | null {
-  const kq = fit?.result.parameters.kq;
-  const limit = fit?.result.diffusionLimit;
+/** kq of the newest fit against k_diff = 8RT/3eta(T) at the study's own temperature (study-fit kinetics). */
+function diffusionOf(study: EvidenceStudyRow, missing: Missing): DiffusionEvidence | null {
+  const kq = study.parameters?.kq;
+  const limit = study.diffusionLimit;
   if (!kq) {
     missing.diffusion = 'Give τ0 (entered, from a lifetime record or from lifetime blanks) to turn K_SV into kq.';
     return null;
@@ -64,28 +72,24 @@ function diffusionOf(study: Study, fit: StudyFit | null, missing: Missing): Diff
   };
 }
 
+const pairKey = (study: EvidenceStudyRow) =>
+  JSON.stringify([study.emitterId, study.quencherId, study.solventId, study.customSolventName]);
+
+type SeriesAnswer = { evidence: TemperatureEvidence } | { problem: string };
+
 /**
  * The temperature series the study belongs to: the lab's current studies of the same pair in the
- * same solvent with a fitted K_SV (the study itself included); analysed once it spans 3 temperatures.
+ * same solvent (the study itself included, current or not; at most 40, coolest first) with a
+ * fitted K_SV, analysed once it spans 3 temperatures. `analysed` keeps each set's analysis, as
+ * the studies of one series share it.
  */
-async function temperatureOf(
-  lab: LabContext,
-  study: Study,
+function temperatureOf(
+  study: EvidenceStudyRow,
+  pairMembers: EvidenceStudyRow[],
+  analysed: Map<string, SeriesAnswer>,
   missing: Missing,
-): Promise<{ evidence: TemperatureEvidence | null; series: MechanismEvidence['series'] }> {
-  const siblings = await Study.findAll({
-    where: {
-      labId: lab.id,
-      emitterId: study.emitterId,
-      quencherId: study.quencherId,
-      solventId: study.solventId,
-      customSolventName: study.customSolventName,
-      [Op.or]: [{ isCurrent: true }, { id: study.id }],
-    },
-    attributes: ['id', 'temperature', 'kSv'],
-    order: [['temperature', 'ASC']],
-    limit: 40,
-  });
+): { evidence: TemperatureEvidence | null; series: MechanismEvidence['series'] } {
+  const siblings = pairMembers.filter((s) => s.isCurrent || s.id === study.id).slice(0, SERIES_LIMIT);
   const fitted = siblings.filter((s) => s.kSv !== null && s.kSv > 0);
   const temperatures = [...new Set(siblings.map((s) => s.temperature))];
   const series = temperatures.length >= 2 ? { studyIds: siblings.map((s) => s.id), temperatures } : null;
@@ -94,11 +98,19 @@ async function temperatureOf(
     missing.temperature = `The same pair in the same solvent has a fitted K_SV at ${fittedTemperatures} temperature${fittedTemperatures === 1 ? '' : 's'}; a trend needs 3 or more.`;
     return { evidence: null, series };
   }
+  const key = fitted.map((s) => s.id).join(',');
+  if (!analysed.has(key)) analysed.set(key, analyseSeriesOf(fitted));
+  const answer = analysed.get(key)!;
+  if ('problem' in answer) {
+    missing.temperature = `The temperature series cannot be read: ${answer.problem}`;
+    return { evidence: null, series };
+  }
+  return { evidence: answer.evidence, series };
+}
+
+function analyseSeriesOf(fitted: EvidenceStudyRow[]): SeriesAnswer {
   try {
-    const analysis = await analyseSeries(
-      lab,
-      fitted.map((s) => s.id),
-    );
+    const analysis = analyseSeriesMembers(fitted);
     return {
       evidence: {
         verdict: analysis.verdict,
@@ -106,65 +118,82 @@ async function temperatureOf(
         diffusionActivationEnergy: analysis.diffusionActivationEnergy,
         temperatures: [...new Set(analysis.points.map((p) => p.temperature))],
       },
-      series,
     };
   } catch (error) {
     if (!(error instanceof AppError) || error.status !== 400) throw error;
-    missing.temperature = `The temperature series cannot be read: ${error.message}`;
-    return { evidence: null, series };
+    return { problem: error.message };
   }
 }
 
-/** The newest spectrum matrix of the study: its K_SV homogeneity, components and flags. */
-async function wavelengthOf(
-  lab: LabContext,
-  studyId: string,
-): Promise<{ evidence: WavelengthEvidence | null; matrixId: string | null }> {
-  const matrix = await SpectrumMatrix.findOne({
-    where: { labId: lab.id, studyId },
-    attributes: ['id', 'analysis'],
-    order: [['createdAt', 'DESC']],
-  });
-  if (!matrix) return { evidence: null, matrixId: null };
+/** The K_SV homogeneity, components and flags of the study's newest spectrum matrix. */
+function wavelengthOf(matrix: Extract<NewestMatrixRow, { kind: 'emission' }> | undefined): WavelengthEvidence | null {
+  if (!matrix) return null;
   const { analysis } = matrix;
   return {
-    evidence: {
-      flags: analysis.flags.map((flag) => flag.code),
-      homogeneity: analysis.homogeneity,
-      significantComponents: analysis.components.significant,
-      bandWidth: analysis.bandWidth,
-    },
-    matrixId: matrix.id,
+    flags: analysis.flags.map((flag) => flag.code),
+    homogeneity: analysis.homogeneity,
+    significantComponents: analysis.components.significant,
+    bandWidth: analysis.bandWidth,
   };
 }
 
 /**
- * The mechanism evidence of a study (engine combineMechanismEvidence): what each piece that exists
- * says, the combined verdict with reasons, the missing pieces with what to add. Reads only: the
- * stored fit, the study's newest spectrum matrix and absorption titration, and the series of the same pair in the same solvent.
+ * The mechanism evidence of each study asked for (engine combineMechanismEvidence): what each
+ * piece that exists says, the combined verdict with reasons, the missing pieces with what to add.
+ * Reads only, in two statements whatever the number of studies: the studies with their series
+ * and newest fits, then their newest spectrum matrices and absorption titrations. Studies not in
+ * the lab are left out of the answer.
  */
-export async function mechanismEvidence(lab: LabContext, studyId: string): Promise<MechanismEvidence> {
-  const study = await loadStudy(lab, studyId);
-  const fit = study.latestFitId ? await StudyFit.findOne({ where: { id: study.latestFitId, studyId } }) : null;
-  const missing: Missing = {};
-  if (!fit) missing.lifetime = 'Fit the study first; then add lifetimes at each [Q] to compare τ0/τ with I0/I.';
-  const [temperature, wavelength, absorption] = await Promise.all([
-    temperatureOf(lab, study, missing),
-    wavelengthOf(lab, studyId),
-    absorptionEvidenceForStudy(lab, studyId),
+export async function mechanismEvidenceOfStudies(
+  lab: LabContext,
+  studyIds: string[],
+): Promise<Map<string, MechanismEvidence>> {
+  const answers = new Map<string, MechanismEvidence>();
+  if (studyIds.length === 0) return answers;
+  const sequelize = Study.sequelize!;
+  const [rows, matrices] = await Promise.all([
+    evidenceStudyRows(sequelize, lab.id, studyIds),
+    newestMatrixRows(sequelize, lab.id, studyIds),
   ]);
-  const assessment = combineMechanismEvidence({
-    lifetime: fit ? lifetimeOf(fit) : null,
-    temperature: temperature.evidence,
-    wavelength: wavelength.evidence,
-    absorption,
-    diffusion: diffusionOf(study, fit, missing),
-    missingBecause: missing,
-  });
-  return {
-    studyId,
-    ...assessment,
-    series: temperature.series,
-    spectrumMatrixId: wavelength.matrixId,
-  };
+  const byPair = new Map<string, EvidenceStudyRow[]>();
+  for (const row of rows) byPair.set(pairKey(row), [...(byPair.get(pairKey(row)) ?? []), row]);
+  const emission = new Map<string, Extract<NewestMatrixRow, { kind: 'emission' }>>();
+  const absorption = new Map<string, Extract<NewestMatrixRow, { kind: 'absorption' }>>();
+  for (const matrix of matrices) {
+    if (matrix.kind === 'emission') emission.set(matrix.studyId, matrix);
+    else absorption.set(matrix.studyId, matrix);
+  }
+  const analysed = new Map<string, SeriesAnswer>();
+  const wanted = new Set(studyIds);
+  for (const study of rows) {
+    if (!wanted.has(study.id)) continue;
+    const missing: Missing = {};
+    if (!study.fitModel)
+      missing.lifetime = 'Fit the study first; then add lifetimes at each [Q] to compare τ0/τ with I0/I.';
+    const temperature = temperatureOf(study, byPair.get(pairKey(study))!, analysed, missing);
+    const matrix = emission.get(study.id);
+    const titration = absorption.get(study.id);
+    const assessment = combineMechanismEvidence({
+      lifetime: lifetimeOf(study),
+      temperature: temperature.evidence,
+      wavelength: wavelengthOf(matrix),
+      absorption: titration ? absorptionEvidenceOf(titration.analysis) : null,
+      diffusion: diffusionOf(study, missing),
+      missingBecause: missing,
+    });
+    answers.set(study.id, {
+      studyId: study.id,
+      ...assessment,
+      series: temperature.series,
+      spectrumMatrixId: matrix?.id ?? null,
+    });
+  }
+  return answers;
+}
+
+/** The mechanism evidence of one study (mechanismEvidenceOfStudies); 404 when it is not in the lab. */
+export async function mechanismEvidence(lab: LabContext, studyId: string): Promise<MechanismEvidence> {
+  const evidence = (await mechanismEvidenceOfStudies(lab, [studyId])).get(studyId);
+  if (!evidence) throw studyNotFound();
+  return evidence;
 }

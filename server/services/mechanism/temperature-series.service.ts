@@ -7,6 +7,7 @@ import {
   SOLVENTS,
   viscosityAt,
 } from '@shared/engine';
+import type { StudyStatus } from '@shared/schemas/studies';
 import type { Estimate } from '@shared/schemas/study-fits';
 import type { TemperatureSeriesAnalysis, TemperatureSeriesList } from '@shared/schemas/temperature-series';
 import { AppError } from '../../lib/app-error';
@@ -56,15 +57,35 @@ export async function listTemperatureSeries(lab: LabContext): Promise<Temperatur
   return { items };
 }
 
-function estimateOf(fit: StudyFit | null, name: string, fallback: number | null): Estimate | null {
-  const stored = fit?.result.parameters[name];
+/** One study of a series with what the analysis reads: its stored K_SV and kq, and its newest fit's parameters. */
+export interface SeriesMember {
+  id: string;
+  title: string;
+  status: StudyStatus;
+  temperature: number;
+  solventId: string | null;
+  customViscosity: number | null;
+  kSv: number | null;
+  kq: number | null;
+  /** the newest fit's parameters by name (kSv, kq, ...), null when the study has no fit */
+  parameters: Record<string, Estimate> | null;
+}
+
+type SeriesFindings = Omit<TemperatureSeriesAnalysis, 'emitter' | 'quencher' | 'solvent' | 'solventName'>;
+
+function estimateOf(
+  parameters: Record<string, Estimate> | null,
+  name: string,
+  fallback: number | null,
+): Estimate | null {
+  const stored = parameters?.[name];
   if (stored) return { value: stored.value, standardError: stored.standardError, interval95: stored.interval95 };
   if (fallback === null) return null;
   return { value: fallback, standardError: 0, interval95: { lower: fallback, upper: fallback } };
 }
 
 /** eta at the study's temperature: the entered value, else the solvent's correlation. */
-function viscosityFor(study: Study, notes: string[]): { value: number; source: string } {
+function viscosityFor(study: SeriesMember, notes: string[]): { value: number; source: string } {
   if (study.customViscosity !== null) {
     return { value: study.customViscosity, source: `entered with the study, taken as at ${study.temperature} K` };
   }
@@ -115,6 +136,37 @@ export async function analyseSeries(lab: LabContext, studyIds: string[]): Promis
       400,
     );
   }
+  const fits = await StudyFit.findAll({
+    where: { id: studies.map((s) => s.latestFitId).filter((id): id is string => id !== null) },
+  });
+  const first = studies[0]!;
+  return {
+    emitter: { id: first.emitter!.id, name: first.emitter!.name },
+    quencher: { id: first.quencher!.id, name: first.quencher!.name },
+    solvent: solventKey(first),
+    solventName: solventName(solventKey(first)),
+    ...analyseSeriesMembers(
+      studies.map((study) => ({
+        id: study.id,
+        title: study.title,
+        status: study.status,
+        temperature: study.temperature,
+        solventId: study.solventId,
+        customViscosity: study.customViscosity,
+        kSv: study.kSv,
+        kq: study.kq,
+        parameters: fits.find((fit) => fit.id === study.latestFitId)?.result.parameters ?? null,
+      })),
+    ),
+  };
+}
+
+/**
+ * The analysis of studies already known to be one pair in one solvent (engine
+ * analyseTemperatureSeries): refused with a reason when one has no fitted K_SV, when they span
+ * fewer than three temperatures or when a viscosity is missing. Reads nothing.
+ */
+export function analyseSeriesMembers(studies: SeriesMember[]): SeriesFindings {
   const unfitted = studies.filter((s) => s.kSv === null || s.kSv <= 0);
   if (unfitted.length > 0) {
     throw new AppError(
@@ -131,22 +183,15 @@ export async function analyseSeries(lab: LabContext, studyIds: string[]): Promis
       400,
     );
   }
-  const fits = await StudyFit.findAll({
-    where: { id: studies.map((s) => s.latestFitId).filter((id): id is string => id !== null) },
-  });
   const notes: string[] = [];
   const points = [...studies]
     .sort((a, b) => a.temperature - b.temperature)
-    .map((study) => {
-      const fit = fits.find((f) => f.id === study.latestFitId) ?? null;
-      const viscosity = viscosityFor(study, notes);
-      return {
-        study,
-        kSv: estimateOf(fit, 'kSv', study.kSv)!,
-        kq: estimateOf(fit, 'kq', study.kq),
-        viscosity,
-      };
-    });
+    .map((study) => ({
+      study,
+      kSv: estimateOf(study.parameters, 'kSv', study.kSv)!,
+      kq: estimateOf(study.parameters, 'kq', study.kq),
+      viscosity: viscosityFor(study, notes),
+    }));
   if (points.some((p) => p.kq === null)) notes.push('Studies without tau0 have no kq; give tau0 at each temperature.');
   try {
     const analysis = analyseTemperatureSeries(
@@ -158,12 +203,7 @@ export async function analyseSeries(lab: LabContext, studyIds: string[]): Promis
         kq: p.kq?.value ?? null,
       })),
     );
-    const first = studies[0]!;
     return {
-      emitter: { id: first.emitter!.id, name: first.emitter!.name },
-      quencher: { id: first.quencher!.id, name: first.quencher!.name },
-      solvent: solventKey(first),
-      solventName: solventName(solventKey(first)),
       points: points.map((p) => ({
         studyId: p.study.id,
         title: p.study.title,

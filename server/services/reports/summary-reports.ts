@@ -8,6 +8,7 @@ import {
   titled,
   UNITS,
 } from '@shared/format';
+import { MECHANISM_VERDICT_WORDS } from '@shared/schemas/mechanism-evidence';
 import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import type { LabContext } from '../../domain/lab-context';
 import { compare } from '../comparisons/comparison.service';
@@ -58,7 +59,7 @@ export async function scenarioReport(lab: LabContext, scenarioId: string) {
   return { pdf: await finish(doc), filename: `scenario-${safeName(scenario.name)}.pdf` };
 }
 
-/** A lab summary of a comparison: the table and the Rehm–Weller trend per solvent. */
+/** A lab summary of a comparison: the table (with each study's mechanism verdict) and the Rehm–Weller trend per solvent. */
 export async function comparisonReport(
   lab: LabContext,
   side: 'emitter' | 'quencher',
@@ -80,6 +81,7 @@ export async function comparisonReport(
       titled(symbolText(SYMBOLS.drivingForce), UNITS.electronvolt),
       'Status',
       'Flags',
+      'Mechanism',
     ],
     comparison.rows.map((row) => [
       row.partner.name,
@@ -91,8 +93,9 @@ export async function comparisonReport(
         : 'missing',
       row.status,
       row.flags.map((flag) => flag.title).join('; '),
+      MECHANISM_VERDICT_WORDS[row.mechanism],
     ]),
-    [80, 85, 55, 60, 70, 50, 95],
+    [70, 80, 55, 55, 60, 45, 65, 65],
   );
   heading(doc, 'kq against driving force, per solvent');
   drawComparisonChart(doc, comparison);

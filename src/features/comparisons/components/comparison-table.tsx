@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { Comparison } from '@shared/schemas/comparisons';
+import { MECHANISM_VERDICT_WORDS } from '@shared/schemas/mechanism-evidence';
 import { formatEstimate, formatFixed, formatNumber, SYMBOLS, UNITS } from '@shared/format';
 import { Signal } from '@/components/signal';
 import { Subscripted } from '@/components/subscripted';
@@ -8,10 +9,10 @@ import { TableHead } from '@/components/table-head';
 import { TableScroll } from '@/components/table-scroll';
 
 /**
- * One row per study: the other compound, kq ± SE, K_SV, solvent, driving force, flags and review
- * state. Values and headings stay on one line (a number broken over four lines at 360 px reads as
- * four numbers) and the table scrolls inside its card instead; only the flags, free text, wrap,
- * at a readable width.
+ * One row per study: the other compound, kq ± SE, K_SV, solvent, driving force, flags, mechanism
+ * verdict and review state. Values and headings stay on one line (a number broken over four lines
+ * at 360 px reads as four numbers) and the table scrolls inside its card instead; only the flags,
+ * free text, wrap, at a readable width.
  */
 export function ComparisonTable({ comparison, labId }: { comparison: Comparison; labId: string }) {
   const partner = comparison.side === 'emitter' ? 'Quencher' : 'Emitter';
@@ -30,6 +31,7 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
               <Subscripted symbol={SYMBOLS.drivingForce} /> ({UNITS.electronvolt})
             </>,
             'Flags',
+            'Mechanism',
             'Review',
           ]}
         />
@@ -55,6 +57,7 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
               <td className="whitespace-normal py-1.5 pr-3 text-caption">
                 <div className="min-w-56">{row.flags.map((flag) => flag.title).join('; ') || '—'}</div>
               </td>
+              <td className="pr-3">{MECHANISM_VERDICT_WORDS[row.mechanism]}</td>
               <td>
                 {row.status === 'approved' ? (
                   <Signal tone="good">approved</Signal>
