@@ -18,6 +18,7 @@ export function initStudyModels(sequelize: Sequelize): void {
   belongsToEach(StudyReview, { author: User, study: Study });
   belongsToEach(StudyPoint, { study: Study });
   Study.hasMany(StudyPoint, { as: 'points', foreignKey: 'studyId' });
+  Study.hasMany(StudyUpload, { as: 'uploads', foreignKey: 'studyId' });
 }
 
 export { Study, StudyFit, StudyPoint, StudyReview, StudyUpload };

@@ -2,6 +2,7 @@ import { DataTypes } from 'sequelize';
 import type { CreationOptional, ForeignKey, NonAttribute, Sequelize } from 'sequelize';
 import type { FitModel, FitWeighting, StudyStatus } from '@shared/schemas/studies';
 import type { Compound } from './compound.model';
+import type { StudyUpload } from './study-upload.model';
 import type { User } from './user.model';
 import { LabRecord, recordColumns } from './record';
 
@@ -50,6 +51,8 @@ export class Study extends LabRecord<Study> {
   declare emitter?: NonAttribute<Compound>;
   declare quencher?: NonAttribute<Compound>;
   declare owner?: NonAttribute<User | null>;
+  /** Only as an include asks for them (receiveUpload: an earlier upload of the same bytes). */
+  declare uploads?: NonAttribute<StudyUpload[]>;
 
   static initModel(sequelize: Sequelize): void {
     const double = () => ({ type: DataTypes.DOUBLE, allowNull: true });

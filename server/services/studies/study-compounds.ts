@@ -6,33 +6,30 @@ import { Compound } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 
+const noSuchCompound = (field: string) =>
+  new AppError('validation_failed', 'No compound with this id in this lab.', 400, [
+    { path: `body.${field}`, message: 'no compound with this id in this lab' },
+  ]);
+
 /**
- * The emitter or quencher of a study: an existing compound of this lab, or one named inline.
- * A new name that matches a compound of the lab (any capitalisation) reuses it; otherwise the
- * compound is created with the role hint, as the library would (only name and role).
+ * A compound named inline on the study form. A new name that matches a compound of the lab (any
+ * capitalisation) reuses it; otherwise the compound is created with the role hint, as the library
+ * would (only name and role).
  */
-export async function resolveCompound(
+async function compoundNamed(
   lab: LabContext,
-  choice: { id?: string | null; newName?: string },
+  newName: string,
   role: 'photocatalyst' | 'quencher',
-  field: string,
   actor: Actor,
   transaction: Transaction,
-): Promise<Compound> {
-  if (choice.id) {
-    const compound = await Compound.findOne({ where: { id: choice.id, labId: lab.id }, transaction });
-    if (!compound)
-      throw new AppError('validation_failed', 'No compound with this id in this lab.', 400, [
-        { path: `body.${field}`, message: 'no compound with this id in this lab' },
-      ]);
-    return compound;
-  }
-  const name = choice.newName!.trim();
+): Promise<string> {
+  const name = newName.trim();
   const existing = await Compound.findOne({
     where: { labId: lab.id, name: { [Op.iLike]: name.replace(/[\\%_]/g, '\\$&') } },
+    attributes: ['id'],
     transaction,
   });
-  if (existing) return existing;
+  if (existing) return existing.id;
   const compound = await Compound.create(
     { labId: lab.id, name, roleHint: role, createdById: actor.userId },
     { transaction },
@@ -48,7 +45,7 @@ export async function resolveCompound(
     },
     transaction,
   );
-  return compound;
+  return compound.id;
 }
 
 const sides = [
@@ -57,8 +54,9 @@ const sides = [
 ] as const;
 
 /**
- * The emitter and quencher a study form names, each by id or by a new name (see resolveCompound),
- * emitter first. A side the input does not name is left out of the answer (an update keeps it).
+ * The emitter and quencher a study form names, each by id (an existing compound of this lab) or
+ * by a new name (see compoundNamed), emitter first. The sides named by id are checked in one
+ * query. A side the input does not name is left out of the answer (an update keeps it).
  */
 export async function resolveStudyCompounds(
   lab: LabContext,
@@ -66,11 +64,22 @@ export async function resolveStudyCompounds(
   actor: Actor,
   transaction: Transaction,
 ): Promise<{ emitterId?: string; quencherId?: string }> {
+  const ids = sides.map(({ idKey }) => input[idKey]).filter((id): id is string => Boolean(id));
+  const found = new Set(
+    ids.length === 0
+      ? []
+      : (await Compound.findAll({ where: { id: ids, labId: lab.id }, attributes: ['id'], raw: true, transaction })).map(
+          (compound) => compound.id,
+        ),
+  );
   const chosen: { emitterId?: string; quencherId?: string } = {};
   for (const { idKey, nameKey, role } of sides) {
-    const choice = { id: input[idKey], newName: input[nameKey] };
-    if (choice.id || choice.newName)
-      chosen[idKey] = (await resolveCompound(lab, choice, role, idKey, actor, transaction)).id;
+    const id = input[idKey];
+    const newName = input[nameKey];
+    if (id) {
+      if (!found.has(id)) throw noSuchCompound(idKey);
+      chosen[idKey] = id;
+    } else if (newName) chosen[idKey] = await compoundNamed(lab, newName, role, actor, transaction);
   }
   return chosen;
 }

@@ -5,13 +5,13 @@ import { describeUploadReading } from '@shared/format';
 import type { UploadMapping, UploadPreview, UploadQuestionCode } from '@shared/schemas/study-uploads';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import { StudyPoint, StudyUpload, User } from '../../models';
+import { Study, StudyPoint, StudyUpload, User } from '../../models';
 import { recordAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import type { RawFileStore, StoredLocation } from './files/raw-file-store';
 import type { Problem, ReadOutcome } from './parse/read-and-map';
 import type { UploadReader } from './parse/upload-reader';
-import { loadStudy, requireChangeable, requireEditable, requireOwner } from './study-access';
+import { loadStudy, requireChangeable, requireEditable, requireOwner, studyNotFound } from './study-access';
 import { storedSeriesPoint, writeSeries } from './study-points.service';
 import { toUpload } from './study-serialize';
 
@@ -110,15 +110,25 @@ export async function receiveUpload(
   file: { originalname: string; mimetype: string; buffer: Buffer },
   actor: SignedInActor,
 ) {
-  const study = await loadStudy(lab, studyId);
-  requireOwner(study, lab, actor.userId);
-  requireEditable(study);
   // SubtleCrypto hashes on libuv's thread pool; a 20 MB digest would otherwise hold the event loop.
   const sha256 = Buffer.from(await crypto.subtle.digest('SHA-256', file.buffer)).toString('hex');
-  const earlier = await StudyUpload.findOne({
-    where: { studyId, sha256 },
-    attributes: ['id', 'fileName', 'createdAt', 'parseStatus'],
+  // The study and an earlier upload of the same bytes to it, in one statement.
+  const study = await Study.findOne({
+    where: { id: studyId, labId: lab.id },
+    include: [
+      {
+        model: StudyUpload,
+        as: 'uploads',
+        where: { sha256 },
+        required: false,
+        attributes: ['id', 'fileName', 'createdAt', 'parseStatus'],
+      },
+    ],
   });
+  if (!study) throw studyNotFound();
+  requireOwner(study, lab, actor.userId);
+  requireEditable(study);
+  const earlier = study.uploads?.[0];
   if (earlier && earlier.parseStatus !== 'failed') throw duplicate(earlier);
   const outcome = await services.uploadReader.read(file.originalname, file.buffer, null, {
     windowStart: study.windowStart,
