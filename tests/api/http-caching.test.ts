@@ -78,4 +78,29 @@ describe('GET /api/...', () => {
     expect(changed.status).toBe(200);
     expect(changed.body.total).toBe(7);
   });
+
+  it('when one study and the dashboard are asked for again unchanged, then 304; after a change, the new answer', async () => {
+    const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+    const client = await apiClient(testApp.app);
+    await client.signIn(users.researcher);
+    const study = await createStudy(client, lab.id, 'cache-detail');
+    const studyUrl = `/api/labs/${lab.id}/studies/${study.id}`;
+    const dashboardUrl = `/api/labs/${lab.id}/dashboard`;
+    const tags: Record<string, string> = {};
+    for (const url of [studyUrl, dashboardUrl]) {
+      const first = await client.get(url);
+      expect(first.status).toBe(200);
+      tags[url] = first.headers.etag as string;
+      expect(tags[url], url).toBeTruthy();
+      expect((await client.get(url).set('If-None-Match', tags[url])).status, url).toBe(304);
+    }
+    const renamed = await client.patch(studyUrl, { version: study.version, title: 'cache-detail renamed' });
+    expect(renamed.status).toBe(200);
+    const changed = await client.get(studyUrl).set('If-None-Match', tags[studyUrl]!);
+    expect(changed.status).toBe(200);
+    expect(changed.body.title).toBe('cache-detail renamed');
+    const dashboard = await client.get(dashboardUrl).set('If-None-Match', tags[dashboardUrl]!);
+    expect(dashboard.status).toBe(200);
+    expect(dashboard.body.myDrafts[0].title).toBe('cache-detail renamed');
+  });
 });

@@ -77,3 +77,39 @@ describe('round trips of the reads every screen makes', () => {
     expect(await expiry()).toEqual(before);
   });
 });
+
+describe('round trips of the rest of the read mix (tests/bench/load.bench.ts)', () => {
+  it('when the dashboard, the studies list (filtered and sorted) and the compounds are read, then none costs a query per row', async () => {
+    const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher', 'reviewer'] });
+    const researcher = await apiClient(testApp.app);
+    await researcher.signIn(users.researcher);
+    // Enough rows that a query per row would show: five studies, each with its own two compounds.
+    const studies = [];
+    for (const tag of ['a', 'b', 'c', 'd', 'e']) studies.push(await createStudy(researcher, lab.id, `mix-${tag}`));
+    const reviewer = await apiClient(testApp.app);
+    await reviewer.signIn(users.reviewer);
+    const base = `/api/labs/${lab.id}`;
+    const dashboard = await reviewer.get(`${base}/dashboard`);
+    expect(dashboard.body.recentActivity.length).toBeGreaterThanOrEqual(10);
+    expect(dashboard.body.myDrafts).toEqual([]);
+    expect((await researcher.get(`${base}/dashboard`)).body.myDrafts).toHaveLength(5);
+    // Session row, membership; the four lists (one UNION ALL) and the activity with its names.
+    expect(await roundTripsOf(() => reviewer.get(`${base}/dashboard`), `${base}/dashboard`)).toBe(4);
+    expect(await roundTripsOf(() => researcher.get(`${base}/dashboard`), `${base}/dashboard`)).toBe(4);
+
+    const compounds = await researcher.get(`${base}/compounds`);
+    expect(compounds.body.items.length).toBeGreaterThanOrEqual(10);
+    // Session row, membership; the compounds with what the list shows of each.
+    expect(await roundTripsOf(() => researcher.get(`${base}/compounds`), `${base}/compounds`)).toBe(3);
+
+    for (const url of [
+      `${base}/studies`,
+      `${base}/studies?status=draft&sort=kq&pageSize=25`,
+      `${base}/studies?emitterId=${studies[0]!.emitter.id}&solventId=acetonitrile`,
+    ]) {
+      expect((await researcher.get(url)).status).toBe(200);
+      // Session row, membership; the page with its names, and its count (asked together).
+      expect(await roundTripsOf(() => researcher.get(url), url), url).toBe(4);
+    }
+  });
+});
