@@ -1,12 +1,9 @@
-import type { Transaction } from 'sequelize';
-import { ENGINE_VERSION } from '@shared/engine';
 import { absorptionOptionsSchema } from '@shared/schemas/absorption-titrations';
 import { seededRandom } from '../lib/seeded-random';
-import { AbsorptionTitration, MechanismFile, type Lab, type Study, type User } from '../models';
+import { AbsorptionTitration, MechanismFile } from '../models';
 import { readAbsorptionTitration } from '../services/mechanism/read-absorption-titration';
-import { sha256Of } from '../services/studies/files/raw-file-store';
 import { DEFAULT_UPLOAD_LIMITS } from '../services/studies/parse/upload-limits';
-import type { DemoClock } from './demo-clock';
+import { keepDemoFile, keptWithStudy, type DemoStudySeed } from './demo-files';
 
 /*
  * The demo's absorption titration: an INVENTED UV-vis titration of the carbazole emitter with
@@ -62,13 +59,8 @@ function demoFiles(): { titration: Buffer; quencher: Buffer } {
 }
 
 /** Keeps the invented titration and the alkene's ε file with the study (files on their rows, as the default store does). */
-export async function seedDemoAbsorption(
-  transaction: Transaction,
-  lab: Lab,
-  owner: User,
-  study: Study,
-  clock: DemoClock,
-): Promise<void> {
+export async function seedDemoAbsorption(seed: DemoStudySeed): Promise<void> {
+  const { transaction, lab, owner, study, clock } = seed;
   const files = demoFiles();
   const options = absorptionOptionsSchema.parse({ emitterConcentration: EMITTER });
   const outcome = await readAbsorptionTitration({
@@ -82,32 +74,13 @@ export async function seedDemoAbsorption(
     throw new Error(
       `The demo absorption titration does not show its complex: ${JSON.stringify(outcome).slice(0, 300)}`,
     );
-  const kept = [];
-  for (const [fileName, bytes] of [
-    [demoAbsorptionFileName, files.titration],
-    [demoQuencherFileName, files.quencher],
-  ] as const) {
-    const sha256 = await sha256Of(bytes);
-    const row = await MechanismFile.create(
-      {
-        labId: lab.id,
-        fileName,
-        mediaType: 'text/csv',
-        size: bytes.length,
-        sha256,
-        storage: 'database',
-        storageKey: null,
-        content: bytes,
-        uploadedById: owner.id,
-      },
-      { transaction },
-    );
-    kept.push({ id: row.id, fileName, size: bytes.length, sha256 });
-  }
+  const kept = [
+    await keepDemoFile(MechanismFile, seed, demoAbsorptionFileName, files.titration),
+    await keepDemoFile(MechanismFile, seed, demoQuencherFileName, files.quencher),
+  ];
   const titration = await AbsorptionTitration.create(
     {
-      labId: lab.id,
-      studyId: study.id,
+      ...keptWithStudy(seed),
       fileId: kept[0]!.id,
       quencherFileId: kept[1]!.id,
       kind: 'absorption',
@@ -117,8 +90,6 @@ export async function seedDemoAbsorption(
       reading: outcome.reading,
       analysis: outcome.analysis,
       plot: outcome.plot,
-      engineVersion: ENGINE_VERSION,
-      createdById: owner.id,
     },
     { transaction },
   );

@@ -1,14 +1,11 @@
-import type { Transaction } from 'sequelize';
-import { ENGINE_VERSION } from '@shared/engine';
 import { decayReadOptionsSchema } from '@shared/schemas/decays';
 import { seededRandom } from '../lib/seeded-random';
-import { DecayFile, DecaySet, type Lab, type Study, type User } from '../models';
+import { DecayFile, DecaySet } from '../models';
 import { placeDecaySet } from '../services/decays/apply-decay-set.service';
 import { fitDecaySet } from '../services/decays/fit-decay-set';
 import { readDecayTable } from '../services/decays/read-decay-table';
-import { sha256Of } from '../services/studies/files/raw-file-store';
 import { DEFAULT_UPLOAD_LIMITS } from '../services/studies/parse/upload-limits';
-import type { DemoClock } from './demo-clock';
+import { keepDemoFile, keptWithStudy, type DemoStudySeed } from './demo-files';
 
 /*
  * The demo's decay set: an INVENTED time-resolved titration, so a new person sees decays,
@@ -83,13 +80,8 @@ export const demoDecayConcentrations = CONCENTRATIONS_MM.map((mM) => mM * 1e-3);
  * Keeps the invented decay set with the study (the file on its row, as the default file store
  * does) and puts its lifetimes and tau0 into the study, as "use these lifetimes" would.
  */
-export async function seedDemoDecays(
-  transaction: Transaction,
-  lab: Lab,
-  owner: User,
-  study: Study,
-  clock: DemoClock,
-): Promise<void> {
+export async function seedDemoDecays(seed: DemoStudySeed): Promise<void> {
+  const { transaction, lab, owner, study, clock } = seed;
   const actor = { userId: owner.id, ip: null };
   const bytes = demoDecayFile();
   const options = decayReadOptionsSchema.parse({});
@@ -97,25 +89,10 @@ export async function seedDemoDecays(
   const failed = reading.outcomes.find((outcome) => outcome.problem !== null);
   if (reading.questions.length > 0 || failed)
     throw new Error(`The demo decay set does not fit: ${reading.questions[0] ?? failed?.problem}`);
-  const sha256 = await sha256Of(bytes);
-  const file = await DecayFile.create(
-    {
-      labId: lab.id,
-      fileName: demoDecayFileName,
-      mediaType: 'text/csv',
-      size: bytes.length,
-      sha256,
-      storage: 'database',
-      storageKey: null,
-      content: bytes,
-      uploadedById: owner.id,
-    },
-    { transaction },
-  );
+  const file = await keepDemoFile(DecayFile, seed, demoDecayFileName, bytes);
   const set = await DecaySet.create(
     {
-      labId: lab.id,
-      studyId: study.id,
+      ...keptWithStudy(seed),
       compoundId: null,
       lifetimeId: null,
       title: demoDecayFileName,
@@ -124,14 +101,12 @@ export async function seedDemoDecays(
       reading: reading.summary,
       options: { ...options, model: reading.model, show: 0 },
       outcomes: reading.outcomes,
-      engineVersion: ENGINE_VERSION,
-      createdById: owner.id,
     },
     { transaction },
   );
   clock.record(actor, 'decay_set_kept', lab.id, study.id, {
     decaySetId: set.id,
-    files: [{ id: file.id, fileName: demoDecayFileName, size: bytes.length, sha256 }],
+    files: [file],
     decays: reading.outcomes.length,
   });
   await placeDecaySet(study, set, actor, transaction);

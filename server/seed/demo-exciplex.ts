@@ -1,12 +1,9 @@
-import type { Transaction } from 'sequelize';
-import { ENGINE_VERSION } from '@shared/engine';
 import { spectrumMatrixOptionsSchema } from '@shared/schemas/spectrum-matrices';
 import { seededRandom } from '../lib/seeded-random';
-import { MechanismFile, SpectrumMatrix, type Lab, type Study, type User } from '../models';
+import { MechanismFile, SpectrumMatrix } from '../models';
 import { readSpectrumMatrix } from '../services/mechanism/read-spectrum-matrix';
-import { sha256Of } from '../services/studies/files/raw-file-store';
 import { DEFAULT_UPLOAD_LIMITS } from '../services/studies/parse/upload-limits';
-import type { DemoClock } from './demo-clock';
+import { keepDemoFile, keptWithStudy, type DemoStudySeed } from './demo-files';
 
 /*
  * The demo's emission spectrum matrix: INVENTED emission of the iridium emitter with the amine,
@@ -36,13 +33,8 @@ function demoFile(): Buffer {
 }
 
 /** Keeps the invented matrix with the study (the file on its row), read and analysed as an upload would be. */
-export async function seedDemoExciplex(
-  transaction: Transaction,
-  lab: Lab,
-  owner: User,
-  study: Study,
-  clock: DemoClock,
-): Promise<void> {
+export async function seedDemoExciplex(seed: DemoStudySeed): Promise<void> {
+  const { transaction, lab, owner, study, clock } = seed;
   const bytes = demoFile();
   const options = spectrumMatrixOptionsSchema.parse({});
   const outcome = await readSpectrumMatrix({
@@ -53,39 +45,22 @@ export async function seedDemoExciplex(
   });
   if (outcome.kind !== 'read' || !outcome.analysis.flags.some((flag) => flag.code === 'NEW_COMPONENT_GROWS'))
     throw new Error(`The demo spectrum matrix does not show its exciplex: ${JSON.stringify(outcome).slice(0, 300)}`);
-  const sha256 = await sha256Of(bytes);
-  const file = await MechanismFile.create(
-    {
-      labId: lab.id,
-      fileName: demoExciplexFileName,
-      mediaType: 'text/csv',
-      size: bytes.length,
-      sha256,
-      storage: 'database',
-      storageKey: null,
-      content: bytes,
-      uploadedById: owner.id,
-    },
-    { transaction },
-  );
+  const file = await keepDemoFile(MechanismFile, seed, demoExciplexFileName, bytes);
   const matrix = await SpectrumMatrix.create(
     {
-      labId: lab.id,
-      studyId: study.id,
+      ...keptWithStudy(seed),
       fileId: file.id,
       title: demoExciplexFileName,
       bandWidth: options.bandWidth,
       reading: outcome.reading,
       analysis: outcome.analysis,
       plot: outcome.plot,
-      engineVersion: ENGINE_VERSION,
-      createdById: owner.id,
     },
     { transaction },
   );
   clock.record({ userId: owner.id, ip: null }, 'spectrum_matrix_kept', lab.id, study.id, {
     spectrumMatrixId: matrix.id,
-    file: { id: file.id, fileName: demoExciplexFileName, size: bytes.length, sha256 },
+    file,
     bandWidth: options.bandWidth,
     flags: outcome.analysis.flags.map((flag) => flag.code),
   });

@@ -442,7 +442,8 @@ export async function seedDemoStudies(
     created.set(demo.key, study);
   }
   clock.set(1, 11);
-  await seedDemoDecays(transaction, lab, people.priya, created.get('ir-alkene-decays')!, clock);
-  await seedDemoAbsorption(transaction, lab, people.priya, created.get('cz-alkene')!, clock);
-  await seedDemoExciplex(transaction, lab, people.priya, created.get('ir-amine-dilution')!, clock);
+  const withStudy = (key: string) => ({ transaction, lab, owner: people.priya, study: created.get(key)!, clock });
+  await seedDemoDecays(withStudy('ir-alkene-decays'));
+  await seedDemoAbsorption(withStudy('cz-alkene'));
+  await seedDemoExciplex(withStudy('ir-amine-dilution'));
 }
