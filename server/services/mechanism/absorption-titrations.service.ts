@@ -1,4 +1,4 @@
-import { compareAssociationConstants, ENGINE_VERSION, type AbsorptionEvidence } from '@shared/engine';
+import { compareAssociationConstants, type AbsorptionEvidence } from '@shared/engine';
 import type {
   AbsorptionAnalysisAnswer,
   AbsorptionComparisonAnswer,
@@ -151,19 +151,13 @@ export async function keepAbsorptionTitration(
     async (kept, transaction) => {
       const titration = await AbsorptionTitration.create(
         {
-          labId: lab.id,
-          studyId,
+          ...attached.analysedRecordColumns(lab, studyId, actor, outcome),
           fileId: kept[0]!.id,
           quencherFileId: kept[1]?.id ?? null,
           kind: 'absorption',
           title: upload.file.originalname.slice(0, 255),
           bandWidth: upload.options.bandWidth,
           options: upload.options,
-          reading: outcome.reading,
-          analysis: outcome.analysis,
-          plot: outcome.plot,
-          engineVersion: ENGINE_VERSION,
-          createdById: actor.userId,
         },
         { transaction },
       );

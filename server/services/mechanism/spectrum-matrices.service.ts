@@ -1,4 +1,3 @@
-import { ENGINE_VERSION } from '@shared/engine';
 import type { SpectrumMatrix as SpectrumMatrixAnswer, SpectrumMatrixOptions } from '@shared/schemas/spectrum-matrices';
 import type { SignedInActor } from '../../domain/actor';
 import type { LabContext } from '../../domain/lab-context';
@@ -59,16 +58,10 @@ export async function keepSpectrumMatrix(
     async ([kept], transaction) => {
       const matrix = await SpectrumMatrix.create(
         {
-          labId: lab.id,
-          studyId,
+          ...attached.analysedRecordColumns(lab, studyId, actor, outcome),
           fileId: kept!.id,
           title: file.originalname.slice(0, 255),
           bandWidth: options.bandWidth,
-          reading: outcome.reading,
-          analysis: outcome.analysis,
-          plot: outcome.plot,
-          engineVersion: ENGINE_VERSION,
-          createdById: actor.userId,
         },
         { transaction },
       );

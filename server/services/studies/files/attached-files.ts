@@ -1,4 +1,5 @@
 import crypto from 'node:crypto';
+import { ENGINE_VERSION } from '@shared/engine';
 import type { Includeable, Model, ModelStatic, Transaction, WhereOptions } from 'sequelize';
 import type { SignedInActor } from '../../../domain/actor';
 import type { LabContext } from '../../../domain/lab-context';
@@ -102,6 +103,18 @@ export async function keepWithFiles<T>(
     throw error;
   }
 }
+
+/**
+ * The columns a record analysed from kept files (a spectrum matrix, an absorption titration)
+ * writes besides its own: its lab and study, what the engine read and found, who kept it and
+ * with which engine version.
+ */
+export const analysedRecordColumns = <R, A, P>(
+  lab: LabContext,
+  studyId: string,
+  actor: SignedInActor,
+  { reading, analysis, plot }: { reading: R; analysis: A; plot: P },
+) => ({ labId: lab.id, studyId, reading, analysis, plot, engineVersion: ENGINE_VERSION, createdById: actor.userId });
 
 /** A kept file as the audit log names it. */
 export const keptFileDetails = ({ id, file, sha256 }: KeptBytes) => ({
