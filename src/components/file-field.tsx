@@ -1,9 +1,13 @@
 import { useId } from 'react';
 import { FilePickButton } from './file-pick-button';
 
+/** The instrument exports Halflight reads (text tables, .xlsx, JCAMP-DX), as the server checks them. */
+export const INSTRUMENT_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
+
 interface FileFieldProps {
   label: string;
-  accept: string;
+  /** The file types offered; an instrument export unless said otherwise. */
+  accept?: string;
   hint?: string;
   /** The name of the file already chosen, shown beside the button. */
   fileName?: string | null;
@@ -15,7 +19,14 @@ interface FileFieldProps {
  * Halflight's file picker: a labelled button and the chosen file's name, instead of the browser's
  * bare control (the input itself: FilePickButton).
  */
-export function FileField({ label, accept, hint, fileName, disabled = false, onFile }: FileFieldProps) {
+export function FileField({
+  label,
+  accept = INSTRUMENT_FILES,
+  hint,
+  fileName,
+  disabled = false,
+  onFile,
+}: FileFieldProps) {
   const id = useId();
   return (
     <div className="flex flex-col gap-1">

@@ -1,8 +1,5 @@
 import type { DecayModel } from '@shared/schemas/decays';
 
-/** The decay and response files the reader takes. */
-export const DECAY_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
-
 /** The model a first look fits: one exponential, reconvolution when there is a response, Poisson likelihood. */
 export const DEFAULT_DECAY_MODEL: DecayModel = {
   components: 1,

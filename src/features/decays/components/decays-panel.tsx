@@ -15,7 +15,7 @@ import { useDecayCurves } from '../api/get-decay-curves';
 import { useStudyDecaySets } from '../api/get-study-decay-sets';
 import { useKeepDecaySet } from '../api/keep-decay-set';
 import { usePreviewDecays } from '../api/preview-decays';
-import { DECAY_FILES, DEFAULT_DECAY_MODEL, TIME_UNIT_OPTIONS } from './decay-file-choices';
+import { DEFAULT_DECAY_MODEL, TIME_UNIT_OPTIONS } from './decay-file-choices';
 import { DecayModelPicker } from './decay-model-picker';
 import { DecayParameters } from './decay-parameters';
 import { DecayPlot } from './decay-plot';
@@ -197,7 +197,6 @@ export function DecaysPanel({
             <FileField
               label="Decay file"
               hint="Time in the first column, one counts column per decay (.csv .txt .dat .xlsx .jdx)."
-              accept={DECAY_FILES}
               fileName={file?.name}
               onFile={(chosen) => {
                 setFile(chosen);
@@ -208,7 +207,6 @@ export function DecaysPanel({
               <FileField
                 label="Response file (optional)"
                 hint="Only when the instrument response is not a column of the decay file."
-                accept={DECAY_FILES}
                 fileName={response?.name}
                 onFile={(chosen) => {
                   setResponse(chosen);

@@ -15,7 +15,7 @@ import { useCompoundDecaySets } from '../api/get-compound-decay-sets';
 import { getDecayCurvesQueryOptions } from '../api/get-decay-curves';
 import { useKeepLibraryDecay } from '../api/keep-library-decay';
 import { usePreviewLibraryDecay } from '../api/preview-library-decay';
-import { DECAY_FILES, DEFAULT_DECAY_MODEL, TIME_UNIT_OPTIONS } from './decay-file-choices';
+import { DEFAULT_DECAY_MODEL, TIME_UNIT_OPTIONS } from './decay-file-choices';
 import { DecayModelPicker } from './decay-model-picker';
 import { DecayParameters } from './decay-parameters';
 import { DecayPlot } from './decay-plot';
@@ -175,7 +175,6 @@ function DecayToLifetime({
         <FileField
           label="Decay file of the emitter"
           hint="Time in the first column with its unit, one counts column, the response as a column named IRF (.csv .txt .dat .xlsx .jdx)."
-          accept={DECAY_FILES}
           fileName={file?.name}
           onFile={(chosen) => {
             setFile(chosen);
@@ -186,7 +185,6 @@ function DecayToLifetime({
           <FileField
             label="Response file (optional)"
             hint="Only when the instrument response is not a column of the decay file."
-            accept={DECAY_FILES}
             fileName={response?.name}
             onFile={(chosen) => {
               setResponse(chosen);

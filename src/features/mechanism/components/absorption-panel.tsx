@@ -19,8 +19,8 @@ import { useAbsorptionTitrations } from '../api/get-absorption-titrations';
 import { useKeepAbsorptionTitration } from '../api/keep-absorption-titration';
 import { usePreviewAbsorptionTitration } from '../api/preview-absorption-titration';
 import { AbsorptionPlots } from './absorption-plots';
+import { BandWidthField } from './band-width-field';
 
-const ACCEPT = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
 const EPSILON_UNIT = 'M⁻¹ cm⁻¹';
 
 /** K_a against K_S in words: the numbers, the difference in combined SEs, and whether they agree. */
@@ -186,7 +186,6 @@ export function AbsorptionPanel({ labId, studyId, editable }: { labId: string; s
           <div className="grid gap-3 sm:grid-cols-2">
             <FileField
               label="UV-vis spectra file"
-              accept={ACCEPT}
               hint="Wavelength in nm in the first column, one absorbance spectrum per column with its [Q] in the header (0 mM and at least 3 more), all on one grid."
               fileName={file?.name ?? null}
               onFile={(chosen) => {
@@ -196,7 +195,6 @@ export function AbsorptionPanel({ labId, studyId, editable }: { labId: string; s
             />
             <FileField
               label="Quencher alone (optional)"
-              accept={ACCEPT}
               hint='Same grid, one column headed with its [Q] ("quencher 10 mM") or with ε ("ε (M-1 cm-1)").'
               fileName={quencher?.name ?? null}
               onFile={(chosen) => {
@@ -206,13 +204,7 @@ export function AbsorptionPanel({ labId, studyId, editable }: { labId: string; s
             />
           </div>
           <div className="grid gap-3 sm:grid-cols-3">
-            <TextField
-              label="Band width (nm)"
-              hint="0 gives one band per wavelength"
-              inputMode="decimal"
-              value={bandWidth}
-              onChange={(event) => setBandWidth(event.target.value)}
-            />
+            <BandWidthField value={bandWidth} onChange={setBandWidth} />
             <TextField
               label="Path length (cm)"
               inputMode="decimal"

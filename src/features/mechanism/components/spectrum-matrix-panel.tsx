@@ -6,13 +6,11 @@ import { EmptyState } from '@/components/empty-state';
 import { FileField } from '@/components/file-field';
 import { FormAlert } from '@/components/form-alert';
 import { Signal } from '@/components/signal';
-import { TextField } from '@/components/text-field';
 import { describeError } from '@/lib/form-errors';
 import { useSpectrumMatrices } from '../api/get-spectrum-matrices';
 import { useKeepSpectrumMatrix } from '../api/keep-spectrum-matrix';
+import { BandWidthField } from './band-width-field';
 import { SpectrumMatrixPlots } from './spectrum-matrix-plots';
-
-const ACCEPT = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
 
 /** What one kept matrix says: the flags or "one emitter", the χ² test and the component count, then the plots. */
 function MatrixView({ labId, matrix }: { labId: string; matrix: SpectrumMatrix }) {
@@ -86,18 +84,11 @@ export function SpectrumMatrixPanel({
           <div className="grid gap-3 sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
             <FileField
               label="Spectra file"
-              accept={ACCEPT}
               hint="Wavelength in nm in the first column, one spectrum per column with its [Q] in the header (e.g. 0 mM, 2 mM), all on one grid, including the spectrum without quencher."
               fileName={file?.name ?? null}
               onFile={setFile}
             />
-            <TextField
-              label="Band width (nm)"
-              hint="0 gives one band per wavelength"
-              inputMode="decimal"
-              value={bandWidth}
-              onChange={(event) => setBandWidth(event.target.value)}
-            />
+            <BandWidthField value={bandWidth} onChange={setBandWidth} />
           </div>
           {keep.isError && <FormAlert>{describeError(keep.error)}</FormAlert>}
           <Button
