@@ -90,6 +90,20 @@ describe('seedDemoStudies', () => {
     }
   });
 
+  it('when the demo comparison of HL-Ir-7 is opened, then its scattered acetonitrile kq give no λ and say why, instead of λ = 0 ± 70 eV', async () => {
+    const lab = await Lab.findOne({ where: { slug: demoLabs[0].slug } });
+    const emitter = await Compound.findOne({ where: { labId: lab!.id, name: 'HL-Ir-7' } });
+    const person = demoPeople.find((p) => p.roles.marram)!;
+    const client = await apiClient(testApp.app);
+    await client.signIn({ email: person.email, password: demoPassword });
+    const comparison = (await client.get(`/api/labs/${lab!.id}/comparisons/emitter/${emitter!.id}`).expect(200)).body;
+    const acetonitrile = comparison.trends.find((trend: { solvent: string }) => trend.solvent === 'acetonitrile');
+    expect(acetonitrile.points.length).toBeGreaterThanOrEqual(3);
+    expect(acetonitrile.fit).toBeNull();
+    // the engine's reason (fitRehmWeller, NOT_DETERMINED) as a person reads it, without its field name
+    expect(acetonitrile.note).toMatch(/^λ is not determined by these rate constants: /);
+  });
+
   it('when the demo is loaded, then one study carries a decay set whose lifetimes and tau0 fill its points, and its curves can be drawn', async () => {
     const study = studies.find((candidate) => candidate.title.endsWith('lifetimes from decays'))!;
     const sets = await DecaySet.findAll({ where: { studyId: study.id } });

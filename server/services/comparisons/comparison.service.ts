@@ -68,7 +68,9 @@ function trendFor(solvent: string, rows: ComparisonRow[], approvedOnly: boolean)
       note: null,
     };
   } catch (error) {
-    if (error instanceof EngineError) return { ...base, fit: null, note: error.message };
+    // the engine's reason without its field name ("rateConstants: "), which means nothing on the screen
+    if (error instanceof EngineError)
+      return { ...base, fit: null, note: error.message.replace(`${error.field}: `, '') };
     throw error;
   }
 }

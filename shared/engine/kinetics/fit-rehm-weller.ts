@@ -21,6 +21,8 @@ export interface RehmWellerFit {
 }
 
 const LN10 = Math.LN10;
+/** The range lambda is searched in, eV: from nearly nothing to beyond any reported for outer-sphere ET (common practice). */
+const LAMBDA_RANGE = [0.01, 5] as const;
 
 /**
  * Fits the reorganisation energy lambda (and optionally k_d/(K Z)) of the Rehm–Weller
@@ -30,13 +32,19 @@ const LN10 = Math.LN10;
  * s^2 (J^T J)^-1 from the Jacobian at the solution, s^2 = SS / (n - p). k_d/(K Z) is
  * fitted as log10 so it stays positive; 0.25 (Rehm & Weller's value) when fixed.
  *
+ * A lambda the data do not determine is refused rather than returned: when the best fit lies
+ * at the edge of the range searched (0.01 or 5 eV: the least-squares minimum is not inside it,
+ * e.g. kq scattered with no fall-off, or all on the diffusion plateau) or when its standard
+ * error is as large as the value (100 % or more); either way no number for lambda is meaningful.
+ *
  * @param input.drivingForces - dG_ET for each quencher, eV
  * @param input.rateConstants - kq for each quencher, M^-1 s^-1 (> 0)
  * @param input.diffusionLimit - k_d, M^-1 s^-1 (> 0), e.g. solventDiffusionLimit('acetonitrile')
  * @param input.fitKdOverKZ - also fit k_d/(K Z) (needs at least 3 points); default false
  * @param input.kdOverKZ - the fixed value, or the start when fitted; default 0.25
  * @param input.temperature - K, default 298.15
- * @throws EngineError LENGTH_MISMATCH, NON_FINITE_VALUE, NON_POSITIVE_VALUE, TOO_FEW_POINTS, FIT_DID_NOT_CONVERGE
+ * @throws EngineError LENGTH_MISMATCH, NON_FINITE_VALUE, NON_POSITIVE_VALUE, TOO_FEW_POINTS, FIT_DID_NOT_CONVERGE,
+ *   NOT_DETERMINED (lambda at the edge of the range searched, or its SE as large as the value)
  * @example fitRehmWeller({ drivingForces: [-0.6, -0.3, -0.1, 0.1], rateConstants: [5.30e9, 1.46e9, 1.75e8, 3.60e6], diffusionLimit: 1.93e10 }).reorganisationEnergy.value // ~ 0.80
  */
 export function fitRehmWeller(input: {
@@ -93,8 +101,8 @@ export function fitRehmWeller(input: {
   const result = levenbergMarquardt({ x: drivingForces, y }, model, {
     initialValues,
     jacobianFunction: jacobian,
-    minValues: fitKdOverKZ ? [0.01, -8] : [0.01],
-    maxValues: fitKdOverKZ ? [5, 8] : [5],
+    minValues: fitKdOverKZ ? [LAMBDA_RANGE[0], -8] : [LAMBDA_RANGE[0]],
+    maxValues: fitKdOverKZ ? [LAMBDA_RANGE[1], 8] : [LAMBDA_RANGE[1]],
     maxIterations: 300,
     errorTolerance: 1e-14,
   });
@@ -107,6 +115,14 @@ export function fitRehmWeller(input: {
       'Check the driving forces and rate constants',
     );
   }
+  const edge = LAMBDA_RANGE.find((bound) => Math.abs(params[0]! - bound) <= bound * 1e-6);
+  if (edge !== undefined)
+    throw new EngineError(
+      'NOT_DETERMINED',
+      'rateConstants',
+      `λ is not determined by these rate constants: the best fit lies at the edge of the range searched (${edge} eV)`,
+      'Add quenchers near thermoneutral (ΔG from about −0.3 to +0.3 eV), where kq depends most on λ',
+    );
   const f = model(params);
   const residuals = drivingForces.map((dG, i) => y[i]! - f(dG));
   const ss = residuals.reduce((sum, r) => sum + r * r, 0);
@@ -118,6 +134,13 @@ export function fitRehmWeller(input: {
   ).map((row) => row.map((v) => v * variance));
   // covariance is p x p (inverseNormalMatrix), params has p entries.
   const reorganisationEnergy = makeEstimate(params[0]!, Math.sqrt(covariance[0]![0]!), df);
+  if (!(reorganisationEnergy.standardError < reorganisationEnergy.value))
+    throw new EngineError(
+      'NOT_DETERMINED',
+      'rateConstants',
+      'λ is not determined by these rate constants: its standard error is as large as the value',
+      'Add quenchers near thermoneutral (ΔG from about −0.3 to +0.3 eV), where kq depends most on λ',
+    );
   let kdOverKZ: RehmWellerFit['kdOverKZ'] = { value: ratio0, fixed: true };
   if (fitKdOverKZ) {
     const logValue = params[1]!;

@@ -193,6 +193,44 @@ describe('Rehm–Weller / Marcus correlation', () => {
     );
   });
 
+  it('refuses lambda when every kq sits on the diffusion plateau, where the equation hardly depends on it', () => {
+    // Far downhill the Rehm–Weller equation tends to k_d/(1 + 0.25) = 0.8 k_d whatever lambda
+    // (Rehm & Weller 1970, the limit also checked above): the best fit runs to the smallest
+    // lambda searched, a bound and not a least-squares minimum, so no lambda is given.
+    const drivingForces = [-0.9, -0.7, -0.5, -0.3];
+    const rateConstants = drivingForces.map(() => 0.8 * kd);
+    expect(() => fitRehmWeller({ drivingForces, rateConstants, diffusionLimit: kd })).toThrow(
+      expect.objectContaining({
+        code: 'NOT_DETERMINED',
+        message: expect.stringMatching(/edge of the range searched \(0\.01 eV\)/),
+      }),
+    );
+  });
+
+  it('refuses lambda when kq scatters with no fall-off (the demo comparison that printed λ = 0 ± 70 eV)', () => {
+    // The demo lab's acetonitrile studies of HL-Ir-7 (server/seed/demo.ts, invented): kq from 9 × 10⁶ to
+    // 7 × 10¹⁰ M⁻¹ s⁻¹ with no order in ΔG; before this refusal the fit came back as 0.01 ± 74 eV.
+    const drivingForces = [-0.95, -0.57, -0.57, -0.57, -0.57, -0.57, 0.67, -0.33, 0.27];
+    const rateConstants = [7.4e10, 1.21e9, 1.01e9, 8.4e8, 8.4e8, 6.8e8, 3.68e8, 1.8e8, 9.1e6];
+    expect(() => fitRehmWeller({ drivingForces, rateConstants, diffusionLimit: kd })).toThrow(
+      expect.objectContaining({ code: 'NOT_DETERMINED' }),
+    );
+  });
+
+  it('refuses lambda when its standard error is as large as the value', () => {
+    // Test inputs against the equation's shape: the thermoneutral quencher faster (0.5 k_d) than the
+    // downhill one (0.3 k_d at −1.5 eV), which the Rehm–Weller curve, falling with ΔG, cannot follow;
+    // the least-squares lambda is inside the range but one degree of freedom leaves it unpinned.
+    const drivingForces = [-1.5, 0];
+    const rateConstants = [0.3 * kd, 0.5 * kd];
+    expect(() => fitRehmWeller({ drivingForces, rateConstants, diffusionLimit: kd })).toThrow(
+      expect.objectContaining({
+        code: 'NOT_DETERMINED',
+        message: expect.stringMatching(/standard error is as large as the value/),
+      }),
+    );
+  });
+
   it('fits k_d/(K Z) as well when asked, recovering both from exact data', () => {
     const drivingForces = Array.from({ length: 10 }, (_, i) => -0.9 + i * 0.12);
     const rateConstants = drivingForces.map((dG) =>
