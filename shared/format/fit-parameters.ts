@@ -34,7 +34,7 @@ const RATE: Known[] = [
  */
 export function fitParameterLines(
   model: FitModel,
-  result: Pick<FitResult, 'parameters' | 'lifetime'>,
+  result: Pick<FitResult, 'parameters' | 'lifetime'> & Partial<Pick<FitResult, 'intensity'>>,
 ): { lines: ParameterLine[]; note: string | null } {
   const p = result.parameters;
   let known: Known[];
@@ -66,6 +66,11 @@ export function fitParameterLines(
     ];
   } else {
     known = [line('kSv', 'K_SV', UNITS.perMolar, true), line('intercept', 'Intercept', '')];
+  }
+  if (result.intensity === 'no-intensity-data') {
+    // Lifetimes only: whatever the model, the line τ0/τ was fitted (shared/engine/study-fit/lifetime-only.ts).
+    known = [line('kSv', 'K_SV from lifetimes (τ0/τ)', UNITS.perMolar, true), line('intercept', 'Intercept', '')];
+    note = 'No intensity data: the lifetime Stern–Volmer line sees dynamic quenching only.';
   }
   const lines = [...known, ...RATE].flatMap((entry) => {
     const estimate = p[entry.key];

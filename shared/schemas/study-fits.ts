@@ -49,8 +49,16 @@ export const fitResultSchema = z
       curvature: z.enum(['linear', 'upward', 'downward']).nullable(),
       curvaturePValue: z.number().nullable(),
     }),
+    intensity: z
+      .enum(['fitted', 'no-intensity-data'])
+      .optional()
+      .describe(
+        'no-intensity-data: the series holds lifetimes only, and K_SV and kq come from the lifetime line τ0/τ (absent in older fits: fitted)',
+      ),
     reference: z.object({
-      kind: z.enum(['i0', 'ratio-data', 'replicate-runs']),
+      kind: z
+        .enum(['i0', 'ratio-data', 'replicate-runs', 'lifetime-tau0'])
+        .describe('lifetime-tau0: lifetimes only, the ratios are τ0/τ and value is τ0 in s'),
       value: z.number(),
       source: z.string(),
     }),

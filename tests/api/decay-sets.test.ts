@@ -318,6 +318,22 @@ describe('POST /api/labs/:labId/studies/:studyId/decay-sets/:setId/apply', () =>
     expect(typed.body.tau0Source).toBeNull();
   });
 
+  it('when a set is applied to a study without intensities, then the study is fitted from its lifetimes and says it has no intensity data', async () => {
+    const study = await newStudy();
+    const kept = await send(`${base(study.id)}/decay-sets`, titrationFile()).expect(201);
+    await client.post(`${base(study.id)}/decay-sets/${kept.body.id}/apply`, { version: 0 }).expect(200);
+    const detail = (await client.get(base(study.id)).expect(200)).body;
+    expect(detail.points.every((point: { intensity: number | null }) => point.intensity === null)).toBe(true);
+    expect(detail.fitProblem).toBeNull();
+    const { result } = detail.latestFit;
+    expect(result.intensity).toBe('no-intensity-data');
+    expect(result.plot.yLabel).toBe('τ0/τ');
+    // The generator's K_SV = 200 M^-1 within 5 % and tau0 = 5.0 ns within 1 % (the numbers the decays were made with).
+    expect(Math.abs(detail.latestFit.kSv / K_SV - 1)).toBeLessThan(0.05);
+    expect(Math.abs(result.tau0.value / TAU0 - 1)).toBeLessThan(0.01);
+    expect(detail.latestFit.kq / (detail.latestFit.kSv / result.tau0.value)).toBeCloseTo(1, 9);
+  });
+
   it('when a decay has no concentration, then applying is refused with 422 and the points are unchanged', async () => {
     const study = await newStudy();
     await client.patch(`${base(study.id)}/points`, { version: 0, points: intensityPoints }).expect(200);

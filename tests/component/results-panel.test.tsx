@@ -66,4 +66,20 @@ describe('ResultsPanel', () => {
       expect(item.textContent).toContain(`Check: ${flag.whatToCheck.join('; ')}.`);
     }
   });
+
+  it('when the study holds lifetimes only, then the panel says "no intensity data" and K_SV reads as the lifetime line', () => {
+    // tau = 1 µs / (1 + 500 [Q]) (Lakowicz 3rd ed. eq. 8.2, numbers constructed): K_SV = 500 M^-1 by hand.
+    const points = [0, 1e-3, 2e-3, 3e-3].map((concentration, position) => ({
+      ...pointAt(concentration),
+      lifetime: 1e-6 / (1 + 500 * concentration),
+      position,
+    }));
+    const fit: StudyFit = { ...storedFit(), ...fitStudy(studyDetail(), points, 'linear-free') };
+    renderWithClient(<ResultsPanel fit={fit} />);
+    expect(screen.getByLabelText('Intensity fit').textContent).toBe(
+      'Intensity fit: no intensity data. K_SV and kq come from the lifetime Stern–Volmer fit (τ0/τ).',
+    );
+    expect(screen.getByLabelText('K_SV from lifetimes (τ0/τ)').textContent).toMatch(/^500(\.0*)? ± /);
+    expect(screen.queryByText(/series cannot be fitted/)).toBeNull();
+  });
 });

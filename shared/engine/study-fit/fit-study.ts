@@ -15,6 +15,7 @@ import { screenSeries } from '../stern-volmer/screen-series';
 import { fixedLineBand, freeLineBand, quadraticBand, type BandPoint } from './bands';
 import { correctPoint, type CorrectionSettings } from './corrections';
 import { diffusionLimitFor, kqIncludes, rateConstant, tau0For, type KineticsSettings } from './kinetics';
+import { fitLifetimeOnly } from './lifetime-only';
 import { lifetimeAnalysis } from './lifetimes';
 import { compareWeighting, poolReplicates, type PooledReplicates } from './replicates';
 
@@ -136,6 +137,22 @@ export function fitStudy(
       );
     return [{ point, concentration: entry.concentration, value: entry.value }];
   });
+  // Every point's corrected values (left-out ones too), kept so a read never corrects again.
+  const corrections = corrected.some((entry) => entry.corrected)
+    ? corrected.map((entry) => ({
+        position: entry.point.position,
+        concentration: entry.concentration,
+        intensity: entry.value,
+        dilutionFactor: entry.dilutionFactor,
+        innerFilterFactor: entry.innerFilterFactor,
+      }))
+    : null;
+  // Lifetimes and no intensity at all: the lifetime line is the fit, the intensity fit "no intensity data".
+  if (!isRatio && used.length === 0 && included.some((entry) => entry.point.lifetime !== null)) {
+    const axis = axesFor(Math.max(0, ...corrected.map((entry) => entry.concentration))).concentration;
+    const outcome = fitLifetimeOnly(settings, corrected, model, axis, notes, flags);
+    return { ...outcome, result: { ...outcome.result, corrections } };
+  }
   const leftOut = corrected.filter((entry) => entry.point.excluded && entry.value !== null);
   const x = used.map((entry) => entry.concentration);
   const values = used.map((entry) => entry.value);
@@ -423,6 +440,7 @@ export function fitStudy(
     result: {
       parameters,
       statistics,
+      intensity: 'fitted',
       reference: {
         kind: isRatio ? 'ratio-data' : pooled ? 'replicate-runs' : 'i0',
         value: i0.value,
@@ -457,16 +475,7 @@ export function fitStudy(
         : null,
       flags: unique,
       notes,
-      // Every point's corrected values (left-out ones too), kept so a read never corrects again.
-      corrections: corrected.some((entry) => entry.corrected)
-        ? corrected.map((entry) => ({
-            position: entry.point.position,
-            concentration: entry.concentration,
-            intensity: entry.value,
-            dilutionFactor: entry.dilutionFactor,
-            innerFilterFactor: entry.innerFilterFactor,
-          }))
-        : null,
+      corrections,
       plot: {
         xAxis,
         yLabel,

@@ -90,6 +90,11 @@ export function ResultsPanel({ fit }: { fit: StudyFit }) {
       <p className="text-caption text-ink-500">
         {modelLabels[fit.model]} · engine {fit.engineVersion} · {formatDateTime(fit.createdAt)}
       </p>
+      {fit.result.intensity === 'no-intensity-data' && (
+        <p aria-label="Intensity fit">
+          Intensity fit: <strong>no intensity data</strong>. K_SV and kq come from the lifetime Stern–Volmer fit (τ0/τ).
+        </p>
+      )}
       <p aria-label="Weighting">Weighting: {weightingText(fit.result.weighting)}</p>
       <dl>
         {lines.map((line) => (
