@@ -1,12 +1,10 @@
 import { useState } from 'react';
-import type { DecayModel, DecayOutcome, DecayPreview, DecaySet, DecayTimeUnit } from '@shared/schemas/decays';
+import type { DecayOutcome, DecayPreview, DecaySet } from '@shared/schemas/decays';
 import type { StudyDetail } from '@shared/schemas/study-detail';
 import { formatEstimate, formatNumber } from '@shared/format';
 import { toMillimolar, toNanoseconds } from '@shared/units/units';
 import { Button } from '@/components/button';
-import { FileField } from '@/components/file-field';
 import { FormAlert } from '@/components/form-alert';
-import { SelectField } from '@/components/select-field';
 import { TableHead } from '@/components/table-head';
 import { TableScroll } from '@/components/table-scroll';
 import { describeError } from '@/lib/form-errors';
@@ -15,8 +13,8 @@ import { useDecayCurves } from '../api/get-decay-curves';
 import { useStudyDecaySets } from '../api/get-study-decay-sets';
 import { useKeepDecaySet } from '../api/keep-decay-set';
 import { usePreviewDecays } from '../api/preview-decays';
-import { DEFAULT_DECAY_MODEL, TIME_UNIT_OPTIONS } from './decay-file-choices';
-import { DecayModelPicker } from './decay-model-picker';
+import { useDecayReadChoices } from './decay-read-choices';
+import { DecayPreviewSummary, DecayReadFields } from './decay-read-fields';
 import { DecayParameters } from './decay-parameters';
 import { DecayPlot } from './decay-plot';
 import { DecaySternVolmerPlot } from './decay-stern-volmer-plot';
@@ -161,103 +159,29 @@ export function DecaysPanel({
   /** a kept set was fitted again: the study may have new lifetimes, tau0, fit and history */
   onRefitted: () => void;
 }) {
-  const [file, setFile] = useState<File | null>(null);
-  const [response, setResponse] = useState<File | null>(null);
-  const [model, setModel] = useState<DecayModel>(DEFAULT_DECAY_MODEL);
-  const [timeUnit, setTimeUnit] = useState<DecayTimeUnit | null>(null);
   const [preview, setPreview] = useState<DecayPreview | null>(null);
   const sets = useStudyDecaySets(labId, study.id);
   const read = usePreviewDecays(labId, study.id);
   const keep = useKeepDecaySet(labId, study.id);
-  const input = (next: {
-    file?: File;
-    response?: File | null;
-    show?: number;
-    model?: DecayModel;
-    timeUnit?: DecayTimeUnit | null;
-  }) => ({
-    file: (next.file ?? file)!,
-    response: next.response !== undefined ? next.response : response,
-    options: {
-      model: next.model ?? model,
-      timeUnit: next.timeUnit !== undefined ? next.timeUnit : timeUnit,
-      show: next.show ?? 0,
-    },
-  });
-  const look = (next: Parameters<typeof input>[0]) => {
-    if (!(next.file ?? file)) return;
-    read.mutate(input(next), { onSuccess: setPreview });
-  };
+  const choices = useDecayReadChoices((sent) => read.mutate(sent, { onSuccess: setPreview }));
 
   return (
     <div className="space-y-4">
       {editable && (
         <div className="space-y-3">
-          <div className="grid gap-3 sm:grid-cols-2">
-            <FileField
-              label="Decay file"
-              hint="Time in the first column, one counts column per decay (.csv .txt .dat .xlsx .jdx)."
-              fileName={file?.name}
-              onFile={(chosen) => {
-                setFile(chosen);
-                look({ file: chosen });
-              }}
-            />
-            <div className="space-y-1">
-              <FileField
-                label="Response file (optional)"
-                hint="Only when the instrument response is not a column of the decay file."
-                fileName={response?.name}
-                onFile={(chosen) => {
-                  setResponse(chosen);
-                  look({ response: chosen });
-                }}
-              />
-              {response && (
-                <Button
-                  variant="quiet"
-                  onClick={() => {
-                    setResponse(null);
-                    look({ response: null });
-                  }}
-                >
-                  Use no response file
-                </Button>
-              )}
-            </div>
-          </div>
-          <DecayModelPicker model={model} onChange={setModel} />
-          <div className="flex flex-wrap items-end gap-3">
-            <SelectField
-              label="Time unit, when the header names none"
-              value={timeUnit ?? ''}
-              options={TIME_UNIT_OPTIONS}
-              onChange={(event) =>
-                setTimeUnit(event.target.value === '' ? null : (event.target.value as DecayTimeUnit))
-              }
-            />
-            <Button variant="quiet" disabled={!file} pending={read.isPending} onClick={() => look({})}>
-              Fit again with these choices
-            </Button>
-          </div>
-          {read.isPending && <p className="text-body">Reading and fitting…</p>}
-          {read.isError && <FormAlert>{describeError(read.error)}</FormAlert>}
+          <DecayReadFields
+            choices={choices}
+            fileLabel="Decay file"
+            fileHint="Time in the first column, one counts column per decay (.csv .txt .dat .xlsx .jdx)."
+            reading={read}
+          />
           {preview && (
             <div aria-label="Decay preview" className="space-y-3 rounded-md border border-paper-300 p-3">
-              <p className="text-body">
-                <strong>{preview.fileName}</strong>: {preview.format}, {preview.channels} channels
-                {preview.channelWidth ? ` of ${formatNumber(preview.channelWidth * 1e12, 4)} ps` : ''}
-                {preview.responseSource ? `, response from the ${preview.responseSource}` : ', no response'}.
-              </p>
-              {[...preview.questions, ...preview.warnings].map((text) => (
-                <FormAlert key={text} tone="note">
-                  {text}
-                </FormAlert>
-              ))}
+              <DecayPreviewSummary preview={preview} />
               <OutcomesTable
                 outcomes={preview.outcomes}
                 shown={preview.shown?.index ?? 0}
-                onShow={(index) => look({ show: index })}
+                onShow={(index) => choices.lookAt({ show: index })}
               />
               {preview.shown && (
                 <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
@@ -271,7 +195,10 @@ export function DecaysPanel({
               <Button
                 pending={keep.isPending}
                 disabled={preview.questions.length > 0}
-                onClick={() => keep.mutate(input({}), { onSuccess: () => setPreview(null) })}
+                onClick={() => {
+                  const sent = choices.readOf();
+                  if (sent) keep.mutate(sent, { onSuccess: () => setPreview(null) });
+                }}
               >
                 Keep this decay set
               </Button>

@@ -1,12 +1,11 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { atmospheres } from '@shared/schemas/library-measurements';
-import type { DecayModel, DecayPreview, DecaySet, DecaySetRefit, DecayTimeUnit } from '@shared/schemas/decays';
+import type { DecayPreview, DecaySet, DecaySetRefit } from '@shared/schemas/decays';
 import { SOLVENTS } from '@shared/engine/kinetics/solvents';
 import { formatEstimate, formatNumber } from '@shared/format';
 import { toNanoseconds } from '@shared/units/units';
 import { Button } from '@/components/button';
-import { FileField } from '@/components/file-field';
 import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
 import { TextField } from '@/components/text-field';
@@ -15,8 +14,8 @@ import { useCompoundDecaySets } from '../api/get-compound-decay-sets';
 import { getDecayCurvesQueryOptions } from '../api/get-decay-curves';
 import { useKeepLibraryDecay } from '../api/keep-library-decay';
 import { usePreviewLibraryDecay } from '../api/preview-library-decay';
-import { DEFAULT_DECAY_MODEL, TIME_UNIT_OPTIONS } from './decay-file-choices';
-import { DecayModelPicker } from './decay-model-picker';
+import { useDecayReadChoices } from './decay-read-choices';
+import { DecayPreviewSummary, DecayReadFields } from './decay-read-fields';
 import { DecayParameters } from './decay-parameters';
 import { DecayPlot } from './decay-plot';
 import { RefitDecaySet } from './refit-decay-set';
@@ -133,10 +132,6 @@ function DecayToLifetime({
   defaultSolvent: string;
   onKept: () => void;
 }) {
-  const [file, setFile] = useState<File | null>(null);
-  const [response, setResponse] = useState<File | null>(null);
-  const [model, setModel] = useState<DecayModel>(DEFAULT_DECAY_MODEL);
-  const [timeUnit, setTimeUnit] = useState<DecayTimeUnit | null>(null);
   const [conditions, setConditions] = useState<Conditions>({
     solvent: defaultSolvent,
     atmosphere: 'argon',
@@ -147,95 +142,32 @@ function DecayToLifetime({
   const [kept, setKept] = useState<DecaySet | null>(null);
   const read = usePreviewLibraryDecay(labId, compoundId);
   const keep = useKeepLibraryDecay(labId, compoundId, onKept);
-  const readOptions = (next: { model?: DecayModel; timeUnit?: DecayTimeUnit | null }) => ({
-    model: next.model ?? model,
-    timeUnit: next.timeUnit !== undefined ? next.timeUnit : timeUnit,
-    show: 0,
-  });
-  const look = (next: { file?: File; response?: File | null; model?: DecayModel }) => {
-    const chosen = next.file ?? file;
-    if (!chosen) return;
+  const choices = useDecayReadChoices((sent) => {
     setKept(null);
-    read.mutate(
-      {
-        file: chosen,
-        response: next.response !== undefined ? next.response : response,
-        options: readOptions(next),
-      },
-      { onSuccess: setPreview },
-    );
-  };
+    read.mutate(sent, { onSuccess: setPreview });
+  });
   const temperature = Number(conditions.temperature);
   const outcome = preview?.outcomes[0];
   const set = (field: keyof Conditions) => (value: string) => setConditions({ ...conditions, [field]: value });
 
   return (
     <div className="space-y-3">
-      <div className="grid gap-3 sm:grid-cols-2">
-        <FileField
-          label="Decay file of the emitter"
-          hint="Time in the first column with its unit, one counts column, the response as a column named IRF (.csv .txt .dat .xlsx .jdx)."
-          fileName={file?.name}
-          onFile={(chosen) => {
-            setFile(chosen);
-            look({ file: chosen });
-          }}
-        />
-        <div className="space-y-1">
-          <FileField
-            label="Response file (optional)"
-            hint="Only when the instrument response is not a column of the decay file."
-            fileName={response?.name}
-            onFile={(chosen) => {
-              setResponse(chosen);
-              look({ response: chosen });
-            }}
-          />
-          {response && (
-            <Button
-              variant="quiet"
-              onClick={() => {
-                setResponse(null);
-                look({ response: null });
-              }}
-            >
-              Use no response file
-            </Button>
-          )}
-        </div>
-      </div>
-      <DecayModelPicker model={model} onChange={setModel} />
-      <div className="flex flex-wrap items-end gap-3">
-        <SelectField
-          label="Time unit, when the header names none"
-          value={timeUnit ?? ''}
-          options={TIME_UNIT_OPTIONS}
-          onChange={(event) => setTimeUnit(event.target.value === '' ? null : (event.target.value as DecayTimeUnit))}
-        />
-        <Button variant="quiet" disabled={!file} pending={read.isPending} onClick={() => look({})}>
-          Fit again with these choices
-        </Button>
-      </div>
-      {read.isPending && <p className="text-body">Reading and fitting…</p>}
-      {read.isError && <FormAlert>{describeError(read.error)}</FormAlert>}
+      <DecayReadFields
+        choices={choices}
+        fileLabel="Decay file of the emitter"
+        fileHint="Time in the first column with its unit, one counts column, the response as a column named IRF (.csv .txt .dat .xlsx .jdx)."
+        reading={read}
+      />
       {preview && (
         <div aria-label="Decay preview" className="space-y-3 rounded-md border border-paper-300 p-3">
-          <p className="text-body">
-            <strong>{preview.fileName}</strong>: {preview.format}, {preview.channels} channels
-            {preview.channelWidth ? ` of ${formatNumber(preview.channelWidth * 1e12, 4)} ps` : ''}
-            {preview.responseSource ? `, response from the ${preview.responseSource}` : ', no response'}.
+          <DecayPreviewSummary preview={preview}>
             {outcome?.lifetime && (
               <>
                 {' '}
                 τ <strong className="tabular-nums">{lifetimeText(outcome.lifetime)}</strong>
               </>
             )}
-          </p>
-          {[...preview.questions, ...preview.warnings].map((text) => (
-            <FormAlert key={text} tone="note">
-              {text}
-            </FormAlert>
-          ))}
+          </DecayPreviewSummary>
           {preview.shown && (
             <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
               <DecayPlot curves={preview.shown} title={compoundName} />
@@ -273,14 +205,15 @@ function DecayToLifetime({
           {keep.isError && <FormAlert>{describeError(keep.error)}</FormAlert>}
           <Button
             pending={keep.isPending}
-            disabled={preview.questions.length > 0 || !file}
-            onClick={() =>
+            disabled={preview.questions.length > 0 || !choices.file}
+            onClick={() => {
+              const sent = choices.readOf();
+              if (!sent) return;
               keep.mutate(
                 {
-                  file: file!,
-                  response,
+                  ...sent,
                   options: {
-                    ...readOptions({}),
+                    ...sent.options,
                     solvent: conditions.solvent,
                     atmosphere: conditions.atmosphere,
                     // An empty or unreadable field is sent as it is, so the server names it.
@@ -294,8 +227,8 @@ function DecayToLifetime({
                     setKept(answer);
                   },
                 },
-              )
-            }
+              );
+            }}
           >
             Keep as a lifetime record
           </Button>

@@ -1,0 +1,98 @@
+import type { ReactNode } from 'react';
+import { formatNumber } from '@shared/format';
+import type { DecayPreview, DecayTimeUnit } from '@shared/schemas/decays';
+import { Button } from '@/components/button';
+import { FileField } from '@/components/file-field';
+import { FormAlert } from '@/components/form-alert';
+import { SelectField } from '@/components/select-field';
+import { describeError } from '@/lib/form-errors';
+import { TIME_UNIT_OPTIONS } from './decay-file-choices';
+import { DecayModelPicker } from './decay-model-picker';
+import type { DecayReadChoices } from './decay-read-choices';
+
+/**
+ * The fields of a decay reading: decay file, optional response file, model, time unit and "Fit
+ * again"; then "Reading and fitting…" or why the reading failed.
+ */
+export function DecayReadFields({
+  choices,
+  fileLabel,
+  fileHint,
+  reading,
+}: {
+  choices: DecayReadChoices;
+  fileLabel: string;
+  fileHint: string;
+  reading: { isPending: boolean; error: Error | null };
+}) {
+  const { file, response, model, timeUnit, setFile, setResponse, setModel, setTimeUnit, lookAt } = choices;
+  return (
+    <>
+      <div className="grid gap-3 sm:grid-cols-2">
+        <FileField
+          label={fileLabel}
+          hint={fileHint}
+          fileName={file?.name}
+          onFile={(chosen) => {
+            setFile(chosen);
+            lookAt({ file: chosen });
+          }}
+        />
+        <div className="space-y-1">
+          <FileField
+            label="Response file (optional)"
+            hint="Only when the instrument response is not a column of the decay file."
+            fileName={response?.name}
+            onFile={(chosen) => {
+              setResponse(chosen);
+              lookAt({ response: chosen });
+            }}
+          />
+          {response && (
+            <Button
+              variant="quiet"
+              onClick={() => {
+                setResponse(null);
+                lookAt({ response: null });
+              }}
+            >
+              Use no response file
+            </Button>
+          )}
+        </div>
+      </div>
+      <DecayModelPicker model={model} onChange={setModel} />
+      <div className="flex flex-wrap items-end gap-3">
+        <SelectField
+          label="Time unit, when the header names none"
+          value={timeUnit ?? ''}
+          options={TIME_UNIT_OPTIONS}
+          onChange={(event) => setTimeUnit(event.target.value === '' ? null : (event.target.value as DecayTimeUnit))}
+        />
+        <Button variant="quiet" disabled={!file} pending={reading.isPending} onClick={() => lookAt()}>
+          Fit again with these choices
+        </Button>
+      </div>
+      {reading.isPending && <p className="text-body">Reading and fitting…</p>}
+      {reading.error && <FormAlert>{describeError(reading.error)}</FormAlert>}
+    </>
+  );
+}
+
+/** What was read: the file, its format, channels and where the response came from (then `children`), and each question or warning. */
+export function DecayPreviewSummary({ preview, children }: { preview: DecayPreview; children?: ReactNode }) {
+  return (
+    <>
+      <p className="text-body">
+        <strong>{preview.fileName}</strong>: {preview.format}, {preview.channels} channels
+        {preview.channelWidth ? ` of ${formatNumber(preview.channelWidth * 1e12, 4)} ps` : ''}
+        {preview.responseSource ? `, response from the ${preview.responseSource}` : ', no response'}.{children}
+      </p>
+      {[...preview.questions, ...preview.warnings].map((text) => (
+        <FormAlert key={text} tone="note">
+          {text}
+        </FormAlert>
+      ))}
+    </>
+  );
+}
