@@ -4,6 +4,7 @@ import type {
   AbsorptionAnalysisAnswer,
   AbsorptionOptions,
   AbsorptionPlot,
+  AbsorptionSettings,
 } from '@shared/schemas/absorption-titrations';
 import type { SpectrumMatrixReading } from '@shared/schemas/spectrum-matrices';
 import type { MechanismFile } from './mechanism-file.model';
@@ -30,7 +31,8 @@ export class AbsorptionTitration extends LabRecord<AbsorptionTitration> {
   declare kind: 'absorption';
   declare title: string;
   declare bandWidth: number;
-  declare options: AbsorptionOptions;
+  /** as uploaded; a titration analysed again also stores whether the quencher was taken out and which K_a is used */
+  declare options: AbsorptionOptions & Partial<Pick<AbsorptionSettings, 'subtractQuencher' | 'associationFit'>>;
   declare reading: SpectrumMatrixReading & { quencher: StoredQuencherReading | null };
   declare analysis: AbsorptionAnalysisAnswer;
   declare plot: AbsorptionPlot;

@@ -2,16 +2,22 @@ import type { Request, Response } from 'express';
 import {
   absorptionOptionsSchema,
   absorptionPreviewSchema,
+  absorptionReanalysisSchema,
   absorptionTitrationListSchema,
   absorptionTitrationParamsSchema,
+  absorptionTitrationReanalysedSchema,
   absorptionTitrationSchema,
 } from '@shared/schemas/absorption-titrations';
+import { spectraDiscardedSchema } from '@shared/schemas/spectrum-matrices';
 import { studyParamsSchema } from '@shared/schemas/studies';
 import { defineRoute, parsePart } from '../http/define-route';
 import { filesReceiver } from '../http/receive-files';
 import { labOf, signedInActor } from '../http/request-context';
 import {
   discardAbsorptionTitration,
+  reanalyseAbsorptionTitration,
+} from '../services/mechanism/absorption-titration-changes.service';
+import {
   keepAbsorptionTitration,
   listAbsorptionTitrations,
   previewAbsorptionTitration,
@@ -108,28 +114,66 @@ export const absorptionTitrationRoutes = [
     },
   }),
   defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/absorption-titrations/:titrationId/reanalyse',
+    summary:
+      "Analyse a kept absorption titration again from its kept files with new settings (band width, path length, [E]0, whether the quencher's own absorbance is taken out, which K_a the verdict uses); audited with the verdict before and after",
+    tags: ['mechanism'],
+    access: { lab: 'researcher' },
+    request: { params: absorptionTitrationParamsSchema, body: absorptionReanalysisSchema },
+    responses: {
+      200: {
+        description: "The titration as now analysed, and the study's mechanism verdict before and after",
+        schema: absorptionTitrationReanalysedSchema,
+      },
+      400: { description: 'Settings that are not valid (details name the field)' },
+      403: { description: 'Not the owner' },
+      404: { description: 'No such study or titration' },
+      409: { description: 'The study is locked' },
+      422: {
+        description:
+          "The quencher's absorbance asked to be taken out of a titration kept without its file, or the analysis cannot be done at these settings; nothing changed",
+      },
+      503: { description: 'Too many files are being read, or the object store did not answer; nothing changed' },
+    },
+    handler: async ({ req, res, params, body }) => {
+      res.json(
+        await reanalyseAbsorptionTitration(
+          req.app.locals.services,
+          labOf(req),
+          params.studyId,
+          params.titrationId,
+          body,
+          signedInActor(req),
+        ),
+      );
+    },
+  }),
+  defineRoute({
     method: 'delete',
     path: '/api/labs/:labId/studies/:studyId/absorption-titrations/:titrationId',
-    summary: 'Discard a kept absorption titration and its files (the audit log keeps their names and SHA-256)',
+    summary:
+      'Discard a kept absorption titration and its files (a file another revision still names stays; the audit log keeps their names, SHA-256 and the verdict before and after)',
     tags: ['mechanism'],
     access: { lab: 'researcher' },
     request: { params: absorptionTitrationParamsSchema },
     responses: {
-      204: { description: 'Discarded' },
+      200: { description: "Discarded; the study's mechanism verdict before and after", schema: spectraDiscardedSchema },
       400: { description: 'Not a titration id' },
       403: { description: 'Not the owner' },
       404: { description: 'No such study or titration' },
       409: { description: 'The study is locked' },
     },
     handler: async ({ req, res, params }) => {
-      await discardAbsorptionTitration(
-        req.app.locals.services,
-        labOf(req),
-        params.studyId,
-        params.titrationId,
-        signedInActor(req),
+      res.json(
+        await discardAbsorptionTitration(
+          req.app.locals.services,
+          labOf(req),
+          params.studyId,
+          params.titrationId,
+          signedInActor(req),
+        ),
       );
-      res.status(204).end();
     },
   }),
 ];

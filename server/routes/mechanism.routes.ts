@@ -7,8 +7,12 @@ import {
 } from '@shared/schemas/temperature-series';
 import {
   mechanismFileParamsSchema,
+  spectraDiscardedSchema,
   spectrumMatrixListSchema,
   spectrumMatrixOptionsSchema,
+  spectrumMatrixParamsSchema,
+  spectrumMatrixReanalysedSchema,
+  spectrumMatrixReanalysisSchema,
   spectrumMatrixSchema,
 } from '@shared/schemas/spectrum-matrices';
 import { studyParamsSchema } from '@shared/schemas/studies';
@@ -22,6 +26,7 @@ import {
   listSpectrumMatrices,
 } from '../services/mechanism/spectrum-matrices.service';
 import { mechanismEvidence } from '../services/mechanism/mechanism-evidence.service';
+import { discardSpectrumMatrix, reanalyseSpectrumMatrix } from '../services/mechanism/spectrum-matrix-changes.service';
 import { analyseSeries, listTemperatureSeries } from '../services/mechanism/temperature-series.service';
 
 export const mechanismRoutes = [
@@ -124,6 +129,66 @@ export const mechanismRoutes = [
     },
     handler: async ({ req, res, params }) => {
       res.json({ items: await listSpectrumMatrices(labOf(req), params.studyId) });
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api/labs/:labId/studies/:studyId/spectrum-matrices/:matrixId/reanalyse',
+    summary:
+      'Analyse a kept spectrum matrix again from its kept file at another band width; audited with the verdict before and after',
+    tags: ['mechanism'],
+    access: { lab: 'researcher' },
+    request: { params: spectrumMatrixParamsSchema, body: spectrumMatrixReanalysisSchema },
+    responses: {
+      200: {
+        description: "The matrix as now analysed, and the study's mechanism verdict before and after",
+        schema: spectrumMatrixReanalysedSchema,
+      },
+      400: { description: 'A band width that is not valid (details name the field)' },
+      403: { description: 'Not the owner' },
+      404: { description: 'No such study or matrix' },
+      409: { description: 'The study is locked' },
+      422: { description: 'The analysis cannot be done at this band width; nothing changed' },
+      503: { description: 'Too many files are being read, or the object store did not answer; nothing changed' },
+    },
+    handler: async ({ req, res, params, body }) => {
+      res.json(
+        await reanalyseSpectrumMatrix(
+          req.app.locals.services,
+          labOf(req),
+          params.studyId,
+          params.matrixId,
+          body,
+          signedInActor(req),
+        ),
+      );
+    },
+  }),
+  defineRoute({
+    method: 'delete',
+    path: '/api/labs/:labId/studies/:studyId/spectrum-matrices/:matrixId',
+    summary:
+      'Discard a kept spectrum matrix and its file (a file another revision still names stays; the audit log keeps its name, SHA-256 and the verdict before and after)',
+    tags: ['mechanism'],
+    access: { lab: 'researcher' },
+    request: { params: spectrumMatrixParamsSchema },
+    responses: {
+      200: { description: "Discarded; the study's mechanism verdict before and after", schema: spectraDiscardedSchema },
+      400: { description: 'Not a matrix id' },
+      403: { description: 'Not the owner' },
+      404: { description: 'No such study or matrix' },
+      409: { description: 'The study is locked' },
+    },
+    handler: async ({ req, res, params }) => {
+      res.json(
+        await discardSpectrumMatrix(
+          req.app.locals.services,
+          labOf(req),
+          params.studyId,
+          params.matrixId,
+          signedInActor(req),
+        ),
+      );
     },
   }),
   defineRoute({

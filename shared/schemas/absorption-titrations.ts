@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { mechanismVerdictChangeSchema } from './mechanism-evidence';
 import { mechanismFileSchema, spectrumMatrixReadingSchema } from './spectrum-matrices';
 import { studyParamsSchema } from './studies';
 import { estimateSchema } from './study-fits';
@@ -53,6 +54,56 @@ export const absorptionOptionsSchema = z
   })
   .meta({ id: 'AbsorptionOptions' });
 export type AbsorptionOptions = z.output<typeof absorptionOptionsSchema>;
+
+/**
+ * Which fit gives the K_a the mechanism verdict and the comparison with K_S use: the 1:1 binding
+ * isotherm by nonlinear least squares, or the Benesi–Hildebrand double-reciprocal line (Benesi &
+ * Hildebrand, J. Am. Chem. Soc. 1949). Both are always fitted and shown.
+ */
+export const ASSOCIATION_FITS = ['isotherm', 'benesi-hildebrand'] as const;
+export type AssociationFit = (typeof ASSOCIATION_FITS)[number];
+const associationFitSchema = z
+  .enum(ASSOCIATION_FITS, { error: 'must be "isotherm" or "benesi-hildebrand"' })
+  .describe('the K_a the verdict and the comparison with K_S use');
+
+/** How a kept titration is analysed: the upload options, whether the quencher's file is taken out, and the K_a used. */
+export const absorptionSettingsSchema = z
+  .object({
+    bandWidth: z.number().describe('nm; 0 gives one band per wavelength'),
+    pathLength: z.number().describe('cm'),
+    emitterConcentration: z.number().optional().describe('mol/L; absent: the excess form'),
+    subtractQuencher: z.boolean().describe("the quencher's own absorbance (its kept file) is taken out"),
+    associationFit: associationFitSchema,
+  })
+  .meta({ id: 'AbsorptionSettings' });
+export type AbsorptionSettings = z.infer<typeof absorptionSettingsSchema>;
+
+/** Analyse a kept titration again from its kept files with new settings (every field given). */
+export const absorptionReanalysisSchema = z
+  .object({
+    bandWidth: z
+      .number({ error: 'must be a number of nanometres' })
+      .min(0, 'must be 0 (one band per wavelength) or more')
+      .max(MAX_ABSORPTION_BAND_WIDTH_NM, `must be at most ${MAX_ABSORPTION_BAND_WIDTH_NM} nm`)
+      .describe('nm; 0 gives one band per wavelength'),
+    pathLength: z
+      .number({ error: 'must be a length in cm' })
+      .positive('must be greater than 0 cm')
+      .max(MAX_PATH_LENGTH_CM, `must be at most ${MAX_PATH_LENGTH_CM} cm`)
+      .describe('cm, the cell length'),
+    emitterConcentration: z
+      .number({ error: 'must be a concentration in mol/L, or null' })
+      .positive('must be greater than 0 mol/L')
+      .max(1, 'must be at most 1 mol/L')
+      .nullable()
+      .describe('mol/L, [E]0 for the exact isotherm; null for the excess form'),
+    subtractQuencher: z
+      .boolean({ error: 'must be true or false' })
+      .describe("take the quencher's own absorbance out (needs the titration's quencher file)"),
+    associationFit: associationFitSchema,
+  })
+  .meta({ id: 'AbsorptionReanalysis' });
+export type AbsorptionReanalysis = z.infer<typeof absorptionReanalysisSchema>;
 
 export const absorptionTitrationParamsSchema = studyParamsSchema.extend({
   titrationId: z.string().uuid('must be an absorption titration id'),
@@ -182,7 +233,7 @@ export const absorptionTitrationSchema = absorptionPreviewSchema
     title: z.string(),
     file: mechanismFileSchema,
     quencherFile: mechanismFileSchema.nullable(),
-    options: absorptionOptionsSchema,
+    options: absorptionSettingsSchema,
     engineVersion: z.string(),
     createdBy: z.string().nullable(),
     createdAt: z.string(),
@@ -194,3 +245,8 @@ export const absorptionTitrationListSchema = z
   .object({ items: z.array(absorptionTitrationSchema) })
   .meta({ id: 'AbsorptionTitrationList' });
 export type AbsorptionTitrationList = z.infer<typeof absorptionTitrationListSchema>;
+
+export const absorptionTitrationReanalysedSchema = z
+  .object({ titration: absorptionTitrationSchema, verdict: mechanismVerdictChangeSchema })
+  .meta({ id: 'AbsorptionTitrationReanalysed' });
+export type AbsorptionTitrationReanalysed = z.infer<typeof absorptionTitrationReanalysedSchema>;

@@ -52,6 +52,19 @@ export const mechanismEvidenceSchema = z
   .meta({ id: 'MechanismEvidence' });
 export type MechanismEvidence = z.infer<typeof mechanismEvidenceSchema>;
 
+/**
+ * The study's combined verdict before and after a change to its spectra (a matrix or titration
+ * analysed again or discarded): the screen says when it moved, and the audit entry keeps both.
+ */
+export const mechanismVerdictChangeSchema = z
+  .object({
+    before: mechanismVerdictSchema,
+    after: mechanismVerdictSchema,
+    reasons: z.array(z.string()).describe('the reasons behind the verdict after the change'),
+  })
+  .meta({ id: 'MechanismVerdictChange' });
+export type MechanismVerdictChange = z.infer<typeof mechanismVerdictChangeSchema>;
+
 /** The few words for a verdict, the same on the screen, in the PDF and in the comparison. */
 export const MECHANISM_VERDICT_WORDS: Record<MechanismVerdictValue, string> = {
   dynamic: 'Dynamic (collisional)',

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { decayFileSchema } from './decays';
 import { labParamsSchema } from './members';
+import { mechanismVerdictChangeSchema } from './mechanism-evidence';
 import { studyParamsSchema } from './studies';
 import { estimateSchema } from './study-fits';
 
@@ -125,3 +126,26 @@ export const spectrumMatrixListSchema = z
   .object({ items: z.array(spectrumMatrixSchema) })
   .meta({ id: 'SpectrumMatrixList' });
 export type SpectrumMatrixList = z.infer<typeof spectrumMatrixListSchema>;
+
+/** Analyse a kept matrix again from its kept file at another band width. */
+export const spectrumMatrixReanalysisSchema = z
+  .object({
+    bandWidth: z
+      .number({ error: 'must be a number of nanometres' })
+      .min(0, 'must be 0 (one band per wavelength) or more')
+      .max(MAX_BAND_WIDTH_NM, `must be at most ${MAX_BAND_WIDTH_NM} nm`)
+      .describe('nm; 0 gives one band per wavelength'),
+  })
+  .meta({ id: 'SpectrumMatrixReanalysis' });
+export type SpectrumMatrixReanalysis = z.infer<typeof spectrumMatrixReanalysisSchema>;
+
+export const spectrumMatrixReanalysedSchema = z
+  .object({ matrix: spectrumMatrixSchema, verdict: mechanismVerdictChangeSchema })
+  .meta({ id: 'SpectrumMatrixReanalysed' });
+export type SpectrumMatrixReanalysed = z.infer<typeof spectrumMatrixReanalysedSchema>;
+
+/** What discarding a kept matrix or titration did to the study's verdict. */
+export const spectraDiscardedSchema = z
+  .object({ verdict: mechanismVerdictChangeSchema })
+  .meta({ id: 'SpectraDiscarded' });
+export type SpectraDiscarded = z.infer<typeof spectraDiscardedSchema>;

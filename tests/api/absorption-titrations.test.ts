@@ -105,7 +105,13 @@ describe('POST /api/labs/:labId/studies/:studyId/absorption-titrations', () => {
     // SHA-256 by node:crypto over the bytes sent.
     expect(answer.body.file.sha256).toBe(crypto.createHash('sha256').update(file).digest('hex'));
     expect(answer.body.quencherFile.sha256).toBe(crypto.createHash('sha256').update(quencher).digest('hex'));
-    expect(answer.body.options).toEqual({ bandWidth: 10, pathLength: 1, emitterConcentration: 2e-5 });
+    expect(answer.body.options).toEqual({
+      bandWidth: 10,
+      pathLength: 1,
+      emitterConcentration: 2e-5,
+      subtractQuencher: true,
+      associationFit: 'isotherm',
+    });
     // K_S = 150 M^-1 by construction; K_a from absorption is 150 M^-1 too: they agree.
     expect(answer.body.comparison.kS.value).toBeCloseTo(150, 3);
     expect(answer.body.comparison.isotherm.agree).toBe(true);
@@ -197,7 +203,16 @@ describe('DELETE /api/labs/:labId/studies/:studyId/absorption-titrations/:titrat
     const kept = await send(url(study.id), titrationFile());
     expect(kept.status).toBe(201);
     const gone = await client.agent.delete(`${url(study.id)}/${kept.body.id}`).set('x-csrf-token', csrf);
-    expect(gone.status).toBe(204);
+    expect(gone.status).toBe(200);
+    // The verdict without spectra or fit is unclear (combineMechanismEvidence); the titration read static before.
+    expect(gone.body.verdict).toMatchObject({ before: 'static', after: 'unclear' });
+    const audit = await AuditEvent.findOne({ where: { action: 'absorption_titration_discarded', targetId: study.id } });
+    expect(audit!.details).toMatchObject({
+      absorptionTitrationId: kept.body.id,
+      filesRemoved: [kept.body.file.id, kept.body.quencherFile.id],
+      flags: ['ABSORPTION_CHANGES'],
+      verdict: { before: 'static', after: 'unclear' },
+    });
     expect((await client.agent.get(url(study.id))).body.items).toEqual([]);
     const file = await client.agent.get(`/api/labs/${labId}/mechanism-files/${kept.body.file.id}`);
     expect(file.status).toBe(404);
@@ -226,7 +241,7 @@ describe('POST /api/labs/:labId/studies/:studyId/revisions with an absorption ti
     expect(audit!.details).toMatchObject({ copied: { decaySets: 0, spectrumMatrices: 0, absorptionTitrations: 1 } });
 
     const gone = await client.agent.delete(`${url(revision.body.id)}/${copies[0].id}`).set('x-csrf-token', csrf);
-    expect(gone.status, JSON.stringify(gone.body)).toBe(204);
+    expect(gone.status, JSON.stringify(gone.body)).toBe(200);
     expect((await client.agent.get(url(revision.body.id))).body.items).toEqual([]);
     // The approved revision still has its titration and both files, byte for byte.
     const before = (await client.agent.get(url(study.id))).body.items;
@@ -235,5 +250,113 @@ describe('POST /api/labs/:labId/studies/:studyId/revisions with an absorption ti
       const download = await client.agent.get(`/api/labs/${labId}/mechanism-files/${file.id}`);
       expect(download.status).toBe(200);
     }
+  });
+});
+
+describe('POST /api/labs/:labId/studies/:studyId/absorption-titrations/:titrationId/reanalyse', () => {
+  const reanalyse = (studyId: string, titrationId: string, body: object) =>
+    client.agent
+      .post(`${url(studyId)}/${titrationId}/reanalyse`)
+      .set('x-csrf-token', csrf)
+      .send(body);
+  const settings = {
+    bandWidth: 10,
+    pathLength: 1,
+    emitterConcentration: null,
+    subtractQuencher: false,
+    associationFit: 'benesi-hildebrand',
+  };
+
+  it("when analysed again without the quencher's file and with Benesi–Hildebrand, then it is stored so, the verdict reads that K_a and the change is audited", async () => {
+    const study = await newStudy();
+    const kept = await send(url(study.id), titrationFile(), { emitterConcentration: '2e-5' });
+    expect(kept.status).toBe(201);
+    const answer = await reanalyse(study.id, kept.body.id, settings);
+    expect(answer.status, JSON.stringify(answer.body).slice(0, 400)).toBe(200);
+    const { titration } = answer.body;
+    expect(titration.options).toEqual({
+      bandWidth: 10,
+      pathLength: 1,
+      subtractQuencher: false,
+      associationFit: 'benesi-hildebrand',
+    });
+    expect(titration.analysis.quencherCorrection).toBe('none');
+    expect(titration.quencher).toBeNull();
+    // The quencher's file stays kept with the titration, only not taken out.
+    expect(titration.quencherFile).toEqual(kept.body.quencherFile);
+    // Without [E]0 the isotherm takes [Q] in large excess.
+    // Left in, the quencher's own band (ε_Q peaks at 360 nm in the invented spectra) reads as the largest change,
+    // growing in proportion to [Q]: no isotherm shows, which is why its absorbance is taken out.
+    expect(titration.analysis.binding.band.centre).toBeGreaterThan(355);
+    expect(titration.analysis.binding.band.centre).toBeLessThan(370);
+    expect(titration.analysis.binding.isotherm.fit).toBeNull();
+    const evidence = (await client.agent.get(`/api/labs/${labId}/studies/${study.id}/mechanism`)).body;
+    expect(answer.body.verdict).toEqual({ before: 'static', after: evidence.verdict, reasons: evidence.reasons });
+    const absorption = evidence.pieces.find((piece: { kind: string }) => piece.kind === 'absorption');
+    // The K_a the verdict reads is the Benesi–Hildebrand one of the stored analysis.
+    expect(absorption.numbers[0].value).toBe(titration.analysis.binding.benesiHildebrand.fit.kA.value);
+    expect(absorption.summary).toMatch(/K_a from the Benesi–Hildebrand line/);
+    const listed = (await client.agent.get(url(study.id))).body.items;
+    expect(listed[0]).toMatchObject({ id: kept.body.id, options: titration.options, analysis: titration.analysis });
+    const audit = await AuditEvent.findOne({
+      where: { action: 'absorption_titration_reanalysed', targetId: study.id },
+    });
+    expect(audit!.details).toMatchObject({
+      absorptionTitrationId: kept.body.id,
+      before: {
+        settings: { bandWidth: 5, emitterConcentration: 2e-5, subtractQuencher: true, associationFit: 'isotherm' },
+        kA: { value: kept.body.analysis.binding.isotherm.fit.kA.value },
+      },
+      after: {
+        settings: { bandWidth: 10, subtractQuencher: false, associationFit: 'benesi-hildebrand' },
+        kA: { value: titration.analysis.binding.benesiHildebrand.fit.kA.value },
+      },
+      verdict: { before: 'static', after: evidence.verdict },
+    });
+
+    // The isotherm chosen where it gives no K_a: the verdict says so and reads the other fit's.
+    const fallback = await reanalyse(study.id, kept.body.id, { ...settings, associationFit: 'isotherm' });
+    expect(fallback.status).toBe(200);
+    const fallbackPiece = (await client.agent.get(`/api/labs/${labId}/studies/${study.id}/mechanism`)).body.pieces.find(
+      (piece: { kind: string }) => piece.kind === 'absorption',
+    );
+    expect(fallbackPiece.summary).toMatch(/The 1:1 isotherm gave no K_a \(.*\); K_a from the Benesi–Hildebrand line/);
+
+    // Back to the quencher's file taken out, read from the kept file again: K_a = 150 M^-1 (invented) within 2 %.
+    const back = await reanalyse(study.id, kept.body.id, {
+      ...settings,
+      emitterConcentration: 2e-5,
+      subtractQuencher: true,
+      associationFit: 'isotherm',
+    });
+    expect(back.status).toBe(200);
+    expect(back.body.titration.analysis.quencherCorrection).toBe('absorptivity');
+    expect(Math.abs(back.body.titration.analysis.binding.isotherm.fit.kA.value / 150 - 1)).toBeLessThan(0.02);
+  });
+
+  it('when the quencher is to be taken out of a titration kept without its file, then 422 names the field and nothing changes', async () => {
+    const study = await newStudy();
+    const kept = await send(url(study.id), titrationFile(), {}, null);
+    expect(kept.status).toBe(201);
+    const answer = await reanalyse(study.id, kept.body.id, { ...settings, subtractQuencher: true });
+    expect(answer.status).toBe(422);
+    expect(answer.body.error.details).toEqual([
+      { path: 'body.subtractQuencher', message: 'the titration has no quencher file' },
+    ]);
+    expect((await client.agent.get(url(study.id))).body.items[0].analysis).toEqual(kept.body.analysis);
+  });
+
+  it('when the settings are missing or not valid, then 400 names each field', async () => {
+    const study = await newStudy();
+    const kept = await send(url(study.id), titrationFile());
+    const answer = await reanalyse(study.id, kept.body.id, { bandWidth: 80, pathLength: 0, associationFit: 'guess' });
+    expect(answer.status).toBe(400);
+    expect(answer.body.error.details.map((detail: { path: string }) => detail.path).sort()).toEqual([
+      'body.associationFit',
+      'body.bandWidth',
+      'body.emitterConcentration',
+      'body.pathLength',
+      'body.subtractQuencher',
+    ]);
   });
 });

@@ -291,6 +291,26 @@ const matrix: Record<string, Row> = {
     path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/spectrum-matrices`,
     expected: labRoute('viewer', 404),
   },
+  'POST /api/labs/:labId/studies/:studyId/spectrum-matrices/:matrixId/reanalyse': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/spectrum-matrices/${unknownId}/reanalyse`,
+    body: { bandWidth: 5 },
+    expected: labRoute('researcher', 404),
+  },
+  'DELETE /api/labs/:labId/studies/:studyId/spectrum-matrices/:matrixId': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/spectrum-matrices/${unknownId}`,
+    expected: labRoute('researcher', 404),
+  },
+  'POST /api/labs/:labId/studies/:studyId/absorption-titrations/:titrationId/reanalyse': {
+    path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/absorption-titrations/${unknownId}/reanalyse`,
+    body: {
+      bandWidth: 5,
+      pathLength: 1,
+      emitterConcentration: null,
+      subtractQuencher: true,
+      associationFit: 'isotherm',
+    },
+    expected: labRoute('researcher', 404),
+  },
   'POST /api/labs/:labId/studies/:studyId/absorption-titrations/preview': {
     path: ({ labId }) => `/api/labs/${labId}/studies/${unknownId}/absorption-titrations/preview`,
     body: {},

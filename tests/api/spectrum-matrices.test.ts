@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Study } from '../../server/models';
+import { AuditEvent, Study } from '../../server/models';
 import { signedInResearcher, type ApiClient } from '../support/accounts';
 import { createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
@@ -168,5 +168,108 @@ describe('POST /api/labs/:labId/studies/:studyId/revisions with a spectrum matri
     // The approved revision keeps its own two, untouched.
     const before = (await client.agent.get(url(study.id))).body.items;
     expect(before.map((m: { id: string }) => m.id)).toEqual([newer.body.id, older.body.id]);
+  });
+});
+
+const evidenceOf = async (studyId: string) =>
+  (await client.agent.get(`/api/labs/${labId}/studies/${studyId}/mechanism`).expect(200)).body;
+
+describe('POST /api/labs/:labId/studies/:studyId/spectrum-matrices/:matrixId/reanalyse', () => {
+  it('when a kept matrix is analysed again at another band width, then it is stored so, the verdict before and after comes back and the change is audited', async () => {
+    const study = await newStudy();
+    const kept = await send(study.id, matrixFile(twoEmitters), '10');
+    expect(kept.status).toBe(201);
+    const answer = await client.agent
+      .post(`${url(study.id)}/${kept.body.id}/reanalyse`)
+      .set('x-csrf-token', csrf)
+      .send({ bandWidth: 5 });
+    expect(answer.status, JSON.stringify(answer.body).slice(0, 400)).toBe(200);
+    expect(answer.body.matrix.analysis.bandWidth).toBe(5);
+    // 400–600 nm in 5 nm bands against 10 nm bands: about twice as many.
+    expect(answer.body.matrix.analysis.bands.length).toBeGreaterThan(1.8 * kept.body.analysis.bands.length);
+    // Two emitters quenched at 300 and 30 M^-1 (invented) still differ across the narrower bands.
+    expect(answer.body.matrix.analysis.flags.map((f: { code: string }) => f.code)).toContain(
+      'KSV_VARIES_WITH_WAVELENGTH',
+    );
+    const evidence = await evidenceOf(study.id);
+    expect(answer.body.verdict).toEqual({ before: 'two-emitters', after: evidence.verdict, reasons: evidence.reasons });
+    const listed = (await client.agent.get(url(study.id))).body.items;
+    expect(listed[0]).toMatchObject({ id: kept.body.id, analysis: answer.body.matrix.analysis });
+    expect(listed[0].file).toEqual(kept.body.file);
+    const audit = await AuditEvent.findOne({ where: { action: 'spectrum_matrix_reanalysed', targetId: study.id } });
+    expect(audit!.details).toMatchObject({
+      spectrumMatrixId: kept.body.id,
+      before: { bandWidth: 10, flags: ['KSV_VARIES_WITH_WAVELENGTH'] },
+      after: { bandWidth: 5 },
+      verdict: { before: 'two-emitters', after: evidence.verdict },
+    });
+  });
+
+  it('when the band width is not valid, the matrix unknown or the study approved, then 400, 404 and 409, and nothing changes', async () => {
+    const study = await newStudy();
+    const kept = await send(study.id, matrixFile(oneEmitter), '10');
+    const reanalyse = (matrixId: string, body: object) =>
+      client.agent
+        .post(`${url(study.id)}/${matrixId}/reanalyse`)
+        .set('x-csrf-token', csrf)
+        .send(body);
+    const bad = await reanalyse(kept.body.id, { bandWidth: -2 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.details).toEqual([
+      { path: 'body.bandWidth', message: expect.stringMatching(/0 .* or more/) },
+    ]);
+    expect((await reanalyse(crypto.randomUUID(), { bandWidth: 5 })).status).toBe(404);
+    await Study.update({ status: 'approved' }, { where: { id: study.id } });
+    const locked = await reanalyse(kept.body.id, { bandWidth: 5 });
+    expect(locked.status).toBe(409);
+    const listed = (await client.agent.get(url(study.id))).body.items;
+    expect(listed[0].analysis).toEqual(kept.body.analysis);
+  });
+});
+
+describe('DELETE /api/labs/:labId/studies/:studyId/spectrum-matrices/:matrixId', () => {
+  it('when the newest matrix is discarded, then the verdict falls back to the older one, its file is gone and the audit keeps its name and hash', async () => {
+    const study = await newStudy();
+    const older = await send(study.id, matrixFile(oneEmitter), '10', 'one.csv');
+    const newer = await send(study.id, matrixFile(twoEmitters), '10', 'two.csv');
+    expect((await evidenceOf(study.id)).spectrumMatrixId).toBe(newer.body.id);
+    const gone = await client.agent.delete(`${url(study.id)}/${newer.body.id}`).set('x-csrf-token', csrf);
+    expect(gone.status, JSON.stringify(gone.body)).toBe(200);
+    const evidence = await evidenceOf(study.id);
+    expect(evidence.spectrumMatrixId).toBe(older.body.id);
+    expect(gone.body.verdict).toEqual({ before: 'two-emitters', after: evidence.verdict, reasons: evidence.reasons });
+    expect(evidence.verdict).not.toBe('two-emitters');
+    expect((await client.agent.get(url(study.id))).body.items.map((m: { id: string }) => m.id)).toEqual([
+      older.body.id,
+    ]);
+    expect((await client.agent.get(`/api/labs/${labId}/mechanism-files/${newer.body.file.id}`)).status).toBe(404);
+    const audit = await AuditEvent.findOne({ where: { action: 'spectrum_matrix_discarded', targetId: study.id } });
+    expect(audit!.details).toMatchObject({
+      spectrumMatrixId: newer.body.id,
+      file: { id: newer.body.file.id, fileName: 'two.csv', sha256: newer.body.file.sha256 },
+      fileRemoved: true,
+      flags: ['KSV_VARIES_WITH_WAVELENGTH'],
+      verdict: { before: 'two-emitters', after: evidence.verdict },
+    });
+    const again = await client.agent.delete(`${url(study.id)}/${newer.body.id}`).set('x-csrf-token', csrf);
+    expect(again.status).toBe(404);
+  });
+
+  it('when a revision discards its copy, then the approved revision keeps the matrix and its file', async () => {
+    const study = await newStudy();
+    const kept = await send(study.id, matrixFile(oneEmitter));
+    await Study.update({ status: 'approved' }, { where: { id: study.id } });
+    const revision = await client.agent
+      .post(`/api/labs/${labId}/studies/${study.id}/revisions`)
+      .set('x-csrf-token', csrf);
+    const [copy] = (await client.agent.get(url(revision.body.id))).body.items;
+    const gone = await client.agent.delete(`${url(revision.body.id)}/${copy.id}`).set('x-csrf-token', csrf);
+    expect(gone.status).toBe(200);
+    expect((await client.agent.get(url(study.id))).body.items.map((m: { id: string }) => m.id)).toEqual([kept.body.id]);
+    expect((await client.agent.get(`/api/labs/${labId}/mechanism-files/${kept.body.file.id}`)).status).toBe(200);
+    const audit = await AuditEvent.findOne({
+      where: { action: 'spectrum_matrix_discarded', targetId: revision.body.id },
+    });
+    expect(audit!.details).toMatchObject({ fileRemoved: false });
   });
 });

@@ -4,7 +4,9 @@ import type {
   AbsorptionComparisonAnswer,
   AbsorptionOptions,
   AbsorptionPreview,
+  AbsorptionSettings,
   AbsorptionTitration as AbsorptionTitrationAnswer,
+  AssociationFit,
 } from '@shared/schemas/absorption-titrations';
 import type { SignedInActor } from '../../domain/actor';
 import type { LabContext } from '../../domain/lab-context';
@@ -15,7 +17,6 @@ import * as attached from '../studies/files/attached-files';
 import { loadStudy, loadStudyToChange } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
 import type { AbsorptionTitrationOutcome } from './read-absorption-titration';
-import { releaseMechanismFiles } from './release-mechanism-files';
 
 export interface AbsorptionUpload {
   file: attached.ReceivedFile;
@@ -25,25 +26,29 @@ export interface AbsorptionUpload {
 
 type ReadOutcome = Extract<AbsorptionTitrationOutcome, { kind: 'read' }>;
 
-const withFiles = [
+export const withFiles = [
   attached.fileRowWithoutBytes(MechanismFile, 'file'),
   attached.fileRowWithoutBytes(MechanismFile, 'quencherFile'),
   { model: User, as: 'createdBy', attributes: ['name'] },
 ];
 
-/** Reads in a reading thread; a limit is 413 (422 for time), an unreadable file or analysis 422 naming it; nothing kept. */
-async function readOrRefuse(services: UploadServices, upload: AbsorptionUpload): Promise<ReadOutcome> {
+/** Reads in a reading thread; a limit is 413 (422 for time), an unreadable file or analysis 422 naming it; nothing kept (or changed). */
+export async function readOrRefuse(
+  services: UploadServices,
+  upload: AbsorptionUpload,
+  consequence = 'Nothing was kept.',
+): Promise<ReadOutcome> {
   const outcome = await services.uploadReader.readAbsorptionTitration({
     fileName: upload.file.originalname,
     bytes: upload.file.buffer,
     quencher: upload.quencher ? { fileName: upload.quencher.originalname, bytes: upload.quencher.buffer } : null,
     options: upload.options,
   });
-  if (outcome.kind === 'limit') attached.refuseOverLimit(outcome);
+  if (outcome.kind === 'limit') attached.refuseOverLimit(outcome, consequence);
   if (outcome.kind === 'unreadable')
     throw new AppError(
       'absorption_titration_unreadable',
-      `${outcome.problems[0]!.message} Nothing was kept.`,
+      `${outcome.problems[0]!.message} ${consequence}`,
       422,
       outcome.problems.map((problem) => ({
         path: problem.row ? `file.row ${problem.row}` : problem.column ? `file.column ${problem.column}` : 'file',
@@ -53,12 +58,50 @@ async function readOrRefuse(services: UploadServices, upload: AbsorptionUpload):
   return outcome;
 }
 
+/** How a kept titration is analysed; rows kept before re-analysis existed take out a kept quencher file and use the isotherm. */
+export function settingsOf(row: Pick<AbsorptionTitration, 'options' | 'quencherFileId'>): AbsorptionSettings {
+  const { subtractQuencher, associationFit, ...options } = row.options;
+  return {
+    ...options,
+    subtractQuencher: subtractQuencher ?? row.quencherFileId !== null,
+    associationFit: associationFit ?? 'isotherm',
+  };
+}
+
+const FIT_WORDS: Record<AssociationFit, string> = {
+  isotherm: 'the 1:1 isotherm',
+  'benesi-hildebrand': 'the Benesi–Hildebrand line',
+};
+
+/**
+ * The K_a a titration offers: the chosen fit's, else the other's when the chosen one gave none
+ * (with the words saying so); null when the absorption does not change or neither fit.
+ */
+export function chosenAssociation(analysis: Pick<AbsorptionAnalysisAnswer, 'binding'>, choice: AssociationFit) {
+  const binding = analysis.binding;
+  if (!binding) return null;
+  const fits = { isotherm: binding.isotherm, 'benesi-hildebrand': binding.benesiHildebrand };
+  const other: AssociationFit = choice === 'isotherm' ? 'benesi-hildebrand' : 'isotherm';
+  const chosen = fits[choice].fit;
+  if (chosen) return { fit: chosen, words: `K_a from ${FIT_WORDS[choice]}.` };
+  const fallback = fits[other].fit;
+  if (!fallback) return null;
+  return {
+    fit: fallback,
+    words: `${FIT_WORDS[choice].replace(/^the/, 'The')} gave no K_a (${fits[choice].problem ?? 'no fit'}); K_a from ${FIT_WORDS[other]}.`,
+  };
+}
+
 /**
  * K_a against K_S of the study's latest combined static+dynamic fit, worked out when read (the
  * fit may change after the titration is kept). A fit that could not tell K_S from K_D offers its
  * two roots: the one nearer K_a is taken, and the source says so.
  */
-async function comparisonFor(study: Study, analysis: AbsorptionAnalysisAnswer): Promise<AbsorptionComparisonAnswer> {
+export async function comparisonFor(
+  study: Study,
+  analysis: AbsorptionAnalysisAnswer,
+  associationFit: AssociationFit = 'isotherm',
+): Promise<AbsorptionComparisonAnswer> {
   const none = (source: string): AbsorptionComparisonAnswer => ({
     kS: null,
     source,
@@ -68,7 +111,7 @@ async function comparisonFor(study: Study, analysis: AbsorptionAnalysisAnswer): 
   const fit = study.latestFitId ? await StudyFit.findByPk(study.latestFitId) : null;
   if (!fit || fit.model !== 'static-dynamic')
     return none('No K_S: fit the study with the combined static and dynamic model to compare.');
-  const kA = analysis.binding?.isotherm.fit?.kA ?? analysis.binding?.benesiHildebrand.fit?.kA ?? null;
+  const kA = chosenAssociation(analysis, associationFit)?.fit.kA ?? null;
   const parameters = fit.result.parameters;
   let kS = parameters.kS ?? null;
   let source = "K_S of the study's combined static and dynamic fit.";
@@ -107,20 +150,21 @@ export async function previewAbsorptionTitration(
   };
 }
 
-async function toAnswer(row: AbsorptionTitration, study: Study): Promise<AbsorptionTitrationAnswer> {
+export async function toAnswer(row: AbsorptionTitration, study: Study): Promise<AbsorptionTitrationAnswer> {
   const { quencher, ...reading } = row.reading;
+  const settings = settingsOf(row);
   return {
     id: row.id,
     studyId: row.studyId,
     title: row.title,
     file: attached.keptFileAnswer(row.file!),
     quencherFile: row.quencherFile ? attached.keptFileAnswer(row.quencherFile) : null,
-    options: row.options,
+    options: settings,
     reading,
     quencher,
     analysis: row.analysis,
     plot: row.plot,
-    comparison: await comparisonFor(study, row.analysis),
+    comparison: await comparisonFor(study, row.analysis, settings.associationFit),
     engineVersion: row.engineVersion,
     createdBy: row.createdBy?.name ?? null,
     createdAt: row.createdAt.toISOString(),
@@ -192,48 +236,6 @@ export async function listAbsorptionTitrations(lab: LabContext, studyId: string)
 }
 
 /**
- * Removes a kept titration and its files (the owner, while the study may change); a file another
- * revision of the study still names stays. The audit entry keeps the files' names and SHA-256.
- * Bytes in object storage are removed after the commit.
- */
-export async function discardAbsorptionTitration(
-  services: UploadServices,
-  lab: LabContext,
-  studyId: string,
-  titrationId: string,
-  actor: SignedInActor,
-): Promise<void> {
-  await loadStudyToChange(lab, studyId, actor.userId);
-  const locations = await services.sequelize.transaction(async (transaction) => {
-    const row = await AbsorptionTitration.findOne({
-      where: { id: titrationId, labId: lab.id, studyId },
-      include: withFiles.slice(0, 2),
-      transaction,
-    });
-    if (!row) throw new AppError('absorption_titration_not_found', 'No such absorption titration in this study.', 404);
-    const files = [row.file!, ...(row.quencherFile ? [row.quencherFile] : [])];
-    await row.destroy({ transaction });
-    const locations = await releaseMechanismFiles(lab.id, files, transaction);
-    await recordAudit(
-      actor,
-      {
-        action: 'absorption_titration_discarded',
-        labId: lab.id,
-        targetType: 'study',
-        targetId: studyId,
-        details: {
-          absorptionTitrationId: row.id,
-          files: files.map((file) => ({ id: file.id, fileName: file.fileName, sha256: file.sha256 })),
-        },
-      },
-      transaction,
-    );
-    return locations;
-  });
-  for (const location of locations) await services.files.discard(location);
-}
-
-/**
  * What the study's newest absorption titration says, for the combined mechanism verdict
  * (readMechanismPieces); null without a titration.
  */
@@ -241,28 +243,31 @@ export async function absorptionEvidenceForStudy(lab: LabContext, studyId: strin
   await loadStudy(lab, studyId);
   const row = await AbsorptionTitration.findOne({
     where: { labId: lab.id, studyId },
-    attributes: ['analysis'],
+    attributes: ['analysis', 'options', 'quencherFileId'],
     order: [['createdAt', 'DESC']],
   });
-  return row ? absorptionEvidenceOf(row.analysis) : null;
+  return row ? absorptionEvidenceOf(row.analysis, settingsOf(row).associationFit) : null;
 }
 
 /**
  * What one absorption analysis says: whether the absorption changes beyond the sum of the parts,
- * in words, and K_a (the isotherm's, else Benesi–Hildebrand's) where one was fitted.
+ * in words, and K_a of the chosen fit (chosenAssociation, the isotherm unless the titration was
+ * analysed again with Benesi–Hildebrand) where one was fitted.
  */
 export function absorptionEvidenceOf(
   analysis: Pick<AbsorptionAnalysisAnswer, 'binding' | 'flags' | 'largestChange' | 'threshold'>,
+  associationFit: AssociationFit = 'isotherm',
 ): AbsorptionEvidence {
-  const binding = analysis.binding;
-  const fit = binding?.isotherm.fit ?? binding?.benesiHildebrand.fit ?? null;
+  const association = chosenAssociation(analysis, associationFit);
   const flag = analysis.flags[0];
   const detail = flag
-    ? `${flag.title}. ${flag.detail}`
+    ? `${flag.title}. ${flag.detail}${association ? ` ${association.words}` : ''}`
     : `The absorption is the sum of emitter and quencher within the noise: the largest change, ΔA = ${analysis.largestChange.change.toPrecision(2)} at ${analysis.largestChange.centre} nm, is ${analysis.largestChange.z.toPrecision(2)} noise SDs against a bound of ${analysis.threshold.z.toPrecision(3)}.`;
   return {
     changed: analysis.flags.length > 0,
     detail,
-    associationConstant: fit ? { value: fit.kA.value, standardError: fit.kA.standardError } : null,
+    associationConstant: association
+      ? { value: association.fit.kA.value, standardError: association.fit.kA.standardError }
+      : null,
   };
 }

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import type { AbsorptionAnalysisAnswer } from '@shared/schemas/absorption-titrations';
+import type { AbsorptionAnalysisAnswer, AssociationFit } from '@shared/schemas/absorption-titrations';
 import type { SpectrumMatrixAnalysisAnswer } from '@shared/schemas/spectrum-matrices';
 import type { Estimate, FitResult } from '@shared/schemas/study-fits';
 import type { FitModel } from '@shared/schemas/studies';
@@ -56,17 +56,29 @@ export function evidenceStudyRows(sequelize: Sequelize, labId: string, studyIds:
   return selectRows<EvidenceStudyRow>(sequelize, STUDIES_SQL, [labId, studyIds]);
 }
 
-/** The newest spectrum matrix (kind 'emission') and absorption titration of a study, without their bands. */
+/**
+ * The newest spectrum matrix (kind 'emission') and absorption titration of a study, without their
+ * bands; a titration with the K_a its verdict uses (null: the isotherm, as kept before re-analysis).
+ */
 export type NewestMatrixRow =
   | { id: string; studyId: string; kind: 'emission'; analysis: Omit<SpectrumMatrixAnalysisAnswer, 'bands'> }
-  | { id: string; studyId: string; kind: 'absorption'; analysis: Omit<AbsorptionAnalysisAnswer, 'bands'> };
+  | {
+      id: string;
+      studyId: string;
+      kind: 'absorption';
+      analysis: Omit<AbsorptionAnalysisAnswer, 'bands'>;
+      associationFit: AssociationFit | null;
+    };
 
 const MATRICES_SQL = `
-  SELECT DISTINCT ON (study_id, kind) id, study_id AS "studyId", kind, analysis - 'bands' AS analysis
+  SELECT DISTINCT ON (study_id, kind) id, study_id AS "studyId", kind, analysis - 'bands' AS analysis,
+         options ->> 'associationFit' AS "associationFit"
   FROM spectrum_matrices
   WHERE lab_id = $1 AND study_id = ANY($2::uuid[]) AND kind IN ('emission', 'absorption')
+    AND id <> ALL($3::uuid[])
   ORDER BY study_id, kind, created_at DESC`;
 
-export function newestMatrixRows(sequelize: Sequelize, labId: string, studyIds: string[]) {
-  return selectRows<NewestMatrixRow>(sequelize, MATRICES_SQL, [labId, studyIds]);
+/** `leaveOut`: records read as gone (a discard about to be written, PendingSpectra). */
+export function newestMatrixRows(sequelize: Sequelize, labId: string, studyIds: string[], leaveOut: string[] = []) {
+  return selectRows<NewestMatrixRow>(sequelize, MATRICES_SQL, [labId, studyIds, leaveOut]);
 }

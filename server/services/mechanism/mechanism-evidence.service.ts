@@ -6,7 +6,7 @@ import {
   type TemperatureEvidence,
   type WavelengthEvidence,
 } from '@shared/engine';
-import type { MechanismEvidence } from '@shared/schemas/mechanism-evidence';
+import type { MechanismEvidence, MechanismVerdictChange } from '@shared/schemas/mechanism-evidence';
 import type { LabContext } from '../../domain/lab-context';
 import { AppError } from '../../lib/app-error';
 import { Study } from '../../models';
@@ -18,6 +18,7 @@ import {
   type EvidenceStudyRow,
   type NewestMatrixRow,
 } from './mechanism-evidence-rows';
+import type { PendingSpectra } from './pending-spectra';
 import { analyseSeriesMembers } from './temperature-series.service';
 
 type Missing = Partial<Record<MechanismPieceKind, string>>;
@@ -137,31 +138,56 @@ function wavelengthOf(matrix: Extract<NewestMatrixRow, { kind: 'emission' }> | u
   };
 }
 
+type EmissionRow = Extract<NewestMatrixRow, { kind: 'emission' }>;
+type AbsorptionRow = Extract<NewestMatrixRow, { kind: 'absorption' }>;
+
+/** The newest matrix as it will be once a pending re-analysis of it is written. */
+function withPendingMatrix(row: EmissionRow, pending: PendingSpectra): EmissionRow {
+  const change = pending.spectrumMatrix;
+  return change?.analysis && change.id === row.id ? { ...row, analysis: change.analysis } : row;
+}
+
+/** The newest titration as it will be once a pending re-analysis of it is written. */
+function withPendingTitration(row: AbsorptionRow, pending: PendingSpectra): AbsorptionRow {
+  const change = pending.absorptionTitration?.change;
+  return change && pending.absorptionTitration!.id === row.id
+    ? { ...row, analysis: change.analysis, associationFit: change.settings.associationFit }
+    : row;
+}
+
 /**
  * The mechanism evidence of each study asked for (engine combineMechanismEvidence): what each
  * piece that exists says, the combined verdict with reasons, the missing pieces with what to add.
  * Reads only, in two statements whatever the number of studies: the studies with their series
  * and newest fits, then their newest spectrum matrices and absorption titrations. Studies not in
- * the lab are left out of the answer.
+ * the lab are left out of the answer. With `pending`, a change to the spectra not yet written is
+ * read as if it were (verdictChange).
  */
 export async function mechanismEvidenceOfStudies(
   lab: LabContext,
   studyIds: string[],
+  pending: PendingSpectra = {},
 ): Promise<Map<string, MechanismEvidence>> {
   const answers = new Map<string, MechanismEvidence>();
   if (studyIds.length === 0) return answers;
   const sequelize = Study.sequelize!;
+  // A discard about to be written: the study's newest record is then the one before it.
+  const { spectrumMatrix: matrixChange, absorptionTitration: titrationChange } = pending;
+  const leaveOut = [
+    ...(matrixChange && !matrixChange.analysis ? [matrixChange.id] : []),
+    ...(titrationChange && !titrationChange.change ? [titrationChange.id] : []),
+  ];
   const [rows, matrices] = await Promise.all([
     evidenceStudyRows(sequelize, lab.id, studyIds),
-    newestMatrixRows(sequelize, lab.id, studyIds),
+    newestMatrixRows(sequelize, lab.id, studyIds, leaveOut),
   ]);
   const byPair = new Map<string, EvidenceStudyRow[]>();
   for (const row of rows) byPair.set(pairKey(row), [...(byPair.get(pairKey(row)) ?? []), row]);
   const emission = new Map<string, Extract<NewestMatrixRow, { kind: 'emission' }>>();
   const absorption = new Map<string, Extract<NewestMatrixRow, { kind: 'absorption' }>>();
   for (const matrix of matrices) {
-    if (matrix.kind === 'emission') emission.set(matrix.studyId, matrix);
-    else absorption.set(matrix.studyId, matrix);
+    if (matrix.kind === 'emission') emission.set(matrix.studyId, withPendingMatrix(matrix, pending));
+    else absorption.set(matrix.studyId, withPendingTitration(matrix, pending));
   }
   const analysed = new Map<string, SeriesAnswer>();
   const wanted = new Set(studyIds);
@@ -177,7 +203,7 @@ export async function mechanismEvidenceOfStudies(
       lifetime: lifetimeOf(study),
       temperature: temperature.evidence,
       wavelength: wavelengthOf(matrix),
-      absorption: titration ? absorptionEvidenceOf(titration.analysis) : null,
+      absorption: titration ? absorptionEvidenceOf(titration.analysis, titration.associationFit ?? 'isotherm') : null,
       diffusion: diffusionOf(study, missing),
       missingBecause: missing,
     });
@@ -192,8 +218,28 @@ export async function mechanismEvidenceOfStudies(
 }
 
 /** The mechanism evidence of one study (mechanismEvidenceOfStudies); 404 when it is not in the lab. */
-export async function mechanismEvidence(lab: LabContext, studyId: string): Promise<MechanismEvidence> {
-  const evidence = (await mechanismEvidenceOfStudies(lab, [studyId])).get(studyId);
+export async function mechanismEvidence(
+  lab: LabContext,
+  studyId: string,
+  pending: PendingSpectra = {},
+): Promise<MechanismEvidence> {
+  const evidence = (await mechanismEvidenceOfStudies(lab, [studyId], pending)).get(studyId);
   if (!evidence) throw studyNotFound();
   return evidence;
+}
+
+/**
+ * The study's verdict now and after a pending change to its spectra, worked out before the change
+ * is written so both go into its audit entry (the change is never silent).
+ */
+export async function verdictChange(
+  lab: LabContext,
+  studyId: string,
+  pending: PendingSpectra,
+): Promise<MechanismVerdictChange> {
+  const [before, after] = await Promise.all([
+    mechanismEvidence(lab, studyId),
+    mechanismEvidence(lab, studyId, pending),
+  ]);
+  return { before: before.verdict, after: after.verdict, reasons: after.reasons };
 }

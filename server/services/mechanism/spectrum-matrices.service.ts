@@ -1,3 +1,4 @@
+import type { Transaction } from 'sequelize';
 import type { SpectrumMatrix as SpectrumMatrixAnswer, SpectrumMatrixOptions } from '@shared/schemas/spectrum-matrices';
 import type { SignedInActor } from '../../domain/actor';
 import type { LabContext } from '../../domain/lab-context';
@@ -87,6 +88,10 @@ export async function keepSpectrumMatrix(
   const kept = await SpectrumMatrix.findOne({ where: { id: matrixId, labId: lab.id }, include: withFile });
   return toSpectrumMatrix(kept!);
 }
+
+/** One kept matrix of the study with its file row (no bytes); null when there is none. */
+export const findSpectrumMatrix = (lab: LabContext, studyId: string, matrixId: string, transaction?: Transaction) =>
+  SpectrumMatrix.findOne({ where: { id: matrixId, labId: lab.id, studyId }, include: withFile, transaction });
 
 /** A study's spectrum matrices, newest first. */
 export async function listSpectrumMatrices(lab: LabContext, studyId: string): Promise<SpectrumMatrixAnswer[]> {

@@ -39,19 +39,22 @@ type FileTable = typeof DecayFile | typeof MechanismFile;
 export type NotRead =
   { kind: 'unreadable'; problems: Problem[] } | { kind: 'limit'; limit: keyof UploadLimits; message: string };
 
-/** Over an upload limit: 413 (422 for the time limit) naming the limit; nothing was kept. */
-export function refuseOverLimit(outcome: Extract<NotRead, { kind: 'limit' }>): never {
-  throw new AppError('upload_limit', `${outcome.message} Nothing was kept.`, outcome.limit === 'seconds' ? 422 : 413, [
+/** Over an upload limit: 413 (422 for the time limit) naming the limit; nothing was kept (or, reading a kept file again, changed). */
+export function refuseOverLimit(
+  outcome: Extract<NotRead, { kind: 'limit' }>,
+  consequence = 'Nothing was kept.',
+): never {
+  throw new AppError('upload_limit', `${outcome.message} ${consequence}`, outcome.limit === 'seconds' ? 422 : 413, [
     { path: 'file', message: `over the ${outcome.limit} limit` },
   ]);
 }
 
-/** Unreadable (422 with `code`, naming each cell's column, else its row) or over a limit; nothing was kept. */
-export function refuseUnread(outcome: NotRead, code: string): never {
-  if (outcome.kind === 'limit') refuseOverLimit(outcome);
+/** Unreadable (422 with `code`, naming each cell's column, else its row) or over a limit; nothing was kept (or changed). */
+export function refuseUnread(outcome: NotRead, code: string, consequence = 'Nothing was kept.'): never {
+  if (outcome.kind === 'limit') refuseOverLimit(outcome, consequence);
   throw new AppError(
     code,
-    `${outcome.problems[0]!.message} Nothing was kept.`,
+    `${outcome.problems[0]!.message} ${consequence}`,
     422,
     outcome.problems.map((problem) => ({
       path: problem.column ? `file.column ${problem.column}` : problem.row ? `file.row ${problem.row}` : 'file',
