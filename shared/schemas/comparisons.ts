@@ -18,6 +18,12 @@ export const comparisonQuerySchema = z.object({
 
 const estimate = z.object({ value: z.number(), standardError: z.number().nullable() });
 
+const diffusionLimitSchema = z.object({
+  value: z.number().describe('k_diff = 8RT/(3 eta(T)), M^-1 s^-1'),
+  basis: z.string().describe('where eta(T) comes from'),
+  note: z.string().nullable().describe('e.g. the temperature is outside the correlation range'),
+});
+
 export const comparisonRowSchema = z.object({
   studyId: z.string(),
   title: z.string(),
@@ -34,11 +40,18 @@ export const comparisonRowSchema = z.object({
   drivingForceMissing: z.string().nullable().describe('why there is no driving force, when there is none'),
   // The combined verdict of the study's mechanism evidence (GET .../studies/:studyId/mechanism).
   mechanism: mechanismVerdictSchema,
+  temperature: z.number().describe('the study temperature, K'),
+  diffusionLimit: diffusionLimitSchema
+    .nullable()
+    .describe('k_diff at the study temperature; null for a custom solvent without an entered viscosity'),
 });
 
 export const trendSchema = z.object({
   solvent: z.string(),
-  diffusionLimit: z.number().nullable().describe('k_d, M^-1 s^-1'),
+  temperature: z.number().describe('K: studies at different temperatures are never fitted together'),
+  label: z.string().describe('solvent and temperature, for legends'),
+  diffusionLimit: z.number().nullable().describe('k_d at this temperature, M^-1 s^-1'),
+  diffusionBasis: z.string().nullable().describe('where eta(T) of k_d comes from'),
   points: z.array(
     z.object({ studyId: z.string(), drivingForce: z.number(), log10Kq: z.number(), approved: z.boolean() }),
   ),
@@ -60,7 +73,11 @@ export const comparisonSchema = z
     side: z.enum(['emitter', 'quencher']),
     compound: z.object({ id: z.string(), name: z.string() }),
     rows: z.array(comparisonRowSchema),
-    trends: z.array(trendSchema).describe('one per solvent: studies in different solvents are never fitted together'),
+    trends: z
+      .array(trendSchema)
+      .describe(
+        'one per solvent and temperature: studies in different solvents or at different temperatures are never fitted together',
+      ),
     engineVersion: z.string(),
   })
   .meta({ id: 'Comparison' });

@@ -128,15 +128,15 @@ export function CompareRoute() {
           <Panel title="kq against driving force">
             <TrendPlot comparison={comparison.data} labId={labId} />
             <ul className="mt-3 space-y-1 text-body text-ink-700">
-              {comparison.data.trends.map((trend) => (
-                <li key={trend.solvent}>
-                  <strong>{trend.solvent}:</strong> {trend.fit ? describeTrendFit(trend.fit) : `no fit: ${trend.note}`}
+              {comparison.data.trends.map((trend, index) => (
+                <li key={index}>
+                  <strong>{trend.label}:</strong> {trend.fit ? describeTrendFit(trend.fit) : `no fit: ${trend.note}`}
                 </li>
               ))}
             </ul>
             <p className="mt-2 text-caption text-ink-500">
-              Filled points are approved results, open points drafts. Solvents are fitted separately. Engine{' '}
-              {comparison.data.engineVersion}.
+              Filled points are approved results, open points drafts. Each solvent and temperature is fitted on its own,
+              with the diffusion limit at that temperature. Engine {comparison.data.engineVersion}.
             </p>
           </Panel>
         </>

@@ -160,3 +160,68 @@ describe('GET /api/labs/:labId/comparisons/:side/:compoundId', () => {
     expect(lines).toHaveLength(3 + 5);
   });
 });
+
+describe('GET /api/labs/:labId/comparisons/:side/:compoundId at another temperature', () => {
+  it('when studies were run at 50 °C, then their trend is fitted apart with k_diff = 8RT/3η(T) at 323.15 K', async () => {
+    // The same catalyst row as above (Chem. Sci. 2015, 6, 1454, Table 1), its studies run at 323.15 K.
+    const emitter = await createCompound(labId, 'Pt-row-warm', 'photocatalyst');
+    await potential(emitter.id, 'oxidation', 0.57);
+    await potential(emitter.id, 'reduction', -2.38);
+    await ExcitedStateEnergy.create({
+      labId,
+      compoundId: emitter.id,
+      value: 2.64,
+      method: 'phosphorescence',
+      createdById: null,
+    });
+    const temperature = 323.15;
+    for (const [index, reduction] of [...acceptorPotentials, -1.45].entries()) {
+      const quencher = await createCompound(labId, `warm-acceptor-${index}`, 'quencher');
+      await potential(quencher.id, 'reduction', reduction);
+      // Synthetic kq from the Rehm–Weller form at 323.15 K with lambda = 0.80 eV and the engine's k_d there.
+      const kq = rehmWellerRateConstant({
+        drivingForce: 0.57 - reduction - 2.64,
+        reorganisationEnergy: 0.8,
+        diffusionLimit: solventDiffusionLimit('acetonitrile', temperature),
+        temperature,
+      });
+      await createStudyRecord({ labId, emitterId: emitter.id, quencherId: quencher.id, kq, temperature });
+    }
+    // One study at 25 °C beside them: it must not join the 50 °C fit.
+    await createStudyRecord({ labId, emitterId: emitter.id, quencherId: quencherIds[1]!, kq: 2e9 });
+
+    const response = await viewer.get(`/api/labs/${labId}/comparisons/emitter/${emitter.id}`);
+    expect(response.status).toBe(200);
+    const trends = response.body.trends as {
+      solvent: string;
+      temperature: number;
+      label: string;
+      diffusionLimit: number;
+      points: unknown[];
+      fit: { reorganisationEnergy: number } | null;
+    }[];
+    expect(trends.map((trend) => [trend.solvent, trend.temperature, trend.points.length])).toEqual([
+      ['acetonitrile', 298.15, 1],
+      ['acetonitrile', 323.15, 5],
+    ]);
+    const warm = trends[1]!;
+    expect(warm.label).toBe('acetonitrile at 323.15 K');
+    // Hand calculation: k_diff = 8RT/(3η) × 1000 (Smoluchowski–Stokes–Einstein) with η(323.15 K) of
+    // acetonitrile = 0.2801 mPa s, the VDI Heat Atlas 2nd ed. PPDS correlation (coefficient file in
+    // CalebBell/chemicals, commit 82faef9, as in tests/unit/engine/viscosity.test.ts):
+    // 8 × 8.314462618 × 323.15 / (3 × 0.2801e-3) × 1000 = 2.558e10 M⁻¹ s⁻¹. The engine's eta(T) is
+    // Perry's correlation, a second handbook: within 3 %, as handbook viscosities of one liquid
+    // commonly differ by 1–3 % (common practice).
+    // R = 8.314462618 J mol⁻¹ K⁻¹ (CODATA 2018).
+    const handCalculation = ((8 * 8.314462618 * 323.15) / (3 * 0.2801e-3)) * 1000;
+    expect(Math.abs(warm.diffusionLimit / handCalculation - 1)).toBeLessThan(0.03);
+    // ... and well above the 25 °C ceiling (about 1.93e10; shared/engine README, section 3).
+    expect(warm.diffusionLimit / trends[0]!.diffusionLimit).toBeGreaterThan(1.3);
+    // Made with lambda = 0.80 eV at 323.15 K: the fit at the studies' own temperature gives it back.
+    expect(warm.fit!.reorganisationEnergy).toBeCloseTo(0.8, 6);
+    const warmRows = response.body.rows.filter((row: { temperature: number }) => row.temperature === 323.15);
+    expect(warmRows).toHaveLength(5);
+    for (const row of warmRows) expect(row.diffusionLimit.value).toBe(warm.diffusionLimit);
+    expect(warmRows[0].diffusionLimit.basis).toMatch(/323\.15 K/);
+  });
+});

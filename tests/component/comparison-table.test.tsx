@@ -21,6 +21,8 @@ const comparison: Comparison = {
       drivingForce: { pathway: 'oxidative', electronvolts: -0.57, withWorkTerm: -0.63 },
       drivingForceMissing: null,
       mechanism: 'static',
+      temperature: 298.15,
+      diffusionLimit: { value: 1.93e10, basis: 'acetonitrile at 298.15 K', note: null },
     },
   ],
   trends: [],

@@ -19,6 +19,8 @@ export function comparisonCsv(comparison: Comparison): string {
     'pathway',
     titled(`${symbolPlain(SYMBOLS.drivingForce)} with Coulomb term`, UNITS.electronvolt),
     'flags',
+    titled('temperature', UNITS.kelvin),
+    titled('k_diff', UNITS.perMolarPerSecond),
     'mechanism',
   ];
   const rows = comparison.rows.map((row) => [
@@ -35,6 +37,8 @@ export function comparisonCsv(comparison: Comparison): string {
     row.drivingForce?.pathway,
     row.drivingForce?.withWorkTerm,
     row.flags.map((flag) => flag.code).join(' '),
+    row.temperature,
+    row.diffusionLimit?.value,
     row.mechanism,
   ]);
   return csvTable([

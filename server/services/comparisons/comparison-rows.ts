@@ -1,3 +1,4 @@
+import { diffusionLimitFor } from '@shared/engine';
 import type { ComparisonRow } from '@shared/schemas/comparisons';
 import type { LabContext } from '../../domain/lab-context';
 import { selectRows } from '../../db/select-rows';
@@ -31,6 +32,16 @@ function rowDrivingForce(inputs: DrivingForceInputs, study: StudyPair): RowDrivi
   };
 }
 
+/**
+ * k_diff at the study's own temperature, as its fit reads it (engine diffusionLimitFor): the
+ * entered viscosity, else eta(T) of the solvent's correlation; null for a custom solvent without one.
+ */
+function rowDiffusionLimit(study: StudyRow): ComparisonRow['diffusionLimit'] {
+  const notes: string[] = [];
+  const limit = diffusionLimitFor(study, notes);
+  return limit ? { value: limit.value, basis: limit.basis, note: notes[0] ?? null } : null;
+}
+
 type StudyRow = {
   id: string;
   title: string;
@@ -38,6 +49,8 @@ type StudyRow = {
   quencherId: string;
   solventId: string | null;
   customSolventName: string | null;
+  customViscosity: number | null;
+  temperature: number;
   pinnedMechanism: string | null;
   status: ComparisonRow['status'];
   kq: number | null;
@@ -58,7 +71,8 @@ const studiesSql = (side: 'emitter' | 'quencher') => {
   const [own, partner] = side === 'emitter' ? ['emitter_id', 'quencher_id'] : ['quencher_id', 'emitter_id'];
   return `
   SELECT s.id, s.title, s.emitter_id AS "emitterId", s.quencher_id AS "quencherId", s.solvent_id AS "solventId",
-         s.custom_solvent_name AS "customSolventName", s.pinned_mechanism AS "pinnedMechanism", s.status,
+         s.custom_solvent_name AS "customSolventName", s.custom_viscosity AS "customViscosity", s.temperature,
+         s.pinned_mechanism AS "pinnedMechanism", s.status,
          s.kq, s.k_sv AS "kSv", p.id AS "partnerId", p.name AS "partnerName",
          (f.result #>> '{parameters,kq,standardError}')::float8 AS "kqStandardError",
          (f.result #>> '{parameters,kSv,standardError}')::float8 AS "kSvStandardError",
@@ -75,7 +89,7 @@ const studiesSql = (side: 'emitter' | 'quencher') => {
 /**
  * One row per current study of the compound (as emitter: each quencher; as quencher: each
  * emitter), with kq and K_SV and their standard errors from the newest fit, flags, status, the
- * driving force and the combined mechanism verdict.
+ * driving force, the combined mechanism verdict and k_diff at the study's temperature.
  */
 export async function comparisonRows(
   lab: LabContext,
@@ -104,6 +118,12 @@ export async function comparisonRows(
     if (!forces.has(key)) forces.set(key, rowDrivingForce(inputs, study));
     return forces.get(key)!;
   };
+  const limits = new Map<string, ComparisonRow['diffusionLimit']>();
+  const limitOf = (study: StudyRow) => {
+    const key = [study.solventId, study.customViscosity, study.temperature].join('|');
+    if (!limits.has(key)) limits.set(key, rowDiffusionLimit(study));
+    return limits.get(key)!;
+  };
   return studies.map((study) => ({
     studyId: study.id,
     title: study.title,
@@ -115,5 +135,7 @@ export async function comparisonRows(
     flags: study.flags ?? [],
     ...forceOf(study),
     mechanism: mechanisms.get(study.id)?.verdict ?? 'unclear',
+    temperature: study.temperature,
+    diffusionLimit: limitOf(study),
   }));
 }

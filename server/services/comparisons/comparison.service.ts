@@ -1,29 +1,32 @@
-import {
-  ENGINE_VERSION,
-  EngineError,
-  fitRehmWeller,
-  rehmWellerRateConstant,
-  solventDiffusionLimit,
-} from '@shared/engine';
+import { ENGINE_VERSION, EngineError, fitRehmWeller, rehmWellerRateConstant } from '@shared/engine';
 import type { Comparison, ComparisonRow, Trend } from '@shared/schemas/comparisons';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Compound } from '../../models';
 import { comparisonRows } from './comparison-rows';
 
-function diffusionLimitOf(solvent: string): number | null {
-  try {
-    return solventDiffusionLimit(solvent);
-  } catch {
-    return null;
+/**
+ * Rows fitted together: one solvent at one temperature with one k_diff (rows of a solvent of the
+ * table at one temperature share it; an entered viscosity may set another).
+ */
+function trendGroups(rows: ComparisonRow[]): ComparisonRow[][] {
+  const groups = new Map<string, ComparisonRow[]>();
+  for (const row of rows) {
+    const key = JSON.stringify([row.solvent, row.temperature, row.diffusionLimit?.value ?? null]);
+    groups.set(key, [...(groups.get(key) ?? []), row]);
   }
+  return [...groups.values()].sort(
+    (a, b) => a[0]!.solvent.localeCompare(b[0]!.solvent) || a[0]!.temperature - b[0]!.temperature,
+  );
 }
 
 /**
- * log10 kq against dG_ET for one solvent, with the Rehm–Weller/Marcus fit of lambda (engine
- * fitRehmWeller, k_d from the solvent). Solvents are never mixed in one fit.
+ * log10 kq against dG_ET for one solvent at one temperature, with the Rehm–Weller/Marcus fit of
+ * lambda (engine fitRehmWeller) at that temperature, k_d = 8RT/(3 eta(T)) of the rows (engine
+ * diffusionLimitFor, as each study's fit). Solvents and temperatures are never mixed in one fit.
  */
-function trendFor(solvent: string, rows: ComparisonRow[], approvedOnly: boolean): Trend {
+function trendFor(rows: ComparisonRow[], approvedOnly: boolean): Trend {
+  const { solvent, temperature, diffusionLimit: limit } = rows[0]!;
   const usable = rows.filter((row) => row.kq && row.drivingForce && (!approvedOnly || row.status === 'approved'));
   const points = usable.map((row) => ({
     studyId: row.studyId,
@@ -31,9 +34,22 @@ function trendFor(solvent: string, rows: ComparisonRow[], approvedOnly: boolean)
     log10Kq: Math.log10(row.kq!.value),
     approved: row.status === 'approved',
   }));
-  const diffusionLimit = diffusionLimitOf(solvent);
-  const base = { solvent, diffusionLimit, points };
-  if (diffusionLimit === null) return { ...base, fit: null, note: 'no diffusion limit for this solvent in the table' };
+  const diffusionLimit = limit?.value ?? null;
+  const entered = limit?.basis.startsWith('entered') ? ', entered viscosity' : '';
+  const base = {
+    solvent,
+    temperature,
+    label: `${solvent} at ${temperature} K${entered}`,
+    diffusionLimit,
+    diffusionBasis: limit?.basis ?? null,
+    points,
+  };
+  if (diffusionLimit === null)
+    return {
+      ...base,
+      fit: null,
+      note: 'no diffusion limit: no viscosity for this solvent in the table, and none entered with the studies',
+    };
   if (points.length < 3)
     return { ...base, fit: null, note: 'a trend needs at least 3 studies with kq and a driving force' };
   try {
@@ -41,6 +57,7 @@ function trendFor(solvent: string, rows: ComparisonRow[], approvedOnly: boolean)
       drivingForces: points.map((point) => point.drivingForce),
       rateConstants: usable.map((row) => row.kq!.value),
       diffusionLimit,
+      temperature,
     });
     const lambda = fit.reorganisationEnergy.value;
     const kdOverKZ = fit.kdOverKZ.value;
@@ -51,7 +68,7 @@ function trendFor(solvent: string, rows: ComparisonRow[], approvedOnly: boolean)
       return {
         drivingForce,
         log10Kq: Math.log10(
-          rehmWellerRateConstant({ drivingForce, reorganisationEnergy: lambda, diffusionLimit, kdOverKZ }),
+          rehmWellerRateConstant({ drivingForce, reorganisationEnergy: lambda, diffusionLimit, kdOverKZ, temperature }),
         ),
       };
     });
@@ -91,18 +108,11 @@ export async function compare(
   const compound = await Compound.findOne({ where: { id: compoundId, labId: lab.id } });
   if (!compound) throw new AppError('not_found', 'No compound with this id in this lab.', 404);
   const rows = (await comparisonRows(lab, side, compoundId)).sort(sorters[options.sort] ?? sorters.kq);
-  const solvents = [...new Set(rows.map((row) => row.solvent))].sort();
   return {
     side,
     compound: { id: compound.id, name: compound.name },
     rows,
-    trends: solvents.map((solvent) =>
-      trendFor(
-        solvent,
-        rows.filter((row) => row.solvent === solvent),
-        options.approvedOnly,
-      ),
-    ),
+    trends: trendGroups(rows).map((group) => trendFor(group, options.approvedOnly)),
     engineVersion: ENGINE_VERSION,
   };
 }

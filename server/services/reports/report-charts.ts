@@ -236,7 +236,7 @@ export function drawComparisonChart(doc: Pdf, comparison: Comparison): void {
         .strokeColor(hue)
         .stroke();
       doc.restore();
-      keys.push({ label: `${trend.solvent}: diffusion limit`, colour: hue, dashed: true });
+      keys.push({ label: `${trend.label}: diffusion limit`, colour: hue, dashed: true });
     }
     if (trend.fit && trend.fit.curve.length > 1) {
       trend.fit.curve.forEach((point, i) =>
@@ -245,14 +245,14 @@ export function drawComparisonChart(doc: Pdf, comparison: Comparison): void {
           : doc.lineTo(...at(point.drivingForce, point.log10Kq)),
       );
       doc.lineWidth(1.2).strokeColor(hue).stroke();
-      keys.push({ label: `${trend.solvent}: fit`, colour: hue, dashed: false });
+      keys.push({ label: `${trend.label}: fit`, colour: hue, dashed: false });
     }
     for (const point of trend.points) {
       const [px, py] = at(point.drivingForce, point.log10Kq);
       if (point.approved) doc.circle(px, py, 2.8).fill(hue);
       else doc.circle(px, py, 2.8).lineWidth(1).strokeColor(hue).stroke();
     }
-    keys.push({ label: `${trend.solvent}: measured`, colour: hue });
+    keys.push({ label: `${trend.label}: measured`, colour: hue });
   });
   const below = legend(doc, keys, box.y + box.height + 30);
   doc

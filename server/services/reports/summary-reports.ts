@@ -87,7 +87,7 @@ export async function comparisonReport(
       row.partner.name,
       row.kq ? formatEstimate(row.kq.value, row.kq.standardError) : '—',
       row.kSv ? formatEstimate(row.kSv.value, row.kSv.standardError) : '—',
-      row.solvent,
+      `${row.solvent}, ${row.temperature} K`,
       row.drivingForce
         ? `${formatFixed(row.drivingForce.electronvolts, 2, { signed: true })} (${row.drivingForce.pathway})`
         : 'missing',
@@ -102,8 +102,8 @@ export async function comparisonReport(
   for (const trend of comparison.trends) {
     doc.text(
       trend.fit
-        ? `${trend.solvent}: reorganisation energy λ = ${formatEstimate(trend.fit.reorganisationEnergy, trend.fit.reorganisationEnergyStandardError, UNITS.electronvolt)} from ${trend.fit.n} studies (k_d ${formatNumber(trend.diffusionLimit)} ${UNITS.perMolarPerSecond}).`
-        : `${trend.solvent}: no fit (${trend.note}).`,
+        ? `${trend.label}: reorganisation energy λ = ${formatEstimate(trend.fit.reorganisationEnergy, trend.fit.reorganisationEnergyStandardError, UNITS.electronvolt)} from ${trend.fit.n} studies (k_d ${formatNumber(trend.diffusionLimit)} ${UNITS.perMolarPerSecond}).`
+        : `${trend.label}: no fit (${trend.note}).`,
     );
   }
   doc

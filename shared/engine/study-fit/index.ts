@@ -8,3 +8,4 @@ export {
   type ReplicateReading,
   type WeightingComparison,
 } from './replicates';
+export { diffusionLimitFor } from './kinetics';

@@ -22,7 +22,7 @@ export interface KineticsSettings {
  * else eta(T) from the solvent's handbook correlation, with a note outside its valid range.
  */
 export function diffusionLimitFor(
-  settings: KineticsSettings,
+  settings: Pick<KineticsSettings, 'solventId' | 'customViscosity' | 'temperature'>,
   notes: string[],
 ): { value: number; basis: string } | null {
   if (settings.customViscosity !== null) {

@@ -48,7 +48,9 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
               </th>
               <td className="pr-3">{row.kq ? formatEstimate(row.kq.value, row.kq.standardError) : '—'}</td>
               <td className="pr-3">{row.kSv ? formatNumber(row.kSv.value) : '—'}</td>
-              <td className="pr-3">{row.solvent}</td>
+              <td className="pr-3">
+                {row.solvent}, {row.temperature} {UNITS.kelvin}
+              </td>
               <td className="pr-3" title={row.drivingForceMissing ?? undefined}>
                 {row.drivingForce
                   ? `${formatFixed(row.drivingForce.electronvolts, 2, { signed: true })} (${row.drivingForce.pathway === 'oxidative' ? 'ox.' : 'red.'})`

@@ -11,8 +11,9 @@ import { paths } from '@/lib/paths';
 const hues = chartColours.series;
 
 /**
- * log10 kq against dG_ET, one colour per solvent, with the fitted Rehm–Weller/Marcus curve and
- * the diffusion limit; a click on a point opens its study.
+ * log10 kq against dG_ET, one colour per solvent and temperature, with the fitted
+ * Rehm–Weller/Marcus curve and the diffusion limit at that temperature; a click on a point opens
+ * its study.
  */
 export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId: string }) {
   const navigate = useNavigate();
@@ -21,7 +22,7 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
     const sets: object[] = [
       {
         type: 'scatter',
-        label: `${trend.solvent}: measured`,
+        label: `${trend.label}: measured`,
         data: trend.points.map((point) => ({ x: point.drivingForce, y: point.log10Kq, studyId: point.studyId })),
         backgroundColor: trend.points.map((point) => (point.approved ? hue : '#ffffff')),
         borderColor: hue,
@@ -31,7 +32,7 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
     if (trend.fit) {
       sets.push({
         type: 'line',
-        label: `${trend.solvent}: fit, λ = ${formatEstimate(trend.fit.reorganisationEnergy, trend.fit.reorganisationEnergyStandardError, UNITS.electronvolt)}`,
+        label: `${trend.label}: fit, λ = ${formatEstimate(trend.fit.reorganisationEnergy, trend.fit.reorganisationEnergyStandardError, UNITS.electronvolt)}`,
         data: trend.fit.curve.map((point) => ({ x: point.drivingForce, y: point.log10Kq })),
         borderColor: hue,
         pointRadius: 0,
@@ -44,7 +45,7 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
       const xs = trend.points.map((point) => point.drivingForce);
       sets.push({
         type: 'line',
-        label: `${trend.solvent}: diffusion limit`,
+        label: `${trend.label}: diffusion limit`,
         data: [
           { x: Math.min(...xs) - 0.3, y: Math.log10(trend.diffusionLimit) },
           { x: Math.max(...xs) + 0.3, y: Math.log10(trend.diffusionLimit) },
