@@ -203,6 +203,36 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     expect(pages.reduce((sum, page) => sum + pixelsOfColour(page, chartInk.excluded, 12), 0)).toBeGreaterThan(200);
   });
 
+  it('when a study holds lifetimes only, then the report says there is no intensity data and draws the tau0/tau line it was fitted with', async () => {
+    const study = await createStudy(client, labId, 'report-lifetimes-only');
+    // tau = 1 µs / (1 + 500 [Q]) (Lakowicz 3rd ed. eq. 8.2, numbers constructed) with a small invented scatter.
+    const scatter = [0, 0.01, -0.008, 0.012, -0.006, 0.004];
+    const points = exactPoints.map((p, i) => ({
+      ...p,
+      intensity: null,
+      lifetime: 1e-6 / (1 + 500 * p.concentration + scatter[i]!),
+    }));
+    const base = `/api/labs/${labId}/studies/${study.id}`;
+    expect((await client.patch(`${base}/points`, { version: 0, points })).status).toBe(200);
+    const detail = (await client.get(base).expect(200)).body;
+    expect(detail.fitProblem).toBeNull();
+    expect(Math.abs(detail.latestFit.kSv / 500 - 1)).toBeLessThan(0.02);
+    const pdf = binary(await pdfOf(`${base}/report.pdf`));
+    const text = (await pdfText(pdf)).replace(/\s+/g, ' ');
+    expect(text).toContain(
+      'Intensity fit: no intensity data: K_SV and kq come from the lifetime Stern–Volmer fit (τ0/τ)',
+    );
+    expect(text).toContain('K_SV from lifetimes (τ0/τ)');
+    expect(text).not.toContain('No fit:');
+    // No lifetime-against-intensity verdict: the only line is the lifetime one.
+    expect(text).not.toContain('from intensities against');
+    // Drawn: the points in amber on the Stern–Volmer plot and again on the lifetime plot.
+    const pages = renderPdfPages(pdf, reportShots, 'study-lifetimes-only', 100);
+    // Every page carries more than its footer: the residual strip no longer spills its labels one per page.
+    expect(text).not.toMatch(/-- \d+ of \d+ -- \d Halflight/);
+    expect(pages.reduce((sum, page) => sum + pixelsOfColour(page, chartInk.points, 12), 0)).toBeGreaterThan(100);
+  });
+
   it('when a modified fit with a left-out point is reported, then the x axis reads 1/[Q] with its unit and the cross is drawn (issue 13, finding 11)', async () => {
     const study = await createStudy(client, labId, 'report-axis');
     const points = exactPoints.map((p, i) => (i === 3 ? { ...p, excluded: true, exclusionReason: 'bubble' } : p));

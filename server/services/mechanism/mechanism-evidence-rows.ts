@@ -15,6 +15,8 @@ export interface EvidenceStudyRow extends SeriesMember {
   fitModel: FitModel | null;
   degreesOfFreedom: number | null;
   diffusionLimit: FitResult['diffusionLimit'];
+  /** 'no-intensity-data': the fit is the lifetime line itself (lifetimes only); null in older fits */
+  intensityFit: 'fitted' | 'no-intensity-data' | null;
   /** the fit's lifetime line without its points: only how many there were */
   lifetime: { kSv: Estimate; intercept: 'free' | 'fixed-at-one' | null; pointCount: number } | null;
 }
@@ -40,7 +42,7 @@ const STUDIES_SQL = `
          s.custom_viscosity AS "customViscosity", s.k_sv AS "kSv", s.kq,
          s.emitter_id AS "emitterId", s.quencher_id AS "quencherId",
          s.custom_solvent_name AS "customSolventName", s.is_current AS "isCurrent",
-         f.model AS "fitModel", f.result -> 'parameters' AS parameters,
+         f.model AS "fitModel", f.result -> 'parameters' AS parameters, f.result ->> 'intensity' AS "intensityFit",
          (f.result #>> '{statistics,degreesOfFreedom}')::float8 AS "degreesOfFreedom",
          f.result -> 'diffusionLimit' AS "diffusionLimit",
          CASE WHEN jsonb_typeof(f.result -> 'lifetime') = 'object' THEN jsonb_build_object(

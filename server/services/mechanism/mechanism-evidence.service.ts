@@ -33,7 +33,9 @@ function lifetimeOf(study: EvidenceStudyRow): LifetimeEvidence | null {
   const intercept = lifetime.intercept ?? 'free';
   const line = parameters.kSv;
   const df = study.degreesOfFreedom ?? 0;
-  const isLine = fitModel === 'linear-free' || fitModel === 'linear-fixed';
+  // A lifetimes-only fit is the lifetime line itself: there is no intensity line to set beside it.
+  const isLine =
+    (fitModel === 'linear-free' || fitModel === 'linear-fixed') && study.intensityFit !== 'no-intensity-data';
   const { kD, kS } = parameters;
   return {
     intensityKsv:

@@ -32,7 +32,9 @@ function leftOutMark(doc: Pdf, cx: number, cy: number): void {
  */
 export function drawSternVolmer(doc: Pdf, result: FitResult): void {
   const { label: xLabel, scale: concentrationScale } = result.plot.xAxis;
-  if (doc.y > doc.page.height - 340) doc.addPage();
+  // The plot, the residual strip and its axis take 330 pt below doc.y; all of it above the 50 pt margin,
+  // or the strip's labels spill one per page.
+  if (doc.y > doc.page.height - 380) doc.addPage();
   const top = doc.y + 20;
   const main: Box = { x: 100, y: top, width: 380, height: 170 };
   const residualBox: Box = { x: 100, y: top + 225, width: 380, height: 55 };

@@ -64,6 +64,14 @@ function results(doc: Pdf, study: StudyDetail) {
   const { lines, note } = fitParameterLines(fit.model, fit.result);
   facts(doc, [
     ['Model', fitModelNames[fit.model]],
+    ...(fit.result.intensity === 'no-intensity-data'
+      ? [
+          ['Intensity fit', 'no intensity data: K_SV and kq come from the lifetime Stern–Volmer fit (τ0/τ)'] as [
+            string,
+            string,
+          ],
+        ]
+      : []),
     ['Weighting', weightingText(fit.result.weighting)],
     ...lines.map(
       ({ label, unit, estimate }) =>
@@ -72,7 +80,9 @@ function results(doc: Pdf, study: StudyDetail) {
           `${formatEstimate(estimate.value, estimate.standardError, unit)} (95 % interval ${formatInterval(estimate.interval95.lower, estimate.interval95.upper, estimate.standardError, estimate.value)})${estimate.includes ? `; SE includes ${estimate.includes}` : ''}`,
         ] as [string, string],
     ),
-    ...(note ? [['Roots', note] as [string, string]] : []),
+    ...(note
+      ? [[fit.result.intensity === 'no-intensity-data' ? 'Lifetimes only' : 'Roots', note] as [string, string]]
+      : []),
     ...rSquaredLines(fit.result.statistics).map((line) => [line.label, line.value.toFixed(4)] as [string, string]),
     ['n', `${fit.result.statistics.n} points`],
     ...(fit.result.tau0 ? [['τ0 used', tau0Text(fit.result.tau0)] as [string, string]] : []),
