@@ -58,9 +58,14 @@ export type SummaryRow = Pick<
   | 'updatedAt'
 > & { emitter?: { name: string } | null; quencher?: { name: string } | null; owner?: { name: string } | null };
 
-export const toSummary = (study: SummaryRow): StudySummary => ({
+/** Which study this is, as a list row and the study screen both name it: pair, solvent, state, owner. */
+export const identityOf = (
+  study: SummaryRow,
+): Pick<
+  StudySummary,
+  'id' | 'emitter' | 'quencher' | 'solventLabel' | 'status' | 'revision' | 'ownerId' | 'ownerName'
+> => ({
   id: study.id,
-  title: study.title,
   emitter: { id: study.emitterId, name: study.emitter?.name ?? '' },
   quencher: { id: study.quencherId, name: study.quencher?.name ?? '' },
   solventLabel: solventLabel(study),
@@ -68,6 +73,11 @@ export const toSummary = (study: SummaryRow): StudySummary => ({
   revision: study.revision,
   ownerId: study.ownerId,
   ownerName: study.owner?.name ?? 'former member',
+});
+
+export const toSummary = (study: SummaryRow): StudySummary => ({
+  ...identityOf(study),
+  title: study.title,
   kSv: study.kSv,
   kq: study.kq,
   flagged: study.flagged,

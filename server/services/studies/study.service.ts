@@ -15,7 +15,7 @@ import { resolveTau0 } from './study-tau0';
 import {
   correctionsOf,
   settingsOf,
-  solventLabel,
+  identityOf,
   toFit,
   toPoint,
   toReview,
@@ -211,16 +211,9 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
   const corrections = study.dilutionCorrection || study.innerFilterCorrection ? correctionsOf(latestFit) : new Map();
   return {
     ...settingsOf(study),
-    id: study.id,
-    emitter: { id: study.emitterId, name: study.emitter?.name ?? '' },
-    quencher: { id: study.quencherId, name: study.quencher?.name ?? '' },
-    solventLabel: solventLabel(study),
-    status: study.status,
-    revision: study.revision,
+    ...identityOf(study),
     previousRevisionId: study.previousRevisionId,
     nextRevisionId: next?.id ?? null,
-    ownerId: study.ownerId,
-    ownerName: study.owner?.name ?? 'former member',
     version: study.version,
     createdAt: study.createdAt.toISOString(),
     updatedAt: study.updatedAt.toISOString(),
