@@ -175,6 +175,10 @@ export async function findDecaySet(lab: LabContext, setId: string): Promise<Deca
   return set;
 }
 
+/** What a decay set's audit events are about: its study, or the compound whose lifetime it gives. */
+export const decaySetTarget = (set: { studyId: string | null; compoundId: string | null }) =>
+  set.studyId ? { targetType: 'study', targetId: set.studyId } : { targetType: 'compound', targetId: set.compoundId! };
+
 /**
  * Keeps a decay set: only when every decay is read and fitted and nothing is left to choose
  * (else 422 naming the decay, nothing kept). The bytes go to the file store first; the rows and
@@ -218,8 +222,7 @@ export async function keepDecaySet(
       {
         action: 'decay_set_kept',
         labId: lab.id,
-        targetType: target.studyId ? 'study' : 'compound',
-        targetId: (target.studyId ?? target.compoundId)!,
+        ...decaySetTarget(target),
         details: { decaySetId: set.id, files: kept.map(attached.keptFileDetails), decays: outcome.outcomes.length },
       },
       transaction,

@@ -10,7 +10,15 @@ import { lifetimeDependents } from '../library/lifetime-dependents.service';
 import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
 import { placeDecaySet } from './apply-decay-set.service';
-import { findDecaySet, keptFilesOf, methodOf, notesWithBasis, readToKeep, toDecaySet } from './decay-sets.service';
+import {
+  decaySetTarget,
+  findDecaySet,
+  keptFilesOf,
+  methodOf,
+  notesWithBasis,
+  readToKeep,
+  toDecaySet,
+} from './decay-sets.service';
 
 /** Who may refit: a study's set its owner while the study may change; a library set whoever may edit its lifetime record. */
 async function requireMayRefit(lab: LabContext, set: DecaySet, actor: SignedInActor) {
@@ -75,8 +83,7 @@ export async function refitDecaySet(
       {
         action: 'decay_set_refitted',
         labId: lab.id,
-        targetType: set.studyId ? 'study' : 'compound',
-        targetId: (set.studyId ?? set.compoundId)!,
+        ...decaySetTarget(set),
         details: {
           decaySetId: set.id,
           before,
