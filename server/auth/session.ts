@@ -4,6 +4,7 @@ import session from 'express-session';
 import pg from 'pg';
 import type { Logger } from 'pino';
 import { addDatabaseTime } from '../db/database-time';
+import { fixedStatement, type FixedStatement } from '../db/select-rows';
 import { inWriteRequest } from '../db/request-kind';
 
 declare module 'express-session' {
@@ -128,15 +129,19 @@ export function createSessionMiddleware(options: {
   const timed = options.logger.isLevelEnabled('debug');
   // The store only calls query(); a request that writes (server/db/request-kind.ts) gets its own
   // small pool, so its session row is not read behind a queue of reads.
+  // The store's statements are a few fixed lookups and writes by sid: each runs prepared (see
+  // fixedStatement), so PostgreSQL does not parse and plan the session read of every request.
+  const statements = new Map<string, FixedStatement>();
   const pool = {
-    async query(...args: unknown[]) {
+    async query(text: string, values: unknown[] = []) {
       const chosen = inWriteRequest() ? pools[1] : pools[0];
-      const query = chosen.query.bind(chosen) as (...args: unknown[]) => Promise<unknown>;
-      if (!timed) return query(...args);
+      let statement = statements.get(text);
+      if (!statement) statements.set(text, (statement = fixedStatement(text)));
+      if (!timed) return chosen.query({ ...statement, values });
       // The store's reads and writes count into the request's database time, like Sequelize's queries.
       const started = performance.now();
       try {
-        return await query(...args);
+        return await chosen.query({ ...statement, values });
       } finally {
         addDatabaseTime(performance.now() - started);
       }

@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { Role } from '@shared/schemas/roles';
 import { roleAtLeast } from '@shared/schemas/roles';
-import { selectRows } from '../db/select-rows';
+import { fixedStatement, selectRows } from '../db/select-rows';
 import { AppError } from '../lib/app-error';
 import { Membership } from '../models';
 
@@ -22,10 +22,10 @@ type MembershipRow = {
   is_demo: boolean;
   require_two_factor: boolean;
 };
-const membershipSql = `
+const membershipSql = fixedStatement(`
   SELECT m.id, m.role, l.id AS lab_id, l.name AS lab_name, l.is_demo, l.require_two_factor
   FROM memberships m JOIN labs l ON l.id = m.lab_id
-  WHERE m.lab_id = $1 AND m.user_id = $2`;
+  WHERE m.lab_id = $1 AND m.user_id = $2`);
 
 /**
  * Resolves :labId, checks that the signed-in person is a member (404 otherwise, so a lab's
@@ -36,7 +36,7 @@ export function requireLabRole(needed: Role): RequestHandler {
     const labId = String(req.params.labId ?? '');
     if (!req.user) throw new AppError('not_signed_in', 'Sign in to use this part of Halflight.', 401);
     if (!uuidPattern.test(labId)) throw labNotFound();
-    // Every lab request asks this: one fixed statement, no query building or model instances.
+    // Every lab request asks this: one prepared statement, no query building or model instances.
     const [membership] = await selectRows<MembershipRow>(Membership.sequelize!, membershipSql, [labId, req.user.id]);
     if (!membership) throw labNotFound();
     if (!roleAtLeast(membership.role, needed)) {

@@ -2,7 +2,7 @@ import type { Sequelize } from 'sequelize';
 import type { CreateStudyInput, UpdateStudyInput } from '@shared/schemas/studies';
 import { studySettingsIssues } from '@shared/schemas/studies';
 import type { StudyDetail } from '@shared/schemas/study-detail';
-import { selectRows } from '../../db/select-rows';
+import { fixedStatement, selectRows } from '../../db/select-rows';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Study, type StudyFit, type StudyPoint, type StudyReview, type StudyUpload } from '../../models';
@@ -140,7 +140,7 @@ const byName = (name: unknown): Named | null => (typeof name === 'string' ? { na
  * (never their bytes) and reviews, each with the person's name. Every column of the study, points,
  * fits and reviews comes along, so a column added later reaches the serialisers without a change here.
  */
-const detailSql = `
+const detailSql = fixedStatement(`
   SELECT
     (SELECT row_to_json(x) FROM (
        SELECT s.*, e.name AS emitter_name, q.name AS quencher_name, o.name AS owner_name
@@ -163,7 +163,7 @@ const detailSql = `
          FROM study_uploads u LEFT JOIN users b ON b.id = u.uploaded_by_id WHERE u.study_id = $1) x) AS uploads,
     (SELECT coalesce(json_agg(x ORDER BY x.created_at ASC), '[]') FROM (
        SELECT r.*, a.name AS author_name FROM study_reviews r LEFT JOIN users a ON a.id = r.author_id
-        WHERE r.study_id = $1) x) AS reviews`;
+        WHERE r.study_id = $1) x) AS reviews`);
 
 type DetailRow = {
   study: Record<string, unknown> | null;
@@ -178,7 +178,8 @@ type DetailRow = {
 /** A study's detail. A read never writes: outdated stored fits are fitted again at start (refit-outdated-fits.ts). */
 export async function getStudyDetail(lab: LabContext, studyId: string): Promise<StudyDetail> {
   // The study (404 when it is not this lab's) with its names and everything shown beside it, in
-  // one round trip as plain rows: no Sequelize query building or model instances on this read.
+  // one round trip as plain rows: no Sequelize query building or model instances on this read, and
+  // (a prepared statement) no planning after the first runs on each connection.
   const [parts] = await selectRows<DetailRow>(Study.sequelize!, detailSql, [studyId, lab.id]);
   const studyRow = parts!.study;
   if (!studyRow) throw studyNotFound();
