@@ -1,10 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { SpectraDiscarded } from '@shared/schemas/spectrum-matrices';
 import { apiClient } from '@/lib/api-client';
 import { mechanismKeys } from './mechanism-keys';
 
 /** DELETE /api/labs/:labId/studies/:studyId/absorption-titrations/:titrationId: remove a kept titration and its files. */
 export const discardAbsorptionTitration = (labId: string, studyId: string, titrationId: string) =>
-  apiClient.delete<void>(`/api/labs/${labId}/studies/${studyId}/absorption-titrations/${titrationId}`);
+  apiClient.delete<SpectraDiscarded>(`/api/labs/${labId}/studies/${studyId}/absorption-titrations/${titrationId}`);
 
 export function useDiscardAbsorptionTitration(labId: string, studyId: string) {
   const queryClient = useQueryClient();

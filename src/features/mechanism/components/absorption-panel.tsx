@@ -5,6 +5,7 @@ import type {
   AbsorptionPreview,
   AbsorptionTitration,
 } from '@shared/schemas/absorption-titrations';
+import type { MechanismVerdictChange } from '@shared/schemas/mechanism-evidence';
 import { fromMicromolar } from '@shared/units/units';
 import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
@@ -14,11 +15,12 @@ import { Signal } from '@/components/signal';
 import { TextField } from '@/components/text-field';
 import { describeError } from '@/lib/form-errors';
 import type { AbsorptionInput } from '../api/absorption-upload-form';
-import { useDiscardAbsorptionTitration } from '../api/discard-absorption-titration';
 import { useAbsorptionTitrations } from '../api/get-absorption-titrations';
 import { useKeepAbsorptionTitration } from '../api/keep-absorption-titration';
 import { usePreviewAbsorptionTitration } from '../api/preview-absorption-titration';
 import { AbsorptionPlots } from './absorption-plots';
+import { TitrationChanges } from './titration-changes';
+import { VerdictChangeNotice } from './verdict-change-notice';
 import { BandWidthField } from './band-width-field';
 
 const EPSILON_UNIT = 'M⁻¹ cm⁻¹';
@@ -107,16 +109,16 @@ function TitrationView({ answer, title }: { answer: AbsorptionPreview; title: st
 
 function KeptTitration({
   labId,
+  studyId,
   titration,
   editable,
-  onDiscard,
-  discarding,
+  onDiscarded,
 }: {
   labId: string;
+  studyId: string;
   titration: AbsorptionTitration;
   editable: boolean;
-  onDiscard: () => void;
-  discarding: boolean;
+  onDiscarded: (change: MechanismVerdictChange) => void;
 }) {
   return (
     <article aria-label={`Absorption ${titration.title}`} className="space-y-2 rounded-md border border-paper-300 p-3">
@@ -133,12 +135,8 @@ function KeptTitration({
             Quencher file
           </a>
         )}
-        {editable && (
-          <Button variant="quiet" pending={discarding} pendingLabel="Discarding…" onClick={onDiscard}>
-            Discard this titration
-          </Button>
-        )}
       </div>
+      {editable && <TitrationChanges labId={labId} studyId={studyId} titration={titration} onDiscarded={onDiscarded} />}
     </article>
   );
 }
@@ -158,7 +156,7 @@ export function AbsorptionPanel({ labId, studyId, editable }: { labId: string; s
   const titrations = useAbsorptionTitrations(labId, studyId);
   const preview = usePreviewAbsorptionTitration(labId, studyId);
   const keep = useKeepAbsorptionTitration(labId, studyId);
-  const discard = useDiscardAbsorptionTitration(labId, studyId);
+  const [discarded, setDiscarded] = useState<{ title: string; change: MechanismVerdictChange } | null>(null);
   const items = titrations.data?.items ?? [];
   const micromolar = Number(emitterMicromolar.replace(',', '.'));
   const input = (chosen: File): AbsorptionInput => ({
@@ -249,7 +247,7 @@ export function AbsorptionPanel({ labId, studyId, editable }: { labId: string; s
         </div>
       )}
       {titrations.isError && <FormAlert>{describeError(titrations.error)}</FormAlert>}
-      {discard.isError && <FormAlert>{describeError(discard.error)}</FormAlert>}
+      {discarded && <VerdictChangeNotice what={`Discarded ${discarded.title}`} change={discarded.change} />}
       {titrations.isSuccess && items.length === 0 && (
         <EmptyState title="No absorption titration yet">
           UV-vis spectra at each [Q] show whether emitter and quencher form a complex before the light arrives.
@@ -260,9 +258,9 @@ export function AbsorptionPanel({ labId, studyId, editable }: { labId: string; s
           key={titration.id}
           labId={labId}
           titration={titration}
+          studyId={studyId}
           editable={editable}
-          discarding={discard.isPending && discard.variables === titration.id}
-          onDiscard={() => discard.mutate(titration.id)}
+          onDiscarded={(change) => setDiscarded({ title: titration.title, change })}
         />
       ))}
     </div>

@@ -1,5 +1,6 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { formatEstimate, formatNumber, UNITS } from '@shared/format';
+import type { MechanismVerdictChange } from '@shared/schemas/mechanism-evidence';
 import type { SpectrumMatrix } from '@shared/schemas/spectrum-matrices';
 import { Button } from '@/components/button';
 import { EmptyState } from '@/components/empty-state';
@@ -10,10 +11,12 @@ import { describeError } from '@/lib/form-errors';
 import { useSpectrumMatrices } from '../api/get-spectrum-matrices';
 import { useKeepSpectrumMatrix } from '../api/keep-spectrum-matrix';
 import { BandWidthField } from './band-width-field';
+import { MatrixChanges } from './matrix-changes';
 import { SpectrumMatrixPlots } from './spectrum-matrix-plots';
+import { VerdictChangeNotice } from './verdict-change-notice';
 
 /** What one kept matrix says: the flags or "one emitter", the χ² test and the component count, then the plots. */
-function MatrixView({ labId, matrix }: { labId: string; matrix: SpectrumMatrix }) {
+function MatrixView({ labId, matrix, changes }: { labId: string; matrix: SpectrumMatrix; changes?: ReactNode }) {
   const { analysis, reading } = matrix;
   const { homogeneity, components } = analysis;
   const width = analysis.bandWidth === 0 ? 'one band per wavelength' : `${formatNumber(analysis.bandWidth)} nm bands`;
@@ -54,6 +57,7 @@ function MatrixView({ labId, matrix }: { labId: string; matrix: SpectrumMatrix }
         </dd>
       </dl>
       <SpectrumMatrixPlots matrix={matrix} />
+      {changes}
     </article>
   );
 }
@@ -76,6 +80,7 @@ export function SpectrumMatrixPanel({
   const [bandWidth, setBandWidth] = useState('10');
   const matrices = useSpectrumMatrices(labId, studyId);
   const keep = useKeepSpectrumMatrix(labId, studyId);
+  const [discarded, setDiscarded] = useState<{ title: string; change: MechanismVerdictChange } | null>(null);
   const items = matrices.data?.items ?? [];
   return (
     <div className="space-y-4">
@@ -106,8 +111,23 @@ export function SpectrumMatrixPanel({
           Emission spectra at each [Q] show whether K_SV is the same at every wavelength.
         </EmptyState>
       )}
+      {discarded && <VerdictChangeNotice what={`Discarded ${discarded.title}`} change={discarded.change} />}
       {items.map((matrix) => (
-        <MatrixView key={matrix.id} labId={labId} matrix={matrix} />
+        <MatrixView
+          key={matrix.id}
+          labId={labId}
+          matrix={matrix}
+          changes={
+            editable && (
+              <MatrixChanges
+                labId={labId}
+                studyId={studyId}
+                matrix={matrix}
+                onDiscarded={(change) => setDiscarded({ title: matrix.title, change })}
+              />
+            )
+          }
+        />
       ))}
     </div>
   );

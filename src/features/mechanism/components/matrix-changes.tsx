@@ -1,0 +1,82 @@
+import { useState } from 'react';
+import { formatNumber } from '@shared/format';
+import type { MechanismVerdictChange } from '@shared/schemas/mechanism-evidence';
+import type { SpectrumMatrix } from '@shared/schemas/spectrum-matrices';
+import { Button } from '@/components/button';
+import { FormAlert } from '@/components/form-alert';
+import { TextField } from '@/components/text-field';
+import { describeError } from '@/lib/form-errors';
+import { useDiscardSpectrumMatrix } from '../api/discard-spectrum-matrix';
+import { useReanalyseSpectrumMatrix } from '../api/reanalyse-spectrum-matrix';
+import { typedNumber } from './typed-number';
+import { VerdictChangeNotice } from './verdict-change-notice';
+
+/**
+ * Analyse a kept matrix again at another band width, or discard it after a second click; each
+ * answer says what happened to the mechanism verdict.
+ */
+export function MatrixChanges({
+  labId,
+  studyId,
+  matrix,
+  onDiscarded,
+}: {
+  labId: string;
+  studyId: string;
+  matrix: SpectrumMatrix;
+  onDiscarded: (change: MechanismVerdictChange) => void;
+}) {
+  const [bandWidth, setBandWidth] = useState(String(matrix.analysis.bandWidth));
+  const [confirming, setConfirming] = useState(false);
+  const reanalyse = useReanalyseSpectrumMatrix(labId, studyId, matrix.id);
+  const discard = useDiscardSpectrumMatrix(labId, studyId);
+  const done = reanalyse.data?.matrix.analysis.bandWidth;
+  return (
+    <div className="space-y-2 border-t border-paper-200 pt-3">
+      <div className="flex flex-wrap items-end gap-3">
+        <TextField
+          label="New band width (nm)"
+          hint="Analyse the kept file again; 0 gives one band per wavelength"
+          inputMode="decimal"
+          value={bandWidth}
+          onChange={(event) => setBandWidth(event.target.value)}
+        />
+        <Button
+          variant="quiet"
+          pending={reanalyse.isPending}
+          pendingLabel="Analysing…"
+          onClick={() => reanalyse.mutate({ bandWidth: typedNumber(bandWidth) })}
+        >
+          Analyse again
+        </Button>
+        {confirming ? (
+          <>
+            <Button
+              variant="danger"
+              pending={discard.isPending}
+              pendingLabel="Discarding…"
+              onClick={() => discard.mutate(matrix.id, { onSuccess: (answer) => onDiscarded(answer.verdict) })}
+            >
+              Discard {matrix.title} and its file
+            </Button>
+            <Button variant="quiet" onClick={() => setConfirming(false)}>
+              Keep them
+            </Button>
+          </>
+        ) : (
+          <Button variant="quiet" onClick={() => setConfirming(true)}>
+            Discard these spectra
+          </Button>
+        )}
+      </div>
+      {reanalyse.isError && <FormAlert>{describeError(reanalyse.error)}</FormAlert>}
+      {discard.isError && <FormAlert>{describeError(discard.error)}</FormAlert>}
+      {reanalyse.data && done !== undefined && (
+        <VerdictChangeNotice
+          what={`Analysed again in ${done === 0 ? 'one band per wavelength' : `${formatNumber(done)} nm bands`}`}
+          change={reanalyse.data.verdict}
+        />
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,125 @@
+import { useState } from 'react';
+import { ASSOCIATION_FITS, type AbsorptionTitration } from '@shared/schemas/absorption-titrations';
+import type { MechanismVerdictChange } from '@shared/schemas/mechanism-evidence';
+import { fromMicromolar, toMicromolar } from '@shared/units/units';
+import { Button } from '@/components/button';
+import { FormAlert } from '@/components/form-alert';
+import { SelectField } from '@/components/select-field';
+import { TextField } from '@/components/text-field';
+import { describeError } from '@/lib/form-errors';
+import { useDiscardAbsorptionTitration } from '../api/discard-absorption-titration';
+import { useReanalyseAbsorptionTitration } from '../api/reanalyse-absorption-titration';
+import { typedNumber } from './typed-number';
+import { VerdictChangeNotice } from './verdict-change-notice';
+
+const FIT_LABELS: Record<(typeof ASSOCIATION_FITS)[number], string> = {
+  isotherm: '1:1 isotherm (nonlinear least squares)',
+  'benesi-hildebrand': 'Benesi–Hildebrand line',
+};
+
+/**
+ * Analyse a kept titration again with new settings (band, path length, [E]0, the quencher's own
+ * absorbance taken out or not, the K_a the verdict uses), or discard it after a second click; each
+ * answer says what happened to the mechanism verdict.
+ */
+export function TitrationChanges({
+  labId,
+  studyId,
+  titration,
+  onDiscarded,
+}: {
+  labId: string;
+  studyId: string;
+  titration: AbsorptionTitration;
+  onDiscarded: (change: MechanismVerdictChange) => void;
+}) {
+  const { options } = titration;
+  const [bandWidth, setBandWidth] = useState(String(options.bandWidth));
+  const [pathLength, setPathLength] = useState(String(options.pathLength));
+  const [emitter, setEmitter] = useState(
+    options.emitterConcentration === undefined ? '' : String(toMicromolar(options.emitterConcentration)),
+  );
+  const [subtract, setSubtract] = useState(options.subtractQuencher);
+  const [fit, setFit] = useState(options.associationFit);
+  const [confirming, setConfirming] = useState(false);
+  const reanalyse = useReanalyseAbsorptionTitration(labId, studyId, titration.id);
+  const discard = useDiscardAbsorptionTitration(labId, studyId);
+  const send = () =>
+    reanalyse.mutate({
+      bandWidth: typedNumber(bandWidth),
+      pathLength: typedNumber(pathLength),
+      emitterConcentration: emitter.trim() === '' ? null : fromMicromolar(typedNumber(emitter)),
+      subtractQuencher: subtract,
+      associationFit: fit,
+    });
+  return (
+    <fieldset className="space-y-2 border-t border-paper-200 pt-3">
+      <legend className="text-body font-bold text-ink-900">Analyse again</legend>
+      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+        <TextField
+          label="New band width (nm)"
+          inputMode="decimal"
+          value={bandWidth}
+          onChange={(event) => setBandWidth(event.target.value)}
+        />
+        <TextField
+          label="New path length (cm)"
+          inputMode="decimal"
+          value={pathLength}
+          onChange={(event) => setPathLength(event.target.value)}
+        />
+        <TextField
+          label="New emitter concentration (µM)"
+          hint="Empty: [Q] taken as in large excess"
+          inputMode="decimal"
+          value={emitter}
+          onChange={(event) => setEmitter(event.target.value)}
+        />
+        <SelectField
+          label="K_a the verdict uses"
+          options={ASSOCIATION_FITS.map((value) => ({ value, label: FIT_LABELS[value] }))}
+          value={fit}
+          onChange={(event) => setFit(event.target.value as typeof fit)}
+        />
+      </div>
+      <label className="flex items-center gap-2 text-body text-ink-900">
+        <input
+          type="checkbox"
+          checked={subtract}
+          disabled={!titration.quencherFile}
+          onChange={(event) => setSubtract(event.target.checked)}
+        />
+        {titration.quencherFile
+          ? "Take the quencher's own absorbance out (its kept file)"
+          : "Take the quencher's own absorbance out (kept without the quencher's file)"}
+      </label>
+      <div className="flex flex-wrap gap-3">
+        <Button variant="quiet" pending={reanalyse.isPending} pendingLabel="Analysing…" onClick={send}>
+          Analyse the titration again
+        </Button>
+        {confirming ? (
+          <>
+            <Button
+              variant="danger"
+              pending={discard.isPending}
+              pendingLabel="Discarding…"
+              onClick={() => discard.mutate(titration.id, { onSuccess: (answer) => onDiscarded(answer.verdict) })}
+            >
+              Discard {titration.title} and its files
+            </Button>
+            <Button variant="quiet" onClick={() => setConfirming(false)}>
+              Keep it
+            </Button>
+          </>
+        ) : (
+          <Button variant="quiet" onClick={() => setConfirming(true)}>
+            Discard this titration
+          </Button>
+        )}
+      </div>
+      {reanalyse.isError && <FormAlert>{describeError(reanalyse.error)}</FormAlert>}
+      {discard.isError && <FormAlert>{describeError(discard.error)}</FormAlert>}
+      {reanalyse.data && <VerdictChangeNotice what="Analysed again" change={reanalyse.data.verdict} />}
+    </fieldset>
+  );
+}
