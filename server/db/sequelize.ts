@@ -13,7 +13,12 @@ export interface PoolSizes {
 }
 export const defaultPoolSizes: PoolSizes = { read: 8, write: 3 };
 
-type Pools = { read: { maxSize: number }; write: { maxSize: number; _factory?: { max: number } } };
+type PooledConnection = { queryType?: 'read' | 'write' };
+type Pools = {
+  read: { maxSize: number; destroy(connection: PooledConnection): unknown };
+  write: { maxSize: number; _factory?: { max: number }; destroy(connection: PooledConnection): unknown };
+  destroy(connection: PooledConnection): void;
+};
 
 /**
  * `timeQueries`: count each query's time into the request it ran for (server/db/database-time.ts).
@@ -45,6 +50,14 @@ export function createSequelize(
   // sequelize-pool reads its size from the factory on each acquire; there is no public setter.
   if (!made.write._factory) throw new Error('Sequelize no longer has a separate write pool to size.');
   made.write._factory.max = pools.write;
+  // Sequelize's 'error' listener on a connection calls pool.destroy, which with two pools looks the
+  // pool up by the connection's queryType. A connection cut while it is still being opened (its
+  // first SET statement running when the database restarts) has no queryType yet, so the lookup
+  // threw a TypeError out of the event emitter: an uncaught exception that ends the process. Such
+  // a connection belongs to no pool; its opening fails by itself and the acquire reports it.
+  made.destroy = (connection) => {
+    if (connection.queryType) made[connection.queryType].destroy(connection);
+  };
   sequelize.addHook('beforePoolAcquire', (acquire: { useMaster?: boolean }) => {
     if (inWriteRequest()) acquire.useMaster = true;
   });

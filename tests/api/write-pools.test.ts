@@ -52,3 +52,29 @@ describe('connections kept for writes', () => {
     expect(answer.body.points).toHaveLength(exactPoints.length);
   });
 });
+
+describe('a connection cut while it opens', () => {
+  it('when a connection that no pool holds yet reports an error, then nothing is thrown out of the event', async () => {
+    // What a database restart does to a connection still running its opening statements: pg emits
+    // 'error' before Sequelize has given the connection to the read or the write pool. The error
+    // listener used to throw "Cannot read properties of undefined (reading 'destroy')" here, an
+    // uncaught exception seen once in a run with the database-outage test.
+    const manager = sequelize.connectionManager as unknown as {
+      config: { replication: { write: object } };
+      _connect(config: object): Promise<{ queryType?: string; emit(event: string, error: Error): boolean }>;
+      _disconnect(connection: object): Promise<void>;
+    };
+    const opening = await manager._connect(manager.config.replication.write);
+    expect(opening.queryType).toBeUndefined();
+    try {
+      expect(() =>
+        opening.emit('error', new Error('terminating connection due to administrator command')),
+      ).not.toThrow();
+    } finally {
+      await manager._disconnect(opening);
+    }
+    // The pools still serve queries afterwards.
+    const [rows] = await sequelize.query('SELECT 1 AS one');
+    expect(rows).toEqual([{ one: 1 }]);
+  });
+});
