@@ -17,6 +17,7 @@ import { correctPoint, type CorrectionSettings } from './corrections';
 import { diffusionLimitFor, kqIncludes, rateConstant, tau0For, type KineticsSettings } from './kinetics';
 import { fitLifetimeOnly } from './lifetime-only';
 import { lifetimeAnalysis } from './lifetimes';
+import { lineStatistics } from './line-statistics';
 import { compareWeighting, poolReplicates, type PooledReplicates } from './replicates';
 
 /** The study settings the pipeline reads (a study row or its plain settings). */
@@ -338,16 +339,7 @@ export function fitStudy(
           lineSigmas?.map((s) => 1 / (s * s)),
         )
       : fixedLineBand(x, fit.kSv.value, fit.kSv.standardError, fit.degreesOfFreedom);
-    statistics = {
-      n: fit.n,
-      degreesOfFreedom: fit.degreesOfFreedom,
-      rSquared: fit.rSquared,
-      rSquaredDefinition: fit.rSquaredDefinition,
-      rSquaredCentred: fit.rSquaredCentred,
-      residualStandardDeviation: fit.residualStandardDeviation,
-      curvature: fit.diagnosis.shape,
-      curvaturePValue: fit.diagnosis.fTest?.pValue ?? null,
-    };
+    statistics = lineStatistics(fit);
     if (lifetime) flags.push(...lifetime.compare(fit));
   } else if (model === 'static-dynamic') {
     const maxDynamic = limit && tau0 ? limit.value * tau0.value : undefined;

@@ -6,6 +6,7 @@ import type { ParameterEstimate } from '../stats/parameter-estimate';
 import { fixedLineBand, freeLineBand } from './bands';
 import { diffusionLimitFor, kqIncludes, rateConstant, tau0For } from './kinetics';
 import { lifetimeAnalysis } from './lifetimes';
+import { lineStatistics } from './line-statistics';
 import type { StudyFitOutcome, StudyFitPoint, StudyFitSettings } from './fit-study';
 
 /** What the reported K_SV's standard error includes when only lifetimes are fitted. */
@@ -95,16 +96,7 @@ export function fitLifetimeOnly(
     }));
   const result: FitResult = {
     parameters,
-    statistics: {
-      n: fit.n,
-      degreesOfFreedom: fit.degreesOfFreedom,
-      rSquared: fit.rSquared,
-      rSquaredDefinition: fit.rSquaredDefinition,
-      rSquaredCentred: fit.rSquaredCentred,
-      residualStandardDeviation: fit.residualStandardDeviation,
-      curvature: fit.diagnosis.shape,
-      curvaturePValue: fit.diagnosis.fTest?.pValue ?? null,
-    },
+    statistics: lineStatistics(fit),
     intensity: 'no-intensity-data',
     reference: { kind: 'lifetime-tau0', value: lifetime.tau0.value, source: 'τ0 of the lifetime fit, s' },
     replicates: null,
