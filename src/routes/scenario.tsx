@@ -1,7 +1,7 @@
-import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { SOLVENTS } from '@shared/engine/kinetics/solvents';
 import { Button } from '@/components/button';
+import { ConfirmedAction } from '@/components/confirmed-action';
 import { ErrorNotice } from '@/components/error-notice';
 import { FormAlert } from '@/components/form-alert';
 import { Panel } from '@/components/panel';
@@ -35,7 +35,6 @@ export function ScenarioRoute() {
   const options = (list: typeof emitters) =>
     (list.data?.items ?? []).map((item) => ({ value: item.id, label: item.name }));
   const data = scenario.data;
-  const [confirming, setConfirming] = useState(false);
 
   if (!isNew && scenario.isError) return <ErrorNotice error={scenario.error} what="this scenario" />;
   if ((!isNew && !data) || emitters.isPending || quenchers.isPending)
@@ -101,24 +100,12 @@ export function ScenarioRoute() {
       </Panel>
       {data && (
         <div className="flex items-center gap-3">
-          {confirming ? (
-            <>
-              <Button
-                variant="danger"
-                pending={remove.isPending}
-                onClick={() => remove.mutate(data.id, { onSuccess: () => navigate(paths.scenarios(labId)) })}
-              >
-                Yes, delete it
-              </Button>
-              <Button variant="quiet" onClick={() => setConfirming(false)}>
-                Keep it
-              </Button>
-            </>
-          ) : (
-            <Button variant="quiet" onClick={() => setConfirming(true)}>
-              Delete this scenario…
-            </Button>
-          )}
+          <ConfirmedAction
+            ask="Delete this scenario…"
+            confirm="Yes, delete it"
+            pending={remove.isPending}
+            onConfirm={() => remove.mutate(data.id, { onSuccess: () => navigate(paths.scenarios(labId)) })}
+          />
           {remove.isError && <FormAlert>{describeError(remove.error)}</FormAlert>}
         </div>
       )}

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import type { CompoundInput } from '@shared/schemas/library';
 import type { CompoundDetail } from '@shared/schemas/library-views';
 import { Button } from '@/components/button';
+import { ConfirmedAction } from '@/components/confirmed-action';
 import { FormAlert } from '@/components/form-alert';
 import { Tag } from '@/components/tag';
 import { TextLink } from '@/components/text-link';
@@ -33,7 +34,6 @@ export function CompoundHeader({
   onDeleted,
 }: CompoundHeaderProps) {
   const [editing, setEditing] = useState(false);
-  const [confirming, setConfirming] = useState(false);
   const update = useUpdateCompound(labId, compound.id);
   const remove = useDeleteCompound(labId, compound.id);
   const facts = [
@@ -62,25 +62,14 @@ export function CompoundHeader({
             {editing ? 'Stop editing' : 'Edit compound'}
           </Button>
         )}
-        {canCurate && !confirming && (
-          <Button variant="quiet" onClick={() => setConfirming(true)}>
-            Remove compound
-          </Button>
-        )}
-        {confirming && (
-          <>
-            <Button
-              variant="danger"
-              pending={remove.isPending}
-              pendingLabel="Removing…"
-              onClick={() => remove.mutate(compound.version, { onSuccess: onDeleted })}
-            >
-              Remove {compound.name} and its measurements
-            </Button>
-            <Button variant="quiet" onClick={() => setConfirming(false)}>
-              Keep it
-            </Button>
-          </>
+        {canCurate && (
+          <ConfirmedAction
+            ask="Remove compound"
+            confirm={`Remove ${compound.name} and its measurements`}
+            pending={remove.isPending}
+            pendingLabel="Removing…"
+            onConfirm={() => remove.mutate(compound.version, { onSuccess: onDeleted })}
+          />
         )}
       </div>
       {remove.isError && <FormAlert>{describeError(remove.error)}</FormAlert>}

@@ -3,6 +3,7 @@ import { formatNumber } from '@shared/format';
 import type { MechanismVerdictChange } from '@shared/schemas/mechanism-evidence';
 import type { SpectrumMatrix } from '@shared/schemas/spectrum-matrices';
 import { Button } from '@/components/button';
+import { ConfirmedAction } from '@/components/confirmed-action';
 import { FormAlert } from '@/components/form-alert';
 import { TextField } from '@/components/text-field';
 import { describeError } from '@/lib/form-errors';
@@ -27,7 +28,6 @@ export function MatrixChanges({
   onDiscarded: (change: MechanismVerdictChange) => void;
 }) {
   const [bandWidth, setBandWidth] = useState(String(matrix.analysis.bandWidth));
-  const [confirming, setConfirming] = useState(false);
   const reanalyse = useReanalyseSpectrumMatrix(labId, studyId, matrix.id);
   const discard = useDiscardSpectrumMatrix(labId, studyId);
   const done = reanalyse.data?.matrix.analysis.bandWidth;
@@ -49,25 +49,14 @@ export function MatrixChanges({
         >
           Analyse again
         </Button>
-        {confirming ? (
-          <>
-            <Button
-              variant="danger"
-              pending={discard.isPending}
-              pendingLabel="Discarding…"
-              onClick={() => discard.mutate(matrix.id, { onSuccess: (answer) => onDiscarded(answer.verdict) })}
-            >
-              Discard {matrix.title} and its file
-            </Button>
-            <Button variant="quiet" onClick={() => setConfirming(false)}>
-              Keep them
-            </Button>
-          </>
-        ) : (
-          <Button variant="quiet" onClick={() => setConfirming(true)}>
-            Discard these spectra
-          </Button>
-        )}
+        <ConfirmedAction
+          ask="Discard these spectra"
+          confirm={`Discard ${matrix.title} and its file`}
+          keep="Keep them"
+          pending={discard.isPending}
+          pendingLabel="Discarding…"
+          onConfirm={() => discard.mutate(matrix.id, { onSuccess: (answer) => onDiscarded(answer.verdict) })}
+        />
       </div>
       {reanalyse.isError && <FormAlert>{describeError(reanalyse.error)}</FormAlert>}
       {discard.isError && <FormAlert>{describeError(discard.error)}</FormAlert>}

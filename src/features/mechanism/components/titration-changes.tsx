@@ -3,6 +3,7 @@ import { ASSOCIATION_FITS, type AbsorptionTitration } from '@shared/schemas/abso
 import type { MechanismVerdictChange } from '@shared/schemas/mechanism-evidence';
 import { fromMicromolar, toMicromolar } from '@shared/units/units';
 import { Button } from '@/components/button';
+import { ConfirmedAction } from '@/components/confirmed-action';
 import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
 import { TextField } from '@/components/text-field';
@@ -41,7 +42,6 @@ export function TitrationChanges({
   );
   const [subtract, setSubtract] = useState(options.subtractQuencher);
   const [fit, setFit] = useState(options.associationFit);
-  const [confirming, setConfirming] = useState(false);
   const reanalyse = useReanalyseAbsorptionTitration(labId, studyId, titration.id);
   const discard = useDiscardAbsorptionTitration(labId, studyId);
   const send = () =>
@@ -97,25 +97,13 @@ export function TitrationChanges({
         <Button variant="quiet" pending={reanalyse.isPending} pendingLabel="Analysing…" onClick={send}>
           Analyse the titration again
         </Button>
-        {confirming ? (
-          <>
-            <Button
-              variant="danger"
-              pending={discard.isPending}
-              pendingLabel="Discarding…"
-              onClick={() => discard.mutate(titration.id, { onSuccess: (answer) => onDiscarded(answer.verdict) })}
-            >
-              Discard {titration.title} and its files
-            </Button>
-            <Button variant="quiet" onClick={() => setConfirming(false)}>
-              Keep it
-            </Button>
-          </>
-        ) : (
-          <Button variant="quiet" onClick={() => setConfirming(true)}>
-            Discard this titration
-          </Button>
-        )}
+        <ConfirmedAction
+          ask="Discard this titration"
+          confirm={`Discard ${titration.title} and its files`}
+          pending={discard.isPending}
+          pendingLabel="Discarding…"
+          onConfirm={() => discard.mutate(titration.id, { onSuccess: (answer) => onDiscarded(answer.verdict) })}
+        />
       </div>
       {reanalyse.isError && <FormAlert>{describeError(reanalyse.error)}</FormAlert>}
       {discard.isError && <FormAlert>{describeError(discard.error)}</FormAlert>}
