@@ -11,6 +11,7 @@ import { AppError } from '../../lib/app-error';
 import { AbsorptionTitration, type MechanismFile } from '../../models';
 import { recordAudit } from '../audit.service';
 import { loadStudyToChange } from '../studies/study-access';
+import { reanalysedColumns } from '../studies/files/attached-files';
 import type { UploadServices } from '../studies/study-upload.service';
 import { chosenAssociation, readOrRefuse, settingsOf, toAnswer, withFiles } from './absorption-titrations.service';
 import { verdictChange } from './mechanism-evidence.service';
@@ -95,14 +96,7 @@ export async function reanalyseAbsorptionTitration(
     if (!locked) throw notFound();
     const before = auditedAnalysis(settingsOf(locked), locked.analysis);
     await locked.update(
-      {
-        bandWidth: settings.bandWidth,
-        options: settings,
-        reading: outcome.reading,
-        analysis: outcome.analysis,
-        plot: outcome.plot,
-        engineVersion: ENGINE_VERSION,
-      },
+      { bandWidth: settings.bandWidth, options: settings, ...reanalysedColumns(outcome) },
       { transaction },
     );
     await recordAudit(

@@ -65,16 +65,7 @@ export async function reanalyseSpectrumMatrix(
     });
     if (!locked) throw notFound();
     const before = auditedAnalysis(locked.analysis);
-    await locked.update(
-      {
-        bandWidth: input.bandWidth,
-        reading: outcome.reading,
-        analysis: outcome.analysis,
-        plot: outcome.plot,
-        engineVersion: ENGINE_VERSION,
-      },
-      { transaction },
-    );
+    await locked.update({ bandWidth: input.bandWidth, ...attached.reanalysedColumns(outcome) }, { transaction });
     await recordAudit(
       actor,
       {

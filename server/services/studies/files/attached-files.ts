@@ -116,8 +116,16 @@ export const analysedRecordColumns = <R, A, P>(
   lab: LabContext,
   studyId: string,
   actor: SignedInActor,
-  { reading, analysis, plot }: { reading: R; analysis: A; plot: P },
-) => ({ labId: lab.id, studyId, reading, analysis, plot, engineVersion: ENGINE_VERSION, createdById: actor.userId });
+  outcome: { reading: R; analysis: A; plot: P },
+) => ({ labId: lab.id, studyId, ...reanalysedColumns(outcome), createdById: actor.userId });
+
+/** What analysing a kept record again rewrites: what the engine read and found, and its version. */
+export const reanalysedColumns = <R, A, P>({ reading, analysis, plot }: { reading: R; analysis: A; plot: P }) => ({
+  reading,
+  analysis,
+  plot,
+  engineVersion: ENGINE_VERSION,
+});
 
 /** A kept file as the audit log names it. */
 export const keptFileDetails = ({ id, file, sha256 }: KeptBytes) => ({
