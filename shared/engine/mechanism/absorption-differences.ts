@@ -1,5 +1,6 @@
 import { EngineError } from '../core/engine-error';
 import { requireFiniteArray, requireNonNegativeArray, requirePositive } from '../core/validate';
+import { blankSpectra } from './spectral-bands';
 
 /** The quencher's own absorbance: ε(λ) in M^-1 cm^-1, or a spectrum of the quencher alone at a stated [Q] in the same cell. */
 export type QuencherAbsorbance =
@@ -73,14 +74,7 @@ export function absorptionDifferences(input: AbsorptionDifferenceInput): Absorpt
       perMolar = quencher.values.map((value) => value / quencher.concentration);
     } else perMolar = quencher.values.map((epsilon) => epsilon * pathLength);
   }
-  const blanks = concentrations.flatMap((q, j) => (q === 0 ? [j] : []));
-  if (blanks.length === 0)
-    throw new EngineError(
-      'MISSING_I0',
-      'concentrations',
-      'no spectrum at [Q] = 0',
-      'Add the spectrum without quencher',
-    );
+  const blanks = blankSpectra(concentrations);
   const corrected = spectra.map((spectrum, j) =>
     perMolar ? spectrum.map((value, i) => value - concentrations[j]! * perMolar[i]!) : [...spectrum],
   );

@@ -4,7 +4,7 @@ import { fitLine } from '../stats/fit-line';
 import type { ParameterEstimate } from '../stats/parameter-estimate';
 import { studentTQuantile975 } from '../stats/student-t';
 import { testKsvHomogeneity, type KsvHomogeneity } from './ksv-homogeneity';
-import { spectralBands } from './spectral-bands';
+import { blankSpectra, spectralBands } from './spectral-bands';
 import { spectralComponents, type SpectralComponents } from './spectral-components';
 import { bandKsv } from './band-ksv';
 
@@ -98,14 +98,7 @@ export function analyseSpectrumMatrix(input: SpectrumMatrixInput): SpectrumMatri
       'Give one quencher concentration per spectrum',
     );
   requireNonNegativeArray(concentrations, 'concentrations');
-  const blanks = concentrations.flatMap((c, j) => (c === 0 ? [j] : []));
-  if (blanks.length === 0)
-    throw new EngineError(
-      'MISSING_I0',
-      'concentrations',
-      'no spectrum at [Q] = 0',
-      'Add the spectrum without quencher',
-    );
+  const blanks = blankSpectra(concentrations);
   if (countDistinct(concentrations) < 3)
     throw new EngineError(
       'TOO_FEW_CONCENTRATIONS',

@@ -82,3 +82,16 @@ export function spectralBands(
   close();
   return bands;
 }
+
+/** The positions of the spectra taken without quencher ([Q] = 0); refuses a series that has none. */
+export function blankSpectra(concentrations: readonly number[]): number[] {
+  const blanks = concentrations.flatMap((q, j) => (q === 0 ? [j] : []));
+  if (blanks.length === 0)
+    throw new EngineError(
+      'MISSING_I0',
+      'concentrations',
+      'no spectrum at [Q] = 0',
+      'Add the spectrum without quencher',
+    );
+  return blanks;
+}
