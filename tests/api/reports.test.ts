@@ -6,7 +6,7 @@ import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/s
 import { formatEstimate, replicateRunsText, weightingText } from '@shared/format';
 import { fitModelNames, type FitModel } from '@shared/schemas/studies';
 import { chartInk } from '../../server/services/reports/report-charts';
-import { apiClient } from '../support/accounts';
+import { apiClient, createLabWithMembers } from '../support/accounts';
 import { createStudy, exactPoints } from '../support/studies';
 import { pixelsOfColour, renderPdfPages } from '../support/pdf-pages';
 import { createTestApp } from '../support/test-app';
@@ -16,6 +16,10 @@ afterAll(testApp.close);
 
 let client: Awaited<ReturnType<typeof apiClient>>;
 let labId = '';
+// Studies this file makes go to a lab of its own: the demo lab's overview (tests/api/demo-studies.test.ts)
+// shows its newest 20 events, and events made here in the same run would push the demo's story out.
+let own: Awaited<ReturnType<typeof apiClient>>;
+let ownLabId = '';
 
 async function pdfText(buffer: Buffer): Promise<string> {
   const parser = new PDFParse({ data: new Uint8Array(buffer) });
@@ -35,10 +39,14 @@ beforeAll(async () => {
   labId = (await Lab.findOne({ where: { slug: demoLabs[0].slug } }))!.id;
   client = await apiClient(testApp.app);
   await client.signIn({ email: demoPeople[0]!.email, password: demoPassword });
+  const ownLab = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+  ownLabId = ownLab.lab.id;
+  own = await apiClient(testApp.app);
+  await own.signIn(ownLab.users.researcher!);
 });
 
-const pdfOf = (url: string) =>
-  client.agent
+const pdfOf = (url: string, by = client) =>
+  by.agent
     .get(url)
     .buffer(true)
     .parse((res, callback) => {
@@ -204,7 +212,7 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
   });
 
   it('when a study holds lifetimes only, then the report says there is no intensity data and draws the tau0/tau line it was fitted with', async () => {
-    const study = await createStudy(client, labId, 'report-lifetimes-only');
+    const study = await createStudy(own, ownLabId, 'report-lifetimes-only');
     // tau = 1 µs / (1 + 500 [Q]) (Lakowicz 3rd ed. eq. 8.2, numbers constructed) with a small invented scatter.
     const scatter = [0, 0.01, -0.008, 0.012, -0.006, 0.004];
     const points = exactPoints.map((p, i) => ({
@@ -212,12 +220,12 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
       intensity: null,
       lifetime: 1e-6 / (1 + 500 * p.concentration + scatter[i]!),
     }));
-    const base = `/api/labs/${labId}/studies/${study.id}`;
-    expect((await client.patch(`${base}/points`, { version: 0, points })).status).toBe(200);
-    const detail = (await client.get(base).expect(200)).body;
+    const base = `/api/labs/${ownLabId}/studies/${study.id}`;
+    expect((await own.patch(`${base}/points`, { version: 0, points })).status).toBe(200);
+    const detail = (await own.get(base).expect(200)).body;
     expect(detail.fitProblem).toBeNull();
     expect(Math.abs(detail.latestFit.kSv / 500 - 1)).toBeLessThan(0.02);
-    const pdf = binary(await pdfOf(`${base}/report.pdf`));
+    const pdf = binary(await pdfOf(`${base}/report.pdf`, own));
     const text = (await pdfText(pdf)).replace(/\s+/g, ' ');
     expect(text).toContain(
       'Intensity fit: no intensity data: K_SV and kq come from the lifetime Stern–Volmer fit (τ0/τ)',
@@ -234,13 +242,13 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
   });
 
   it('when a modified fit with a left-out point is reported, then the x axis reads 1/[Q] with its unit and the cross is drawn (issue 13, finding 11)', async () => {
-    const study = await createStudy(client, labId, 'report-axis');
+    const study = await createStudy(own, ownLabId, 'report-axis');
     const points = exactPoints.map((p, i) => (i === 3 ? { ...p, excluded: true, exclusionReason: 'bubble' } : p));
-    expect((await client.patch(`/api/labs/${labId}/studies/${study.id}/points`, { version: 0, points })).status).toBe(
+    expect((await own.patch(`/api/labs/${ownLabId}/studies/${study.id}/points`, { version: 0, points })).status).toBe(
       200,
     );
-    expect((await client.post(`/api/labs/${labId}/studies/${study.id}/fits`, { model: 'modified' })).status).toBe(201);
-    const pdf = binary(await pdfOf(`/api/labs/${labId}/studies/${study.id}/report.pdf`));
+    expect((await own.post(`/api/labs/${ownLabId}/studies/${study.id}/fits`, { model: 'modified' })).status).toBe(201);
+    const pdf = binary(await pdfOf(`/api/labs/${ownLabId}/studies/${study.id}/report.pdf`, own));
     const text = (await pdfText(pdf)).replace(/\s+/g, ' ');
     // the stored series' axis (shared/engine/study-fit): 1/[Q] in mM⁻¹ on the plot and the residuals beneath
     expect(text.match(/1\/\[Q\] \(mM⁻¹\)/g)).toHaveLength(2);
@@ -250,7 +258,7 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
   });
 
   it('when a study pools replicate runs, then the PDF and the CSVs carry each run, the mean ± SD per [Q] and the weighting', async () => {
-    const study = await createStudy(client, labId, 'report-runs');
+    const study = await createStudy(own, ownLabId, 'report-runs');
     // Two runs of the constructed line 1 + 500 [Q], run 2 with the lamp at 80 % and a 2 % scatter (invented).
     const run2 = exactPoints.map((p, i) => ({
       ...p,
@@ -258,11 +266,11 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
       intensity: p.intensity! * 0.8 * (1 + [0, 0.02, -0.02, 0.02, -0.02, 0.02][i]!),
     }));
     const points = [...exactPoints, ...run2];
-    const base = `/api/labs/${labId}/studies/${study.id}`;
-    expect((await client.patch(`${base}/points`, { version: 0, points })).status).toBe(200);
-    const fit = (await client.post(`${base}/fits`, { model: 'linear-free', weighting: 'weighted' })).body;
+    const base = `/api/labs/${ownLabId}/studies/${study.id}`;
+    expect((await own.patch(`${base}/points`, { version: 0, points })).status).toBe(200);
+    const fit = (await own.post(`${base}/fits`, { model: 'linear-free', weighting: 'weighted' })).body;
     const { replicates } = fit.result;
-    const text = (await pdfText(binary(await pdfOf(`${base}/report.pdf`)))).replace(/\s+/g, ' ');
+    const text = (await pdfText(binary(await pdfOf(`${base}/report.pdf`, own)))).replace(/\s+/g, ' ');
     expect(text).toContain(`${replicateRunsText(replicates)}.`);
     expect(text).toContain(`Weighting: ${weightingText(fit.result.weighting)}`);
     expect(text).toContain('I0/I mean ± SD');
@@ -270,10 +278,10 @@ describe('GET /api/labs/:labId/studies/:studyId/report.pdf', () => {
     const atOne = replicates.summary.find((row: { concentration: number }) => row.concentration === 1e-3);
     expect(text).toContain(formatEstimate(atOne.mean, atOne.sd, ''));
 
-    const pointsCsv = (await client.get(`${base}/export.csv?part=points`).expect(200)).text.split('\n');
+    const pointsCsv = (await own.get(`${base}/export.csv?part=points`).expect(200)).text.split('\n');
     expect(pointsCsv[0]).toMatch(/^\ufeff?position,run,/); // after the UTF-8 byte-order mark
     expect(pointsCsv[7]).toMatch(/^7,2,/); // the first reading of run 2
-    const fitCsv = (await client.get(`${base}/export.csv?part=fit`).expect(200)).text;
+    const fitCsv = (await own.get(`${base}/export.csv?part=fit`).expect(200)).text;
     expect(fitCsv).toMatch(/^run_2_i0,800,/m); // run 2's blank: 1000 × 0.8
     expect(fitCsv).toMatch(/^kSv_weighted,/m);
     expect(fitCsv).toMatch(/^kSv_unweighted,/m);
