@@ -11,7 +11,7 @@ import { defineRoute } from '../http/define-route';
 import { labOf, signedInActor } from '../http/request-context';
 import { AppError } from '../lib/app-error';
 import { Lab, User } from '../models';
-import { recordAudit } from '../services/audit.service';
+import { recordLabAudit } from '../services/audit.service';
 import {
   confirmTwoFactor,
   disableTwoFactor,
@@ -135,12 +135,8 @@ export const twoFactorRoutes = [
         );
       }
       await Lab.update({ requireTwoFactor: body.requireTwoFactor }, { where: { id: lab.id } });
-      await recordAudit(actor, {
-        action: 'lab_sign_in_rules_changed',
-        labId: lab.id,
-        targetType: 'lab',
-        targetId: lab.id,
-        details: { requireTwoFactor: body.requireTwoFactor },
+      await recordLabAudit({ lab, actor }, 'lab_sign_in_rules_changed', ['lab', lab.id], {
+        requireTwoFactor: body.requireTwoFactor,
       });
       res.json({ requireTwoFactor: body.requireTwoFactor });
     },

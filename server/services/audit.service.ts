@@ -25,6 +25,29 @@ export async function recordAudit(actor: Actor, entry: AuditEntry, transaction?:
   await AuditEvent.create(auditRow(actor, entry), { transaction });
 }
 
+/** What an event is about: the kind of record and its id. */
+export type AuditTarget = readonly [type: string, id: string];
+
+/** The change an event belongs to: its lab, who made it, and the transaction that carries it. */
+export interface LabChange {
+  lab: { id: string };
+  actor: Actor;
+  transaction?: Transaction;
+}
+
+/**
+ * recordAudit for the usual event, one record of a lab changed:
+ * `recordLabAudit({ lab, actor, transaction }, 'compound_changed', ['compound', compound.id], diff)`.
+ */
+export function recordLabAudit(
+  { lab, actor, transaction }: LabChange,
+  action: string,
+  [targetType, targetId]: AuditTarget,
+  details?: Record<string, unknown>,
+): Promise<void> {
+  return recordAudit(actor, { action, labId: lab.id, targetType, targetId, details }, transaction);
+}
+
 /** Appends several events of one change in one statement, in their order. */
 export async function recordAudits(actor: Actor, entries: AuditEntry[], transaction?: Transaction): Promise<void> {
   if (entries.length === 1) return recordAudit(actor, entries[0]!, transaction);

@@ -2,7 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { assertStrongPassword } from '../auth/password-policy';
 import { hashPassword } from '../auth/passwords';
 import { Lab, Membership, User } from '../models';
-import { recordAudit } from './audit.service';
+import { recordLabAudit } from './audit.service';
 
 export function slugify(name: string): string {
   const base = name
@@ -34,16 +34,11 @@ export async function ensureFirstAdmin(
     const name = email.split('@')[0] ?? email;
     const user = await User.create({ email, name, passwordHash }, { transaction });
     const membership = await Membership.create({ labId: lab.id, userId: user.id, role: 'admin' }, { transaction });
-    await recordAudit(
-      { userId: null, ip: null },
-      {
-        action: 'membership_added',
-        labId: lab.id,
-        targetType: 'membership',
-        targetId: membership.id,
-        details: { role: 'admin', via: 'first-admin setting' },
-      },
-      transaction,
+    await recordLabAudit(
+      { lab, actor: { userId: null, ip: null }, transaction },
+      'membership_added',
+      ['membership', membership.id],
+      { role: 'admin', via: 'first-admin setting' },
     );
   });
   return { created: true };

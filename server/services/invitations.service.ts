@@ -10,7 +10,7 @@ import type { JobQueue } from '../jobs/job-queue';
 import { mailJobs } from '../mail/mail-jobs';
 import type { LabContext } from '../domain/lab-context';
 import { Invitation, Lab, Membership, User } from '../models';
-import { recordAudit } from './audit.service';
+import { recordLabAudit } from './audit.service';
 import type { Actor, SignedInActor } from '../domain/actor';
 
 const invitationLifetimeMs = 7 * 24 * 60 * 60_000;
@@ -62,17 +62,10 @@ export async function inviteMember(
       },
       { transaction },
     );
-    await recordAudit(
-      context.actor,
-      {
-        action: 'invitation_sent',
-        labId: lab.id,
-        targetType: 'invitation',
-        targetId: created.id,
-        details: { email: input.email, role: input.role },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor: context.actor, transaction }, 'invitation_sent', ['invitation', created.id], {
+      email: input.email,
+      role: input.role,
+    });
     await context.jobs.send(mailJobs.invitation, { invitationId: created.id }, { transaction });
     return created;
   });
@@ -147,16 +140,11 @@ export async function acceptInvitation(
       { labId: invitation.labId, userId: user.id, role: invitation.role },
       { transaction },
     );
-    await recordAudit(
-      { userId: user.id, ip },
-      {
-        action: 'membership_added',
-        labId: invitation.labId,
-        targetType: 'membership',
-        targetId: membership.id,
-        details: { role: invitation.role, via: 'invitation', invitationId: invitation.id },
-      },
-      transaction,
+    await recordLabAudit(
+      { lab: { id: invitation.labId }, actor: { userId: user.id, ip }, transaction },
+      'membership_added',
+      ['membership', membership.id],
+      { role: invitation.role, via: 'invitation', invitationId: invitation.id },
     );
     return user.id;
   });
@@ -169,16 +157,8 @@ export async function revokeInvitation(lab: LabContext, invitationId: string, ac
   if (!invitation) throw new AppError('not_found', 'No open invitation with this id in this lab.', 404);
   await Invitation.sequelize!.transaction(async (transaction) => {
     await invitation.update({ revokedAt: new Date() }, { transaction });
-    await recordAudit(
-      actor,
-      {
-        action: 'invitation_revoked',
-        labId: lab.id,
-        targetType: 'invitation',
-        targetId: invitation.id,
-        details: { email: invitation.email },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'invitation_revoked', ['invitation', invitation.id], {
+      email: invitation.email,
+    });
   });
 }

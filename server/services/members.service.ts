@@ -5,7 +5,7 @@ import type { Role } from '@shared/schemas/roles';
 import { AppError } from '../lib/app-error';
 import type { LabContext } from '../domain/lab-context';
 import { Invitation, Membership, User } from '../models';
-import { recordAudit } from './audit.service';
+import { recordLabAudit } from './audit.service';
 import type { Actor } from '../domain/actor';
 import { toPendingInvitation } from './invitations.service';
 
@@ -69,17 +69,11 @@ export async function changeMemberRole(
     if (isLastAdmin && role !== 'admin') throw lastAdmin('demoted');
     const previous = membership.role;
     await membership.update({ role }, { transaction });
-    await recordAudit(
-      actor,
-      {
-        action: 'role_changed',
-        labId: lab.id,
-        targetType: 'membership',
-        targetId: membership.id,
-        details: { userId: membership.userId, from: previous, to: role },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'role_changed', ['membership', membership.id], {
+      userId: membership.userId,
+      from: previous,
+      to: role,
+    });
     return toMember(membership);
   });
 }
@@ -89,16 +83,10 @@ export async function removeMember(sequelize: Sequelize, lab: LabContext, member
     const { membership, isLastAdmin } = await loadForChange(lab.id, memberId, transaction);
     if (isLastAdmin) throw lastAdmin('removed');
     await membership.destroy({ transaction });
-    await recordAudit(
-      actor,
-      {
-        action: 'member_removed',
-        labId: lab.id,
-        targetType: 'membership',
-        targetId: membership.id,
-        details: { userId: membership.userId, role: membership.role, email: membership.user?.email },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'member_removed', ['membership', membership.id], {
+      userId: membership.userId,
+      role: membership.role,
+      email: membership.user?.email,
+    });
   });
 }

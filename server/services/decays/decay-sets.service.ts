@@ -15,7 +15,7 @@ import type { SignedInActor } from '../../domain/actor';
 import { DecayFile, DecaySet, ExcitedStateLifetime, User } from '../../models';
 import type { Atmosphere } from '../../models/excited-state-lifetime.model';
 import { findCompound } from '../library/library-access.service';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit, type AuditTarget } from '../audit.service';
 import * as attached from '../studies/files/attached-files';
 import { downloadKeptFile } from '../studies/files/raw-file-store';
 import { loadStudy, loadStudyToChange } from '../studies/study-access';
@@ -176,8 +176,8 @@ export async function findDecaySet(lab: LabContext, setId: string): Promise<Deca
 }
 
 /** What a decay set's audit events are about: its study, or the compound whose lifetime it gives. */
-export const decaySetTarget = (set: { studyId: string | null; compoundId: string | null }) =>
-  set.studyId ? { targetType: 'study', targetId: set.studyId } : { targetType: 'compound', targetId: set.compoundId! };
+export const decaySetTarget = (set: { studyId: string | null; compoundId: string | null }): AuditTarget =>
+  set.studyId ? ['study', set.studyId] : ['compound', set.compoundId!];
 
 /**
  * Keeps a decay set: only when every decay is read and fitted and nothing is left to choose
@@ -217,16 +217,11 @@ export async function keepDecaySet(
       },
       { transaction },
     );
-    await recordAudit(
-      actor,
-      {
-        action: 'decay_set_kept',
-        labId: lab.id,
-        ...decaySetTarget(target),
-        details: { decaySetId: set.id, files: kept.map(attached.keptFileDetails), decays: outcome.outcomes.length },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'decay_set_kept', decaySetTarget(target), {
+      decaySetId: set.id,
+      files: kept.map(attached.keptFileDetails),
+      decays: outcome.outcomes.length,
+    });
     await extra(set, transaction);
     return set.id;
   });
@@ -340,17 +335,12 @@ export async function keepLibraryDecay(
         { transaction },
       );
       await kept.update({ lifetimeId: record.id }, { transaction });
-      await recordAudit(
-        actor,
-        {
-          action: 'lifetime_added',
-          labId: lab.id,
-          targetType: 'lifetime',
-          targetId: record.id,
-          details: { decaySetId: kept.id, value: record.value, uncertainty: record.uncertainty, source: record.source },
-        },
-        transaction,
-      );
+      await recordLabAudit({ lab, actor, transaction }, 'lifetime_added', ['lifetime', record.id], {
+        decaySetId: kept.id,
+        value: record.value,
+        uncertainty: record.uncertainty,
+        source: record.source,
+      });
     },
   );
   return toDecaySet(set);

@@ -4,7 +4,7 @@ import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import type { SignedInActor } from '../../domain/actor';
 import { DecaySet, ExcitedStateLifetime } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import { assertMayEdit, changedFields } from '../library/library-access.service';
 import { lifetimeDependents } from '../library/lifetime-dependents.service';
 import { loadStudy, requireEditable, requireOwner } from '../studies/study-access';
@@ -78,21 +78,12 @@ export async function refitDecaySet(
       { options: { ...set.options, model: outcome.model }, outcomes: outcome.outcomes, engineVersion: ENGINE_VERSION },
       { transaction },
     );
-    await recordAudit(
-      actor,
-      {
-        action: 'decay_set_refitted',
-        labId: lab.id,
-        ...decaySetTarget(set),
-        details: {
-          decaySetId: set.id,
-          before,
-          after: { model: outcome.model, lifetimes: outcome.outcomes.map((decay) => decay.lifetime) },
-          engineVersion: ENGINE_VERSION,
-        },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'decay_set_refitted', decaySetTarget(set), {
+      decaySetId: set.id,
+      before,
+      after: { model: outcome.model, lifetimes: outcome.outcomes.map((decay) => decay.lifetime) },
+      engineVersion: ENGINE_VERSION,
+    });
     let study: DecaySetRefit['study'] = null;
     if (set.studyId) {
       const owner = await loadStudy(lab, set.studyId, transaction);
@@ -119,17 +110,10 @@ export async function refitDecaySet(
         };
         const diff = changedFields(record.get({ plain: true }) as Record<string, unknown>, fields);
         await record.update(fields, { transaction });
-        await recordAudit(
-          actor,
-          {
-            action: 'lifetime_changed',
-            labId: lab.id,
-            targetType: 'lifetime',
-            targetId: record.id,
-            details: { ...diff, decaySetId: set.id },
-          },
-          transaction,
-        );
+        await recordLabAudit({ lab, actor, transaction }, 'lifetime_changed', ['lifetime', record.id], {
+          ...diff,
+          decaySetId: set.id,
+        });
         lifetimeId = record.id;
       }
     }

@@ -13,7 +13,7 @@ import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Compound, User } from '../../models';
 import type { ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 import { toPotentialRecord } from './display-potential.service';
 import { excitedStateOf } from './excited-state.service';
@@ -170,11 +170,7 @@ export async function createCompound(
   await assertNameFree(lab.id, input.name);
   const id = await sequelize.transaction(async (transaction) => {
     const compound = await Compound.create({ ...input, labId: lab.id, createdById: actor.userId }, { transaction });
-    await recordAudit(
-      actor,
-      { action: 'compound_added', labId: lab.id, targetType: 'compound', targetId: compound.id, details: { ...input } },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'compound_added', ['compound', compound.id], { ...input });
     return compound.id;
   });
   return getCompound(lab, id);
@@ -195,11 +191,7 @@ export async function updateCompound(
     assertVersion(compound, version, 'compound');
     const diff = changedFields(compound.get({ plain: true }), fields);
     await compound.update(fields, { transaction });
-    await recordAudit(
-      actor,
-      { action: 'compound_changed', labId: lab.id, targetType: 'compound', targetId: compound.id, details: diff },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'compound_changed', ['compound', compound.id], diff);
   });
   return getCompound(lab, compoundId);
 }
@@ -217,11 +209,7 @@ export async function deleteCompound(
       assertVersion(compound, version, 'compound');
       const before = compound.get({ plain: true });
       await compound.destroy({ transaction });
-      await recordAudit(
-        actor,
-        { action: 'compound_deleted', labId: lab.id, targetType: 'compound', targetId: compoundId, details: before },
-        transaction,
-      );
+      await recordLabAudit({ lab, actor, transaction }, 'compound_deleted', ['compound', compoundId], before);
     });
   } catch (error) {
     if (error instanceof ForeignKeyConstraintError) {

@@ -3,7 +3,7 @@ import type { LabSettingsUpdate } from '@shared/schemas/lab-settings';
 import type { LabSettings } from '@shared/schemas/library-views';
 import type { LabContext } from '../../domain/lab-context';
 import { Lab } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 import { changedFields, labDisplaySettings } from './library-access.service';
 
@@ -20,16 +20,11 @@ export async function updateLabSettings(
     const row = await Lab.findByPk(lab.id, { transaction, lock: transaction.LOCK.UPDATE });
     const before = { displayReference: row!.displayReference, displaySolvent: row!.displaySolvent };
     await row!.update(changes, { transaction });
-    await recordAudit(
-      actor,
-      {
-        action: 'lab_settings_changed',
-        labId: lab.id,
-        targetType: 'lab',
-        targetId: lab.id,
-        details: changedFields(before, changes),
-      },
-      transaction,
+    await recordLabAudit(
+      { lab, actor, transaction },
+      'lab_settings_changed',
+      ['lab', lab.id],
+      changedFields(before, changes),
     );
     return { displayReference: row!.displayReference, displaySolvent: row!.displaySolvent };
   });

@@ -10,7 +10,7 @@ import { energyInputSchema, lifetimeInputSchema, potentialInputSchema } from '@s
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Compound } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 import { cellValue, csvDelimiter, fieldColumns } from './library-csv';
 import { insertMeasurement } from './measurement-store.service';
@@ -154,17 +154,10 @@ export async function importLibraryCsv(
         );
         ids.set(item.compound, created.id);
         names.set(item.compound, created.name);
-        await recordAudit(
-          actor,
-          {
-            action: 'compound_added',
-            labId: lab.id,
-            targetType: 'compound',
-            targetId: created.id,
-            details: { import: true, ...item.values },
-          },
-          transaction,
-        );
+        await recordLabAudit({ lab, actor, transaction }, 'compound_added', ['compound', created.id], {
+          import: true,
+          ...item.values,
+        });
         continue;
       }
       const compound = { id: ids.get(item.compound)!, name: names.get(item.compound) ?? item.compound };
@@ -176,11 +169,7 @@ export async function importLibraryCsv(
       const kind = item.kind === 'e00' ? 'energy' : item.kind;
       await insertMeasurement(lab, actor, kind, compound, values, transaction, { import: true });
     }
-    await recordAudit(
-      actor,
-      { action: 'library_imported', labId: lab.id, targetType: 'lab', targetId: lab.id, details: counts },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'library_imported', ['lab', lab.id], counts);
   });
   return { saved: true, counts, problems: [] };
 }

@@ -2,7 +2,7 @@ import type { Model, ModelStatic, Sequelize, Transaction } from 'sequelize';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { ExcitedStateEnergy, ExcitedStateLifetime, RedoxPotential, User } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 import { assertMayEdit, assertVersion, changedFields, findCompound } from './library-access.service';
 
@@ -47,17 +47,11 @@ export async function insertMeasurement(
     { ...values, labId: lab.id, compoundId: compound.id, createdById: actor.userId },
     { transaction },
   );
-  await recordAudit(
-    actor,
-    {
-      action: `${kind}_added`,
-      labId: lab.id,
-      targetType: kind,
-      targetId: row.id,
-      details: { compound: compound.name, ...values, ...details },
-    },
-    transaction,
-  );
+  await recordLabAudit({ lab, actor, transaction }, `${kind}_added`, [kind, row.id], {
+    compound: compound.name,
+    ...values,
+    ...details,
+  });
   return row;
 }
 
@@ -112,11 +106,7 @@ export async function updateMeasurement<T extends MeasurementRow>(
     assertVersion(row, version, words[kind]);
     const diff = changedFields(row.get({ plain: true }) as Record<string, unknown>, fields);
     await row.update(fields, { transaction });
-    await recordAudit(
-      actor,
-      { action: `${kind}_changed`, labId: lab.id, targetType: kind, targetId: row.id, details: diff },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, `${kind}_changed`, [kind, row.id], diff);
     await transaction.commit();
   } catch (error) {
     await transaction.rollback();
@@ -138,11 +128,7 @@ export async function deleteMeasurement(
     assertVersion(row, version, words[kind]);
     const before = row.get({ plain: true }) as Record<string, unknown>;
     await row.destroy({ transaction });
-    await recordAudit(
-      actor,
-      { action: `${kind}_deleted`, labId: lab.id, targetType: kind, targetId: row.id, details: before },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, `${kind}_deleted`, [kind, row.id], before);
     await transaction.commit();
   } catch (error) {
     await transaction.rollback();

@@ -9,7 +9,7 @@ import type { SignedInActor } from '../../domain/actor';
 import type { LabContext } from '../../domain/lab-context';
 import { AppError } from '../../lib/app-error';
 import { AbsorptionTitration, type MechanismFile } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import { loadStudyToChange } from '../studies/study-access';
 import { reanalysedColumns } from '../studies/files/attached-files';
 import type { UploadServices } from '../studies/study-upload.service';
@@ -99,23 +99,13 @@ export async function reanalyseAbsorptionTitration(
       { bandWidth: settings.bandWidth, options: settings, ...reanalysedColumns(outcome) },
       { transaction },
     );
-    await recordAudit(
-      actor,
-      {
-        action: 'absorption_titration_reanalysed',
-        labId: lab.id,
-        targetType: 'study',
-        targetId: studyId,
-        details: {
-          absorptionTitrationId: row.id,
-          before,
-          after: auditedAnalysis(settings, outcome.analysis),
-          verdict: { before: verdict.before, after: verdict.after },
-          engineVersion: ENGINE_VERSION,
-        },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'absorption_titration_reanalysed', ['study', studyId], {
+      absorptionTitrationId: row.id,
+      before,
+      after: auditedAnalysis(settings, outcome.analysis),
+      verdict: { before: verdict.before, after: verdict.after },
+      engineVersion: ENGINE_VERSION,
+    });
   });
   return { titration: await toAnswer(await findTitration(lab, studyId, titrationId), study), verdict };
 }
@@ -146,23 +136,13 @@ export async function discardAbsorptionTitration(
     const files = [row.file!, ...(row.quencherFile ? [row.quencherFile] : [])];
     await row.destroy({ transaction });
     const released = await releaseMechanismFiles(lab.id, files, transaction);
-    await recordAudit(
-      actor,
-      {
-        action: 'absorption_titration_discarded',
-        labId: lab.id,
-        targetType: 'study',
-        targetId: studyId,
-        details: {
-          absorptionTitrationId: row.id,
-          files: files.map((file) => ({ id: file.id, fileName: file.fileName, sha256: file.sha256 })),
-          filesRemoved: released.removed,
-          ...auditedAnalysis(settingsOf(row), row.analysis),
-          verdict: { before: verdict.before, after: verdict.after },
-        },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'absorption_titration_discarded', ['study', studyId], {
+      absorptionTitrationId: row.id,
+      files: files.map((file) => ({ id: file.id, fileName: file.fileName, sha256: file.sha256 })),
+      filesRemoved: released.removed,
+      ...auditedAnalysis(settingsOf(row), row.analysis),
+      verdict: { before: verdict.before, after: verdict.after },
+    });
     return released.locations;
   });
   for (const location of locations) await services.files.discard(location);

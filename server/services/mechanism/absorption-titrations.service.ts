@@ -12,7 +12,7 @@ import type { SignedInActor } from '../../domain/actor';
 import type { LabContext } from '../../domain/lab-context';
 import { AppError } from '../../lib/app-error';
 import { AbsorptionTitration, MechanismFile, StudyFit, User, type Study } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import * as attached from '../studies/files/attached-files';
 import { loadStudy, loadStudyToChange } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
@@ -205,22 +205,12 @@ export async function keepAbsorptionTitration(
         },
         { transaction },
       );
-      await recordAudit(
-        actor,
-        {
-          action: 'absorption_titration_kept',
-          labId: lab.id,
-          targetType: 'study',
-          targetId: studyId,
-          details: {
-            absorptionTitrationId: titration.id,
-            files: kept.map(attached.keptFileDetails),
-            options: upload.options,
-            flags: outcome.analysis.flags.map((flag) => flag.code),
-          },
-        },
-        transaction,
-      );
+      await recordLabAudit({ lab, actor, transaction }, 'absorption_titration_kept', ['study', studyId], {
+        absorptionTitrationId: titration.id,
+        files: kept.map(attached.keptFileDetails),
+        options: upload.options,
+        flags: outcome.analysis.flags.map((flag) => flag.code),
+      });
       return titration.id;
     },
   );

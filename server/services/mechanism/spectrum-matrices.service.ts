@@ -3,7 +3,7 @@ import type { SpectrumMatrix as SpectrumMatrixAnswer, SpectrumMatrixOptions } fr
 import type { SignedInActor } from '../../domain/actor';
 import type { LabContext } from '../../domain/lab-context';
 import { MechanismFile, SpectrumMatrix, User } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import * as attached from '../studies/files/attached-files';
 import { downloadKeptFile } from '../studies/files/raw-file-store';
 import { loadStudyToChange } from '../studies/study-access';
@@ -66,22 +66,12 @@ export async function keepSpectrumMatrix(
         },
         { transaction },
       );
-      await recordAudit(
-        actor,
-        {
-          action: 'spectrum_matrix_kept',
-          labId: lab.id,
-          targetType: 'study',
-          targetId: studyId,
-          details: {
-            spectrumMatrixId: matrix.id,
-            file: attached.keptFileDetails(kept!),
-            bandWidth: options.bandWidth,
-            flags: outcome.analysis.flags.map((flag) => flag.code),
-          },
-        },
-        transaction,
-      );
+      await recordLabAudit({ lab, actor, transaction }, 'spectrum_matrix_kept', ['study', studyId], {
+        spectrumMatrixId: matrix.id,
+        file: attached.keptFileDetails(kept!),
+        bandWidth: options.bandWidth,
+        flags: outcome.analysis.flags.map((flag) => flag.code),
+      });
       return matrix.id;
     },
   );

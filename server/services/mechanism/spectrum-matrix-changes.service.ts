@@ -8,7 +8,7 @@ import type { SignedInActor } from '../../domain/actor';
 import type { LabContext } from '../../domain/lab-context';
 import { AppError } from '../../lib/app-error';
 import { SpectrumMatrix } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import * as attached from '../studies/files/attached-files';
 import { loadStudyToChange } from '../studies/study-access';
 import type { UploadServices } from '../studies/study-upload.service';
@@ -66,23 +66,13 @@ export async function reanalyseSpectrumMatrix(
     if (!locked) throw notFound();
     const before = auditedAnalysis(locked.analysis);
     await locked.update({ bandWidth: input.bandWidth, ...attached.reanalysedColumns(outcome) }, { transaction });
-    await recordAudit(
-      actor,
-      {
-        action: 'spectrum_matrix_reanalysed',
-        labId: lab.id,
-        targetType: 'study',
-        targetId: studyId,
-        details: {
-          spectrumMatrixId: row.id,
-          before,
-          after: auditedAnalysis(outcome.analysis),
-          verdict: { before: verdict.before, after: verdict.after },
-          engineVersion: ENGINE_VERSION,
-        },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'spectrum_matrix_reanalysed', ['study', studyId], {
+      spectrumMatrixId: row.id,
+      before,
+      after: auditedAnalysis(outcome.analysis),
+      verdict: { before: verdict.before, after: verdict.after },
+      engineVersion: ENGINE_VERSION,
+    });
   });
   return { matrix: toSpectrumMatrix(await findOrRefuse(lab, studyId, matrixId)), verdict };
 }
@@ -109,23 +99,13 @@ export async function discardSpectrumMatrix(
     const file = row.file!;
     await row.destroy({ transaction });
     const released = await releaseMechanismFiles(lab.id, [file], transaction);
-    await recordAudit(
-      actor,
-      {
-        action: 'spectrum_matrix_discarded',
-        labId: lab.id,
-        targetType: 'study',
-        targetId: studyId,
-        details: {
-          spectrumMatrixId: row.id,
-          file: { id: file.id, fileName: file.fileName, sha256: file.sha256 },
-          fileRemoved: released.removed.length > 0,
-          ...auditedAnalysis(row.analysis),
-          verdict: { before: verdict.before, after: verdict.after },
-        },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'spectrum_matrix_discarded', ['study', studyId], {
+      spectrumMatrixId: row.id,
+      file: { id: file.id, fileName: file.fileName, sha256: file.sha256 },
+      fileRemoved: released.removed.length > 0,
+      ...auditedAnalysis(row.analysis),
+      verdict: { before: verdict.before, after: verdict.after },
+    });
     return released.locations;
   });
   for (const location of locations) await services.files.discard(location);

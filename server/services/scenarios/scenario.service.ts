@@ -5,7 +5,7 @@ import type { Scenario, ScenarioList, scenarioInputSchema } from '@shared/schema
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Compound, ReactionScenario, ScenarioComponent, Study, User } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 import { evaluateScenario } from './evaluate-scenario';
 
@@ -117,11 +117,7 @@ export async function createScenario(sequelize: Sequelize, lab: LabContext, acto
       { transaction },
     );
     await writeComponents(scenario.id, input, transaction);
-    await recordAudit(
-      actor,
-      { action: 'scenario_created', labId: lab.id, targetType: 'scenario', targetId: scenario.id },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'scenario_created', ['scenario', scenario.id]);
     return scenario.id;
   });
   return getScenario(lab, id);
@@ -161,11 +157,7 @@ export async function updateScenario(
     scenario.changed('updatedAt', true);
     await scenario.save({ transaction });
     await writeComponents(scenario.id, input, transaction);
-    await recordAudit(
-      actor,
-      { action: 'scenario_updated', labId: lab.id, targetType: 'scenario', targetId: scenario.id },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'scenario_updated', ['scenario', scenario.id]);
   });
   return getScenario(lab, scenarioId);
 }
@@ -175,16 +167,8 @@ export async function deleteScenario(sequelize: Sequelize, lab: LabContext, acto
     const scenario = await loadScenario(lab.id, scenarioId, transaction);
     assertMayChange(lab, actor, scenario);
     await scenario.destroy({ transaction });
-    await recordAudit(
-      actor,
-      {
-        action: 'scenario_deleted',
-        labId: lab.id,
-        targetType: 'scenario',
-        targetId: scenarioId,
-        details: { name: scenario.name },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'scenario_deleted', ['scenario', scenarioId], {
+      name: scenario.name,
+    });
   });
 }

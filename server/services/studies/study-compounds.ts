@@ -3,7 +3,7 @@ import { Op } from 'sequelize';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Compound } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import type { Actor } from '../../domain/actor';
 
 const noSuchCompound = (field: string) =>
@@ -34,17 +34,10 @@ async function compoundNamed(
     { labId: lab.id, name, roleHint: role, createdById: actor.userId },
     { transaction },
   );
-  await recordAudit(
-    actor,
-    {
-      action: 'compound_created',
-      labId: lab.id,
-      targetType: 'compound',
-      targetId: compound.id,
-      details: { after: { name, roleHint: role }, via: 'study form' },
-    },
-    transaction,
-  );
+  await recordLabAudit({ lab, actor, transaction }, 'compound_created', ['compound', compound.id], {
+    after: { name, roleHint: role },
+    via: 'study form',
+  });
   return compound.id;
 }
 

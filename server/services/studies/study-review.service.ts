@@ -4,7 +4,7 @@ import { AppError } from '../../lib/app-error';
 import type { JobQueue } from '../../jobs/job-queue';
 import type { LabContext } from '../../domain/lab-context';
 import { Study, StudyPoint, StudyReview } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, requireOwner } from './study-access';
 import { copyDecaySets } from '../decays/copy-decay-sets';
@@ -59,17 +59,11 @@ export async function reviewStep(
     const before = found.status;
     await found.update({ status: nextStatus[step], version: found.version + 1 }, { transaction });
     await StudyReview.create({ studyId, authorId: context.actor.userId, action: step, comment }, { transaction });
-    await recordAudit(
-      context.actor,
-      {
-        action: `study_${nextStatus[step]}`,
-        labId: lab.id,
-        targetType: 'study',
-        targetId: studyId,
-        details: { before: { status: before }, after: { status: found.status }, comment },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor: context.actor, transaction }, `study_${nextStatus[step]}`, ['study', studyId], {
+      before: { status: before },
+      after: { status: found.status },
+      comment,
+    });
     await notifyReview({ ...context, transaction }, found, step, context.actor.userId, comment);
   });
   return getStudyDetail(lab, studyId);
@@ -84,11 +78,7 @@ export async function addComment(lab: LabContext, studyId: string, comment: stri
       { studyId: study.id, authorId: actor.userId, action: 'comment', comment },
       { transaction },
     );
-    await recordAudit(
-      actor,
-      { action: 'study_commented', labId: lab.id, targetType: 'study', targetId: study.id, details: { comment } },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'study_commented', ['study', study.id], { comment });
   });
   return getStudyDetail(lab, studyId);
 }
@@ -140,25 +130,15 @@ export async function startRevision(sequelize: Sequelize, lab: LabContext, study
       }),
       { transaction },
     );
-    await recordAudit(
-      actor,
-      {
-        action: 'study_revision_started',
-        labId: lab.id,
-        targetType: 'study',
-        targetId: fresh.id,
-        details: {
-          previousRevisionId: old.id,
-          revision: fresh.revision,
-          copied: {
-            decaySets: decaySets.size,
-            spectrumMatrices: spectra.emission,
-            absorptionTitrations: spectra.absorption,
-          },
-        },
+    await recordLabAudit({ lab, actor, transaction }, 'study_revision_started', ['study', fresh.id], {
+      previousRevisionId: old.id,
+      revision: fresh.revision,
+      copied: {
+        decaySets: decaySets.size,
+        spectrumMatrices: spectra.emission,
+        absorptionTitrations: spectra.absorption,
       },
-      transaction,
-    );
+    });
     await refitStudy(fresh, { trigger: 'auto', actor, transaction });
     return fresh.id;
   });

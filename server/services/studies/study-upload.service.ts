@@ -6,7 +6,7 @@ import type { UploadMapping, UploadPreview, UploadQuestionCode } from '@shared/s
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Study, StudyPoint, StudyUpload, User } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import type { RawFileStore, StoredLocation } from './files/raw-file-store';
 import type { Problem, ReadOutcome } from './parse/read-and-map';
@@ -165,24 +165,14 @@ export async function receiveUpload(
               rejectOnEmpty: true,
             })
           ).update(fields, { transaction });
-      await recordAudit(
-        actor,
-        {
-          action: 'study_file_uploaded',
-          labId: lab.id,
-          targetType: 'study',
-          targetId: studyId,
-          details: {
-            uploadId: kept.id,
-            fileName: kept.fileName,
-            size: file.buffer.length,
-            sha256,
-            parseStatus: kept.parseStatus,
-            ...(earlier ? { readAgain: true } : {}),
-          },
-        },
-        transaction,
-      );
+      await recordLabAudit({ lab, actor, transaction }, 'study_file_uploaded', ['study', studyId], {
+        uploadId: kept.id,
+        fileName: kept.fileName,
+        size: file.buffer.length,
+        sha256,
+        parseStatus: kept.parseStatus,
+        ...(earlier ? { readAgain: true } : {}),
+      });
       return kept;
     });
   } catch (error) {

@@ -6,7 +6,7 @@ import { fixedStatement, selectRows } from '../../db/select-rows';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
 import { Study, type StudyFit, type StudyPoint, type StudyReview, type StudyUpload } from '../../models';
-import { recordAudit } from '../audit.service';
+import { recordLabAudit } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, requireChangeable, studyNotFound } from './study-access';
 import { resolveStudyCompounds } from './study-compounds';
@@ -55,17 +55,9 @@ export async function createStudy(
       },
       { transaction },
     );
-    await recordAudit(
-      actor,
-      {
-        action: 'study_created',
-        labId: lab.id,
-        targetType: 'study',
-        targetId: study.id,
-        details: { after: settingsOf(study) },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'study_created', ['study', study.id], {
+      after: settingsOf(study),
+    });
     return study.id;
   });
   return getStudyDetail(lab, studyId);
@@ -104,17 +96,10 @@ export async function updateStudy(
       { ...defined, ...compounds, ...tau0, tau0DecaySetId, version: study.version + 1 },
       { transaction },
     );
-    await recordAudit(
-      actor,
-      {
-        action: 'study_updated',
-        labId: lab.id,
-        targetType: 'study',
-        targetId: study.id,
-        details: { before, after: { ...settingsOf(study), emitterId: study.emitterId, quencherId: study.quencherId } },
-      },
-      transaction,
-    );
+    await recordLabAudit({ lab, actor, transaction }, 'study_updated', ['study', study.id], {
+      before,
+      after: { ...settingsOf(study), emitterId: study.emitterId, quencherId: study.quencherId },
+    });
     await refitStudy(study, { trigger: 'auto', actor, transaction });
   });
   return getStudyDetail(lab, studyId);
