@@ -1,8 +1,6 @@
 import { useId } from 'react';
 import { FilePickButton } from './file-pick-button';
-
-/** The instrument exports Halflight reads (text tables, .xlsx, JCAMP-DX), as the server checks them. */
-export const INSTRUMENT_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
+import { INSTRUMENT_FILES } from './instrument-files';
 
 interface FileFieldProps {
   label: string;

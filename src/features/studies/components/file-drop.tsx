@@ -1,7 +1,6 @@
 import { useState, type Ref } from 'react';
 import { FilePickButton } from '@/components/file-pick-button';
-
-export const ACCEPTED_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
+import { INSTRUMENT_FILES } from '@/components/instrument-files';
 
 interface Props {
   label: string;
@@ -42,7 +41,7 @@ export function FileDrop({ label, fileName, progress, disabled = false, inputRef
         <FilePickButton
           text="Pick a file"
           label={label}
-          accept={ACCEPTED_FILES}
+          accept={INSTRUMENT_FILES}
           disabled={disabled}
           inputRef={inputRef}
           onFile={onFile}
