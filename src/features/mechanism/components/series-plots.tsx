@@ -1,8 +1,8 @@
-import { Scatter } from 'react-chartjs-2';
 import { titled, UNITS } from '@shared/format';
 import type { TemperatureSeriesAnalysis } from '@shared/schemas/temperature-series';
 import { chartColours } from '@/components/chart-theme';
 import { linearAxis as axis, lineSeries, pointSeries } from '@/components/scatter-chart';
+import { PlotFigure } from './plot-figure';
 
 // Measured values in glow, the diffusion reference in ink, the Arrhenius line in moss (tailwind.config.ts).
 const seriesColours = { measured: chartColours.points, reference: chartColours.line, second: chartColours.series[2] };
@@ -27,57 +27,42 @@ export function SeriesPlots({ analysis }: { analysis: TemperatureSeriesAnalysis 
       : [];
   return (
     <div className="grid gap-4 md:grid-cols-2">
-      <figure aria-label="K_SV against temperature" className="relative h-64">
-        <Scatter
-          aria-label="Plot of K_SV against temperature beside T/η scaled to meet it at the lowest temperature; the values are in the table below"
-          data={{
-            datasets: [
-              pointSeries(
-                'K_SV',
-                analysis.points.map((p) => ({ x: p.temperature, y: p.kSv.value })),
-                seriesColours.measured,
-              ),
-              {
-                label: 'T/η, scaled (diffusion)',
-                data: analysis.points.map((p) => ({ x: p.temperature, y: p.temperatureOverViscosity * scale })),
-                borderColor: seriesColours.reference,
-                backgroundColor: seriesColours.reference,
-                showLine: true,
-                pointRadius: 2,
-              },
-            ],
-          }}
-          options={{
-            maintainAspectRatio: false,
-            animation: false,
-            scales: { x: axis(titled('T', UNITS.kelvin)), y: axis(titled('K_SV', UNITS.perMolar)) },
-          }}
-        />
-      </figure>
-      <figure aria-label="Arrhenius plot" className="relative h-64">
-        {withKq.length === 0 ? (
-          <p className="text-body text-ink-600">No kq: give τ0 at each temperature for the Arrhenius plot.</p>
-        ) : (
-          <Scatter
-            aria-label="Arrhenius plot of ln kq against 1000 K / T with the fitted line; the values are in the table below"
-            data={{
-              datasets: [
-                pointSeries(
-                  'ln kq',
-                  withKq.map((p) => ({ x: 1000 / p.temperature, y: Math.log(p.kq!.value) })),
-                  seriesColours.measured,
-                ),
-                lineSeries('Arrhenius fit', line, seriesColours.second),
-              ],
-            }}
-            options={{
-              maintainAspectRatio: false,
-              animation: false,
-              scales: { x: axis('1000 K / T'), y: axis(`ln(kq / ${UNITS.perMolarPerSecond})`) },
-            }}
-          />
-        )}
-      </figure>
+      <PlotFigure
+        name="K_SV against temperature"
+        description="Plot of K_SV against temperature beside T/η scaled to meet it at the lowest temperature; the values are in the table below"
+        size="h-64"
+        datasets={[
+          pointSeries(
+            'K_SV',
+            analysis.points.map((p) => ({ x: p.temperature, y: p.kSv.value })),
+            seriesColours.measured,
+          ),
+          {
+            label: 'T/η, scaled (diffusion)',
+            data: analysis.points.map((p) => ({ x: p.temperature, y: p.temperatureOverViscosity * scale })),
+            borderColor: seriesColours.reference,
+            backgroundColor: seriesColours.reference,
+            showLine: true,
+            pointRadius: 2,
+          },
+        ]}
+        scales={{ x: axis(titled('T', UNITS.kelvin)), y: axis(titled('K_SV', UNITS.perMolar)) }}
+      />
+      <PlotFigure
+        name="Arrhenius plot"
+        description="Arrhenius plot of ln kq against 1000 K / T with the fitted line; the values are in the table below"
+        size="h-64"
+        missing={withKq.length === 0 ? 'No kq: give τ0 at each temperature for the Arrhenius plot.' : undefined}
+        datasets={[
+          pointSeries(
+            'ln kq',
+            withKq.map((p) => ({ x: 1000 / p.temperature, y: Math.log(p.kq!.value) })),
+            seriesColours.measured,
+          ),
+          lineSeries('Arrhenius fit', line, seriesColours.second),
+        ]}
+        scales={{ x: axis('1000 K / T'), y: axis(`ln(kq / ${UNITS.perMolarPerSecond})`) }}
+      />
     </div>
   );
 }
