@@ -72,7 +72,12 @@ export {
   type ReferenceElectrode,
   type SourcedConstant,
 } from './electrochem/reference-electrodes';
-export { convertPotential, type ConvertedPotential, type PotentialWarning } from './electrochem/convert-potential';
+export {
+  convertPotential,
+  type ConvertedPotential,
+  type PotentialConversionInput,
+  type PotentialWarning,
+} from './electrochem/convert-potential';
 export { e00FromWavelength, MIN_WAVELENGTH_NM, MAX_WAVELENGTH_NM } from './electrochem/e00-from-wavelength';
 export { excitedStatePotentials, type ExcitedStatePotentials } from './electrochem/excited-state-potentials';
 export { coulombWorkTerm, DEFAULT_ENCOUNTER_DISTANCE } from './electrochem/coulomb-work-term';

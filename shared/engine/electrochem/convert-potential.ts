@@ -14,6 +14,14 @@ export interface PotentialWarning {
   message: string;
 }
 
+/** What convertPotential takes (units and meanings in its doc comment). */
+export interface PotentialConversionInput {
+  value: number;
+  from: string;
+  to: string;
+  solvent?: string;
+}
+
 export interface ConvertedPotential {
   /** V against `to` */
   value: number;
@@ -39,12 +47,7 @@ export interface ConvertedPotential {
  * @throws EngineError UNKNOWN_REFERENCE_ELECTRODE, REFERENCE_NOT_AVAILABLE_FOR_SOLVENT, NON_FINITE_VALUE
  * @example convertPotential({ value: 1.29, from: 'SCE', to: 'Fc+/Fc', solvent: 'acetonitrile' }).value // 0.91
  */
-export function convertPotential(input: {
-  value: number;
-  from: string;
-  to: string;
-  solvent?: string;
-}): ConvertedPotential {
+export function convertPotential(input: PotentialConversionInput): ConvertedPotential {
   const value = requireFinite(input.value, 'value');
   const from = knownReference(input.from, 'from');
   const to = knownReference(input.to, 'to');
