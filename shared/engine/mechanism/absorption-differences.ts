@@ -1,6 +1,6 @@
 import { EngineError } from '../core/engine-error';
 import { requireFiniteArray, requireNonNegativeArray, requirePositive } from '../core/validate';
-import { blankSpectra } from './spectral-bands';
+import { blankSpectra, requireSpectrumPerConcentration } from './spectral-bands';
 
 /** The quencher's own absorbance: ε(λ) in M^-1 cm^-1, or a spectrum of the quencher alone at a stated [Q] in the same cell. */
 export type QuencherAbsorbance =
@@ -54,13 +54,7 @@ export function absorptionDifferences(input: AbsorptionDifferenceInput): Absorpt
   const { wavelengths, concentrations, spectra, pathLength, quencher } = input;
   requirePositive(pathLength, 'pathLength', 'Give the cell length in cm (usually 1)');
   requireNonNegativeArray(concentrations, 'concentrations');
-  if (spectra.length !== concentrations.length)
-    throw new EngineError(
-      'LENGTH_MISMATCH',
-      'spectra',
-      `there are ${spectra.length} spectra but ${concentrations.length} concentrations`,
-      'Give one quencher concentration per spectrum',
-    );
+  requireSpectrumPerConcentration(spectra, concentrations);
   spectra.forEach((spectrum, j) => requireOnGrid(spectrum, wavelengths, `spectra[${j}]`));
   let perMolar: number[] | null = null;
   if (quencher) {

@@ -4,7 +4,7 @@ import { fitLine } from '../stats/fit-line';
 import type { ParameterEstimate } from '../stats/parameter-estimate';
 import { studentTQuantile975 } from '../stats/student-t';
 import { testKsvHomogeneity, type KsvHomogeneity } from './ksv-homogeneity';
-import { blankSpectra, spectralBands } from './spectral-bands';
+import { blankSpectra, requireSpectrumPerConcentration, spectralBands } from './spectral-bands';
 import { spectralComponents, type SpectralComponents } from './spectral-components';
 import { bandKsv } from './band-ksv';
 
@@ -90,13 +90,7 @@ function rangesOf(bands: readonly BandSternVolmer[]): string {
  */
 export function analyseSpectrumMatrix(input: SpectrumMatrixInput): SpectrumMatrixAnalysis {
   const { wavelengths, concentrations, spectra, bandWidth } = input;
-  if (spectra.length !== concentrations.length)
-    throw new EngineError(
-      'LENGTH_MISMATCH',
-      'spectra',
-      `there are ${spectra.length} spectra but ${concentrations.length} concentrations`,
-      'Give one quencher concentration per spectrum',
-    );
+  requireSpectrumPerConcentration(spectra, concentrations);
   requireNonNegativeArray(concentrations, 'concentrations');
   const blanks = blankSpectra(concentrations);
   if (countDistinct(concentrations) < 3)

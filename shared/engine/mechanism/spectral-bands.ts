@@ -95,3 +95,17 @@ export function blankSpectra(concentrations: readonly number[]): number[] {
     );
   return blanks;
 }
+
+/** Refuses a series whose spectra and quencher concentrations are not one to one. */
+export function requireSpectrumPerConcentration(
+  spectra: readonly (readonly number[])[],
+  concentrations: readonly number[],
+): void {
+  if (spectra.length !== concentrations.length)
+    throw new EngineError(
+      'LENGTH_MISMATCH',
+      'spectra',
+      `there are ${spectra.length} spectra but ${concentrations.length} concentrations`,
+      'Give one quencher concentration per spectrum',
+    );
+}
