@@ -89,19 +89,6 @@ export const acceptInvitationSchema = z
 
 export const messageSchema = z.object({ message: z.string() }).meta({ id: 'Message' });
 
-export type SignInInput = z.infer<typeof signInSchema>;
-export type SessionUser = z.infer<typeof sessionUserSchema>;
-export type Session = z.infer<typeof sessionSchema>;
-export type LabMembership = z.infer<typeof labMembershipSchema>;
-export type RequestPasswordResetInput = z.infer<typeof requestPasswordResetSchema>;
-export type CompletePasswordResetInput = z.infer<typeof completePasswordResetSchema>;
-export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
-export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
-export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
-export type CsrfToken = z.infer<typeof csrfTokenSchema>;
-export type Message = z.infer<typeof messageSchema>;
-export type UpdateProfileInput = z.infer<typeof updateProfileSchema>;
-
 export const accountSessionSchema = z
   .object({
     id: z.string().describe('A public handle of the session (not its cookie)'),
@@ -118,5 +105,17 @@ export const accountSessionParamsSchema = z.object({
   sessionId: z.string().regex(/^[0-9a-f]{32}$/, 'is not a session id'),
 });
 
+export type SignInInput = z.infer<typeof signInSchema>;
+export type SessionUser = z.infer<typeof sessionUserSchema>;
+export type Session = z.infer<typeof sessionSchema>;
+export type LabMembership = z.infer<typeof labMembershipSchema>;
+export type RequestPasswordResetInput = z.infer<typeof requestPasswordResetSchema>;
+export type CompletePasswordResetInput = z.infer<typeof completePasswordResetSchema>;
+export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
+export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
+export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
+export type CsrfToken = z.infer<typeof csrfTokenSchema>;
+export type Message = z.infer<typeof messageSchema>;
+export type UpdateProfileInput = z.infer<typeof updateProfileSchema>;
 export type AccountSession = z.infer<typeof accountSessionSchema>;
 export type AccountSessions = z.infer<typeof accountSessionsSchema>;

@@ -17,6 +17,7 @@ export const usedPotentialSchema = z
     }),
   })
   .meta({ id: 'UsedPotential' });
+export type UsedPotential = z.infer<typeof usedPotentialSchema>;
 
 export const usedEnergySchema = z
   .object({
@@ -26,6 +27,7 @@ export const usedEnergySchema = z
     method: z.string(),
   })
   .meta({ id: 'UsedEnergy' });
+export type UsedEnergy = z.infer<typeof usedEnergySchema>;
 
 /** E*(PC+/PC*) = E(PC+/PC) - E00 and E*(PC* / PC-) = E(PC/PC-) + E00, from the inputs listed beside them. */
 export const excitedStateSchema = z
@@ -39,6 +41,7 @@ export const excitedStateSchema = z
     missing: z.array(z.string()).describe('What is needed and not yet in the library'),
   })
   .meta({ id: 'ExcitedStatePotentials' });
+export type ExcitedState = z.infer<typeof excitedStateSchema>;
 
 export const compoundDetailSchema = compoundSummarySchema
   .extend({
@@ -49,15 +52,11 @@ export const compoundDetailSchema = compoundSummarySchema
     excitedState: excitedStateSchema,
   })
   .meta({ id: 'CompoundDetail' });
+export type CompoundDetail = z.infer<typeof compoundDetailSchema>;
 
 export const labSettingsSchema = z
   .object({ displayReference: z.string(), displaySolvent: z.string() })
   .meta({ id: 'LabLibrarySettings', description: 'Reference electrode and solvent in which the lab reads potentials' });
-
-export type UsedPotential = z.infer<typeof usedPotentialSchema>;
-export type UsedEnergy = z.infer<typeof usedEnergySchema>;
-export type ExcitedState = z.infer<typeof excitedStateSchema>;
-export type CompoundDetail = z.infer<typeof compoundDetailSchema>;
 export type LabSettings = z.infer<typeof labSettingsSchema>;
 
 /** A study whose tau0 comes from a lifetime record; it is refitted only when someone chooses to. */
@@ -76,6 +75,7 @@ export const lifetimeDependentSchema = z
     updatedAt: z.string(),
   })
   .meta({ id: 'LifetimeDependent' });
+export type LifetimeDependent = z.infer<typeof lifetimeDependentSchema>;
 export const lifetimeDependentsSchema = z
   .object({
     lifetimeId: z.string().uuid(),
@@ -85,4 +85,3 @@ export const lifetimeDependentsSchema = z
   })
   .meta({ id: 'LifetimeDependents' });
 export type LifetimeDependents = z.infer<typeof lifetimeDependentsSchema>;
-export type LifetimeDependent = z.infer<typeof lifetimeDependentSchema>;
