@@ -129,23 +129,8 @@ export {
 } from './mechanism/analyse-spectrum-matrix';
 export { readMechanismPieces } from './mechanism/read-mechanism-pieces';
 export { combineMechanismEvidence } from './mechanism/combine-mechanism-evidence';
-export {
-  PIECE_TITLES,
-  type AbsorptionEvidence,
-  type DiffusionEvidence,
-  type EvidenceEstimate,
-  type LifetimeEvidence,
-  type MechanismAssessment,
-  type MechanismEvidenceInput,
-  type MechanismPiece,
-  type MechanismPieceKind,
-  type MechanismVerdict,
-  type MissingPiece,
-  type PieceNumber,
-  type PieceReading,
-  type TemperatureEvidence,
-  type WavelengthEvidence,
-} from './mechanism/mechanism-evidence';
+// The mechanism's vocabulary (its input, pieces, verdicts and their titles): all of that module.
+export * from './mechanism/mechanism-evidence';
 export {
   absorptionDifferences,
   type AbsorptionDifferenceInput,
