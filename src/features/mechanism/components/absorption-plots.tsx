@@ -32,14 +32,14 @@ export function AbsorptionPlots({ plot, analysis }: { plot: AbsorptionPlot; anal
   const xs = bh ? bh.points.map((point) => point.x) : [];
   return (
     <div className="grid gap-3 lg:grid-cols-2">
-      {SPECTRA_VIEWS.map((view) => (
+      {SPECTRA_VIEWS.map(({ key, name, description, yTitle }) => (
         <PlotFigure
-          key={view.key}
-          name={view.name}
-          description={view.description}
+          key={key}
+          name={name}
+          description={description}
           size="h-60"
-          datasets={linesByConcentration(plot.wavelengths, plot.spectra, (spectrum) => spectrum[view.key])}
-          scales={{ x: wavelengthAxis, y: axis(view.yTitle) }}
+          datasets={linesByConcentration(plot.wavelengths, plot.spectra, (spectrum) => spectrum[key])}
+          scales={{ x: wavelengthAxis, y: axis(yTitle) }}
         />
       ))}
       {bh && (

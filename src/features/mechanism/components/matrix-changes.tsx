@@ -5,10 +5,10 @@ import type { SpectrumMatrix } from '@shared/schemas/spectrum-matrices';
 import { Button } from '@/components/button';
 import { ConfirmedAction } from '@/components/confirmed-action';
 import { FormAlert } from '@/components/form-alert';
-import { TextField } from '@/components/text-field';
 import { describeError } from '@/lib/form-errors';
 import { useDiscardSpectrumMatrix } from '../api/discard-spectrum-matrix';
 import { useReanalyseSpectrumMatrix } from '../api/reanalyse-spectrum-matrix';
+import { DecimalField } from './decimal-field';
 import { typedNumber } from './typed-number';
 import { VerdictChangeNotice } from './verdict-change-notice';
 
@@ -34,12 +34,11 @@ export function MatrixChanges({
   return (
     <div className="space-y-2 border-t border-paper-200 pt-3">
       <div className="flex flex-wrap items-end gap-3">
-        <TextField
+        <DecimalField
           label="New band width (nm)"
           hint="Analyse the kept file again; 0 gives one band per wavelength"
-          inputMode="decimal"
           value={bandWidth}
-          onChange={(event) => setBandWidth(event.target.value)}
+          onChange={setBandWidth}
         />
         <Button
           variant="quiet"

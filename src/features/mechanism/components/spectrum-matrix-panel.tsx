@@ -10,7 +10,7 @@ import { Signal } from '@/components/signal';
 import { describeError } from '@/lib/form-errors';
 import { useSpectrumMatrices } from '../api/get-spectrum-matrices';
 import { useKeepSpectrumMatrix } from '../api/keep-spectrum-matrix';
-import { BandWidthField } from './band-width-field';
+import { BandWidthField } from './decimal-field';
 import { MatrixChanges } from './matrix-changes';
 import { SpectrumMatrixPlots } from './spectrum-matrix-plots';
 import { VerdictChangeNotice } from './verdict-change-notice';

@@ -6,10 +6,10 @@ import { Button } from '@/components/button';
 import { ConfirmedAction } from '@/components/confirmed-action';
 import { FormAlert } from '@/components/form-alert';
 import { SelectField } from '@/components/select-field';
-import { TextField } from '@/components/text-field';
 import { describeError } from '@/lib/form-errors';
 import { useDiscardAbsorptionTitration } from '../api/discard-absorption-titration';
 import { useReanalyseAbsorptionTitration } from '../api/reanalyse-absorption-titration';
+import { TitrationSettingsFields, type TitrationSettings } from './titration-settings-fields';
 import { typedNumber } from './typed-number';
 import { VerdictChangeNotice } from './verdict-change-notice';
 
@@ -35,20 +35,22 @@ export function TitrationChanges({
   onDiscarded: (change: MechanismVerdictChange) => void;
 }) {
   const { options } = titration;
-  const [bandWidth, setBandWidth] = useState(String(options.bandWidth));
-  const [pathLength, setPathLength] = useState(String(options.pathLength));
-  const [emitter, setEmitter] = useState(
-    options.emitterConcentration === undefined ? '' : String(toMicromolar(options.emitterConcentration)),
-  );
+  const [settings, setSettings] = useState<TitrationSettings>({
+    bandWidth: String(options.bandWidth),
+    pathLength: String(options.pathLength),
+    emitterMicromolar:
+      options.emitterConcentration === undefined ? '' : String(toMicromolar(options.emitterConcentration)),
+  });
   const [subtract, setSubtract] = useState(options.subtractQuencher);
   const [fit, setFit] = useState(options.associationFit);
   const reanalyse = useReanalyseAbsorptionTitration(labId, studyId, titration.id);
   const discard = useDiscardAbsorptionTitration(labId, studyId);
   const send = () =>
     reanalyse.mutate({
-      bandWidth: typedNumber(bandWidth),
-      pathLength: typedNumber(pathLength),
-      emitterConcentration: emitter.trim() === '' ? null : fromMicromolar(typedNumber(emitter)),
+      bandWidth: typedNumber(settings.bandWidth),
+      pathLength: typedNumber(settings.pathLength),
+      emitterConcentration:
+        settings.emitterMicromolar.trim() === '' ? null : fromMicromolar(typedNumber(settings.emitterMicromolar)),
       subtractQuencher: subtract,
       associationFit: fit,
     });
@@ -56,25 +58,7 @@ export function TitrationChanges({
     <fieldset className="space-y-2 border-t border-paper-200 pt-3">
       <legend className="text-body font-bold text-ink-900">Analyse again</legend>
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        <TextField
-          label="New band width (nm)"
-          inputMode="decimal"
-          value={bandWidth}
-          onChange={(event) => setBandWidth(event.target.value)}
-        />
-        <TextField
-          label="New path length (cm)"
-          inputMode="decimal"
-          value={pathLength}
-          onChange={(event) => setPathLength(event.target.value)}
-        />
-        <TextField
-          label="New emitter concentration (µM)"
-          hint="Empty: [Q] taken as in large excess"
-          inputMode="decimal"
-          value={emitter}
-          onChange={(event) => setEmitter(event.target.value)}
-        />
+        <TitrationSettingsFields settings={settings} onChange={setSettings} again />
         <SelectField
           label="K_a the verdict uses"
           options={ASSOCIATION_FITS.map((value) => ({ value, label: FIT_LABELS[value] }))}
