@@ -20,10 +20,12 @@ const titration = {
 } as unknown as AbsorptionTitration;
 
 describe('TitrationChanges (analyse a kept absorption titration again)', () => {
-  it('when opened, then the kept settings stand in the fields', () => {
+  it('when opened, then the kept settings stand in the fields, [E]0 in µM as a person would type it', () => {
     renderWithClient(<TitrationChanges labId="l" studyId="s" titration={titration} onDiscarded={() => {}} />);
     expect(screen.getByLabelText<HTMLInputElement>('New band width (nm)').value).toBe('5');
     expect(screen.getByLabelText<HTMLInputElement>('New path length (cm)').value).toBe('1');
+    // 2e-5 M is 20 µM (SI prefixes, common practice); 2e-5 * 1e6 is 20.000000000000004 in floating point
+    expect(screen.getByLabelText<HTMLInputElement>('New emitter concentration (µM)').value).toBe('20');
   });
 
   it('when new settings are typed, then they are sent in SI units, an empty [E]0 as null', async () => {

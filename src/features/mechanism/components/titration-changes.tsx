@@ -38,8 +38,11 @@ export function TitrationChanges({
   const [settings, setSettings] = useState<TitrationSettings>({
     bandWidth: String(options.bandWidth),
     pathLength: String(options.pathLength),
+    // To 8 significant figures, so 2e-5 M reads 20, not 20.000000000000004 (binary floating point).
     emitterMicromolar:
-      options.emitterConcentration === undefined ? '' : String(toMicromolar(options.emitterConcentration)),
+      options.emitterConcentration === undefined
+        ? ''
+        : String(Number(toMicromolar(options.emitterConcentration).toPrecision(8))),
   });
   const [subtract, setSubtract] = useState(options.subtractQuencher);
   const [fit, setFit] = useState(options.associationFit);
