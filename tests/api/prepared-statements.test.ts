@@ -45,4 +45,35 @@ describe('statements every read asks', () => {
       expect(Number(statement!.custom_plans), marker).toBeLessThanOrEqual(5);
     }
   });
+
+  it('when the dashboard is opened again and again, then its lists and its activity are planned once and kept, and the answer stays the same', async () => {
+    const { lab, users } = await createLabWithMembers(sequelize, { roles: ['reviewer', 'researcher'] });
+    const researcher = await apiClient(testApp.app);
+    await researcher.signIn(users.researcher);
+    const drafted = await createStudy(researcher, lab.id, 'dashboard draft');
+    const reviewer = await apiClient(testApp.app);
+    await reviewer.signIn(users.reviewer);
+    const url = `/api/labs/${lab.id}/dashboard`;
+    const first = await reviewer.get(url);
+    expect(first.status).toBe(200);
+    for (let i = 0; i < 7; i++) {
+      const [asReviewer, asResearcher] = [await reviewer.get(url), await researcher.get(url)];
+      expect(asReviewer.body).toEqual(first.body);
+      expect(asResearcher.body.myDrafts.map((study: { id: string }) => study.id)).toEqual([drafted.id]);
+    }
+    const prepared = await selectRows<Prepared>(
+      sequelize,
+      'SELECT statement, generic_plans, custom_plans FROM pg_prepared_statements',
+    );
+    // A reviewer's lists add "waiting for my review": two texts, one for each kind of reader.
+    const lists = prepared.filter((row) => row.statement.includes("'myDrafts' AS list"));
+    expect(lists).toHaveLength(2);
+    const events = prepared.filter((row) => row.statement.includes('FROM audit_events'));
+    expect(events).toHaveLength(1);
+    // As above: at most five custom plans, then the kept generic one (PostgreSQL documentation, PREPARE).
+    for (const statement of [...lists, ...events]) {
+      expect(Number(statement.generic_plans)).toBeGreaterThanOrEqual(1);
+      expect(Number(statement.custom_plans)).toBeLessThanOrEqual(5);
+    }
+  });
 });
