@@ -11,7 +11,7 @@ import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, requireChangeable, studyNotFound } from './study-access';
 import { resolveStudyCompounds } from './study-compounds';
 import { refitStudy } from './study-fitting.service';
-import { resolveTau0 } from './study-tau0';
+import { resolveTau0, type Tau0Fields } from './study-tau0';
 import {
   correctionsOf,
   settingsOf,
@@ -63,6 +63,16 @@ export async function createStudy(
   return getStudyDetail(lab, studyId);
 }
 
+/**
+ * The decay set a study's new tau0 still comes from.
+ * tau0 stays "from decay" only while it is the number the decays gave.
+ */
+function decaySetKeepingTau0(study: Study, tau0: Tau0Fields): string | null {
+  const unchanged =
+    tau0.tau0LifetimeId === null && tau0.tau0 === study.tau0 && tau0.tau0Uncertainty === study.tau0Uncertainty;
+  return unchanged ? study.tau0DecaySetId : null;
+}
+
 export async function updateStudy(
   sequelize: Sequelize,
   lab: LabContext,
@@ -87,11 +97,7 @@ export async function updateStudy(
       compounds.emitterId ?? study.emitterId,
       transaction,
     );
-    // tau0 stays "from decay" only while it is the number the decays gave.
-    const tau0DecaySetId =
-      tau0.tau0LifetimeId === null && tau0.tau0 === study.tau0 && tau0.tau0Uncertainty === study.tau0Uncertainty
-        ? study.tau0DecaySetId
-        : null;
+    const tau0DecaySetId = decaySetKeepingTau0(study, tau0);
     await study.update(
       { ...defined, ...compounds, ...tau0, tau0DecaySetId, version: study.version + 1 },
       { transaction },
