@@ -79,20 +79,50 @@ export function DecayReadFields({
   );
 }
 
-/** What was read: the file, its format, channels and where the response came from (then `children`), and each question or warning. */
-export function DecayPreviewSummary({ preview, children }: { preview: DecayPreview; children?: ReactNode }) {
+interface DecayPreviewCardProps {
+  preview: DecayPreview;
+  /** said after what was read, e.g. the lifetime found */
+  summary?: ReactNode;
+  /** the keep mutation: its button waits while it runs and its error shows above the button */
+  keeping: { isPending: boolean; error: Error | null };
+  keepLabel: string;
+  /** kept back for a reason of the caller's own (a preview with open questions is never kept) */
+  keepDisabled?: boolean;
+  onKeep: () => void;
+  /** the caller's view of the preview and its own fields, between the summary and the keep button */
+  children: ReactNode;
+}
+
+/**
+ * A reading not kept yet: the file, its format, channels and where the response came from (then
+ * `summary`), each question or warning, the caller's view of it, and the keep button.
+ */
+export function DecayPreviewCard({
+  preview,
+  summary,
+  keeping,
+  keepLabel,
+  keepDisabled = false,
+  onKeep,
+  children,
+}: DecayPreviewCardProps) {
   return (
-    <>
+    <div aria-label="Decay preview" className="space-y-3 rounded-md border border-paper-300 p-3">
       <p className="text-body">
         <strong>{preview.fileName}</strong>: {preview.format}, {preview.channels} channels
         {preview.channelWidth ? ` of ${formatNumber(preview.channelWidth * 1e12, 4)} ps` : ''}
-        {preview.responseSource ? `, response from the ${preview.responseSource}` : ', no response'}.{children}
+        {preview.responseSource ? `, response from the ${preview.responseSource}` : ', no response'}.{summary}
       </p>
       {[...preview.questions, ...preview.warnings].map((text) => (
         <FormAlert key={text} tone="note">
           {text}
         </FormAlert>
       ))}
-    </>
+      {children}
+      {keeping.error && <FormAlert>{describeError(keeping.error)}</FormAlert>}
+      <Button pending={keeping.isPending} disabled={preview.questions.length > 0 || keepDisabled} onClick={onKeep}>
+        {keepLabel}
+      </Button>
+    </div>
   );
 }

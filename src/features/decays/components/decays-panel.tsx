@@ -14,9 +14,8 @@ import { useStudyDecaySets } from '../api/get-study-decay-sets';
 import { useKeepDecaySet } from '../api/keep-decay-set';
 import { usePreviewDecays } from '../api/preview-decays';
 import { useDecayReadChoices } from './decay-read-choices';
-import { DecayPreviewSummary, DecayReadFields } from './decay-read-fields';
-import { DecayParameters } from './decay-parameters';
-import { DecayPlot } from './decay-plot';
+import { DecayPreviewCard, DecayReadFields } from './decay-read-fields';
+import { DecayFit } from './decay-fit';
 import { DecaySternVolmerPlot } from './decay-stern-volmer-plot';
 import { RefitDecaySet } from './refit-decay-set';
 
@@ -125,10 +124,7 @@ function KeptSet({
       </header>
       {apply.isError && <FormAlert>{describeError(apply.error)}</FormAlert>}
       <OutcomesTable outcomes={set.outcomes} shown={shown} onShow={setShown} />
-      <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        {curves.data ? <DecayPlot curves={curves.data} title={study.title} /> : <p className="text-body">Drawing…</p>}
-        {set.outcomes[shown] && <DecayParameters outcome={set.outcomes[shown]} />}
-      </div>
+      <DecayFit curves={curves.data} outcome={set.outcomes[shown]} title={study.title} />
       {set.sternVolmer ? (
         <DecaySternVolmerPlot sternVolmer={set.sternVolmer} title={study.title} />
       ) : (
@@ -176,33 +172,24 @@ export function DecaysPanel({
             reading={read}
           />
           {preview && (
-            <div aria-label="Decay preview" className="space-y-3 rounded-md border border-paper-300 p-3">
-              <DecayPreviewSummary preview={preview} />
+            <DecayPreviewCard
+              preview={preview}
+              keeping={keep}
+              keepLabel="Keep this decay set"
+              onKeep={() => {
+                const sent = choices.readOf();
+                if (sent) keep.mutate(sent, { onSuccess: () => setPreview(null) });
+              }}
+            >
               <OutcomesTable
                 outcomes={preview.outcomes}
                 shown={preview.shown?.index ?? 0}
                 onShow={(index) => choices.lookAt({ show: index })}
               />
               {preview.shown && (
-                <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-                  <DecayPlot curves={preview.shown} title={study.title} />
-                  {preview.outcomes[preview.shown.index] && (
-                    <DecayParameters outcome={preview.outcomes[preview.shown.index]!} />
-                  )}
-                </div>
+                <DecayFit curves={preview.shown} outcome={preview.outcomes[preview.shown.index]} title={study.title} />
               )}
-              {keep.isError && <FormAlert>{describeError(keep.error)}</FormAlert>}
-              <Button
-                pending={keep.isPending}
-                disabled={preview.questions.length > 0}
-                onClick={() => {
-                  const sent = choices.readOf();
-                  if (sent) keep.mutate(sent, { onSuccess: () => setPreview(null) });
-                }}
-              >
-                Keep this decay set
-              </Button>
-            </div>
+            </DecayPreviewCard>
           )}
         </div>
       )}

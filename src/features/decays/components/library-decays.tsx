@@ -15,9 +15,8 @@ import { getDecayCurvesQueryOptions } from '../api/get-decay-curves';
 import { useKeepLibraryDecay } from '../api/keep-library-decay';
 import { usePreviewLibraryDecay } from '../api/preview-library-decay';
 import { useDecayReadChoices } from './decay-read-choices';
-import { DecayPreviewSummary, DecayReadFields } from './decay-read-fields';
-import { DecayParameters } from './decay-parameters';
-import { DecayPlot } from './decay-plot';
+import { DecayPreviewCard, DecayReadFields } from './decay-read-fields';
+import { DecayFit } from './decay-fit';
 import { RefitDecaySet } from './refit-decay-set';
 
 const solventOptions = Object.values(SOLVENTS).map((solvent) => ({ value: solvent.id, label: solvent.name }));
@@ -83,18 +82,7 @@ function KeptDecay({
           {plotted ? 'Hide the fit' : 'Show the fit'}
         </Button>
       </div>
-      {plotted && (
-        <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-          {curves.data ? (
-            <DecayPlot curves={curves.data} title={compoundName} />
-          ) : curves.isError ? (
-            <FormAlert>{describeError(curves.error)}</FormAlert>
-          ) : (
-            <p className="text-body">Drawing…</p>
-          )}
-          {outcome && <DecayParameters outcome={outcome} />}
-        </div>
-      )}
+      {plotted && <DecayFit curves={curves.data} outcome={outcome} title={compoundName} error={curves.error} />}
       {mayRefit && set.compoundId && (
         <RefitDecaySet
           labId={labId}
@@ -159,21 +147,44 @@ function DecayToLifetime({
         reading={read}
       />
       {preview && (
-        <div aria-label="Decay preview" className="space-y-3 rounded-md border border-paper-300 p-3">
-          <DecayPreviewSummary preview={preview}>
-            {outcome?.lifetime && (
+        <DecayPreviewCard
+          preview={preview}
+          summary={
+            outcome?.lifetime && (
               <>
                 {' '}
                 τ <strong className="tabular-nums">{lifetimeText(outcome.lifetime)}</strong>
               </>
-            )}
-          </DecayPreviewSummary>
-          {preview.shown && (
-            <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-              <DecayPlot curves={preview.shown} title={compoundName} />
-              {outcome && <DecayParameters outcome={outcome} />}
-            </div>
-          )}
+            )
+          }
+          keeping={keep}
+          keepLabel="Keep as a lifetime record"
+          keepDisabled={!choices.file}
+          onKeep={() => {
+            const sent = choices.readOf();
+            if (!sent) return;
+            keep.mutate(
+              {
+                ...sent,
+                options: {
+                  ...sent.options,
+                  solvent: conditions.solvent,
+                  atmosphere: conditions.atmosphere,
+                  // An empty or unreadable field is sent as it is, so the server names it.
+                  temperature: conditions.temperature.trim() === '' ? Number.NaN : temperature,
+                  notes: conditions.notes,
+                },
+              },
+              {
+                onSuccess: (answer) => {
+                  setPreview(null);
+                  setKept(answer);
+                },
+              },
+            );
+          }}
+        >
+          {preview.shown && <DecayFit curves={preview.shown} outcome={outcome} title={compoundName} />}
           <div className="grid gap-3 sm:grid-cols-3">
             <SelectField
               label="Solvent"
@@ -202,37 +213,7 @@ function DecayToLifetime({
             value={conditions.notes}
             onChange={(event) => set('notes')(event.target.value)}
           />
-          {keep.isError && <FormAlert>{describeError(keep.error)}</FormAlert>}
-          <Button
-            pending={keep.isPending}
-            disabled={preview.questions.length > 0 || !choices.file}
-            onClick={() => {
-              const sent = choices.readOf();
-              if (!sent) return;
-              keep.mutate(
-                {
-                  ...sent,
-                  options: {
-                    ...sent.options,
-                    solvent: conditions.solvent,
-                    atmosphere: conditions.atmosphere,
-                    // An empty or unreadable field is sent as it is, so the server names it.
-                    temperature: conditions.temperature.trim() === '' ? Number.NaN : temperature,
-                    notes: conditions.notes,
-                  },
-                },
-                {
-                  onSuccess: (answer) => {
-                    setPreview(null);
-                    setKept(answer);
-                  },
-                },
-              );
-            }}
-          >
-            Keep as a lifetime record
-          </Button>
-        </div>
+        </DecayPreviewCard>
       )}
       {kept?.outcomes[0]?.lifetime && (
         <FormAlert tone="good">
