@@ -1,4 +1,4 @@
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import connectPgSimple from 'connect-pg-simple';
 import session from 'express-session';
 import pg from 'pg';
@@ -6,6 +6,8 @@ import type { Logger } from 'pino';
 import { addDatabaseTime } from '../db/database-time';
 import { fixedStatement, type FixedStatement } from '../db/select-rows';
 import { inWriteRequest } from '../db/request-kind';
+import { labIdInUrl, rememberMembership, sessionWithMembershipSql } from './session-membership';
+import type { SessionWithMembershipRow } from './session-membership';
 
 declare module 'express-session' {
   interface SessionData {
@@ -106,6 +108,53 @@ function slidingExpiry(store: session.Store, pool: pg.Pool): RequestHandler {
 }
 
 /**
+ * On a lab route (/api/labs/:labId/…) the session row is read together with the person's membership
+ * of that lab (sessionWithMembershipSql), which the access guard then takes instead of asking
+ * again (server/middleware/access.ts): one round trip less on every lab request. express-session
+ * calls store.get synchronously from its middleware (express-session 1.19, index.js), so the
+ * request being served is known at that moment; were that ever not so, the store reads the session
+ * alone and the guard asks for the membership itself, as it does on any request this did not read.
+ */
+function readMembershipWithSession(store: session.Store, pool: pg.Pool, sessionMiddleware: RequestHandler) {
+  let asking: { req: Request; labId: string } | undefined;
+  const plainGet = store.get.bind(store);
+  store.get = (sid, callback) => {
+    const ask = asking;
+    asking = undefined;
+    if (!ask) return plainGet(sid, callback);
+    // connect-pg-simple's expiry test, in whole seconds as it writes it.
+    const now = Math.ceil(Date.now() / 1000);
+    pool.query(sessionWithMembershipSql.text, [sid, now, ask.labId]).then(
+      (result: pg.QueryResult<SessionWithMembershipRow>) => {
+        const row = result.rows[0];
+        if (!row) return callback(null, null);
+        let sess: session.SessionData;
+        try {
+          // node-postgres parses a json column; text is parsed here, and a row that is not JSON is
+          // removed, as connect-pg-simple does.
+          sess = (typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess) as session.SessionData;
+        } catch {
+          return store.destroy(sid, callback);
+        }
+        rememberMembership(ask.req, ask.labId, row);
+        callback(null, sess);
+      },
+      (error: unknown) => callback(error),
+    );
+  };
+  const middleware: RequestHandler = (req, res, next) => {
+    const labId = labIdInUrl(req.originalUrl);
+    asking = labId ? { req, labId } : undefined;
+    try {
+      sessionMiddleware(req, res, next);
+    } finally {
+      asking = undefined;
+    }
+  };
+  return middleware;
+}
+
+/**
  * express-session with sessions kept in PostgreSQL (the "sessions" table, made by a migration).
  * Cookies are httpOnly and SameSite=Lax, and Secure when the app runs behind TLS.
  */
@@ -158,15 +207,19 @@ export function createSessionMiddleware(options: {
     errorLog: (message: string, error?: unknown) => options.logger.warn({ err: error }, message),
   });
   const middleware = [
-    session({
-      name: cookieName,
-      secret: options.secret,
+    readMembershipWithSession(
       store,
-      resave: false,
-      saveUninitialized: false,
-      rolling: false,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: options.secure, maxAge: sessionIdleMs, path: '/' },
-    }),
+      pool,
+      session({
+        name: cookieName,
+        secret: options.secret,
+        store,
+        resave: false,
+        saveUninitialized: false,
+        rolling: false,
+        cookie: { httpOnly: true, sameSite: 'lax', secure: options.secure, maxAge: sessionIdleMs, path: '/' },
+      }),
+    ),
     slidingExpiry(store, pool),
   ];
   return {

@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { Role } from '@shared/schemas/roles';
 import { roleAtLeast } from '@shared/schemas/roles';
+import { membershipReadWithSession, type MembershipRow } from '../auth/session-membership';
 import { fixedStatement, selectRows } from '../db/select-rows';
 import { AppError } from '../lib/app-error';
 import { Membership } from '../models';
@@ -14,14 +15,6 @@ export const requireAuth: RequestHandler = (req, _res, next) => {
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const labNotFound = () => new AppError('not_found', 'No such lab, or you are not a member of it.', 404);
 
-type MembershipRow = {
-  id: string;
-  role: Role;
-  lab_id: string;
-  lab_name: string;
-  is_demo: boolean;
-  require_two_factor: boolean;
-};
 const membershipSql = fixedStatement(`
   SELECT m.id, m.role, l.id AS lab_id, l.name AS lab_name, l.is_demo, l.require_two_factor
   FROM memberships m JOIN labs l ON l.id = m.lab_id
@@ -36,8 +29,12 @@ export function requireLabRole(needed: Role): RequestHandler {
     const labId = String(req.params.labId ?? '');
     if (!req.user) throw new AppError('not_signed_in', 'Sign in to use this part of Halflight.', 401);
     if (!uuidPattern.test(labId)) throw labNotFound();
-    // Every lab request asks this: one prepared statement, no query building or model instances.
-    const [membership] = await selectRows<MembershipRow>(Membership.sequelize!, membershipSql, [labId, req.user.id]);
+    // Read with the session row on every lab route (server/auth/session.ts); asked here only when
+    // it was not: one prepared statement, no query building or model instances.
+    const read = membershipReadWithSession(req, labId, req.user.id);
+    const membership = read
+      ? read.membership
+      : (await selectRows<MembershipRow>(Membership.sequelize!, membershipSql, [labId, req.user.id]))[0];
     if (!membership) throw labNotFound();
     if (!roleAtLeast(membership.role, needed)) {
       throw new AppError(

@@ -50,8 +50,8 @@ describe('round trips of the writes people make most', () => {
       newQuencherName: undefined,
     };
     let created = { id: '', version: 0 };
-    // Session row, membership; BEGIN, emitter and quencher (one query), the study, its audit entry,
-    // COMMIT; the answer.
+    // Session row with the membership (one query); BEGIN, emitter and quencher (one query), the
+    // study, its audit entry, COMMIT; the answer.
     expect(
       await roundTripsOf(
         async () => {
@@ -62,19 +62,19 @@ describe('round trips of the writes people make most', () => {
         studies,
         201,
       ),
-    ).toBe(8);
+    ).toBe(7);
     const study = `${studies}/${created.id}`;
-    // Session row, membership; BEGIN, the study (locked), the old points (from their DELETE), the new
-    // points, the fit, the study's version and numbers, both audit entries, COMMIT; the answer.
+    // Session row with the membership; BEGIN, the study (locked), the old points (from their DELETE),
+    // the new points, the fit, the study's version and numbers, both audit entries, COMMIT; the answer.
     expect(
       await roundTripsOf(
         () => client.patch(`${study}/points`, { version: created.version, points: exactPoints }),
         `${study}/points`,
         200,
       ),
-    ).toBe(11);
-    // Session row, membership, the study with any earlier upload of the same bytes (one query); BEGIN,
-    // the upload with its bytes, its audit entry, COMMIT. A small series (invented numbers).
+    ).toBe(10);
+    // Session row with the membership, the study with any earlier upload of the same bytes (one
+    // query); BEGIN, the upload with its bytes, its audit entry, COMMIT. A small series (invented numbers).
     const csv = Buffer.from('quencher (mM),intensity\n0,1000\n1,800\n2,660\n3,570\n');
     expect(
       await roundTripsOf(
@@ -82,6 +82,6 @@ describe('round trips of the writes people make most', () => {
         `${study}/uploads`,
         201,
       ),
-    ).toBe(7);
+    ).toBe(6);
   });
 });
