@@ -1,41 +1,39 @@
 import type { DecayModel } from '@shared/schemas/decays';
-import { SelectField } from '@/components/select-field';
+import { ChoiceField } from '@/components/choice-field';
+
+const COMPONENT_CHOICES = (['1', '2', '3'] as const).map((value) => ({ value, label: value }));
+const METHOD_CHOICES = [
+  { value: 'auto', label: 'automatic' },
+  { value: 'reconvolution', label: 'reconvolution' },
+  { value: 'tail', label: 'tail fit' },
+] as const;
+const ESTIMATOR_CHOICES = [
+  { value: 'poisson', label: 'Poisson likelihood' },
+  { value: 'least-squares', label: 'weighted least squares' },
+] as const;
 
 /** Number of exponentials, reconvolution or tail, estimator and start channel of a decay fit. */
 export function DecayModelPicker({ model, onChange }: { model: DecayModel; onChange: (model: DecayModel) => void }) {
   return (
     <div className="space-y-1">
       <div className="grid gap-3 sm:grid-cols-4">
-        <SelectField
+        <ChoiceField
           label="Exponentials"
-          value={String(model.components)}
-          options={[
-            { value: '1', label: '1' },
-            { value: '2', label: '2' },
-            { value: '3', label: '3' },
-          ]}
-          onChange={(event) => onChange({ ...model, components: Number(event.target.value) as 1 | 2 | 3 })}
+          value={String(model.components) as `${DecayModel['components']}`}
+          choices={COMPONENT_CHOICES}
+          onChange={(components) => onChange({ ...model, components: Number(components) as DecayModel['components'] })}
         />
-        <SelectField
+        <ChoiceField
           label="Fit"
           value={model.method ?? 'auto'}
-          options={[
-            { value: 'auto', label: 'automatic' },
-            { value: 'reconvolution', label: 'reconvolution' },
-            { value: 'tail', label: 'tail fit' },
-          ]}
-          onChange={(event) =>
-            onChange({ ...model, method: event.target.value === 'auto' ? null : (event.target.value as 'tail') })
-          }
+          choices={METHOD_CHOICES}
+          onChange={(method) => onChange({ ...model, method: method === 'auto' ? null : method })}
         />
-        <SelectField
+        <ChoiceField
           label="Estimator"
           value={model.estimator}
-          options={[
-            { value: 'poisson', label: 'Poisson likelihood' },
-            { value: 'least-squares', label: 'weighted least squares' },
-          ]}
-          onChange={(event) => onChange({ ...model, estimator: event.target.value as DecayModel['estimator'] })}
+          choices={ESTIMATOR_CHOICES}
+          onChange={(estimator) => onChange({ ...model, estimator })}
         />
         <label className="flex flex-col gap-1 text-body font-bold text-ink-900">
           Start channel

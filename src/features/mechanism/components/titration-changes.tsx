@@ -3,9 +3,9 @@ import { ASSOCIATION_FITS, type AbsorptionTitration } from '@shared/schemas/abso
 import type { MechanismVerdictChange } from '@shared/schemas/mechanism-evidence';
 import { fromMicromolar, toMicromolar } from '@shared/units/units';
 import { Button } from '@/components/button';
+import { ChoiceField } from '@/components/choice-field';
 import { ConfirmedAction } from '@/components/confirmed-action';
 import { FormAlert } from '@/components/form-alert';
-import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
 import { useDiscardAbsorptionTitration } from '../api/discard-absorption-titration';
 import { useReanalyseAbsorptionTitration } from '../api/reanalyse-absorption-titration';
@@ -17,6 +17,7 @@ const FIT_LABELS: Record<(typeof ASSOCIATION_FITS)[number], string> = {
   isotherm: '1:1 isotherm (nonlinear least squares)',
   'benesi-hildebrand': 'Benesi–Hildebrand line',
 };
+const FIT_CHOICES = ASSOCIATION_FITS.map((value) => ({ value, label: FIT_LABELS[value] }));
 
 /**
  * Analyse a kept titration again with new settings (band, path length, [E]0, the quencher's own
@@ -62,12 +63,7 @@ export function TitrationChanges({
       <legend className="text-body font-bold text-ink-900">Analyse again</legend>
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         <TitrationSettingsFields settings={settings} onChange={setSettings} again />
-        <SelectField
-          label="K_a the verdict uses"
-          options={ASSOCIATION_FITS.map((value) => ({ value, label: FIT_LABELS[value] }))}
-          value={fit}
-          onChange={(event) => setFit(event.target.value as typeof fit)}
-        />
+        <ChoiceField label="K_a the verdict uses" value={fit} choices={FIT_CHOICES} onChange={setFit} />
       </div>
       <label className="flex items-center gap-2 text-body text-ink-900">
         <input

@@ -1,8 +1,8 @@
-import { SelectField } from '@/components/select-field';
+import { ChoiceField } from '@/components/choice-field';
 import { unitLabel } from '@shared/units/units';
 import { gridConcentrationUnits, type GridConcentrationUnit } from './format';
 
-const options = gridConcentrationUnits.map((value) => ({ value, label: unitLabel(value) }));
+const choices = gridConcentrationUnits.map((value) => ({ value, label: unitLabel(value) }));
 
 /** Which unit typed concentrations are in (M, mM, µM); the values are kept in mol/L whatever is chosen. */
 export function ConcentrationUnitField({
@@ -14,12 +14,5 @@ export function ConcentrationUnitField({
   value: GridConcentrationUnit;
   onChange: (unit: GridConcentrationUnit) => void;
 }) {
-  return (
-    <SelectField
-      label={label}
-      value={value}
-      options={options}
-      onChange={(event) => onChange(event.target.value as GridConcentrationUnit)}
-    />
-  );
+  return <ChoiceField label={label} value={value} choices={choices} onChange={onChange} />;
 }

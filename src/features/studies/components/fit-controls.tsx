@@ -1,11 +1,14 @@
 import { useState } from 'react';
 import { fitModels, fitWeightingNames, fitWeightings, type FitModel, type FitWeighting } from '@shared/schemas/studies';
 import { Button } from '@/components/button';
+import { ChoiceField } from '@/components/choice-field';
 import { FormAlert } from '@/components/form-alert';
-import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
 import { useRunFit } from '../api/run-fit';
 import { modelLabels } from './format';
+
+const MODEL_CHOICES = fitModels.map((value) => ({ value, label: modelLabels[value] }));
+const WEIGHTING_CHOICES = fitWeightings.map((value) => ({ value, label: fitWeightingNames[value] }));
 
 /** Fit now with another model or weighting; every fit is kept. */
 export function FitControls({
@@ -25,18 +28,8 @@ export function FitControls({
   return (
     <div className="space-y-1">
       <div className="flex flex-wrap items-end gap-2">
-        <SelectField
-          label="Model"
-          value={chosen}
-          onChange={(event) => setChosen(event.target.value as FitModel)}
-          options={fitModels.map((value) => ({ value, label: modelLabels[value] }))}
-        />
-        <SelectField
-          label="Weighting"
-          value={weights}
-          onChange={(event) => setWeights(event.target.value as FitWeighting)}
-          options={fitWeightings.map((value) => ({ value, label: fitWeightingNames[value] }))}
-        />
+        <ChoiceField label="Model" value={chosen} choices={MODEL_CHOICES} onChange={setChosen} />
+        <ChoiceField label="Weighting" value={weights} choices={WEIGHTING_CHOICES} onChange={setWeights} />
         <Button
           variant="quiet"
           onClick={() => run.mutate({ model: chosen, weighting: weights })}
