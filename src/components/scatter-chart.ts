@@ -61,3 +61,14 @@ export const lineSeries = (label: string, data: Point[], colour: string, borderW
   pointRadius: 0,
   ...(borderWidth === undefined ? {} : { borderWidth }),
 });
+
+/** Points the chemist left out of the fit: unfilled crosses in brick at the place they would have had. */
+export const leftOutSeries = (data: Point[]) => ({
+  label: 'Left out',
+  data,
+  backgroundColor: 'transparent',
+  borderColor: chartColours.excluded,
+  pointStyle: 'crossRot' as const,
+  pointRadius: 7,
+  borderWidth: 2,
+});

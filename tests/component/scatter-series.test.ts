@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { lineSeries, pointSeries } from '@/components/scatter-chart';
+import { chartColours } from '@/components/chart-theme';
+import { leftOutSeries, lineSeries, pointSeries } from '@/components/scatter-chart';
 
 // The dataset options every plot builds its measured points and curves from (chart.js scatter datasets).
-describe('pointSeries and lineSeries', () => {
+describe('pointSeries, lineSeries and leftOutSeries', () => {
   const data = [
     { x: 0, y: 1 },
     { x: 1, y: 2 },
@@ -20,5 +21,17 @@ describe('pointSeries and lineSeries', () => {
     // common practice: leaving the key out keeps the library's default width (an undefined value would override it)
     expect('borderWidth' in curve).toBe(false);
     expect(lineSeries('Fit', data, '#654321', 1.5).borderWidth).toBe(1.5);
+  });
+
+  it('when points are left out of a fit, then they are unfilled crosses in the left-out colour, named so in the legend', () => {
+    expect(leftOutSeries(data)).toEqual({
+      label: 'Left out',
+      data,
+      backgroundColor: 'transparent',
+      borderColor: chartColours.excluded,
+      pointStyle: 'crossRot',
+      pointRadius: 7,
+      borderWidth: 2,
+    });
   });
 });

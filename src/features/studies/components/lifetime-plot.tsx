@@ -3,7 +3,7 @@ import type { FitResult } from '@shared/schemas/study-fits';
 import { chartColours as plotColours } from '@/components/chart-theme';
 import { figureFileName } from '@/components/figure-file-name';
 import { SavableScatter } from '@/components/savable-scatter';
-import { lineSeries, pointSeries } from '@/components/scatter-chart';
+import { leftOutSeries, lineSeries, pointSeries } from '@/components/scatter-chart';
 
 /** tau0/tau against [Q] with the line 1 + K_SV[Q] from the lifetime fit, on the stored series' axis (memoised like SternVolmerPlot). */
 export const LifetimePlot = memo(function LifetimePlot({
@@ -33,19 +33,7 @@ export const LifetimePlot = memo(function LifetimePlot({
             ),
             lineSeries('Fit', line, plotColours.line),
             // left out by the chemist: unfilled crosses at their plotted place, as on the Stern–Volmer plot
-            ...(excluded.length
-              ? [
-                  {
-                    label: 'Left out',
-                    data: excluded.map((p) => ({ x: p.x * xScale, y: p.y })),
-                    backgroundColor: 'transparent',
-                    borderColor: plotColours.excluded,
-                    pointStyle: 'crossRot' as const,
-                    pointRadius: 7,
-                    borderWidth: 2,
-                  },
-                ]
-              : []),
+            ...(excluded.length ? [leftOutSeries(excluded.map((p) => ({ x: p.x * xScale, y: p.y })))] : []),
           ],
         }}
         options={{

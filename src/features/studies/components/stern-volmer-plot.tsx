@@ -2,7 +2,7 @@ import { memo } from 'react';
 import { Chart, Filler } from 'chart.js';
 import type { FitResult } from '@shared/schemas/study-fits';
 import { chartColours as plotColours } from '@/components/chart-theme';
-import { linearAxis as axis } from '@/components/scatter-chart';
+import { leftOutSeries, linearAxis as axis } from '@/components/scatter-chart';
 import { figureFileName } from '@/components/figure-file-name';
 import { SavableScatter } from '@/components/savable-scatter';
 
@@ -54,15 +54,7 @@ export const SternVolmerPlot = memo(function SternVolmerPlot({ plot, studyTitle 
         pointRadius: 0,
       },
       { label: 'Points used', data: scaled(plot.points), backgroundColor: plotColours.points, pointRadius: 5 },
-      {
-        label: 'Left out',
-        data: scaled(plot.excluded),
-        backgroundColor: 'transparent',
-        borderColor: plotColours.excluded,
-        pointStyle: 'crossRot' as const,
-        pointRadius: 7,
-        borderWidth: 2,
-      },
+      leftOutSeries(scaled(plot.excluded)),
     ],
   };
   const legend = { labels: { filter: (item: { text: string }) => item.text !== 'band lower' } };
