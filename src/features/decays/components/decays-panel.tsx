@@ -124,7 +124,7 @@ function KeptSet({
       </header>
       {apply.isError && <FormAlert>{describeError(apply.error)}</FormAlert>}
       <OutcomesTable outcomes={set.outcomes} shown={shown} onShow={setShown} />
-      <DecayFit curves={curves.data} outcome={set.outcomes[shown]} title={study.title} />
+      <DecayFit curves={curves.data} outcome={set.outcomes[shown]} title={study.title} error={curves.error} />
       {set.sternVolmer ? (
         <DecaySternVolmerPlot sternVolmer={set.sternVolmer} title={study.title} />
       ) : (
