@@ -1,5 +1,5 @@
 import type {} from 'express-session';
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import { doubleCsrf } from 'csrf-csrf';
 import helmet from 'helmet';
 
@@ -51,11 +51,23 @@ export function securityHeaders(secure: boolean): RequestHandler {
 
 /** Double-submit CSRF tokens bound to the session id; the client sends them in x-csrf-token. */
 export function csrfProtection(secret: string, secure: boolean) {
-  return doubleCsrf({
+  const cookieName = secure ? '__Host-halflight.csrf' : 'halflight.csrf';
+  const cookieOptions = { sameSite: 'strict', secure, httpOnly: true, path: '/' } as const;
+  const csrf = doubleCsrf({
     getSecret: () => secret,
     getSessionIdentifier: (req) => req.session?.id ?? '',
-    cookieName: secure ? '__Host-halflight.csrf' : 'halflight.csrf',
-    cookieOptions: { sameSite: 'strict', secure, httpOnly: true, path: '/' },
+    cookieName,
+    cookieOptions,
     getCsrfTokenFromRequest: (req) => req.headers['x-csrf-token'],
   });
+  // csrf-csrf sets its cookie on every call, even when it hands back the token the browser already
+  // holds (still valid for this session): GET /api/session, asked on every screen load, answered
+  // with a Set-Cookie each time. The cookie is sent only when the token is a new one.
+  const noCookie = { cookie: () => undefined } as unknown as Response;
+  const generateCsrfToken = (req: Request, res: Response, options?: { overwrite?: boolean }): string => {
+    const token = csrf.generateCsrfToken(req, noCookie, options);
+    if (req.cookies?.[cookieName] !== token) res.cookie(cookieName, token, cookieOptions);
+    return token;
+  };
+  return { doubleCsrfProtection: csrf.doubleCsrfProtection, generateCsrfToken };
 }

@@ -79,6 +79,53 @@ describe('CSRF protection', () => {
   });
 });
 
+const csrfCookie = (response: request.Response) =>
+  ([] as string[]).concat(response.headers['set-cookie'] ?? []).find((cookie) => cookie.startsWith('halflight.csrf='));
+
+describe('GET /api/session', () => {
+  it('when the browser holds a valid token, then the same token comes back without a new cookie, and changes still pass', async () => {
+    const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
+    const browser = request.agent(testApp.app);
+    const anonymous = await browser.get('/api/csrf-token');
+    expect(csrfCookie(anonymous)).toMatch(/HttpOnly/i);
+    const signedIn = await browser
+      .post('/api/session')
+      .set('x-csrf-token', anonymous.body.csrfToken)
+      .send({ email: users.viewer.email, password: users.viewer.password });
+    // Signing in makes a new session, so a new token and its cookie.
+    expect(signedIn.body.csrfToken).not.toBe(anonymous.body.csrfToken);
+    expect(csrfCookie(signedIn)).toMatch(/SameSite=Strict/i);
+    for (let i = 0; i < 2; i++) {
+      const again = await browser.get('/api/session');
+      expect(again.body.csrfToken).toBe(signedIn.body.csrfToken);
+      expect(csrfCookie(again)).toBeUndefined();
+    }
+    const renamed = await browser
+      .patch('/api/account')
+      .set('x-csrf-token', signedIn.body.csrfToken)
+      .send({ name: 'Renamed with the kept token' });
+    expect(renamed.status).toBe(200);
+    expect((await browser.get('/api/session')).body.user.name).toBe('Renamed with the kept token');
+  });
+
+  it('when the token cookie is missing or not of this session, then a new token comes with its cookie', async () => {
+    const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
+    const client = await apiClient(testApp.app);
+    await client.signIn(users.viewer);
+    const sid = (await client.agent.get('/api/session')).request.cookies
+      .split('; ')
+      .find((pair: string) => pair.startsWith('halflight.sid='))!;
+    const bare = await request(testApp.app).get('/api/session').set('cookie', sid);
+    expect(bare.status).toBe(200);
+    expect(csrfCookie(bare)).toContain(bare.body.csrfToken);
+    const foreign = await request(testApp.app)
+      .get('/api/session')
+      .set('cookie', `${sid}; halflight.csrf=${encodeURIComponent('0'.repeat(64))}.${'1'.repeat(64)}`);
+    expect(foreign.body.csrfToken).not.toBe(`${'0'.repeat(64)}.${'1'.repeat(64)}`);
+    expect(csrfCookie(foreign)).toContain(foreign.body.csrfToken);
+  });
+});
+
 describe('DELETE /api/session', () => {
   it('when signing out, then the session is destroyed and the next request is 401', async () => {
     const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
