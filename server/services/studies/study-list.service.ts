@@ -81,12 +81,44 @@ class Binds {
 }
 
 /**
+ * How many current studies match, up to STUDY_COUNT_CAP + 1. Filtered by owner, status and flag
+ * only (or not at all), the answer is a sum over the lab's rows of lab_study_counts, which
+ * triggers keep equal to the studies (migration 20261203-0910); other filters count the matching
+ * rows, stopping after the cap.
+ */
+function countMatches(
+  lab: LabContext,
+  query: ListStudiesQuery,
+  where: string[],
+  whereValues: unknown[],
+): Promise<Array<{ n: number }>> {
+  const sequelize = Study.sequelize!;
+  if (query.emitterId || query.quencherId || query.solventId || query.q) {
+    return selectRows<{ n: number }>(
+      sequelize,
+      `SELECT count(*)::int AS n FROM (SELECT 1 FROM studies s WHERE ${where.join(' AND ')} LIMIT ${STUDY_COUNT_CAP + 1}) c`,
+      whereValues,
+    );
+  }
+  const binds = new Binds();
+  const kept = [`c.lab_id = ${binds.add(lab.id)}`];
+  if (query.status) kept.push(`c.status = ${binds.add(query.status)}`);
+  if (query.ownerId) kept.push(`c.owner_id = ${binds.add(query.ownerId)}`);
+  if (query.flagged === 'true') kept.push('c.flagged');
+  return selectRows<{ n: number }>(
+    sequelize,
+    `SELECT coalesce(sum(c.n), 0)::int AS n FROM lab_study_counts c WHERE ${kept.join(' AND ')}`,
+    binds.values,
+  );
+}
+
+/**
  * One page of the lab's current study revisions. Every filter maps to an index of migration 0005
  * (lab_id first, current revisions only), the kq and K_SV sorts to those of migration 0008 (same
  * NULLS LAST and id tie-breaker as the ORDER BY here), text search to the lab's trigram index of
  * migration 20261202-1000. Pages come by number (OFFSET, fine for the first pages) or by cursor
  * (keyset: the index is entered at the cursor's row, so page 2,000 costs what page 1 does). The
- * count stops after STUDY_COUNT_CAP matches.
+ * total comes from countMatches.
  */
 export async function listStudies(lab: LabContext, query: ListStudiesQuery): Promise<StudyList> {
   const sequelize = Study.sequelize!;
@@ -155,10 +187,9 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
     LEFT JOIN users o ON o.id = p.owner_id
     ORDER BY ${order('p')}
     LIMIT ${limit}`;
-  const countSql = `SELECT count(*)::int AS n FROM (SELECT 1 FROM studies s WHERE ${where.join(' AND ')} LIMIT ${STUDY_COUNT_CAP + 1}) c`;
   const [rows, [counted]] = await Promise.all([
     selectRows<Row>(sequelize, pageSql, binds.values),
-    selectRows<{ n: number }>(sequelize, countSql, binds.values.slice(0, filterBinds)),
+    countMatches(lab, query, where, binds.values.slice(0, filterBinds)),
   ]);
   const more = rows.length > query.pageSize;
   const page = rows.slice(0, query.pageSize);
