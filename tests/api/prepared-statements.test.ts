@@ -96,4 +96,41 @@ describe('statements every read asks', () => {
     expect(runs(lists).sort((a, b) => a - b)).toEqual([7, 8]);
     expect(runs(events)).toEqual([15]);
   });
+
+  it('when the studies list is paged, then a first page or a cursor page with one index for its order runs prepared, and a text search does not', async () => {
+    const { lab, users } = await createLabWithMembers(sequelize, { roles: ['researcher'] });
+    const researcher = await apiClient(testApp.app);
+    await researcher.signIn(users.researcher);
+    for (const tag of ['listed one', 'listed two', 'listed three']) await createStudy(researcher, lab.id, tag);
+    const base = `/api/labs/${lab.id}/studies`;
+    const first = await researcher.get(`${base}?pageSize=2`);
+    expect(first.body.items).toHaveLength(2);
+    const next = await researcher.get(`${base}?pageSize=2&cursor=${encodeURIComponent(first.body.nextCursor)}`);
+    expect(next.body.items).toHaveLength(1);
+    // Same answer as a page planned for its values (a text search matching every study here).
+    const searched = await researcher.get(`${base}?pageSize=2&q=listed`);
+    expect(searched.body.items).toEqual(first.body.items);
+    expect(searched.body.total).toBe(3);
+
+    const prepared = await selectRows<Prepared>(
+      sequelize,
+      'SELECT statement, generic_plans, custom_plans FROM pg_prepared_statements',
+    );
+    const pages = prepared.filter((row) => row.statement.includes('AS "sortKey"'));
+    // pageSize=2 is not one of the usual sizes: neither page was prepared.
+    expect(pages).toEqual([]);
+    for (const query of ['pageSize=25', 'pageSize=25', 'status=draft', `ownerId=${users.researcher.id}`, 'q=listed']) {
+      expect((await researcher.get(`${base}?${query}`)).body.total).toBe(3);
+    }
+    const after = await selectRows<Prepared>(
+      sequelize,
+      'SELECT statement, generic_plans, custom_plans FROM pg_prepared_statements',
+    );
+    const kept = after.filter((row) => row.statement.includes('AS "sortKey"'));
+    // The unfiltered page (asked twice), the status page and the owner page; not the text search.
+    expect(kept.map((row) => Number(row.generic_plans) + Number(row.custom_plans)).sort()).toEqual([1, 1, 2]);
+    expect(kept.some((row) => row.statement.includes('ILIKE'))).toBe(false);
+    // The totals of those three came from lab_study_counts, prepared as well.
+    expect(after.filter((row) => row.statement.includes('FROM lab_study_counts'))).toHaveLength(3);
+  });
 });
