@@ -116,11 +116,25 @@ export async function listCompounds(
   // A page past the end has no row to carry the number of matches: the first row tells it.
   const [counted] = rows.length || !offset ? rows : await selectRows<SummaryRow>(sequelize, sql, [...values, 1, 0]);
   return {
-    items: rows.map(({ potentials, lifetimes, energies, total: _total, createdAt, updatedAt, ...compound }) => ({
-      ...compound,
-      counts: { potentials, lifetimes, energies },
-      createdAt: createdAt.toISOString(),
-      updatedAt: updatedAt.toISOString(),
+    // Named field by field: a rest and a spread per row cost several times more (see toSummary in
+    // services/studies/study-serialize.ts).
+    items: rows.map((row) => ({
+      id: row.id,
+      name: row.name,
+      roleHint: row.roleHint,
+      smiles: row.smiles,
+      formula: row.formula,
+      notes: row.notes,
+      emissiveState: row.emissiveState,
+      tripletEnergy: row.tripletEnergy,
+      tripletEnergySource: row.tripletEnergySource,
+      charge: row.charge,
+      createdById: row.createdById,
+      createdByName: row.createdByName,
+      version: row.version,
+      counts: { potentials: row.potentials, lifetimes: row.lifetimes, energies: row.energies },
+      createdAt: row.createdAt.toISOString(),
+      updatedAt: row.updatedAt.toISOString(),
     })),
     total: counted?.total ?? 0,
     page: query.page,

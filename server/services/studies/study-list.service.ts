@@ -64,12 +64,7 @@ function decodeCursor(text: string, sort: Sort, direction: Direction): Cursor {
   return cursor;
 }
 
-type Row = Omit<SummaryRow, 'emitter' | 'quencher' | 'owner'> & {
-  sortKey: string | null;
-  emitterName: string | null;
-  quencherName: string | null;
-  ownerName: string | null;
-};
+type Row = SummaryRow & { sortKey: string | null };
 
 /** Binds values as $1, $2, … in the order they are added. */
 class Binds {
@@ -231,14 +226,7 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
   const hasPrevious = backwards ? more : cursor !== null || offset > 0;
   const total = counted?.n ?? 0;
   return {
-    items: page.map((row) =>
-      toSummary({
-        ...row,
-        emitter: row.emitterName === null ? null : { name: row.emitterName },
-        quencher: row.quencherName === null ? null : { name: row.quencherName },
-        owner: row.ownerName === null ? null : { name: row.ownerName },
-      }),
-    ),
+    items: page.map((row) => toSummary(row)),
     total: Math.min(total, STUDY_COUNT_CAP),
     totalCapped: total > STUDY_COUNT_CAP,
     page: query.page,

@@ -21,6 +21,7 @@ import {
   toReview,
   toTau0Source,
   toUpload,
+  type SummaryRow,
 } from './study-serialize';
 
 const settingsIssuesError = (issues: { path: string; message: string }[]) =>
@@ -111,11 +112,23 @@ export async function updateStudy(
   return getStudyDetail(lab, studyId);
 }
 
+/** Column names (snake_case) as a model names them (camelCase); a fixed set, kept once converted. */
+const camelNames = new Map<string, string>();
+const camelName = (key: string) => {
+  let name = camelNames.get(key);
+  if (name === undefined) {
+    name = key.replace(/_([a-z0-9])/g, (_, letter: string) => letter.toUpperCase());
+    camelNames.set(key, name);
+  }
+  return name;
+};
+
 /** A row PostgreSQL turned into JSON (snake_case keys, timestamps as text) in the shape a model row has. */
 function modelShaped<T>(row: Record<string, unknown>): T {
   const shaped: Record<string, unknown> = {};
-  for (const [key, value] of Object.entries(row)) {
-    const name = key.replace(/_([a-z0-9])/g, (_, letter: string) => letter.toUpperCase());
+  for (const key in row) {
+    const name = camelName(key);
+    const value = row[key];
     shaped[name] =
       (name === 'createdAt' || name === 'updatedAt') && typeof value === 'string' ? new Date(value) : value;
   }
@@ -174,15 +187,8 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
   const [parts] = await selectRows<DetailRow>(Study.sequelize!, detailSql, [studyId, lab.id]);
   const studyRow = parts!.study;
   if (!studyRow) throw studyNotFound();
-  const study = modelShaped<Study>({
-    ...studyRow,
-    emitter: byName(studyRow.emitter_name),
-    quencher: byName(studyRow.quencher_name),
-    owner: byName(studyRow.owner_name),
-    emitter_name: undefined,
-    quencher_name: undefined,
-    owner_name: undefined,
-  });
+  // emitter_name, quencher_name and owner_name become the names identityOf reads.
+  const study = modelShaped<Study & Pick<SummaryRow, 'emitterName' | 'quencherName' | 'ownerName'>>(studyRow);
   const points = parts!.points.map((row) => modelShaped<StudyPoint>(row));
   const fitRow = parts!.latest_fit;
   const latestFit = fitRow
@@ -201,9 +207,8 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
   }));
   const sources = new Map(decaySets.map((set) => [set.id, set.file?.fileName ?? 'decay file']));
   const corrections = study.dilutionCorrection || study.innerFilterCorrection ? correctionsOf(latestFit) : new Map();
-  return {
-    ...settingsOf(study),
-    ...identityOf(study),
+  // Object.assign rather than spreads into a new literal (see toSummary).
+  return Object.assign(settingsOf(study), identityOf(study), {
     previousRevisionId: study.previousRevisionId,
     nextRevisionId: next?.id ?? null,
     version: study.version,
@@ -215,5 +220,5 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
     tau0Source: toTau0Source(study, sources),
     uploads: uploads.map(toUpload),
     reviews: reviews.map(toReview),
-  };
+  });
 }
