@@ -14,7 +14,7 @@ import { typedNumber } from './typed-number';
 import { VerdictChangeNotice } from './verdict-change-notice';
 
 const FIT_LABELS: Record<(typeof ASSOCIATION_FITS)[number], string> = {
-  isotherm: '1:1 isotherm (nonlinear least squares)',
+  isotherm: '1:1 isotherm (nonlinear fit)',
   'benesi-hildebrand': 'Benesi–Hildebrand line',
 };
 const FIT_CHOICES = ASSOCIATION_FITS.map((value) => ({ value, label: FIT_LABELS[value] }));
