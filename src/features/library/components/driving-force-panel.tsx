@@ -1,5 +1,6 @@
 import type { DrivingForceResult, MissingInput, Pathway } from '@shared/schemas/driving-force';
 import { ErrorNotice } from '@/components/error-notice';
+import { NotesList } from '@/components/notes-list';
 import { Panel } from '@/components/panel';
 import { Signal } from '@/components/signal';
 import { TextLink } from '@/components/text-link';
@@ -81,13 +82,7 @@ function DrivingForceBody({
         ))}
       </div>
       <EnergyTransfer result={result} labId={labId} />
-      {result.warnings.length > 0 && (
-        <ul aria-label="Conversion warnings" className="list-disc space-y-1 pl-5 text-caption text-ink-700">
-          {result.warnings.map((warning) => (
-            <li key={warning}>{warning}</li>
-          ))}
-        </ul>
-      )}
+      <NotesList items={result.warnings} label="Conversion warnings" />
     </div>
   );
 }

@@ -6,6 +6,7 @@ import {
   type MechanismPieceAnswer,
 } from '@shared/schemas/mechanism-evidence';
 import { ErrorNotice } from '@/components/error-notice';
+import { NotesList } from '@/components/notes-list';
 import { Signal } from '@/components/signal';
 import { Tag } from '@/components/tag';
 import { TextLink } from '@/components/text-link';
@@ -100,11 +101,7 @@ export function MechanismPanel({
       >
         <p className="text-caption font-bold tracking-wide text-ink-600">Combined verdict</p>
         <p className="text-lead font-bold text-ink-950">{MECHANISM_VERDICT_WORDS[evidence.verdict]}</p>
-        <ul className="mt-2 list-disc space-y-1 pl-5 text-body text-ink-800">
-          {evidence.reasons.map((reason) => (
-            <li key={reason}>{reason}</li>
-          ))}
-        </ul>
+        <NotesList items={evidence.reasons} size="body" className="mt-2" />
       </div>
       {evidence.pieces.length > 0 && (
         <ul aria-label="Evidence" className="grid gap-3 md:grid-cols-2">

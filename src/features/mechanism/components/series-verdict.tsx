@@ -1,6 +1,7 @@
 import { formatEstimate, formatNumber, UNITS } from '@shared/format';
 import { toKilojoulesPerMole } from '@shared/units/units';
 import type { TemperatureSeriesAnalysis } from '@shared/schemas/temperature-series';
+import { NotesList } from '@/components/notes-list';
 
 const verdictWords: Record<TemperatureSeriesAnalysis['verdict'], { title: string; tone: string }> = {
   dynamic: { title: 'Dynamic: collisions during the excited state', tone: 'border-moss-500 bg-moss-100' },
@@ -18,11 +19,7 @@ export function SeriesVerdict({ analysis }: { analysis: TemperatureSeriesAnalysi
     <div className="space-y-4">
       <div role="status" aria-label="Temperature verdict" className={`rounded-md border-l-4 p-4 ${words.tone}`}>
         <p className="text-lead font-bold text-ink-950">{words.title}</p>
-        <ul className="mt-2 list-disc space-y-1 pl-5 text-body text-ink-800">
-          {analysis.reasons.map((reason) => (
-            <li key={reason}>{reason}</li>
-          ))}
-        </ul>
+        <NotesList items={analysis.reasons} size="body" className="mt-2" />
       </div>
       <dl className="grid gap-x-6 gap-y-2 text-body md:grid-cols-2">
         <div>
@@ -70,13 +67,7 @@ export function SeriesVerdict({ analysis }: { analysis: TemperatureSeriesAnalysi
           </>
         )}
       </dl>
-      {analysis.notes.length > 0 && (
-        <ul className="space-y-1 text-caption text-ink-600">
-          {analysis.notes.map((note) => (
-            <li key={note}>{note}</li>
-          ))}
-        </ul>
-      )}
+      <NotesList items={analysis.notes} />
     </div>
   );
 }

@@ -1,6 +1,7 @@
 import { formatEstimate, formatNumber, UNITS } from '@shared/format';
 import type { AbsorptionComparisonAnswer, AbsorptionPreview } from '@shared/schemas/absorption-titrations';
 import { FormAlert } from '@/components/form-alert';
+import { NotesList } from '@/components/notes-list';
 import { Signal } from '@/components/signal';
 import { AbsorptionPlots } from './absorption-plots';
 
@@ -76,13 +77,7 @@ export function TitrationView({ answer, title }: { answer: AbsorptionPreview; ti
           <dd>{comparisonWords(comparison)}</dd>
         </dl>
       )}
-      {analysis.notes.length > 0 && (
-        <ul className="list-disc space-y-1 pl-5 text-caption">
-          {analysis.notes.map((note) => (
-            <li key={note}>{note}</li>
-          ))}
-        </ul>
-      )}
+      <NotesList items={analysis.notes} />
       <AbsorptionPlots plot={answer.plot} analysis={analysis} />
     </div>
   );
