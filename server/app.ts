@@ -28,6 +28,8 @@ import { requireAuth, requireLabRole } from './middleware/access';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { createRateLimits, defaultRateLimits } from './middleware/rate-limits';
 import type { RateLimitName, RateLimits, RateLimitSettings } from './middleware/rate-limits';
+import { createReadAdmission, defaultReadAdmission } from './middleware/read-admission';
+import type { ReadAdmission, ReadAdmissionSettings } from './middleware/read-admission';
 import { csrfProtection, securityHeaders } from './middleware/security';
 import { apiRoutes } from './routes';
 import { createRawFileStore, type RawFileStore } from './services/studies/files/raw-file-store';
@@ -52,6 +54,8 @@ export interface AppServices {
   uploadReader: UploadReader;
   /** Where raw upload files are kept (the database, or S3-compatible object storage). */
   files: RawFileStore;
+  /** The turns of API reads (GET/HEAD) of this process: how many run and how many wait. */
+  readAdmission: ReadAdmission;
 }
 
 export interface CreateAppOptions {
@@ -92,6 +96,8 @@ export interface CreateAppOptions {
   files?: RawFileStore;
   /** Session store connections: for read requests, and kept for requests that write (default 5 and 2). */
   sessionPools?: { read: number; write: number };
+  /** API reads of this process that run at once, and that may wait (default 8 and 500). */
+  readAdmission?: Partial<ReadAdmissionSettings>;
 }
 
 export interface HalflightApp extends express.Express {
@@ -184,6 +190,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   });
   registerMailJobs(jobs, { sequelize: options.sequelize, mailer: options.mailer, publicUrl, logger });
   const uploadReader = createUploadReader({ limits: options.uploadLimits });
+  const readAdmission = createReadAdmission({ ...defaultReadAdmission, ...options.readAdmission });
   app.locals.services = {
     sequelize: options.sequelize,
     embeddedDatabase: options.embeddedDatabase,
@@ -196,7 +203,8 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     sessionCookieName: session.cookieName,
     uploadReader,
     files: options.files ?? createRawFileStore({ writeTo: 'database', s3: null }),
-  };
+    readAdmission,
+  } satisfies AppServices;
   app.locals.openApiDocument = buildOpenApiDocument(routes, appVersion);
   app.startJobs = () => jobs.start();
   app.closeResources = async () => {
@@ -210,6 +218,8 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   app.use(requestLogging(logger, logDatabaseTime));
   if (logDatabaseTime) app.use(countDatabaseTime);
   app.use(securityHeaders(secure));
+  // Before the session: a read waiting for its turn holds no connection and has read nothing yet.
+  app.use('/api', readAdmission.middleware);
   // API answers: gzip or brotli (fast settings) above 1 KB when the client accepts it. Each answer
   // is private to the person and revalidated with its ETag (304 when unchanged), never stored by proxies.
   app.use('/api', apiCompression, (_req, res, next) => {

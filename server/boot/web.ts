@@ -70,6 +70,7 @@ export async function startWeb(options: {
     jobWorker: runsJobs,
     files: fileStoreFromConfig(config).files,
     sessionPools: { read: config.HALFLIGHT_SESSION_POOL_READ, write: config.HALFLIGHT_SESSION_POOL_WRITE },
+    readAdmission: { concurrency: config.HALFLIGHT_READ_CONCURRENCY, queue: config.HALFLIGHT_READ_QUEUE },
   });
   let server: Server | undefined;
   const closeRest = async () => {

@@ -18,7 +18,8 @@ function operationId(route: AnyRouteSpec): string {
 /**
  * The answers every guard may give, so each operation lists them: the session and role checks
  * (401 signed out, 404 not a member of the lab, 403 role too low), the CSRF check on every change
- * (403), and the attempt limits (429).
+ * (403), the attempt limits (429), and the turn every read but /api/health may wait for (503 when
+ * too many wait, server/middleware/read-admission.ts).
  */
 function guardResponses(route: AnyRouteSpec): Record<number, string> {
   const added: Record<number, string> = {};
@@ -29,6 +30,8 @@ function guardResponses(route: AnyRouteSpec): Record<number, string> {
   }
   if (route.method !== 'get') added[403] ??= 'CSRF token missing or stale (send x-csrf-token)';
   if (route.rateLimit) added[429] = 'Too many attempts; see Retry-After';
+  if (route.method === 'get' && route.path !== '/api/health')
+    added[503] = 'Too many reads waiting for a turn (server_busy); see Retry-After';
   return added;
 }
 

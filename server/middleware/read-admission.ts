@@ -1,0 +1,97 @@
+import type { RequestHandler, Response } from 'express';
+import { unavailable } from '../lib/app-error';
+
+/** How many API reads of one process run at once, and how many may wait for a turn. */
+export interface ReadAdmissionSettings {
+  /** GET and HEAD API requests of this process that run at the same time. */
+  concurrency: number;
+  /** Reads that may wait for a turn; one more is answered 503 with Retry-After. */
+  queue: number;
+}
+
+export const defaultReadAdmission: ReadAdmissionSettings = { concurrency: 8, queue: 500 };
+
+/** Seconds a refused read is told to wait: the queue drains in well under that at any sane load. */
+const busyRetryAfterSeconds = 2;
+
+const waitingMethods = new Set(['GET', 'HEAD']);
+
+export interface ReadAdmission {
+  /** Mount under /api, before the session middleware (it reads nothing itself). */
+  middleware: RequestHandler;
+  /** Reads running now, and reads waiting for a turn (for tests and diagnostics). */
+  readonly running: number;
+  readonly waiting: number;
+}
+
+/**
+ * Admission control for API reads. With many clients that never pause, every read of a process
+ * used to start at once: a hundred of them queued in the event loop and the database pools, and a
+ * request that writes (6-10 round trips one after the other) waited behind that queue at each
+ * step. Here at most `concurrency` GET/HEAD requests run; later ones wait in arrival order and
+ * start as earlier ones end (their response finishes or its connection closes, counted once).
+ * Requests that change something and /api/health never wait, so they meet short queues only.
+ * A waiting read whose client has gone away leaves the queue without running; past `queue`
+ * waiting reads, a read is refused at once (503, Retry-After) instead of waiting for minutes.
+ */
+export function createReadAdmission(settings: ReadAdmissionSettings): ReadAdmission {
+  const { concurrency, queue } = settings;
+  let running = 0;
+  // A Set keeps insertion order and removes any member in O(1): the FIFO and the way out of it.
+  const waiting = new Set<() => void>();
+
+  const admitWaiting = () => {
+    while (running < concurrency && waiting.size > 0) {
+      const turn = waiting.values().next().value!;
+      waiting.delete(turn);
+      turn();
+    }
+  };
+
+  const run = (res: Response, next: () => void) => {
+    running += 1;
+    let ended = false;
+    const end = () => {
+      if (ended) return;
+      ended = true;
+      running -= 1;
+      admitWaiting();
+    };
+    // 'finish' when the answer is handed to the socket, 'close' when the connection ends first
+    // (and, on current Node, after 'finish' too): whichever comes first frees the turn, once.
+    res.once('finish', end);
+    res.once('close', end);
+    next();
+  };
+
+  const middleware: RequestHandler = (req, res, next) => {
+    if (!waitingMethods.has(req.method) || req.path === '/health') return next();
+    if (running < concurrency) return run(res, next);
+    if (waiting.size >= queue) {
+      return next(
+        unavailable(
+          'server_busy',
+          'The server has too many requests waiting to be read. Try again in a few seconds.',
+          busyRetryAfterSeconds,
+        ),
+      );
+    }
+    // A socket destroyed whose 'close' has not been emitted yet is skipped here as well.
+    const turn = () => {
+      if (!req.socket.destroyed) run(res, next);
+    };
+    waiting.add(turn);
+    // A client that gives up while waiting: its read never runs (a no-op once it has started).
+    res.once('close', () => waiting.delete(turn));
+  };
+
+  return {
+    middleware,
+    get running() {
+      return running;
+    },
+    get waiting() {
+      return waiting.size;
+    },
+  };
+}

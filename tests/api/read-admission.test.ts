@@ -1,0 +1,149 @@
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { setTimeout as sleep } from 'node:timers/promises';
+import pg from 'pg';
+import { QueryTypes } from 'sequelize';
+import { afterAll, describe, expect, inject, it } from 'vitest';
+import type { ReadAdmission } from '../../server/middleware/read-admission';
+import { defineRoute } from '../../server/http/define-route';
+import { apiRoutes } from '../../server/routes';
+import { apiClient, createLabWithMembers } from '../support/accounts';
+import { createTestApp } from '../support/test-app';
+
+/** The order in which the probe's reads started (each sends its number). */
+const started: number[] = [];
+let readStudies: () => Promise<unknown> = () => Promise.reject(new Error('the app is not made yet'));
+
+// A read like the studies list: it waits for any lock a writer holds on the studies table.
+const probe = defineRoute<{ n: string }>({
+  method: 'get',
+  path: '/api/test-admission-probe/:n',
+  summary: 'Test only: reads the studies table',
+  tags: ['test'],
+  responses: { 200: { description: 'read' } },
+  access: 'public',
+  handler: async ({ req, res }) => {
+    started.push(Number(req.params.n));
+    await readStudies();
+    res.json({ n: Number(req.params.n) });
+  },
+});
+
+const testApp = await createTestApp({
+  routes: [...apiRoutes, probe],
+  readAdmission: { concurrency: 2, queue: 3 },
+});
+readStudies = () => testApp.sequelize.query('SELECT count(*) AS n FROM studies', { type: QueryTypes.SELECT });
+const admission = testApp.app.locals.services.readAdmission as ReadAdmission;
+const server = testApp.app.listen(0, '127.0.0.1');
+await new Promise((resolve) => server.once('listening', resolve));
+const port = (server.address() as AddressInfo).port;
+
+afterAll(async () => {
+  server.closeAllConnections();
+  await new Promise((resolve) => server.close(resolve));
+  await testApp.close();
+});
+
+type Answer = { status: number; headers: http.IncomingHttpHeaders; body: string };
+
+/** A GET on its own connection: the request (to cut it) and its answer. */
+function get(path: string) {
+  const request = http.get({ host: '127.0.0.1', port, path, agent: false });
+  const answer = new Promise<Answer>((resolve, reject) => {
+    request.on('error', reject);
+    request.on('response', (response) => {
+      let body = '';
+      response.setEncoding('utf8');
+      response.on('data', (chunk: string) => (body += chunk));
+      response.on('end', () => resolve({ status: response.statusCode!, headers: response.headers, body }));
+    });
+  });
+  return { request, answer };
+}
+
+/** Waits (bounded) until the condition holds; throws naming it otherwise. */
+async function until(what: string, condition: () => boolean) {
+  for (let tries = 0; tries < 500; tries++) {
+    if (condition()) return;
+    await sleep(20);
+  }
+  throw new Error(`still not so after 10 s: ${what}`);
+}
+
+describe('reads wait for a turn', () => {
+  it('when reads held in the database fill the limit, then later reads queue in order, a write and /api/health still answer, a queued read whose client left never runs, and a full queue answers 503', async () => {
+    const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+    const researcher = await apiClient(server);
+    await researcher.signIn(users.researcher);
+
+    // Another connection holds the studies table, as a long migration or a slow writer would.
+    const holder = new pg.Client({ connectionString: inject('databaseUrl') });
+    await holder.connect();
+    let released = false;
+    const release = async () => {
+      if (released) return;
+      released = true;
+      await holder.query('ROLLBACK');
+      await holder.end();
+    };
+    try {
+      await holder.query('BEGIN');
+      await holder.query('LOCK TABLE studies IN ACCESS EXCLUSIVE MODE');
+
+      const running = [get('/api/test-admission-probe/1'), get('/api/test-admission-probe/2')];
+      await until('two reads run, blocked in the database', () => started.length === 2 && admission.running === 2);
+
+      const queued = [];
+      for (const n of [3, 4]) {
+        queued.push(get(`/api/test-admission-probe/${n}`));
+        await until(`read ${n} waits`, () => admission.waiting === n - 2);
+      }
+      // This client gives up while waiting: its read must leave the queue without running.
+      const leaving = get('/api/test-admission-probe/5');
+      leaving.answer.catch(() => {});
+      await until('read 5 waits', () => admission.waiting === 3);
+      leaving.request.destroy();
+      await until('read 5 has left the queue', () => admission.waiting === 2);
+      queued.push(get('/api/test-admission-probe/6'));
+      await until('read 6 waits', () => admission.waiting === 3);
+
+      // The queue is full: the next read is refused at once, in the API's error shape.
+      const refused = await get('/api/test-admission-probe/7').answer;
+      expect(refused.status).toBe(503);
+      expect(Number(refused.headers['retry-after'])).toBeGreaterThan(0);
+      expect(JSON.parse(refused.body)).toEqual({
+        error: { code: 'server_busy', message: expect.stringContaining('Try again') },
+      });
+
+      // Neither a write that does not touch the held table nor the health check waits for a turn.
+      const write = await researcher.post(`/api/labs/${lab.id}/compounds`, {
+        name: 'Admission test quencher',
+        roleHint: 'quencher',
+      });
+      expect(write.status).toBe(201);
+      expect((await get('/api/health').answer).status).toBe(200);
+      expect(started).toEqual([1, 2]);
+      expect(admission.waiting).toBe(3);
+
+      await release();
+      const answers = await Promise.all([...running, ...queued].map((each) => each.answer));
+      expect(answers.map((answer) => answer.status)).toEqual([200, 200, 200, 200, 200]);
+      expect(answers.map((answer) => JSON.parse(answer.body).n)).toEqual([1, 2, 3, 4, 6]);
+      // Queued reads started in arrival order; the one whose client left never started.
+      expect(started).toEqual([1, 2, 3, 4, 6]);
+      // Each read gave its turn back exactly once.
+      await until('every turn is given back', () => admission.running === 0);
+      expect(admission.waiting).toBe(0);
+    } finally {
+      await release();
+    }
+  });
+
+  it('when reads end, then their turns are free again for the next reads', async () => {
+    const answers = await Promise.all([11, 12, 13, 14, 15].map((n) => get(`/api/test-admission-probe/${n}`).answer));
+    expect(answers.map((answer) => answer.status)).toEqual([200, 200, 200, 200, 200]);
+    await until('every turn is given back', () => admission.running === 0);
+    expect(admission.waiting).toBe(0);
+  });
+});
