@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { bandWidthFormSchema, bandWidthSchema } from './band-width';
 import { mechanismVerdictChangeSchema } from './mechanism-evidence';
 import { mechanismFileSchema, spectrumMatrixReadingSchema } from './spectrum-matrices';
 import { studyParamsSchema } from './studies';
@@ -21,16 +22,7 @@ const blankAsMissing = (value: unknown) => (value === '' || value === null ? und
 
 export const absorptionOptionsSchema = z
   .object({
-    bandWidth: z
-      .preprocess(
-        blankAsMissing,
-        z.coerce
-          .number({ error: 'must be a number of nanometres' })
-          .min(0, 'must be 0 (one band per wavelength) or more')
-          .max(MAX_ABSORPTION_BAND_WIDTH_NM, `must be at most ${MAX_ABSORPTION_BAND_WIDTH_NM} nm`)
-          .default(5),
-      )
-      .describe('nm; 0 gives one band per wavelength'),
+    bandWidth: bandWidthFormSchema(MAX_ABSORPTION_BAND_WIDTH_NM, 5),
     pathLength: z
       .preprocess(
         blankAsMissing,
@@ -81,11 +73,7 @@ export type AbsorptionSettings = z.infer<typeof absorptionSettingsSchema>;
 /** Analyse a kept titration again from its kept files with new settings (every field given). */
 export const absorptionReanalysisSchema = z
   .object({
-    bandWidth: z
-      .number({ error: 'must be a number of nanometres' })
-      .min(0, 'must be 0 (one band per wavelength) or more')
-      .max(MAX_ABSORPTION_BAND_WIDTH_NM, `must be at most ${MAX_ABSORPTION_BAND_WIDTH_NM} nm`)
-      .describe('nm; 0 gives one band per wavelength'),
+    bandWidth: bandWidthSchema(MAX_ABSORPTION_BAND_WIDTH_NM),
     pathLength: z
       .number({ error: 'must be a length in cm' })
       .positive('must be greater than 0 cm')

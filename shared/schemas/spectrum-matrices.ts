@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { bandWidthFormSchema, bandWidthSchema } from './band-width';
 import { decayFileSchema } from './decays';
 import { labParamsSchema } from './members';
 import { mechanismVerdictChangeSchema } from './mechanism-evidence';
@@ -17,17 +18,7 @@ export const MAX_BAND_WIDTH_NM = 100;
 
 export const spectrumMatrixOptionsSchema = z
   .object({
-    // A form field arrives as text: an empty one means "not given", never 0.
-    bandWidth: z
-      .preprocess(
-        (value) => (value === '' || value === null ? undefined : value),
-        z.coerce
-          .number({ error: 'must be a number of nanometres' })
-          .min(0, 'must be 0 (one band per wavelength) or more')
-          .max(MAX_BAND_WIDTH_NM, `must be at most ${MAX_BAND_WIDTH_NM} nm`)
-          .default(10),
-      )
-      .describe('nm; 0 gives one band per wavelength'),
+    bandWidth: bandWidthFormSchema(MAX_BAND_WIDTH_NM, 10),
   })
   .meta({ id: 'SpectrumMatrixOptions' });
 export type SpectrumMatrixOptions = z.output<typeof spectrumMatrixOptionsSchema>;
@@ -130,11 +121,7 @@ export type SpectrumMatrixList = z.infer<typeof spectrumMatrixListSchema>;
 /** Analyse a kept matrix again from its kept file at another band width. */
 export const spectrumMatrixReanalysisSchema = z
   .object({
-    bandWidth: z
-      .number({ error: 'must be a number of nanometres' })
-      .min(0, 'must be 0 (one band per wavelength) or more')
-      .max(MAX_BAND_WIDTH_NM, `must be at most ${MAX_BAND_WIDTH_NM} nm`)
-      .describe('nm; 0 gives one band per wavelength'),
+    bandWidth: bandWidthSchema(MAX_BAND_WIDTH_NM),
   })
   .meta({ id: 'SpectrumMatrixReanalysis' });
 export type SpectrumMatrixReanalysis = z.infer<typeof spectrumMatrixReanalysisSchema>;
