@@ -4,3 +4,6 @@
  * holds the two lists together). Every file picker for an instrument export offers this list.
  */
 export const INSTRUMENT_FILES = '.csv,.tsv,.txt,.dat,.asc,.xlsx,.jdx,.dx,.jcamp';
+
+/** The same list for people to read in a hint: ".csv .tsv … .jcamp". */
+export const INSTRUMENT_FILE_NAMES = INSTRUMENT_FILES.split(',').join(' ');

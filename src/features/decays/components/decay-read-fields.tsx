@@ -4,6 +4,7 @@ import type { DecayPreview, DecayTimeUnit } from '@shared/schemas/decays';
 import { Button } from '@/components/button';
 import { FileField } from '@/components/file-field';
 import { FormAlert } from '@/components/form-alert';
+import { INSTRUMENT_FILE_NAMES } from '@/components/instrument-files';
 import { SelectField } from '@/components/select-field';
 import { describeError } from '@/lib/form-errors';
 import { TIME_UNIT_OPTIONS } from './decay-file-choices';
@@ -22,6 +23,7 @@ export function DecayReadFields({
 }: {
   choices: DecayReadChoices;
   fileLabel: string;
+  /** what the decay file holds; the file types read are added after it */
   fileHint: string;
   reading: { isPending: boolean; error: Error | null };
 }) {
@@ -31,7 +33,7 @@ export function DecayReadFields({
       <div className="grid gap-3 sm:grid-cols-2">
         <FileField
           label={fileLabel}
-          hint={fileHint}
+          hint={`${fileHint} (${INSTRUMENT_FILE_NAMES}).`}
           fileName={file?.name}
           onFile={(chosen) => {
             setFile(chosen);

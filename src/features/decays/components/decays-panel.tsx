@@ -168,7 +168,7 @@ export function DecaysPanel({
           <DecayReadFields
             choices={choices}
             fileLabel="Decay file"
-            fileHint="Time in the first column, one counts column per decay (.csv .txt .dat .xlsx .jdx)."
+            fileHint="Time in the first column, one counts column per decay"
             reading={read}
           />
           {preview && (

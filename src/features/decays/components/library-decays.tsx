@@ -143,7 +143,7 @@ function DecayToLifetime({
       <DecayReadFields
         choices={choices}
         fileLabel="Decay file of the emitter"
-        fileHint="Time in the first column with its unit, one counts column, the response as a column named IRF (.csv .txt .dat .xlsx .jdx)."
+        fileHint="Time in the first column with its unit, one counts column, the response as a column named IRF"
         reading={read}
       />
       {preview && (
