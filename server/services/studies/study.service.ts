@@ -32,6 +32,16 @@ const settingsIssuesError = (issues: { path: string; message: string }[]) =>
     issues.map((issue) => ({ path: `body.${issue.path}`, message: issue.message })),
   );
 
+/** Input keys that are not the study's own columns: the compounds (resolveStudyCompounds) and the version edited. */
+const NOT_SETTINGS = ['emitterId', 'quencherId', 'newEmitterName', 'newQuencherName', 'version'] as const;
+
+/** A create or update input without its NOT_SETTINGS keys: what is written to the study as it is. */
+function ownSettings<T extends CreateStudyInput | UpdateStudyInput>(input: T): Omit<T, (typeof NOT_SETTINGS)[number]> {
+  const settings: Partial<T> = { ...input };
+  for (const key of NOT_SETTINGS) delete settings[key as keyof T];
+  return settings as Omit<T, (typeof NOT_SETTINGS)[number]>;
+}
+
 export async function createStudy(
   sequelize: Sequelize,
   lab: LabContext,
@@ -42,7 +52,7 @@ export async function createStudy(
     // The create schema requires an emitter and a quencher (by id or by a new name): both are found.
     const compounds = await resolveStudyCompounds(lab, input, actor, transaction);
     const emitterId = compounds.emitterId!;
-    const { emitterId: _e, quencherId: _q, newEmitterName: _ne, newQuencherName: _nq, ...settings } = input;
+    const settings = ownSettings(input);
     const tau0 = await resolveTau0(lab, settings, null, emitterId, transaction);
     const study = await Study.create(
       {
@@ -85,7 +95,7 @@ export async function updateStudy(
     const study = await loadStudy(lab, studyId, transaction);
     requireChangeable(study, lab, actor.userId, input.version);
     const before = { ...settingsOf(study), emitterId: study.emitterId, quencherId: study.quencherId };
-    const { version: _v, emitterId: _e, quencherId: _q, newEmitterName: _ne, newQuencherName: _nq, ...changes } = input;
+    const changes = ownSettings(input);
     const defined = Object.fromEntries(Object.entries(changes).filter(([, value]) => value !== undefined));
     const merged = { ...settingsOf(study), ...defined };
     const issues = studySettingsIssues(merged);
