@@ -18,7 +18,6 @@ import type { AnyRouteSpec, RouteAccess } from './http/define-route';
 import { logRedactPaths, redactUrl } from './http/log-redaction';
 import { buildOpenApiDocument } from './http/openapi';
 import { countDatabaseTime } from './db/database-time';
-import { markWriteRequests } from './db/request-kind';
 import { createJobQueue } from './jobs/job-queue';
 import type { JobQueue } from './jobs/job-queue';
 import { appVersion } from './lib/version';
@@ -94,7 +93,7 @@ export interface CreateAppOptions {
   uploadLimits?: Partial<UploadLimits>;
   /** Where raw upload files go; the default keeps them in the database. */
   files?: RawFileStore;
-  /** Session store connections: for read requests, and kept for requests that write (default 5 and 2). */
+  /** Session store connections: for session reads, and for session writes (default 5 and 2). */
   sessionPools?: { read: number; write: number };
   /** API reads of this process that run at once, and that may wait (default 8 and 500). */
   readAdmission?: Partial<ReadAdmissionSettings>;
@@ -213,8 +212,6 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   };
 
   const logDatabaseTime = logger.isLevelEnabled('debug');
-  // First, so every round trip of a request that writes takes the connections kept for writes.
-  app.use(markWriteRequests);
   app.use(requestLogging(logger, logDatabaseTime));
   if (logDatabaseTime) app.use(countDatabaseTime);
   app.use(securityHeaders(secure));

@@ -5,7 +5,6 @@ import pg from 'pg';
 import type { Logger } from 'pino';
 import { addDatabaseTime } from '../db/database-time';
 import { fixedStatement, type FixedStatement } from '../db/select-rows';
-import { inWriteRequest } from '../db/request-kind';
 import { labIdInUrl, rememberMembership, sessionWithMembershipSql } from './session-membership';
 import type { SessionWithMembershipRow } from './session-membership';
 
@@ -48,7 +47,7 @@ export function enforceSessionLifetime(absoluteMs = sessionAbsoluteMs): RequestH
   };
 }
 
-/** Session store connections per process: for read requests, and kept for requests that write. */
+/** Session store connections per process: for its SELECTs (session reads), and for its writes. */
 export const defaultSessionPools = { read: 5, write: 2 };
 
 /** How often a session in active use has its expiry moved (the idle timeout is 12 hours). */
@@ -176,16 +175,20 @@ export function createSessionMiddleware(options: {
     return pool;
   }) as [pg.Pool, pg.Pool];
   const timed = options.logger.isLevelEnabled('debug');
-  // The store only calls query(); a request that writes (server/db/request-kind.ts) gets its own
-  // small pool, so its session row is not read behind a queue of reads.
+  // The store only calls query(). Like Sequelize's pools (server/db/sequelize.ts), its SELECTs take
+  // one pool and its writes (a sign-in's insert, a slide, a sign-out) the other, so a write is
+  // never queued behind session reads; which request a statement serves is not known here.
   // The store's statements are a few fixed lookups and writes by sid: each runs prepared (see
   // fixedStatement), so PostgreSQL does not parse and plan the session read of every request.
-  const statements = new Map<string, FixedStatement>();
+  const statements = new Map<string, { statement: FixedStatement; pool: pg.Pool }>();
   const pool = {
     async query(text: string, values: unknown[] = []) {
-      const chosen = inWriteRequest() ? pools[1] : pools[0];
-      let statement = statements.get(text);
-      if (!statement) statements.set(text, (statement = fixedStatement(text)));
+      let known = statements.get(text);
+      if (!known) {
+        const pool = /^\s*SELECT\b/i.test(text) ? pools[0] : pools[1];
+        statements.set(text, (known = { statement: fixedStatement(text), pool }));
+      }
+      const { statement, pool: chosen } = known;
       if (!timed) return chosen.query({ ...statement, values });
       // The store's reads and writes count into the request's database time, like Sequelize's queries.
       const started = performance.now();

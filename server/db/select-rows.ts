@@ -43,8 +43,8 @@ export async function selectRows<T>(
   values: unknown[] = [],
 ): Promise<T[]> {
   const manager = sequelize.connectionManager;
-  // 'SELECT' as Sequelize's own queries pass it: the read pool, unless the request writes
-  // (createSequelize). Its typings say 'read', which the pool takes for a write.
+  // 'SELECT' as Sequelize's own queries pass it: the read pool (createSequelize). Its typings say
+  // 'read', which the pool takes for a write.
   const connection = (await manager.getConnection({ type: 'SELECT' as 'read' })) as PgConnection;
   const started = performance.now();
   try {

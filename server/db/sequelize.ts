@@ -1,12 +1,11 @@
 import { Sequelize } from 'sequelize';
 import pg from 'pg';
 import { addDatabaseTime } from './database-time';
-import { inWriteRequest } from './request-kind';
 
 // PostgreSQL bigint (int8) and numeric arrive as strings by default; counts we read are small.
 pg.types.setTypeParser(pg.types.builtins.INT8, (value) => Number(value));
 
-/** Connections per process: for the reads of GET requests, and kept for requests that write. */
+/** Connections per process: for plain SELECTs, and for transactions and changes. */
 export interface PoolSizes {
   read: number;
   write: number;
@@ -23,10 +22,13 @@ type Pools = {
 /**
  * `timeQueries`: count each query's time into the request it ran for (server/db/database-time.ts).
  *
- * Two pools on the same database (Sequelize's read/write replication with one server): SELECTs of
- * read requests take the read pool; transactions, changes and every statement of a request that
- * writes (server/db/request-kind.ts) take the smaller write pool, so writes never wait behind a
- * queue of reads.
+ * Two pools on the same database (Sequelize's read/write replication with one server), by
+ * Sequelize's own rule: a SELECT outside a transaction takes the read pool; a transaction (every
+ * statement in it) and any other statement take the smaller write pool, so a change never waits
+ * for a connection behind a queue of reads. Reads themselves are kept few by their turns
+ * (server/middleware/read-admission.ts), so a write's plain SELECTs find a read connection free.
+ * (Routing every statement of a writing request to the write pool took an AsyncLocalStorage, whose
+ * promise hooks slowed every later promise of the process: node CPU per read 2.6 -> 4-5 ms.)
  */
 export function createSequelize(
   databaseUrl: string,
@@ -58,9 +60,6 @@ export function createSequelize(
   made.destroy = (connection) => {
     if (connection.queryType) made[connection.queryType].destroy(connection);
   };
-  sequelize.addHook('beforePoolAcquire', (acquire: { useMaster?: boolean }) => {
-    if (inWriteRequest()) acquire.useMaster = true;
-  });
   return sequelize;
 }
 
