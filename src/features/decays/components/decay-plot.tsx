@@ -22,6 +22,16 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
   const start = curves.startChannel ?? 0;
   const residuals = (curves.weightedResiduals ?? []).map((value, i) => ({ x: timeNs[start + i]!, y: value }));
   const autocorrelation = (curves.autocorrelation ?? []).map((value, lag) => ({ x: lag, y: value }));
+  // The decay and its residual strip share one time axis, the file's first to last channel. Left to
+  // itself Chart.js rounds each axis out to its own tick step, and the narrower strip (or a saved
+  // figure) took a coarser step: data ending at 10,230 ns got an axis to 12,000 or 15,000 ns.
+  const timeAxis = {
+    type: 'linear' as const,
+    min: timeNs[0],
+    max: timeNs[timeNs.length - 1],
+    ticks: { includeBounds: false },
+    title: { display: true, text: 'time (ns)' },
+  };
   return (
     <figure aria-label={`Decay plot of ${curves.label}`} className="space-y-2">
       <div className="flex justify-end">
@@ -48,7 +58,7 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
             maintainAspectRatio: false,
             animation: false,
             scales: {
-              x: { type: 'linear', title: { display: true, text: 'time (ns)' } },
+              x: timeAxis,
               y: { type: 'logarithmic', min: 1, title: { display: true, text: 'counts per channel' } },
             },
           }}
@@ -83,7 +93,7 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
                   animation: false,
                   plugins: { legend: { display: false } },
                   scales: {
-                    x: { type: 'linear', title: { display: true, text: 'time (ns)' } },
+                    x: timeAxis,
                     y: { title: { display: true, text: '(c − m)/√m' } },
                   },
                 }}
@@ -101,7 +111,14 @@ export function DecayPlot({ curves, title }: { curves: DecayCurves; title: strin
                 animation: false,
                 plugins: { legend: { display: false } },
                 scales: {
-                  x: { type: 'linear', title: { display: true, text: 'lag (channels)' } },
+                  // likewise from the first lag to the last, not out to the next round number
+                  x: {
+                    type: 'linear',
+                    min: 0,
+                    max: Math.max(1, autocorrelation.length - 1),
+                    ticks: { includeBounds: false },
+                    title: { display: true, text: 'lag (channels)' },
+                  },
                   y: { min: -1, max: 1, title: { display: true, text: 'autocorrelation' } },
                 },
               }}
