@@ -151,15 +151,36 @@ async function explain(sequelize: ReturnType<typeof createSequelize>, lab: LabCo
   ];
   for (const [name, raw] of explained) {
     const statements: Array<{ sql: string; bind?: unknown[] }> = [];
-    // Sequelize 6 keeps its options at runtime (the typings leave them out): log the SQL the service
-    // sends with its bind values.
-    type Logging = false | ((sql: string, options?: { bind?: unknown[] }) => void);
-    const options = (sequelize as unknown as { options: { logging: Logging } }).options;
-    options.logging = (sql, queryOptions) =>
-      statements.push({ sql: sql.replace(/^Executing \([^)]*\): /, ''), bind: queryOptions?.bind });
-    await listStudies(lab, listStudiesQuerySchema.parse(raw));
-    options.logging = false;
-    const pageQuery = statements.find((statement) => !/count\(/i.test(statement.sql))!;
+    // The service sends its statements on pool connections through selectRows (server/db/select-rows.ts),
+    // past Sequelize's logging: look at what each connection handed out meanwhile is asked.
+    type Asked = string | { text: string; values?: unknown[] };
+    type Connection = { query: (asked: Asked, values?: unknown[]) => Promise<unknown> };
+    const manager = sequelize.connectionManager as unknown as { getConnection: (o: unknown) => Promise<Connection> };
+    const getConnection = manager.getConnection;
+    const watched = new Set<Connection>();
+    manager.getConnection = async (options) => {
+      const connection = await getConnection.call(manager, options);
+      if (!watched.has(connection)) {
+        watched.add(connection);
+        const query = connection.query;
+        // An own property over the prototype's method, deleted again below: the pool gets back the
+        // very connection it handed out.
+        connection.query = (asked, values) => {
+          statements.push(
+            typeof asked === 'string' ? { sql: asked, bind: values } : { sql: asked.text, bind: asked.values },
+          );
+          return query.call(connection, asked, values);
+        };
+      }
+      return connection;
+    };
+    try {
+      await listStudies(lab, listStudiesQuerySchema.parse(raw));
+    } finally {
+      manager.getConnection = getConnection;
+      for (const connection of watched) delete (connection as Partial<Connection>).query;
+    }
+    const pageQuery = statements.find((statement) => !/count\(|lab_study_counts/i.test(statement.sql))!;
     const [plan] = (await sequelize.query(`EXPLAIN ${pageQuery.sql}`, { bind: pageQuery.bind })) as [
       Array<{ 'QUERY PLAN': string }>,
       unknown,
