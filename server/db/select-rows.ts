@@ -30,6 +30,19 @@ export function fixedStatement(text: string): FixedStatement {
   return { name: `hl_${crypto.createHash('sha256').update(text).digest('hex').slice(0, 24)}`, text };
 }
 
+const statementsByText = new Map<string, FixedStatement>();
+
+/**
+ * The fixedStatement of a text built from a few fixed pieces (which filters a list has): one
+ * object per text, so its name is hashed once per process. Only for texts drawn from a small set;
+ * values always go in as binds.
+ */
+export function fixedStatementOf(text: string): FixedStatement {
+  let statement = statementsByText.get(text);
+  if (!statement) statementsByText.set(text, (statement = fixedStatement(text)));
+  return statement;
+}
+
 /**
  * Rows of one fixed SELECT with $1, $2, … bound, as plain objects, on a connection of Sequelize's
  * pool (so the pool's size and reconnects still hold). For the statements every read request

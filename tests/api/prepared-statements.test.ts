@@ -133,4 +133,42 @@ describe('statements every read asks', () => {
     // The totals of those three came from lab_study_counts, prepared as well.
     expect(after.filter((row) => row.statement.includes('FROM lab_study_counts'))).toHaveLength(3);
   });
+
+  it('when the compounds are listed again and again, with and without a search or a role, then each of those lists runs prepared and answers as before', async () => {
+    const { lab, users } = await createLabWithMembers(sequelize, { roles: ['researcher'] });
+    const researcher = await apiClient(testApp.app);
+    await researcher.signIn(users.researcher);
+    const base = `/api/labs/${lab.id}/compounds`;
+    for (const [name, roleHint] of [
+      ['HL-Ir-prep-1', 'photocatalyst'],
+      ['HL-Q-prep-1', 'quencher'],
+      ['HL-Q-prep-2', 'quencher'],
+      ['HL-Both-prep', 'both'],
+    ]) {
+      expect((await researcher.post(base, { name, roleHint })).status).toBe(201);
+    }
+    const names = (body: { items: Array<{ name: string }> }) => body.items.map((item) => item.name);
+    const asked: Array<[string, string[], number]> = [
+      ['', ['HL-Both-prep', 'HL-Ir-prep-1', 'HL-Q-prep-1', 'HL-Q-prep-2'], 4],
+      ['?roleHint=quencher', ['HL-Both-prep', 'HL-Q-prep-1', 'HL-Q-prep-2'], 3],
+      ['?search=q-prep', ['HL-Q-prep-1', 'HL-Q-prep-2'], 2],
+      ['?search=prep&roleHint=photocatalyst&pageSize=1&page=2', ['HL-Ir-prep-1'], 2],
+    ];
+    // Past the first five runs PostgreSQL may keep a generic plan: the answers must not change.
+    for (let i = 0; i < 7; i++) {
+      for (const [query, expected, total] of asked) {
+        const answer = await researcher.get(`${base}${query}`);
+        expect(answer.status).toBe(200);
+        expect(names(answer.body), query).toEqual(expected);
+        expect(answer.body.total, query).toBe(total);
+      }
+    }
+    const prepared = await selectRows<Prepared>(
+      sequelize,
+      'SELECT statement, generic_plans, custom_plans FROM pg_prepared_statements',
+    );
+    const lists = prepared.filter((row) => row.statement.includes('AS potentials'));
+    // Four texts (search or not, role or not), each run once per round: 7 runs each.
+    expect(lists.map((row) => Number(row.generic_plans) + Number(row.custom_plans))).toEqual([7, 7, 7, 7]);
+  });
 });

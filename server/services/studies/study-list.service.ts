@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { ListStudiesQuery, StudyList } from '@shared/schemas/studies';
 import type { LabContext } from '../../domain/lab-context';
-import { fixedStatement, selectRows, type FixedStatement } from '../../db/select-rows';
+import { fixedStatementOf, selectRows } from '../../db/select-rows';
 import { AppError } from '../../lib/app-error';
 import { Study } from '../../models';
 import { toSummary, type SummaryRow } from './study-serialize';
@@ -86,12 +86,6 @@ class Binds {
  * usual ones are not prepared either, so the texts kept per connection stay few.
  */
 const preparedPageSizes = new Set([10, 25, 50, 100]);
-const prepared = new Map<string, FixedStatement>();
-function preparedText(text: string): FixedStatement {
-  let statement = prepared.get(text);
-  if (!statement) prepared.set(text, (statement = fixedStatement(text)));
-  return statement;
-}
 
 function onePlanSuits(query: ListStudiesQuery, offset: number): boolean {
   if (query.q || offset > 0 || !preparedPageSizes.has(query.pageSize)) return false;
@@ -129,7 +123,7 @@ function countMatches(
   // A lookup by key: one plan suits every lab (eight texts at most).
   return selectRows<{ n: number }>(
     sequelize,
-    preparedText(`SELECT coalesce(sum(c.n), 0)::int AS n FROM lab_study_counts c WHERE ${kept.join(' AND ')}`),
+    fixedStatementOf(`SELECT coalesce(sum(c.n), 0)::int AS n FROM lab_study_counts c WHERE ${kept.join(' AND ')}`),
     binds.values,
   );
 }
@@ -210,7 +204,7 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
     ORDER BY ${order('p')}
     LIMIT ${limit}`;
   const [rows, [counted]] = await Promise.all([
-    selectRows<Row>(sequelize, onePlanSuits(query, offset) ? preparedText(pageSql) : pageSql, binds.values),
+    selectRows<Row>(sequelize, onePlanSuits(query, offset) ? fixedStatementOf(pageSql) : pageSql, binds.values),
     countMatches(lab, query, where, binds.values.slice(0, filterBinds)),
   ]);
   const more = rows.length > query.pageSize;
