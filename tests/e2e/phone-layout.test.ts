@@ -8,9 +8,10 @@ import type { Screen } from '../support/every-screen';
 import { startLiveServer } from '../support/live-server';
 
 /*
- * Close looks at the phone sizes that every-screen.test.ts only measures for overall width: the
- * comparison screen at 360 px (the narrowest common Android width), and every screen with charts
- * narrowed from 1440 to 390 px without a reload, with the demo data (server/seed/demo.ts).
+ * Close looks at the sizes that every-screen.test.ts only measures for overall width: the
+ * comparison screen at 360 px (the narrowest common Android width) and at 1440 px, and every
+ * screen with charts narrowed from 1440 to 390 px without a reload, with the demo data
+ * (server/seed/demo.ts).
  * Screenshots under test-output/e2e/phone-layout/.
  */
 let browser: Browser;
@@ -109,6 +110,38 @@ describe('the comparison screen at 360 px', () => {
       expect(fit.right, label).toBeLessThanOrEqual(360);
     }
     await choices.screenshot({ path: path.join(folder, 'compare-choices-360.png') });
+  }, 60_000);
+});
+
+describe('the comparison screen at 1440 px', () => {
+  it('when the window is a usual laptop width, then the whole table fits its card without scrolling, Review column included', async () => {
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await open('compare');
+    const card = page.getByRole('region', { name: /^Studies of / });
+    const table = card.getByRole('table');
+    await table.waitFor();
+    await card.screenshot({ path: path.join(folder, 'compare-1440.png') });
+    const facts = await table.evaluate((element) => {
+      const scroller = element.parentElement!;
+      const headings = [...element.querySelectorAll('thead th')];
+      const review = headings.find((th) => th.textContent === 'Review')!.getBoundingClientRect();
+      return {
+        overflow: scroller.scrollWidth - scroller.clientWidth,
+        reviewRight: review.right,
+        scrollerRight: scroller.getBoundingClientRect().right,
+        wrapped: [...element.querySelectorAll('tbody td')]
+          .filter((cell) => cell.querySelector('.min-w-56') === null)
+          .filter((cell) => {
+            const range = document.createRange();
+            range.selectNodeContents(cell);
+            return range.getBoundingClientRect().height / parseFloat(getComputedStyle(cell).lineHeight) >= 1.8;
+          })
+          .map((cell) => cell.textContent),
+      };
+    });
+    expect(facts.overflow, 'px of table past the card').toBeLessThanOrEqual(0);
+    expect(facts.reviewRight).toBeLessThanOrEqual(facts.scrollerRight);
+    expect(facts.wrapped).toEqual([]); // values stay on one line here too
   }, 60_000);
 });
 

@@ -12,7 +12,8 @@ import { TableScroll } from '@/components/table-scroll';
  * One row per study: the other compound, kq ± SE, K_SV, solvent, driving force, flags, mechanism
  * verdict and review state. Values and headings stay on one line (a number broken over four lines
  * at 360 px reads as four numbers) and the table scrolls inside its card instead; only the flags,
- * free text, wrap, at a readable width.
+ * free text, wrap, at a readable width: 14rem on a phone, 12rem from the xl breakpoint, where that
+ * lets the whole table (Review column included) fit a 1440 px window.
  */
 export function ComparisonTable({ comparison, labId }: { comparison: Comparison; labId: string }) {
   const partner = comparison.side === 'emitter' ? 'Quencher' : 'Emitter';
@@ -57,7 +58,9 @@ export function ComparisonTable({ comparison, labId }: { comparison: Comparison;
                   : 'missing'}
               </td>
               <td className="whitespace-normal py-1.5 pr-3 text-caption">
-                <div className="min-w-56">{row.flags.map((flag) => flag.title).join('; ') || '—'}</div>
+                <div className="min-w-56 text-pretty xl:min-w-48">
+                  {row.flags.map((flag) => flag.title).join('; ') || '—'}
+                </div>
               </td>
               <td className="pr-3">{MECHANISM_VERDICT_WORDS[row.mechanism]}</td>
               <td>
