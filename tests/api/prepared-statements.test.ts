@@ -171,4 +171,80 @@ describe('statements every read asks', () => {
     // Four texts (search or not, role or not), each run once per round: 7 runs each.
     expect(lists.map((row) => Number(row.generic_plans) + Number(row.custom_plans))).toEqual([7, 7, 7, 7]);
   });
+
+  it('when the list is filtered by emitter, quencher or solvent, then each count runs prepared and every round answers as a recount of the studies', async () => {
+    const { lab, users } = await createLabWithMembers(sequelize, { roles: ['researcher'] });
+    const researcher = await apiClient(testApp.app);
+    await researcher.signIn(users.researcher);
+    const tag = lab.id.slice(0, 6);
+    const first = await createStudy(researcher, lab.id, `filters-a-${tag}`);
+    const second = await createStudy(researcher, lab.id, `filters-b-${tag}`, { solventId: 'dichloromethane' });
+    const [e1, q1, e2, q2] = [first.emitter.id, first.quencher.id, second.emitter.id, second.quencher.id];
+    const reuse = (emitterId: string, quencherId: string, solventId: string) => ({
+      newEmitterName: undefined,
+      newQuencherName: undefined,
+      emitterId,
+      quencherId,
+      solventId,
+    });
+    await createStudy(researcher, lab.id, `filters-c-${tag}`, reuse(e1, q2, 'dichloromethane'));
+    await createStudy(researcher, lab.id, `filters-d-${tag}`, reuse(e2, q1, 'acetonitrile'));
+    await createStudy(researcher, lab.id, `filters-e-${tag}`, reuse(e1, q1, 'dichloromethane'));
+    const submitted = await createStudy(researcher, lab.id, `filters-f-${tag}`, reuse(e1, q1, 'acetonitrile'));
+    await selectRows(sequelize, "UPDATE studies SET status = 'submitted' WHERE id = $1", [submitted.id]);
+
+    const cases: Array<[string, string, unknown[]]> = [
+      [`emitterId=${e1}`, 'AND s.emitter_id = $2', [e1]],
+      [`quencherId=${q1}`, 'AND s.quencher_id = $2', [q1]],
+      ['solventId=dichloromethane', "AND s.solvent_id = 'dichloromethane'", []],
+      [`emitterId=${e1}&solventId=acetonitrile`, "AND s.emitter_id = $2 AND s.solvent_id = 'acetonitrile'", [e1]],
+      [
+        `emitterId=${e1}&quencherId=${q1}&solventId=dichloromethane`,
+        "AND s.emitter_id = $2 AND s.quencher_id = $3 AND s.solvent_id = 'dichloromethane'",
+        [e1, q1],
+      ],
+      [`emitterId=${e1}&status=submitted`, "AND s.emitter_id = $2 AND s.status = 'submitted'", [e1]],
+      [`quencherId=${q2}&sort=kq`, 'AND s.quencher_id = $2', [q2]],
+    ];
+    type Listed = { id: string; emitterName: string; quencherName: string; ownerName: string | null };
+    type Summary = { id: string; emitter: { name: string }; quencher: { name: string }; ownerName: string | null };
+    // Past the first five runs PostgreSQL may keep a generic plan: every round must still answer
+    // what the studies themselves say, names included.
+    for (let round = 0; round < 7; round++) {
+      for (const [query, condition, extra] of cases) {
+        const expected = await selectRows<Listed>(
+          sequelize,
+          `SELECT s.id, e.name AS "emitterName", q.name AS "quencherName", o.name AS "ownerName"
+             FROM studies s JOIN compounds e ON e.id = s.emitter_id JOIN compounds q ON q.id = s.quencher_id
+             LEFT JOIN users o ON o.id = s.owner_id
+            WHERE s.lab_id = $1 AND s.is_current ${condition}
+            ORDER BY ${query.includes('sort=kq') ? 's.kq DESC NULLS LAST' : 's.updated_at DESC'}, s.id`,
+          [lab.id, ...extra],
+        );
+        const answer = await researcher.get(`/api/labs/${lab.id}/studies?${query}`);
+        expect(answer.status, query).toBe(200);
+        expect(answer.body.total, query).toBe(expected.length);
+        expect(
+          answer.body.items.map((item: Summary) => ({
+            id: item.id,
+            emitterName: item.emitter.name,
+            quencherName: item.quencher.name,
+            ownerName: item.ownerName,
+          })),
+          query,
+        ).toEqual(expected);
+      }
+    }
+    const prepared = await selectRows<Prepared>(
+      sequelize,
+      'SELECT statement, generic_plans, custom_plans FROM pg_prepared_statements',
+    );
+    const counts = prepared.filter((row) =>
+      row.statement.includes('SELECT count(*)::int AS n FROM (SELECT 1 FROM studies'),
+    );
+    // One text per combination of filters (the kq-sorted quencher list shares the quencher one's): 7 + 7.
+    expect(counts.map((row) => Number(row.generic_plans) + Number(row.custom_plans)).sort((a, b) => a - b)).toEqual([
+      7, 7, 7, 7, 7, 14,
+    ]);
+  });
 });
