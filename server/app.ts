@@ -10,7 +10,7 @@ import type { Request, RequestHandler, Response } from 'express';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import type { Sequelize } from 'sequelize';
-import { createPassport } from './auth/passport';
+import { createPassport, sessionUser } from './auth/passport';
 import { createSessionMiddleware, enforceSessionLifetime } from './auth/session';
 import { projectRoot } from './config/env';
 import { toHandler } from './http/define-route';
@@ -228,7 +228,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     express.json({ limit: '1mb' }),
     cookieParser(),
     session.middleware,
-    passport.session(),
+    sessionUser(passport, app.request),
     enforceSessionLifetime(options.sessionAbsoluteMs),
   );
   app.use('/api', csrf.doubleCsrfProtection);

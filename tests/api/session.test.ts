@@ -124,6 +124,28 @@ describe('GET /api/session', () => {
     expect(foreign.body.csrfToken).not.toBe(`${'0'.repeat(64)}.${'1'.repeat(64)}`);
     expect(csrfCookie(foreign)).toContain(foreign.body.csrfToken);
   });
+  it('when signed in, then each request takes the person from the session row, without passport deserialising', async () => {
+    const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['viewer'] });
+    const client = await apiClient(testApp.app);
+    await client.signIn(users.viewer);
+    // A deserializer put first in passport's chain sees every request passport.session() would
+    // deserialise ('pass' hands the request on to the next one, as passport documents).
+    const { passport } = testApp.app.locals.services;
+    const chain = (passport as unknown as { _deserializers: unknown[] })._deserializers;
+    let deserialised = 0;
+    chain.unshift((_id: unknown, done: (error: unknown) => void) => {
+      deserialised += 1;
+      done('pass');
+    });
+    try {
+      const answer = await client.get('/api/session');
+      expect(answer.status).toBe(200);
+      expect(answer.body.user.email).toBe(users.viewer.email);
+      expect(deserialised).toBe(0);
+    } finally {
+      chain.shift();
+    }
+  });
 });
 
 describe('DELETE /api/session', () => {
