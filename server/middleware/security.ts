@@ -2,6 +2,7 @@ import type {} from 'express-session';
 import type { Request, RequestHandler, Response } from 'express';
 import { doubleCsrf } from 'csrf-csrf';
 import helmet from 'helmet';
+import type { HelmetOptions } from 'helmet';
 
 // Powerful browser features the app never uses are switched off for it and anything it embeds.
 const permissionsPolicy = [
@@ -21,12 +22,11 @@ const permissionsPolicy = [
 ].join(', ');
 
 /**
- * Helmet's headers plus a Permissions-Policy, with a content security policy the built client
- * passes: everything from our own origin, inline style attributes (set by the charting and React
- * code), no framing.
+ * Helmet's options: a content security policy the built client passes (everything from our own
+ * origin, inline style attributes set by the charting and React code, no framing), HSTS behind TLS.
  */
-export function securityHeaders(secure: boolean): RequestHandler {
-  const helmetHeaders = helmet({
+export function helmetOptions(secure: boolean): HelmetOptions {
+  return {
     contentSecurityPolicy: {
       useDefaults: true,
       directives: {
@@ -42,10 +42,48 @@ export function securityHeaders(secure: boolean): RequestHandler {
       },
     },
     strictTransportSecurity: secure,
+  };
+}
+
+/** What a middleware did to a response's headers, in order: set (name, value) or removed (name). */
+export type HeaderChange = [name: string, value: string | undefined];
+
+/**
+ * Runs helmet once, at start, on a response that only records, and gives back what it did. None
+ * of our options depends on the request (no nonce, no function directive), so every response gets
+ * the same headers; helmet's middleware is synchronous (helmet 8, index.js).
+ */
+export function helmetHeaderChanges(options: HelmetOptions): HeaderChange[] {
+  const changes: HeaderChange[] = [];
+  const recorder = {
+    setHeader: (name: string, value: unknown) => changes.push([name, String(value)]),
+    removeHeader: (name: string) => changes.push([name, undefined]),
+  };
+  let done = false;
+  helmet(options)({} as Request, recorder as unknown as Response, (error?: unknown) => {
+    if (error) throw error;
+    done = true;
   });
-  return (req, res, next) => {
-    res.setHeader('Permissions-Policy', permissionsPolicy);
-    helmetHeaders(req, res, next);
+  if (!done) throw new Error('helmet did not finish synchronously: its headers cannot be set once at start.');
+  return changes;
+}
+
+/**
+ * Helmet's headers plus a Permissions-Policy. Helmet runs its own chain of a dozen middlewares on
+ * each request; its headers are the same for every response, so they are worked out once and each
+ * request only sets them.
+ */
+export function securityHeaders(secure: boolean): RequestHandler {
+  const changes: HeaderChange[] = [
+    ['Permissions-Policy', permissionsPolicy],
+    ...helmetHeaderChanges(helmetOptions(secure)),
+  ];
+  return (_req, res, next) => {
+    for (const [name, value] of changes) {
+      if (value === undefined) res.removeHeader(name);
+      else res.setHeader(name, value);
+    }
+    next();
   };
 }
 
