@@ -14,6 +14,7 @@ import { createPassport, sessionUser } from './auth/passport';
 import { createSessionMiddleware, enforceSessionLifetime } from './auth/session';
 import { projectRoot } from './config/env';
 import { toHandler } from './http/define-route';
+import { inOrder } from './http/in-order';
 import type { AnyRouteSpec, RouteAccess } from './http/define-route';
 import { logRedactPaths, redactUrl } from './http/log-redaction';
 import { buildOpenApiDocument } from './http/openapi';
@@ -215,23 +216,27 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   app.use(requestLogging(logger, logDatabaseTime));
   if (logDatabaseTime) app.use(countDatabaseTime);
   app.use(securityHeaders(secure));
-  // Before the session: a read waiting for its turn holds no connection and has read nothing yet.
-  app.use('/api', readAdmission.middleware);
-  // API answers: gzip or brotli (fast settings) above 1 KB when the client accepts it. Each answer
-  // is private to the person and revalidated with its ETag (304 when unchanged), never stored by proxies.
-  app.use('/api', apiCompression, (_req, res, next) => {
-    res.setHeader('Cache-Control', 'private, no-cache');
-    next();
-  });
+  // Everything under /api passes through these, in this order (one router layer, see inOrder).
   app.use(
     '/api',
-    express.json({ limit: '1mb' }),
-    cookieParser(),
-    session.middleware,
-    sessionUser(passport, app.request),
-    enforceSessionLifetime(options.sessionAbsoluteMs),
+    inOrder([
+      // Before the session: a read waiting for its turn holds no connection and has read nothing yet.
+      readAdmission.middleware,
+      // API answers: gzip or brotli (fast settings) above 1 KB when the client accepts it. Each answer
+      // is private to the person and revalidated with its ETag (304 when unchanged), never stored by proxies.
+      apiCompression,
+      (_req, res, next) => {
+        res.setHeader('Cache-Control', 'private, no-cache');
+        next();
+      },
+      express.json({ limit: '1mb' }),
+      cookieParser(),
+      ...session.middleware,
+      sessionUser(passport, app.request),
+      enforceSessionLifetime(options.sessionAbsoluteMs),
+      csrf.doubleCsrfProtection,
+    ]),
   );
-  app.use('/api', csrf.doubleCsrfProtection);
 
   for (const route of routes) {
     const limiter = route.rateLimit ? [rateLimits.guards[route.rateLimit]] : [];
