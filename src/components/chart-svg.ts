@@ -125,8 +125,22 @@ export function chartAsSvg(chart: Chart, title: string, { widthCm }: { widthCm?:
     | {
         legendItems?: Array<{ text: string; fillStyle?: unknown; strokeStyle?: unknown }>;
         legendHitBoxes?: Array<{ left: number; top: number; height: number }>;
+        options?: { title?: { display?: boolean; text?: string | string[]; padding?: number | { top?: number } } };
+        left: number;
+        right: number;
+        top: number;
       }
     | undefined;
+  // A legend's title, where Chart.js puts a centred one over a legend at the top (its padding, then half a line).
+  const legendTitle = legend?.options?.title;
+  if (legend && legendTitle?.display && legendTitle.text) {
+    const text = escape(Array.isArray(legendTitle.text) ? legendTitle.text.join(' ') : legendTitle.text);
+    const padding = legendTitle.padding;
+    const y = legend.top + (typeof padding === 'number' ? padding : (padding?.top ?? 0)) + 6;
+    body.push(
+      `<text font-weight="bold" text-anchor="middle" dominant-baseline="middle" x="${num((legend.left + legend.right) / 2)}" y="${num(y)}">${text}</text>`,
+    );
+  }
   legend?.legendItems?.forEach((item, at) => {
     const box = legend.legendHitBoxes?.[at];
     if (!box) return;

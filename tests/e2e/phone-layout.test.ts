@@ -3,6 +3,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
+import { saveFigure } from '../support/figures';
 import { demoAdmin, signedInScreens } from '../support/every-screen';
 import type { Screen } from '../support/every-screen';
 import { startLiveServer } from '../support/live-server';
@@ -142,6 +143,57 @@ describe('the comparison screen at 1440 px', () => {
     expect(facts.overflow, 'px of table past the card').toBeLessThanOrEqual(0);
     expect(facts.reviewRight).toBeLessThanOrEqual(facts.scrollerRight);
     expect(facts.wrapped).toEqual([]); // values stay on one line here too
+  }, 60_000);
+});
+
+describe('the kq–driving-force plot on a phone', () => {
+  it('when four solvent-and-temperature trends are drawn, then the legend names each in a few rows and leaves the plot most of the figure', async () => {
+    await page.setViewportSize({ width: 390, height: 844 });
+    await open('compare');
+    const figure = page.getByRole('img', { name: /^Plot of log kq against the driving force/ });
+    await figure.waitFor();
+    await figure.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: path.join(folder, 'compare-trends-390.png') });
+    const trends = await page
+      .getByRole('region', { name: 'kq against driving force' })
+      .getByRole('listitem')
+      .allTextContents();
+    expect(trends.length).toBeGreaterThanOrEqual(4); // the demo's acetonitrile series at four temperatures
+    // The legend is drawn in the canvas; its layout is measured on the saved figure at one journal
+    // column (8.5 cm = 321 CSS px), about the chart's width on this phone.
+    const saved = await saveFigure(page, 'plot of log kq against driving force', { kind: 'svg', widthCm: 8.5 }, folder);
+    const layout = await page.evaluate(
+      (text) => {
+        const doc = new DOMParser().parseFromString(text, 'image/svg+xml');
+        // legend entries: text beside a marker, neither anchored (axis ticks) nor bold (axis titles)
+        const entries = [...doc.querySelectorAll('text[dominant-baseline="middle"]:not([text-anchor])')];
+        // the legend's title, centred over the entries (src/components/chart-svg.ts)
+        const title = doc.querySelector('text[font-weight="bold"][dominant-baseline="middle"]');
+        const rows = new Set([...entries, ...(title ? [title] : [])].map((entry) => entry.getAttribute('y')));
+        // the plot area: the x axis's grid lines run from its top to its bottom
+        const grid = [...doc.querySelectorAll('line')].find(
+          (line) => line.getAttribute('x1') === line.getAttribute('x2'),
+        )!;
+        return {
+          title: title?.textContent ?? null,
+          entries: entries.map((entry) => entry.textContent ?? ''),
+          rows: rows.size,
+          plotTop: Number(grid.getAttribute('y1')),
+          plotHeight: Number(grid.getAttribute('y2')) - Number(grid.getAttribute('y1')),
+        };
+      },
+      fs.readFileSync(saved.file, 'utf8'),
+    );
+    // Each trend is named: in full, or by the legend's title (its solvent) and an entry (its temperature).
+    for (const trend of trends) {
+      const label = trend.slice(0, trend.indexOf(':'));
+      const named = layout.entries.some((entry) => entry === label || `${layout.title} at ${entry}` === label);
+      expect(named, `${label} in ${layout.title} | ${layout.entries.join(' | ')}`).toBe(true);
+    }
+    // Before: one row per trend and kind of mark, 8 rows whose entries spanned 88 px over a plot
+    // 111 px high at this width.
+    expect(layout.rows, layout.entries.join(' | ')).toBeLessThanOrEqual(4);
+    expect(layout.plotTop, 'px above the plot (legend and padding)').toBeLessThan(layout.plotHeight / 2);
   }, 60_000);
 });
 

@@ -6,6 +6,7 @@ import { figureFileName } from '@/components/figure-file-name';
 import { SavableScatter } from '@/components/savable-scatter';
 import { linearAxis } from '@/components/scatter-chart';
 import { paths } from '@/lib/paths';
+import { trendLegend } from './trend-legend';
 
 // Halflight palette, one hue per solvent (tailwind.config.ts: glow, ink, moss, brick).
 const hues = chartColours.series;
@@ -17,11 +18,17 @@ const hues = chartColours.series;
  */
 export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId: string }) {
   const navigate = useNavigate();
+  // Trends of one solvent at several temperatures: the legend names the solvent once, each entry its temperature.
+  const [first, ...rest] = comparison.trends;
+  const solvent =
+    first && rest.length > 0 && rest.every((trend) => trend.solvent === first.solvent) ? first.solvent : null;
   const datasets = comparison.trends.flatMap((trend, index) => {
     const hue = hues[index % hues.length]!;
     const sets: object[] = [
       {
         type: 'scatter',
+        trend: index,
+        part: 'measured',
         label: `${trend.label}: measured`,
         data: trend.points.map((point) => ({ x: point.drivingForce, y: point.log10Kq, studyId: point.studyId })),
         backgroundColor: trend.points.map((point) => (point.approved ? hue : '#ffffff')),
@@ -32,6 +39,8 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
     if (trend.fit) {
       sets.push({
         type: 'line',
+        trend: index,
+        part: 'fit',
         label: `${trend.label}: fit, λ = ${formatEstimate(trend.fit.reorganisationEnergy, trend.fit.reorganisationEnergyStandardError, UNITS.electronvolt)}`,
         data: trend.fit.curve.map((point) => ({ x: point.drivingForce, y: point.log10Kq })),
         borderColor: hue,
@@ -45,6 +54,8 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
       const xs = trend.points.map((point) => point.drivingForce);
       sets.push({
         type: 'line',
+        trend: index,
+        part: 'limit',
         label: `${trend.label}: diffusion limit`,
         data: [
           { x: Math.min(...xs) - 0.3, y: Math.log10(trend.diffusionLimit) },
@@ -68,6 +79,15 @@ export function TrendPlot({ comparison, labId }: { comparison: Comparison; labId
       label="Plot of log kq against the driving force, one series per solvent; the values are in the table"
       data={{ datasets: datasets as never }}
       options={{
+        plugins: {
+          legend: trendLegend(
+            comparison.trends.map((trend, index) => ({
+              label: solvent ? trend.label.replace(`${solvent} at `, '') : trend.label,
+              colour: hues[index % hues.length]!,
+            })),
+            solvent ?? undefined,
+          ),
+        },
         scales: {
           x: linearAxis(`${symbolText(SYMBOLS.drivingForce)} (${UNITS.electronvolt})`),
           y: linearAxis(`log₁₀ kq (${UNITS.perMolarPerSecond})`),
