@@ -96,7 +96,7 @@ export interface CreateAppOptions {
   files?: RawFileStore;
   /** Session store connections: for session reads, and for session writes (default 5 and 2). */
   sessionPools?: { read: number; write: number };
-  /** API reads of this process that run at once, and that may wait (default 8 and 500). */
+  /** API reads of this process that run at once, and that may wait (default 4 and 500). */
   readAdmission?: Partial<ReadAdmissionSettings>;
 }
 

@@ -49,7 +49,7 @@ const envSchema = z.object({
   HALFLIGHT_DB_POOL_WRITE: z.coerce.number().int().min(1, 'must be 1 or more').max(100).default(3),
   HALFLIGHT_SESSION_POOL_READ: z.coerce.number().int().min(1, 'must be 1 or more').max(100).default(5),
   HALFLIGHT_SESSION_POOL_WRITE: z.coerce.number().int().min(1, 'must be 1 or more').max(100).default(2),
-  HALFLIGHT_READ_CONCURRENCY: z.coerce.number().int().min(1, 'must be 1 or more').max(1000).default(8),
+  HALFLIGHT_READ_CONCURRENCY: z.coerce.number().int().min(1, 'must be 1 or more').max(1000).default(4),
   HALFLIGHT_READ_QUEUE: z.coerce.number().int().min(0, 'must be 0 or more').max(100_000).default(500),
   HALFLIGHT_PUBLIC_URL: z
     .string()
