@@ -1,11 +1,13 @@
+import { ENGINE_VERSION } from '@shared/engine';
 import { decayReadOptionsSchema } from '@shared/schemas/decays';
 import { seededRandom } from '../lib/seeded-random';
-import { DecayFile, DecaySet } from '../models';
+import { DecayFile, DecaySet, ExcitedStateLifetime } from '../models';
 import { placeDecaySet } from '../services/decays/apply-decay-set.service';
+import { methodOf, notesWithBasis } from '../services/decays/decay-sets.service';
 import { fitDecaySet } from '../services/decays/fit-decay-set';
 import { readDecayTable } from '../services/decays/read-decay-table';
 import { DEFAULT_UPLOAD_LIMITS } from '../services/studies/parse/upload-limits';
-import { keepDemoFile, keptWithStudy, type DemoStudySeed } from './demo-files';
+import { keepDemoFile, keptWithStudy, type DemoLabSeed, type DemoStudySeed } from './demo-files';
 
 /*
  * The demo's decay set: an INVENTED time-resolved titration, so a new person sees decays,
@@ -46,7 +48,15 @@ const perChannel = (fine: number[]) =>
 
 /** The invented file: time (ns), the response, and one decay per concentration with [Q] in its header. */
 export function demoDecayFile(): Buffer {
-  const random = seededRandom(20261202);
+  return inventedDecayFile(
+    CONCENTRATIONS_MM.map((mM) => ({ header: `[Q] ${mM} mM`, lifetime: TAU0 / (1 + K_SV * mM * 1e-3) })),
+    20261202,
+  );
+}
+
+/** An invented TCSPC file: time (ns), the response as a column "IRF", and one decay per lifetime (s). */
+function inventedDecayFile(decays: ReadonlyArray<{ header: string; lifetime: number }>, seed: number): Buffer {
+  const random = seededRandom(seed);
   const sigma = RESPONSE_FWHM / (2 * Math.sqrt(2 * Math.LN2));
   const step = WIDTH / FINE;
   const pulse = Array.from({ length: CHANNELS * FINE }, (_, i) =>
@@ -56,8 +66,8 @@ export function demoDecayFile(): Buffer {
   const responseTop = Math.max(...response);
   const columns = [
     response.map((value) => noisy((5000 * value) / responseTop, random)),
-    ...CONCENTRATIONS_MM.map((mM) => {
-      const decay = Math.exp(-step / (TAU0 / (1 + K_SV * mM * 1e-3)));
+    ...decays.map(({ lifetime }) => {
+      const decay = Math.exp(-step / lifetime);
       // The pulse convolved with the exponential on the fine grid (recursive form), then per channel.
       const fine: number[] = [];
       pulse.forEach((value, i) => fine.push(value + (i > 0 ? fine[i - 1]! * decay : 0)));
@@ -66,7 +76,7 @@ export function demoDecayFile(): Buffer {
       return ideal.map((value) => noisy((PEAK * value) / top + BACKGROUND, random));
     }),
   ];
-  const headers = ['time (ns)', 'IRF', ...CONCENTRATIONS_MM.map((mM) => `[Q] ${mM} mM`)];
+  const headers = ['time (ns)', 'IRF', ...decays.map(({ header }) => header)];
   const rows = Array.from({ length: CHANNELS }, (_, i) =>
     [(i * WIDTH * 1e9).toFixed(1), ...columns.map((column) => column[i]!)].join(','),
   );
@@ -110,4 +120,83 @@ export async function seedDemoDecays(seed: DemoStudySeed): Promise<void> {
     decays: reading.outcomes.length,
   });
   await placeDecaySet(study, set, actor, transaction);
+}
+
+/*
+ * The demo's library decay: one INVENTED decay of the emitter HL-Ru-4 (tau = 0.93 us, made up,
+ * near its invented library lifetime), made like the titration above, kept on the compound's page
+ * as a lifetime record "from decay", as keeping one decay on a compound page does.
+ */
+export const demoLibraryDecayFileName = 'demo-hl-ru-4-decay.csv';
+export const demoLibraryDecayLifetime = 9.3e-7; // s, invented
+
+/** The invented file of the library decay: the response and one decay. */
+export const demoLibraryDecayFile = () =>
+  inventedDecayFile([{ header: 'HL-Ru-4 in MeCN under argon', lifetime: demoLibraryDecayLifetime }], 20261203);
+
+/** Keeps the invented decay with the compound and adds the lifetime record it gives. */
+export async function seedDemoLibraryDecay(seed: DemoLabSeed, compoundId: string): Promise<void> {
+  const { transaction, lab, owner, clock } = seed;
+  const actor = { userId: owner.id, ip: null };
+  const bytes = demoLibraryDecayFile();
+  const options = decayReadOptionsSchema.parse({});
+  const reading = fitDecaySet(
+    await readDecayTable(demoLibraryDecayFileName, bytes, DEFAULT_UPLOAD_LIMITS),
+    null,
+    options,
+  );
+  const lifetime = reading.outcomes.length === 1 ? reading.outcomes[0]!.lifetime : null;
+  if (reading.questions.length > 0 || !lifetime)
+    throw new Error(`The demo library decay does not fit: ${reading.questions[0] ?? reading.outcomes[0]?.problem}`);
+  const file = await keepDemoFile(DecayFile, seed, demoLibraryDecayFileName, bytes);
+  const set = await DecaySet.create(
+    {
+      labId: lab.id,
+      studyId: null,
+      compoundId,
+      lifetimeId: null,
+      title: demoLibraryDecayFileName,
+      fileId: file.id,
+      responseFileId: null,
+      reading: reading.summary,
+      options: { ...options, model: reading.model, show: 0 },
+      outcomes: reading.outcomes,
+      engineVersion: ENGINE_VERSION,
+      createdById: owner.id,
+    },
+    { transaction },
+  );
+  const record = await ExcitedStateLifetime.create(
+    {
+      labId: lab.id,
+      compoundId,
+      value: lifetime.value,
+      uncertainty: lifetime.standardError,
+      solvent: 'acetonitrile',
+      atmosphere: 'argon',
+      temperature: 298.15,
+      method: methodOf(reading.model),
+      source: `from decay ${demoLibraryDecayFileName}`,
+      notes: notesWithBasis('Demo record: an invented decay file, not a measurement.', lifetime.basis),
+      createdById: owner.id,
+    },
+    { transaction },
+  );
+  await set.update({ lifetimeId: record.id }, { transaction });
+  clock.record(
+    actor,
+    'decay_set_kept',
+    lab.id,
+    compoundId,
+    { decaySetId: set.id, files: [file], decays: 1 },
+    'compound',
+  );
+  clock.record(
+    actor,
+    'lifetime_added',
+    lab.id,
+    record.id,
+    { decaySetId: set.id, value: record.value, uncertainty: record.uncertainty, source: record.source },
+    'lifetime',
+  );
 }

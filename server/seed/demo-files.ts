@@ -13,6 +13,9 @@ export interface DemoStudySeed {
   clock: DemoClock;
 }
 
+/** Where a record the demo keeps with no study goes (a library decay): the lab, who keeps it, the clock. */
+export type DemoLabSeed = Omit<DemoStudySeed, 'study'>;
+
 /** What the demo's audit events say of a kept file (as the services' own events do). */
 export interface DemoKeptFile {
   id: string;
@@ -23,11 +26,11 @@ export interface DemoKeptFile {
 
 /**
  * Keeps one invented CSV of the demo in the database file store, in the given table (decay files
- * or mechanism files), uploaded by the study's owner; answers what the audit event names.
+ * or mechanism files), uploaded by the seed's owner; answers what the audit event names.
  */
 export async function keepDemoFile(
   table: typeof DecayFile | typeof MechanismFile,
-  { transaction, lab, owner }: DemoStudySeed,
+  { transaction, lab, owner }: DemoLabSeed,
   fileName: string,
   bytes: Buffer,
 ): Promise<DemoKeptFile> {

@@ -5,7 +5,7 @@ import { Study, StudyPoint, StudyReview, type Lab, type User } from '../models';
 import { refitStudy } from '../services/studies/study-fitting.service';
 import type { DemoClock } from './demo-clock';
 import { seedDemoAbsorption } from './demo-absorption';
-import { demoDecayConcentrations, seedDemoDecays } from './demo-decays';
+import { demoDecayConcentrations, seedDemoDecays, seedDemoLibraryDecay } from './demo-decays';
 import { seedDemoExciplex } from './demo-exciplex';
 import type { DemoLibrary } from './demo-library';
 
@@ -446,4 +446,5 @@ export async function seedDemoStudies(
   await seedDemoDecays(withStudy('ir-alkene-decays'));
   await seedDemoAbsorption(withStudy('cz-alkene'));
   await seedDemoExciplex(withStudy('ir-amine-dilution'));
+  await seedDemoLibraryDecay({ transaction, lab, owner: people.priya, clock }, library.compounds['HL-Ru-4']!);
 }

@@ -1,10 +1,20 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QUALITY_FLAG_CODES, type QualityFlagCode } from '@shared/engine';
-import { AuditEvent, Compound, DecaySet, Lab, SpectrumMatrix, Study, StudyFit, StudyPoint } from '../../server/models';
+import {
+  AuditEvent,
+  Compound,
+  DecaySet,
+  ExcitedStateLifetime,
+  Lab,
+  SpectrumMatrix,
+  Study,
+  StudyFit,
+  StudyPoint,
+} from '../../server/models';
 import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
 import { demoCompoundFamilies } from '../../server/seed/demo-library';
 import { demoAbsorptionFileName } from '../../server/seed/demo-absorption';
-import { demoDecayFileName } from '../../server/seed/demo-decays';
+import { demoDecayFileName, demoLibraryDecayFileName, demoLibraryDecayLifetime } from '../../server/seed/demo-decays';
 import { demoExciplexFileName } from '../../server/seed/demo-exciplex';
 import { demoStudies } from '../../server/seed/demo-studies';
 import { analyseSeries, listTemperatureSeries } from '../../server/services/mechanism/temperature-series.service';
@@ -136,6 +146,33 @@ describe('seedDemoStudies', () => {
     const curves = (await client.get(`/api/labs/${study.labId}/decay-sets/${set.id}/decays/2/curves`).expect(200)).body;
     expect(curves.counts).toHaveLength(1024);
     expect(curves.model).toHaveLength(1024);
+  });
+
+  it('when the demo is loaded, then the compound HL-Ru-4 has a lifetime record kept from one invented decay file, listed on its page', async () => {
+    const lab = await Lab.findOne({ where: { slug: demoLabs[0].slug } });
+    const compound = await Compound.findOne({ where: { labId: lab!.id, name: 'HL-Ru-4' } });
+    const sets = await DecaySet.findAll({ where: { compoundId: compound!.id } });
+    expect(sets.map((set) => set.title)).toEqual([demoLibraryDecayFileName]);
+    const set = sets[0]!;
+    expect(set.studyId).toBeNull();
+    expect(set.reading.responseSource).toBe('column');
+    expect(set.outcomes).toHaveLength(1);
+    const record = await ExcitedStateLifetime.findByPk(set.lifetimeId!);
+    expect(record!.compoundId).toBe(compound!.id);
+    expect(record!.source).toBe(`from decay ${demoLibraryDecayFileName}`);
+    expect(record!.notes).toMatch(/^Demo record: an invented decay file/);
+    // Demo data, not a check of the engine: the file is made with tau = 0.93 us (demo-decays.ts,
+    // invented); its fit must land near it, else the compound page would show something odd.
+    expect(Math.abs(record!.value / demoLibraryDecayLifetime - 1)).toBeLessThan(0.02);
+    expect(await AuditEvent.count({ where: { targetId: record!.id, action: 'lifetime_added' } })).toBe(1);
+
+    const priya = demoPeople.find((person) => person.key === 'priya')!;
+    const client = await apiClient(testApp.app);
+    await client.signIn({ email: priya.email, password: demoPassword });
+    const listed = (await client.get(`/api/labs/${lab!.id}/compounds/${compound!.id}/decay-sets`).expect(200)).body;
+    expect(listed.items.map((item: { id: string }) => item.id)).toEqual([set.id]);
+    const detail = (await client.get(`/api/labs/${lab!.id}/compounds/${compound!.id}`).expect(200)).body;
+    expect(detail.lifetimes.map((lifetime: { id: string }) => lifetime.id)).toContain(record!.id);
   });
 
   it('when the demo is loaded, then it holds one dynamic and one static temperature series', async () => {
