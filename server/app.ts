@@ -3,7 +3,6 @@ import type { ServerResponse } from 'node:http';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import compression from 'compression';
-import cookieParser from 'cookie-parser';
 import express from 'express';
 import expressStaticGzip from 'express-static-gzip';
 import type { Request, RequestHandler, Response } from 'express';
@@ -15,6 +14,7 @@ import { createSessionMiddleware, enforceSessionLifetime } from './auth/session'
 import { projectRoot } from './config/env';
 import { toHandler } from './http/define-route';
 import { inOrder } from './http/in-order';
+import { parseCookiesWhenRead } from './http/lazy-cookies';
 import type { AnyRouteSpec, RouteAccess } from './http/define-route';
 import { logRedactPaths, redactUrl } from './http/log-redaction';
 import { buildOpenApiDocument } from './http/openapi';
@@ -216,6 +216,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   app.use(requestLogging(logger, logDatabaseTime));
   if (logDatabaseTime) app.use(countDatabaseTime);
   app.use(securityHeaders(secure));
+  parseCookiesWhenRead(app.request);
   // Everything under /api passes through these, in this order (one router layer, see inOrder).
   app.use(
     '/api',
@@ -230,7 +231,6 @@ export function createApp(options: CreateAppOptions): HalflightApp {
         next();
       },
       express.json({ limit: '1mb' }),
-      cookieParser(),
       ...session.middleware,
       sessionUser(passport, app.request),
       enforceSessionLifetime(options.sessionAbsoluteMs),
