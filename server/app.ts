@@ -15,6 +15,7 @@ import { projectRoot } from './config/env';
 import { toHandler } from './http/define-route';
 import { inOrder } from './http/in-order';
 import { parseCookiesWhenRead } from './http/lazy-cookies';
+import { weakEtag } from './http/weak-etag';
 import type { AnyRouteSpec, RouteAccess } from './http/define-route';
 import { logRedactPaths, redactUrl } from './http/log-redaction';
 import { buildOpenApiDocument } from './http/openapi';
@@ -165,6 +166,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   const app = express() as HalflightApp;
   app.disable('x-powered-by');
   app.set('trust proxy', options.trustProxy ?? false);
+  app.set('etag', weakEtag);
 
   const session = createSessionMiddleware({
     databaseUrl: options.databaseUrl,
