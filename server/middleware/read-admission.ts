@@ -36,7 +36,7 @@ export interface ReadAdmission {
  * used to start at once: a hundred of them queued in the event loop and the database pools, and a
  * request that writes (6-10 round trips one after the other) waited behind that queue at each
  * step. Here at most `concurrency` GET/HEAD requests run; later ones wait in arrival order and
- * start as earlier ones end (their response finishes or its connection closes, counted once).
+ * start as earlier ones end (their answer's headers go out or the connection closes, counted once).
  * Requests that change something and /api/health never wait, so they meet short queues only.
  * A waiting read whose client has gone away leaves the queue without running; past `queue`
  * waiting reads, a read is refused at once (503, Retry-After) instead of waiting for minutes.
@@ -64,8 +64,16 @@ export function createReadAdmission(settings: ReadAdmissionSettings): ReadAdmiss
       running -= 1;
       admitWaiting();
     };
-    // 'finish' when the answer is handed to the socket, 'close' when the connection ends first
-    // (and, on current Node, after 'finish' too): whichever comes first frees the turn, once.
+    // The turn is given back when the answer's headers go out: by then a read has done its
+    // database and CPU work, and a download to a slow client must not hold a turn while its bytes
+    // trickle out (a few such clients would stop every other read of the process). Node writes
+    // headers through writeHead, also when res.end or res.write sends them implicitly.
+    // 'close' covers a connection that ends before any header is sent; 'finish' is a safety net.
+    const writeHead = res.writeHead;
+    res.writeHead = function (this: Response, ...args: unknown[]) {
+      end();
+      return (writeHead as (...all: unknown[]) => Response).apply(this, args);
+    } as Response['writeHead'];
     res.once('finish', end);
     res.once('close', end);
     next();

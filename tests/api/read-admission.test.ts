@@ -29,8 +29,27 @@ const probe = defineRoute<{ n: string }>({
   },
 });
 
+/** Streams of the slow-download probe still open, each ended by calling it. */
+const openStreams: Array<() => void> = [];
+
+// A read like a download to a slow client: its headers and a first part go out, the rest later.
+const slowDownload = defineRoute<{ n: string }>({
+  method: 'get',
+  path: '/api/test-admission-slow/:n',
+  summary: 'Test only: sends its headers, then holds its body open',
+  tags: ['test'],
+  responses: { 200: { description: 'streamed' } },
+  access: 'public',
+  handler: async ({ res }) => {
+    res.writeHead(200, { 'Content-Type': 'application/octet-stream' });
+    res.write('first part');
+    await new Promise<void>((resolve) => openStreams.push(resolve));
+    res.end();
+  },
+});
+
 const testApp = await createTestApp({
-  routes: [...apiRoutes, probe],
+  routes: [...apiRoutes, probe, slowDownload],
   readAdmission: { concurrency: 2, queue: 3 },
 });
 readStudies = () => testApp.sequelize.query('SELECT count(*) AS n FROM studies', { type: QueryTypes.SELECT });
@@ -145,5 +164,24 @@ describe('reads wait for a turn', () => {
     expect(answers.map((answer) => answer.status)).toEqual([200, 200, 200, 200, 200]);
     await until('every turn is given back', () => admission.running === 0);
     expect(admission.waiting).toBe(0);
+  });
+
+  it('when reads have sent their headers and stream their bodies to slow clients, then their turns are free for the next reads', async () => {
+    // Two downloads (the whole limit) that have begun their answers and wait to send the rest.
+    const slow = [get('/api/test-admission-slow/1'), get('/api/test-admission-slow/2')];
+    const heads = slow.map((each) => new Promise<void>((resolve) => each.request.on('response', () => resolve())));
+    await Promise.all(heads);
+    await until('both downloads hold their bodies open', () => openStreams.length === 2);
+    // Their database and CPU work is done: they hold no turn while the bytes trickle out.
+    expect(admission.running).toBe(0);
+    const next = await get('/api/test-admission-probe/21').answer;
+    expect(next.status).toBe(200);
+    openStreams.splice(0).forEach((end) => end());
+    const answers = await Promise.all(slow.map((each) => each.answer));
+    expect(answers.map((answer) => [answer.status, answer.body])).toEqual([
+      [200, 'first part'],
+      [200, 'first part'],
+    ]);
+    await until('every turn is given back', () => admission.running === 0);
   });
 });
