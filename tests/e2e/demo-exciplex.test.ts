@@ -1,31 +1,22 @@
-import fs from 'node:fs';
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Lab } from '../../server/models';
-import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
 import { demoExciplexFileName } from '../../server/seed/demo-exciplex';
-import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
-import { startLiveServer } from '../support/live-server';
+import { screenshotDir } from '../support/browser';
+import { openDemoAsResearcher, type DemoInBrowser } from '../support/demo-browser';
 
-let browser: Browser;
-let server: Awaited<ReturnType<typeof startLiveServer>>;
+let opened: DemoInBrowser;
+let server: DemoInBrowser['server'];
 let page: Page;
 let labId = '';
 
 beforeAll(async () => {
-  server = await startLiveServer();
-  await seedDemoData(server.sequelize);
-  labId = (await Lab.findOne({ where: { slug: demoLabs[0].slug } }))!.id;
-  browser = await launchBrowser();
-  page = await browser.newPage({ viewport: { width: 1360, height: 900 } });
-  fs.mkdirSync(screenshotDir, { recursive: true });
-  await signInThroughPage(page, server.baseUrl, { email: demoPeople[0]!.email, password: demoPassword });
+  opened = await openDemoAsResearcher({ width: 1360, height: 900 });
+  ({ server, page, labId } = opened);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  await opened?.close();
 });
 
 describe('the demo exciplex, in Chromium', () => {

@@ -1,32 +1,23 @@
-import fs from 'node:fs';
 import path from 'node:path';
 import { AxeBuilder } from '@axe-core/playwright';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Lab } from '../../server/models';
-import { demoLabs, demoPassword, demoPeople, seedDemoData } from '../../server/seed/demo';
-import { launchBrowser, screenshotDir, signInThroughPage } from '../support/browser';
-import { startLiveServer } from '../support/live-server';
+import { screenshotDir } from '../support/browser';
+import { openDemoAsResearcher, type DemoInBrowser } from '../support/demo-browser';
 
-let browser: Browser;
-let server: Awaited<ReturnType<typeof startLiveServer>>;
+let opened: DemoInBrowser;
+let server: DemoInBrowser['server'];
 let page: Page;
 let labId = '';
 const shot = (name: string) => page.screenshot({ path: path.join(screenshotDir, name), fullPage: true });
 
 beforeAll(async () => {
-  server = await startLiveServer();
-  await seedDemoData(server.sequelize);
-  labId = (await Lab.findOne({ where: { slug: demoLabs[0].slug } }))!.id;
-  browser = await launchBrowser();
-  page = await browser.newPage({ viewport: { width: 1360, height: 900 } });
-  fs.mkdirSync(screenshotDir, { recursive: true });
-  await signInThroughPage(page, server.baseUrl, { email: demoPeople[0]!.email, password: demoPassword });
+  opened = await openDemoAsResearcher({ width: 1360, height: 900 });
+  ({ server, page, labId } = opened);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  await opened?.close();
 });
 
 describe('mechanism evidence, in Chromium', () => {
@@ -69,7 +60,7 @@ describe('mechanism evidence, in Chromium', () => {
     await panel.screenshot({ path: path.join(screenshotDir, 'mechanism-panel-wide.png') });
     // A phone opens the screen afresh (the every-screen test's way): nothing wider than 390 px, and axe
     // (in a context of its own, as it needs) finds nothing serious in the panel.
-    const phoneContext = await browser.newContext({
+    const phoneContext = await opened.browser.newContext({
       storageState: await page.context().storageState(),
       viewport: { width: 390, height: 844 },
     });
