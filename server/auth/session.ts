@@ -4,7 +4,7 @@ import session from 'express-session';
 import pg from 'pg';
 import type { Logger } from 'pino';
 import { addDatabaseTime } from '../db/database-time';
-import { fixedStatement, type FixedStatement } from '../db/select-rows';
+import { fixedStatementOf } from '../db/select-rows';
 import { labIdInUrl, rememberMembership, sessionWithMembershipSql } from './session-membership';
 import type { SessionWithMembershipRow } from './session-membership';
 
@@ -179,16 +179,11 @@ export function createSessionMiddleware(options: {
   // one pool and its writes (a sign-in's insert, a slide, a sign-out) the other, so a write is
   // never queued behind session reads; which request a statement serves is not known here.
   // The store's statements are a few fixed lookups and writes by sid: each runs prepared (see
-  // fixedStatement), so PostgreSQL does not parse and plan the session read of every request.
-  const statements = new Map<string, { statement: FixedStatement; pool: pg.Pool }>();
+  // fixedStatementOf), so PostgreSQL does not parse and plan the session read of every request.
   const pool = {
     async query(text: string, values: unknown[] = []) {
-      let known = statements.get(text);
-      if (!known) {
-        const pool = /^\s*SELECT\b/i.test(text) ? pools[0] : pools[1];
-        statements.set(text, (known = { statement: fixedStatement(text), pool }));
-      }
-      const { statement, pool: chosen } = known;
+      const statement = fixedStatementOf(text);
+      const chosen = /^\s*SELECT\b/i.test(text) ? pools[0] : pools[1];
       if (!timed) return chosen.query({ ...statement, values });
       // The store's reads and writes count into the request's database time, like Sequelize's queries.
       const started = performance.now();
