@@ -141,6 +141,29 @@ describe('GET /api/labs/:labId/studies with a cursor', () => {
     expect(first.previousCursor).toBeNull();
   });
 
+  it('when numbered pages are asked in each sort, direction and filter, then each is its slice of the whole list in order', async () => {
+    for (const query of [
+      'sort=updated&direction=desc',
+      'sort=updated&direction=asc',
+      'sort=kq&direction=desc',
+      'sort=kq&direction=asc',
+      'sort=k_sv&direction=asc',
+      'status=draft&sort=kq',
+      'q=copy%201&sort=updated',
+    ]) {
+      const all = await list(`${query}&pageSize=100`);
+      const pages: Summary[][] = [];
+      for (let page = 1; page <= Math.ceil(all.total / 4) + 1; page++) {
+        const answer = await list(`${query}&pageSize=4&page=${page}`);
+        expect(answer.total, query).toBe(all.total);
+        pages.push(answer.items);
+      }
+      // Past the last page, an empty one.
+      expect(pages.at(-1), query).toEqual([]);
+      expect(ids(pages.flat()), query).toEqual(ids(all.items));
+    }
+  });
+
   it('when the cursor is not one the list gave out, then 400 names query.cursor', async () => {
     for (const cursor of ['not-a-cursor', Buffer.from('{"s":"updated"}').toString('base64url')]) {
       const response = await viewer.get(`/api/labs/${labId}/studies?cursor=${cursor}`);
