@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { solventDiffusionLimit } from '@shared/engine';
 import { pointAt } from '@shared/schemas/study-points';
 import { apiClient, createLabWithMembers, signedInResearcher, type ApiClient } from '../support/accounts';
-import { createStudyRecord } from '../support/study-records';
+import { createCompound, createStudyRecord } from '../support/study-records';
 import { createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
@@ -156,6 +156,46 @@ describe('GET /api/labs/:labId/studies/:studyId/mechanism', () => {
     expect(response.body.verdict).toBe('unclear');
     expect(response.body.reasons.some((reason: string) => reason.startsWith('But '))).toBe(true);
     expect(response.body.missing.map((piece: { kind: string }) => piece.kind)).not.toContain('absorption');
+  });
+
+  it('when a pair has more than 40 studies, then each series is its 40 coolest current ones (and the study itself) as the studies say', async () => {
+    const tag = crypto.randomBytes(3).toString('hex');
+    const emitter = await createCompound(labId, `HL-Ir-series-${tag}`, 'photocatalyst');
+    const quencher = await createCompound(labId, `HL-Q-series-${tag}`, 'quencher');
+    // 46 studies at 9 temperatures, so many share one and id decides their order (invented values).
+    const made = [];
+    for (let i = 0; i < 46; i++)
+      made.push(
+        await createStudyRecord({
+          labId,
+          emitterId: emitter.id,
+          quencherId: quencher.id,
+          title: `series member ${i}`,
+          kSv: 100 + i,
+          temperature: 280 + (i % 9) * 5,
+        }),
+      );
+    // One of the coolest is an older revision now: out of the others' series, still in its own.
+    const replaced = made[9]!;
+    await testApp.sequelize.query('UPDATE studies SET is_current = false WHERE id = $1', { bind: [replaced.id] });
+    const [pairRows] = (await testApp.sequelize.query(
+      'SELECT id, is_current AS "isCurrent" FROM studies WHERE lab_id = $1 AND emitter_id = $2 ORDER BY temperature, id',
+      { bind: [labId, emitter.id] },
+    )) as [Array<{ id: string; isCurrent: boolean }>, unknown];
+    // The series definition (mechanism-evidence.service.ts temperatureOf), written out here.
+    const seriesOf = (id: string) =>
+      pairRows
+        .filter((row) => row.isCurrent || row.id === id)
+        .slice(0, 40)
+        .map((row) => row.id);
+    const hottest = pairRows.filter((row) => row.isCurrent).at(-1)!.id;
+    for (const id of [made[0]!.id, replaced.id, hottest]) {
+      const response = await evidence(id);
+      expect(response.status).toBe(200);
+      expect(response.body.series.studyIds).toEqual(seriesOf(id));
+    }
+    expect(seriesOf(hottest)).not.toContain(hottest);
+    expect(seriesOf(replaced.id)).toContain(replaced.id);
   });
 
   it('when asked, then nothing is written: the study keeps its version and its fits', async () => {

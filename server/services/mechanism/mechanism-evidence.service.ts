@@ -15,6 +15,7 @@ import { absorptionEvidenceOf } from './absorption-titrations.service';
 import {
   evidenceStudyRows,
   newestMatrixRows,
+  SERIES_LIMIT,
   type EvidenceStudyRow,
   type NewestMatrixRow,
 } from './mechanism-evidence-rows';
@@ -22,9 +23,6 @@ import type { PendingSpectra } from './pending-spectra';
 import { analyseSeriesMembers } from './temperature-series.service';
 
 type Missing = Partial<Record<MechanismPieceKind, string>>;
-
-/** The most studies of one pair in one solvent a series is read from (the coolest first). */
-const SERIES_LIMIT = 40;
 
 /** The lifetime line beside the intensity line (or the combined fit) of the study's newest fit. */
 function lifetimeOf(study: EvidenceStudyRow): LifetimeEvidence | null {
@@ -184,7 +182,12 @@ export async function mechanismEvidenceOfStudies(
     newestMatrixRows(sequelize, lab.id, studyIds, leaveOut),
   ]);
   const byPair = new Map<string, EvidenceStudyRow[]>();
-  for (const row of rows) byPair.set(pairKey(row), [...(byPair.get(pairKey(row)) ?? []), row]);
+  for (const row of rows) {
+    const key = pairKey(row);
+    const members = byPair.get(key);
+    if (members) members.push(row);
+    else byPair.set(key, [row]);
+  }
   const emission = new Map<string, Extract<NewestMatrixRow, { kind: 'emission' }>>();
   const absorption = new Map<string, Extract<NewestMatrixRow, { kind: 'absorption' }>>();
   for (const matrix of matrices) {
