@@ -7,7 +7,6 @@ import express from 'express';
 import expressStaticGzip from 'express-static-gzip';
 import type { Request, RequestHandler, Response } from 'express';
 import type { Logger } from 'pino';
-import { pinoHttp } from 'pino-http';
 import type { Sequelize } from 'sequelize';
 import { createPassport, sessionUser } from './auth/passport';
 import { createSessionMiddleware, enforceSessionLifetime } from './auth/session';
@@ -17,7 +16,8 @@ import { inOrder } from './http/in-order';
 import { parseCookiesWhenRead } from './http/lazy-cookies';
 import { weakEtag } from './http/weak-etag';
 import type { AnyRouteSpec, RouteAccess } from './http/define-route';
-import { logRedactPaths, redactUrl } from './http/log-redaction';
+import { logRedactPaths } from './http/log-redaction';
+import { requestLogging } from './http/request-log';
 import { buildOpenApiDocument } from './http/openapi';
 import { countDatabaseTime } from './db/database-time';
 import { createJobQueue } from './jobs/job-queue';
@@ -124,34 +124,6 @@ const staticCacheHeaders = (clientDir: string) => (res: ServerResponse, filePath
   res.setHeader('Cache-Control', immutable ? 'public, max-age=31536000, immutable' : 'no-cache');
 };
 
-/**
- * One line per request at info level (pino-http). pino-http serialises and redacts each request
- * into a child logger as it arrives, whatever the level, so with LOG_LEVEL=warn or higher it is
- * left out: req.log becomes a child logger naming the request only when something is logged.
- */
-function requestLogging(logger: Logger, logDatabaseTime: boolean): RequestHandler {
-  if (!logger.isLevelEnabled('info')) {
-    return (req, _res, next) => {
-      let log: Logger | undefined;
-      // Made only when something is logged: a warning or an error names the request it came from.
-      Object.defineProperty(req, 'log', {
-        configurable: true,
-        get: () => (log ??= logger.child({ req: { method: req.method, url: redactUrl(req.originalUrl) } })),
-      });
-      next();
-    };
-  }
-  return pinoHttp({
-    logger,
-    autoLogging: { ignore: (req) => req.url === '/api/health' },
-    serializers: { req: (req: { url: string }) => Object.assign(req, { url: redactUrl(req.url) }) },
-    // At debug level each request's line says how many database round trips it made and their time.
-    ...(logDatabaseTime && {
-      customProps: (_req, res) => (res.locals?.databaseTime ? { database: res.locals.databaseTime } : {}),
-    }),
-  });
-}
-
 function accessGuards(access: RouteAccess): RequestHandler[] {
   if (access === 'public') return [];
   if (access === 'signed-in') return [requireAuth];
@@ -215,7 +187,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
   };
 
   const logDatabaseTime = logger.isLevelEnabled('debug');
-  app.use(requestLogging(logger, logDatabaseTime));
+  app.use(requestLogging(app.request, logger, options.logger, { databaseTime: logDatabaseTime }));
   if (logDatabaseTime) app.use(countDatabaseTime);
   app.use(securityHeaders(secure));
   parseCookiesWhenRead(app.request);

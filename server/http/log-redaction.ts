@@ -3,7 +3,7 @@
  * tokens of reset and invitation links. Paths for pino's redact option (any depth we log at),
  * plus a rewrite of URLs, where invitation and reset tokens travel in the path or query.
  */
-const secretKeys = [
+export const secretKeys = [
   'password',
   'currentPassword',
   'newPassword',
@@ -14,6 +14,12 @@ const secretKeys = [
   'recoveryCodes',
   'secret',
 ];
+
+/** Request and response headers that carry secrets (node gives header names in lower case). */
+export const secretHeaders = ['cookie', 'x-csrf-token', 'authorization', 'set-cookie'];
+
+/** What a redacted value reads as. */
+export const redactedValue = '[Redacted]';
 
 export const logRedactPaths = [
   'req.headers.cookie',

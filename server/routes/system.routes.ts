@@ -17,7 +17,10 @@ export const systemRoutes = [
     },
     handler: async ({ req, res }) => {
       const { sequelize, embeddedDatabase } = req.app.locals.services;
-      const health = await checkHealth(sequelize, embeddedDatabase, req.log);
+      // req.log is read only when the check fails: a request's logger is made when first asked for.
+      const health = await checkHealth(sequelize, embeddedDatabase, (error) =>
+        req.log.error({ err: error }, 'health check query failed'),
+      );
       const up = health.database.status === 'up';
       if (!up) res.setHeader('Retry-After', String(databaseRetryAfterSeconds));
       res.status(up ? 200 : 503).json(health);

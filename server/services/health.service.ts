@@ -1,5 +1,4 @@
 import { QueryTypes } from 'sequelize';
-import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
 import type { Health } from '@shared/schemas/health';
 import { isDatabaseUnavailable } from '../db/unavailable';
@@ -7,8 +6,15 @@ import { appVersion } from '../lib/version';
 
 const startedAt = Date.now();
 
-/** A real round trip to PostgreSQL: its version and the count of applied migrations. */
-export async function checkHealth(sequelize: Sequelize, embedded: boolean, logger?: Logger): Promise<Health> {
+/**
+ * A real round trip to PostgreSQL: its version and the count of applied migrations. A query that
+ * fails for another reason than an unreachable database goes to `onQueryError` (to be logged).
+ */
+export async function checkHealth(
+  sequelize: Sequelize,
+  embedded: boolean,
+  onQueryError?: (error: unknown) => void,
+): Promise<Health> {
   const base = {
     version: appVersion,
     uptimeSeconds: Math.round((Date.now() - startedAt) / 1000),
@@ -33,7 +39,7 @@ export async function checkHealth(sequelize: Sequelize, embedded: boolean, logge
       },
     };
   } catch (error) {
-    if (!isDatabaseUnavailable(error)) logger?.error({ err: error }, 'health check query failed');
+    if (!isDatabaseUnavailable(error)) onQueryError?.(error);
     return {
       ...base,
       status: 'degraded',

@@ -1,3 +1,4 @@
+import type { Logger } from 'pino';
 import type { AppServices } from '../app';
 import type { LabContext } from '../domain/lab-context';
 
@@ -14,6 +15,10 @@ declare global {
     interface Request {
       /** Set by requireLabRole on routes under /api/labs/:labId. */
       lab?: LabContext;
+      /** This process's number for the request, in arrival order (server/http/request-log.ts). */
+      id?: number;
+      /** Logs naming this request (id, method, redacted address); see requestLogging. */
+      log: Logger;
     }
   }
 }
