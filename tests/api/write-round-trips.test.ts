@@ -20,6 +20,13 @@ const sink = new Writable({
 const sequelize = createSequelize(inject('databaseUrl'), { timeQueries: true });
 initModels(sequelize);
 const testApp = await createTestApp({ sequelize, logger: pino({ level: 'debug' }, sink) });
+/** Each statement Sequelize ran, with the transaction it ran in. */
+const statements: Array<{ sql: string; transaction: string | undefined }> = [];
+sequelize.addHook('afterQuery', (options, query) => {
+  const { sql } = query as unknown as { sql?: string };
+  const transaction = (options.transaction as { id?: string } | null | undefined)?.id;
+  if (sql) statements.push({ sql: sql.trimStart(), transaction });
+});
 afterAll(async () => {
   await testApp.close();
   await sequelize.close();
@@ -51,7 +58,7 @@ describe('round trips of the writes people make most', () => {
     };
     let created = { id: '', version: 0 };
     // Session row with the membership (one query); BEGIN, emitter and quencher (one query), the
-    // study, its audit entry, COMMIT; the answer.
+    // audit entry, the study (last: see the next test), COMMIT; the answer.
     expect(
       await roundTripsOf(
         async () => {
@@ -83,5 +90,25 @@ describe('round trips of the writes people make most', () => {
         201,
       ),
     ).toBe(6);
+  });
+
+  it('when a study is created, then its INSERT is the last statement before COMMIT', async () => {
+    // The INSERT moves the lab's row of lab_study_counts (a trigger), locked until COMMIT: every
+    // other create in the lab waits from this INSERT to the COMMIT, so nothing may come between.
+    const { client, labId } = await signedInResearcher(testApp);
+    const first = await createStudy(client, labId, 'write-order');
+    statements.length = 0;
+    const response = await client.post(`/api/labs/${labId}/studies`, {
+      ...studyBody('write-order-2', { emitterId: first.emitter.id, quencherId: first.quencher.id }),
+      newEmitterName: undefined,
+      newQuencherName: undefined,
+    });
+    expect(response.status).toBe(201);
+    const insert = statements.find((statement) => statement.sql.startsWith('INSERT INTO "studies"'));
+    expect(insert?.transaction).toBeDefined();
+    const inTransaction = statements.filter((statement) => statement.transaction === insert!.transaction);
+    // What each statement does: its verb, and the table an INSERT writes.
+    const kinds = inTransaction.map((statement) => /^\w+(?: INTO "\w+")?/.exec(statement.sql)?.[0]);
+    expect(kinds.slice(-3)).toEqual(['INSERT INTO "audit_events"', 'INSERT INTO "studies"', 'COMMIT']);
   });
 });
