@@ -1,3 +1,4 @@
+import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { rehmWellerRateConstant, solventDiffusionLimit } from '../../shared/engine';
 import { ExcitedStateEnergy, RedoxPotential, Study, StudyFit } from '../../server/models';
@@ -223,5 +224,34 @@ describe('GET /api/labs/:labId/comparisons/:side/:compoundId at another temperat
     expect(warmRows).toHaveLength(5);
     for (const row of warmRows) expect(row.diffusionLimit.value).toBe(warm.diffusionLimit);
     expect(warmRows[0].diffusionLimit.basis).toMatch(/323\.15 K/);
+  });
+
+  it('when an emitter has more than 500 current studies, then its rows are the newest 500 by change, then id', async () => {
+    const emitter = await createCompound(labId, 'Pt-many', 'photocatalyst');
+    const template = await createStudyRecord({ labId, emitterId: emitter.id, quencherId: quencherIds[0]!, kq: 1e9 });
+    // 504 copies in SQL whose change times come in pairs; the 500th row falls inside a pair, where id decides.
+    await testApp.sequelize.query(
+      `INSERT INTO studies (id, lab_id, emitter_id, quencher_id, title, solvent_id, temperature, excitation_wavelength,
+         emission_wavelength, atmosphere, degassing_method, tau0, data_kind, fit_model, notes, status, revision,
+         is_current, k_sv, kq, flagged, version, created_at, updated_at)
+       SELECT gen_random_uuid(), lab_id, emitter_id, quencher_id, 'many ' || g, solvent_id, temperature,
+         excitation_wavelength, emission_wavelength, atmosphere, degassing_method, tau0, data_kind, fit_model, notes,
+         status, revision, true, k_sv, kq, flagged, 0, created_at,
+         timestamptz '2026-11-01 10:00:00+00' - (g / 2) * interval '1 minute'
+       FROM studies, generate_series(0, 503) AS g WHERE id = $1`,
+      { bind: [template.id] },
+    );
+    const newest = await testApp.sequelize.query<{ id: string }>(
+      `SELECT id FROM studies WHERE lab_id = $1 AND emitter_id = $2 AND is_current
+       ORDER BY updated_at DESC, id LIMIT 500`,
+      { bind: [labId, emitter.id], type: QueryTypes.SELECT },
+    );
+    const response = await viewer.get(`/api/labs/${labId}/comparisons/emitter/${emitter.id}`);
+    expect(response.status).toBe(200);
+    const shown = response.body.rows.map((row: { studyId: string }) => row.studyId);
+    expect(shown).toHaveLength(500);
+    // Rows come sorted by kq (all equal here); the set is what the 500 newest are.
+    expect([...shown].sort()).toEqual(newest.map((row) => row.id).sort());
+    expect(shown).toContain(template.id); // made now: newer than every copy
   });
 });

@@ -63,7 +63,8 @@ type StudyRow = {
 };
 
 /**
- * The newest 500 current studies of the compound on one side, as plain rows with only what a
+ * The newest 500 current studies of the compound on one side (their ids from the compound's
+ * index alone, migration 20261203-1545, then their rows by key), as plain rows with only what a
  * row shows: the partner's name, and from the newest fit only the two standard errors and the
  * flags' codes and titles (picked out of the stored result by PostgreSQL, not the whole result).
  */
@@ -78,9 +79,9 @@ const studiesSql = (side: 'emitter' | 'quencher') => {
          (f.result #>> '{parameters,kSv,standardError}')::float8 AS "kSvStandardError",
          (SELECT json_agg(json_build_object('code', flag ->> 'code', 'title', flag ->> 'title') ORDER BY n)
             FROM jsonb_array_elements(f.result -> 'flags') WITH ORDINALITY AS x(flag, n)) AS flags
-  FROM (SELECT * FROM studies
-        WHERE lab_id = $1 AND is_current AND ${own} = $2
-        ORDER BY updated_at DESC, id ASC LIMIT 500) s
+  FROM (SELECT t.* FROM studies t JOIN (
+          SELECT id FROM studies WHERE lab_id = $1 AND is_current AND ${own} = $2
+          ORDER BY updated_at DESC, id ASC LIMIT 500) k ON k.id = t.id) s
   LEFT JOIN compounds p ON p.id = s.${partner}
   LEFT JOIN study_fits f ON f.id = s.latest_fit_id
   ORDER BY s.updated_at DESC, s.id ASC`;

@@ -78,6 +78,15 @@ const pairKey = (study: EvidenceStudyRow) =>
 
 type SeriesAnswer = { evidence: TemperatureEvidence } | { problem: string };
 
+/** The series of any current study of a pair: the same for each (kept per pair, not filtered again per study). */
+const currentSiblings = new WeakMap<EvidenceStudyRow[], EvidenceStudyRow[]>();
+function currentSiblingsOf(pairMembers: EvidenceStudyRow[]): EvidenceStudyRow[] {
+  let siblings = currentSiblings.get(pairMembers);
+  if (!siblings)
+    currentSiblings.set(pairMembers, (siblings = pairMembers.filter((s) => s.isCurrent).slice(0, SERIES_LIMIT)));
+  return siblings;
+}
+
 /**
  * The temperature series the study belongs to: the lab's current studies of the same pair in the
  * same solvent (the study itself included, current or not; at most 40, coolest first) with a
@@ -90,7 +99,9 @@ function temperatureOf(
   analysed: Map<string, SeriesAnswer>,
   missing: Missing,
 ): { evidence: TemperatureEvidence | null; series: MechanismEvidence['series'] } {
-  const siblings = pairMembers.filter((s) => s.isCurrent || s.id === study.id).slice(0, SERIES_LIMIT);
+  const siblings = study.isCurrent
+    ? currentSiblingsOf(pairMembers)
+    : pairMembers.filter((s) => s.isCurrent || s.id === study.id).slice(0, SERIES_LIMIT);
   const fitted = siblings.filter((s) => s.kSv !== null && s.kSv > 0);
   const temperatures = [...new Set(siblings.map((s) => s.temperature))];
   const series = temperatures.length >= 2 ? { studyIds: siblings.map((s) => s.id), temperatures } : null;
