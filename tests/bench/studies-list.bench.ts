@@ -180,7 +180,9 @@ async function explain(sequelize: ReturnType<typeof createSequelize>, lab: LabCo
       manager.getConnection = getConnection;
       for (const connection of watched) delete (connection as Partial<Connection>).query;
     }
-    const pageQuery = statements.find((statement) => !/count\(|lab_study_counts/i.test(statement.sql))!;
+    // The page's statement names its sort key (the count's does not; a text search's window counts
+    // its own rows, so "count(" no longer tells them apart); with a text search the last one asked.
+    const pageQuery = statements.findLast((statement) => statement.sql.includes('AS "sortKey"'))!;
     const [plan] = (await sequelize.query(`EXPLAIN ${pageQuery.sql}`, { bind: pageQuery.bind })) as [
       Array<{ 'QUERY PLAN': string }>,
       unknown,
