@@ -6,6 +6,7 @@ import type { Logger } from 'pino';
 import { addDatabaseTime } from '../db/database-time';
 import { fixedStatementOf } from '../db/select-rows';
 import { labIdInUrl, rememberMembership, sessionWithMembershipSql } from './session-membership';
+import { endUnchangedSessionsPlainly } from './unchanged-session-end';
 import type { SessionWithMembershipRow } from './session-membership';
 
 declare module 'express-session' {
@@ -208,15 +209,18 @@ export function createSessionMiddleware(options: {
     readMembershipWithSession(
       store,
       pool,
-      session({
-        name: cookieName,
-        secret: options.secret,
+      endUnchangedSessionsPlainly(
         store,
-        resave: false,
-        saveUninitialized: false,
-        rolling: false,
-        cookie: { httpOnly: true, sameSite: 'lax', secure: options.secure, maxAge: sessionIdleMs, path: '/' },
-      }),
+        session({
+          name: cookieName,
+          secret: options.secret,
+          store,
+          resave: false,
+          saveUninitialized: false,
+          rolling: false,
+          cookie: { httpOnly: true, sameSite: 'lax', secure: options.secure, maxAge: sessionIdleMs, path: '/' },
+        }),
+      ),
     ),
     slidingExpiry(store, pool),
   ];
