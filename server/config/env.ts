@@ -46,7 +46,7 @@ const envSchema = z.object({
     .optional(),
   HALFLIGHT_WORKERS: z.coerce.number().int().min(1, 'must be 1 or more').max(64).optional(),
   HALFLIGHT_DB_POOL_READ: z.coerce.number().int().min(1, 'must be 1 or more').max(100).default(8),
-  HALFLIGHT_DB_POOL_WRITE: z.coerce.number().int().min(1, 'must be 1 or more').max(100).default(3),
+  HALFLIGHT_DB_POOL_WRITE: z.coerce.number().int().min(1, 'must be 1 or more').max(100).default(6),
   HALFLIGHT_SESSION_POOL_READ: z.coerce.number().int().min(1, 'must be 1 or more').max(100).default(5),
   HALFLIGHT_SESSION_POOL_WRITE: z.coerce.number().int().min(1, 'must be 1 or more').max(100).default(2),
   HALFLIGHT_READ_CONCURRENCY: z.coerce.number().int().min(1, 'must be 1 or more').max(1000).default(4),

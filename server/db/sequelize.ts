@@ -5,12 +5,20 @@ import { addDatabaseTime } from './database-time';
 // PostgreSQL bigint (int8) and numeric arrive as strings by default; counts we read are small.
 pg.types.setTypeParser(pg.types.builtins.INT8, (value) => Number(value));
 
-/** Connections per process: for plain SELECTs, and for transactions and changes. */
+/**
+ * Connections per process: for plain SELECTs, and for transactions and changes. A transaction
+ * holds its connection through every round trip of its change, each waiting its turn in a busy
+ * event loop, so writes need more than a few: under bench:load (20 writes/s asked while 200
+ * connections of reads saturate, 2 web processes, a busy machine) with 3 write connections the
+ * wait for one was the longest part of a write (median 0.7-1.1 s of 1.4-2.0 s; 8.8 writes/s
+ * done), with 10 it was mostly none (15.2 writes/s, median 617 ms). Six keep four web processes
+ * within PostgreSQL's default 100 connections (README, "Several instances").
+ */
 export interface PoolSizes {
   read: number;
   write: number;
 }
-export const defaultPoolSizes: PoolSizes = { read: 8, write: 3 };
+export const defaultPoolSizes: PoolSizes = { read: 8, write: 6 };
 
 type PooledConnection = { queryType?: 'read' | 'write' };
 type Pools = {

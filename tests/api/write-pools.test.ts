@@ -122,6 +122,40 @@ describe('connections kept for writes', () => {
   });
 });
 
+describe('the default write pool', () => {
+  it('when six transactions of one process are open at once, then each has its connection and none waits', async () => {
+    // bench:load's write mix (20 writes/s asked while reads saturate, 2 web processes) keeps about
+    // that many transactions open per process on a busy machine, each for every round trip of its
+    // change; with three connections the wait for one was the longest part of a write.
+    const defaults = createSequelize(inject('databaseUrl'));
+    const letGo: Array<() => void> = [];
+    const open: number[] = [];
+    const transactions = Array.from({ length: 6 }, (_, n) =>
+      defaults.transaction(async (transaction) => {
+        await defaults.query('SELECT 1 AS one', { type: QueryTypes.SELECT, transaction });
+        open.push(n);
+        await new Promise<void>((resolve) => letGo.push(resolve));
+      }),
+    );
+    try {
+      // With fewer connections the rest wait for one (up to the pool's 20 s acquire timeout).
+      for (let tries = 0; tries < 500 && open.length < 6; tries++) await new Promise((r) => setTimeout(r, 20));
+      expect(open).toHaveLength(6);
+    } finally {
+      // Any that waited for a connection gets one as the others end: each is let go as it opens.
+      const settled = Promise.allSettled(transactions);
+      let done = false;
+      void settled.then(() => (done = true));
+      for (let tries = 0; tries < 1500 && !done; tries++) {
+        letGo.splice(0).forEach((resolve) => resolve());
+        await new Promise((r) => setTimeout(r, 20));
+      }
+      await Promise.all(transactions);
+      await defaults.close();
+    }
+  });
+});
+
 describe('a connection cut while it opens', () => {
   it('when a connection that no pool holds yet reports an error, then nothing is thrown out of the event', async () => {
     // What a database restart does to a connection still running its opening statements: pg emits
