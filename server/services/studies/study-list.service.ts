@@ -190,11 +190,13 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
   const cast = column === 'updated_at' ? 'timestamptz' : 'float8';
   const cursor = query.cursor ? decodeCursor(query.cursor, query.sort, query.direction) : null;
   const backwards = cursor?.k === 'before';
-  // The list's order, and (for a page before a cursor) the same order read from the other end.
+  // The list's order, or (for a page before a cursor, or counted from the end) the same order read
+  // from the other end.
+  const orderOf = (alias: string, reversed: boolean) =>
+    `${alias}.${column} ${(query.direction === 'asc') !== reversed ? 'ASC' : 'DESC'}` +
+    `${nullable ? (reversed ? ' NULLS FIRST' : ' NULLS LAST') : ''}, ${alias}.id ${reversed ? 'DESC' : 'ASC'}`;
+  const order = (alias: string) => orderOf(alias, backwards);
   const up = (query.direction === 'asc') !== backwards;
-  const order = (alias: string) =>
-    `${alias}.${column} ${up ? 'ASC' : 'DESC'}${nullable ? (backwards ? ' NULLS FIRST' : ' NULLS LAST') : ''}, ` +
-    `${alias}.id ${backwards ? 'DESC' : 'ASC'}`;
   const limit = query.pageSize + 1; // one more than a page says whether another page follows
 
   // Each part reads one stretch of an index in order; a cursor inside the non-NULL values needs a
@@ -267,6 +269,25 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
         : window < matches
           ? await textSearchWindow(walk, window, limit, binds.values, pageRows)
           : await pageRows();
+  } else if (offset > 0 && !text) {
+    // A page by number: its total first. Past the middle of a list whose length is exact (a count
+    // under the cap, or any count from lab_study_counts), the page is the same stretch read from
+    // the far end, so fewer than half the list is skipped: page 2,000 of 2,000 costs what page 1
+    // does, page 1,000 the most.
+    [counted] = await counting;
+    const total = counted?.n ?? 0;
+    const exact = total <= STUDY_COUNT_CAP || !(query.emitterId || query.quencherId || query.solventId);
+    if (exact && offset >= total) rows = [];
+    else if (exact && offset > total - offset) {
+      // Rows offset … offset + limit - 1 of the list are rows total - end … total - offset - 1 read from its end.
+      const end = Math.min(offset + limit, total);
+      const [skipped, taken] = [total - end, end - offset];
+      const fromEnd =
+        `SELECT ${named} FROM (SELECT ${columns} FROM studies s JOIN (SELECT s.id FROM studies s ` +
+        `WHERE ${where.join(' AND ')} ORDER BY ${orderOf('s', true)} LIMIT ${taken} OFFSET ${skipped}) k ` +
+        `ON k.id = s.id) p ORDER BY ${order('p')} LIMIT ${limit}`;
+      rows = await selectRows<Row>(sequelize, fromEnd, binds.values);
+    } else rows = await pageRows();
   } else {
     [rows, [counted]] = await Promise.all([pageRows(), counting]);
   }
