@@ -12,6 +12,7 @@ import { createPassport, sessionUser } from './auth/passport';
 import { createSessionMiddleware, enforceSessionLifetime } from './auth/session';
 import { projectRoot } from './config/env';
 import { toHandler } from './http/define-route';
+import { compressWhenAccepted } from './http/compress-when-accepted';
 import { inOrder } from './http/in-order';
 import { parseCookiesWhenRead } from './http/lazy-cookies';
 import { weakEtag } from './http/weak-etag';
@@ -199,7 +200,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
       readAdmission.middleware,
       // API answers: gzip or brotli (fast settings) above 1 KB when the client accepts it. Each answer
       // is private to the person and revalidated with its ETag (304 when unchanged), never stored by proxies.
-      apiCompression,
+      compressWhenAccepted(apiCompression),
       (_req, res, next) => {
         res.setHeader('Cache-Control', 'private, no-cache');
         next();

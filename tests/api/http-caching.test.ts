@@ -3,12 +3,29 @@ import path from 'node:path';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
 import { projectRoot } from '../../server/config/env';
+import { defineRoute } from '../../server/http/define-route';
+import { apiRoutes } from '../../server/routes';
 import { apiClient, createLabWithMembers } from '../support/accounts';
 import { createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
 const testApp = await createTestApp();
 afterAll(testApp.close);
+
+// A route that says whether the compression middleware took its answer over (it adds res.flush).
+const compressionProbe = defineRoute({
+  method: 'get',
+  path: '/api/compression-test/probe',
+  summary: 'Says whether the compression middleware wraps this answer (compression test)',
+  tags: ['system'],
+  access: 'public',
+  responses: { 200: { description: 'always' } },
+  handler: ({ res }) => {
+    res.json({ wrapped: typeof (res as { flush?: unknown }).flush === 'function', padding: 'x'.repeat(2000) });
+  },
+});
+const probeApp = await createTestApp({ sequelize: testApp.sequelize, routes: [...apiRoutes, compressionProbe] });
+afterAll(probeApp.close);
 
 /** The hashed script the built index.html loads (npm test builds the client before the tests). */
 function builtScript(): string {
@@ -102,5 +119,29 @@ describe('GET /api/...', () => {
     const dashboard = await client.get(dashboardUrl).set('If-None-Match', tags[dashboardUrl]!);
     expect(dashboard.status).toBe(200);
     expect(dashboard.body.myDrafts[0].title).toBe('cache-detail renamed');
+  });
+});
+
+describe('compression of API answers', () => {
+  it('when the client names no Accept-Encoding, then the answer is plain, says it varies by encoding, and no compressor wraps it', async () => {
+    const plain = await request(probeApp.app).get('/api/compression-test/probe').unset('Accept-Encoding');
+    expect(plain.status).toBe(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.headers.vary).toMatch(/Accept-Encoding/i);
+    expect(plain.body.wrapped).toBe(false);
+
+    const openApi = await request(testApp.app).get('/api/openapi.json').unset('Accept-Encoding');
+    expect(openApi.headers['content-encoding']).toBeUndefined();
+    expect(openApi.headers.vary).toMatch(/Accept-Encoding/i);
+    expect(openApi.body.openapi).toMatch(/^3\./);
+  });
+
+  it('when the client accepts gzip or brotli, then an answer above 1 KB comes encoded', async () => {
+    const gzip = await request(probeApp.app).get('/api/compression-test/probe').set('Accept-Encoding', 'gzip');
+    expect(gzip.headers['content-encoding']).toBe('gzip');
+    expect(gzip.headers.vary).toMatch(/Accept-Encoding/i);
+    expect(gzip.body.wrapped).toBe(true);
+    const brotli = await request(testApp.app).get('/api/openapi.json').set('Accept-Encoding', 'br');
+    expect(brotli.headers['content-encoding']).toBe('br');
   });
 });
