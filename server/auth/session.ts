@@ -1,13 +1,12 @@
-import type { Request, RequestHandler } from 'express';
+import type { RequestHandler } from 'express';
 import connectPgSimple from 'connect-pg-simple';
 import session from 'express-session';
 import pg from 'pg';
 import type { Logger } from 'pino';
 import { addDatabaseTime } from '../db/database-time';
 import { fixedStatementOf } from '../db/select-rows';
-import { labIdInUrl, rememberMembership, sessionWithMembershipSql } from './session-membership';
+import { readWithSessionFor, type ReadWithSession } from './read-with-session';
 import { endUnchangedSessionsPlainly } from './unchanged-session-end';
-import type { SessionWithMembershipRow } from './session-membership';
 
 declare module 'express-session' {
   interface SessionData {
@@ -110,13 +109,15 @@ function slidingExpiry(store: session.Store, pool: pg.Pool): RequestHandler {
 /**
  * On a lab route (/api/labs/:labId/…) the session row is read together with the person's membership
  * of that lab (sessionWithMembershipSql), which the access guard then takes instead of asking
- * again (server/middleware/access.ts): one round trip less on every lab request. express-session
- * calls store.get synchronously from its middleware (express-session 1.19, index.js), so the
- * request being served is known at that moment; were that ever not so, the store reads the session
- * alone and the guard asks for the membership itself, as it does on any request this did not read.
+ * again (server/middleware/access.ts); on GET /api/session, together with the person's session
+ * state (sessionWithStateSql), which the route takes. One round trip less on each (see
+ * readWithSessionFor). express-session calls store.get synchronously from its middleware
+ * (express-session 1.19, index.js), so the request being served is known at that moment; were
+ * that ever not so, the store reads the session alone and the guard or the route asks for its part
+ * itself, as on any request this did not read.
  */
-function readMembershipWithSession(store: session.Store, pool: pg.Pool, sessionMiddleware: RequestHandler) {
-  let asking: { req: Request; labId: string } | undefined;
+function readWithSessionRow(store: session.Store, pool: pg.Pool, sessionMiddleware: RequestHandler) {
+  let asking: ReadWithSession | undefined;
   const plainGet = store.get.bind(store);
   store.get = (sid, callback) => {
     const ask = asking;
@@ -124,8 +125,8 @@ function readMembershipWithSession(store: session.Store, pool: pg.Pool, sessionM
     if (!ask) return plainGet(sid, callback);
     // connect-pg-simple's expiry test, in whole seconds as it writes it.
     const now = Math.ceil(Date.now() / 1000);
-    pool.query(sessionWithMembershipSql.text, [sid, now, ask.labId]).then(
-      (result: pg.QueryResult<SessionWithMembershipRow>) => {
+    pool.query(ask.sql.text, [sid, now, ...ask.values]).then(
+      (result: pg.QueryResult<{ sess: unknown }>) => {
         const row = result.rows[0];
         if (!row) return callback(null, null);
         let sess: session.SessionData;
@@ -136,15 +137,14 @@ function readMembershipWithSession(store: session.Store, pool: pg.Pool, sessionM
         } catch {
           return store.destroy(sid, callback);
         }
-        rememberMembership(ask.req, ask.labId, row);
+        ask.remember(row);
         callback(null, sess);
       },
       (error: unknown) => callback(error),
     );
   };
   const middleware: RequestHandler = (req, res, next) => {
-    const labId = labIdInUrl(req.originalUrl);
-    asking = labId ? { req, labId } : undefined;
+    asking = readWithSessionFor(req);
     try {
       sessionMiddleware(req, res, next);
     } finally {
@@ -206,7 +206,7 @@ export function createSessionMiddleware(options: {
     errorLog: (message: string, error?: unknown) => options.logger.warn({ err: error }, message),
   });
   const middleware = [
-    readMembershipWithSession(
+    readWithSessionRow(
       store,
       pool,
       endUnchangedSessionsPlainly(

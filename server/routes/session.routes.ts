@@ -3,6 +3,7 @@ import { csrfTokenSchema, sessionSchema, signInSchema } from '@shared/schemas/au
 import type { Session } from '@shared/schemas/auth';
 import { secondStepNeededSchema, secondStepSchema } from '@shared/schemas/two-factor';
 import type { SecondStepNeeded } from '@shared/schemas/two-factor';
+import { sessionStateReadWithSession } from '../auth/read-with-session';
 import { defineRoute } from '../http/define-route';
 import { actorOf, signedInActor } from '../http/request-context';
 import { AppError } from '../lib/app-error';
@@ -29,7 +30,9 @@ export async function sessionResponse(
   options: { newSession: boolean },
 ): Promise<Session> {
   const { generateCsrfToken, mailCatcher } = req.app.locals.services;
-  const { user, twoFactorEnabled, recoveryCodesLeft } = await loadSessionState(userId);
+  // GET /api/session has it from the statement that read the session row (read-with-session.ts).
+  const { user, twoFactorEnabled, recoveryCodesLeft } =
+    sessionStateReadWithSession(req, userId) ?? (await loadSessionState(userId));
   return {
     user,
     // A new session (just signed in) needs a new token; otherwise the current one stays valid.

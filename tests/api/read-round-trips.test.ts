@@ -5,6 +5,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
 import { createSequelize } from '../../server/db/sequelize';
 import { initModels } from '../../server/models';
+import { loadSessionState } from '../../server/services/session-user.service';
 import { apiClient, createLabWithMembers } from '../support/accounts';
 import { createStudy, exactPoints } from '../support/studies';
 import { createTestApp } from '../support/test-app';
@@ -42,14 +43,16 @@ async function roundTripsOf(send: () => Promise<{ status: number }>, url: string
 }
 
 describe('round trips of the reads every screen makes', () => {
-  it('when a signed-in person asks for the session, then it costs the session row and one statement', async () => {
+  it('when a signed-in person asks for the session, then the session row and the person with their labs are one statement', async () => {
     const { users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
     const client = await apiClient(testApp.app);
     await client.signIn(users.researcher);
     const session = await client.get('/api/session');
     expect(session.body.user.labs).toHaveLength(1);
     expect(session.body.twoFactor).toEqual({ enabled: false, verified: false, recoveryCodesLeft: 0 });
-    expect(await roundTripsOf(() => client.get('/api/session'), '/api/session')).toBe(2);
+    // The same person and labs as the statement of their own that sign-in answers with.
+    expect(session.body.user).toEqual((await loadSessionState(users.researcher.id)).user);
+    expect(await roundTripsOf(() => client.get('/api/session'), '/api/session')).toBe(1);
   });
 
   it('when a signed-in person opens one study, then it costs the session row with the membership, and one statement', async () => {
