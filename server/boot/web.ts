@@ -70,7 +70,11 @@ export async function startWeb(options: {
     jobWorker: runsJobs,
     files: fileStoreFromConfig(config).files,
     sessionPools: { read: config.HALFLIGHT_SESSION_POOL_READ, write: config.HALFLIGHT_SESSION_POOL_WRITE },
-    readAdmission: { concurrency: config.HALFLIGHT_READ_CONCURRENCY, queue: config.HALFLIGHT_READ_QUEUE },
+    readAdmission: {
+      concurrency: config.HALFLIGHT_READ_CONCURRENCY,
+      queue: config.HALFLIGHT_READ_QUEUE,
+      whileWriting: config.HALFLIGHT_READ_WHILE_WRITING,
+    },
   });
   let server: Server | undefined;
   const closeRest = async () => {

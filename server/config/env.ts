@@ -51,6 +51,7 @@ const envSchema = z.object({
   HALFLIGHT_SESSION_POOL_WRITE: z.coerce.number().int().min(1, 'must be 1 or more').max(100).default(2),
   HALFLIGHT_READ_CONCURRENCY: z.coerce.number().int().min(1, 'must be 1 or more').max(1000).default(4),
   HALFLIGHT_READ_QUEUE: z.coerce.number().int().min(0, 'must be 0 or more').max(100_000).default(500),
+  HALFLIGHT_READ_WHILE_WRITING: z.coerce.number().int().min(1, 'must be 1 or more').max(1000).default(2),
   HALFLIGHT_PUBLIC_URL: z
     .string()
     .regex(/^https?:\/\//, 'must start with http:// or https://')

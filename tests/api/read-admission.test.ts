@@ -48,9 +48,26 @@ const slowDownload = defineRoute<{ n: string }>({
   },
 });
 
+/** Writes of the held-write probe still running, each let go by calling it. */
+const heldWrites: Array<() => void> = [];
+
+// A request that changes something and takes its time (its statements waiting on the database).
+const heldWrite = defineRoute({
+  method: 'post',
+  path: '/api/test-admission-write',
+  summary: 'Test only: a write that runs until the test lets it go',
+  tags: ['test'],
+  responses: { 200: { description: 'done' } },
+  access: 'public',
+  handler: async ({ res }) => {
+    await new Promise<void>((resolve) => heldWrites.push(resolve));
+    res.json({ done: true });
+  },
+});
+
 const testApp = await createTestApp({
-  routes: [...apiRoutes, probe, slowDownload],
-  readAdmission: { concurrency: 2, queue: 3 },
+  routes: [...apiRoutes, probe, slowDownload, heldWrite],
+  readAdmission: { concurrency: 2, queue: 3, whileWriting: 1 },
 });
 readStudies = () => testApp.sequelize.query('SELECT count(*) AS n FROM studies', { type: QueryTypes.SELECT });
 const admission = testApp.app.locals.services.readAdmission as ReadAdmission;
@@ -183,5 +200,50 @@ describe('reads wait for a turn', () => {
       [200, 'first part'],
     ]);
     await until('every turn is given back', () => admission.running === 0);
+  });
+
+  it('when a write is in progress, then one read runs at a time until it ends, and the waiting reads start in order after it', async () => {
+    const researcher = await apiClient(server);
+    const holder = new pg.Client({ connectionString: inject('databaseUrl') });
+    await holder.connect();
+    let released = false;
+    const release = async () => {
+      if (released) return;
+      released = true;
+      await holder.query('ROLLBACK');
+      await holder.end();
+    };
+    try {
+      // Reads held in the database, so each keeps its turn until the test lets them go.
+      await holder.query('BEGIN');
+      await holder.query('LOCK TABLE studies IN ACCESS EXCLUSIVE MODE');
+      started.length = 0;
+      const write = researcher.post('/api/test-admission-write', {});
+      const written = write.then((answer) => answer.status);
+      await until('the write is in progress', () => heldWrites.length === 1 && admission.writing === 1);
+
+      const first = get('/api/test-admission-probe/31');
+      await until('read 31 runs', () => started.length === 1 && admission.running === 1);
+      // Two turns in all, but only one while the write runs: read 32 waits.
+      const second = get('/api/test-admission-probe/32');
+      await until('read 32 waits', () => admission.waiting === 1);
+      expect(admission.running).toBe(1);
+      expect(started).toEqual([31]);
+
+      heldWrites.splice(0).forEach((letGo) => letGo());
+      expect(await written).toBe(200);
+      // The write has ended: the second turn is free again.
+      await until('read 32 runs', () => admission.running === 2 && admission.waiting === 0);
+      expect(admission.writing).toBe(0);
+      expect(started).toEqual([31, 32]);
+
+      await release();
+      const answers = await Promise.all([first.answer, second.answer]);
+      expect(answers.map((answer) => answer.status)).toEqual([200, 200]);
+      await until('every turn is given back', () => admission.running === 0);
+    } finally {
+      heldWrites.splice(0).forEach((letGo) => letGo());
+      await release();
+    }
   });
 });
