@@ -107,6 +107,29 @@ async function until(what: string, condition: () => boolean) {
   throw new Error(`still not so after 10 s: ${what}`);
 }
 
+/**
+ * Locks the studies table from another connection until the returned function is called (it may
+ * be called more than once), so reads that touch it stay in the database holding their turns.
+ */
+async function holdStudiesTable() {
+  const holder = new pg.Client({ connectionString: inject('databaseUrl') });
+  await holder.connect();
+  try {
+    await holder.query('BEGIN');
+    await holder.query('LOCK TABLE studies IN ACCESS EXCLUSIVE MODE');
+  } catch (error) {
+    await holder.end();
+    throw error;
+  }
+  let released = false;
+  return async () => {
+    if (released) return;
+    released = true;
+    await holder.query('ROLLBACK');
+    await holder.end();
+  };
+}
+
 describe('reads wait for a turn', () => {
   it('when reads held in the database fill the limit, then later reads queue in order, a write and /api/health still answer, a queued read whose client left never runs, and a full queue answers 503', async () => {
     const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
@@ -114,19 +137,8 @@ describe('reads wait for a turn', () => {
     await researcher.signIn(users.researcher);
 
     // Another connection holds the studies table, as a long migration or a slow writer would.
-    const holder = new pg.Client({ connectionString: inject('databaseUrl') });
-    await holder.connect();
-    let released = false;
-    const release = async () => {
-      if (released) return;
-      released = true;
-      await holder.query('ROLLBACK');
-      await holder.end();
-    };
+    const release = await holdStudiesTable();
     try {
-      await holder.query('BEGIN');
-      await holder.query('LOCK TABLE studies IN ACCESS EXCLUSIVE MODE');
-
       const running = [get('/api/test-admission-probe/1'), get('/api/test-admission-probe/2')];
       await until('two reads run, blocked in the database', () => started.length === 2 && admission.running === 2);
 
@@ -204,19 +216,9 @@ describe('reads wait for a turn', () => {
 
   it('when a write is in progress, then one read runs at a time until it ends, and the waiting reads start in order after it', async () => {
     const researcher = await apiClient(server);
-    const holder = new pg.Client({ connectionString: inject('databaseUrl') });
-    await holder.connect();
-    let released = false;
-    const release = async () => {
-      if (released) return;
-      released = true;
-      await holder.query('ROLLBACK');
-      await holder.end();
-    };
+    // Reads held in the database, so each keeps its turn until the test lets them go.
+    const release = await holdStudiesTable();
     try {
-      // Reads held in the database, so each keeps its turn until the test lets them go.
-      await holder.query('BEGIN');
-      await holder.query('LOCK TABLE studies IN ACCESS EXCLUSIVE MODE');
       started.length = 0;
       const write = researcher.post('/api/test-admission-write', {});
       const written = write.then((answer) => answer.status);

@@ -1,8 +1,7 @@
 import crypto from 'node:crypto';
-import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiClient, createLabWithMembers } from '../support/accounts';
-import { createStudy } from '../support/studies';
+import { copyStudyInSql, createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
 const testApp = await createTestApp();
@@ -23,26 +22,19 @@ type Page = {
  * values and NULL, drafts and submitted ones alternating (invented values).
  */
 async function copyStudies(lab: string, templateId: string, count: number) {
-  const columns = (
-    await testApp.sequelize.query<{ column_name: string }>(
-      "SELECT column_name FROM information_schema.columns WHERE table_name = 'studies' AND table_schema = current_schema()",
-      { type: QueryTypes.SELECT },
-    )
-  )
-    .map((row) => row.column_name)
-    .filter((name) => !['id', 'title', 'kq', 'k_sv', 'status', 'updated_at', 'created_at'].includes(name));
-  const list = columns.map((name) => `"${name}"`).join(', ');
-  await testApp.sequelize.query(
-    `INSERT INTO studies (id, title, kq, k_sv, status, updated_at, created_at, ${list})
-     SELECT gen_random_uuid(), 'copy ' || g,
-            CASE WHEN g % 5 = 0 THEN NULL ELSE (g % 3) * 1e9 END,
-            CASE WHEN g % 5 = 0 THEN NULL ELSE (g % 3) * 1e3 END,
-            (CASE WHEN g % 2 = 0 THEN 'draft' ELSE 'submitted' END)::enum_studies_status,
-            timestamptz '2026-11-01 10:00:00.123456+00' + (g % 4) * interval '1 second',
-            timestamptz '2026-11-01 10:00:00+00', ${list}
-     FROM studies, generate_series(1, $2::int) AS g WHERE studies.id = $1 AND studies.lab_id = $3`,
-    { bind: [templateId, count, lab] },
-  );
+  await copyStudyInSql(testApp.sequelize, {
+    templateId,
+    labId: lab,
+    count,
+    set: {
+      title: "'copy ' || g",
+      kq: 'CASE WHEN g % 5 = 0 THEN NULL ELSE (g % 3) * 1e9 END',
+      k_sv: 'CASE WHEN g % 5 = 0 THEN NULL ELSE (g % 3) * 1e3 END',
+      status: "(CASE WHEN g % 2 = 0 THEN 'draft' ELSE 'submitted' END)::enum_studies_status",
+      updated_at: "timestamptz '2026-11-01 10:00:00.123456+00' + (g % 4) * interval '1 second'",
+      created_at: "timestamptz '2026-11-01 10:00:00+00'",
+    },
+  });
 }
 
 beforeAll(async () => {

@@ -2,7 +2,7 @@ import crypto from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiClient, createLabWithMembers } from '../support/accounts';
-import { createStudy } from '../support/studies';
+import { copyStudyInSql, createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
 const testApp = await createTestApp();
@@ -24,25 +24,18 @@ beforeAll(async () => {
   viewer = await apiClient(testApp.app);
   await viewer.signIn(users.viewer);
   const template = await createStudy(researcher, labId, crypto.randomBytes(3).toString('hex'));
-  const columns = (
-    await testApp.sequelize.query<{ column_name: string }>(
-      "SELECT column_name FROM information_schema.columns WHERE table_name = 'studies' AND table_schema = current_schema()",
-      { type: QueryTypes.SELECT },
-    )
-  )
-    .map((row) => row.column_name)
-    .filter((name) => !['id', 'title', 'notes', 'kq', 'updated_at', 'created_at'].includes(name));
-  const list = columns.map((name) => `"${name}"`).join(', ');
-  await testApp.sequelize.query(
-    `INSERT INTO studies (id, title, notes, kq, updated_at, created_at, ${list})
-     SELECT gen_random_uuid(), CASE WHEN g <= 16 THEN 'plain ' ELSE 'match ' END || g,
-            CASE WHEN g % 3 = 0 THEN 'Thiophenol run' ELSE 'amine' END,
-            CASE WHEN g % 5 = 0 THEN NULL ELSE (g % 3) * 1e9 END,
-            timestamptz '2026-11-01 10:00:00+00' - (g / 2) * interval '1 minute',
-            timestamptz '2026-11-01 10:00:00+00', ${list}
-     FROM studies, generate_series(1, 36) AS g WHERE studies.id = $1 AND studies.lab_id = $2`,
-    { bind: [template.id, labId] },
-  );
+  await copyStudyInSql(testApp.sequelize, {
+    templateId: template.id,
+    labId,
+    count: 36,
+    set: {
+      title: "CASE WHEN g <= 16 THEN 'plain ' ELSE 'match ' END || g",
+      notes: "CASE WHEN g % 3 = 0 THEN 'Thiophenol run' ELSE 'amine' END",
+      kq: 'CASE WHEN g % 5 = 0 THEN NULL ELSE (g % 3) * 1e9 END',
+      updated_at: "timestamptz '2026-11-01 10:00:00+00' - (g / 2) * interval '1 minute'",
+      created_at: "timestamptz '2026-11-01 10:00:00+00'",
+    },
+  });
   await testApp.sequelize.query('UPDATE studies SET is_current = false WHERE id = $1', { bind: [template.id] });
 });
 afterAll(testApp.close);
