@@ -3,15 +3,6 @@ import compression from 'compression';
 
 const noTransform = /(?:^|,)\s*?no-transform\s*?(?:,|$)/i;
 
-/** Adds Accept-Encoding to the response's Vary header unless it is there already (or is *). */
-function varyOnAcceptEncoding(res: Response): void {
-  const vary = res.getHeader('Vary');
-  const named = (Array.isArray(vary) ? vary.join(',') : String(vary ?? '')).toLowerCase();
-  if (!vary) res.setHeader('Vary', 'Accept-Encoding');
-  else if (!/(?:^|,)\s*(?:accept-encoding|\*)\s*(?:,|$)/.test(named))
-    res.setHeader('Vary', `${String(vary)}, Accept-Encoding`);
-}
-
 /**
  * `compress` (the compression middleware) for requests that name an Accept-Encoding. For one that
  * names none, compression (1.8, index.js) answers unencoded ("identity") and its only mark on the
@@ -30,7 +21,8 @@ export function compressWhenAccepted(compress: RequestHandler): RequestHandler {
     res.writeHead = function (this: Response, ...args: unknown[]) {
       const cacheControl = res.getHeader('Cache-Control');
       if (compression.filter(req, res) && !(typeof cacheControl === 'string' && noTransform.test(cacheControl))) {
-        varyOnAcceptEncoding(res);
+        // express's res.vary adds the field once, and leaves a Vary of * alone.
+        res.vary('Accept-Encoding');
       }
       return (writeHead as (...all: unknown[]) => Response).apply(this, args);
     } as Response['writeHead'];
