@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { apiClient, createLabWithMembers } from '../support/accounts';
+import { apiClient, createLabWithMembers, signedInResearcherAndViewer } from '../support/accounts';
 import { copyStudyInSql, createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
@@ -38,12 +38,9 @@ async function copyStudies(lab: string, templateId: string, count: number) {
 }
 
 beforeAll(async () => {
-  const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher', 'viewer'] });
-  labId = lab.id;
-  const researcher = await apiClient(testApp.app);
-  await researcher.signIn(users.researcher);
-  viewer = await apiClient(testApp.app);
-  await viewer.signIn(users.viewer);
+  const setUp = await signedInResearcherAndViewer(testApp);
+  ({ labId, viewer } = setUp);
+  const { researcher } = setUp;
   const template = await createStudy(researcher, labId, crypto.randomBytes(3).toString('hex'));
   // The template itself leaves the list, so the lab holds exactly the 23 copies.
   await copyStudies(labId, template.id, 23);

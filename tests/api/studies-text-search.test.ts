@@ -1,12 +1,12 @@
 import crypto from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { apiClient, createLabWithMembers } from '../support/accounts';
+import { signedInResearcherAndViewer, type ApiClient } from '../support/accounts';
 import { copyStudyInSql, createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
 const testApp = await createTestApp();
-type Client = Awaited<ReturnType<typeof apiClient>>;
+type Client = ApiClient;
 let viewer: Client;
 let labId = '';
 type Page = { items: Array<{ id: string }>; total: number; nextCursor: string | null; previousCursor: string | null };
@@ -17,12 +17,9 @@ type Page = { items: Array<{ id: string }>; total: number; nextCursor: string | 
  * come in pairs (ties broken by id) and kq from three values and NULL.
  */
 beforeAll(async () => {
-  const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher', 'viewer'] });
-  labId = lab.id;
-  const researcher = await apiClient(testApp.app);
-  await researcher.signIn(users.researcher);
-  viewer = await apiClient(testApp.app);
-  await viewer.signIn(users.viewer);
+  const setUp = await signedInResearcherAndViewer(testApp);
+  ({ labId, viewer } = setUp);
+  const { researcher } = setUp;
   const template = await createStudy(researcher, labId, crypto.randomBytes(3).toString('hex'));
   await copyStudyInSql(testApp.sequelize, {
     templateId: template.id,

@@ -70,6 +70,19 @@ export async function signedInResearcher(testApp: {
   return { labId: lab.id, client, csrf };
 }
 
+/** A new lab with a researcher and a viewer, each signed in through a fresh client: the set-up of the list tests. */
+export async function signedInResearcherAndViewer(testApp: {
+  app: Parameters<typeof request.agent>[0];
+  sequelize: Sequelize;
+}): Promise<{ labId: string; researcher: ApiClient; viewer: ApiClient }> {
+  const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher', 'viewer'] });
+  const researcher = await apiClient(testApp.app);
+  await researcher.signIn(users.researcher);
+  const viewer = await apiClient(testApp.app);
+  await viewer.signIn(users.viewer);
+  return { labId: lab.id, researcher, viewer };
+}
+
 /**
  * When this test file loaded this module (vitest loads it afresh per file): the mail jobs a file
  * waits for are its own. The api files share one database, and a job another file left behind
