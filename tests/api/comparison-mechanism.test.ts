@@ -1,7 +1,5 @@
 import crypto from 'node:crypto';
-import { Writable } from 'node:stream';
 import { PDFParse } from 'pdf-parse';
-import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { solventDiffusionLimit } from '@shared/engine';
 import { MECHANISM_VERDICT_WORDS, type MechanismVerdictValue } from '@shared/schemas/mechanism-evidence';
@@ -11,19 +9,14 @@ import { initModels } from '../../server/models';
 import { signedInResearcher, type ApiClient } from '../support/accounts';
 import { createStudyRecord } from '../support/study-records';
 import { createStudy } from '../support/studies';
+import { keptLogLines, linesWhen } from '../support/log-lines';
 import { createTestApp } from '../support/test-app';
 
 // At debug level each request's log line counts its database round trips (as in read-round-trips.test.ts).
-const lines: string[] = [];
-const sink = new Writable({
-  write(chunk: Buffer, _encoding, done) {
-    lines.push(chunk.toString('utf8'));
-    done();
-  },
-});
 const sequelize = createSequelize(inject('databaseUrl'), { timeQueries: true });
 initModels(sequelize);
-const testApp = await createTestApp({ sequelize, logger: pino({ level: 'debug' }, sink) });
+const { lines, logger } = keptLogLines<Line>('debug');
+const testApp = await createTestApp({ sequelize, logger });
 let client: ApiClient, csrf: string, labId: string, emitterId: string;
 beforeAll(async () => {
   ({ client, csrf, labId } = await signedInResearcher(testApp));
@@ -39,10 +32,7 @@ async function roundTripsOf(url: string): Promise<{ queries: number; body: Compa
   lines.length = 0;
   const response = await client.get(url);
   expect(response.status, JSON.stringify(response.body)).toBe(200);
-  await new Promise((resolve) => setImmediate(resolve));
-  const line = lines
-    .map((text) => JSON.parse(text) as Line)
-    .find((entry) => entry.req?.url === url && entry.res?.statusCode === 200);
+  const [line] = await linesWhen(lines, (entry) => entry.req?.url === url && entry.res?.statusCode === 200);
   expect(line, `no log line for ${url}`).toBeDefined();
   return { queries: line!.database?.queries ?? 0, body: response.body as Comparison };
 }

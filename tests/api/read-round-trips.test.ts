@@ -1,5 +1,3 @@
-import { Writable } from 'node:stream';
-import { pino } from 'pino';
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
@@ -8,20 +6,15 @@ import { initModels } from '../../server/models';
 import { loadSessionState } from '../../server/services/session-user.service';
 import { apiClient, createLabWithMembers } from '../support/accounts';
 import { createStudy, exactPoints } from '../support/studies';
+import { keptLogLines, linesWhen } from '../support/log-lines';
 import { createTestApp } from '../support/test-app';
 
 // At debug level each request's log line counts its database round trips (Sequelize's, the plain
 // reads' and the session store's): what a read costs besides its answer, checked route by route.
-const lines: string[] = [];
-const sink = new Writable({
-  write(chunk: Buffer, _encoding, done) {
-    lines.push(chunk.toString('utf8'));
-    done();
-  },
-});
 const sequelize = createSequelize(inject('databaseUrl'), { timeQueries: true });
 initModels(sequelize);
-const testApp = await createTestApp({ sequelize, logger: pino({ level: 'debug' }, sink) });
+const { lines, logger } = keptLogLines<Line>('debug');
+const testApp = await createTestApp({ sequelize, logger });
 afterAll(async () => {
   await testApp.close();
   await sequelize.close();
@@ -33,11 +26,7 @@ type Line = { req?: { method: string; url: string }; res?: { statusCode: number 
 async function roundTripsOf(send: () => Promise<{ status: number }>, url: string): Promise<number> {
   lines.length = 0;
   expect((await send()).status).toBe(200);
-  // The line is written when the answer has gone out; give the stream a turn.
-  await new Promise((resolve) => setImmediate(resolve));
-  const line = lines
-    .map((text) => JSON.parse(text) as Line)
-    .find((entry) => entry.req?.url === url && entry.res?.statusCode === 200);
+  const [line] = await linesWhen(lines, (entry) => entry.req?.url === url && entry.res?.statusCode === 200);
   expect(line, `no log line for ${url}`).toBeDefined();
   return line!.database?.queries ?? 0;
 }

@@ -1,9 +1,8 @@
-import { Writable } from 'node:stream';
-import { pino } from 'pino';
 import { afterAll, describe, expect, it, vi } from 'vitest';
 import { defineRoute } from '../../server/http/define-route';
 import { apiRoutes } from '../../server/routes';
 import { apiClient, createLabWithMembers } from '../support/accounts';
+import { keptLogLines, linesWhen } from '../support/log-lines';
 import { createTestApp } from '../support/test-app';
 
 // Every line the app writes at info level, parsed.
@@ -24,13 +23,7 @@ type Line = {
   err?: { message: string };
   responseTime?: number;
 };
-const lines: Line[] = [];
-const sink = new Writable({
-  write(chunk: Buffer, _encoding, done) {
-    lines.push(JSON.parse(chunk.toString('utf8')) as Line);
-    done();
-  },
-});
+const { lines, logger } = keptLogLines<Line>('info');
 const failing = defineRoute({
   method: 'get',
   path: '/api/log-test/failure',
@@ -42,23 +35,10 @@ const failing = defineRoute({
     throw new Error('failed on purpose');
   },
 });
-const logger = pino({ level: 'info' }, sink);
 const testApp = await createTestApp({ logger, routes: [...apiRoutes, failing] });
 afterAll(testApp.close);
 
-/**
- * The lines that `keep` picks, once `expected` of them are there: a line is written at the response's
- * 'close', which can come after the client has read the answer (later still on a busy machine), so the
- * line of a request made before `lines` was emptied (the client's CSRF-token read) can arrive after it.
- * Bounded at 10 s; one more turn of the event loop lets a line too many show up.
- */
-async function written(expected: number, keep: (line: Line) => boolean): Promise<Line[]> {
-  for (let tries = 0; tries < 500 && lines.filter(keep).length < expected; tries++) {
-    await new Promise((resolve) => setTimeout(resolve, 20));
-  }
-  await new Promise((resolve) => setImmediate(resolve));
-  return lines.filter(keep);
-}
+/** Leaves out the line of the client's set-up read, which can arrive after `lines` was emptied. */
 const notTheClientsSetUp = (line: Line) => line.req?.url !== '/api/csrf-token';
 
 describe('the request log at info level', () => {
@@ -72,7 +52,7 @@ describe('the request log at info level', () => {
     expect((await client.get('/api/health')).status).toBe(200);
     expect((await client.get('/api/session')).status).toBe(200);
 
-    const [signIn, read, session, ...rest] = await written(3, notTheClientsSetUp);
+    const [signIn, read, session, ...rest] = await linesWhen(lines, notTheClientsSetUp, 3);
     // The health check, asked every few seconds by monitors, is left out (as pino-http's ignore did).
     expect(rest).toEqual([]);
     expect(read).toMatchObject({
@@ -121,7 +101,7 @@ describe('the request log at info level', () => {
     const client = await apiClient(testApp.app);
     lines.length = 0;
     expect((await client.get('/api/log-test/failure?code=123456')).status).toBe(500);
-    const [error, line] = await written(2, (line) => line.req?.url.startsWith('/api/log-test/') === true);
+    const [error, line] = await linesWhen(lines, (line) => line.req?.url.startsWith('/api/log-test/') === true, 2);
     expect(error).toMatchObject({
       level: 50,
       msg: 'unhandled error',

@@ -1,25 +1,18 @@
-import { Writable } from 'node:stream';
-import { pino } from 'pino';
 import { afterAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
 import { createSequelize } from '../../server/db/sequelize';
 import { initModels } from '../../server/models';
 import { signedInResearcher } from '../support/accounts';
 import { createStudy, exactPoints, studyBody } from '../support/studies';
+import { keptLogLines, linesWhen } from '../support/log-lines';
 import { createTestApp } from '../support/test-app';
 
 // At debug level each request's log line counts its database round trips (Sequelize's, the plain
 // reads' and the session store's): the writes of bench:load's write mix, checked one by one.
-const lines: string[] = [];
-const sink = new Writable({
-  write(chunk: Buffer, _encoding, done) {
-    lines.push(chunk.toString('utf8'));
-    done();
-  },
-});
 const sequelize = createSequelize(inject('databaseUrl'), { timeQueries: true });
 initModels(sequelize);
-const testApp = await createTestApp({ sequelize, logger: pino({ level: 'debug' }, sink) });
+const { lines, logger } = keptLogLines<Line>('debug');
+const testApp = await createTestApp({ sequelize, logger });
 /** Each statement Sequelize ran, with the transaction it ran in. */
 const statements: Array<{ sql: string; transaction: string | undefined }> = [];
 sequelize.addHook('afterQuery', (options, query) => {
@@ -38,10 +31,7 @@ type Line = { req?: { method: string; url: string }; res?: { statusCode: number 
 async function roundTripsOf(send: () => PromiseLike<{ status: number }>, url: string, status: number) {
   lines.length = 0;
   expect((await send()).status).toBe(status);
-  await new Promise((resolve) => setImmediate(resolve));
-  const line = lines
-    .map((text) => JSON.parse(text) as Line)
-    .find((entry) => entry.req?.url === url && entry.res?.statusCode === status);
+  const [line] = await linesWhen(lines, (entry) => entry.req?.url === url && entry.res?.statusCode === status);
   expect(line, `no log line for ${url}`).toBeDefined();
   return line!.database?.queries ?? 0;
 }
