@@ -8,7 +8,9 @@
  * filter, sort and text search, the dashboard and a comparison of one emitter, and shows which
  * indexes PostgreSQL picks. Prints figures only; nothing is asserted. All names and numbers are
  * invented. BENCH_STUDIES_LABS, BENCH_STUDIES_PER_LAB and BENCH_STUDIES_BIG_LAB set other sizes
- * (the seeding of a million rows takes minutes).
+ * (the seeding of a million rows takes minutes). BENCH_STUDIES_DATA=<folder> keeps the cluster
+ * there: a later run with the same folder and sizes skips the seeding (migrations still run, so a
+ * new index is built on the kept rows), for timing one change before and after on the same data.
  */
 import fs from 'node:fs';
 import os from 'node:os';
@@ -22,7 +24,7 @@ import { initModels } from '../../server/models';
 import { listStudies } from '../../server/services/studies/study-list.service';
 import { freePort } from '../support/free-port';
 import { createBenchMember, signedInClient, startBenchServer } from './bench-http';
-import { seedScaleStudies, type BenchLab } from './studies-scale-data';
+import { seedScaleStudies, seededScaleStudies, type BenchLab } from './studies-scale-data';
 
 const RUNS = 20;
 const HTTP_RUNS = 100;
@@ -203,7 +205,9 @@ async function explain(sequelize: ReturnType<typeof createSequelize>, lab: LabCo
 }
 
 async function main() {
-  const dataRoot = fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-bench-'));
+  const kept = process.env.BENCH_STUDIES_DATA ? path.resolve(process.env.BENCH_STUDIES_DATA) : undefined;
+  if (kept) fs.mkdirSync(kept, { recursive: true });
+  const dataRoot = kept ?? fs.mkdtempSync(path.join(os.tmpdir(), 'halflight-bench-'));
   const database = await startEmbeddedPostgres({ dataRoot, port: await freePort(), database: 'halflight_bench' });
   const sequelize = createSequelize(database.url);
   try {
@@ -211,15 +215,15 @@ async function main() {
     initModels(sequelize);
     console.log(`bench:studies — load average before start (1 / 5 / 15 min): ${loadAverage()}`);
     const started = performance.now();
-    console.log(`Making ${LABS} labs x ${PER_LAB} studies and one lab of ${BIG_LAB} (generate_series):`);
-    const seeded = await seedScaleStudies(sequelize, {
-      labs: LABS,
-      perLab: PER_LAB,
-      bigLab: BIG_LAB,
-      log: (line) => console.log(line),
-    });
+    const sizes = { labs: LABS, perLab: PER_LAB, bigLab: BIG_LAB };
+    let seeded = kept ? await seededScaleStudies(sequelize, sizes) : undefined;
+    if (seeded) console.log(`Kept studies in ${dataRoot} (the same sizes), analysed again:`);
+    else {
+      console.log(`Making ${LABS} labs x ${PER_LAB} studies and one lab of ${BIG_LAB} (generate_series):`);
+      seeded = await seedScaleStudies(sequelize, { ...sizes, log: (line) => console.log(line) });
+    }
     console.log(
-      `${seeded.total.toLocaleString('en-US')} studies in ${((performance.now() - started) / 1000).toFixed(0)} s, VACUUM ANALYZE done.`,
+      `${seeded.total.toLocaleString('en-US')} studies ready in ${((performance.now() - started) / 1000).toFixed(0)} s, VACUUM ANALYZE done.`,
     );
     const server = await startBenchServer(sequelize, database.url);
     try {
@@ -257,7 +261,7 @@ async function main() {
   } finally {
     await sequelize.close();
     await database.stop();
-    fs.rmSync(dataRoot, { recursive: true, force: true });
+    if (!kept) fs.rmSync(dataRoot, { recursive: true, force: true });
   }
 }
 

@@ -83,6 +83,16 @@ export async function seedScaleStudies(
   await q('VACUUM ANALYZE studies');
   await q('VACUUM ANALYZE compounds');
 
+  return scaleLabs(sequelize, options);
+}
+
+type Sizes = { labs: number; perLab: number; bigLab: number };
+
+async function scaleLabs(
+  sequelize: Sequelize,
+  options: Sizes,
+): Promise<{ typical: BenchLab; big: BenchLab; total: number }> {
+  const q = (sql: string, replacements: Record<string, unknown> = {}) => sequelize.query(sql, { replacements });
   const labOf = async (slug: string, studies: number): Promise<BenchLab> => {
     const [rows] = (await q(
       `SELECT labs.id AS "labId",
@@ -99,4 +109,27 @@ export async function seedScaleStudies(
     big: await labOf('scale-0', options.bigLab),
     total: options.labs * options.perLab + options.bigLab,
   };
+}
+
+/**
+ * The labs seedScaleStudies made earlier in this database (a kept bench cluster), analysed again,
+ * when they have the sizes asked for; undefined when the database holds none (a set of other sizes,
+ * or one left half made, stops seedScaleStudies at its users: delete the folder to start over).
+ */
+export async function seededScaleStudies(
+  sequelize: Sequelize,
+  options: Sizes,
+): Promise<{ typical: BenchLab; big: BenchLab; total: number } | undefined> {
+  const [rows] = (await sequelize.query(
+    `SELECT count(*) FILTER (WHERE l.slug <> 'scale-0')::int AS labs,
+       (SELECT count(*)::int FROM studies s WHERE s.lab_id = (SELECT id FROM labs WHERE slug = 'scale-0')) AS big,
+       (SELECT count(*)::int FROM studies s WHERE s.lab_id = (SELECT id FROM labs WHERE slug = 'scale-1')) AS "perLab"
+     FROM labs l WHERE l.slug LIKE 'scale-%'`,
+  )) as [Array<{ labs: number; big: number; perLab: number }>, unknown];
+  const found = rows[0];
+  if (!found || found.labs !== options.labs || found.big !== options.bigLab || found.perLab !== options.perLab) {
+    return undefined;
+  }
+  await sequelize.query('ANALYZE studies');
+  return scaleLabs(sequelize, options);
 }
