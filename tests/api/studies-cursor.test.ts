@@ -153,6 +153,25 @@ describe('GET /api/labs/:labId/studies with a cursor', () => {
     }
   });
 
+  it('when every study past a cursor has left the list, then its page is empty and the total counts what is left', async () => {
+    const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
+    const researcher = await apiClient(testApp.app);
+    await researcher.signIn(users.researcher);
+    const template = await createStudy(researcher, lab.id, crypto.randomBytes(3).toString('hex'));
+    await copyStudies(lab.id, template.id, 5);
+    const first = (await researcher.get(`/api/labs/${lab.id}/studies?sort=kq&pageSize=3`)).body as Page;
+    expect(first.total).toBe(6);
+    const rest = (await researcher.get(`/api/labs/${lab.id}/studies?sort=kq&pageSize=100`)).body as Page;
+    await testApp.sequelize.query('UPDATE studies SET is_current = false WHERE id IN (:ids)', {
+      replacements: { ids: ids(rest.items.slice(3)) },
+    });
+    const response = await researcher.get(
+      `/api/labs/${lab.id}/studies?sort=kq&pageSize=3&cursor=${encodeURIComponent(first.nextCursor!)}`,
+    );
+    expect(response.status).toBe(200);
+    expect(response.body).toMatchObject({ items: [], total: 3, totalCapped: false, nextCursor: null });
+  });
+
   it('when the cursor is not one the list gave out, then 400 names query.cursor', async () => {
     for (const cursor of ['not-a-cursor', Buffer.from('{"s":"updated"}').toString('base64url')]) {
       const response = await viewer.get(`/api/labs/${labId}/studies?cursor=${cursor}`);

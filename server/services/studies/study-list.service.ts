@@ -64,7 +64,7 @@ function decodeCursor(text: string, sort: Sort, direction: Direction): Cursor {
   return cursor;
 }
 
-type Row = SummaryRow & { sortKey: string | null };
+type Row = SummaryRow & { sortKey: string | null; matches?: number };
 
 /** Binds values as $1, $2, … in the order they are added. */
 class Binds {
@@ -96,44 +96,54 @@ function onePlanSuits(query: ListStudiesQuery, offset: number): boolean {
 }
 
 /**
- * How many current studies match, up to STUDY_COUNT_CAP + 1. Filtered by owner, status and flag
- * only (or not at all), the answer is a sum over the lab's rows of lab_study_counts, which
- * triggers keep equal to the studies (migration 20261203-0910); other filters count the matching
- * rows, stopping after the cap (a prepared statement unless a text search is among them).
+ * How many current studies match, up to STUDY_COUNT_CAP + 1, as one SELECT of one value `n` over
+ * the list's own binds (the placeholders of its WHERE). Filtered by owner, status and flag only
+ * (or not at all), the answer is a sum over the lab's rows of lab_study_counts, which triggers keep
+ * equal to the studies (migration 20261203-0910), so it is exact; other filters count the matching
+ * rows, stopping after the cap.
+ */
+function countSql(query: ListStudiesQuery, where: string[], placeholders: Placeholders): string {
+  if (query.q || query.emitterId || query.quencherId || query.solventId) {
+    return `SELECT count(*)::int AS n FROM (SELECT 1 FROM studies s WHERE ${where.join(' AND ')} LIMIT ${STUDY_COUNT_CAP + 1}) c`;
+  }
+  const kept = [`c.lab_id = ${placeholders.lab}`];
+  if (placeholders.status) kept.push(`c.status = ${placeholders.status}`);
+  if (placeholders.owner) kept.push(`c.owner_id = ${placeholders.owner}`);
+  if (query.flagged === 'true') kept.push('c.flagged');
+  return `SELECT coalesce(sum(c.n), 0)::int AS n FROM lab_study_counts c WHERE ${kept.join(' AND ')}`;
+}
+
+/** Where the list's WHERE binds the values the kept counts are looked up by. */
+interface Placeholders {
+  lab: string;
+  status?: string;
+  owner?: string;
+}
+
+/**
+ * The count on its own (for pages that need it before they are read). Without a text search one
+ * plan suits every lab, so it runs prepared (one text per combination of filters): whatever plan
+ * PostgreSQL keeps reads one filter's index within the lab and stops at the cap, or looks the
+ * kept counts up by key; planning it on every call took about 0.32 ms beside 0.68 ms of running
+ * (emitter and solvent, the load benchmark's read mix, pg_stat_statements). A text search's count
+ * comes with the lab's own total beside it (lab_study_counts), which textSearchPage weighs the
+ * matches against.
  */
 function countMatches(
-  lab: LabContext,
   query: ListStudiesQuery,
   where: string[],
+  placeholders: Placeholders,
   whereValues: unknown[],
 ): Promise<Array<{ n: number; labTotal?: number }>> {
   const sequelize = Study.sequelize!;
+  const count = countSql(query, where, placeholders);
   if (query.q) {
-    // With the lab's own total beside it (lab_study_counts), which textSearchPage weighs the matches against.
     const text =
-      `SELECT (SELECT count(*)::int FROM (SELECT 1 FROM studies s WHERE ${where.join(' AND ')} LIMIT ${STUDY_COUNT_CAP + 1}) c) AS n, ` +
-      '(SELECT coalesce(sum(t.n), 0)::int FROM lab_study_counts t WHERE t.lab_id = $1) AS "labTotal"';
+      `SELECT (${count}) AS n, ` +
+      `(SELECT coalesce(sum(t.n), 0)::int FROM lab_study_counts t WHERE t.lab_id = ${placeholders.lab}) AS "labTotal"`;
     return selectRows(sequelize, text, whereValues);
   }
-  if (query.emitterId || query.quencherId || query.solventId) {
-    const text = `SELECT count(*)::int AS n FROM (SELECT 1 FROM studies s WHERE ${where.join(' AND ')} LIMIT ${STUDY_COUNT_CAP + 1}) c`;
-    // Without a text search, whatever plan PostgreSQL keeps reads one filter's index within the lab
-    // and stops at the cap, so the count runs prepared (one text per combination of filters): it was
-    // planned on every call, about 0.32 ms of planning beside 0.68 ms of running (emitter and solvent,
-    // the load benchmark's read mix, pg_stat_statements).
-    return selectRows<{ n: number }>(sequelize, fixedStatementOf(text), whereValues);
-  }
-  const binds = new Binds();
-  const kept = [`c.lab_id = ${binds.add(lab.id)}`];
-  if (query.status) kept.push(`c.status = ${binds.add(query.status)}`);
-  if (query.ownerId) kept.push(`c.owner_id = ${binds.add(query.ownerId)}`);
-  if (query.flagged === 'true') kept.push('c.flagged');
-  // A lookup by key: one plan suits every lab (eight texts at most).
-  return selectRows<{ n: number }>(
-    sequelize,
-    fixedStatementOf(`SELECT coalesce(sum(c.n), 0)::int AS n FROM lab_study_counts c WHERE ${kept.join(' AND ')}`),
-    binds.values,
-  );
+  return selectRows<{ n: number }>(sequelize, fixedStatementOf(count), whereValues);
 }
 
 /**
@@ -173,12 +183,13 @@ async function textSearchWindow(
 export async function listStudies(lab: LabContext, query: ListStudiesQuery): Promise<StudyList> {
   const sequelize = Study.sequelize!;
   const binds = new Binds();
-  const where = [`s.lab_id = ${binds.add(lab.id)}`, 's.is_current'];
+  const placeholders: Placeholders = { lab: binds.add(lab.id) };
+  const where = [`s.lab_id = ${placeholders.lab}`, 's.is_current'];
   if (query.emitterId) where.push(`s.emitter_id = ${binds.add(query.emitterId)}`);
   if (query.quencherId) where.push(`s.quencher_id = ${binds.add(query.quencherId)}`);
   if (query.solventId) where.push(`s.solvent_id = ${binds.add(query.solventId)}`);
-  if (query.status) where.push(`s.status = ${binds.add(query.status)}`);
-  if (query.ownerId) where.push(`s.owner_id = ${binds.add(query.ownerId)}`);
+  if (query.status) where.push(`s.status = ${(placeholders.status = binds.add(query.status))}`);
+  if (query.ownerId) where.push(`s.owner_id = ${(placeholders.owner = binds.add(query.ownerId))}`);
   if (query.flagged === 'true') where.push('s.flagged');
   const text = query.q ? `(s.title || ' ' || s.notes) ILIKE ${binds.add(`%${escapeLike(query.q)}%`)}` : null;
   if (text) where.push(text);
@@ -244,14 +255,20 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
            (SELECT e.name FROM compounds e WHERE e.id = p.emitter_id) AS "emitterName",
            (SELECT q.name FROM compounds q WHERE q.id = p.quencher_id) AS "quencherName",
            (SELECT o.name FROM users o WHERE o.id = p.owner_id) AS "ownerName"`;
-  const pageSql = `SELECT ${named} FROM (${selects.join(' UNION ALL ')}) p ORDER BY ${order('p')} LIMIT ${limit}`;
-  const pageRows = () =>
-    selectRows<Row>(sequelize, onePlanSuits(query, offset) ? fixedStatementOf(pageSql) : pageSql, binds.values);
-  const counting = countMatches(lab, query, where, binds.values.slice(0, filterBinds));
+  const pageSql = (counted: boolean) =>
+    `SELECT ${named}${counted ? `, (${countSql(query, where, placeholders)}) AS "matches"` : ''} ` +
+    `FROM (${selects.join(' UNION ALL ')}) p ORDER BY ${order('p')} LIMIT ${limit}`;
+  // With the count beside each row (a subquery PostgreSQL runs once, when the first row goes out,
+  // in the page's own snapshot): one round trip instead of two.
+  const pageRows = (counted = false) => {
+    const sql = pageSql(counted);
+    return selectRows<Row>(sequelize, onePlanSuits(query, offset) ? fixedStatementOf(sql) : sql, binds.values);
+  };
+  const counting = () => countMatches(query, where, placeholders, binds.values.slice(0, filterBinds));
   let rows: Row[];
   let counted: { n: number; labTotal?: number } | undefined;
   if (text && parts.length === 1) {
-    [counted] = await counting;
+    [counted] = await counting();
     // A window over the list's own order, a few times the stretch that holds the page's matches
     // when they are spread evenly; asked for only when it reads fewer rows than the matches are.
     const matches = counted?.n ?? 0;
@@ -274,7 +291,7 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
     // under the cap, or any count from lab_study_counts), the page is the same stretch read from
     // the far end, so fewer than half the list is skipped: page 2,000 of 2,000 costs what page 1
     // does, page 1,000 the most.
-    [counted] = await counting;
+    [counted] = await counting();
     const total = counted?.n ?? 0;
     const exact = total <= STUDY_COUNT_CAP || !(query.emitterId || query.quencherId || query.solventId);
     if (exact && offset >= total) rows = [];
@@ -289,7 +306,12 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
       rows = await selectRows<Row>(sequelize, fromEnd, binds.values);
     } else rows = await pageRows();
   } else {
-    [rows, [counted]] = await Promise.all([pageRows(), counting]);
+    rows = await pageRows(true);
+    // No row, no count beside it: a first page without a row has no match; past a cursor (the list
+    // changed since it was given out) the count is asked on its own.
+    if (rows.length > 0) counted = { n: rows[0]!.matches! };
+    else if (!cursor) counted = { n: 0 };
+    else [counted] = await counting();
   }
   const more = rows.length > query.pageSize;
   const page = rows.slice(0, query.pageSize);
