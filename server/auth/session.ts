@@ -7,6 +7,7 @@ import { addDatabaseTime } from '../db/database-time';
 import { fixedStatementOf } from '../db/select-rows';
 import { readWithSessionFor, type ReadWithSession } from './read-with-session';
 import { endUnchangedSessionsPlainly } from './unchanged-session-end';
+import { rememberVerifiedSessionCookies } from './verified-session-cookies';
 
 declare module 'express-session' {
   interface SessionData {
@@ -167,6 +168,7 @@ export function createSessionMiddleware(options: {
   pools?: { read: number; write: number };
 }) {
   const PgStore = connectPgSimple(session);
+  rememberVerifiedSessionCookies();
   const sizes = options.pools ?? defaultSessionPools;
   const pools = [sizes.read, sizes.write].map((max) => {
     const pool = new pg.Pool({ connectionString: options.databaseUrl, max, connectionTimeoutMillis: 10_000 });
