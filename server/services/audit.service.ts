@@ -20,6 +20,13 @@ const auditRow = (actor: Actor, entry: AuditEntry) => ({
   ipAddress: actor.ip,
 });
 
+/**
+ * An event built and not yet saved, for a change that writes it in the same statement as its
+ * other rows (insertsInOneStatement, server/db/insert-statement.ts).
+ */
+export const unsavedAuditEvent = (actor: Actor, entry: AuditEntry): AuditEvent =>
+  AuditEvent.build(auditRow(actor, entry));
+
 /** Appends one event to the audit log: who, what, when, from which address. */
 export async function recordAudit(actor: Actor, entry: AuditEntry, transaction?: Transaction): Promise<void> {
   await AuditEvent.create(auditRow(actor, entry), { transaction });

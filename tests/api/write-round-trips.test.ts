@@ -1,3 +1,4 @@
+import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
 import { createSequelize } from '../../server/db/sequelize';
@@ -47,8 +48,8 @@ describe('round trips of the writes people make most', () => {
       newQuencherName: undefined,
     };
     let created = { id: '', version: 0 };
-    // Session row with the membership (one query); BEGIN, emitter and quencher (one query), the
-    // audit entry, the study (last: see the next test), COMMIT; the answer.
+    // Session row with the membership (one query); emitter and quencher (one query); the study with
+    // its audit entry (one statement, no BEGIN or COMMIT: see the next test); the answer.
     expect(
       await roundTripsOf(
         async () => {
@@ -59,7 +60,7 @@ describe('round trips of the writes people make most', () => {
         studies,
         201,
       ),
-    ).toBe(7);
+    ).toBe(4);
     const study = `${studies}/${created.id}`;
     // Session row with the membership; BEGIN, the study (locked), the old points (from their DELETE),
     // the new points, the fit, the study's version and numbers, both audit entries, COMMIT; the answer.
@@ -82,9 +83,10 @@ describe('round trips of the writes people make most', () => {
     ).toBe(6);
   });
 
-  it('when a study is created, then its INSERT is the last statement before COMMIT', async () => {
-    // The INSERT moves the lab's row of lab_study_counts (a trigger), locked until COMMIT: every
-    // other create in the lab waits from this INSERT to the COMMIT, so nothing may come between.
+  it('when a study is created, then the study and its audit entry are one statement outside any transaction', async () => {
+    // The study's INSERT moves the lab's row of lab_study_counts (a trigger), locked until the
+    // change commits: every other create in the lab waits for it. As one statement on its own, the
+    // row is locked only while PostgreSQL runs it, never across a round trip to the app.
     const { client, labId } = await signedInResearcher(testApp);
     const first = await createStudy(client, labId, 'write-order');
     statements.length = 0;
@@ -94,11 +96,34 @@ describe('round trips of the writes people make most', () => {
       newQuencherName: undefined,
     });
     expect(response.status).toBe(201);
-    const insert = statements.find((statement) => statement.sql.startsWith('INSERT INTO "studies"'));
+    const writes = statements.filter((statement) => /INSERT INTO "(studies|audit_events)"/.test(statement.sql));
+    expect(writes).toHaveLength(1);
+    expect(writes[0]!.transaction).toBeUndefined();
+    expect(writes[0]!.sql).toMatch(/^WITH w0 AS \(INSERT INTO "audit_events" .*\) INSERT INTO "studies" /s);
+    expect(statements.some((statement) => /^(START TRANSACTION|BEGIN|COMMIT)/.test(statement.sql))).toBe(false);
+    // Both rows are there, the audit entry naming the study with its settings.
+    const [audit] = await sequelize.query<{ action: string; details: { after: { title: string } } }>(
+      `SELECT action, details FROM audit_events WHERE target_type = 'study' AND target_id = $1`,
+      { bind: [response.body.id], type: QueryTypes.SELECT },
+    );
+    expect(audit).toMatchObject({ action: 'study_created', details: { after: { title: response.body.title } } });
+  });
+
+  it('when a study is created with a compound named anew, then the compound, the study and their audit entries commit together', async () => {
+    const { client, labId } = await signedInResearcher(testApp);
+    statements.length = 0;
+    const created = await createStudy(client, labId, 'write-new-names');
+    const insert = statements.find((statement) => statement.sql.includes('INSERT INTO "studies"'));
     expect(insert?.transaction).toBeDefined();
-    const inTransaction = statements.filter((statement) => statement.transaction === insert!.transaction);
-    // What each statement does: its verb, and the table an INSERT writes.
-    const kinds = inTransaction.map((statement) => /^\w+(?: INTO "\w+")?/.exec(statement.sql)?.[0]);
-    expect(kinds.slice(-3)).toEqual(['INSERT INTO "audit_events"', 'INSERT INTO "studies"', 'COMMIT']);
+    const compounds = statements.filter(
+      (statement) =>
+        statement.sql.startsWith('INSERT INTO "compounds"') && statement.transaction === insert!.transaction,
+    );
+    expect(compounds).toHaveLength(2);
+    const [{ n }] = (await sequelize.query<{ n: number }>(
+      `SELECT count(*)::int AS n FROM audit_events WHERE lab_id = $1 AND target_id IN ($2, $3, $4)`,
+      { bind: [labId, created.id, created.emitter.id, created.quencher.id], type: QueryTypes.SELECT },
+    )) as [{ n: number }];
+    expect(n).toBe(3);
   });
 });

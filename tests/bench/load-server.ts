@@ -63,6 +63,7 @@ export async function startProductionServer(options: {
   return {
     baseUrl: `http://127.0.0.1:${options.port}`,
     pid: child.pid!,
+    databaseUrl,
     output: () => `${head}\n...\n${tail}`,
     /** One statement on a connection of its own. */
     async query<T extends pg.QueryResultRow>(sql: string, values: unknown[] = []): Promise<T[]> {

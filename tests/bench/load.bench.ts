@@ -18,7 +18,9 @@
  * writes one .cpuprofile per process there), BENCH_LOAD_PROJECT=<folder> (serve another checkout's
  * build, e.g. a worktree of an older commit, with this benchmark). HALFLIGHT_WORKERS and LOG_LEVEL
  * reach the server; BENCH_LOAD_SERVER_LOG=<file> keeps
- * the server's output (with LOG_LEVEL=debug each request's line has its database time); BENCH_LOAD_DEBUG=1 prints the status codes of each phase and the server's output.
+ * the server's output (with LOG_LEVEL=debug each request's line has its database time); BENCH_LOAD_DEBUG=1 prints the status codes of each phase and the server's output;
+ * BENCH_LOAD_WAITS=1 samples pg_stat_activity through the writes phase (tests/bench/load-waits.ts)
+ * and prints what the app's backends were waiting on, statement by statement.
  */
 import fs from 'node:fs';
 import os from 'node:os';
@@ -28,6 +30,7 @@ import { projectRoot } from '../../server/config/env';
 import { freePort } from '../support/free-port';
 import { generatedStudiesSql } from './load-data';
 import { demoLabPicks, signIn, startProductionServer } from './load-server';
+import { sampleWaits as waitSampler } from './load-waits';
 import { serverCpuMs } from './process-cpu';
 
 const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 30);
@@ -37,6 +40,7 @@ const generated = Number(process.env.BENCH_LOAD_STUDIES ?? 5000);
 const cpuProfileDir = process.env.BENCH_LOAD_CPU_PROF;
 const servedProject = path.resolve(process.env.BENCH_LOAD_PROJECT ?? projectRoot);
 const debug = process.env.BENCH_LOAD_DEBUG === '1';
+const sampleWaits = process.env.BENCH_LOAD_WAITS === '1' ? waitSampler : undefined;
 const researcher = { email: 'priya.halvorsen@demo.halflight.example', password: 'halflight-demo' };
 
 const loadAverage = () =>
@@ -217,6 +221,7 @@ async function main() {
       ];
     };
     const routesOnly = process.env.BENCH_LOAD_ROUTES === 'only';
+    let waitLines: string[] = [];
     const [[bare], bareCpu] = await measured(async () => [
       await run({
         url: `${server.baseUrl}/api/health`,
@@ -239,6 +244,7 @@ async function main() {
       read = readMixResult;
       phases.push({ name: 'read mix', connections, result: read, load: loadAverage(), cpu: readCpu });
       const writeConnections = Math.max(4, writeRate);
+      const waits = sampleWaits ? sampleWaits(server.databaseUrl) : undefined;
       const [[readUnderWrites, writes], bothCpu] = await measured(() =>
         Promise.all([
           run(readOptions(connections, readMix)),
@@ -253,6 +259,7 @@ async function main() {
         ]),
       );
       const loadNow = loadAverage();
+      waitLines = (await waits?.stop()) ?? [];
       // The CPU of this phase is shared by reads and writes: per request of both together.
       phases.push({ name: 'read mix, with writes', connections, result: readUnderWrites, load: loadNow, cpu: bothCpu });
       phases.push({
@@ -299,6 +306,12 @@ async function main() {
         console.log(
           `${phase.name}: statuses ${JSON.stringify(phase.result.statusCodeStats)}, timeouts ${phase.result.timeouts}`,
         );
+    }
+    if (waitLines.length) {
+      console.log(
+        '\nPostgreSQL during the writes phase, app backends per sample by wait and statement (reads outside a transaction left out):',
+      );
+      for (const line of waitLines) console.log(line);
     }
     const failed = [...writesByKind.failed].map(([key, n]) => `${key}: ${n}`).join(', ');
     if (!routesOnly)

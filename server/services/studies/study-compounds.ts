@@ -55,7 +55,8 @@ export async function resolveStudyCompounds(
   lab: LabContext,
   input: { emitterId?: string | null; newEmitterName?: string; quencherId?: string | null; newQuencherName?: string },
   actor: Actor,
-  transaction: Transaction,
+  /** needed when a side is named anew (its compound is created in it) */
+  transaction: Transaction | undefined,
 ): Promise<{ emitterId?: string; quencherId?: string }> {
   const ids = sides.map(({ idKey }) => input[idKey]).filter((id): id is string => Boolean(id));
   const found = new Set(
@@ -72,7 +73,10 @@ export async function resolveStudyCompounds(
     if (id) {
       if (!found.has(id)) throw noSuchCompound(idKey);
       chosen[idKey] = id;
-    } else if (newName) chosen[idKey] = await compoundNamed(lab, newName, role, actor, transaction);
+    } else if (newName) {
+      if (!transaction) throw new Error('A compound named anew on the study form is created inside a transaction.');
+      chosen[idKey] = await compoundNamed(lab, newName, role, actor, transaction);
+    }
   }
   return chosen;
 }

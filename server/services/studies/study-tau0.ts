@@ -50,7 +50,7 @@ export async function resolveTau0(
   sent: { tau0?: number | null; tau0Uncertainty?: number | null; tau0LifetimeId?: string | null },
   current: Tau0Fields | null,
   emitterId: string,
-  transaction: Transaction,
+  transaction: Transaction | undefined,
 ): Promise<Tau0Fields> {
   const typed = sent.tau0 !== undefined || sent.tau0Uncertainty !== undefined;
   const lifetimeId =
