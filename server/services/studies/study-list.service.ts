@@ -80,10 +80,11 @@ class Binds {
  * planning a page (the studies table's many indexes and the three name joins) against about 1 ms
  * running it (a 100-study page of the load benchmark's lab, timed in a PL/pgSQL loop). A page is
  * prepared only when an index gives its order after its filter (no filter with any sort, or one
- * filter sorted by change: migrations 0005, 0008 and 20261203-1500), so the kept plan walks that
- * index and stops after the page, for a lab of 10 studies or of 50,000. Text search, two filters and numbered
- * pages past the first (OFFSET) are planned for their values each time. Page sizes other than the
- * usual ones are not prepared either, so the texts kept per connection stay few.
+ * filter sorted by change: migrations 0008, 20261203-1500, -1545 and -1830), so the kept plan walks
+ * that index and stops after the page, for a lab of 10 studies or of 50,000. Text search, two
+ * filters and numbered pages past the first (OFFSET) are planned for their values each time. Page
+ * sizes other than the usual ones are not prepared either, so the texts kept per connection stay
+ * few.
  */
 const preparedPageSizes = new Set([10, 25, 50, 100]);
 
@@ -171,14 +172,14 @@ async function textSearchWindow(
 }
 
 /**
- * One page of the lab's current study revisions. Every filter maps to an index of migration 0005
- * (lab_id first, current revisions only), the kq and K_SV sorts to those of migration 0008 (same
- * NULLS LAST and id tie-breaker as the ORDER BY here), text search to the lab's trigram index of
- * migration 20261202-1000 (or, when its count says matches are dense, to a window over the sort's
- * own index: textSearchWindow). Pages come by number (OFFSET over ids read from the sort's index,
- * migration 20261203-1500) or by cursor
- * (keyset: the index is entered at the cursor's row, so page 2,000 costs what page 1 does). The
- * total comes from countMatches.
+ * One page of the lab's current study revisions. Every filter maps to an index in the list's order
+ * (lab_id first, current revisions only, id last: migrations 20261203-1545 and -1830), the kq and
+ * K_SV sorts to those of migration 0008 (same NULLS LAST and id tie-breaker as the ORDER BY here),
+ * text search to the lab's trigram index of migration 20261202-1000 (or, when its count says
+ * matches are dense, to a window over the sort's own index: textSearchWindow). Pages come by number
+ * (OFFSET over ids read from the sort's index, migration 20261203-1500) or by cursor (keyset: the
+ * index is entered at the cursor's row, so page 2,000 costs what page 1 does). The total comes from
+ * countSql, in the page's own statement or asked before it.
  */
 export async function listStudies(lab: LabContext, query: ListStudiesQuery): Promise<StudyList> {
   const sequelize = Study.sequelize!;
