@@ -453,13 +453,18 @@ beforeAll(async () => {
 });
 afterAll(testApp.close);
 
-/** Routes as Express registered them, read from the router itself. */
+type RouterLayer = {
+  route?: { path: string; methods: Record<string, boolean> };
+  handle?: { router?: { stack: RouterLayer[] } };
+};
+
+/**
+ * Routes as Express registered them, read from the routers themselves: the app's own, and the one
+ * of the API's route table (server/http/route-table.ts), which holds every API route.
+ */
 function registeredRoutes(): string[] {
-  const stack = (
-    testApp.app as unknown as {
-      router: { stack: Array<{ route?: { path: string; methods: Record<string, boolean> } }> };
-    }
-  ).router.stack;
+  const appStack = (testApp.app as unknown as { router: { stack: RouterLayer[] } }).router.stack;
+  const stack = appStack.flatMap((layer) => [layer, ...(layer.handle?.router?.stack ?? [])]);
   return stack
     .filter((layer) => typeof layer.route?.path === 'string' && layer.route.path.startsWith('/api'))
     .flatMap((layer) =>
