@@ -68,6 +68,8 @@ export default defineConfig({
           include: ['tests/component/**/*.test.{ts,tsx}'],
           environment: 'jsdom',
           setupFiles: ['tests/support/component-setup.ts'],
+          // Waits, not speed targets: a loaded CI machine can take seconds to render a screen.
+          testTimeout: 30_000,
         },
       },
       {
