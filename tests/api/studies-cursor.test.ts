@@ -141,15 +141,18 @@ describe('GET /api/labs/:labId/studies with a cursor', () => {
       'q=copy%201&sort=updated',
     ]) {
       const all = await list(`${query}&pageSize=100`);
-      const pages: Summary[][] = [];
-      for (let page = 1; page <= Math.ceil(all.total / 4) + 1; page++) {
-        const answer = await list(`${query}&pageSize=4&page=${page}`);
-        expect(answer.total, query).toBe(all.total);
-        pages.push(answer.items);
+      // 4 a page, planned each time; 10, a usual size, prepared (one text for every page number).
+      for (const size of [4, 10]) {
+        const pages: Summary[][] = [];
+        for (let page = 1; page <= Math.ceil(all.total / size) + 1; page++) {
+          const answer = await list(`${query}&pageSize=${size}&page=${page}`);
+          expect(answer.total, query).toBe(all.total);
+          pages.push(answer.items);
+        }
+        // Past the last page, an empty one.
+        expect(pages.at(-1), query).toEqual([]);
+        expect(ids(pages.flat()), `${query}, ${size} a page`).toEqual(ids(all.items));
       }
-      // Past the last page, an empty one.
-      expect(pages.at(-1), query).toEqual([]);
-      expect(ids(pages.flat()), query).toEqual(ids(all.items));
     }
   });
 

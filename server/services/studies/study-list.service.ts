@@ -81,15 +81,16 @@ class Binds {
  * running it (a 100-study page of the load benchmark's lab, timed in a PL/pgSQL loop). A page is
  * prepared only when an index gives its order after its filter (no filter with any sort, or one
  * filter sorted by change: migrations 0008, 20261203-1500, -1545 and -1830), so the kept plan walks
- * that index and stops after the page, for a lab of 10 studies or of 50,000. Text search, two
- * filters and numbered pages past the first (OFFSET) are planned for their values each time. Page
- * sizes other than the usual ones are not prepared either, so the texts kept per connection stay
- * few.
+ * that index and stops after the page, for a lab of 10 studies or of 50,000. A numbered page binds
+ * its offset (and one read from the far end its limit too), so all page numbers share one text
+ * and the kept plan skips along the same index. Text search, two filters, or a filter sorted by kq
+ * or K_SV are planned for their values each time. Page sizes other than the usual ones are not
+ * prepared either, so the texts kept per connection stay few.
  */
 const preparedPageSizes = new Set([10, 25, 50, 100]);
 
-function onePlanSuits(query: ListStudiesQuery, offset: number): boolean {
-  if (query.q || offset > 0 || !preparedPageSizes.has(query.pageSize)) return false;
+function onePlanSuits(query: ListStudiesQuery): boolean {
+  if (query.q || !preparedPageSizes.has(query.pageSize)) return false;
   const filters =
     [query.emitterId, query.quencherId, query.solventId, query.status, query.ownerId].filter(Boolean).length +
     (query.flagged === 'true' ? 1 : 0);
@@ -245,9 +246,10 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
     // A page by number skips (page - 1) x pageSize rows: their ids alone come from the sort's index
     // (lab, sort value, id) without touching the table, then the page's rows are read by key. Page
     // 2,000 of a 50,000-study lab took 180-250 ms reading and sorting whole rows, 23-33 ms this way
-    // (psql, bench:studies data, load average 6).
+    // (psql, bench:studies data, load average 6). Without a text search the offset is a bind: one
+    // text for every page number, prepared when onePlanSuits.
     return offset > 0
-      ? `(SELECT ${columns} FROM studies s JOIN (SELECT s.id ${stretch} OFFSET ${offset}) k ON k.id = s.id)`
+      ? `(SELECT ${columns} FROM studies s JOIN (SELECT s.id ${stretch} OFFSET ${text ? offset : binds.add(offset)}) k ON k.id = s.id)`
       : `(SELECT ${columns} ${stretch})`;
   });
   const named = `p.id, p.title, p.emitter_id AS "emitterId", p.quencher_id AS "quencherId", p.solvent_id AS "solventId",
@@ -263,7 +265,7 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
   // in the page's own snapshot): one round trip instead of two.
   const pageRows = (counted = false) => {
     const sql = pageSql(counted);
-    return selectRows<Row>(sequelize, onePlanSuits(query, offset) ? fixedStatementOf(sql) : sql, binds.values);
+    return selectRows<Row>(sequelize, onePlanSuits(query) ? fixedStatementOf(sql) : sql, binds.values);
   };
   const counting = () => countMatches(query, where, placeholders, binds.values.slice(0, filterBinds));
   let rows: Row[];
@@ -302,9 +304,13 @@ export async function listStudies(lab: LabContext, query: ListStudiesQuery): Pro
       const [skipped, taken] = [total - end, end - offset];
       const fromEnd =
         `SELECT ${named} FROM (SELECT ${columns} FROM studies s JOIN (SELECT s.id FROM studies s ` +
-        `WHERE ${where.join(' AND ')} ORDER BY ${orderOf('s', true)} LIMIT ${taken} OFFSET ${skipped}) k ` +
+        `WHERE ${where.join(' AND ')} ORDER BY ${orderOf('s', true)} LIMIT $${filterBinds + 1} OFFSET $${filterBinds + 2}) k ` +
         `ON k.id = s.id) p ORDER BY ${order('p')} LIMIT ${limit}`;
-      rows = await selectRows<Row>(sequelize, fromEnd, binds.values);
+      rows = await selectRows<Row>(sequelize, onePlanSuits(query) ? fixedStatementOf(fromEnd) : fromEnd, [
+        ...binds.values.slice(0, filterBinds),
+        taken,
+        skipped,
+      ]);
     } else rows = await pageRows();
   } else {
     rows = await pageRows(true);
