@@ -17,8 +17,8 @@ import { initModels } from './models';
  * (dist/server/index.js) under plain node; Ctrl-C or SIGTERM stops it in reverse order, once.
  *
  * With HALFLIGHT_WORKERS above 1 (the default on a machine with several cores) this process is the
- * primary: it starts and stops the database exactly once and runs no web server itself; the web
- * servers are forked workers (server/boot/workers.ts) that share the port and the database.
+ * primary: it starts and stops the database exactly once, listens on the port and hands each
+ * connection to one of the web servers, forked workers (server/boot/workers.ts) that share the database.
  */
 const config = loadConfig();
 const logger = pino({
@@ -92,6 +92,8 @@ async function runPrimary(): Promise<void> {
   resolveSessionSecret(config.SESSION_SECRET, config.HALFLIGHT_DATA_DIR);
   workers = startWorkers({
     count: config.workers,
+    port: config.PORT,
+    host: config.HOST,
     databaseUrl: database.url,
     embeddedDatabase: database.embedded,
     runJobs: config.HALFLIGHT_JOB_WORKER,
@@ -123,6 +125,7 @@ async function runWorker(): Promise<void> {
     embeddedDatabase: boot.embeddedDatabase,
     logger,
     runsJobs: boot.runsJobs,
+    handedConnections: true,
   });
   await webStarting;
   process.send!({ type: 'ready' } satisfies WorkerMessage);

@@ -1,3 +1,4 @@
+import { createServer } from 'node:http';
 import type { Server } from 'node:http';
 import path from 'node:path';
 import { setTimeout as sleep } from 'node:timers/promises';
@@ -12,6 +13,7 @@ import type { MailCatcher } from '../mail/catcher';
 import { createMailer } from '../mail/mailer';
 import type { Mailer } from '../mail/mailer';
 import { fileStoreFromConfig } from '../services/studies/files/file-store-config';
+import { serveHandedConnections } from './handed-connections';
 
 /** How long requests in progress may take to finish once stopping has begun. */
 const drainMs = 10_000;
@@ -26,7 +28,8 @@ const queueOnlyMailer: Mailer = {
  * The web server of one process: mail, the job queue, the Express app and the listener. `stop`
  * stops taking connections, lets requests in progress finish (at most 10 s) and closes what it
  * opened (the job worker gets its own 10 s to finish a running job). With several web workers,
- * only the one that runs the jobs (`runsJobs`) sends mail and runs the local mail catcher.
+ * only the one that runs the jobs (`runsJobs`) sends mail and runs the local mail catcher, and
+ * none listens on the port: each serves the connections the primary hands it (`handedConnections`).
  */
 export async function startWeb(options: {
   config: AppConfig;
@@ -36,6 +39,8 @@ export async function startWeb(options: {
   logger: Logger;
   /** Run the job worker (and the mail catcher when there is no SMTP_URL) here; default HALFLIGHT_JOB_WORKER. */
   runsJobs?: boolean;
+  /** Serve the connections the primary hands over (connection-balancer.ts) instead of listening. */
+  handedConnections?: boolean;
 }): Promise<{ stop(): Promise<void> }> {
   const { config, logger } = options;
   const runsJobs = options.runsJobs ?? config.HALFLIGHT_JOB_WORKER;
@@ -85,6 +90,15 @@ export async function startWeb(options: {
   try {
     // The job queue creates its own tables on first start; instances take turns, as for migrations.
     await withSchemaLock(options.sequelize, () => app.startJobs());
+    if (options.handedConnections) {
+      const handed = serveHandedConnections(createServer(app));
+      return {
+        async stop() {
+          await handed.close(drainMs);
+          await closeRest();
+        },
+      };
+    }
     server = app.listen(config.PORT, config.HOST);
     await new Promise<void>((resolve, reject) => {
       server!.once('listening', resolve);

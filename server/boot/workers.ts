@@ -2,6 +2,7 @@ import cluster from 'node:cluster';
 import type { Worker } from 'node:cluster';
 import { setTimeout as sleep } from 'node:timers/promises';
 import type { Logger } from 'pino';
+import { createConnectionBalancer } from './connection-balancer';
 
 /** What the primary tells each web worker once it is forked. */
 export interface WorkerBoot {
@@ -14,7 +15,7 @@ export interface WorkerBoot {
 
 /**
  * A web worker asks for its boot message once it listens for messages (one sent earlier would be
- * lost), and says when its web server listens.
+ * lost), and says when its web server is ready for connections.
  */
 export interface WorkerMessage {
   type: 'hello' | 'ready';
@@ -26,14 +27,17 @@ const stopWithinMs = 20_000;
 const maxRestartsPerMinute = 5;
 
 /**
- * The web workers of the primary process (node:cluster): `count` processes sharing one listening
- * port (the primary hands out connections in turn) and one database. A worker that ends while
- * Halflight runs (a crash, or killed) is replaced in its slot; slot 0 keeps the job queue.
- * `ready` resolves once all of them listen, and rejects if one ends before that (a port that is
- * taken, a bad setting), since replacing it would fail the same way.
+ * The web workers of the primary process (node:cluster): `count` processes sharing one database.
+ * The primary listens on the port and hands each connection to the worker holding the fewest
+ * (connection-balancer.ts). A worker that ends while Halflight runs (a crash, or killed) is
+ * replaced in its slot; slot 0 keeps the job queue. `ready` resolves once all of them are ready
+ * and the port listens, and rejects if one ends before that (a bad setting; replacing it would
+ * fail the same way) or the port cannot be had.
  */
 export function startWorkers(options: {
   count: number;
+  port: number;
+  host: string;
   databaseUrl: string;
   embeddedDatabase: boolean;
   runJobs: boolean;
@@ -43,6 +47,7 @@ export function startWorkers(options: {
 }) {
   const { logger } = options;
   const slots = new Map<Worker, number>();
+  const balancer = createConnectionBalancer();
   const restarts: number[] = [];
   let stopping = false;
   let started = false;
@@ -66,13 +71,16 @@ export function startWorkers(options: {
     worker.on('message', (message: WorkerMessage) => {
       if (message?.type === 'hello') worker.send(boot);
       if (message?.type !== 'ready') return;
+      balancer.add(slot, worker);
       if (started) {
         logger.info(`Web worker ${slot} (pid ${worker.process.pid}) is serving again.`);
         return;
       }
       if (++readyCount === options.count) {
-        started = true;
-        markReady();
+        balancer.listen(options.port, options.host).then(() => {
+          started = true;
+          markReady();
+        }, failStart);
       }
     });
   }
@@ -80,6 +88,7 @@ export function startWorkers(options: {
   cluster.on('exit', (worker, code, signal) => {
     const slot = slots.get(worker);
     slots.delete(worker);
+    if (slot !== undefined) balancer.remove(slot, worker);
     if (slot === undefined || stopping) return;
     const how = signal ? `was killed (${signal})` : `ended with code ${code}`;
     if (!started) {
@@ -103,9 +112,12 @@ export function startWorkers(options: {
     ready,
     /** Pids of the running workers, by slot. */
     pids: () => [...slots].sort((a, b) => a[1] - b[1]).map(([worker]) => worker.process.pid!),
-    /** SIGTERM to every worker (each finishes its requests), then waits for them; kills what is left after 20 s. */
+    /** Open connections of each slot's worker (undefined: not taking connections). */
+    openConnections: () => balancer.openBySlot(),
+    /** Stops taking connections, SIGTERM to every worker (each finishes its requests), then waits for them; kills what is left after 20 s. */
     async stop(): Promise<void> {
       stopping = true;
+      balancer.close();
       const running = [...slots.keys()].filter((worker) => !worker.isDead());
       const exits = running.map(
         (worker) => new Promise<void>((resolve) => worker.process.once('exit', () => resolve())),

@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import net from 'node:net';
 import { setTimeout as sleep } from 'node:timers/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiClient } from '../support/accounts';
@@ -22,6 +23,47 @@ function childrenOf(pid: number): number[] {
       }
     })
     .map(Number);
+}
+
+/**
+ * Of the given client ports, how many have their server end open in process `pid`: the process's
+ * socket inodes (/proc/<pid>/fd) matched with IPv4 TCP connections (/proc/net/tcp, proc(5): local
+ * and remote address as hex ip:port, state, inode in column 10).
+ */
+function clientPortsServedBy(pid: number, clientPorts: Set<number>): number {
+  const inodes = new Set<string>();
+  for (const fd of fs.readdirSync(`/proc/${pid}/fd`)) {
+    const target = (() => {
+      try {
+        return fs.readlinkSync(`/proc/${pid}/fd/${fd}`);
+      } catch {
+        return '';
+      }
+    })();
+    const inode = /^socket:\[(\d+)\]$/.exec(target)?.[1];
+    if (inode) inodes.add(inode);
+  }
+  return fs
+    .readFileSync(`/proc/${pid}/net/tcp`, 'utf8')
+    .split('\n')
+    .slice(1)
+    .map((line) => line.trim().split(/\s+/))
+    .filter((fields) => fields.length > 9 && inodes.has(fields[9]!))
+    .filter((fields) => clientPorts.has(parseInt(fields[2]!.split(':')[1]!, 16))).length;
+}
+
+/** Asks GET /api/health on an open raw connection (kept alive) and checks the 200. */
+async function healthOnOwnConnection(socket: net.Socket): Promise<void> {
+  const answer = new Promise<string>((resolve, reject) => {
+    let text = '';
+    socket.on('data', (chunk: Buffer) => {
+      text += chunk.toString();
+      if (text.includes('\r\n\r\n')) resolve(text);
+    });
+    socket.once('error', reject);
+  });
+  socket.write('GET /api/health HTTP/1.1\r\nHost: 127.0.0.1\r\nConnection: keep-alive\r\n\r\n');
+  expect((await answer).split('\r\n')[0]).toBe('HTTP/1.1 200 OK');
 }
 
 let cluster: Awaited<ReturnType<typeof startThrowawayCluster>>;
@@ -63,6 +105,33 @@ describe('several web processes on one database', { timeout: 240_000 }, () => {
     expect((await other.get('/api/session')).status).toBe(401);
     // The first sign-in is a separate session and goes on.
     expect((await client.get('/api/session')).status).toBe(200);
+  });
+
+  it('when one web worker is stalled while clients connect, then each worker still gets its equal share of the connections', async () => {
+    const [first, second] = childrenOf(workers.child.pid!);
+    const port = Number(new URL(workers.baseUrl).port);
+    const sockets: net.Socket[] = [];
+    // A worker that is busy when connections arrive (a long answer, a garbage collection) must not
+    // end up with fewer of them for as long as the clients keep them open; SIGSTOP makes it busy at will.
+    process.kill(second!, 'SIGSTOP');
+    try {
+      for (let i = 0; i < 40; i++) {
+        const socket = net.connect(port, '127.0.0.1');
+        sockets.push(socket);
+        await new Promise<void>((resolve, reject) => socket.once('connect', resolve).once('error', reject));
+      }
+      // Time for the primary to hand them all out (node:cluster waits for each worker's ack).
+      await sleep(1_000);
+    } finally {
+      process.kill(second!, 'SIGCONT');
+    }
+    try {
+      await Promise.all(sockets.map(healthOnOwnConnection));
+      const clientPorts = new Set(sockets.map((socket) => socket.localPort!));
+      expect([clientPortsServedBy(first!, clientPorts), clientPortsServedBy(second!, clientPorts)]).toEqual([20, 20]);
+    } finally {
+      for (const socket of sockets) socket.destroy();
+    }
   });
 
   it('when a web worker is killed under a stream of writes, then every write that was answered is kept and a new worker takes its place', async () => {
