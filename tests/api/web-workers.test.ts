@@ -1,56 +1,12 @@
-import fs from 'node:fs';
 import net from 'node:net';
 import { setTimeout as sleep } from 'node:timers/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiClient } from '../support/accounts';
+import { childrenOf, tcpConnectionsOf } from '../support/process-sockets';
 import { startServerProcess } from '../support/server-process';
 import { startThrowawayCluster } from '../support/throwaway-cluster';
 
 const researcher = { email: 'priya.halvorsen@demo.halflight.example', password: 'halflight-demo' };
-
-/** Pids of the processes whose parent is `pid` (the primary's web workers). */
-function childrenOf(pid: number): number[] {
-  return fs
-    .readdirSync('/proc')
-    .filter((entry) => /^\d+$/.test(entry))
-    .filter((entry) => {
-      try {
-        // Field 4 of /proc/<pid>/stat is the parent pid; the name in field 2 may hold spaces, so count from its ')'.
-        const stat = fs.readFileSync(`/proc/${entry}/stat`, 'utf8');
-        return Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[1]) === pid;
-      } catch {
-        return false;
-      }
-    })
-    .map(Number);
-}
-
-/**
- * Of the given client ports, how many have their server end open in process `pid`: the process's
- * socket inodes (/proc/<pid>/fd) matched with IPv4 TCP connections (/proc/net/tcp, proc(5): local
- * and remote address as hex ip:port, state, inode in column 10).
- */
-function clientPortsServedBy(pid: number, clientPorts: Set<number>): number {
-  const inodes = new Set<string>();
-  for (const fd of fs.readdirSync(`/proc/${pid}/fd`)) {
-    const target = (() => {
-      try {
-        return fs.readlinkSync(`/proc/${pid}/fd/${fd}`);
-      } catch {
-        return '';
-      }
-    })();
-    const inode = /^socket:\[(\d+)\]$/.exec(target)?.[1];
-    if (inode) inodes.add(inode);
-  }
-  return fs
-    .readFileSync(`/proc/${pid}/net/tcp`, 'utf8')
-    .split('\n')
-    .slice(1)
-    .map((line) => line.trim().split(/\s+/))
-    .filter((fields) => fields.length > 9 && inodes.has(fields[9]!))
-    .filter((fields) => clientPorts.has(parseInt(fields[2]!.split(':')[1]!, 16))).length;
-}
 
 /** Asks GET /api/health on an open raw connection (kept alive) and checks the 200. */
 async function healthOnOwnConnection(socket: net.Socket): Promise<void> {
@@ -128,7 +84,8 @@ describe('several web processes on one database', { timeout: 240_000 }, () => {
     try {
       await Promise.all(sockets.map(healthOnOwnConnection));
       const clientPorts = new Set(sockets.map((socket) => socket.localPort!));
-      expect([clientPortsServedBy(first!, clientPorts), clientPortsServedBy(second!, clientPorts)]).toEqual([20, 20]);
+      const served = (pid: number) => tcpConnectionsOf(pid, (_local, remote) => clientPorts.has(remote));
+      expect([served(first!), served(second!)]).toEqual([20, 20]);
     } finally {
       for (const socket of sockets) socket.destroy();
     }

@@ -9,7 +9,10 @@
  *   3. the read mix again while a write mix (create a study, replace its points, upload a small
  *      file) is asked at a fixed rate.
  * Prints req/s, p50/p99, non-2xx and errors of each, the load average beside each, and
- * `ratio read mix / bare route`. Figures only; nothing is asserted.
+ * `ratio read mix / bare route`. With several web workers it also prints how the connections of
+ * each read phase were spread over them, counted half-way through the phase from /proc: clients
+ * keep their connections, so a worker holding more of them makes its clients wait longer.
+ * Figures only; nothing is asserted.
  *
  * Settings (environment): BENCH_LOAD_SECONDS (each phase, default 30), BENCH_LOAD_CONNECTIONS
  * (read and baseline connections, default 200), BENCH_LOAD_WRITE_RATE (writes/s, default 20),
@@ -25,9 +28,11 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import { setTimeout as sleep } from 'node:timers/promises';
 import autocannon from 'autocannon';
 import { projectRoot } from '../../server/config/env';
 import { freePort } from '../support/free-port';
+import { childrenOf, tcpConnectionsOf } from '../support/process-sockets';
 import { generatedStudiesSql } from './load-data';
 import { demoLabPicks, signIn, startProductionServer } from './load-server';
 import { sampleWaits as waitSampler } from './load-waits';
@@ -51,7 +56,15 @@ const loadAverage = () =>
 
 /** CPU ms per request of the server's node processes and of PostgreSQL during a phase. */
 type Cpu = { node: number; postgres: number };
-type Phase = { name: string; connections: number; result: autocannon.Result; load: string; cpu?: Cpu };
+type Phase = {
+  name: string;
+  connections: number;
+  result: autocannon.Result;
+  load: string;
+  cpu?: Cpu;
+  /** Client connections each web worker held half-way through the phase. */
+  spread?: number[];
+};
 
 function run(options: autocannon.Options): Promise<autocannon.Result> {
   return new Promise((resolve, reject) => {
@@ -209,6 +222,19 @@ async function main() {
     await run({ ...readOptions(50, readMix), duration: 5 });
 
     const phases: Phase[] = [];
+    const port = Number(new URL(server.baseUrl).port);
+    /** Connections to the port held by each web worker (node children of the primary), half-way through a phase. */
+    const spreadHalfWay = async (): Promise<number[]> => {
+      await sleep((seconds * 1000) / 2);
+      const workers = childrenOf(server.pid).filter((pid) => {
+        try {
+          return fs.readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('index.js');
+        } catch {
+          return false;
+        }
+      });
+      return workers.map((pid) => tcpConnectionsOf(pid, (local) => local === port));
+    };
     /** Runs phases together and gives the server's CPU per request over all of them. */
     const measured = async <T extends autocannon.Result[]>(runs: () => Promise<T>): Promise<[T, Cpu]> => {
       const before = serverCpuMs(server.pid, dataDir);
@@ -240,11 +266,20 @@ async function main() {
     });
     let read = bare;
     if (!routesOnly) {
+      const readSpread = spreadHalfWay();
       const [[readMixResult], readCpu] = await measured(async () => [await run(readOptions(connections, readMix))]);
       read = readMixResult;
-      phases.push({ name: 'read mix', connections, result: read, load: loadAverage(), cpu: readCpu });
+      phases.push({
+        name: 'read mix',
+        connections,
+        result: read,
+        load: loadAverage(),
+        cpu: readCpu,
+        spread: await readSpread,
+      });
       const writeConnections = Math.max(4, writeRate);
       const waits = sampleWaits ? sampleWaits(server.databaseUrl) : undefined;
+      const withWritesSpread = spreadHalfWay();
       const [[readUnderWrites, writes], bothCpu] = await measured(() =>
         Promise.all([
           run(readOptions(connections, readMix)),
@@ -261,7 +296,14 @@ async function main() {
       const loadNow = loadAverage();
       waitLines = (await waits?.stop()) ?? [];
       // The CPU of this phase is shared by reads and writes: per request of both together.
-      phases.push({ name: 'read mix, with writes', connections, result: readUnderWrites, load: loadNow, cpu: bothCpu });
+      phases.push({
+        name: 'read mix, with writes',
+        connections,
+        result: readUnderWrites,
+        load: loadNow,
+        cpu: bothCpu,
+        spread: await withWritesSpread,
+      });
       phases.push({
         name: `writes (${writeRate}/s asked)`,
         connections: writeConnections,
@@ -300,6 +342,11 @@ async function main() {
       console.log(
         `${phase.name.padEnd(30)} ${String(phase.connections).padStart(5)} ${perSecond(result).padStart(8)} ${String(result.latency.p50).padStart(7)} ${String(result.latency.p99).padStart(7)} ${String(result.non2xx).padStart(8)} ${String(result.errors).padStart(7)} ${(phase.cpu?.node.toFixed(2) ?? '').padStart(12)} ${(phase.cpu?.postgres.toFixed(2) ?? '').padStart(10)}   ${phase.load}`,
       );
+    }
+    for (const phase of phases) {
+      // One process serving alone has nothing to spread.
+      if (phase.spread && phase.spread.length > 1)
+        console.log(`${phase.name}: connections per web worker half-way through: ${phase.spread.join(' / ')}`);
     }
     if (debug) {
       for (const phase of phases)
