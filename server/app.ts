@@ -15,7 +15,6 @@ import { toHandler } from './http/define-route';
 import { compressWhenAccepted } from './http/compress-when-accepted';
 import { inOrder } from './http/in-order';
 import { parseCookiesWhenRead } from './http/lazy-cookies';
-import { routeTable } from './http/route-table';
 import { weakEtag } from './http/weak-etag';
 import type { AnyRouteSpec, RouteAccess } from './http/define-route';
 import { logRedactPaths } from './http/log-redaction';
@@ -214,19 +213,10 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     ]),
   );
 
-  app.use(
-    routeTable(
-      routes.map((route) => ({
-        method: route.method,
-        path: route.path,
-        handlers: [
-          ...accessGuards(route.access),
-          ...(route.rateLimit ? [rateLimits.guards[route.rateLimit]] : []),
-          toHandler(route),
-        ],
-      })),
-    ),
-  );
+  for (const route of routes) {
+    const limiter = route.rateLimit ? [rateLimits.guards[route.rateLimit]] : [];
+    app[route.method](route.path, ...accessGuards(route.access), ...limiter, toHandler(route));
+  }
   app.use('/api', apiNotFound);
 
   const clientDir = options.clientDir ?? path.join(projectRoot, 'dist', 'client');

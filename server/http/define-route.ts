@@ -28,7 +28,7 @@ export interface RouteContext<P, Q, B> {
 
 /**
  * One API route: its contract (zod schemas, which also feed the OpenAPI document) and its
- * handler. Routes are declared with `defineRoute` and mounted by createApp through `routeTable`, so a route
+ * handler. Routes are declared with `defineRoute` and mounted by `mountRoutes`, so a route
  * cannot exist without appearing in /api/openapi.json.
  */
 export interface RouteSpec<P = unknown, Q = unknown, B = unknown> {
