@@ -22,7 +22,7 @@ const auditRow = (actor: Actor, entry: AuditEntry) => ({
 
 /**
  * An event built and not yet saved, for a change that writes it in the same statement as its
- * other rows (insertsInOneStatement, server/db/insert-statement.ts).
+ * other rows (OneStatement, server/db/one-statement.ts).
  */
 export const unsavedAuditEvent = (actor: Actor, entry: AuditEntry): AuditEvent =>
   AuditEvent.build(auditRow(actor, entry));

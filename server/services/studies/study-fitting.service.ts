@@ -43,63 +43,63 @@ export async function computeForStudy(
   }
 }
 
+/** What a refit writes: the new fit (built, not saved; none when the auto fit failed), the study's changes and the audit entries. */
+export interface PlannedRefit {
+  fit: StudyFit | null;
+  studyChanges: Record<string, unknown>;
+  audits: AuditEntry[];
+}
+
+type RefitOptions = {
+  model?: FitModel;
+  weighting?: FitWeighting;
+  trigger: 'auto' | 'manual';
+  actor: Actor;
+  transaction: Transaction;
+  refuseUnfittable?: boolean;
+  /** the series as just written in this transaction (saves reading it back), or as about to be written */
+  points?: StudyPoint[];
+  /** more changes to the study, saved in the same UPDATE as the fit's (e.g. the version) */
+  studyChanges?: { version?: number };
+  /** audit entries of the same change, written in the same INSERT as the fit's, before it */
+  audits?: AuditEntry[];
+};
+
 /**
- * Fits the study and stores the fit as a new record (never updated), then copies K_SV, kq and
- * "flagged" onto the study for the list. `auto` fits follow every change of the points or
- * settings; a failing auto fit clears the copied numbers and keeps the reason instead, unless
- * `refuseUnfittable` (an upload apply) asks for the failure to be thrown so nothing is saved.
+ * Fits the study (see refitStudy) and says what to write, writing nothing: for a change that
+ * writes the fit together with its other rows (writeSeries, in one statement).
  */
-export async function refitStudy(
-  study: Study,
-  options: {
-    model?: FitModel;
-    weighting?: FitWeighting;
-    trigger: 'auto' | 'manual';
-    actor: Actor;
-    transaction: Transaction;
-    refuseUnfittable?: boolean;
-    /** the series as just written in this transaction (saves reading it back) */
-    points?: StudyPoint[];
-    /** more changes to the study, saved in the same UPDATE as the fit's (e.g. the version) */
-    studyChanges?: { version?: number };
-    /** audit entries of the same change, written in the same INSERT as the fit's, before it */
-    audits?: AuditEntry[];
-  },
-): Promise<StudyFit | null> {
+export async function planRefit(study: Study, options: RefitOptions): Promise<PlannedRefit> {
   const also = options.studyChanges ?? {};
   const audits = options.audits ?? [];
   const model = options.model ?? study.fitModel;
   const weighting = options.weighting ?? study.fitWeighting;
-  const { transaction } = options;
   let computed: StudyFitOutcome;
   try {
-    computed = await computeForStudy(study, model, transaction, weighting, options.points);
+    computed = await computeForStudy(study, model, options.transaction, weighting, options.points);
   } catch (error) {
     if (options.trigger === 'manual' || options.refuseUnfittable || !(error instanceof AppError)) throw error;
-    await study.update(
-      { ...also, kSv: null, kq: null, flagged: false, fitProblem: error.message, latestFitId: null },
-      { transaction },
-    );
-    await recordAudits(options.actor, audits, transaction);
-    return null;
+    return {
+      fit: null,
+      studyChanges: { ...also, kSv: null, kq: null, flagged: false, fitProblem: error.message, latestFitId: null },
+      audits,
+    };
   }
-  const fit = await StudyFit.create(
-    {
-      studyId: study.id,
-      model,
-      weighting,
-      trigger: options.trigger,
-      kSv: computed.kSv,
-      kq: computed.kq,
-      result: computed.result,
-      pointsUsed: computed.pointsUsed,
-      engineVersion: ENGINE_VERSION,
-      createdById: options.actor.userId,
-    },
-    { transaction },
-  );
-  await study.update(
-    {
+  const fit = StudyFit.build({
+    studyId: study.id,
+    model,
+    weighting,
+    trigger: options.trigger,
+    kSv: computed.kSv,
+    kq: computed.kq,
+    result: computed.result,
+    pointsUsed: computed.pointsUsed,
+    engineVersion: ENGINE_VERSION,
+    createdById: options.actor.userId,
+  });
+  return {
+    fit,
+    studyChanges: {
       ...also,
       kSv: computed.kSv,
       kq: computed.kq,
@@ -108,11 +108,7 @@ export async function refitStudy(
       latestFitId: fit.id,
       ...(options.trigger === 'manual' ? { fitModel: model, fitWeighting: weighting } : {}),
     },
-    { transaction },
-  );
-  await recordAudits(
-    options.actor,
-    [
+    audits: [
       ...audits,
       {
         action: 'study_fitted',
@@ -132,7 +128,20 @@ export async function refitStudy(
         },
       },
     ],
-    transaction,
-  );
-  return fit;
+  };
+}
+
+/**
+ * Fits the study and stores the fit as a new record (never updated), then copies K_SV, kq and
+ * "flagged" onto the study for the list. `auto` fits follow every change of the points or
+ * settings; a failing auto fit clears the copied numbers and keeps the reason instead, unless
+ * `refuseUnfittable` (an upload apply) asks for the failure to be thrown so nothing is saved.
+ */
+export async function refitStudy(study: Study, options: RefitOptions): Promise<StudyFit | null> {
+  const { transaction } = options;
+  const planned = await planRefit(study, options);
+  if (planned.fit) await planned.fit.save({ transaction });
+  await study.update(planned.studyChanges, { transaction });
+  await recordAudits(options.actor, planned.audits, transaction);
+  return planned.fit;
 }

@@ -5,8 +5,9 @@ import { describeUploadReading } from '@shared/format';
 import type { UploadMapping, UploadPreview, UploadQuestionCode } from '@shared/schemas/study-uploads';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import { Study, StudyPoint, StudyUpload, User } from '../../models';
-import { recordLabAudit } from '../audit.service';
+import { AuditEvent, Study, StudyPoint, StudyUpload, User } from '../../models';
+import { recordLabAudit, unsavedAuditEvent } from '../audit.service';
+import { OneStatement } from '../../db/one-statement';
 import type { SignedInActor } from '../../domain/actor';
 import type { RawFileStore, StoredLocation } from './files/raw-file-store';
 import type { Problem, ReadOutcome } from './parse/read-and-map';
@@ -145,36 +146,62 @@ export async function receiveUpload(
     parseReport: report,
   };
   // A new file's bytes go to the store first (an object store that is down answers 503, nothing kept);
-  // the row follows in one transaction, and if it does not commit the stored bytes are removed again.
+  // the row follows (with its audit entry, in one statement), and if it is not kept the stored bytes are removed again.
   const uploadId = crypto.randomUUID();
   const location: StoredLocation | null = earlier
     ? null
     : await services.files.put({ uploadId, labId: lab.id, bytes: file.buffer });
   let upload: StudyUpload;
   try {
-    upload = await services.sequelize.transaction(async (transaction) => {
-      const kept = location
-        ? await StudyUpload.create(
-            { ...fields, ...location, id: uploadId, labId: lab.id, studyId, size: file.buffer.length, sha256 },
-            { transaction },
-          )
-        : await (
-            await StudyUpload.findByPk(earlier!.id, {
-              attributes: { exclude: ['content'] },
-              transaction,
-              rejectOnEmpty: true,
-            })
-          ).update(fields, { transaction });
-      await recordLabAudit({ lab, actor, transaction }, 'study_file_uploaded', ['study', studyId], {
-        uploadId: kept.id,
-        fileName: kept.fileName,
+    const audit = (kept: StudyUpload) =>
+      unsavedAuditEvent(actor, {
+        action: 'study_file_uploaded',
+        labId: lab.id,
+        targetType: 'study',
+        targetId: studyId,
+        details: {
+          uploadId: kept.id,
+          fileName: kept.fileName,
+          size: file.buffer.length,
+          sha256,
+          parseStatus: kept.parseStatus,
+          ...(earlier ? { readAgain: true } : {}),
+        },
+      });
+    if (location) {
+      // A new file: its row and the audit entry in one statement, no transaction round trips.
+      upload = StudyUpload.build({
+        ...fields,
+        ...location,
+        id: uploadId,
+        labId: lab.id,
+        studyId,
         size: file.buffer.length,
         sha256,
-        parseStatus: kept.parseStatus,
-        ...(earlier ? { readAgain: true } : {}),
       });
-      return kept;
-    });
+      await upload.validate();
+      const write = new OneStatement();
+      await write.insert(StudyUpload, [upload]);
+      await write.insert(AuditEvent, [audit(upload)]);
+      await write.run(services.sequelize);
+    } else {
+      upload = await services.sequelize.transaction(async (transaction) => {
+        const kept = await (
+          await StudyUpload.findByPk(earlier!.id, {
+            attributes: { exclude: ['content'] },
+            transaction,
+            rejectOnEmpty: true,
+          })
+        ).update(fields, { transaction });
+        await recordLabAudit(
+          { lab, actor, transaction },
+          'study_file_uploaded',
+          ['study', studyId],
+          audit(kept).details,
+        );
+        return kept;
+      });
+    }
   } catch (error) {
     if (location) await services.files.discard(location);
     // The same bytes sent twice at once: the second insert meets the unique index.
