@@ -1,11 +1,11 @@
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { apiClient, createLabWithMembers, signedInResearcherAndViewer } from '../support/accounts';
+import { signedInResearcher, signedInResearcherAndViewer, type ApiClient } from '../support/accounts';
 import { copyStudyInSql, createStudy } from '../support/studies';
 import { createTestApp } from '../support/test-app';
 
 const testApp = await createTestApp();
-type Client = Awaited<ReturnType<typeof apiClient>>;
+type Client = ApiClient;
 let viewer: Client;
 let labId = '';
 type Summary = { id: string; kq: number | null; status: string; updatedAt: string };
@@ -35,6 +35,14 @@ async function copyStudies(lab: string, templateId: string, count: number) {
       created_at: "timestamptz '2026-11-01 10:00:00+00'",
     },
   });
+}
+
+/** A new lab of `count` studies (one made through the API, copies of it in SQL), its researcher signed in. */
+async function labOfCopies(count: number) {
+  const setUp = await signedInResearcher(testApp);
+  const template = await createStudy(setUp.client, setUp.labId, crypto.randomBytes(3).toString('hex'));
+  await copyStudies(setUp.labId, template.id, count - 1);
+  return setUp;
 }
 
 beforeAll(async () => {
@@ -157,19 +165,15 @@ describe('GET /api/labs/:labId/studies with a cursor', () => {
   });
 
   it('when every study past a cursor has left the list, then its page is empty and the total counts what is left', async () => {
-    const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
-    const researcher = await apiClient(testApp.app);
-    await researcher.signIn(users.researcher);
-    const template = await createStudy(researcher, lab.id, crypto.randomBytes(3).toString('hex'));
-    await copyStudies(lab.id, template.id, 5);
-    const first = (await researcher.get(`/api/labs/${lab.id}/studies?sort=kq&pageSize=3`)).body as Page;
+    const { labId: id, client: researcher } = await labOfCopies(6);
+    const first = (await researcher.get(`/api/labs/${id}/studies?sort=kq&pageSize=3`)).body as Page;
     expect(first.total).toBe(6);
-    const rest = (await researcher.get(`/api/labs/${lab.id}/studies?sort=kq&pageSize=100`)).body as Page;
+    const rest = (await researcher.get(`/api/labs/${id}/studies?sort=kq&pageSize=100`)).body as Page;
     await testApp.sequelize.query('UPDATE studies SET is_current = false WHERE id IN (:ids)', {
       replacements: { ids: ids(rest.items.slice(3)) },
     });
     const response = await researcher.get(
-      `/api/labs/${lab.id}/studies?sort=kq&pageSize=3&cursor=${encodeURIComponent(first.nextCursor!)}`,
+      `/api/labs/${id}/studies?sort=kq&pageSize=3&cursor=${encodeURIComponent(first.nextCursor!)}`,
     );
     expect(response.status).toBe(200);
     expect(response.body).toMatchObject({ items: [], total: 3, totalCapped: false, nextCursor: null });
@@ -205,12 +209,8 @@ describe('GET /api/labs/:labId/studies with a cursor', () => {
 
 describe('GET /api/labs/:labId/studies in a lab of more than 10,000 studies', () => {
   it('when it is counted, then the total stops at 10,000 and says there are more', async () => {
-    const { lab, users } = await createLabWithMembers(testApp.sequelize, { roles: ['researcher'] });
-    const researcher = await apiClient(testApp.app);
-    await researcher.signIn(users.researcher);
-    const template = await createStudy(researcher, lab.id, crypto.randomBytes(3).toString('hex'));
-    await copyStudies(lab.id, template.id, 10_005);
-    const response = await researcher.get(`/api/labs/${lab.id}/studies?pageSize=2`);
+    const { labId: id, client: researcher } = await labOfCopies(10_006);
+    const response = await researcher.get(`/api/labs/${id}/studies?pageSize=2`);
     expect(response.status).toBe(200);
     expect(response.body).toMatchObject({ total: 10_000, totalCapped: true, pageSize: 2 });
     expect(response.body.items).toHaveLength(2);
