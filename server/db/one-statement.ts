@@ -81,7 +81,9 @@ export class OneStatement {
   /** UPDATE of one row by its key: the attributes `changes` sets (and updatedAt), also set on the instance. */
   async update(model: AnyModel, row: Model, changes: Record<string, unknown>): Promise<this> {
     row.set(changes);
-    if (this.timestamps(model).includes('updatedAt')) row.set('updatedAt' as never, this.now as never);
+    // raw: set() leaves an existing row's timestamps alone otherwise (Sequelize keeps them read-only
+    // there), and the UPDATE would write the old time back.
+    if (this.timestamps(model).includes('updatedAt')) row.set('updatedAt' as never, this.now as never, { raw: true });
     await runHooks(model, 'beforeUpdate', row, this.transaction);
     const attributes = model.getAttributes();
     const changed = [...new Set([...Object.keys(changes), ...this.timestamps(model).filter((k) => k === 'updatedAt')])];

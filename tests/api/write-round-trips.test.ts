@@ -128,4 +128,25 @@ describe('round trips of the writes people make most', () => {
     )) as [{ n: number }];
     expect(n).toBe(3);
   });
+
+  it('when the points are replaced, then the study is marked changed at that time, as a save would', async () => {
+    const { client, labId } = await signedInResearcher(testApp);
+    const study = await createStudy(client, labId, 'write-round-trips-changed');
+    // Sequelize's set() leaves an existing row's timestamps alone (they are read-only there); the
+    // one-statement update must still write the time of the change, as study.update() did.
+    await new Promise((resolve) => setTimeout(resolve, 20));
+    const before = Date.now();
+    const replaced = await client.patch(`/api/labs/${labId}/studies/${study.id}/points`, {
+      version: 0,
+      points: exactPoints,
+    });
+    expect(replaced.status).toBe(200);
+    expect(Date.parse(replaced.body.updatedAt)).toBeGreaterThanOrEqual(before);
+    const [row] = await sequelize.query<{ updated_at: Date; created_at: Date }>(
+      'SELECT updated_at, created_at FROM studies WHERE id = $1',
+      { bind: [study.id], type: QueryTypes.SELECT },
+    );
+    expect(row!.updated_at.getTime()).toBeGreaterThanOrEqual(before);
+    expect(row!.updated_at.getTime()).toBeGreaterThan(row!.created_at.getTime());
+  });
 });
