@@ -9,7 +9,11 @@
  *   3. the read mix again while a write mix (create a study, replace its points, upload a small
  *      file) is asked at a fixed rate.
  * Prints req/s, p50/p99, non-2xx and errors of each, the load average beside each, and
- * `ratio read mix / bare route`. With several web workers it also prints how the connections of
+ * `ratio read mix / bare route`. Then each write timed once, by kind and by when in the phase it
+ * was sent (tests/bench/write-latencies.ts): autocannon's own write percentiles weigh each write
+ * by its own time. The write connections ask one write a second each, and each connection's
+ * second starts when it is made, so the writes come in bursts: all creates, then all point
+ * replacements, then all uploads, each burst at about the same moment. With several web workers it also prints how the connections of
  * each read phase were spread over them, counted half-way through the phase from /proc: clients
  * keep their connections, so a worker holding more of them makes its clients wait longer.
  * Figures only; nothing is asserted.
@@ -37,6 +41,7 @@ import { generatedStudiesSql } from './load-data';
 import { demoLabPicks, signIn, startProductionServer } from './load-server';
 import { sampleWaits as waitSampler } from './load-waits';
 import { serverCpuMs } from './process-cpu';
+import { writeLatencies } from './write-latencies';
 
 const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 30);
 const connections = Number(process.env.BENCH_LOAD_CONNECTIONS ?? 200);
@@ -155,7 +160,8 @@ async function main() {
     });
 
     // Writes: each connection creates a study, replaces its points, then uploads a small file to it.
-    type WriteContext = { studyId?: string; version?: number; seed?: number };
+    type WriteContext = { studyId?: string; version?: number; seed?: number; sentAt?: number };
+    const timedWrites = writeLatencies();
     const writesByKind = { create: 0, points: 0, upload: 0, failed: new Map<string, number>() };
     const countWrite = (kind: 'create' | 'points' | 'upload', status: number) => {
       if (status >= 200 && status < 300) writesByKind[kind] += 1;
@@ -169,6 +175,7 @@ async function main() {
         path: `${lab_}/studies`,
         setupRequest: (request, context: WriteContext) => {
           context.seed = seedCounter++;
+          context.sentAt = timedWrites.sent();
           return {
             ...request,
             headers: { ...writeHeaders, 'content-type': 'application/json' },
@@ -185,6 +192,7 @@ async function main() {
         },
         onResponse: (status, body, context: WriteContext) => {
           countWrite('create', status);
+          timedWrites.answered('create', status, context.sentAt!);
           const created = status === 201 ? (JSON.parse(body) as { id: string; version: number }) : undefined;
           context.studyId = created?.id;
           context.version = created?.version;
@@ -192,21 +200,26 @@ async function main() {
       },
       {
         method: 'PATCH',
-        setupRequest: (request, context: WriteContext) =>
-          context.studyId === undefined
-            ? (undefined as unknown as autocannon.Request) // start over with a new study
-            : {
-                ...request,
-                path: `${lab_}/studies/${context.studyId}/points`,
-                headers: { ...writeHeaders, 'content-type': 'application/json' },
-                body: JSON.stringify({ version: context.version, points: points(context.seed ?? 0) }),
-              },
-        onResponse: (status) => countWrite('points', status),
+        setupRequest: (request, context: WriteContext) => {
+          if (context.studyId === undefined) return undefined as unknown as autocannon.Request; // start over with a new study
+          context.sentAt = timedWrites.sent();
+          return {
+            ...request,
+            path: `${lab_}/studies/${context.studyId}/points`,
+            headers: { ...writeHeaders, 'content-type': 'application/json' },
+            body: JSON.stringify({ version: context.version, points: points(context.seed ?? 0) }),
+          };
+        },
+        onResponse: (status, _body, context: WriteContext) => {
+          countWrite('points', status);
+          timedWrites.answered('points', status, context.sentAt!);
+        },
       },
       {
         method: 'POST',
         setupRequest: (request, context: WriteContext) => {
           const form = multipart(`series-${context.seed}.csv`, smallCsv(context.seed ?? 0));
+          context.sentAt = timedWrites.sent();
           return {
             ...request,
             path: `${lab_}/studies/${context.studyId}/uploads`,
@@ -214,7 +227,10 @@ async function main() {
             body: form.body,
           };
         },
-        onResponse: (status) => countWrite('upload', status),
+        onResponse: (status, _body, context: WriteContext) => {
+          countWrite('upload', status);
+          timedWrites.answered('upload', status, context.sentAt!);
+        },
       },
     ];
 
@@ -365,6 +381,7 @@ async function main() {
       console.log(
         `writes done: ${writesByKind.create} studies created, ${writesByKind.points} point replacements, ${writesByKind.upload} uploads${failed ? `; refused: ${failed}` : ''}`,
       );
+    if (!routesOnly) for (const line of timedWrites.lines()) console.log(line);
     const ratio = read.requests.total / read.duration / (bare.requests.total / bare.duration);
     if (!routesOnly) console.log(`ratio read mix / bare route: ${ratio.toFixed(2)}`);
   } finally {
