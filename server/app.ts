@@ -13,6 +13,7 @@ import { createSessionMiddleware, enforceSessionLifetime } from './auth/session'
 import { projectRoot } from './config/env';
 import { toHandler } from './http/define-route';
 import { compressWhenAccepted } from './http/compress-when-accepted';
+import { createHandlersInProgress } from './http/handlers-in-progress';
 import { inOrder } from './http/in-order';
 import { parseCookiesWhenRead } from './http/lazy-cookies';
 import { weakEtag } from './http/weak-etag';
@@ -107,6 +108,11 @@ export interface HalflightApp extends express.Express {
   startJobs(): Promise<void>;
   /** Closes what the app opened itself (job queue, the session store's connection pool). */
   closeResources(): Promise<void>;
+  /**
+   * Resolves true once no API route handler is running (also those whose client has gone away),
+   * or false at `deadline` (ms since the epoch). Stopping waits for it before closeResources.
+   */
+  handlersSettled(deadline: number): Promise<boolean>;
 }
 
 const apiCompression = compression({
@@ -181,6 +187,8 @@ export function createApp(options: CreateAppOptions): HalflightApp {
     readAdmission,
   } satisfies AppServices;
   app.locals.openApiDocument = buildOpenApiDocument(routes, appVersion);
+  const handlers = createHandlersInProgress();
+  app.handlersSettled = (deadline) => handlers.settled(deadline);
   app.startJobs = () => jobs.start();
   app.closeResources = async () => {
     await jobs.stop();
@@ -215,7 +223,7 @@ export function createApp(options: CreateAppOptions): HalflightApp {
 
   for (const route of routes) {
     const limiter = route.rateLimit ? [rateLimits.guards[route.rateLimit]] : [];
-    app[route.method](route.path, ...accessGuards(route.access), ...limiter, toHandler(route));
+    app[route.method](route.path, ...accessGuards(route.access), ...limiter, handlers.track(toHandler(route)));
   }
   app.use('/api', apiNotFound);
 

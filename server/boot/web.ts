@@ -26,10 +26,11 @@ const queueOnlyMailer: Mailer = {
 
 /**
  * The web server of one process: mail, the job queue, the Express app and the listener. `stop`
- * stops taking connections, lets requests in progress finish (at most 10 s) and closes what it
- * opened (the job worker gets its own 10 s to finish a running job). With several web workers,
- * only the one that runs the jobs (`runsJobs`) sends mail and runs the local mail catcher, and
- * none listens on the port: each serves the connections the primary hands it (`handedConnections`).
+ * stops taking connections, lets requests in progress finish (at most 10 s in all, counting the
+ * handlers still running for clients that have gone away) and closes what it opened (the job
+ * worker gets its own 10 s to finish a running job). With several web workers, only the one that
+ * runs the jobs (`runsJobs`) sends mail and runs the local mail catcher, and none listens on the
+ * port: each serves the connections the primary hands it (`handedConnections`).
  */
 export async function startWeb(options: {
   config: AppConfig;
@@ -94,7 +95,9 @@ export async function startWeb(options: {
       const handed = serveHandedConnections(createServer(app));
       return {
         async stop() {
+          const deadline = Date.now() + drainMs;
           await handed.close(drainMs);
+          await app.handlersSettled(deadline);
           await closeRest();
         },
       };
@@ -111,10 +114,12 @@ export async function startWeb(options: {
   const listening = server;
   return {
     async stop() {
+      const deadline = Date.now() + drainMs;
       const closed = new Promise<void>((resolve) => listening.close(() => resolve()));
       listening.closeIdleConnections();
       await Promise.race([closed, sleep(drainMs)]);
       listening.closeAllConnections();
+      await app.handlersSettled(deadline);
       await closeRest();
     },
   };
