@@ -19,12 +19,14 @@ export interface UploadReader {
   readSpectrumMatrix(task: Omit<SpectrumMatrixTask, 'limits'>): Promise<SpectrumMatrixOutcome>;
   /** Reads and analyses an absorption titration (ground-state complex evidence) in the same threads. */
   readAbsorptionTitration(task: Omit<AbsorptionTitrationTask, 'limits'>): Promise<AbsorptionTitrationOutcome>;
+  /** Reading threads running or starting now (for tests and diagnostics). */
+  readonly threads: number;
   close(): Promise<void>;
 }
 
 export interface UploadReaderOptions {
   limits?: Partial<UploadLimits>;
-  /** reading threads at most (default 2: the machine's web process keeps a core) */
+  /** reading threads, all started with the reader (default 2: the machine's web process keeps a core) */
   threads?: number;
   /** files waiting for a thread before new ones get 503 */
   queue?: number;
@@ -58,15 +60,20 @@ const threadArguments = () =>
  */
 export function createUploadReader(options: UploadReaderOptions = {}): UploadReader {
   const limits: UploadLimits = { ...DEFAULT_UPLOAD_LIMITS, ...options.limits };
+  const threads = options.threads ?? 2;
   const pool = new Piscina<
     ReadTask | DecayReadTask | SpectrumMatrixTask | AbsorptionTitrationTask,
     ReadOutcome | DecayReadOutcome | SpectrumMatrixOutcome | AbsorptionTitrationOutcome
   >({
     filename: workerFile.href,
-    // One thread waits ready, so its start-up never falls inside a request.
-    minThreads: 1,
-    maxThreads: options.threads ?? 2,
-    idleTimeout: 60_000,
+    // Every thread is started with the reader and kept, so no start-up falls inside a request. With
+    // fewer at first, a burst of files made the pool start another thread and hand it a waiting file
+    // before that thread had loaded the reading code: bench:load's first burst of uploads (10 at
+    // once per web process, reads saturating both cores) had one upload per process wait 0.9-1.2 s
+    // for it, the others of the burst at most 160 ms. The cost: an idle thread with the reading code
+    // loaded holds about 40 MB of resident memory (99.5 -> 139.4 MB for a second thread, node 20).
+    minThreads: threads,
+    maxThreads: threads,
     maxQueue: options.queue ?? 16,
     execArgv: threadArguments(),
     resourceLimits: { maxOldGenerationSizeMb: limits.memoryMb, maxYoungGenerationSizeMb: 32 },
@@ -95,6 +102,9 @@ export function createUploadReader(options: UploadReaderOptions = {}): UploadRea
   }
   return {
     limits,
+    get threads() {
+      return pool.threads.length;
+    },
     read: (fileName, bytes, mapping, study) => run<ReadTask, ReadOutcome>({ fileName, bytes, mapping, limits, study }),
     readDecays: (task) => run<DecayReadTask, DecayReadOutcome>({ ...task, limits }, 'readDecays'),
     readSpectrumMatrix: (task) =>
