@@ -20,7 +20,7 @@ import { studyFormOptions } from '../services/studies/study-form-options.service
 import { listFits, studyHistory } from '../services/studies/study-history.service';
 import { listStudies } from '../services/studies/study-list.service';
 import { replacePoints } from '../services/studies/study-points.service';
-import { createStudy, getStudyDetail, updateStudy } from '../services/studies/study.service';
+import { createStudy, studyDetailAnswer, updateStudy } from '../services/studies/study.service';
 
 const changeErrors = {
   400: { description: 'A field is invalid (details name each)' },
@@ -81,7 +81,8 @@ export const studyRoutes = [
       404: { description: 'No such study in this lab' },
     },
     handler: async ({ req, res, params }) => {
-      res.json(await getStudyDetail(labOf(req), params.studyId));
+      // The detail's JSON with its latest fit as PostgreSQL wrote it (studyDetailAnswer).
+      res.type('json').send(await studyDetailAnswer(labOf(req), params.studyId));
     },
   }),
   defineRoute({

@@ -1,4 +1,5 @@
 import crypto from 'node:crypto';
+import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { settingsOf, solventLabel } from '../../server/services/studies/study-serialize';
 import { apiClient, createLabWithMembers } from '../support/accounts';
@@ -117,6 +118,43 @@ describe('GET /api/labs/:labId/studies/:studyId', () => {
     );
     expect(detail.reviews.at(-1)).toMatchObject({ comment: 'Add a replicate blank', author: names.reviewer });
     expect(detail.nextRevisionId).toBeNull();
+  });
+
+  it('when a study with a fit is opened, then the fit goes out as PostgreSQL prints the stored record, never parsed and written again by the server', async () => {
+    const study = await createStudy(researcher, labId, crypto.randomBytes(3).toString('hex'));
+    await researcher.patch(`${url(study.id)}/points`, { version: 0, points: exactPoints }).expect(200);
+    const answer = await researcher.get(url(study.id)).expect(200);
+    const [stored] = await testApp.sequelize.query<{ id: string; result: string; points_used: string }>(
+      `SELECT f.id, f.result::text AS result, f.points_used::text AS points_used
+         FROM study_fits f JOIN studies s ON s.latest_fit_id = f.id WHERE s.id = $1`,
+      { bind: [study.id], type: QueryTypes.SELECT },
+    );
+    // The stored jsonb's own text (PostgreSQL's spacing and number printing), as it is.
+    expect(answer.text).toContain(`"result" : ${stored!.result}`);
+    expect(answer.text).toContain(`"pointsUsed" : ${stored!.points_used}`);
+    expect(answer.headers['content-type']).toBe('application/json; charset=utf-8');
+    // And the same values as the record read through the model.
+    const { StudyFit } = await import('../../server/models');
+    const fit = (await StudyFit.findByPk(stored!.id))!;
+    expect(answer.body.latestFit).toMatchObject({ id: fit.id, result: fit.result, pointsUsed: fit.pointsUsed });
+    expect(answer.body.latestFit.createdAt).toBe(fit.createdAt.toISOString());
+  });
+
+  it('when the latest fit is an older record whose plot names no axes, then the detail draws it as the screen did then', async () => {
+    const study = await createStudy(researcher, labId, crypto.randomBytes(3).toString('hex'));
+    await researcher.patch(`${url(study.id)}/points`, { version: 0, points: exactPoints }).expect(200);
+    // A record made before the plot series named their axes and carried the left-out points.
+    await testApp.sequelize.query(
+      `UPDATE study_fits f SET result = (f.result #- '{plot,xAxis}') #- '{plot,excluded}'
+         FROM studies s WHERE s.id = $1 AND f.id = s.latest_fit_id`,
+      { bind: [study.id] },
+    );
+    const detail = (await researcher.get(url(study.id)).expect(200)).body;
+    expect(detail.latestFit.result.plot.xAxis).toMatchObject({ label: '[Q] (mM)', unit: 'mM' });
+    expect(detail.latestFit.result.plot.excluded).toEqual([]);
+    expect(detail.latestFit.result.plot.points.map((p: { position: number }) => p.position)).toEqual(
+      detail.latestFit.pointsUsed.map((p: { position: number }) => p.position),
+    );
   });
 
   it("when the study is another lab's, then 404 and nothing of it comes back", async () => {

@@ -142,7 +142,7 @@ const isLegacyResult = (result: FitResult) => !(result.plot as Partial<FitResult
  * modified model), no left-out markers, positions from the points used. The record itself is
  * never changed here; a study's latest such fit is fitted again at start (refit-outdated-fits.ts).
  */
-function withPlotAxes(fit: Pick<StudyFit, 'model' | 'result' | 'pointsUsed'>): FitResult {
+export function withPlotAxes(fit: Pick<StudyFit, 'model' | 'result' | 'pointsUsed'>): FitResult {
   const { result } = fit;
   if (!isLegacyResult(result)) return result;
   const millimolar = { label: '[Q] (mM)', unit: 'mM', scale: fromSi(1, 'mM') };

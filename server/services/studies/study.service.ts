@@ -2,11 +2,12 @@ import type { Sequelize, Transaction } from 'sequelize';
 import type { CreateStudyInput, UpdateStudyInput } from '@shared/schemas/studies';
 import { studySettingsIssues } from '@shared/schemas/studies';
 import type { StudyDetail } from '@shared/schemas/study-detail';
+import type { FitResult, StudyFit as StudyFitRecord } from '@shared/schemas/study-fits';
 import { OneStatement } from '../../db/one-statement';
 import { fixedStatement, selectRows } from '../../db/select-rows';
 import { AppError } from '../../lib/app-error';
 import type { LabContext } from '../../domain/lab-context';
-import { AuditEvent, Study, type StudyFit, type StudyPoint, type StudyReview, type StudyUpload } from '../../models';
+import { AuditEvent, Study, type StudyPoint, type StudyReview, type StudyUpload } from '../../models';
 import { recordLabAudit, unsavedAuditEvent } from '../audit.service';
 import type { SignedInActor } from '../../domain/actor';
 import { loadStudy, requireChangeable, studyNotFound } from './study-access';
@@ -17,7 +18,7 @@ import {
   correctionsOf,
   settingsOf,
   identityOf,
-  toFit,
+  withPlotAxes,
   toPoint,
   toReview,
   toTau0Source,
@@ -167,8 +168,14 @@ const byName = (name: unknown): Named | null => (typeof name === 'string' ? { na
 /**
  * A study's detail as JSON built by PostgreSQL in one round trip: the study row with its emitter,
  * quencher and owner names, the next revision, decay file names, points, latest fit, uploads
- * (never their bytes) and reviews, each with the person's name. Every column of the study, points,
- * fits and reviews comes along, so a column added later reaches the serialisers without a change here.
+ * (never their bytes) and reviews, each with the person's name. Every column of the study, points
+ * and reviews comes along, so a column added later reaches the serialisers without a change here.
+ *
+ * The latest fit comes as the text of its answer (latestFitJson), which the GET answer carries as
+ * it is: its stored result (several KB of numbers, most of a study's answer) was parsed here and
+ * written out again on every read, about a third of the node CPU of opening a study beyond that of
+ * a small read. Beside it: whether its plot names its axes (an older record is reshaped by
+ * toFit first, see withPlotAxes) and its corrections (the points' corrected values).
  */
 const detailSql = fixedStatement(`
   SELECT
@@ -184,29 +191,43 @@ const detailSql = fixedStatement(`
        FROM decay_sets d LEFT JOIN decay_files f ON f.id = d.file_id
       WHERE d.study_id = $1 AND d.lab_id = $2) AS decay_sets,
     (SELECT coalesce(json_agg(p ORDER BY p.position), '[]') FROM study_points p WHERE p.study_id = $1) AS points,
-    (SELECT row_to_json(x) FROM (
-       SELECT f.*, c.name AS created_by_name FROM study_fits f LEFT JOIN users c ON c.id = f.created_by_id
-        WHERE f.id = (SELECT s.latest_fit_id FROM studies s WHERE s.id = $1 AND s.lab_id = $2)) x) AS latest_fit,
+    fit.latest_fit, fit.latest_fit_has_axes, fit.latest_fit_corrections,
     (SELECT coalesce(json_agg(x ORDER BY x.created_at DESC), '[]') FROM (
        SELECT u.id, u.file_name, u.media_type, u.size, u.sha256, u.parse_status, u.parse_report, u.created_at,
               b.name AS uploaded_by_name
          FROM study_uploads u LEFT JOIN users b ON b.id = u.uploaded_by_id WHERE u.study_id = $1) x) AS uploads,
     (SELECT coalesce(json_agg(x ORDER BY x.created_at ASC), '[]') FROM (
        SELECT r.*, a.name AS author_name FROM study_reviews r LEFT JOIN users a ON a.id = r.author_id
-        WHERE r.study_id = $1) x) AS reviews`);
+        WHERE r.study_id = $1) x) AS reviews
+  FROM (SELECT 1) one
+  LEFT JOIN LATERAL (
+    SELECT json_build_object(
+             'id', f.id, 'model', f.model, 'weighting', f.weighting, 'trigger', f.trigger, 'kSv', f.k_sv,
+             'kq', f.kq, 'result', f.result, 'pointsUsed', f.points_used, 'engineVersion', f.engine_version,
+             'createdBy', c.name,
+             'createdAt', to_char(f.created_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"'))::text AS latest_fit,
+           (f.result -> 'plot') ? 'xAxis' AS latest_fit_has_axes,
+           f.result -> 'corrections' AS latest_fit_corrections
+      FROM studies s JOIN study_fits f ON f.id = s.latest_fit_id LEFT JOIN users c ON c.id = f.created_by_id
+     WHERE s.id = $1 AND s.lab_id = $2) fit ON true`);
 
 type DetailRow = {
   study: Record<string, unknown> | null;
   next_id: string | null;
   decay_sets: Array<{ id: string; fileName: string | null }>;
   points: Array<Record<string, unknown>>;
-  latest_fit: Record<string, unknown> | null;
+  /** The latest fit in its answer's shape (StudyFit of shared/schemas/study-fits.ts), as JSON text. */
+  latest_fit: string | null;
+  latest_fit_has_axes: boolean | null;
+  latest_fit_corrections: FitResult['corrections'];
   uploads: Array<Record<string, unknown>>;
   reviews: Array<Record<string, unknown>>;
 };
 
-/** A study's detail. A read never writes: outdated stored fits are fitted again at start (refit-outdated-fits.ts). */
-export async function getStudyDetail(lab: LabContext, studyId: string): Promise<StudyDetail> {
+/** A study's detail with latestFit still null, and the fit's answer as JSON text (null without a fit). */
+type DetailParts = { detail: StudyDetail; latestFitJson: string | null };
+
+async function readStudyDetail(lab: LabContext, studyId: string): Promise<DetailParts> {
   // The study (404 when it is not this lab's) with its names and everything shown beside it, in
   // one round trip as plain rows: no Sequelize query building or model instances on this read, and
   // (a prepared statement) no planning after the first runs on each connection.
@@ -216,10 +237,12 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
   // emitter_name, quencher_name and owner_name become the names identityOf reads.
   const study = modelShaped<Study & Pick<SummaryRow, 'emitterName' | 'quencherName' | 'ownerName'>>(studyRow);
   const points = parts!.points.map((row) => modelShaped<StudyPoint>(row));
-  const fitRow = parts!.latest_fit;
-  const latestFit = fitRow
-    ? modelShaped<StudyFit>({ ...fitRow, created_by: byName(fitRow.created_by_name), created_by_name: undefined })
-    : null;
+  let latestFitJson = parts!.latest_fit;
+  if (latestFitJson !== null && !parts!.latest_fit_has_axes) {
+    // An older record: its plot as the screen drew it then (rare: such fits are fitted again at start).
+    const stored = JSON.parse(latestFitJson) as StudyFitRecord;
+    latestFitJson = JSON.stringify({ ...stored, result: withPlotAxes(stored) });
+  }
   const uploads = parts!.uploads.map((row) =>
     modelShaped<StudyUpload>({ ...row, uploaded_by: byName(row.uploaded_by_name), uploaded_by_name: undefined }),
   );
@@ -232,19 +255,48 @@ export async function getStudyDetail(lab: LabContext, studyId: string): Promise<
     file: set.fileName === null ? null : { fileName: set.fileName },
   }));
   const sources = new Map(decaySets.map((set) => [set.id, set.file?.fileName ?? 'decay file']));
-  const corrections = study.dilutionCorrection || study.innerFilterCorrection ? correctionsOf(latestFit) : new Map();
-  // Object.assign rather than spreads into a new literal (see toSummary).
-  return Object.assign(settingsOf(study), identityOf(study), {
+  const corrections =
+    study.dilutionCorrection || study.innerFilterCorrection
+      ? correctionsOf({ result: { corrections: parts!.latest_fit_corrections } as FitResult })
+      : new Map();
+  // Object.assign rather than spreads into a new literal (see toSummary). latestFit keeps its place
+  // among the fields; the callers put it in.
+  const detail: StudyDetail = Object.assign(settingsOf(study), identityOf(study), {
     previousRevisionId: study.previousRevisionId,
     nextRevisionId: next?.id ?? null,
     version: study.version,
     createdAt: study.createdAt.toISOString(),
     updatedAt: study.updatedAt.toISOString(),
     points: points.map((point) => toPoint(point, corrections, sources)),
-    latestFit: latestFit ? toFit(latestFit) : null,
+    latestFit: null,
     fitProblem: study.fitProblem,
     tau0Source: toTau0Source(study, sources),
     uploads: uploads.map(toUpload),
     reviews: reviews.map(toReview),
   });
+  return { detail, latestFitJson };
 }
+
+/** A study's detail. A read never writes: outdated stored fits are fitted again at start (refit-outdated-fits.ts). */
+export async function getStudyDetail(lab: LabContext, studyId: string): Promise<StudyDetail> {
+  const { detail, latestFitJson } = await readStudyDetail(lab, studyId);
+  if (latestFitJson !== null) detail.latestFit = JSON.parse(latestFitJson) as StudyFitRecord;
+  return detail;
+}
+
+/**
+ * The GET answer of a study's detail as JSON text: what getStudyDetail gives, with the latest
+ * fit's text put in as PostgreSQL wrote it instead of parsed and written out again. Its numbers
+ * and spacing read as PostgreSQL prints them (0.0000046 for 4.6e-6, a space after each colon);
+ * the values are the same. The fit goes in at a marker no stored text can hold (PostgreSQL text
+ * cannot contain U+0000, and the API refuses it: shared/schemas/storable-text.ts).
+ */
+export async function studyDetailAnswer(lab: LabContext, studyId: string): Promise<string> {
+  const { detail, latestFitJson } = await readStudyDetail(lab, studyId);
+  if (latestFitJson === null) return JSON.stringify(detail);
+  const text = JSON.stringify(Object.assign(detail, { latestFit: fitMarker }));
+  return text.replace(fitMarkerJson, () => latestFitJson);
+}
+
+const fitMarker = '\u0000latest fit\u0000';
+const fitMarkerJson = JSON.stringify(fitMarker);
