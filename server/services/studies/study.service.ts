@@ -203,12 +203,14 @@ const detailSql = fixedStatement(`
   LEFT JOIN LATERAL (
     SELECT json_build_object(
              'id', f.id, 'model', f.model, 'weighting', f.weighting, 'trigger', f.trigger, 'kSv', f.k_sv,
-             'kq', f.kq, 'result', f.result, 'pointsUsed', f.points_used, 'engineVersion', f.engine_version,
+             'kq', f.kq, 'result', r.result, 'pointsUsed', f.points_used, 'engineVersion', f.engine_version,
              'createdBy', c.name,
              'createdAt', to_char(f.created_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"'))::text AS latest_fit,
-           (f.result -> 'plot') ? 'xAxis' AS latest_fit_has_axes,
-           f.result -> 'corrections' AS latest_fit_corrections
+           (r.result -> 'plot') ? 'xAxis' AS latest_fit_has_axes,
+           r.result -> 'corrections' AS latest_fit_corrections
       FROM studies s JOIN study_fits f ON f.id = s.latest_fit_id LEFT JOIN users c ON c.id = f.created_by_id
+      -- The stored result is kept compressed (TOAST): read once here, not once per use above.
+      CROSS JOIN LATERAL (SELECT f.result || '{}'::jsonb AS result OFFSET 0) r
      WHERE s.id = $1 AND s.lab_id = $2) fit ON true`);
 
 type DetailRow = {
