@@ -138,6 +138,10 @@ describe('GET /api/labs/:labId/studies/:studyId', () => {
     const fit = (await StudyFit.findByPk(stored!.id))!;
     expect(answer.body.latestFit).toMatchObject({ id: fit.id, result: fit.result, pointsUsed: fit.pointsUsed });
     expect(answer.body.latestFit.createdAt).toBe(fit.createdAt.toISOString());
+    // The detail builds the fit's shape in SQL, the fits list through toFit (study-serialize.ts):
+    // the two must give the very same object, every field, so neither drifts from the other.
+    const fits = await researcher.get(`${url(study.id)}/fits`).expect(200);
+    expect(answer.body.latestFit).toEqual(fits.body.items[0]);
   });
 
   it('when the latest fit is an older record whose plot names no axes, then the detail draws it as the screen did then', async () => {

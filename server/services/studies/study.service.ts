@@ -200,6 +200,7 @@ const detailSql = fixedStatement(`
        SELECT r.*, a.name AS author_name FROM study_reviews r LEFT JOIN users a ON a.id = r.author_id
         WHERE r.study_id = $1) x) AS reviews
   FROM (SELECT 1) one
+  -- The fit in the shape toFit gives (study-serialize.ts); study-detail.test.ts compares the two.
   LEFT JOIN LATERAL (
     SELECT json_build_object(
              'id', f.id, 'model', f.model, 'weighting', f.weighting, 'trigger', f.trigger, 'kSv', f.k_sv,
